@@ -1,0 +1,40 @@
+import { Module } from '@nestjs/common';
+import { ConfigModule } from '@nestjs/config';
+import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { ServeStaticModule } from '@nestjs/serve-static';
+import { ThrottlerGuard, ThrottlerModule } from '@nestjs/throttler';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { AuditModule } from './audit/audit.module.js';
+import { AuthModule } from './auth/auth.module.js';
+import { AllExceptionsFilter } from './common/filters/all-exceptions.filter.js';
+import { JwtAuthGuard } from './common/guards/jwt-auth.guard.js';
+import { RolesGuard } from './common/guards/roles.guard.js';
+import { appConfig } from './config/app.config.js';
+import { DatabaseModule } from './database/database.module.js';
+import { HealthModule } from './health/health.module.js';
+import { MailModule } from './mail/mail.module.js';
+import { UsersModule } from './users/users.module.js';
+
+const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
+
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig] }),
+    ThrottlerModule.forRoot([{ ttl: 60_000, limit: 1200 }]),
+    ...(existsSync(frontendDist) ? [ServeStaticModule.forRoot({ rootPath: frontendDist, exclude: ['/api/{*path}'] })] : []),
+    DatabaseModule,
+    AuditModule,
+    MailModule,
+    UsersModule,
+    AuthModule,
+    HealthModule,
+  ],
+  providers: [
+    { provide: APP_FILTER, useClass: AllExceptionsFilter },
+    { provide: APP_GUARD, useClass: ThrottlerGuard },
+    { provide: APP_GUARD, useClass: JwtAuthGuard },
+    { provide: APP_GUARD, useClass: RolesGuard },
+  ],
+})
+export class AppModule {}

@@ -1,0 +1,23 @@
+import { ApiProperty } from '@nestjs/swagger';
+import { IsString, MaxLength, MinLength } from 'class-validator';
+import { PASSWORD_MIN_LENGTH } from './change-password.dto.js';
+
+export class AcceptInvitationDto {
+  @ApiProperty()
+  @IsString()
+  @MinLength(20, { message: 'The invitation link is incomplete.' })
+  @MaxLength(100)
+  token: string;
+
+  @ApiProperty({ example: 'Dana Fischer' })
+  @IsString()
+  @MinLength(1, { message: 'Enter your name.' })
+  @MaxLength(120)
+  name: string;
+
+  @ApiProperty({ minLength: PASSWORD_MIN_LENGTH })
+  @IsString()
+  @MinLength(PASSWORD_MIN_LENGTH, { message: `Use at least ${PASSWORD_MIN_LENGTH} characters.` })
+  @MaxLength(200)
+  password: string;
+}

@@ -1,0 +1,13 @@
+import { AuditEntry } from '../audit/audit-entry.entity.js';
+import { OutboxMessage } from '../mail/outbox-message.entity.js';
+import { MethodVersion } from '../methods/method-version.entity.js';
+import { Method } from '../methods/method.entity.js';
+import { Notification } from '../notifications/notification.entity.js';
+import { ValidationReport } from '../reports/validation-report.entity.js';
+import { StudyComment } from '../reviews/study-comment.entity.js';
+import { StudySignature } from '../reviews/study-signature.entity.js';
+import { Run } from '../runs/run.entity.js';
+import { ValidationStudy } from '../studies/validation-study.entity.js';
+import { User } from '../users/user.entity.js';
+
+export const entities = [User, OutboxMessage, AuditEntry, Method, MethodVersion, ValidationStudy, StudySignature, StudyComment, Notification, ValidationReport, Run];

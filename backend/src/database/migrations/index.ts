@@ -1,0 +1,5 @@
+import { UsersAndOutbox1764626400000 } from './1764626400000-users-and-outbox.js';
+import { AuditTrail1764626500000 } from './1764626500000-audit-trail.js';
+import { MethodsStudiesRuns1764626600000 } from './1764626600000-methods-studies-runs.js';
+
+export const migrations = [UsersAndOutbox1764626400000, AuditTrail1764626500000, MethodsStudiesRuns1764626600000];

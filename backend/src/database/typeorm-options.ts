@@ -1,0 +1,20 @@
+import type { DataSourceOptions } from 'typeorm';
+import type { DatabaseConfig } from '../config/app.config.js';
+import { entities } from './entities.js';
+import { migrations } from './migrations/index.js';
+import { AuditEntrySubscriber } from '../audit/audit-entry.subscriber.js';
+
+export function typeormOptions(database: DatabaseConfig): DataSourceOptions {
+  const common = { entities, migrations, subscribers: [AuditEntrySubscriber], migrationsRun: true, synchronize: false, logging: ['error' as const] };
+  if (database.type === 'postgres') return { ...common, type: 'postgres', url: database.url, uuidExtension: 'pgcrypto' };
+  return {
+    ...common,
+    type: 'better-sqlite3',
+    database: database.path,
+    enableWAL: true,
+    prepareDatabase: (db: { pragma(sql: string): unknown }) => {
+      db.pragma('foreign_keys = ON');
+      db.pragma('busy_timeout = 5000');
+    },
+  };
+}

@@ -1,0 +1,44 @@
+import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, VersionColumn } from 'typeorm';
+import type { MethodVersionSettings, MethodVersionStatus } from '@meritline/shared';
+import { Method } from './method.entity.js';
+
+/** Study criteria in the engine's format: { figure, op, value, level? }. */
+export type CriteriaSet = { figure: string; op: string; value: number | [number, number]; level?: string | number; label?: string }[];
+
+@Entity('method_versions')
+@Unique(['methodId', 'number'])
+export class MethodVersion {
+  @PrimaryGeneratedColumn('uuid')
+  id: string;
+
+  @Column({ name: 'method_id', type: 'varchar', length: 36 })
+  methodId: string;
+
+  @ManyToOne(() => Method, (method) => method.versions, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'method_id' })
+  method: Method;
+
+  @Column({ type: Number })
+  number: number;
+
+  @Column({ name: 'change_summary', type: 'text' })
+  changeSummary: string;
+
+  @Column({ type: 'varchar', length: 10 })
+  status: MethodVersionStatus;
+
+  @Column({ type: 'simple-json' })
+  criteria: CriteriaSet;
+
+  @Column({ type: 'simple-json' })
+  settings: MethodVersionSettings;
+
+  @Column({ name: 'created_by_id', type: 'varchar', length: 36 })
+  createdById: string;
+
+  @CreateDateColumn({ name: 'created_at' })
+  createdAt: Date;
+
+  @VersionColumn({ name: 'lock_version' })
+  lockVersion: number;
+}

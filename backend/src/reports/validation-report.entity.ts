@@ -1,0 +1,30 @@
+import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
+import { binaryColumnType } from '../database/column-types.js';
+
+/** The signed PDF issued for an approved study, stored once; re-downloads return these bytes. */
+@Entity('validation_reports')
+export class ValidationReport {
+  @PrimaryGeneratedColumn('uuid')
+  id: string;
+
+  @Column({ name: 'study_id', type: 'varchar', length: 36, unique: true })
+  studyId: string;
+
+  @Column({ name: 'method_version_id', type: 'varchar', length: 36 })
+  methodVersionId: string;
+
+  @Column({ type: binaryColumnType })
+  pdf: Buffer;
+
+  @Column({ type: 'varchar', length: 64, unique: true })
+  sha256: string;
+
+  @Column({ name: 'size_bytes', type: Number })
+  sizeBytes: number;
+
+  @Column({ name: 'signed_at', type: Date })
+  signedAt: Date;
+
+  @CreateDateColumn({ name: 'created_at' })
+  createdAt: Date;
+}

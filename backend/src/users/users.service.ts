@@ -1,0 +1,103 @@
+import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import { createHash, randomBytes } from 'node:crypto';
+import { Repository } from 'typeorm';
+import { Role, type UserDto } from '@meritline/shared';
+import type { FieldChanges } from '../audit/audit-entry.entity.js';
+import { AuditService } from '../audit/audit.service.js';
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { MailService } from '../mail/mail.service.js';
+import type { CreateInvitationDto } from './dto/create-invitation.dto.js';
+import type { UpdateUserDto } from './dto/update-user.dto.js';
+import { User } from './user.entity.js';
+
+const INVITATION_DAYS = 7;
+
+export function hashToken(token: string): string {
+  return createHash('sha256').update(token).digest('hex');
+}
+
+export function toUserDto(user: User): UserDto {
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    roles: user.roles,
+    active: user.active,
+    invitationPending: user.passwordHash === null,
+    createdAt: user.createdAt.toISOString(),
+    lastSignInAt: user.lastSignInAt?.toISOString() ?? null,
+  };
+}
+
+@Injectable()
+export class UsersService {
+  constructor(
+    @InjectRepository(User) private readonly users: Repository<User>,
+    private readonly mail: MailService,
+    private readonly audit: AuditService,
+  ) {}
+
+  findAll(): Promise<User[]> {
+    return this.users.find({ order: { name: 'ASC' } });
+  }
+
+  findByEmail(email: string): Promise<User | null> {
+    return this.users.findOneBy({ email: email.trim().toLowerCase() });
+  }
+
+  async findById(id: User['id']): Promise<User> {
+    const user = await this.users.findOneBy({ id });
+    if (!user) throw new NotFoundException('User not found.');
+    return user;
+  }
+
+  findActiveWithRole(role: Role): Promise<User[]> {
+    return this.findAll().then((users) => users.filter((user) => user.active && user.roles.includes(role)));
+  }
+
+  async invite(dto: CreateInvitationDto, actor: AuthUser): Promise<User> {
+    if (await this.findByEmail(dto.email)) {
+      throw new ConflictException({ statusCode: 409, message: 'A user with this e-mail already exists.', errors: [{ field: 'email', code: 'exists', message: 'A user with this e-mail already exists.' }] });
+    }
+    const token = randomBytes(32).toString('base64url');
+    const user = await this.users.save(
+      this.users.create({
+        ...dto,
+        passwordHash: null,
+        active: true,
+        invitationTokenHash: hashToken(token),
+        invitationExpiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
+      }),
+    );
+    await this.audit.record({ actor, action: 'user.invited', entity: 'user', entityId: user.id, changes: { email: { from: null, to: user.email }, roles: { from: null, to: user.roles } } });
+    await this.mail.sendInvitation(user, token, actor.name);
+    return user;
+  }
+
+  async update(id: User['id'], dto: UpdateUserDto, actor: AuthUser): Promise<User> {
+    const user = await this.findById(id);
+    if (id === actor.id && (dto.active === false || (dto.roles && !dto.roles.includes(Role.Admin)))) {
+      throw new ForbiddenException('You cannot deactivate yourself or remove your own administrator role.');
+    }
+    const changes: FieldChanges = {};
+    for (const key of ['name', 'roles', 'active'] as const) {
+      if (dto[key] !== undefined && JSON.stringify(dto[key]) !== JSON.stringify(user[key])) changes[key] = { from: user[key], to: dto[key] };
+    }
+    Object.assign(user, dto);
+    const saved = await this.users.save(user);
+    if (Object.keys(changes).length) await this.audit.record({ actor, action: 'user.updated', entity: 'user', entityId: id, changes });
+    return saved;
+  }
+
+  async acceptInvitation(token: string, name: string, passwordHash: string): Promise<User | null> {
+    const user = await this.users.findOneBy({ invitationTokenHash: hashToken(token) });
+    if (!user || !user.active || !user.invitationExpiresAt || user.invitationExpiresAt < new Date()) return null;
+    Object.assign(user, { name, passwordHash, invitationTokenHash: null, invitationExpiresAt: null });
+    return this.users.save(user);
+  }
+
+  save(user: User): Promise<User> {
+    return this.users.save(user);
+  }
+}
