@@ -1,0 +1,379 @@
+import { StudyValidationError } from '../errors.js';
+import type {
+  BackCalculatedPoint,
+  BandPoint,
+  BracketSegment,
+  CalibrationLevel,
+  CalibrationResult,
+  ExcludedStandard,
+  Interval,
+} from '../result.js';
+import type { CalibrationModel, StandardPoint, Weighting } from '../study.js';
+import { fUpper, studentQuantile } from './distributions.js';
+import { fitQuadratic, type QuadraticCore } from './quadratic.js';
+import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
+import { groupBy, linspace, mean, sd } from './stats.js';
+
+export interface FitOptions {
+  model?: CalibrationModel;
+  weighting?: Weighting;
+  confidence?: number;
+  twoPoint?: { bracketing: boolean };
+}
+
+export interface FitPoint {
+  index: number;
+  x: number;
+  y: number;
+}
+
+/** A fitted calibration: the result section plus what prediction and inversion need. */
+export interface CalibrationFit {
+  model: CalibrationModel;
+  weighting: Weighting;
+  confidence: number;
+  points: FitPoint[];
+  calibration: CalibrationResult;
+  /** Regression core (null for one- and two-point calibrations). */
+  core: RegressionCore | null;
+  segments: BracketSegment[] | null;
+  /** Normalised weight at x (1 without weighting). */
+  weightAt(x: number): number;
+  predict(x: number): number;
+  slopeAt(x: number): number;
+  /** x for a response, or null where the curve cannot be inverted. */
+  inverse(y: number): number | null;
+}
+
+export const BAND_POINTS = 101;
+
+function weightPower(weighting: Weighting): number {
+  return weighting === '1/x' ? 1 : weighting === '1/x2' ? 2 : 0;
+}
+
+/** Weights 1/x^p normalised so that they sum to n; the normalising scale is kept for w(x). */
+function makeWeights(x: readonly number[], weighting: Weighting): { w: number[]; weightAt: (at: number) => number } {
+  const power = weightPower(weighting);
+  if (power === 0) return { w: x.map(() => 1), weightAt: () => 1 };
+  const raw = x.map((v) => v ** -power);
+  let total = 0;
+  for (const r of raw) total += r;
+  const scale = total / x.length;
+  return { w: raw.map((r) => r / scale), weightAt: (at: number) => at ** -power / scale };
+}
+
+function interval(centre: number, halfWidth: number): Interval {
+  return [centre - halfWidth, centre + halfWidth];
+}
+
+function fail(code: string, message: string, field = 'standards'): never {
+  throw StudyValidationError.single(field, code, message);
+}
+
+function usedPoints(standards: readonly StandardPoint[]): { points: FitPoint[]; excluded: ExcludedStandard[] } {
+  const points: FitPoint[] = [];
+  const excluded: ExcludedStandard[] = [];
+  standards.forEach((s, index) => {
+    if (s.excluded) excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
+    else points.push({ index, x: s.x, y: s.y });
+  });
+  return { points, excluded };
+}
+
+/** Real root of c2 z² + c1 z + c0 = 0 on the branch that covers [zLo, zHi]. */
+export function invertQuadratic(core: QuadraticCore, y: number, xMin: number, xMax: number): number | null {
+  const [c0, c1, c2] = core.zCoefficients;
+  const zLo = (xMin - core.centre) / core.scale;
+  const zHi = (xMax - core.centre) / core.scale;
+  const k = c0 - y;
+  if (Math.abs(c2) <= 1e-14 * (Math.abs(c1) + Math.abs(c0))) {
+    return c1 === 0 ? null : core.centre + core.scale * (-k / c1);
+  }
+  const disc = c1 * c1 - 4 * c2 * k;
+  if (disc < 0) return null;
+  const q = -0.5 * (c1 + (c1 >= 0 ? 1 : -1) * Math.sqrt(disc));
+  const roots = [q / c2, q === 0 ? q / c2 : k / q];
+  const vertex = -c1 / (2 * c2);
+  let z: number | undefined;
+  if (vertex <= zLo || vertex >= zHi) {
+    const side = Math.sign((zLo + zHi) / 2 - vertex);
+    z = roots.find((r) => Math.sign(r - vertex) === side || r === vertex);
+  } else {
+    const tol = 1e-12 * (zHi - zLo);
+    const inside = roots.filter((r) => r >= zLo - tol && r <= zHi + tol);
+    if (inside.length === 1 || (inside.length === 2 && inside[0] === inside[1])) z = inside[0];
+  }
+  return z === undefined ? null : core.centre + core.scale * z;
+}
+
+function buildSegments(points: FitPoint[]): { levels: { x: number; yMean: number }[]; segments: BracketSegment[] } {
+  const levels = [...groupBy(points, (p) => p.x).entries()]
+    .map(([x, group]) => ({ x, yMean: mean(group.map((p) => p.y)) }))
+    .sort((p, q) => p.x - q.x);
+  const segments: BracketSegment[] = [];
+  for (let i = 1; i < levels.length; i++) {
+    const lo = levels[i - 1];
+    const hi = levels[i];
+    const slope = (hi.yMean - lo.yMean) / (hi.x - lo.x);
+    if (slope === 0) fail('zero_slope', `the mean responses at x = ${lo.x} and x = ${hi.x} are equal: zero slope`);
+    segments.push({ xLow: lo.x, xHigh: hi.x, slope, intercept: lo.yMean - slope * lo.x });
+  }
+  const increasing = segments[0].slope > 0;
+  if (segments.some((s) => s.slope > 0 !== increasing)) {
+    fail('not_monotonic', 'the mean responses do not rise (or fall) steadily with x, so an unknown cannot be bracketed');
+  }
+  return { levels, segments };
+}
+
+function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
+  const responseAt = (s: BracketSegment, x: number) => s.intercept + s.slope * x;
+  for (const s of segments) {
+    const a = responseAt(s, s.xLow);
+    const b = responseAt(s, s.xHigh);
+    if (y >= Math.min(a, b) && y <= Math.max(a, b)) return s;
+  }
+  const first = segments[0];
+  const below = first.slope > 0 ? y < responseAt(first, first.xLow) : y > responseAt(first, first.xLow);
+  return below ? first : segments[segments.length - 1];
+}
+
+function levelSummaries(points: FitPoint[], backCalculated: BackCalculatedPoint[]): CalibrationLevel[] {
+  const byX = groupBy(
+    points.map((p, i) => ({ ...p, xBack: backCalculated[i].xBack })),
+    (p) => p.x,
+  );
+  return [...byX.entries()]
+    .sort(([a], [b]) => a - b)
+    .map(([x, group]) => {
+      const ys = group.map((g) => g.y);
+      const backs = group.map((g) => g.xBack).filter((v): v is number => v !== null);
+      const xBackMean = backs.length === group.length ? mean(backs) : null;
+      const backSd = backs.length === group.length ? sd(backs) : null;
+      return {
+        x,
+        n: group.length,
+        yMean: mean(ys),
+        ySd: sd(ys),
+        xBackMean,
+        rePct: xBackMean === null || x === 0 ? null : (100 * (xBackMean - x)) / x,
+        rsdPct: backSd === null || xBackMean === null || xBackMean === 0 ? null : (100 * backSd) / Math.abs(xBackMean),
+      };
+    });
+}
+
+function assertComputable(values: number[]): void {
+  if (values.some((v) => !Number.isFinite(v))) {
+    fail('not_computable', 'the standards give no finite calibration (values too large or too close together)');
+  }
+}
+
+/** Fits a calibration of the chosen model to the standards that are not excluded. */
+export function fitCalibration(standards: readonly StandardPoint[], options: FitOptions = {}): CalibrationFit {
+  const model = options.model ?? 'linear';
+  const weighting = options.weighting ?? 'none';
+  const confidence = options.confidence ?? 0.95;
+  const { points, excluded } = usedPoints(standards);
+  const xs = points.map((p) => p.x);
+  const ys = points.map((p) => p.y);
+  const n = points.length;
+  if (n === 0) fail('too_few', 'no standards to calibrate with');
+  const distinct = new Set(xs).size;
+  const xMin = Math.min(...xs);
+  const xMax = Math.max(...xs);
+  if (weighting !== 'none') {
+    if (model !== 'linear' && model !== 'quadratic') fail('incompatible', `weighting applies only to linear and quadratic`, 'weighting');
+    if (xMin <= 0) fail('not_positive', `weighting ${weighting} needs every standard above zero`);
+  }
+  const { w, weightAt } = makeWeights(xs, weighting);
+
+  let core: RegressionCore | null = null;
+  let segments: BracketSegment[] | null = null;
+  let predict: (x: number) => number;
+  let slopeAt: (x: number) => number;
+  let inverse: (y: number) => number | null;
+  let slope: number;
+  let intercept: number;
+
+  if (model === 'one-point') {
+    if (distinct !== 1) fail('too_many_levels', 'a one-point calibration takes one standard level');
+    if (xMin <= 0) fail('not_positive', 'the one-point standard must have a concentration above zero');
+    slope = mean(ys) / xMin;
+    intercept = 0;
+    if (slope === 0) fail('zero_slope', 'the standard response is zero: zero slope');
+    predict = (x) => slope * x;
+    slopeAt = () => slope;
+    inverse = (y) => y / slope;
+  } else if (model === 'two-point') {
+    if (n < 2 || distinct < 2) fail('all_x_equal', 'a two-point calibration needs two standards at different x');
+    const bracketing = options.twoPoint?.bracketing === true;
+    if (distinct > 2 && !bracketing) fail('too_many_levels', 'a two-point calibration takes two standard levels');
+    const built = buildSegments(points);
+    const outer: BracketSegment = {
+      xLow: built.levels[0].x,
+      xHigh: built.levels[built.levels.length - 1].x,
+      slope: 0,
+      intercept: 0,
+    };
+    outer.slope = (built.levels[built.levels.length - 1].yMean - built.levels[0].yMean) / (outer.xHigh - outer.xLow);
+    outer.intercept = built.levels[0].yMean - outer.slope * outer.xLow;
+    slope = outer.slope;
+    intercept = outer.intercept;
+    if (bracketing) {
+      const segs = built.segments;
+      segments = segs;
+      const segmentAtX = (x: number) => segs.find((s) => x <= s.xHigh) ?? segs[segs.length - 1];
+      predict = (x) => {
+        const s = segmentAtX(x);
+        return s.intercept + s.slope * x;
+      };
+      slopeAt = (x) => segmentAtX(x).slope;
+      inverse = (y) => {
+        const s = pickSegment(segs, y);
+        return (y - s.intercept) / s.slope;
+      };
+    } else {
+      predict = (x) => intercept + slope * x;
+      slopeAt = () => slope;
+      inverse = (y) => (y - intercept) / slope;
+    }
+  } else {
+    const minPoints = model === 'quadratic' ? 4 : 3;
+    if (n < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${n} given)`);
+    if (distinct < 2) fail('all_x_equal', 'all standards have the same x');
+    if (model === 'quadratic' && distinct < 3) fail('too_few_levels', 'a quadratic calibration needs at least 3 distinct x');
+    if (model === 'quadratic') {
+      const q = fitQuadratic(xs, ys, w);
+      core = q;
+      if (q.b === 0 && q.c === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
+      predict = (x) => {
+        const z = (x - q.centre) / q.scale;
+        return q.zCoefficients[0] + z * (q.zCoefficients[1] + z * q.zCoefficients[2]);
+      };
+      slopeAt = (x) => q.b + 2 * q.c * x;
+      inverse = (y) => invertQuadratic(q, y, xMin, xMax);
+    } else {
+      const line = model === 'linear-through-origin' ? fitThroughOrigin(xs, ys) : fitLine(xs, ys, w);
+      core = line;
+      if (line.b === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
+      predict = (x) => line.yMean + line.b * (x - line.xMean);
+      if (model === 'linear-through-origin') predict = (x) => line.b * x;
+      slopeAt = () => line.b;
+      inverse =
+        model === 'linear-through-origin'
+          ? (y) => y / line.b
+          : (y) => line.xMean + (y - line.yMean) / line.b;
+    }
+    slope = core.b;
+    intercept = core.a;
+    assertComputable([core.a, core.b, core.c, core.s]);
+  }
+  assertComputable([slope, intercept]);
+
+  const residuals = core ? core.residuals : points.map((p) => p.y - predict(p.x));
+  const backCalculated: BackCalculatedPoint[] = points.map((p) => {
+    const xBack = inverse(p.y);
+    const finite = xBack !== null && Number.isFinite(xBack) ? xBack : null;
+    return {
+      index: p.index,
+      x: p.x,
+      y: p.y,
+      xBack: finite,
+      rePct: finite === null || p.x === 0 ? null : (100 * (finite - p.x)) / p.x,
+    };
+  });
+
+  let calibration: CalibrationResult;
+  const base = {
+    model,
+    weighting,
+    n,
+    slope,
+    intercept,
+    xMin,
+    xMax,
+    residuals,
+    backCalculated,
+    levels: levelSummaries(points, backCalculated),
+    segments,
+    excluded,
+  };
+  if (core) {
+    const t = core.df > 0 ? studentQuantile((1 + confidence) / 2, core.df) : null;
+    const ci = (estimate: number, se: number | null) => (t === null || se === null ? null : interval(estimate, t * se));
+    const isOrigin = model === 'linear-through-origin';
+    const r2 = core.ssTotal > 0 ? 1 - core.ssResidual / core.ssTotal : 1;
+    const dfTotal = isOrigin ? n : n - 1;
+    const msResidual = core.df > 0 ? core.ssResidual / core.df : 0;
+    const msRegression = core.ssRegression / core.dfRegression;
+    const F = msResidual > 0 ? msRegression / msResidual : null;
+    const c = core;
+    calibration = {
+      ...base,
+      df: core.df,
+      seSlope: core.seB,
+      seIntercept: core.seA,
+      ciSlope: ci(core.b, core.seB),
+      ciIntercept: core.seA === null ? null : ci(core.a, core.seA),
+      curvature: model === 'quadratic' ? core.c : null,
+      seCurvature: model === 'quadratic' ? core.seC : null,
+      ciCurvature: model === 'quadratic' ? ci(core.c, core.seC) : null,
+      r: model === 'quadratic' ? Math.sqrt(Math.max(0, r2)) : Math.sign(core.b) * Math.sqrt(Math.max(0, r2)),
+      r2,
+      adjR2: core.df > 0 ? 1 - ((1 - r2) * dfTotal) / core.df : null,
+      sYX: core.s,
+      t,
+      xMean: core.xMean,
+      yMean: core.yMean,
+      sxx: core.sxx,
+      sumWeights: core.sumWeights,
+      standardizedResiduals: residuals.map((e) => (core.s > 0 ? e / core.s : 0)),
+      bands:
+        t === null
+          ? null
+          : linspace(xMin, xMax, BAND_POINTS).map((x): BandPoint => {
+              const lev = c.leverage(x);
+              return {
+                x,
+                fit: predict(x),
+                confidenceHalfWidth: t * c.s * Math.sqrt(lev),
+                predictionHalfWidth: t * c.s * Math.sqrt(1 / weightAt(x) + lev),
+              };
+            }),
+      anova: {
+        dfRegression: core.dfRegression,
+        ssRegression: core.ssRegression,
+        msRegression,
+        dfResidual: core.df,
+        ssResidual: core.ssResidual,
+        msResidual,
+        F,
+        p: F === null ? null : fUpper(F, core.dfRegression, core.df),
+      },
+    };
+  } else {
+    calibration = {
+      ...base,
+      df: null,
+      seSlope: null,
+      seIntercept: null,
+      ciSlope: null,
+      ciIntercept: null,
+      curvature: null,
+      seCurvature: null,
+      ciCurvature: null,
+      r: null,
+      r2: null,
+      adjR2: null,
+      sYX: null,
+      t: null,
+      xMean: mean(xs),
+      yMean: mean(ys),
+      sxx: xs.reduce((acc, x) => acc + (x - mean(xs)) ** 2, 0),
+      sumWeights: n,
+      standardizedResiduals: null,
+      bands: null,
+      anova: null,
+    };
+  }
+  return { model, weighting, confidence, points, calibration, core, segments, weightAt, predict, slopeAt, inverse };
+}

@@ -1,0 +1,84 @@
+import type { LackOfFitResult, MandelResult } from '../result.js';
+import type { CalibrationFit } from './calibration.js';
+import { fQuantile, fUpper } from './distributions.js';
+import { fitQuadratic } from './quadratic.js';
+import { fitLine } from './regression.js';
+import { groupBy, mean } from './stats.js';
+import type { Warn } from './warnings.js';
+
+const PARAMETERS: Record<string, number> = { linear: 2, 'linear-through-origin': 1, quadratic: 3 };
+
+/** Lack-of-fit F test against the pure error of replicated standards (Draper & Smith ch. 2). */
+export function lackOfFit(fit: CalibrationFit, warn: Warn): LackOfFitResult | null {
+  const p = PARAMETERS[fit.model];
+  const core = fit.core;
+  if (!core || p === undefined) {
+    warn('lackOfFit', 'not_applicable', `no lack-of-fit test for a ${fit.model} calibration`);
+    return null;
+  }
+  const levels = groupBy(fit.points, (pt) => pt.x);
+  const k = levels.size;
+  const n = fit.points.length;
+  if (n - k < 1 || k - p < 1) {
+    warn('lackOfFit', 'too_few', `the lack-of-fit test needs replicated standards and at least ${p + 1} distinct x`);
+    return null;
+  }
+  let ssPureError = 0;
+  for (const group of levels.values()) {
+    const centre = mean(group.map((pt) => pt.y));
+    const w = fit.weightAt(group[0].x);
+    for (const pt of group) ssPureError += w * (pt.y - centre) ** 2;
+  }
+  const dfPureError = n - k;
+  const dfLackOfFit = k - p;
+  if (ssPureError === 0) {
+    warn('lackOfFit', 'no_pure_error', 'the replicates agree exactly, so lack of fit cannot be tested');
+    return null;
+  }
+  const ssLackOfFit = Math.max(0, core.ssResidual - ssPureError);
+  const F = ssLackOfFit / dfLackOfFit / (ssPureError / dfPureError);
+  const pValue = fUpper(F, dfLackOfFit, dfPureError);
+  return {
+    ssPureError,
+    dfPureError,
+    ssLackOfFit,
+    dfLackOfFit,
+    F,
+    p: pValue,
+    critical: fQuantile(fit.confidence, dfLackOfFit, dfPureError),
+    significant: pValue < 1 - fit.confidence,
+  };
+}
+
+/** Mandel's fitting test, straight line against quadratic (ISO 8466-1, DIN 38402-51), at 99 %. */
+export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
+  if (!fit.core) {
+    warn('mandel', 'not_applicable', `no Mandel test for a ${fit.model} calibration`);
+    return null;
+  }
+  const xs = fit.points.map((pt) => pt.x);
+  const ys = fit.points.map((pt) => pt.y);
+  const n = xs.length;
+  if (new Set(xs).size < 4 || n < 4) {
+    warn('mandel', 'too_few', "Mandel's test needs at least 4 distinct x");
+    return null;
+  }
+  const weights = fit.model === 'linear-through-origin' ? xs.map(() => 1) : xs.map((x) => fit.weightAt(x));
+  const line = fitLine(xs, ys, weights);
+  const quad = fitQuadratic(xs, ys, weights);
+  if (quad.ssResidual === 0) {
+    warn('mandel', 'exact_fit', 'the quadratic passes exactly through the standards; Mandel\'s F is undefined');
+    return null;
+  }
+  const F = Math.max(0, line.ssResidual - quad.ssResidual) / (quad.ssResidual / (n - 3));
+  const critical = fQuantile(0.99, 1, n - 3);
+  return {
+    F,
+    p: fUpper(F, 1, n - 3),
+    df: [1, n - 3],
+    sYXLinear: line.s,
+    sYXQuadratic: quad.s,
+    critical,
+    significant: F > critical,
+  };
+}

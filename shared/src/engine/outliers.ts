@@ -1,0 +1,146 @@
+import type { OutlierFlag } from '../result.js';
+import type { Study } from '../study.js';
+import type { CalibrationFit } from './calibration.js';
+import { fQuantile, studentQuantile } from './distributions.js';
+import { groupBy, mean, sd, variance } from './stats.js';
+import type { Warn } from './warnings.js';
+
+const ALPHA = 0.05;
+
+/** Dixon r10 critical values at 95 %, n = 3..10 (Rorabacher, Anal. Chem. 63 (1991) 139). */
+export const DIXON_R10_95: Readonly<Record<number, number>> = {
+  3: 0.97, 4: 0.829, 5: 0.71, 6: 0.625, 7: 0.568, 8: 0.526, 9: 0.493, 10: 0.466,
+};
+
+/** Two-sided Grubbs critical value (Grubbs 1969; ISO 5725-2 Table 5 is these values rounded). */
+export function grubbsCritical(n: number, alpha = ALPHA): number {
+  const t = studentQuantile(1 - alpha / (2 * n), n - 2);
+  return ((n - 1) / Math.sqrt(n)) * Math.sqrt((t * t) / (n - 2 + t * t));
+}
+
+/** Cochran's C critical value for k variances with ν degrees of freedom each. */
+export function cochranCritical(k: number, nu: number, alpha = ALPHA): number {
+  const F = fQuantile(1 - alpha / k, nu, (k - 1) * nu);
+  return 1 / (1 + (k - 1) / F);
+}
+
+export function grubbsStatistic(values: readonly number[]): { G: number; position: number } {
+  const centre = mean(values);
+  const s = sd(values) ?? 0;
+  let position = 0;
+  for (let i = 1; i < values.length; i++) {
+    if (Math.abs(values[i] - centre) > Math.abs(values[position] - centre)) position = i;
+  }
+  return { G: s > 0 ? Math.abs(values[position] - centre) / s : 0, position };
+}
+
+export function dixonStatistic(values: readonly number[]): { Q: number; position: number } {
+  const order = values.map((v, i) => ({ v, i })).sort((p, q) => p.v - q.v);
+  const n = order.length;
+  const range = order[n - 1].v - order[0].v;
+  if (range === 0) return { Q: 0, position: 0 };
+  const low = (order[1].v - order[0].v) / range;
+  const high = (order[n - 1].v - order[n - 2].v) / range;
+  return high >= low ? { Q: high, position: order[n - 1].i } : { Q: low, position: order[0].i };
+}
+
+interface ValueSet {
+  name: string;
+  values: number[];
+  /** Study-array index of each value. */
+  indices: number[];
+}
+
+function testSet(set: ValueSet, flags: OutlierFlag[]): void {
+  const n = set.values.length;
+  if (n < 3) return;
+  const { G, position } = grubbsStatistic(set.values);
+  const gCrit = grubbsCritical(n);
+  flags.push({
+    set: set.name,
+    test: 'grubbs',
+    statistic: G,
+    critical: gCrit,
+    index: set.indices[position],
+    value: set.values[position],
+    outlier: G > gCrit,
+  });
+  const dCrit = DIXON_R10_95[n];
+  if (dCrit !== undefined) {
+    const { Q, position: at } = dixonStatistic(set.values);
+    flags.push({ set: set.name, test: 'dixon', statistic: Q, critical: dCrit, index: set.indices[at], value: set.values[at], outlier: Q > dCrit });
+  }
+}
+
+function cochran(name: string, groups: { values: number[]; index: number }[], flags: OutlierFlag[]): void {
+  const replicated = groups.filter((g) => g.values.length >= 2);
+  if (replicated.length < 2) return;
+  const variances = replicated.map((g) => variance(g.values) as number);
+  const total = variances.reduce((a, b) => a + b, 0);
+  if (total === 0) return;
+  let position = 0;
+  variances.forEach((v, i) => {
+    if (v > variances[position]) position = i;
+  });
+  const counts = [...groupBy(replicated, (g) => g.values.length).entries()].sort((a, b) => b[1].length - a[1].length || b[0] - a[0]);
+  const nu = counts[0][0] - 1;
+  const C = variances[position] / total;
+  const critical = cochranCritical(replicated.length, nu);
+  flags.push({
+    set: name,
+    test: 'cochran',
+    statistic: C,
+    critical,
+    index: replicated[position].index,
+    value: variances[position],
+    outlier: C > critical,
+  });
+}
+
+/** Flags suspect values (Grubbs, Dixon r10, Cochran, standardised residuals); nothing is removed. */
+export function outliers(study: Study, fit: CalibrationFit, recoveryPcts: number[] | null, warn: Warn): OutlierFlag[] | null {
+  const flags: OutlierFlag[] = [];
+  const sets: ValueSet[] = [];
+  if (study.blanks) sets.push({ name: 'blanks', values: [...study.blanks], indices: study.blanks.map((_, i) => i) });
+  const levels = [...groupBy(fit.points, (p) => p.x).entries()].sort(([a], [b]) => a - b);
+  for (const [x, points] of levels) {
+    sets.push({ name: `standards x=${x}`, values: points.map((p) => p.y), indices: points.map((p) => p.index) });
+  }
+  if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
+  const series = [...groupBy(
+    (study.precision ?? []).map((p, index) => ({ ...p, index })),
+    (p) => p.group,
+  ).entries()];
+  for (const [group, items] of series) {
+    sets.push({ name: `precision ${group}`, values: items.map((i) => i.value), indices: items.map((i) => i.index) });
+  }
+  if (series.length >= 3) {
+    sets.push({ name: 'precision series means', values: series.map(([, items]) => mean(items.map((i) => i.value))), indices: series.map((_, i) => i) });
+  }
+  for (const set of sets) testSet(set, flags);
+
+  cochran('standard levels', levels.map(([, points], index) => ({ values: points.map((p) => p.y), index })), flags);
+  cochran('precision series', series.map(([, items], index) => ({ values: items.map((i) => i.value), index })), flags);
+
+  const standardized = fit.calibration.standardizedResiduals;
+  if (standardized && standardized.length > 0) {
+    let position = 0;
+    standardized.forEach((v, i) => {
+      if (Math.abs(v) > Math.abs(standardized[position])) position = i;
+    });
+    flags.push({
+      set: 'calibration residuals',
+      test: 'standardizedResidual',
+      statistic: Math.abs(standardized[position]),
+      critical: 3,
+      index: fit.points[position].index,
+      value: fit.calibration.residuals[position],
+      outlier: Math.abs(standardized[position]) > 3,
+    });
+  }
+  if (flags.length === 0) {
+    warn('outliers', 'too_few', 'no set of values large enough for an outlier test (3 values, or 2 replicated groups)');
+    return null;
+  }
+  return flags;
+}

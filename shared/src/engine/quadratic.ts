@@ -1,0 +1,154 @@
+import { cleanResidual, type RegressionCore } from './regression.js';
+import { weightedMean } from './stats.js';
+
+/**
+ * Householder QR least squares for a tall matrix (rows × p, row-major copy is overwritten).
+ * Returns the coefficients and the upper-triangular R.
+ */
+function householderLeastSquares(matrix: number[][], rhs: number[], p: number): { beta: number[]; r: number[][] } {
+  const m = matrix.length;
+  for (let k = 0; k < p; k++) {
+    let norm = 0;
+    for (let i = k; i < m; i++) norm = Math.hypot(norm, matrix[i][k]);
+    if (norm === 0) continue;
+    const alpha = matrix[k][k] > 0 ? -norm : norm;
+    const v = new Array<number>(m).fill(0);
+    for (let i = k; i < m; i++) v[i] = matrix[i][k];
+    v[k] -= alpha;
+    let vv = 0;
+    for (let i = k; i < m; i++) vv += v[i] * v[i];
+    if (vv === 0) continue;
+    for (let j = k; j < p; j++) {
+      let dot = 0;
+      for (let i = k; i < m; i++) dot += v[i] * matrix[i][j];
+      const f = (2 * dot) / vv;
+      for (let i = k; i < m; i++) matrix[i][j] -= f * v[i];
+    }
+    let dot = 0;
+    for (let i = k; i < m; i++) dot += v[i] * rhs[i];
+    const f = (2 * dot) / vv;
+    for (let i = k; i < m; i++) rhs[i] -= f * v[i];
+  }
+  const r = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => (j >= i ? matrix[i][j] : 0)));
+  const beta = new Array<number>(p).fill(0);
+  for (let i = p - 1; i >= 0; i--) {
+    let acc = rhs[i];
+    for (let j = i + 1; j < p; j++) acc -= r[i][j] * beta[j];
+    beta[i] = acc / r[i][i];
+  }
+  return { beta, r };
+}
+
+function invertUpper(r: number[][]): number[][] {
+  const p = r.length;
+  const inv = Array.from({ length: p }, () => new Array<number>(p).fill(0));
+  for (let j = 0; j < p; j++) {
+    inv[j][j] = 1 / r[j][j];
+    for (let i = j - 1; i >= 0; i--) {
+      let acc = 0;
+      for (let k = i + 1; k <= j; k++) acc += r[i][k] * inv[k][j];
+      inv[i][j] = -acc / r[i][i];
+    }
+  }
+  return inv;
+}
+
+export interface QuadraticCore extends RegressionCore {
+  /** Coefficients in z = (x − centre)/scale: ŷ = c0 + c1 z + c2 z². */
+  zCoefficients: [number, number, number];
+  centre: number;
+  scale: number;
+}
+
+/** y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares). */
+export function fitQuadratic(x: readonly number[], y: readonly number[], w: readonly number[]): QuadraticCore {
+  const n = x.length;
+  let sumWeights = 0;
+  for (const wi of w) sumWeights += wi;
+  const ones = new Array<number>(n).fill(1);
+  const centre = weightedMean(x, ones, n);
+  let scale = 0;
+  for (const v of x) scale = Math.max(scale, Math.abs(v - centre));
+  if (scale === 0) scale = 1;
+  const z = x.map((v) => (v - centre) / scale);
+  const matrix = z.map((zi, i) => {
+    const sw = Math.sqrt(w[i]);
+    return [sw, sw * zi, sw * zi * zi];
+  });
+  const rhs = y.map((yi, i) => Math.sqrt(w[i]) * yi);
+  const { beta, r } = householderLeastSquares(matrix, rhs, 3);
+  const [c0, c1, c2] = beta;
+
+  const residuals = new Array<number>(n);
+  let ssResidual = 0;
+  for (let i = 0; i < n; i++) {
+    const fitted = c0 + z[i] * (c1 + z[i] * c2);
+    const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(c0) + Math.abs(c1 * z[i]) + Math.abs(c2 * z[i] * z[i]));
+    residuals[i] = e;
+    ssResidual += w[i] * e * e;
+  }
+  const yMean = weightedMean(y, w, sumWeights);
+  const xMean = weightedMean(x, w, sumWeights);
+  let ssTotal = 0;
+  let sxx = 0;
+  for (let i = 0; i < n; i++) {
+    ssTotal += w[i] * (y[i] - yMean) * (y[i] - yMean);
+    sxx += w[i] * (x[i] - xMean) * (x[i] - xMean);
+  }
+  const df = n - 3;
+  const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
+
+  const m = centre / scale;
+  const transform = [
+    [1, -m, m * m],
+    [0, 1 / scale, (-2 * m) / scale],
+    [0, 0, 1 / (scale * scale)],
+  ];
+  const rInv = invertUpper(r);
+  const rowNorm = (row: number[]) => {
+    let acc = 0;
+    for (let j = 0; j < 3; j++) {
+      let v = 0;
+      for (let k = 0; k < 3; k++) v += row[k] * rInv[k][j];
+      acc += v * v;
+    }
+    return Math.sqrt(acc);
+  };
+  const a = c0 - c1 * m + c2 * m * m;
+  const b = (c1 - 2 * c2 * m) / scale;
+  const c = c2 / (scale * scale);
+  return {
+    n,
+    df,
+    a,
+    b,
+    c,
+    seA: s * rowNorm(transform[0]),
+    seB: s * rowNorm([0, transform[1][1], transform[1][2]]),
+    seC: s * rowNorm([0, 0, transform[2][2]]),
+    s,
+    ssResidual,
+    ssTotal,
+    ssRegression: ssTotal - ssResidual,
+    dfRegression: 2,
+    xMean,
+    yMean,
+    sxx,
+    sumWeights,
+    residuals,
+    zCoefficients: [c0, c1, c2],
+    centre,
+    scale,
+    leverage: (at: number) => {
+      const zz = (at - centre) / scale;
+      const v = [1, zz, zz * zz];
+      let acc = 0;
+      for (let j = 0; j < 3; j++) {
+        let u = 0;
+        for (let k = 0; k <= j; k++) u += rInv[k][j] * v[k];
+        acc += u * u;
+      }
+      return acc;
+    },
+  };
+}

@@ -1,0 +1,133 @@
+import { weightedMean } from './stats.js';
+
+/** Least-squares core shared by every regression model: enough to predict, invert and band. */
+export interface RegressionCore {
+  n: number;
+  df: number;
+  /** Coefficients in the raw x basis: intercept, slope, curvature (0 when absent). */
+  a: number;
+  b: number;
+  c: number;
+  seA: number | null;
+  seB: number;
+  seC: number | null;
+  s: number;
+  ssResidual: number;
+  /** Centred (or, through the origin, uncentred) weighted total sum of squares of y. */
+  ssTotal: number;
+  ssRegression: number;
+  dfRegression: number;
+  xMean: number;
+  yMean: number;
+  sxx: number;
+  sumWeights: number;
+  residuals: number[];
+  /** Variance of the fitted mean response at x divided by s². */
+  leverage(x: number): number;
+}
+
+/** Drops round-off residuals of an exact fit so that s_y/x is exactly zero there. */
+export function cleanResidual(e: number, scale: number): number {
+  return Math.abs(e) <= 8 * Number.EPSILON * scale ? 0 : e;
+}
+
+/** Weighted (w ≡ 1: ordinary) straight-line least squares on centred sums. */
+export function fitLine(x: readonly number[], y: readonly number[], w: readonly number[]): RegressionCore {
+  const n = x.length;
+  let sumWeights = 0;
+  for (const wi of w) sumWeights += wi;
+  const xMean = weightedMean(x, w, sumWeights);
+  const yMean = weightedMean(y, w, sumWeights);
+  let sxx = 0;
+  let sxy = 0;
+  let syy = 0;
+  for (let i = 0; i < n; i++) {
+    const dx = x[i] - xMean;
+    const dy = y[i] - yMean;
+    sxx += w[i] * dx * dx;
+    sxy += w[i] * dx * dy;
+    syy += w[i] * dy * dy;
+  }
+  const b = sxy / sxx;
+  const a = yMean - b * xMean;
+  const residuals = new Array<number>(n);
+  let ssResidual = 0;
+  for (let i = 0; i < n; i++) {
+    const dy = y[i] - yMean;
+    const fitted = b * (x[i] - xMean);
+    const e = cleanResidual(dy - fitted, Math.abs(y[i]) + Math.abs(yMean) + Math.abs(fitted));
+    residuals[i] = e;
+    ssResidual += w[i] * e * e;
+  }
+  const df = n - 2;
+  const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
+  return {
+    n,
+    df,
+    a,
+    b,
+    c: 0,
+    seA: s * Math.sqrt(1 / sumWeights + (xMean * xMean) / sxx),
+    seB: s / Math.sqrt(sxx),
+    seC: null,
+    s,
+    ssResidual,
+    ssTotal: syy,
+    ssRegression: b * sxy,
+    dfRegression: 1,
+    xMean,
+    yMean,
+    sxx,
+    sumWeights,
+    residuals,
+    leverage: (at: number) => 1 / sumWeights + ((at - xMean) * (at - xMean)) / sxx,
+  };
+}
+
+/** Straight line through the origin; R² and the regression SS are uncentred (NIST StRD convention). */
+export function fitThroughOrigin(x: readonly number[], y: readonly number[]): RegressionCore {
+  const n = x.length;
+  let sxx0 = 0;
+  let sxy0 = 0;
+  let syy0 = 0;
+  for (let i = 0; i < n; i++) {
+    sxx0 += x[i] * x[i];
+    sxy0 += x[i] * y[i];
+    syy0 += y[i] * y[i];
+  }
+  const b = sxy0 / sxx0;
+  const residuals = new Array<number>(n);
+  let ssResidual = 0;
+  for (let i = 0; i < n; i++) {
+    const fitted = b * x[i];
+    const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(fitted));
+    residuals[i] = e;
+    ssResidual += e * e;
+  }
+  const df = n - 1;
+  const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
+  const xMean = weightedMean(x, new Array<number>(n).fill(1), n);
+  let sxx = 0;
+  for (const v of x) sxx += (v - xMean) * (v - xMean);
+  return {
+    n,
+    df,
+    a: 0,
+    b,
+    c: 0,
+    seA: null,
+    seB: s / Math.sqrt(sxx0),
+    seC: null,
+    s,
+    ssResidual,
+    ssTotal: syy0,
+    ssRegression: b * sxy0,
+    dfRegression: 1,
+    xMean,
+    yMean: weightedMean(y, new Array<number>(n).fill(1), n),
+    sxx,
+    sumWeights: n,
+    residuals,
+    leverage: (at: number) => (at * at) / sxx0,
+  };
+}

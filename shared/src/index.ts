@@ -1,0 +1,26 @@
+export * from './roles.js';
+export * from './api-types.js';
+export { ENGINE_VERSION } from './version.js';
+export { parseStudy } from './validate.js';
+export { evaluateStudy } from './evaluate.js';
+export { StudyValidationError, type StudyFieldError } from './errors.js';
+export { canonicalJson } from './canonical.js';
+export { parseStandardsCsv } from './csv.js';
+export { fitCalibration, BAND_POINTS, type CalibrationFit, type FitOptions, type FitPoint } from './engine/calibration.js';
+export { predictUnknown, type Prediction } from './engine/inverse.js';
+export { horwitzRsd } from './engine/precision.js';
+export { grubbsCritical, cochranCritical, grubbsStatistic, dixonStatistic, DIXON_R10_95 } from './engine/outliers.js';
+export { figureValue } from './engine/criteria.js';
+export {
+  studentQuantile,
+  studentCdf,
+  studentTwoSidedP,
+  fQuantile,
+  fCdf,
+  fUpper,
+  noncentralTCdf,
+  detectionDelta,
+  normalQuantile,
+} from './engine/distributions.js';
+export * from './study.js';
+export type * from './result.js';

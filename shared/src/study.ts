@@ -1,0 +1,92 @@
+export const MODELS = ['linear', 'linear-through-origin', 'quadratic', 'one-point', 'two-point'] as const;
+export type CalibrationModel = (typeof MODELS)[number];
+
+export const WEIGHTINGS = ['none', '1/x', '1/x2'] as const;
+export type Weighting = (typeof WEIGHTINGS)[number];
+
+export const CRITERION_OPS = ['>=', '<=', '>', '<', 'between', 'abs<='] as const;
+export type CriterionOp = (typeof CRITERION_OPS)[number];
+
+export interface Units {
+  x?: string;
+  y?: string;
+}
+
+export interface Exclusion {
+  reason: string;
+  [key: string]: unknown;
+}
+
+export interface StandardPoint {
+  x: number;
+  y: number;
+  id?: string;
+  excluded?: Exclusion;
+}
+
+export interface UnknownSample {
+  id: string;
+  y: number[];
+  /** Multiplies the reported concentration; default 1. */
+  dilution?: number;
+}
+
+export interface RecoveryItem {
+  id: string;
+  level?: string;
+  added: number;
+  found: number;
+  /** Amount already present before spiking; default 0. */
+  native?: number;
+}
+
+export interface PrecisionResult {
+  group: string;
+  value: number;
+}
+
+export interface LowSpikes {
+  spiked: number[];
+  /** Method blank results in x units; null = no numerical result. */
+  blanks?: (number | null)[];
+}
+
+export interface Criterion {
+  figure: string;
+  op: CriterionOp;
+  value: number | [number, number];
+}
+
+export interface CheckStandard {
+  id: string;
+  nominal: number;
+  y: number[];
+}
+
+export interface TwoPointOptions {
+  /** Read each unknown off the pair of adjacent standard levels that brackets its response. */
+  bracketing: boolean;
+}
+
+export interface Study {
+  units?: Units;
+  model: CalibrationModel;
+  weighting: Weighting;
+  confidence: number;
+  alpha: number;
+  standards: StandardPoint[];
+  twoPoint?: TwoPointOptions;
+  blanks?: number[];
+  unknowns?: UnknownSample[];
+  checks?: CheckStandard[];
+  recovery?: RecoveryItem[];
+  precision?: PrecisionResult[];
+  lowSpikes?: LowSpikes;
+  /** Analyte mass fraction (1 mg/kg = 1e-6) for the Horwitz prediction. */
+  massFraction?: number;
+  criteria?: Criterion[];
+}
+
+/** What a caller may send: everything with a default may be left out. */
+export type StudyInput = Omit<Study, 'model' | 'weighting' | 'confidence' | 'alpha'> &
+  Partial<Pick<Study, 'model' | 'weighting' | 'confidence' | 'alpha'>>;

@@ -1,0 +1,1 @@
+export const ENGINE_VERSION = '1.0.0';
