@@ -1,0 +1,67 @@
+import { Role } from '@meritline/shared';
+import { useState, type ComponentType } from 'react';
+import { createBrowserRouter, type RouteObject } from 'react-router';
+import { RouterProvider } from 'react-router/dom';
+import { RouteErrorBoundary } from '@/components/error-boundary';
+import { NotFound } from '@/components/not-found';
+import { PageSpinner } from '@/components/page-spinner';
+import { paths } from '@/lib/config/paths';
+import { ProtectedRoute, RequireRole } from './guards';
+
+/** Each page is its own chunk, loaded when first visited. */
+const page = (load: () => Promise<{ default: ComponentType }>) => async () => ({ Component: (await load()).default });
+
+export const routes: RouteObject[] = [
+  {
+    path: '/',
+    ErrorBoundary: RouteErrorBoundary,
+    HydrateFallback: PageSpinner,
+    children: [
+      { path: paths.signIn.path, lazy: page(() => import('@/features/auth/routes/sign-in')) },
+      { path: paths.acceptInvitation.path, lazy: page(() => import('@/features/auth/routes/accept-invitation')) },
+      {
+        Component: ProtectedRoute,
+        children: [
+          { index: true, lazy: page(() => import('./routes/overview')) },
+          { path: paths.changePassword.path, lazy: page(() => import('@/features/auth/routes/change-password')) },
+          { path: paths.verify.path, lazy: page(() => import('@/features/verify/routes/verify-report')) },
+          {
+            element: <RequireRole roles={[Role.Analyst]} />,
+            children: [
+              { path: paths.studies.path, lazy: page(() => import('@/features/studies/routes/studies')) },
+              { path: paths.runs.path, lazy: page(() => import('@/features/runs/routes/routine-batches')) },
+            ],
+          },
+          {
+            element: <RequireRole roles={[Role.Reviewer]} />,
+            children: [{ path: paths.reviews.path, lazy: page(() => import('@/features/reviews/routes/review-queue')) }],
+          },
+          {
+            element: <RequireRole roles={[Role.QualityManager]} />,
+            children: [
+              { path: paths.methods.path, lazy: page(() => import('@/features/methods/routes/methods')) },
+              { path: paths.methodComparison.path, lazy: page(() => import('@/features/methods/routes/version-comparison')) },
+            ],
+          },
+          {
+            element: <RequireRole roles={[Role.Admin]} />,
+            children: [
+              { path: paths.users.path, lazy: page(() => import('@/features/users/routes/users')) },
+              {
+                path: paths.outbox.path,
+                lazy: page(() => import('@/features/outbox/routes/outbox')),
+                children: [{ path: paths.outboxMessage.path }],
+              },
+            ],
+          },
+          { path: '*', Component: NotFound },
+        ],
+      },
+    ],
+  },
+];
+
+export function AppRouter() {
+  const [router] = useState(() => createBrowserRouter(routes));
+  return <RouterProvider router={router} />;
+}

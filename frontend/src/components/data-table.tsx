@@ -1,0 +1,195 @@
+import { Box, Button, chakra, EmptyState, HStack, Skeleton, Table, Text, VStack } from '@chakra-ui/react';
+import {
+  createColumnHelper,
+  createPaginatedRowModel,
+  createSortedRowModel,
+  metaHelper,
+  rowPaginationFeature,
+  rowSortingFeature,
+  sortFn_alphanumeric,
+  sortFn_basic,
+  sortFn_datetime,
+  sortFn_text,
+  tableFeatures,
+  useTable,
+  type ColumnDef,
+  type RowData,
+  type SortingState,
+} from '@tanstack/react-table';
+import type { ReactNode } from 'react';
+
+export interface DataTableColumnMeta {
+  /** Numbers and dates line up on the right, as in a lab notebook. */
+  align?: 'start' | 'end';
+}
+
+export const dataTableFeatures = tableFeatures({
+  rowSortingFeature,
+  sortedRowModel: createSortedRowModel(),
+  sortFns: { alphanumeric: sortFn_alphanumeric, text: sortFn_text, datetime: sortFn_datetime, basic: sortFn_basic },
+  rowPaginationFeature,
+  paginatedRowModel: createPaginatedRowModel(),
+  columnMeta: metaHelper<DataTableColumnMeta>(),
+});
+
+export type DataTableFeatures = typeof dataTableFeatures;
+
+/** Column definitions for a DataTable: `const column = dataTableColumns<UserDto>()` then `column.columns([...])`. */
+export const dataTableColumns = <TData extends RowData>() => createColumnHelper<DataTableFeatures, TData>();
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- each column keeps its own value type
+export type DataTableColumns<TData extends RowData> = ReadonlyArray<ColumnDef<DataTableFeatures, TData, any>>;
+
+export interface DataTableProps<TData extends RowData> {
+  /** Names the table for assistive technology (and tests). */
+  label: string;
+  /** Keep the array stable: declare it at module scope or memoize it. */
+  columns: DataTableColumns<TData>;
+  data: readonly TData[] | undefined;
+  getRowId?: (row: TData) => string;
+  isLoading?: boolean;
+  emptyTitle?: string;
+  emptyDescription?: ReactNode;
+  /** Click a header to sort the rows in the browser. */
+  sortable?: boolean;
+  initialSorting?: SortingState;
+  /** Split the rows into pages of this size in the browser; all rows on one page when left out. */
+  pageSize?: number;
+}
+
+const NO_ROWS: never[] = [];
+
+export function DataTable<TData extends RowData>({
+  label,
+  columns,
+  data,
+  getRowId,
+  isLoading = false,
+  emptyTitle = 'Nothing here yet',
+  emptyDescription,
+  sortable = false,
+  initialSorting = [],
+  pageSize,
+}: DataTableProps<TData>) {
+  const table = useTable({
+    features: dataTableFeatures,
+    columns: columns as ColumnDef<DataTableFeatures, TData>[],
+    data: (data ?? NO_ROWS) as TData[],
+    getRowId: getRowId ? (row) => getRowId(row) : undefined,
+    enableSorting: sortable,
+    manualPagination: pageSize === undefined,
+    initialState: { sorting: initialSorting, pagination: { pageIndex: 0, pageSize: pageSize ?? Number.MAX_SAFE_INTEGER } },
+  });
+
+  const rows = table.getRowModel().rows;
+  const columnCount = table.getAllLeafColumns().length;
+  const { pageIndex } = table.state.pagination;
+  const rowCount = table.getRowCount();
+
+  return (
+    <Box borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" overflow="hidden">
+      <Table.ScrollArea>
+        <Table.Root size="md" aria-label={label} aria-busy={isLoading || undefined} interactive={rows.length > 0}>
+          <Table.Header>
+            {table.getHeaderGroups().map((headerGroup) => (
+              <Table.Row key={headerGroup.id} bg="bg.subtle">
+                {headerGroup.headers.map((header) => {
+                  const align = header.column.columnDef.meta?.align === 'end' ? 'end' : 'start';
+                  const sorted = header.column.getIsSorted();
+                  const canSort = header.column.getCanSort();
+                  return (
+                    <Table.ColumnHeader
+                      key={header.id}
+                      textAlign={align}
+                      textStyle="sectionLabel"
+                      color="fg.muted"
+                      py="3"
+                      aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : canSort ? 'none' : undefined}
+                    >
+                      {header.isPlaceholder ? null : canSort ? (
+                        <SortButton onClick={header.column.getToggleSortingHandler()} justifyContent={align === 'end' ? 'flex-end' : 'flex-start'}>
+                          <table.FlexRender header={header} />
+                          <Text as="span" aria-hidden="true" color={sorted ? 'brand.fg' : 'fg.subtle'}>
+                            {sorted === 'asc' ? '↑' : sorted === 'desc' ? '↓' : '↕'}
+                          </Text>
+                        </SortButton>
+                      ) : (
+                        <table.FlexRender header={header} />
+                      )}
+                    </Table.ColumnHeader>
+                  );
+                })}
+              </Table.Row>
+            ))}
+          </Table.Header>
+          <Table.Body>
+            {isLoading ? (
+              [0, 1, 2].map((index) => (
+                <Table.Row key={index}>
+                  <Table.Cell colSpan={columnCount}>
+                    <Skeleton height="5" />
+                  </Table.Cell>
+                </Table.Row>
+              ))
+            ) : rows.length === 0 ? (
+              <Table.Row>
+                <Table.Cell colSpan={columnCount}>
+                  <EmptyState.Root size="sm">
+                    <EmptyState.Content>
+                      <VStack textAlign="center" gap="1">
+                        <EmptyState.Title>{emptyTitle}</EmptyState.Title>
+                        {emptyDescription && <EmptyState.Description>{emptyDescription}</EmptyState.Description>}
+                      </VStack>
+                    </EmptyState.Content>
+                  </EmptyState.Root>
+                </Table.Cell>
+              </Table.Row>
+            ) : (
+              rows.map((row) => (
+                <Table.Row key={row.id}>
+                  {row.getAllCells().map((cell) => (
+                    <Table.Cell key={cell.id} textAlign={cell.column.columnDef.meta?.align === 'end' ? 'end' : 'start'} py="3">
+                      <table.FlexRender cell={cell} />
+                    </Table.Cell>
+                  ))}
+                </Table.Row>
+              ))
+            )}
+          </Table.Body>
+        </Table.Root>
+      </Table.ScrollArea>
+      {pageSize !== undefined && rowCount > pageSize && (
+        <HStack justify="space-between" px="4" py="3" borderTopWidth="1px" borderColor="border">
+          <Text fontSize="sm" color="fg.muted">
+            Rows {pageIndex * pageSize + 1}–{Math.min((pageIndex + 1) * pageSize, rowCount)} of {rowCount}
+          </Text>
+          <HStack gap="2">
+            <Button size="xs" variant="outline" onClick={() => table.previousPage()} disabled={!table.getCanPreviousPage()}>
+              Previous
+            </Button>
+            <Button size="xs" variant="outline" onClick={() => table.nextPage()} disabled={!table.getCanNextPage()}>
+              Next
+            </Button>
+          </HStack>
+        </HStack>
+      )}
+    </Box>
+  );
+}
+
+const SortButton = chakra('button', {
+  base: {
+    display: 'inline-flex',
+    alignItems: 'center',
+    gap: '1.5',
+    width: 'full',
+    font: 'inherit',
+    letterSpacing: 'inherit',
+    textTransform: 'inherit',
+    color: 'inherit',
+    cursor: 'pointer',
+    borderRadius: 'l1',
+    _hover: { color: 'fg' },
+    _focusVisible: { outline: '2px solid', outlineColor: 'colorPalette.focusRing', outlineOffset: '2px' },
+  },
+});

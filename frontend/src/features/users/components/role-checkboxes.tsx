@@ -1,0 +1,38 @@
+import { Checkbox, CheckboxGroup, Stack, Text } from '@chakra-ui/react';
+import { ALL_ROLES, Role, ROLE_LABELS } from '@meritline/shared';
+
+const ROLE_HINTS: Record<Role, string> = {
+  [Role.Analyst]: 'Runs validation studies and routine batches.',
+  [Role.Reviewer]: 'Checks and signs the work of others.',
+  [Role.QualityManager]: 'Owns methods, criteria and released versions.',
+  [Role.Admin]: 'Manages accounts and roles.',
+};
+
+export interface RoleCheckboxesProps {
+  value: readonly string[];
+  onChange: (roles: Role[]) => void;
+  onBlur?: () => void;
+}
+
+export function RoleCheckboxes({ value, onChange, onBlur }: RoleCheckboxesProps) {
+  return (
+    <CheckboxGroup value={[...value]} onValueChange={(roles) => onChange(roles as Role[])} onBlur={onBlur}>
+      <Stack gap="3">
+        {ALL_ROLES.map((role) => (
+          <Checkbox.Root key={role} value={role} alignItems="flex-start">
+            <Checkbox.HiddenInput />
+            <Checkbox.Control mt="0.5" />
+            <Checkbox.Label>
+              <Text as="span" display="block" fontWeight="500">
+                {ROLE_LABELS[role]}
+              </Text>
+              <Text as="span" display="block" fontSize="sm" color="fg.muted" fontWeight="400">
+                {ROLE_HINTS[role]}
+              </Text>
+            </Checkbox.Label>
+          </Checkbox.Root>
+        ))}
+      </Stack>
+    </CheckboxGroup>
+  );
+}

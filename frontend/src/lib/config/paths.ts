@@ -1,0 +1,42 @@
+const withQuery = (path: string, query: Record<string, string | undefined>) => {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(query)) if (value) params.set(key, value);
+  const search = params.toString();
+  return search ? `${path}?${search}` : path;
+};
+
+export const paths = {
+  home: { path: '/', getHref: () => '/' },
+
+  signIn: {
+    path: '/sign-in',
+    getHref: (redirectTo?: string) => withQuery('/sign-in', { redirectTo: redirectTo === '/' ? undefined : redirectTo }),
+  },
+  acceptInvitation: {
+    path: '/accept-invitation',
+    getHref: (token: string) => withQuery('/accept-invitation', { token }),
+  },
+  changePassword: { path: '/account/password', getHref: () => '/account/password' },
+
+  studies: { path: '/studies', getHref: () => '/studies' },
+  runs: { path: '/runs', getHref: () => '/runs' },
+  reviews: { path: '/reviews', getHref: () => '/reviews' },
+  methods: { path: '/methods', getHref: () => '/methods' },
+  methodComparison: { path: '/methods/compare', getHref: () => '/methods/compare' },
+  verify: { path: '/verify', getHref: () => '/verify' },
+
+  users: { path: '/admin/users', getHref: () => '/admin/users' },
+  outbox: { path: '/admin/outbox', getHref: () => '/admin/outbox' },
+  outboxMessage: {
+    path: '/admin/outbox/:messageId',
+    getHref: (messageId: string) => `/admin/outbox/${encodeURIComponent(messageId)}`,
+  },
+} as const;
+
+/** Only same-site paths may be used after sign-in, never another origin. */
+export function safeRedirectTarget(redirectTo: string | null): string {
+  if (!redirectTo || !redirectTo.startsWith('/') || redirectTo.startsWith('//') || redirectTo.startsWith('/\\')) {
+    return paths.home.getHref();
+  }
+  return redirectTo;
+}
