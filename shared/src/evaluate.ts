@@ -1,5 +1,5 @@
-import { StudyValidationError } from './errors.js';
-import { fitCalibration } from './engine/calibration.js';
+import { fitCalibration, type CalibrationFit } from './engine/calibration.js';
+import { verdict, workingRange } from './engine/criteria.js';
 import { detection, flagLimits } from './engine/detection.js';
 import { homoscedasticity } from './engine/homoscedasticity.js';
 import { interceptTest, throughOrigin } from './engine/intercept.js';
@@ -8,7 +8,6 @@ import { lackOfFit, mandel } from './engine/linearity.js';
 import { outliers } from './engine/outliers.js';
 import { precision } from './engine/precision.js';
 import { recovery } from './engine/recovery.js';
-import { verdict, workingRange } from './engine/criteria.js';
 import { collectWarnings, type Warn } from './engine/warnings.js';
 import type { CheckResult, EvaluationResult, UnknownResult } from './result.js';
 import type { Study } from './study.js';
@@ -31,65 +30,60 @@ function guardFinite(value: unknown, path: string, warn: Warn): unknown {
   return value;
 }
 
-function isStudy(input: unknown): input is Study {
-  return (
-    typeof input === 'object' &&
-    input !== null &&
-    'model' in input &&
-    'weighting' in input &&
-    'confidence' in input &&
-    'alpha' in input
-  );
+function readUnknowns(study: Study, fit: CalibrationFit | null) {
+  if (!fit) return [];
+  return (study.unknowns ?? []).map((u, i) => ({ id: u.id, ...predictUnknown(fit, u.y, u.dilution ?? 1, `unknowns[${i}]`) }));
 }
 
-/** Parses (unless given a parsed study) and computes every section of the evaluation. */
-export function evaluateStudy(input: unknown): EvaluationResult {
-  const study = parseStudy(isStudy(input) ? { ...input } : input);
-  const { warnings, warn } = collectWarnings();
-  const fit = fitCalibration(study.standards, {
-    model: study.model,
-    weighting: study.weighting,
-    confidence: study.confidence,
-    twoPoint: study.twoPoint,
+function readChecks(study: Study, fit: CalibrationFit | null): CheckResult[] | null {
+  if (!fit || !study.checks) return null;
+  return study.checks.map((c, i) => {
+    const found = predictUnknown(fit, c.y, 1, `checks[${i}]`).x0;
+    return { id: c.id, nominal: c.nominal, found, recoveryPct: (100 * found) / c.nominal };
   });
+}
 
-  const predictions = (study.unknowns ?? []).map((u, i) => ({
-    id: u.id,
-    ...predictUnknown(fit, u.y, u.dilution ?? 1, `unknowns[${i}]`),
-  }));
-  const checks: CheckResult[] | null = study.checks
-    ? study.checks.map((c, i) => {
-        const found = predictUnknown(fit, c.y, 1, `checks[${i}]`).x0;
-        return { id: c.id, nominal: c.nominal, found, recoveryPct: (100 * found) / c.nominal };
+/** Parses the study (defaults filled in, errors typed) and computes every section of the evaluation. */
+export function evaluateStudy(input: unknown): EvaluationResult {
+  const study = parseStudy(input);
+  const { warnings, warn } = collectWarnings();
+  const criteria = study.criteria ?? [];
+  const fit = study.standards
+    ? fitCalibration(study.standards, {
+        model: study.model,
+        weighting: study.weighting,
+        confidence: study.confidence,
+        twoPoint: study.twoPoint,
       })
     : null;
+  if (!fit) warn('calibration', 'no_inputs', 'no standards in the study: no calibration');
 
-  const detectionResult = detection(fit, study.blanks, study.lowSpikes, study.alpha, study.criteria ?? [], warn);
+  const detectionResult = detection(fit, study.blanks, study.lowSpikes, study.alpha, criteria, warn);
   const { lod, loq } = flagLimits(detectionResult);
-  const unknowns: (UnknownResult & { yMean: number })[] = predictions.map((p) => {
+  const unknowns: UnknownResult[] = readUnknowns(study, fit).map((p) => {
     const flags = [...p.flags];
     if (lod !== null && p.x0Undiluted < lod) flags.push('belowLod');
     if (loq !== null && p.x0Undiluted < loq) flags.push('belowLoq');
     return { id: p.id, m: p.m, yMean: p.yMean, dilution: p.dilution, x0: p.x0, sX0: p.sX0, ci: p.ci, flags };
   });
-  if (unknowns.length === 0) warn('unknowns', 'no_inputs', 'no unknowns in the study');
+  if (fit && unknowns.length === 0) warn('unknowns', 'no_inputs', 'no unknowns in the study');
 
   const recoveryResult = recovery(study.recovery, study.confidence, warn);
-  const partial: EvaluationResult = {
+  const result: EvaluationResult = {
     engineVersion: ENGINE_VERSION,
     model: study.model,
     weighting: study.weighting,
     confidence: study.confidence,
     alpha: study.alpha,
     units: study.units ?? {},
-    calibration: fit.calibration,
-    lackOfFit: lackOfFit(fit, warn),
-    mandel: mandel(fit, warn),
-    interceptTest: interceptTest(fit, warn),
-    throughOrigin: throughOrigin(fit, unknowns, warn),
-    homoscedasticity: homoscedasticity(fit, study.standards, warn),
+    calibration: fit ? fit.calibration : null,
+    lackOfFit: fit ? lackOfFit(fit, warn) : null,
+    mandel: fit ? mandel(fit, warn) : null,
+    interceptTest: fit ? interceptTest(fit, warn) : null,
+    throughOrigin: fit ? throughOrigin(fit, unknowns, warn) : null,
+    homoscedasticity: fit ? homoscedasticity(fit, study.standards ?? [], warn) : null,
     unknowns: unknowns.length > 0 ? unknowns : null,
-    checks,
+    checks: readChecks(study, fit),
     detection: detectionResult,
     recovery: recoveryResult,
     precision: precision(study.precision, study.massFraction, warn),
@@ -98,9 +92,8 @@ export function evaluateStudy(input: unknown): EvaluationResult {
     verdict: { criteria: [], pass: null },
     warnings,
   };
-  partial.range = workingRange(partial, study.criteria ?? [], study.recovery, warn);
-  partial.verdict = verdict(partial, study.criteria ?? []);
-  return guardFinite(partial, '', warn) as EvaluationResult;
+  result.range = workingRange(result, criteria, study.recovery, warn);
+  result.verdict = verdict(result, criteria);
+  const guarded = guardFinite({ ...result, warnings: [] }, '', warn) as EvaluationResult;
+  return { ...guarded, warnings };
 }
-
-export { StudyValidationError };

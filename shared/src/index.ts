@@ -6,7 +6,7 @@ export { evaluateStudy } from './evaluate.js';
 export { StudyValidationError, type StudyFieldError } from './errors.js';
 export { canonicalJson } from './canonical.js';
 export { parseStandardsCsv } from './csv.js';
-export { fitCalibration, BAND_POINTS, type CalibrationFit, type FitOptions, type FitPoint } from './engine/calibration.js';
+export { fitCalibration, bandAt, BAND_POINTS, type CalibrationFit, type FitOptions, type FitPoint } from './engine/calibration.js';
 export { predictUnknown, type Prediction } from './engine/inverse.js';
 export { horwitzRsd } from './engine/precision.js';
 export { grubbsCritical, cochranCritical, grubbsStatistic, dixonStatistic, DIXON_R10_95 } from './engine/outliers.js';

@@ -1,4 +1,4 @@
-import type { CalibrationModel, CriterionOp, Units, Weighting } from './study.js';
+import type { CalibrationModel, CandidateWeighting, CriterionOp, Units, Weighting } from './study.js';
 
 export type Interval = [number, number];
 
@@ -149,8 +149,8 @@ export interface HomoscedasticityResult {
   p: number;
   critical: number;
   significant: boolean;
-  recommendedWeighting: Weighting;
-  sumAbsRePct: Record<Weighting, number | null>;
+  recommendedWeighting: CandidateWeighting;
+  sumAbsRePct: Record<CandidateWeighting, number | null>;
 }
 
 export type UnknownFlag = 'belowRange' | 'aboveRange' | 'belowLod' | 'belowLoq';
@@ -342,7 +342,7 @@ export interface EvaluationResult {
   confidence: number;
   alpha: number;
   units: Units;
-  calibration: CalibrationResult;
+  calibration: CalibrationResult | null;
   lackOfFit: LackOfFitResult | null;
   mandel: MandelResult | null;
   interceptTest: InterceptTestResult | null;

@@ -1,8 +1,12 @@
 export const MODELS = ['linear', 'linear-through-origin', 'quadratic', 'one-point', 'two-point'] as const;
 export type CalibrationModel = (typeof MODELS)[number];
 
-export const WEIGHTINGS = ['none', '1/x', '1/x2'] as const;
+export const WEIGHTINGS = ['none', '1/x', '1/x2', '1/s2'] as const;
 export type Weighting = (typeof WEIGHTINGS)[number];
+
+/** The weightings judged by the homoscedasticity check (1/s2 needs the lab's own SDs). */
+export const CANDIDATE_WEIGHTINGS = ['none', '1/x', '1/x2'] as const;
+export type CandidateWeighting = (typeof CANDIDATE_WEIGHTINGS)[number];
 
 export const CRITERION_OPS = ['>=', '<=', '>', '<', 'between', 'abs<='] as const;
 export type CriterionOp = (typeof CRITERION_OPS)[number];
@@ -21,6 +25,8 @@ export interface StandardPoint {
   x: number;
   y: number;
   id?: string;
+  /** Standard deviation of the response, for 1/s2 weighting. */
+  sd?: number;
   excluded?: Exclusion;
 }
 
@@ -74,7 +80,8 @@ export interface Study {
   weighting: Weighting;
   confidence: number;
   alpha: number;
-  standards: StandardPoint[];
+  /** Absent: no calibration (precision, recovery or MDL studies only). */
+  standards?: StandardPoint[];
   twoPoint?: TwoPointOptions;
   blanks?: number[];
   unknowns?: UnknownSample[];

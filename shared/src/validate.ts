@@ -110,11 +110,12 @@ function parseStandards(c: Collector, value: unknown): StandardPoint[] {
   value.forEach((item, i) => {
     const field = `standards[${i}]`;
     if (!c.isObject(item, field)) return;
-    c.onlyKeys(item, ['x', 'y', 'id', 'excluded'], field);
+    c.onlyKeys(item, ['x', 'y', 'id', 'sd', 'excluded'], field);
     const x = c.number(item.x, `${field}.x`);
     const y = c.number(item.y, `${field}.y`);
     const point: StandardPoint = { x: x ?? NaN, y: y ?? NaN };
     if (item.id !== undefined) point.id = c.text(item.id, `${field}.id`);
+    if (item.sd !== undefined) point.sd = c.positive(item.sd, `${field}.sd`);
     if (item.excluded !== undefined && item.excluded !== null && item.excluded !== false) {
       if (c.isObject(item.excluded, `${field}.excluded`)) {
         const reason = c.text(item.excluded.reason, `${field}.excluded.reason`);
@@ -231,6 +232,11 @@ function parseCriteria(c: Collector, value: unknown): Criterion[] | undefined {
 
 /** Model requirements that need only the study's shape (the fit itself checks the rest). */
 function checkModelRequirements(c: Collector, study: Study): void {
+  if (!study.standards) {
+    if (study.unknowns?.length) c.add('standards', 'required', 'unknowns can only be read off a calibration: standards are missing');
+    if (study.checks?.length) c.add('standards', 'required', 'check standards need a calibration: standards are missing');
+    return;
+  }
   const used = study.standards.filter((s) => !s.excluded && Number.isFinite(s.x) && Number.isFinite(s.y));
   const levels = new Set(used.map((s) => s.x));
   const n = used.length;
@@ -269,7 +275,10 @@ function checkModelRequirements(c: Collector, study: Study): void {
       c.add('weighting', 'incompatible', `weighting ${study.weighting} applies only to the linear and quadratic models`);
     }
     study.standards.forEach((s, i) => {
-      if (!s.excluded && s.x <= 0) {
+      if (s.excluded) return;
+      if (study.weighting === '1/s2') {
+        if (s.sd === undefined) c.add(`standards[${i}].sd`, 'required', 'weighting 1/s2 needs the SD of every standard');
+      } else if (s.x <= 0) {
         c.add(`standards[${i}].x`, 'not_positive', `weighting ${study.weighting} needs every standard above zero`);
       }
     });
@@ -288,8 +297,8 @@ export function parseStudy(input: unknown): Study {
     weighting: c.oneOf(input.weighting, WEIGHTINGS, 'weighting', 'none'),
     confidence: 0.95,
     alpha: 0.05,
-    standards: parseStandards(c, input.standards),
   };
+  if (input.standards !== undefined) study.standards = parseStandards(c, input.standards);
   const units = parseUnits(c, input.units);
   if (units) study.units = units;
   if (input.confidence !== undefined) {

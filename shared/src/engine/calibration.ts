@@ -25,6 +25,7 @@ export interface FitPoint {
   index: number;
   x: number;
   y: number;
+  sd?: number;
 }
 
 /** A fitted calibration: the result section plus what prediction and inversion need. */
@@ -47,19 +48,40 @@ export interface CalibrationFit {
 
 export const BAND_POINTS = 101;
 
-function weightPower(weighting: Weighting): number {
-  return weighting === '1/x' ? 1 : weighting === '1/x2' ? 2 : 0;
+/** SD of the response at x, interpolated linearly between the standard levels' SDs. */
+function sdProfile(points: readonly FitPoint[]): (at: number) => number {
+  const levels = [...groupBy(points, (p) => p.x).entries()]
+    .map(([x, group]) => ({ x, sd: mean(group.map((p) => p.sd ?? NaN)) }))
+    .sort((a, b) => a.x - b.x);
+  return (at) => {
+    if (at <= levels[0].x) return levels[0].sd;
+    const hi = levels.findIndex((l) => l.x >= at);
+    if (hi < 0) return levels[levels.length - 1].sd;
+    const lo = levels[hi - 1];
+    const f = (at - lo.x) / (levels[hi].x - lo.x);
+    return lo.sd + f * (levels[hi].sd - lo.sd);
+  };
 }
 
-/** Weights 1/x^p normalised so that they sum to n; the normalising scale is kept for w(x). */
-function makeWeights(x: readonly number[], weighting: Weighting): { w: number[]; weightAt: (at: number) => number } {
-  const power = weightPower(weighting);
-  if (power === 0) return { w: x.map(() => 1), weightAt: () => 1 };
-  const raw = x.map((v) => v ** -power);
+/**
+ * Weights 1/x, 1/x² or 1/s² normalised so that they sum to n; the same scale gives w(x)
+ * anywhere (for 1/s², s(x) is interpolated between the standard levels).
+ */
+function makeWeights(points: readonly FitPoint[], weighting: Weighting): { w: number[]; weightAt: (at: number) => number } {
+  if (weighting === 'none') return { w: points.map(() => 1), weightAt: () => 1 };
+  let rawAt: (at: number) => number;
+  if (weighting === '1/s2') {
+    const sdAt = sdProfile(points);
+    rawAt = (at) => sdAt(at) ** -2;
+  } else {
+    const power = weighting === '1/x' ? 1 : 2;
+    rawAt = (at) => at ** -power;
+  }
+  const raw = points.map((p) => (weighting === '1/s2' ? (p.sd as number) ** -2 : rawAt(p.x)));
   let total = 0;
   for (const r of raw) total += r;
-  const scale = total / x.length;
-  return { w: raw.map((r) => r / scale), weightAt: (at: number) => at ** -power / scale };
+  const scale = total / points.length;
+  return { w: raw.map((r) => r / scale), weightAt: (at: number) => rawAt(at) / scale };
 }
 
 function interval(centre: number, halfWidth: number): Interval {
@@ -75,7 +97,7 @@ function usedPoints(standards: readonly StandardPoint[]): { points: FitPoint[]; 
   const excluded: ExcludedStandard[] = [];
   standards.forEach((s, index) => {
     if (s.excluded) excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
-    else points.push({ index, x: s.x, y: s.y });
+    else points.push({ index, x: s.x, y: s.y, sd: s.sd });
   });
   return { points, excluded };
 }
@@ -161,6 +183,28 @@ function levelSummaries(points: FitPoint[], backCalculated: BackCalculatedPoint[
     });
 }
 
+function band(
+  core: RegressionCore,
+  t: number,
+  x: number,
+  predict: (x: number) => number,
+  weightAt: (x: number) => number,
+): BandPoint {
+  const leverage = core.leverage(x);
+  return {
+    x,
+    fit: predict(x),
+    confidenceHalfWidth: t * core.s * Math.sqrt(leverage),
+    predictionHalfWidth: t * core.s * Math.sqrt(1 / weightAt(x) + leverage),
+  };
+}
+
+/** Confidence and prediction half-widths at any x (null without regression statistics). */
+export function bandAt(fit: CalibrationFit, x: number): BandPoint | null {
+  const t = fit.calibration.t;
+  return fit.core && t !== null ? band(fit.core, t, x, fit.predict, fit.weightAt) : null;
+}
+
 function assertComputable(values: number[]): void {
   if (values.some((v) => !Number.isFinite(v))) {
     fail('not_computable', 'the standards give no finite calibration (values too large or too close together)');
@@ -182,9 +226,13 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
   const xMax = Math.max(...xs);
   if (weighting !== 'none') {
     if (model !== 'linear' && model !== 'quadratic') fail('incompatible', `weighting applies only to linear and quadratic`, 'weighting');
-    if (xMin <= 0) fail('not_positive', `weighting ${weighting} needs every standard above zero`);
+    if (weighting === '1/s2') {
+      if (points.some((p) => !(p.sd !== undefined && p.sd > 0))) fail('required', 'weighting 1/s2 needs the SD of every standard');
+    } else if (xMin <= 0) {
+      fail('not_positive', `weighting ${weighting} needs every standard above zero`);
+    }
   }
-  const { w, weightAt } = makeWeights(xs, weighting);
+  const { w, weightAt } = makeWeights(points, weighting);
 
   let core: RegressionCore | null = null;
   let segments: BracketSegment[] | null = null;
@@ -327,18 +375,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
       sxx: core.sxx,
       sumWeights: core.sumWeights,
       standardizedResiduals: residuals.map((e) => (core.s > 0 ? e / core.s : 0)),
-      bands:
-        t === null
-          ? null
-          : linspace(xMin, xMax, BAND_POINTS).map((x): BandPoint => {
-              const lev = c.leverage(x);
-              return {
-                x,
-                fit: predict(x),
-                confidenceHalfWidth: t * c.s * Math.sqrt(lev),
-                predictionHalfWidth: t * c.s * Math.sqrt(1 / weightAt(x) + lev),
-              };
-            }),
+      bands: t === null ? null : linspace(xMin, xMax, BAND_POINTS).map((x) => band(c, t, x, predict, weightAt)),
       anova: {
         dfRegression: core.dfRegression,
         ssRegression: core.ssRegression,

@@ -77,7 +77,7 @@ function worst(values: number[], op: CriterionOp, threshold: number | [number, n
 
 function levelRows(result: EvaluationResult, recovery: readonly RecoveryItem[] | undefined, basis: RangeResult['basis']): RangeLevel[] {
   if (basis === 'standards') {
-    return result.calibration.levels
+    return (result.calibration?.levels ?? [])
       .filter((l) => l.x !== 0)
       .map((l) => ({ x: l.x, values: { 'range.rePct': l.rePct, 'range.rsdPct': l.rsdPct }, pass: false }));
   }

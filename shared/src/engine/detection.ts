@@ -170,18 +170,19 @@ export function epaMdl(lowSpikes: LowSpikes | undefined, warn: Warn): EpaMdlResu
 const APPROACHES: DetectionApproach[] = ['sdResidual', 'sdIntercept', 'blankSd', 'iso11843', 'hubauxVos', 'epaMdl'];
 
 export function detection(
-  fit: CalibrationFit,
+  fit: CalibrationFit | null,
   blanks: readonly number[] | undefined,
   lowSpikes: LowSpikes | undefined,
   alpha: number,
   criteria: readonly Criterion[],
   warn: Warn,
 ): DetectionResult | null {
-  const line = fit.core ? unweightedLine(fit, warn) : null;
+  const line = fit?.core ? unweightedLine(fit, warn) : null;
+  if (!fit && blanks && blanks.length > 0) warn('detection', 'no_calibration', 'blank-based limits need a calibration slope');
   const result: DetectionResult = {
-    sdResidual: sdResidual(fit, line),
-    sdIntercept: sdIntercept(fit),
-    blankSd: blankSd(fit, blanks, warn),
+    sdResidual: fit ? sdResidual(fit, line) : null,
+    sdIntercept: fit ? sdIntercept(fit) : null,
+    blankSd: fit ? blankSd(fit, blanks, warn) : null,
     iso11843: iso11843(line, alpha),
     hubauxVos: hubauxVos(line, alpha, warn),
     epaMdl: epaMdl(lowSpikes, warn),

@@ -1,6 +1,5 @@
 import type { HomoscedasticityResult } from '../result.js';
-import type { StandardPoint, Weighting } from '../study.js';
-import { WEIGHTINGS } from '../study.js';
+import { CANDIDATE_WEIGHTINGS, type CandidateWeighting, type StandardPoint } from '../study.js';
 import { fitCalibration, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { groupBy, variance } from './stats.js';
@@ -12,7 +11,7 @@ function sumAbsRe(fit: CalibrationFit): number {
   return total;
 }
 
-function sumAbsReOrNull(standards: readonly StandardPoint[], fit: CalibrationFit, weighting: Weighting): number | null {
+function sumAbsReOrNull(standards: readonly StandardPoint[], fit: CalibrationFit, weighting: CandidateWeighting): number | null {
   try {
     return sumAbsRe(fitCalibration(standards, { model: fit.model, weighting, confidence: fit.confidence }));
   } catch {
@@ -50,17 +49,17 @@ export function homoscedasticity(
   const df: [number, number] = [high.length - 1, low.length - 1];
   const F = sHigh / sLow;
   const critical = fQuantile(0.99, df[0], df[1]);
-  const sumAbsRePct = {} as Record<Weighting, number | null>;
-  for (const weighting of WEIGHTINGS) {
+  const sumAbsRePct = {} as Record<CandidateWeighting, number | null>;
+  for (const weighting of CANDIDATE_WEIGHTINGS) {
     sumAbsRePct[weighting] =
       weighting === fit.weighting
         ? sumAbsRe(fit)
-        : fit.calibration.xMin > 0
+        : weighting === 'none' || fit.calibration.xMin > 0
           ? sumAbsReOrNull(standards, fit, weighting)
           : null;
   }
-  let recommendedWeighting: Weighting = 'none';
-  for (const weighting of WEIGHTINGS) {
+  let recommendedWeighting: CandidateWeighting = 'none';
+  for (const weighting of CANDIDATE_WEIGHTINGS) {
     const value = sumAbsRePct[weighting];
     const best = sumAbsRePct[recommendedWeighting];
     if (value !== null && best !== null && value < best) recommendedWeighting = weighting;

@@ -98,11 +98,11 @@ function cochran(name: string, groups: { values: number[]; index: number }[], fl
 }
 
 /** Flags suspect values (Grubbs, Dixon r10, Cochran, standardised residuals); nothing is removed. */
-export function outliers(study: Study, fit: CalibrationFit, recoveryPcts: number[] | null, warn: Warn): OutlierFlag[] | null {
+export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts: number[] | null, warn: Warn): OutlierFlag[] | null {
   const flags: OutlierFlag[] = [];
   const sets: ValueSet[] = [];
   if (study.blanks) sets.push({ name: 'blanks', values: [...study.blanks], indices: study.blanks.map((_, i) => i) });
-  const levels = [...groupBy(fit.points, (p) => p.x).entries()].sort(([a], [b]) => a - b);
+  const levels = [...groupBy(fit?.points ?? [], (p) => p.x).entries()].sort(([a], [b]) => a - b);
   for (const [x, points] of levels) {
     sets.push({ name: `standards x=${x}`, values: points.map((p) => p.y), indices: points.map((p) => p.index) });
   }
@@ -122,8 +122,8 @@ export function outliers(study: Study, fit: CalibrationFit, recoveryPcts: number
   cochran('standard levels', levels.map(([, points], index) => ({ values: points.map((p) => p.y), index })), flags);
   cochran('precision series', series.map(([, items], index) => ({ values: items.map((i) => i.value), index })), flags);
 
-  const standardized = fit.calibration.standardizedResiduals;
-  if (standardized && standardized.length > 0) {
+  const standardized = fit?.calibration.standardizedResiduals;
+  if (fit && standardized && standardized.length > 0) {
     let position = 0;
     standardized.forEach((v, i) => {
       if (Math.abs(v) > Math.abs(standardized[position])) position = i;

@@ -1,0 +1,80 @@
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { evaluateStudy } from '@meritline/shared';
+import { afterAll, describe, expect, it } from 'vitest';
+import { rmSync } from 'node:fs';
+import { loadJson, standards } from './helpers.js';
+
+const cli = fileURLToPath(new URL('../../shared/dist/cli.js', import.meta.url));
+const dir = mkdtempSync(join(tmpdir(), 'meritline-cli-'));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+function run(file: string) {
+  return spawnSync(process.execPath, [cli, file], { encoding: 'utf8' });
+}
+
+function write(name: string, content: unknown): string {
+  const path = join(dir, name);
+  writeFileSync(path, typeof content === 'string' ? content : JSON.stringify(content));
+  return path;
+}
+
+const norris = loadJson('nist_strd_norris.json');
+const pontius = loadJson('nist_strd_pontius.json');
+const noint1 = loadJson('nist_strd_noint1.json');
+const miller = loadJson('calibration_miller_fluorescence.json');
+const weighted = loadJson('calibration_miller_weighted.json');
+const sirstv = loadJson('nist_strd_anova_sirstv.json');
+const recovery = loadJson('recovery_examples.json').spike_recovery;
+
+const studies: [string, unknown][] = [
+  ['NIST StRD Norris', { standards: standards(norris.data.x, norris.data.y) }],
+  ['NIST StRD Pontius', { model: 'quadratic', standards: standards(pontius.data.x, pontius.data.y) }],
+  ['NIST StRD NoInt1', { model: 'linear-through-origin', standards: standards(noint1.data.x, noint1.data.y) }],
+  ['Miller & Miller fluorescence', { standards: standards(miller.data.x, miller.data.y), unknowns: [{ id: 'U1', y: [13.5, 13.6] }] }],
+  [
+    'Miller & Miller weighted',
+    {
+      weighting: '1/s2',
+      standards: weighted.data.x.map((x: number, i: number) => ({ x, y: weighted.data.y[i], sd: weighted.data.s[i] })),
+      unknowns: [{ id: 'U1', y: [0.1] }],
+    },
+  ],
+  ['NIST StRD SiRstv', { precision: sirstv.data.group.map((g: number, i: number) => ({ group: String(g), value: sirstv.data.value[i] })) }],
+  ['spike recovery', { recovery: recovery.c_spiked.map((found: number, i: number) => ({ id: `R${i}`, added: recovery.c_added, found, native: recovery.c_unspiked })) }],
+];
+
+describe('CLI: node shared/dist/cli.js <study>', () => {
+  it.each(studies)('%s: exit 0 and the same JSON as evaluateStudy', (name, study) => {
+    const out = run(write(`${name.replace(/\W+/g, '-')}.json`, study));
+    expect(out.stderr).toBe('');
+    expect(out.status).toBe(0);
+    expect(JSON.parse(out.stdout)).toEqual(JSON.parse(JSON.stringify(evaluateStudy(study))));
+  });
+
+  it('reads a CSV of standards with ; and decimal commas', () => {
+    const csv = ['x;y', ...miller.data.x.map((x: number, i: number) => `${x};${String(miller.data.y[i]).replace('.', ',')}`)].join('\n');
+    const out = run(write('fluorescence.csv', csv));
+    expect(out.status).toBe(0);
+    expect(JSON.parse(out.stdout)).toEqual(JSON.parse(JSON.stringify(evaluateStudy({ standards: standards(miller.data.x, miller.data.y) }))));
+  });
+
+  it('bad input: exit 2 with the field named on stderr', () => {
+    const out = run(write('bad.json', { standards: [{ x: 1, y: 2 }, { x: 'two', y: 3 }] }));
+    expect(out.status).toBe(2);
+    expect(out.stdout).toBe('');
+    expect(out.stderr).toContain('standards[1].x');
+  });
+
+  it('not JSON, or a missing file: exit 2 with a message', () => {
+    const broken = run(write('broken.json', '{ "standards": ['));
+    expect(broken.status).toBe(2);
+    expect(broken.stderr).toMatch(/not valid JSON/);
+    const missing = run(join(dir, 'nothing-here.json'));
+    expect(missing.status).toBe(2);
+    expect(missing.stderr).toMatch(/cannot read/);
+  });
+});
