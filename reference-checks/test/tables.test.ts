@@ -74,7 +74,8 @@ describe("Cochran's C critical values (cochran_c_critical_values.csv: formula; c
 
 describe('Horwitz function (Horwitz 1980; AOAC OMA Appendix F 2012 Table D1, horwitz_horrat.json)', () => {
   const ref = loadJson('horwitz_horrat.json');
-  it.each(ref.table)('C = $C_mass_fraction', (row: Record<string, number | null>) => {
+  const table: Record<string, number | null>[] = ref.table;
+  it.each(table)('C = $C_mass_fraction', (row) => {
     const rsd = horwitzRsd(row.C_mass_fraction as number);
     expectRel(rsd, row['RSD_R_pct_2^(1-0.5log10C)'] as number, 1e-12, '2^(1 − 0.5 log10 C)');
     if (row.AOAC_Table_D1_printed !== null) expect(Math.round(rsd)).toBe(row.AOAC_Table_D1_printed);
