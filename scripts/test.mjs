@@ -1,5 +1,6 @@
 // Everything CI runs, in order, with one summary line at the end.
 import { spawn } from 'node:child_process';
+import { startPostgres } from './postgres.mjs';
 import { build, ensureDependencies, ensureSystemPackages, log, root } from './setup.mjs';
 
 const steps = [
@@ -9,7 +10,7 @@ const steps = [
   { name: 'reference checks', cmd: ['npm', 'run', '-s', 'test', '-w', 'reference-checks'] },
   { name: 'unit: backend', cmd: ['npm', 'run', '-s', 'test', '-w', 'backend'] },
   { name: 'unit: frontend', cmd: ['npm', 'run', '-s', 'test', '-w', 'frontend'] },
-  { name: 'API end-to-end', cmd: ['npm', 'run', '-s', 'test:e2e', '-w', 'backend'] },
+  { name: 'API end-to-end', cmd: ['npm', 'run', '-s', 'test:e2e', '-w', 'backend'], services: () => startPostgres() },
   { name: 'browser end-to-end', cmd: ['npm', 'run', '-s', 'test:browser', '-w', 'frontend'] },
 ];
 
@@ -25,13 +26,24 @@ function countTests(output) {
 }
 
 function runStep(step) {
+  let postgres = null;
+  try {
+    postgres = step.services?.() ?? null;
+  } catch (error) {
+    log(`Could not start PostgreSQL for the scale-out tests: ${error.message}`);
+    return Promise.resolve({ ...step, ok: false, seconds: 0, passed: 0, failed: 1 });
+  }
   return new Promise((resolve) => {
     const started = Date.now();
-    const child = spawn(step.cmd[0], step.cmd.slice(1), { cwd: root, env: { ...process.env, FORCE_COLOR: '0', PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1' } });
+    const env = { ...process.env, FORCE_COLOR: '0', PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1', ...(postgres ? { TEST_POSTGRES_URL: postgres.url } : {}) };
+    const child = spawn(step.cmd[0], step.cmd.slice(1), { cwd: root, env });
     let output = '';
     child.stdout.on('data', (chunk) => { output += chunk; process.stdout.write(chunk); });
     child.stderr.on('data', (chunk) => { output += chunk; process.stderr.write(chunk); });
-    child.on('close', (code) => resolve({ ...step, ok: code === 0, seconds: (Date.now() - started) / 1000, ...countTests(output) }));
+    child.on('close', (code) => {
+      postgres?.stop();
+      resolve({ ...step, ok: code === 0, seconds: (Date.now() - started) / 1000, ...countTests(output) });
+    });
   });
 }
 

@@ -11,7 +11,7 @@ export class AuditEntry {
   @Column({ type: Date })
   at: Date;
 
-  @Column({ name: 'actor_id', type: 'varchar', length: 36, nullable: true })
+  @Column({ name: 'actor_id', type: 'uuid', nullable: true })
   actorId: string | null;
 
   @Column({ name: 'actor_name', type: 'varchar', length: 254 })

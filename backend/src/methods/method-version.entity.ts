@@ -11,7 +11,7 @@ export class MethodVersion {
   @PrimaryGeneratedColumn('uuid')
   id: string;
 
-  @Column({ name: 'method_id', type: 'varchar', length: 36 })
+  @Column({ name: 'method_id', type: 'uuid' })
   methodId: string;
 
   @ManyToOne(() => Method, (method) => method.versions, { onDelete: 'CASCADE' })
@@ -33,7 +33,7 @@ export class MethodVersion {
   @Column({ type: 'simple-json' })
   settings: MethodVersionSettings;
 
-  @Column({ name: 'created_by_id', type: 'varchar', length: 36 })
+  @Column({ name: 'created_by_id', type: 'uuid' })
   createdById: string;
 
   @CreateDateColumn({ name: 'created_at' })

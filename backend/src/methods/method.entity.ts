@@ -28,7 +28,7 @@ export class Method {
   @Column({ type: 'varchar', length: 40 })
   purpose: string;
 
-  @Column({ name: 'created_by_id', type: 'varchar', length: 36 })
+  @Column({ name: 'created_by_id', type: 'uuid' })
   createdById: string;
 
   @CreateDateColumn({ name: 'created_at' })

@@ -7,10 +7,10 @@ export class ValidationReport {
   @PrimaryGeneratedColumn('uuid')
   id: string;
 
-  @Column({ name: 'study_id', type: 'varchar', length: 36, unique: true })
+  @Column({ name: 'study_id', type: 'uuid', unique: true })
   studyId: string;
 
-  @Column({ name: 'method_version_id', type: 'varchar', length: 36 })
+  @Column({ name: 'method_version_id', type: 'uuid' })
   methodVersionId: string;
 
   @Column({ type: binaryColumnType })

@@ -7,7 +7,7 @@ export class StudyComment {
   @PrimaryGeneratedColumn('uuid')
   id: string;
 
-  @Column({ name: 'study_id', type: 'varchar', length: 36 })
+  @Column({ name: 'study_id', type: 'uuid' })
   studyId: string;
 
   @ManyToOne(() => ValidationStudy, { onDelete: 'CASCADE' })
@@ -18,10 +18,10 @@ export class StudyComment {
   section: StudySection;
 
   /** Set on replies: the first comment of the thread. */
-  @Column({ name: 'thread_id', type: 'varchar', length: 36, nullable: true })
+  @Column({ name: 'thread_id', type: 'uuid', nullable: true })
   threadId: string | null;
 
-  @Column({ name: 'author_id', type: 'varchar', length: 36 })
+  @Column({ name: 'author_id', type: 'uuid' })
   authorId: string;
 
   @Column({ name: 'author_name', type: 'varchar', length: 120 })

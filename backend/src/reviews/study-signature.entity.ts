@@ -8,14 +8,14 @@ export class StudySignature {
   @PrimaryGeneratedColumn('uuid')
   id: string;
 
-  @Column({ name: 'study_id', type: 'varchar', length: 36 })
+  @Column({ name: 'study_id', type: 'uuid' })
   studyId: string;
 
   @ManyToOne(() => ValidationStudy, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'study_id' })
   study: ValidationStudy;
 
-  @Column({ name: 'signer_id', type: 'varchar', length: 36 })
+  @Column({ name: 'signer_id', type: 'uuid' })
   signerId: string;
 
   @Column({ name: 'signer_name', type: 'varchar', length: 120 })

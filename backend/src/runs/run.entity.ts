@@ -8,7 +8,7 @@ export class Run {
   @PrimaryGeneratedColumn('uuid')
   id: string;
 
-  @Column({ name: 'method_version_id', type: 'varchar', length: 36 })
+  @Column({ name: 'method_version_id', type: 'uuid' })
   methodVersionId: string;
 
   @ManyToOne(() => MethodVersion, { onDelete: 'RESTRICT' })
@@ -39,7 +39,7 @@ export class Run {
   @Column({ name: 'data_hash', type: 'varchar', length: 64 })
   dataHash: string;
 
-  @Column({ name: 'author_id', type: 'varchar', length: 36 })
+  @Column({ name: 'author_id', type: 'uuid' })
   authorId: string;
 
   @CreateDateColumn({ name: 'created_at' })

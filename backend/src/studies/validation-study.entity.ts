@@ -15,7 +15,7 @@ export class ValidationStudy {
   @PrimaryGeneratedColumn('uuid')
   id: string;
 
-  @Column({ name: 'method_version_id', type: 'varchar', length: 36 })
+  @Column({ name: 'method_version_id', type: 'uuid' })
   methodVersionId: string;
 
   @ManyToOne(() => MethodVersion, { onDelete: 'RESTRICT' })
@@ -50,7 +50,7 @@ export class ValidationStudy {
   @Column({ type: 'simple-json' })
   meta: StudyMeta;
 
-  @Column({ name: 'author_id', type: 'varchar', length: 36 })
+  @Column({ name: 'author_id', type: 'uuid' })
   authorId: string;
 
   @ManyToOne(() => User, { onDelete: 'RESTRICT' })
@@ -61,7 +61,7 @@ export class ValidationStudy {
   @Column({ name: 'editor_ids', type: 'simple-json' })
   editorIds: string[];
 
-  @Column({ name: 'copied_from_id', type: 'varchar', length: 36, nullable: true })
+  @Column({ name: 'copied_from_id', type: 'uuid', nullable: true })
   copiedFromId: string | null;
 
   @Column({ name: 'submitted_at', type: Date, nullable: true })

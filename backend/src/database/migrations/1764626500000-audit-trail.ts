@@ -12,7 +12,7 @@ export class AuditTrail1764626500000 implements MigrationInterface {
         columns: [
           { name: 'seq', type: t.integer, isPrimary: true },
           { name: 'at', type: t.timestamp },
-          { name: 'actor_id', type: t.varchar, length: '36', isNullable: true },
+          { name: 'actor_id', type: t.uuid, isNullable: true },
           { name: 'actor_name', type: t.varchar, length: '254' },
           { name: 'action', type: t.varchar, length: '60' },
           { name: 'entity', type: t.varchar, length: '40' },

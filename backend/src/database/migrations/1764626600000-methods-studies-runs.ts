@@ -13,7 +13,7 @@ export class MethodsStudiesRuns1764626600000 implements MigrationInterface {
 
   async up(queryRunner: QueryRunner): Promise<void> {
     const t = columnTypes(queryRunner);
-    const uuidRef = (name: string, isNullable = false) => ({ name, type: t.varchar, length: '36', isNullable });
+    const uuidRef = (name: string, isNullable = false) => ({ name, type: t.uuid, isNullable });
 
     await queryRunner.createTable(
       new Table({

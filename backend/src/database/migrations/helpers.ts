@@ -9,7 +9,7 @@ export function columnTypes(queryRunner: QueryRunner) {
     timestamp: type(Date),
     boolean: type(Boolean),
     integer: type(Number),
-    blob: type(Buffer),
+    blob: queryRunner.connection.driver.options.type === 'postgres' ? 'bytea' : 'blob',
     text: 'text',
     varchar: 'varchar',
   };
