@@ -292,6 +292,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     if (model === 'quadratic') {
       const q = fitQuadratic(xs, ys, w);
       core = q;
+      assertComputable([q.sxx, q.ssTotal, q.a, q.b, q.c, q.s]);
       if (q.b === 0 && q.c === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
       predict = (x) => {
         const z = (x - q.centre) / q.scale;
@@ -302,6 +303,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     } else {
       const line = model === 'linear-through-origin' ? fitThroughOrigin(xs, ys) : fitLine(xs, ys, w);
       core = line;
+      assertComputable([line.sxx, line.ssTotal, line.a, line.b, line.s]);
       if (line.b === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
       predict = (x) => line.yMean + line.b * (x - line.xMean);
       if (model === 'linear-through-origin') predict = (x) => line.b * x;
@@ -313,7 +315,6 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     }
     slope = core.b;
     intercept = core.a;
-    assertComputable([core.a, core.b, core.c, core.s]);
   }
   assertComputable([slope, intercept]);
 
