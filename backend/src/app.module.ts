@@ -14,6 +14,8 @@ import { appConfig } from './config/app.config.js';
 import { DatabaseModule } from './database/database.module.js';
 import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
+import { NotificationsModule } from './notifications/notifications.module.js';
+import { ReviewsModule } from './reviews/reviews.module.js';
 import { UsersModule } from './users/users.module.js';
 
 const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
@@ -29,6 +31,8 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     UsersModule,
     AuthModule,
     HealthModule,
+    NotificationsModule,
+    ReviewsModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },

@@ -40,4 +40,8 @@ export class StudySignature {
   /** The study data as signed, kept for the diff between submissions. */
   @Column({ name: 'data_snapshot', type: 'simple-json', nullable: true })
   dataSnapshot: Record<string, unknown> | null;
+
+  /** The result as signed with `dataSnapshot`. */
+  @Column({ name: 'result_snapshot', type: 'simple-json', nullable: true })
+  resultSnapshot: Record<string, unknown> | null;
 }

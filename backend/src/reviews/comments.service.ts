@@ -1,0 +1,80 @@
+import { Injectable, NotFoundException } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource } from 'typeorm';
+import { AuditService } from '../audit/audit.service.js';
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { unprocessable } from '../common/validation.js';
+import type { CreateCommentDto } from './dto/create-comment.dto.js';
+import type { UpdateCommentDto } from './dto/update-comment.dto.js';
+import { ReviewsService } from './reviews.service.js';
+import type { CommentDto } from './reviews.types.js';
+import { serialTransaction } from './serial-transaction.js';
+import { StudyComment } from './study-comment.entity.js';
+
+export function toCommentDto(comment: StudyComment): CommentDto {
+  return {
+    id: comment.id,
+    section: comment.section,
+    threadId: comment.threadId,
+    authorId: comment.authorId,
+    authorName: comment.authorName,
+    body: comment.body,
+    resolved: comment.resolved,
+    createdAt: comment.createdAt.toISOString(),
+  };
+}
+
+@Injectable()
+export class CommentsService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly reviews: ReviewsService,
+    private readonly audit: AuditService,
+  ) {}
+
+  async list(studyId: string): Promise<CommentDto[]> {
+    await this.reviews.findStudy(studyId);
+    return (await this.find(studyId)).map(toCommentDto);
+  }
+
+  find(studyId: string): Promise<StudyComment[]> {
+    return this.dataSource.getRepository(StudyComment).find({ where: { studyId }, order: { createdAt: 'ASC' } });
+  }
+
+  async create(studyId: string, dto: CreateCommentDto, actor: AuthUser): Promise<CommentDto> {
+    await this.reviews.findStudy(studyId);
+    let section = dto.section;
+    if (dto.threadId) {
+      const thread = await this.dataSource.getRepository(StudyComment).findOneBy({ id: dto.threadId, studyId });
+      if (!thread || thread.threadId) {
+        throw unprocessable([{ field: 'threadId', code: 'unknown_thread', message: 'There is no comment thread with this id on this study.' }]);
+      }
+      section = thread.section;
+    }
+    return serialTransaction(this.dataSource, async (manager) => {
+      const repo = manager.getRepository(StudyComment);
+      const comment = await repo.save(repo.create({ studyId, section, threadId: dto.threadId ?? null, authorId: actor.id, authorName: actor.name, body: dto.body.trim(), resolved: false }));
+      await this.audit.record(
+        { actor, action: 'study-comment.created', entity: 'study-comment', entityId: comment.id, changes: { studyId: { from: null, to: studyId }, section: { from: null, to: section }, body: { from: null, to: comment.body } } },
+        manager,
+      );
+      return toCommentDto(comment);
+    });
+  }
+
+  async setResolved(studyId: string, commentId: string, dto: UpdateCommentDto, actor: AuthUser): Promise<CommentDto> {
+    await this.reviews.findStudy(studyId);
+    return serialTransaction(this.dataSource, async (manager) => {
+      const repo = manager.getRepository(StudyComment);
+      const comment = await repo.findOneBy({ id: commentId, studyId });
+      if (!comment) throw new NotFoundException('Comment not found on this study.');
+      if (comment.resolved === dto.resolved) return toCommentDto(comment);
+      await repo.update({ id: comment.id }, { resolved: dto.resolved });
+      await this.audit.record(
+        { actor, action: dto.resolved ? 'study-comment.resolved' : 'study-comment.reopened', entity: 'study-comment', entityId: comment.id, changes: { resolved: { from: comment.resolved, to: dto.resolved } } },
+        manager,
+      );
+      return toCommentDto({ ...comment, resolved: dto.resolved });
+    });
+  }
+}

@@ -1,0 +1,108 @@
+import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { Role } from '@meritline/shared';
+import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { CommentsService } from './comments.service.js';
+import { CreateCommentDto } from './dto/create-comment.dto.js';
+import { ReturnStudyDto } from './dto/return-study.dto.js';
+import { SignStudyDto } from './dto/sign-study.dto.js';
+import { UpdateCommentDto } from './dto/update-comment.dto.js';
+import { ReviewsService } from './reviews.service.js';
+import type { CommentDto, HistoryItemDto, QueueItemDto, SignatureDto, StudyDiffDto, TransitionResultDto } from './reviews.types.js';
+import { StudyHistoryService } from './study-history.service.js';
+import { toCopiedStudyDto, type CopiedStudyDto } from './copied-study.dto.js';
+
+const STUDY_READERS = [Role.Analyst, Role.Reviewer, Role.QualityManager];
+
+@ApiTags('reviews')
+@ApiBearerAuth()
+@Controller('studies/:id')
+export class StudyReviewController {
+  constructor(
+    private readonly reviewsService: ReviewsService,
+    private readonly commentsService: CommentsService,
+    private readonly historyService: StudyHistoryService,
+  ) {}
+
+  @Post('submit')
+  @HttpCode(200)
+  @Roles(Role.Analyst)
+  submit(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
+    return this.reviewsService.submit(id, dto, user);
+  }
+
+  @Post('return')
+  @HttpCode(200)
+  @Roles(Role.Reviewer, Role.QualityManager)
+  returnToAuthor(@Param('id', ParseUUIDPipe) id: string, @Body() dto: ReturnStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
+    return this.reviewsService.returnToAuthor(id, dto, user);
+  }
+
+  @Post('approve')
+  @HttpCode(200)
+  @Roles(Role.Reviewer, Role.QualityManager)
+  approve(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
+    return this.reviewsService.approve(id, dto, user);
+  }
+
+  @Post('copy')
+  @Roles(Role.Analyst)
+  async copy(@Param('id', ParseUUIDPipe) id: string, @CurrentUser() user: AuthUser): Promise<CopiedStudyDto> {
+    return toCopiedStudyDto(await this.reviewsService.copy(id, user));
+  }
+
+  @Get('signatures')
+  @Roles(...STUDY_READERS)
+  signatures(@Param('id', ParseUUIDPipe) id: string): Promise<SignatureDto[]> {
+    return this.reviewsService.listSignatures(id);
+  }
+
+  @Get('history')
+  @Roles(...STUDY_READERS)
+  history(@Param('id', ParseUUIDPipe) id: string): Promise<HistoryItemDto[]> {
+    return this.historyService.history(id);
+  }
+
+  @Get('diff')
+  @Roles(...STUDY_READERS)
+  diff(@Param('id', ParseUUIDPipe) id: string): Promise<StudyDiffDto | null> {
+    return this.historyService.diff(id);
+  }
+
+  @Get('comments')
+  @Roles(...STUDY_READERS)
+  comments(@Param('id', ParseUUIDPipe) id: string): Promise<CommentDto[]> {
+    return this.commentsService.list(id);
+  }
+
+  @Post('comments')
+  @Roles(...STUDY_READERS)
+  comment(@Param('id', ParseUUIDPipe) id: string, @Body() dto: CreateCommentDto, @CurrentUser() user: AuthUser): Promise<CommentDto> {
+    return this.commentsService.create(id, dto, user);
+  }
+
+  @Patch('comments/:commentId')
+  @Roles(...STUDY_READERS)
+  updateComment(
+    @Param('id', ParseUUIDPipe) id: string,
+    @Param('commentId', ParseUUIDPipe) commentId: string,
+    @Body() dto: UpdateCommentDto,
+    @CurrentUser() user: AuthUser,
+  ): Promise<CommentDto> {
+    return this.commentsService.setResolved(id, commentId, dto, user);
+  }
+}
+
+@ApiTags('reviews')
+@ApiBearerAuth()
+@Controller('reviews')
+export class ReviewQueueController {
+  constructor(private readonly reviewsService: ReviewsService) {}
+
+  @Get('queue')
+  @Roles(Role.Reviewer, Role.QualityManager)
+  queue(@CurrentUser() user: AuthUser): Promise<QueueItemDto[]> {
+    return this.reviewsService.queueFor(user);
+  }
+}

@@ -1,0 +1,93 @@
+import type { Role, SignatureMeaning, StudySection, StudyStatus } from '@meritline/shared';
+import type { FieldChanges } from '../audit/audit-entry.entity.js';
+
+export const STUDY_SECTIONS: readonly StudySection[] = ['setup', 'standards', 'blanks', 'recovery', 'precision', 'results', 'conclusion'];
+
+export interface SignatureDto {
+  id: string;
+  signerId: string;
+  signerName: string;
+  signerRole: Role;
+  meaning: SignatureMeaning;
+  signedAt: string;
+  contentHash: string;
+  comment: string | null;
+  /** The content this signature covers still hashes to `contentHash`. */
+  valid: boolean;
+  /** Signed before a later resubmission: checked against the content signed then, not the current data. */
+  superseded: boolean;
+}
+
+export interface CommentDto {
+  id: string;
+  section: StudySection;
+  threadId: string | null;
+  authorId: string;
+  authorName: string;
+  body: string;
+  resolved: boolean;
+  createdAt: string;
+}
+
+export type HistoryKind = 'status' | 'signature' | 'comment' | 'record';
+
+export interface HistoryItemDto {
+  id: string;
+  at: string;
+  kind: HistoryKind;
+  action: string;
+  actorName: string;
+  summary: string;
+  detail: string | null;
+  changes: FieldChanges | null;
+  valid?: boolean;
+}
+
+export interface RowChange {
+  /** Row identifier: the row's own `id` (or `group`) when it has one, else its position from 1. */
+  key: string;
+  field: string;
+  from: unknown;
+  to: unknown;
+}
+
+export interface SectionDiff {
+  section: string;
+  added: { key: string; row: unknown }[];
+  removed: { key: string; row: unknown }[];
+  changed: RowChange[];
+}
+
+export interface StudyDiffDto {
+  from: { signatureId: string; signedAt: string };
+  to: { signatureId: string; signedAt: string };
+  settings: { field: string; from: unknown; to: unknown }[];
+  sections: SectionDiff[];
+}
+
+export type ReviewStage = 'review' | 'release';
+
+export interface QueueItemDto {
+  id: string;
+  title: string;
+  status: StudyStatus;
+  stage: ReviewStage;
+  methodId: string;
+  methodName: string;
+  methodVersionId: string;
+  methodVersionNumber: number;
+  authorId: string;
+  authorName: string;
+  submittedAt: string | null;
+  lockVersion: number;
+}
+
+export interface TransitionResultDto {
+  id: string;
+  status: StudyStatus;
+  stage: ReviewStage | null;
+  lockVersion: number;
+  submittedAt: string | null;
+  approvedAt: string | null;
+  signature: SignatureDto | null;
+}

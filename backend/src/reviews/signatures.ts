@@ -1,0 +1,56 @@
+import { createHash } from 'node:crypto';
+import { canonicalJson } from '@meritline/shared';
+import type { StudySignature } from './study-signature.entity.js';
+import type { SignatureDto } from './reviews.types.js';
+
+export interface SignedContent {
+  data: Record<string, unknown>;
+  result: Record<string, unknown> | null;
+}
+
+/** SHA-256 of the canonical JSON (RFC 8785 scheme) of what a signer vouches for. */
+export function contentHash(content: SignedContent): string {
+  return createHash('sha256').update(canonicalJson({ data: content.data, result: content.result })).digest('hex');
+}
+
+/** Signatures grouped by submission: each round opens with an `authored` signature. Oldest first. */
+export function signatureRounds(signatures: readonly StudySignature[]): StudySignature[][] {
+  const sorted = [...signatures].sort((a, b) => a.signedAt.getTime() - b.signedAt.getTime());
+  const rounds: StudySignature[][] = [];
+  for (const signature of sorted) {
+    if (signature.meaning === 'authored' || !rounds.length) rounds.push([signature]);
+    else rounds[rounds.length - 1].push(signature);
+  }
+  return rounds;
+}
+
+export function currentRound(signatures: readonly StudySignature[]): StudySignature[] {
+  return signatureRounds(signatures).at(-1) ?? [];
+}
+
+/** Current signatures are checked against the study as stored now; superseded ones against the content their round signed. */
+export function toSignatureDtos(signatures: readonly StudySignature[], current: SignedContent): SignatureDto[] {
+  const rounds = signatureRounds(signatures);
+  return rounds.flatMap((round, index) => {
+    const superseded = index < rounds.length - 1;
+    const opening = round[0];
+    const content: SignedContent | null = !superseded
+      ? current
+      : opening.dataSnapshot
+        ? { data: opening.dataSnapshot, result: opening.resultSnapshot }
+        : null;
+    const hash = content ? contentHash(content) : null;
+    return round.map((signature) => ({
+      id: signature.id,
+      signerId: signature.signerId,
+      signerName: signature.signerName,
+      signerRole: signature.signerRole,
+      meaning: signature.meaning,
+      signedAt: signature.signedAt.toISOString(),
+      contentHash: signature.contentHash,
+      comment: signature.comment,
+      valid: hash === signature.contentHash,
+      superseded,
+    }));
+  });
+}
