@@ -1,0 +1,84 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { AuditEntry } from '../src/audit/audit-entry.entity.js';
+import { bearer, createStudy, dataSourceOf, openDatabaseFile } from './support/review-fixtures.js';
+import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
+
+describe('the audit trail and signature integrity', () => {
+  let t: TestApp;
+  let quality: Record<string, string>;
+  let studyId: string;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    quality = bearer(await t.tokenFor(DEMO.quality));
+    const analyst = bearer(await t.tokenFor(DEMO.analyst));
+    const reviewer = bearer(await t.tokenFor(DEMO.reviewer));
+    const study = await createStudy(t, { author: DEMO.analyst });
+    studyId = study.id;
+    await t.http().post(`/api/studies/${study.id}/submit`).set(analyst).send({ password: 'wrong-password' }).expect(401);
+    await t.http().post(`/api/studies/${study.id}/submit`).set(analyst).send({ password: DEMO_PASSWORD }).expect(200);
+    await t.http().post(`/api/studies/${study.id}/comments`).set(reviewer).send({ section: 'standards', body: 'Residuals look even across the range.' }).expect(201);
+    await t.http().post(`/api/studies/${study.id}/approve`).set(reviewer).send({ password: DEMO_PASSWORD }).expect(200);
+  });
+  afterAll(() => t.close());
+
+  it('should refuse the chain check to anonymous callers (401) and analysts (403)', async () => {
+    await t.http().get('/api/audit/verify').expect(401);
+    await t.http().get('/api/audit/verify').set(bearer(await t.tokenFor(DEMO.analyst))).expect(403);
+  });
+
+  it('should record each step of the review with the actor, the status change and the failed signature', async () => {
+    const study = await t.http().get(`/api/audit?entity=study&id=${studyId}`).set(quality).expect(200);
+    expect(study.body.map((e: { action: string }) => e.action).reverse()).toEqual(['signature.failed', 'study.submitted', 'study.approved']);
+    expect(study.body[0]).toMatchObject({ actorName: 'Priya Nair', changes: { status: { from: 'submitted', to: 'approved' } } });
+    const signatures = await t.http().get('/api/audit?entity=study-signature').set(quality).expect(200);
+    expect(signatures.body.map((e: { action: string }) => e.action).sort()).toEqual(['signature.authored', 'signature.reviewed-and-approved']);
+  });
+
+  it('should report the chain intact after the review', async () => {
+    const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
+    expect(res.body).toEqual({ ok: true, rows: expect.any(Number) });
+    expect(res.body.rows).toBeGreaterThanOrEqual(9);
+  });
+
+  it('should refuse to change or delete an audit entry through the repository', async () => {
+    const repo = dataSourceOf(t).getRepository(AuditEntry);
+    const entry = await repo.findOneByOrFail({ seq: 3 });
+    await expect(repo.save({ ...entry, reason: 'edited afterwards' })).rejects.toThrow(/append-only/);
+    await expect(repo.remove(entry)).rejects.toThrow(/append-only/);
+    expect((await repo.findOneByOrFail({ seq: 3 })).reason).toBe(entry.reason);
+    const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
+    expect(res.body.ok).toBe(true);
+  });
+
+  it('should show the signatures as broken when the study data are changed behind the API', async () => {
+    const before = await t.http().get(`/api/studies/${studyId}/signatures`).set(quality).expect(200);
+    expect(before.body.map((s: { valid: boolean }) => s.valid)).toEqual([true, true]);
+
+    const db = openDatabaseFile(t);
+    try {
+      const row = db.prepare('SELECT data FROM validation_studies WHERE id = ?').get(studyId) as { data: string };
+      const data = JSON.parse(row.data) as { standards: { x: number; y: number }[] };
+      data.standards[4].y = Number((data.standards[4].y + 0.01).toFixed(4));
+      expect(db.prepare('UPDATE validation_studies SET data = ? WHERE id = ?').run(JSON.stringify(data), studyId).changes).toBe(1);
+    } finally {
+      db.close();
+    }
+
+    const after = await t.http().get(`/api/studies/${studyId}/signatures`).set(quality).expect(200);
+    expect(after.body.map((s: { valid: boolean }) => s.valid)).toEqual([false, false]);
+    const history = await t.http().get(`/api/studies/${studyId}/history`).set(quality).expect(200);
+    expect(history.body.filter((item: { kind: string }) => item.kind === 'signature').map((item: { valid: boolean }) => item.valid)).toEqual([false, false]);
+  });
+
+  it('should report the chain broken at the row edited directly in the database file', async () => {
+    const db = openDatabaseFile(t);
+    try {
+      expect(db.prepare("UPDATE audit_entries SET reason = 'x' WHERE seq = 3").run().changes).toBe(1);
+    } finally {
+      db.close();
+    }
+    const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
+    expect(res.body).toMatchObject({ ok: false, brokenAt: 3, reason: 'content does not match its hash' });
+  });
+});
