@@ -14,20 +14,23 @@ import type { Study } from './study.js';
 import { parseStudy } from './validate.js';
 import { ENGINE_VERSION } from './version.js';
 
-/** Replaces any non-finite number by null and says where; JSON would print null silently. */
-function guardFinite(value: unknown, path: string, warn: Warn): unknown {
-  if (typeof value === 'number') {
-    if (Number.isFinite(value)) return value;
-    warn('engine', 'non_finite', `${path} could not be computed (non-finite) and is reported as null`);
-    return null;
+/** Replaces, in place, any non-finite number by null and says where; JSON would print null silently. */
+function guardFinite(node: unknown, path: string, warn: Warn): void {
+  if (typeof node !== 'object' || node === null) return;
+  const record = node as Record<string | number, unknown>;
+  const keys: (string | number)[] = Array.isArray(node) ? node.map((_, i) => i) : Object.keys(record);
+  for (const key of keys) {
+    const value = record[key];
+    const here = typeof key === 'number' ? `${path}[${key}]` : path ? `${path}.${key}` : key;
+    if (typeof value === 'number') {
+      if (!Number.isFinite(value)) {
+        record[key] = null;
+        warn('engine', 'non_finite', `${here} could not be computed (non-finite) and is reported as null`);
+      }
+    } else if (typeof value === 'object' && value !== null) {
+      guardFinite(value, here, warn);
+    }
   }
-  if (Array.isArray(value)) return value.map((v, i) => guardFinite(v, `${path}[${i}]`, warn));
-  if (typeof value === 'object' && value !== null) {
-    const out: Record<string, unknown> = {};
-    for (const [key, v] of Object.entries(value)) out[key] = guardFinite(v, path ? `${path}.${key}` : key, warn);
-    return out;
-  }
-  return value;
 }
 
 function readUnknowns(study: Study, fit: CalibrationFit | null) {
@@ -94,6 +97,6 @@ export function evaluateStudy(input: unknown): EvaluationResult {
   };
   result.range = workingRange(result, criteria, study.recovery, warn);
   result.verdict = verdict(result, criteria);
-  const guarded = guardFinite({ ...result, warnings: [] }, '', warn) as EvaluationResult;
-  return { ...guarded, warnings };
+  guardFinite({ ...result, warnings: [] }, '', warn);
+  return result;
 }

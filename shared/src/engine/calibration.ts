@@ -12,7 +12,7 @@ import type { CalibrationModel, StandardPoint, Weighting } from '../study.js';
 import { fUpper, studentQuantile } from './distributions.js';
 import { fitQuadratic, type QuadraticCore } from './quadratic.js';
 import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
-import { groupBy, linspace, mean, sd } from './stats.js';
+import { groupBy, linspace, mean, sd, sumSquaredDeviations } from './stats.js';
 
 export interface FitOptions {
   model?: CalibrationModel;
@@ -67,8 +67,11 @@ function sdProfile(points: readonly FitPoint[]): (at: number) => number {
  * Weights 1/x, 1/x² or 1/s² normalised so that they sum to n; the same scale gives w(x)
  * anywhere (for 1/s², s(x) is interpolated between the standard levels).
  */
-function makeWeights(points: readonly FitPoint[], weighting: Weighting): { w: number[]; weightAt: (at: number) => number } {
-  if (weighting === 'none') return { w: points.map(() => 1), weightAt: () => 1 };
+function makeWeights(
+  points: readonly FitPoint[],
+  weighting: Weighting,
+): { w: ArrayLike<number>; weightAt: (at: number) => number } {
+  if (weighting === 'none') return { w: new Float64Array(points.length).fill(1), weightAt: () => 1 };
   let rawAt: (at: number) => number;
   if (weighting === '1/s2') {
     const sdAt = sdProfile(points);
@@ -92,14 +95,27 @@ function fail(code: string, message: string, field = 'standards'): never {
   throw StudyValidationError.single(field, code, message);
 }
 
-function usedPoints(standards: readonly StandardPoint[]): { points: FitPoint[]; excluded: ExcludedStandard[] } {
+function usedPoints(standards: readonly StandardPoint[]): {
+  points: FitPoint[];
+  xs: number[];
+  ys: number[];
+  excluded: ExcludedStandard[];
+} {
   const points: FitPoint[] = [];
+  const xs: number[] = [];
+  const ys: number[] = [];
   const excluded: ExcludedStandard[] = [];
-  standards.forEach((s, index) => {
-    if (s.excluded) excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
-    else points.push({ index, x: s.x, y: s.y, sd: s.sd });
-  });
-  return { points, excluded };
+  for (let index = 0; index < standards.length; index++) {
+    const s = standards[index];
+    if (s.excluded) {
+      excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
+      continue;
+    }
+    points.push({ index, x: s.x, y: s.y, sd: s.sd });
+    xs.push(s.x);
+    ys.push(s.y);
+  }
+  return { points, xs, ys, excluded };
 }
 
 /** Real root of c2 z² + c1 z + c0 = 0 on the branch that covers [zLo, zHi]. */
@@ -159,12 +175,8 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
   return below ? first : segments[segments.length - 1];
 }
 
-function levelSummaries(points: FitPoint[], backCalculated: BackCalculatedPoint[]): CalibrationLevel[] {
-  const byX = groupBy(
-    points.map((p, i) => ({ ...p, xBack: backCalculated[i].xBack })),
-    (p) => p.x,
-  );
-  return [...byX.entries()]
+function levelSummaries(backCalculated: BackCalculatedPoint[]): CalibrationLevel[] {
+  return [...groupBy(backCalculated, (p) => p.x).entries()]
     .sort(([a], [b]) => a - b)
     .map(([x, group]) => {
       const ys = group.map((g) => g.y);
@@ -216,14 +228,16 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
-  const { points, excluded } = usedPoints(standards);
-  const xs = points.map((p) => p.x);
-  const ys = points.map((p) => p.y);
+  const { points, xs, ys, excluded } = usedPoints(standards);
   const n = points.length;
   if (n === 0) fail('too_few', 'no standards to calibrate with');
   const distinct = new Set(xs).size;
-  const xMin = Math.min(...xs);
-  const xMax = Math.max(...xs);
+  let xMin = Infinity;
+  let xMax = -Infinity;
+  for (const x of xs) {
+    if (x < xMin) xMin = x;
+    if (x > xMax) xMax = x;
+  }
   if (weighting !== 'none') {
     if (model !== 'linear' && model !== 'quadratic') fail('incompatible', `weighting applies only to linear and quadratic`, 'weighting');
     if (weighting === '1/s2') {
@@ -342,7 +356,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     xMax,
     residuals,
     backCalculated,
-    levels: levelSummaries(points, backCalculated),
+    levels: levelSummaries(backCalculated),
     segments,
     excluded,
   };
@@ -406,7 +420,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
       t: null,
       xMean: mean(xs),
       yMean: mean(ys),
-      sxx: xs.reduce((acc, x) => acc + (x - mean(xs)) ** 2, 0),
+      sxx: sumSquaredDeviations(xs),
       sumWeights: n,
       standardizedResiduals: null,
       bands: null,

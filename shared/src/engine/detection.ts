@@ -141,7 +141,7 @@ export function epaMdl(lowSpikes: LowSpikes | undefined, warn: Warn): EpaMdlResu
     } else if (numeric.length < blanks.length) {
       if (blanks.length < 100) {
         blankRule = 'highest';
-        mdlBlank = Math.max(...numeric);
+        mdlBlank = numeric.reduce((a, b) => Math.max(a, b));
       } else {
         blankRule = 'rank';
         const ranked = [...blanks].sort((p, q) => (p ?? -Infinity) - (q ?? -Infinity));

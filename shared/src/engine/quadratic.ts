@@ -61,10 +61,10 @@ export interface QuadraticCore extends RegressionCore {
 }
 
 /** y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares). */
-export function fitQuadratic(x: readonly number[], y: readonly number[], w: readonly number[]): QuadraticCore {
+export function fitQuadratic(x: readonly number[], y: readonly number[], w: ArrayLike<number>): QuadraticCore {
   const n = x.length;
   let sumWeights = 0;
-  for (const wi of w) sumWeights += wi;
+  for (let i = 0; i < n; i++) sumWeights += w[i];
   const ones = new Array<number>(n).fill(1);
   const centre = weightedMean(x, ones, n);
   let scale = 0;

@@ -32,10 +32,10 @@ export function cleanResidual(e: number, scale: number): number {
 }
 
 /** Weighted (w ≡ 1: ordinary) straight-line least squares on centred sums. */
-export function fitLine(x: readonly number[], y: readonly number[], w: readonly number[]): RegressionCore {
+export function fitLine(x: readonly number[], y: readonly number[], w: ArrayLike<number>): RegressionCore {
   const n = x.length;
   let sumWeights = 0;
-  for (const wi of w) sumWeights += wi;
+  for (let i = 0; i < n; i++) sumWeights += w[i];
   const xMean = weightedMean(x, w, sumWeights);
   const yMean = weightedMean(y, w, sumWeights);
   let sxx = 0;

@@ -10,7 +10,7 @@ export function mean(values: readonly number[]): number {
   return first + correction / n;
 }
 
-export function weightedMean(values: readonly number[], weights: readonly number[], sumWeights: number): number {
+export function weightedMean(values: ArrayLike<number>, weights: ArrayLike<number>, sumWeights: number): number {
   let sum = 0;
   for (let i = 0; i < values.length; i++) sum += weights[i] * values[i];
   const first = sum / sumWeights;
