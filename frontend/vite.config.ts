@@ -16,5 +16,6 @@ export default defineConfig({
     setupFiles: ['./test/setup.ts'],
     include: ['test/**/*.test.tsx', 'src/**/*.test.tsx'],
     css: false,
+    testTimeout: 30_000,
   },
 });

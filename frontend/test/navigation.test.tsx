@@ -78,6 +78,18 @@ describe('route guards', () => {
     expect(screen.queryByRole('table', { name: 'Users' })).not.toBeInTheDocument();
   });
 
+  it('forgets the page after signing out on purpose', async () => {
+    signInAs([Role.Reviewer]);
+    const { user, router } = renderRoutes(routes, '/reviews');
+
+    await user.click(await screen.findByTestId('user-menu'));
+    await user.click(await screen.findByRole('menuitem', { name: 'Sign out' }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/sign-in'));
+    expect(router.state.location.search).toBe('');
+    expect(localStorage.length).toBe(0);
+  });
+
   it('signs out when the server no longer accepts the session', async () => {
     setSessionToken('expired-token');
     stubApi({ 'GET /api/auth/me': { status: 401, body: { statusCode: 401, message: 'Unauthorized' } } });

@@ -1,22 +1,23 @@
 import { Box, Progress } from '@chakra-ui/react';
 import { hasAnyRole, type Role } from '@meritline/shared';
-import { Navigate, Outlet, useLocation, useNavigate, useNavigation } from 'react-router';
+import { Navigate, Outlet, useLocation, useNavigation } from 'react-router';
 import { NotAllowed } from '@/components/not-allowed';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
 import { useSession } from '@/features/auth/use-session';
 import { paths } from '@/lib/config/paths';
+import { sessionEndedByUser } from '@/lib/session-token';
 import { AppShell } from './layout/app-shell';
 
 /** Layout of every signed-in page: sends signed-out visitors to sign-in and brings them back afterwards. */
 export function ProtectedRoute() {
   const session = useSession();
   const location = useLocation();
-  const navigate = useNavigate();
   const navigation = useNavigation();
 
   if (!session.token) {
-    return <Navigate to={paths.signIn.getHref(location.pathname + location.search)} replace />;
+    const redirectTo = sessionEndedByUser() ? undefined : location.pathname + location.search;
+    return <Navigate to={paths.signIn.getHref(redirectTo)} replace />;
   }
   if (session.isLoading) return <PageSpinner label="Loading your account" />;
   if (!session.user) {
@@ -27,13 +28,8 @@ export function ProtectedRoute() {
     );
   }
 
-  const signOut = () => {
-    session.signOut();
-    void navigate(paths.signIn.getHref(), { replace: true });
-  };
-
   return (
-    <AppShell user={session.user} onSignOut={signOut}>
+    <AppShell user={session.user} onSignOut={session.signOut}>
       {navigation.state === 'loading' && (
         <Progress.Root size="xs" value={null} position="fixed" top="0" insetX="0" zIndex="toast" aria-label="Opening the page">
           <Progress.Track bg="transparent">

@@ -2,6 +2,7 @@ import { useSyncExternalStore } from 'react';
 
 const STORAGE_KEY = 'meritline.session-token';
 const listeners = new Set<() => void>();
+let endedByUser = false;
 
 function notify() {
   listeners.forEach((listener) => listener());
@@ -12,14 +13,22 @@ export function getSessionToken(): string | null {
 }
 
 export function setSessionToken(token: string) {
+  endedByUser = false;
   localStorage.setItem(STORAGE_KEY, token);
   notify();
 }
 
-export function clearSessionToken() {
+/** `endedByUser`: the user signed out, rather than the server refusing the token. */
+export function clearSessionToken({ byUser = false } = {}) {
   if (getSessionToken() === null) return;
+  endedByUser = byUser;
   localStorage.removeItem(STORAGE_KEY);
   notify();
+}
+
+/** After signing out on purpose the next sign-in starts at the overview, not on the page left behind. */
+export function sessionEndedByUser(): boolean {
+  return endedByUser;
 }
 
 export function subscribeToSessionToken(listener: () => void) {

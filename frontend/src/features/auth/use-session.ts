@@ -20,7 +20,7 @@ export interface Session {
 export function useSession(): Session {
   const token = useSessionToken();
   const currentUser = useQuery({ ...authQueries.currentUser(), enabled: token !== null });
-  const signOut = useCallback(() => clearSessionToken(), []);
+  const signOut = useCallback(() => clearSessionToken({ byUser: true }), []);
   return {
     token,
     user: token ? currentUser.data : undefined,

@@ -1,0 +1,28 @@
+import { expect, type Page } from '@playwright/test';
+
+export const DEMO_PASSWORD = 'meritline-demo';
+
+export const DEMO_ACCOUNTS = [
+  { role: 'analyst', email: 'analyst@meritline.test', entries: ['Validation studies', 'Routine batches'] },
+  { role: 'reviewer', email: 'reviewer@meritline.test', entries: ['Review queue'] },
+  // The demo quality manager also reviews.
+  { role: 'quality_manager', email: 'quality@meritline.test', entries: ['Methods', 'Version comparison', 'Review queue'] },
+  { role: 'admin', email: 'admin@meritline.test', entries: ['Users', 'Outbox'] },
+] as const;
+
+export const ROLE_ENTRIES = [...new Set(DEMO_ACCOUNTS.flatMap((account) => account.entries))];
+
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD) {
+  await page.goto('/sign-in');
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+export async function signOut(page: Page) {
+  await page.getByTestId('user-menu').click();
+  await page.getByRole('menuitem', { name: 'Sign out' }).click();
+  await expect(page).toHaveURL(/\/sign-in$/);
+}
+
+export const mainNavigation = (page: Page) => page.getByRole('navigation', { name: 'Main' });
