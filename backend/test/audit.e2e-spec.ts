@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEntry } from '../src/audit/audit-entry.entity.js';
+import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 import { bearer, createStudy, dataSourceOf, openDatabaseFile } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
@@ -32,7 +33,8 @@ describe('the audit trail and signature integrity', () => {
     expect(study.body.map((e: { action: string }) => e.action).reverse()).toEqual(['signature.failed', 'study.submitted', 'study.approved']);
     expect(study.body[0]).toMatchObject({ actorName: 'Priya Nair', changes: { status: { from: 'submitted', to: 'approved' } } });
     const signatures = await t.http().get('/api/audit?entity=study-signature').set(quality).expect(200);
-    expect(signatures.body.map((e: { action: string }) => e.action).sort()).toEqual(['signature.authored', 'signature.reviewed-and-approved']);
+    const ofStudy = signatures.body.filter((e: { changes: { studyId: { to: string } } }) => e.changes.studyId.to === studyId);
+    expect(ofStudy.map((e: { action: string }) => e.action).sort()).toEqual(['signature.authored', 'signature.reviewed-and-approved']);
   });
 
   it('should report the chain intact after the review', async () => {
@@ -80,5 +82,32 @@ describe('the audit trail and signature integrity', () => {
     }
     const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
     expect(res.body).toMatchObject({ ok: false, brokenAt: 3, reason: 'content does not match its hash' });
+  });
+});
+
+describe('the demo review trail', () => {
+  let t: TestApp;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  it('should give every seeded study past the draft stage valid signatures and history, with the audit chain intact', async () => {
+    const quality = bearer(await t.tokenFor(DEMO.quality));
+    const studies = await dataSourceOf(t).getRepository(ValidationStudy).find();
+    const reviewed = studies.filter((study) => study.status !== 'draft');
+    expect(reviewed.length).toBeGreaterThan(0);
+    for (const study of reviewed) {
+      const signatures = (await t.http().get(`/api/studies/${study.id}/signatures`).set(quality).expect(200)).body as { meaning: string; valid: boolean }[];
+      expect(signatures[0].meaning).toBe('authored');
+      expect(signatures.every((signature) => signature.valid)).toBe(true);
+      if (study.status === 'approved') expect(signatures.map((signature) => signature.meaning)).toContain('reviewed-and-approved');
+      const history = (await t.http().get(`/api/studies/${study.id}/history`).set(quality).expect(200)).body as { kind: string; action: string }[];
+      expect(history.filter((item) => item.kind === 'status').map((item) => item.action)[0]).toBe('study.submitted');
+      if (study.status === 'returned') expect(history.map((item) => item.action)).toContain('study.returned');
+    }
+    const verify = await t.http().get('/api/audit/verify').set(quality).expect(200);
+    expect(verify.body).toMatchObject({ ok: true });
   });
 });

@@ -38,15 +38,16 @@ describe('in-app notifications', () => {
   });
 
   it('should notify the reviewers of a submission, the quality managers of a pending release and the author of the approval', async () => {
+    const [reviewerUnread, analystUnread] = [await unreadOf(reviewer), await unreadOf(analyst)];
     await t.http().post(`/api/studies/${studyId}/submit`).set(analyst).send({ password: DEMO_PASSWORD }).expect(200);
     const forReviewer = await t.http().get('/api/notifications').set(reviewer).expect(200);
-    expect(forReviewer.body.unread).toBe(1);
+    expect(forReviewer.body.unread).toBe(reviewerUnread + 1);
     expect(forReviewer.body.items[0]).toMatchObject({ kind: 'study.submitted', message: expect.stringContaining('Alma Ruiz submitted'), link: `/studies/${studyId}`, readAt: null, createdAt: expect.any(String) });
-    expect(await unreadOf(analyst)).toBe(0);
+    expect(await unreadOf(analyst)).toBe(analystUnread);
 
     await t.http().post(`/api/studies/${studyId}/approve`).set(reviewer).send({ password: DEMO_PASSWORD }).expect(200);
     const forQuality = await t.http().get('/api/notifications').set(quality).expect(200);
-    expect(forQuality.body.items.map((n: NotificationItem) => n.kind)).toEqual(['study.release-pending', 'study.submitted']);
+    expect(forQuality.body.items.slice(0, 2).map((n: NotificationItem) => n.kind)).toEqual(['study.release-pending', 'study.submitted']);
 
     await t.http().post(`/api/studies/${studyId}/approve`).set(quality).send({ password: DEMO_PASSWORD }).expect(200);
     const forAnalyst = await t.http().get('/api/notifications').set(analyst).expect(200);

@@ -1,12 +1,13 @@
 import { Injectable, Logger, type OnApplicationBootstrap } from '@nestjs/common';
 import { DataSource, type EntityManager } from 'typeorm';
 import { User } from '../../users/user.entity.js';
+import { seedDemoReviews } from './demo-reviews.seed.js';
 import { seedDemoUsers } from './demo-users.seed.js';
 
 export type DemoSeeder = (manager: EntityManager) => Promise<void>;
 
 /** Seeders run in this order, in one transaction, only on an empty database. */
-const seeders: DemoSeeder[] = [seedDemoUsers];
+const seeders: DemoSeeder[] = [seedDemoUsers, seedDemoReviews];
 
 @Injectable()
 export class DemoSeedService implements OnApplicationBootstrap {
