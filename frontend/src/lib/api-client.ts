@@ -21,10 +21,15 @@ export function isApiError(error: unknown): error is ApiError {
 
 export interface RequestOptions {
   method?: 'GET' | 'POST' | 'PATCH' | 'PUT' | 'DELETE';
+  /** JSON-encoded, except FormData, which goes as multipart (file uploads). */
   body?: unknown;
   signal?: AbortSignal;
+  /** `blob` for downloads such as CSV templates; JSON otherwise. */
+  responseType?: 'json' | 'blob';
   /** Public calls (sign-in, accepting an invitation) send no token, and their 401 is an answer, not an expired session. */
   public?: boolean;
+  /** A password re-entered to sign: its 401 means a wrong password, not an expired session. */
+  passwordCheck?: boolean;
 }
 
 const UNREACHABLE: ApiErrorBody = {
@@ -46,14 +51,15 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
   const headers: Record<string, string> = { Accept: 'application/json' };
   const token = options.public ? null : getSessionToken();
   if (token) headers.Authorization = `Bearer ${token}`;
-  if (options.body !== undefined) headers['Content-Type'] = 'application/json';
+  const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
+  if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
 
   let response: Response;
   try {
     response = await fetch(`${BASE_URL}${path}`, {
       method: options.method ?? 'GET',
       headers,
-      body: options.body === undefined ? undefined : JSON.stringify(options.body),
+      body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
       signal: options.signal,
     });
   } catch (error) {
@@ -64,10 +70,11 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
   if (!response.ok) {
     const body = await readErrorBody(response);
     // Clearing the token sends every protected route back to sign-in, remembering where the user was.
-    if (response.status === 401 && !options.public) clearSessionToken();
+    if (response.status === 401 && !options.public && !options.passwordCheck) clearSessionToken();
     throw new ApiError(body);
   }
 
+  if (options.responseType === 'blob') return (await response.blob()) as T;
   if (response.status === 204 || response.headers.get('Content-Length') === '0') return undefined as T;
   return (await response.json()) as T;
 }
@@ -80,4 +87,6 @@ export const api = {
     apiRequest<T>(path, { ...options, method: 'PATCH', body }),
   delete: <T>(path: string, options?: Omit<RequestOptions, 'method' | 'body'>) =>
     apiRequest<T>(path, { ...options, method: 'DELETE' }),
+  download: (path: string, options?: Omit<RequestOptions, 'method' | 'body' | 'responseType'>) =>
+    apiRequest<Blob>(path, { ...options, responseType: 'blob' }),
 };

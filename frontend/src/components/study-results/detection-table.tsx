@@ -1,0 +1,125 @@
+import { Text } from '@chakra-ui/react';
+import type { DetectionApproach, EvaluationResult } from '@meritline/shared';
+import { DataTable, dataTableColumns } from '@/components/data-table';
+import { CriterionCell, OutcomeCell } from './figures-table';
+import { formatNumber, withUnit } from './format';
+import { criteriaUnder, type JudgedCriterion } from './judge-criteria';
+import type { StudyUnits } from './types';
+
+interface DetectionRow {
+  approach: DetectionApproach;
+  name: string;
+  critical: string;
+  detection: string;
+  quantitation: string;
+  basis: string;
+  flagBasis: boolean;
+  criteria: JudgedCriterion[];
+}
+
+const column = dataTableColumns<DetectionRow>();
+const columns = column.columns([
+  column.accessor('name', {
+    header: 'Approach',
+    cell: (info) => (
+      <Text fontWeight="500">
+        {info.getValue()}
+        {info.row.original.flagBasis && (
+          <Text as="span" display="block" fontSize="xs" color="fg.muted" fontWeight="400">
+            Used for the sample flags
+          </Text>
+        )}
+      </Text>
+    ),
+  }),
+  column.accessor('critical', { header: 'Critical value', meta: { align: 'end' } }),
+  column.accessor('detection', { header: 'Detection limit', meta: { align: 'end' } }),
+  column.accessor('quantitation', { header: 'Quantitation limit', meta: { align: 'end' } }),
+  column.accessor('basis', { header: 'Basis', cell: (info) => <Text color="fg.muted">{info.getValue()}</Text> }),
+  column.display({ id: 'criterion', header: 'Criterion', cell: (info) => <CriterionCell criteria={info.row.original.criteria} /> }),
+  column.display({ id: 'outcome', header: 'Outcome', cell: (info) => <OutcomeCell criteria={info.row.original.criteria} /> }),
+]);
+
+export function detectionRows(result: EvaluationResult, units: StudyUnits, judged: readonly JudgedCriterion[]): DetectionRow[] {
+  const d = result.detection;
+  if (!d) return [];
+  const x = (value: number | null | undefined, digits = 4) => withUnit(formatNumber(value, digits), units.x);
+  const y = (value: number | null | undefined) => withUnit(formatNumber(value, 4), units.y);
+  const rows: DetectionRow[] = [];
+  const add = (approach: DetectionApproach, row: Omit<DetectionRow, 'approach' | 'criteria' | 'flagBasis'>) =>
+    rows.push({ approach, ...row, flagBasis: d.flagBasis === approach, criteria: criteriaUnder(judged, `detection.${approach}`) });
+
+  if (d.sdResidual) {
+    add('sdResidual', {
+      name: 'ICH Q2(R2), SD of the residuals',
+      critical: '—',
+      detection: x(d.sdResidual.lod),
+      quantitation: x(d.sdResidual.loq),
+      basis: `3.3σ/S and 10σ/S with σ = s(y/x) = ${formatNumber(d.sdResidual.sigma, 3)}`,
+    });
+  }
+  if (d.sdIntercept) {
+    add('sdIntercept', {
+      name: 'ICH Q2(R2), SD of the intercept',
+      critical: '—',
+      detection: x(d.sdIntercept.lod),
+      quantitation: x(d.sdIntercept.loq),
+      basis: `3.3σ/S and 10σ/S with σ = SE of the intercept = ${formatNumber(d.sdIntercept.sigma, 3)}`,
+    });
+  }
+  if (d.blankSd) {
+    add('blankSd', {
+      name: 'ICH Q2(R2), SD of the blanks',
+      critical: '—',
+      detection: x(d.blankSd.lod),
+      quantitation: x(d.blankSd.loq),
+      basis: `${d.blankSd.n} blanks, mean ${y(d.blankSd.mean)}, σ = ${formatNumber(d.blankSd.sigma, 3)}; mean + 3 SD and mean + 10 SD of the blanks read off the line: ${x(
+        d.blankSd.responseLodX,
+      )} and ${x(d.blankSd.responseLoqX)}`,
+    });
+  }
+  if (d.iso11843) {
+    add('iso11843', {
+      name: 'ISO 11843-2, from the calibration',
+      critical: x(d.iso11843.criticalX),
+      detection: x(d.iso11843.detectableX),
+      quantitation: '—',
+      basis: `Critical response ${y(d.iso11843.criticalResponse)}; ${d.iso11843.K} reading per sample, ${d.iso11843.df} df, δ = ${formatNumber(d.iso11843.delta, 4)}`,
+    });
+  }
+  if (d.hubauxVos) {
+    add('hubauxVos', {
+      name: 'Hubaux and Vos, prediction band',
+      critical: x(d.hubauxVos.criticalX),
+      detection: x(d.hubauxVos.detectableX),
+      quantitation: '—',
+      basis: `Critical response ${y(d.hubauxVos.criticalResponse)}; ${d.hubauxVos.df} df`,
+    });
+  }
+  if (d.epaMdl) {
+    const m = d.epaMdl;
+    add('epaMdl', {
+      name: 'Method detection limit, 40 CFR 136 App. B',
+      critical: '—',
+      detection: x(m.mdl),
+      quantitation: '—',
+      basis: `From ${m.nSpiked} low-level spikes: ${x(m.mdlSpiked)}; from ${m.nBlanks} method blanks: ${
+        m.mdlBlank === null ? 'none' : x(m.mdlBlank)
+      }; the higher (${m.governing === 'spiked' ? 'spikes' : 'blanks'}) governs`,
+    });
+  }
+  return rows;
+}
+
+/** Every detection approach the data allows, side by side, in concentration units. */
+export function DetectionTable({ result, units, judged }: { result: EvaluationResult; units: StudyUnits; judged: readonly JudgedCriterion[] }) {
+  return (
+    <DataTable
+      label="Detection and quantitation limits"
+      columns={columns}
+      data={detectionRows(result, units, judged)}
+      getRowId={(row) => row.approach}
+      emptyTitle="No detection limit could be computed"
+    />
+  );
+}

@@ -1,0 +1,143 @@
+import type { CriterionOp } from '@meritline/shared';
+import type { CriterionDefinition } from './types';
+
+const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
+
+/** A number to `digits` significant figures; very large or small values as a × 10ⁿ. */
+export function formatNumber(value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  if (value === 0) return '0';
+  const magnitude = Math.abs(value);
+  if (magnitude >= 1e6 || magnitude < 1e-4) {
+    const [mantissa, exponent] = value.toExponential(digits - 1).split('e');
+    const power = String(Number(exponent)).replace(/./g, (c) => SUPERSCRIPT[c] ?? c);
+    return `${mantissa.replace(/\.?0+$/, '')} × 10${power}`;
+  }
+  return String(Number(value.toPrecision(digits)));
+}
+
+export function formatPercent(value: number | null | undefined, digits = 4): string {
+  return value === null || value === undefined || !Number.isFinite(value) ? '—' : `${formatNumber(value, digits)} %`;
+}
+
+export function formatP(p: number | null | undefined): string {
+  if (p === null || p === undefined || !Number.isFinite(p)) return '—';
+  return p < 0.001 ? '< 0.001' : p.toFixed(3);
+}
+
+export function formatInterval(interval: readonly [number, number] | null | undefined, digits = 4): string {
+  return interval ? `${formatNumber(interval[0], digits)} to ${formatNumber(interval[1], digits)}` : '—';
+}
+
+export function withUnit(text: string, unit: string | undefined): string {
+  return unit && text !== '—' ? `${text} ${unit}` : text;
+}
+
+const OP_WORDS: Record<Exclude<CriterionOp, 'between'>, string> = {
+  '>=': 'at least',
+  '<=': 'at most',
+  '>': 'above',
+  '<': 'below',
+  'abs<=': 'within ±',
+};
+
+/** "at least 0.995", "from 98 to 102 %", "within ± 2 %". */
+export function describeRequirement(op: CriterionOp, threshold: number | [number, number], unit?: string): string {
+  const suffix = unit ? ` ${unit}` : '';
+  if (op === 'between') {
+    const [low, high] = threshold as [number, number];
+    return `from ${formatNumber(low, 6)} to ${formatNumber(high, 6)}${suffix}`;
+  }
+  const words = OP_WORDS[op];
+  return `${words} ${formatNumber(threshold as number, 6)}${suffix}`;
+}
+
+/** Figures a criterion commonly names, with their words; any other dotted path into the result works too. */
+export const FIGURE_LABELS: Record<string, string> = {
+  'calibration.slope': 'Slope',
+  'calibration.intercept': 'Intercept',
+  'calibration.r': 'Correlation coefficient r',
+  'calibration.r2': 'Coefficient of determination R²',
+  'calibration.adjR2': 'Adjusted R²',
+  'calibration.sYX': 'Residual standard deviation s(y/x)',
+  'calibration.n': 'Standards used',
+  'lackOfFit.p': 'Lack-of-fit test, p-value',
+  'lackOfFit.F': 'Lack-of-fit test, F',
+  'mandel.p': 'Mandel test, p-value',
+  'mandel.F': 'Mandel test, F',
+  'interceptTest.p': 'Intercept test, p-value',
+  'interceptTest.interceptPctOfTopResponse': 'Intercept as % of the top response',
+  'homoscedasticity.p': 'Variance check, p-value',
+  'homoscedasticity.F': 'Variance check, F',
+  'detection.sdResidual.lod': 'LOD from the residual SD',
+  'detection.sdResidual.loq': 'LOQ from the residual SD',
+  'detection.sdIntercept.lod': 'LOD from the SD of the intercept',
+  'detection.sdIntercept.loq': 'LOQ from the SD of the intercept',
+  'detection.blankSd.lod': 'LOD from the blank SD',
+  'detection.blankSd.loq': 'LOQ from the blank SD',
+  'detection.iso11843.criticalX': 'Critical value x_c (ISO 11843-2)',
+  'detection.iso11843.detectableX': 'Minimum detectable value x_d (ISO 11843-2)',
+  'detection.hubauxVos.criticalX': 'Decision limit (Hubaux–Vos)',
+  'detection.hubauxVos.detectableX': 'Detection limit (Hubaux–Vos)',
+  'detection.epaMdl.mdl': 'Method detection limit (40 CFR 136)',
+  'recovery.overall.meanPct': 'Mean recovery, all levels',
+  'recovery.overall.rsdPct': 'Recovery RSD, all levels',
+  'precision.rsdR': 'Repeatability RSD',
+  'precision.rsdI': 'Intermediate precision RSD',
+  'precision.sR': 'Repeatability SD s_r',
+  'precision.sI': 'Intermediate precision SD',
+  'precision.horwitz.horRat': 'HorRat',
+  'precision.horwitz.horRatRepeatability': 'HorRat (repeatability)',
+  'range.rePct': 'Back-calculated deviation at every level',
+  'range.rsdPct': 'RSD at every level',
+  'range.recoveryPct': 'Mean recovery at every level',
+};
+
+/** Figures whose values are percentages, for the unit beside the requirement. */
+const PERCENT_FIGURE = /(Pct|rsdR|rsdI)$/;
+
+/** `recovery.byLevel.low.meanPct` → "Mean recovery at level low"; known paths get their own words. */
+export function figureLabel(figure: string): string {
+  const path = figure.replace(/\[(\w+)\]/g, '.$1');
+  if (FIGURE_LABELS[path]) return FIGURE_LABELS[path];
+  const byLevel = /^recovery\.byLevel\.([^.]+)\.(meanPct|rsdPct|sdPct)$/.exec(path);
+  if (byLevel) {
+    const what = byLevel[2] === 'meanPct' ? 'Mean recovery' : byLevel[2] === 'rsdPct' ? 'Recovery RSD' : 'Recovery SD';
+    return `${what} at level ${byLevel[1]}`;
+  }
+  return path;
+}
+
+export function figureUnit(figure: string): string | undefined {
+  return PERCENT_FIGURE.test(figure) ? '%' : undefined;
+}
+
+export function criterionName(criterion: Pick<CriterionDefinition, 'figure' | 'label'>): string {
+  return criterion.label?.trim() || figureLabel(criterion.figure);
+}
+
+/** Criteria name figures as `a.b[2]` or `a.b.2`; both mean the same place. */
+export function sameFigure(a: string, b: string): boolean {
+  const normalise = (figure: string) => figure.replace(/\[(\w+)\]/g, '.$1');
+  return normalise(a) === normalise(b);
+}
+
+export const MODEL_LABELS: Record<string, string> = {
+  linear: 'Straight line',
+  'linear-through-origin': 'Straight line through the origin',
+  quadratic: 'Quadratic curve',
+  'one-point': 'One point (single standard level)',
+  'two-point': 'Two points',
+};
+
+export const WEIGHTING_LABELS: Record<string, string> = {
+  none: 'None (equal weights)',
+  '1/x': '1/x',
+  '1/x2': '1/x²',
+  '1/s2': '1/s²',
+};
+
+export function slopeUnit(units: { x?: string; y?: string }): string | undefined {
+  if (!units.x && !units.y) return undefined;
+  return `${units.y ?? 'response'} per ${units.x ?? 'unit'}`;
+}

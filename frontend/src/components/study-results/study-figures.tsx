@@ -1,0 +1,80 @@
+import { Stack } from '@chakra-ui/react';
+import { CalibrationTable, LevelsTable, LinearityTable } from './calibration-figures';
+import { DetectionTable } from './detection-table';
+import { FigureSection } from './figure-section';
+import { judgeCriteria } from './judge-criteria';
+import { OutliersTable } from './outliers-table';
+import { PrecisionAnovaTable, PrecisionFiguresTable, PrecisionSeriesTable } from './precision-tables';
+import { RecoveryItemsTable, RecoveryTable } from './recovery-table';
+import type { StudyResultsProps } from './types';
+import { UnknownsTable } from './unknowns-table';
+import { WorkingRange } from './working-range';
+
+/** Every figure of merit the engine computed, each beside its criterion and outcome. Read-only. */
+export function StudyFigures({ result, units, criteria }: StudyResultsProps) {
+  const judged = judgeCriteria(criteria, result);
+  const hasLinearityTests = Boolean(result.lackOfFit || result.mandel || result.interceptTest || result.throughOrigin || result.homoscedasticity);
+  return (
+    <Stack gap="10">
+      <FigureSection id="fig-calibration" title="Calibration line" sections={['calibration']} result={result} available={Boolean(result.calibration)}>
+        <CalibrationTable result={result} units={units} judged={judged} />
+      </FigureSection>
+      <FigureSection
+        id="fig-levels"
+        title="Standard levels and back-calculation"
+        description="Each level's replicate scatter, and the concentration the line gives back for it."
+        sections={[]}
+        result={result}
+        available={Boolean(result.calibration)}
+      >
+        <LevelsTable result={result} units={units} />
+      </FigureSection>
+      <FigureSection
+        id="fig-linearity"
+        title="Linearity, intercept and variance tests"
+        sections={['lackOfFit', 'mandel', 'interceptTest', 'throughOrigin', 'homoscedasticity']}
+        result={result}
+        available={hasLinearityTests}
+      >
+        <LinearityTable result={result} units={units} judged={judged} />
+      </FigureSection>
+      <FigureSection
+        id="fig-detection"
+        title="Detection and quantitation limits"
+        description={`All approaches the data allow, side by side, in concentration units${units.x ? ` (${units.x})` : ''}.`}
+        sections={['detection']}
+        result={result}
+        available={Boolean(result.detection)}
+      >
+        <DetectionTable result={result} units={units} judged={judged} />
+      </FigureSection>
+      {result.unknowns && (
+        <FigureSection id="fig-unknowns" title="Samples read off the calibration" sections={['unknowns']} result={result} available>
+          <UnknownsTable result={result} unit={units.x} />
+        </FigureSection>
+      )}
+      <FigureSection id="fig-recovery" title="Recovery" sections={['recovery']} result={result} available={Boolean(result.recovery)}>
+        <RecoveryTable result={result} judged={judged} />
+        <RecoveryItemsTable result={result} />
+      </FigureSection>
+      <FigureSection id="fig-precision" title="Precision" sections={['precision']} result={result} available={Boolean(result.precision)}>
+        <PrecisionFiguresTable result={result} units={units} judged={judged} />
+        <PrecisionAnovaTable result={result} />
+        <PrecisionSeriesTable result={result} />
+      </FigureSection>
+      <FigureSection
+        id="fig-outliers"
+        title="Outlier tests"
+        description="The tests flag values only; nothing is removed."
+        sections={['outliers']}
+        result={result}
+        available={Boolean(result.outliers && result.outliers.length > 0)}
+      >
+        <OutliersTable result={result} />
+      </FigureSection>
+      <FigureSection id="fig-range" title="Working range" sections={['range']} result={result} available={Boolean(result.range)}>
+        <WorkingRange result={result} units={units} />
+      </FigureSection>
+    </Stack>
+  );
+}
