@@ -16,6 +16,7 @@ import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { NotificationsModule } from './notifications/notifications.module.js';
 import { ReviewsModule } from './reviews/reviews.module.js';
+import { RunsModule } from './runs/runs.module.js';
 import { UsersModule } from './users/users.module.js';
 
 const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
@@ -33,6 +34,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     HealthModule,
     NotificationsModule,
     ReviewsModule,
+    RunsModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },
