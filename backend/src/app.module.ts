@@ -12,11 +12,14 @@ import { JwtAuthGuard } from './common/guards/jwt-auth.guard.js';
 import { RolesGuard } from './common/guards/roles.guard.js';
 import { appConfig } from './config/app.config.js';
 import { DatabaseModule } from './database/database.module.js';
+import { EvaluateModule } from './evaluate/evaluate.module.js';
 import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
+import { MethodsModule } from './methods/methods.module.js';
 import { NotificationsModule } from './notifications/notifications.module.js';
 import { ReviewsModule } from './reviews/reviews.module.js';
 import { RunsModule } from './runs/runs.module.js';
+import { StudiesModule } from './studies/studies.module.js';
 import { UsersModule } from './users/users.module.js';
 
 const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
@@ -32,6 +35,9 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     UsersModule,
     AuthModule,
     HealthModule,
+    MethodsModule,
+    StudiesModule,
+    EvaluateModule,
     NotificationsModule,
     ReviewsModule,
     RunsModule,

@@ -1,0 +1,24 @@
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { IsBoolean, IsNumber, IsOptional, Max, Min } from 'class-validator';
+
+/** Settings of a method version; fields left out keep their current (or the template's) value. */
+export class MethodVersionSettingsDto {
+  @ApiPropertyOptional({ description: 'A quality manager must release a study after the reviewer’s approval.' })
+  @IsOptional()
+  @IsBoolean()
+  requiresQualityRelease?: boolean;
+
+  @ApiPropertyOptional({ description: 'Check standards in a routine run must recover within 100 ± this %.', example: 10 })
+  @IsOptional()
+  @IsNumber({ allowNaN: false, allowInfinity: false })
+  @Min(0.1)
+  @Max(50)
+  checkTolerancePct?: number;
+
+  @ApiPropertyOptional({ description: 'One-point calibration only when |intercept| is at most this % of the top response.', example: 5 })
+  @IsOptional()
+  @IsNumber({ allowNaN: false, allowInfinity: false })
+  @Min(0)
+  @Max(100)
+  onePointMaxInterceptPct?: number;
+}

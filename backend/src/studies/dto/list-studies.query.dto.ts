@@ -1,0 +1,75 @@
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { Transform, Type } from 'class-transformer';
+import { IsBoolean, IsIn, IsInt, IsISO8601, IsOptional, IsUUID, Max, Min } from 'class-validator';
+import type { StudyStatus } from '@meritline/shared';
+import { OptionalText } from '../../methods/dto/text.decorators.js';
+
+export const STUDY_STATUSES: StudyStatus[] = ['draft', 'submitted', 'returned', 'approved'];
+export const STUDY_SORTS = ['updatedAt', 'createdAt', 'title', 'status'] as const;
+
+export class ListStudiesQueryDto {
+  @ApiPropertyOptional({ enum: STUDY_STATUSES })
+  @IsOptional()
+  @IsIn(STUDY_STATUSES, { message: `The status must be one of ${STUDY_STATUSES.join(', ')}.` })
+  status?: StudyStatus;
+
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsUUID('all')
+  methodId?: string;
+
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsUUID('all')
+  methodVersionId?: string;
+
+  @ApiPropertyOptional()
+  @IsOptional()
+  @IsUUID('all')
+  authorId?: string;
+
+  @ApiPropertyOptional({ description: 'Only my studies (overrides authorId).' })
+  @IsOptional()
+  @Transform(({ value }) => (value === 'true' ? true : value === 'false' ? false : value))
+  @IsBoolean({ message: 'mine must be true or false.' })
+  mine?: boolean;
+
+  @ApiPropertyOptional({ description: 'Changed on or after this date (YYYY-MM-DD) or instant.', example: '2026-11-01' })
+  @IsOptional()
+  @IsISO8601({ strict: true }, { message: 'Give the date as YYYY-MM-DD.' })
+  from?: string;
+
+  @ApiPropertyOptional({ description: 'Changed on or before this date (YYYY-MM-DD, the whole day) or instant.', example: '2026-11-30' })
+  @IsOptional()
+  @IsISO8601({ strict: true }, { message: 'Give the date as YYYY-MM-DD.' })
+  to?: string;
+
+  @ApiPropertyOptional({ description: 'Text the title contains.' })
+  @OptionalText(200)
+  q?: string;
+
+  @ApiPropertyOptional({ enum: STUDY_SORTS, default: 'updatedAt' })
+  @IsOptional()
+  @IsIn(STUDY_SORTS, { message: `Sort by one of ${STUDY_SORTS.join(', ')}.` })
+  sort?: (typeof STUDY_SORTS)[number];
+
+  @ApiPropertyOptional({ enum: ['desc', 'asc'], default: 'desc' })
+  @IsOptional()
+  @IsIn(['desc', 'asc'], { message: 'The order is asc or desc.' })
+  order?: 'asc' | 'desc';
+
+  @ApiPropertyOptional({ default: 1, minimum: 1 })
+  @IsOptional()
+  @Type(() => Number)
+  @Min(1)
+  @IsInt()
+  page?: number;
+
+  @ApiPropertyOptional({ default: 20, minimum: 1, maximum: 100 })
+  @IsOptional()
+  @Type(() => Number)
+  @Max(100)
+  @Min(1)
+  @IsInt()
+  pageSize?: number;
+}

@@ -1,0 +1,81 @@
+import { ApiProperty, OmitType } from '@nestjs/swagger';
+import type { MethodVersionStatus, StudyStatus } from '@meritline/shared';
+import { CriterionDto } from '../../methods/dto/criterion.dto.js';
+import { MethodVersionSettingsViewDto, UserRefDto } from '../../methods/dto/method.dto.js';
+import { IMPORT_SECTIONS, type ImportSection } from '../study-import.js';
+import { STUDY_STATUSES } from './list-studies.query.dto.js';
+import { StudyMetaDto } from './study-meta.dto.js';
+
+export class FieldErrorDto {
+  @ApiProperty({ example: 'standards[3].x' }) field: string;
+  @ApiProperty({ example: 'not_finite' }) code: string;
+  @ApiProperty() message: string;
+}
+
+export class StudyMethodDto {
+  @ApiProperty() id: string;
+  @ApiProperty() name: string;
+  @ApiProperty() analyte: string;
+  @ApiProperty() matrix: string;
+  @ApiProperty() technique: string;
+  @ApiProperty() xUnit: string;
+  @ApiProperty() yUnit: string;
+}
+
+export class StudyMethodVersionDto {
+  @ApiProperty() id: string;
+  @ApiProperty() number: number;
+  @ApiProperty({ enum: ['draft', 'active', 'retired'] }) status: MethodVersionStatus;
+  @ApiProperty({ type: [CriterionDto] }) criteria: CriterionDto[];
+  @ApiProperty({ type: MethodVersionSettingsViewDto }) settings: MethodVersionSettingsViewDto;
+}
+
+export class StudyDto {
+  @ApiProperty() id: string;
+  @ApiProperty() title: string;
+  @ApiProperty({ enum: STUDY_STATUSES }) status: StudyStatus;
+  @ApiProperty() methodVersionId: string;
+  @ApiProperty({ type: StudyMethodDto }) method: StudyMethodDto;
+  @ApiProperty({ type: StudyMethodVersionDto }) methodVersion: StudyMethodVersionDto;
+  @ApiProperty({ type: 'object', additionalProperties: true, description: 'The study in the engine’s input format, as stored.' })
+  data: Record<string, unknown>;
+  @ApiProperty({ type: 'object', additionalProperties: true, nullable: true, description: 'The engine’s result for exactly `data`; null while the data cannot be evaluated yet.' })
+  result: Record<string, unknown> | null;
+  @ApiProperty({ type: [FieldErrorDto], nullable: true, description: 'Why `data` cannot be evaluated yet.' })
+  resultErrors: FieldErrorDto[] | null;
+  @ApiProperty() engineVersion: string;
+  @ApiProperty({ description: 'SHA-256 (hex) of the canonical JSON of `data`.' }) dataHash: string;
+  @ApiProperty({ type: StudyMetaDto }) meta: StudyMetaDto;
+  @ApiProperty({ type: UserRefDto }) author: UserRefDto;
+  @ApiProperty({ type: [String], description: 'Everyone who changed the data.' }) editorIds: string[];
+  @ApiProperty({ type: String, nullable: true }) copiedFromId: string | null;
+  @ApiProperty() lockVersion: number;
+  @ApiProperty({ format: 'date-time' }) createdAt: string;
+  @ApiProperty({ format: 'date-time' }) updatedAt: string;
+  @ApiProperty({ type: String, format: 'date-time', nullable: true }) submittedAt: string | null;
+  @ApiProperty({ type: String, format: 'date-time', nullable: true }) approvedAt: string | null;
+}
+
+export class StudySummaryDto extends OmitType(StudyDto, ['data', 'result'] as const) {
+  @ApiProperty({ type: Boolean, nullable: true, description: 'The verdict on the criteria; null without a result or criteria.' })
+  verdictPass: boolean | null;
+}
+
+export class StudyPageDto {
+  @ApiProperty({ type: [StudySummaryDto] }) items: StudySummaryDto[];
+  @ApiProperty() total: number;
+  @ApiProperty() page: number;
+  @ApiProperty() pageSize: number;
+}
+
+export class ImportPreviewDto {
+  @ApiProperty({ enum: IMPORT_SECTIONS }) section: ImportSection;
+  @ApiProperty({ type: [String], description: 'Column headers of the file.' }) columns: string[];
+  @ApiProperty({ type: 'object', additionalProperties: { type: 'string' }, description: 'Target field → column header, as used.' })
+  mapping: Record<string, string>;
+  @ApiProperty({ type: 'array', items: {}, description: 'The section in the study format (lowSpikes: one object).' })
+  rows: unknown[];
+  @ApiProperty({ type: [FieldErrorDto], description: 'Per row and column, e.g. rows[3].y; a real import with any error saves nothing.' })
+  errors: FieldErrorDto[];
+  @ApiProperty({ description: 'Data rows read from the file.' }) rowCount: number;
+}

@@ -1,0 +1,317 @@
+import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource, type EntityManager } from 'typeorm';
+import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
+import { canonicalJson, type FieldError } from '@meritline/shared';
+import type { FieldChanges } from '../audit/audit-entry.entity.js';
+import { AuditService, type AuditRecord } from '../audit/audit.service.js';
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { unprocessable } from '../common/validation.js';
+import type { CriterionDto } from '../methods/dto/criterion.dto.js';
+import { MethodVersion } from '../methods/method-version.entity.js';
+import { writeTransaction } from '../methods/write-transaction.js';
+import type { CreateStudyDto } from './dto/create-study.dto.js';
+import type { ImportStudyDto } from './dto/import-study.dto.js';
+import type { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
+import type { StudyMetaDto } from './dto/study-meta.dto.js';
+import type { ImportPreviewDto, StudyDto, StudyPageDto, StudySummaryDto } from './dto/study.dto.js';
+import type { UpdateStudyDto } from './dto/update-study.dto.js';
+import { readImportTable } from './import-table.js';
+import { evaluateStudyData, withMethodDefaults, type StudyData } from './study-evaluation.js';
+import { importSection, type ImportSection } from './study-import.js';
+import { ValidationStudy, type StudyMeta } from './validation-study.entity.js';
+
+const LOCKED_STATUSES = ['submitted', 'approved'];
+const DAY_MS = 86_400_000;
+
+type StudyPatch = Partial<Pick<ValidationStudy, 'title' | 'meta' | 'data' | 'result' | 'resultErrors' | 'engineVersion' | 'dataHash' | 'editorIds'>>;
+
+const iso = (date: Date | null) => date?.toISOString() ?? null;
+
+export function toStudySummary(study: ValidationStudy): StudySummaryDto {
+  const { methodVersion: version, author } = study;
+  const { method } = version;
+  const verdict = (study.result as { verdict?: { pass?: boolean | null } } | null)?.verdict;
+  return {
+    id: study.id,
+    title: study.title,
+    status: study.status,
+    methodVersionId: study.methodVersionId,
+    method: { id: method.id, name: method.name, analyte: method.analyte, matrix: method.matrix, technique: method.technique, xUnit: method.xUnit, yUnit: method.yUnit },
+    methodVersion: { id: version.id, number: version.number, status: version.status, criteria: version.criteria as CriterionDto[], settings: version.settings },
+    resultErrors: study.resultErrors,
+    engineVersion: study.engineVersion,
+    dataHash: study.dataHash,
+    meta: study.meta,
+    author: { id: author.id, name: author.name },
+    editorIds: study.editorIds,
+    copiedFromId: study.copiedFromId,
+    lockVersion: study.lockVersion,
+    createdAt: study.createdAt.toISOString(),
+    updatedAt: study.updatedAt.toISOString(),
+    submittedAt: iso(study.submittedAt),
+    approvedAt: iso(study.approvedAt),
+    verdictPass: verdict?.pass ?? null,
+  };
+}
+
+export function toStudyDto(study: ValidationStudy): StudyDto {
+  const { verdictPass: _verdictPass, ...summary } = toStudySummary(study);
+  return { ...summary, data: study.data, result: study.result };
+}
+
+/** Meta fields given replace the stored ones; an empty or null field clears it. */
+function mergeMeta(current: StudyMeta, update: StudyMetaDto | undefined): StudyMeta {
+  const merged: Record<string, unknown> = { ...current };
+  for (const [key, value] of Object.entries(update ?? {})) {
+    if (value === undefined) continue;
+    if (value === null || value === '') delete merged[key];
+    else merged[key] = value;
+  }
+  if (merged.startedOn && merged.finishedOn && String(merged.finishedOn) < String(merged.startedOn)) {
+    throw unprocessable([{ field: 'meta.finishedOn', code: 'before_start', message: 'The study cannot finish before it starts.' }]);
+  }
+  return merged as StudyMeta;
+}
+
+const changed = (from: unknown, to: unknown) => canonicalJson(from) !== canonicalJson(to);
+
+type Standard = { excluded?: { reason?: string } };
+const standardsOf = (data: StudyData): Standard[] => (Array.isArray(data.standards) ? (data.standards as Standard[]) : []);
+
+/** One audit entry per standard newly excluded (with its reason) or re-included, by position. */
+function exclusionEntries(before: StudyData, after: StudyData, actor: AuthUser, studyId: string): AuditRecord[] {
+  const old = standardsOf(before);
+  return standardsOf(after).flatMap((point, i): AuditRecord[] => {
+    const was = old[i]?.excluded?.reason;
+    const is = point?.excluded?.reason;
+    const entry = { actor, entity: 'study', entityId: studyId };
+    if (is && !was) return [{ ...entry, action: 'study.point-excluded', changes: { [`standards[${i}].excluded`]: { from: null, to: point.excluded } }, reason: is }];
+    if (was && !is && old[i]) return [{ ...entry, action: 'study.point-included', changes: { [`standards[${i}].excluded`]: { from: old[i].excluded, to: null } } }];
+    return [];
+  });
+}
+
+function replaceSection(data: StudyData, section: ImportSection, rows: unknown[]): StudyData {
+  return { ...data, [section]: section === 'lowSpikes' ? rows[0] : rows };
+}
+
+function sectionSize(data: StudyData, section: ImportSection): number {
+  const value = data[section];
+  if (Array.isArray(value)) return value.length;
+  return (value as { spiked?: unknown[] } | undefined)?.spiked?.length ?? 0;
+}
+
+function parseMapping(text: string | undefined): Record<string, string | null> | undefined {
+  if (text === undefined || text.trim() === '') return undefined;
+  const refuse = () => unprocessable([{ field: 'mapping', code: 'invalid', message: 'The mapping must be a JSON object of field names to column headers.' }]);
+  let mapping: unknown;
+  try {
+    mapping = JSON.parse(text);
+  } catch {
+    throw refuse();
+  }
+  if (typeof mapping !== 'object' || mapping === null || Array.isArray(mapping)) throw refuse();
+  if (!Object.values(mapping).every((value) => value === null || typeof value === 'string')) throw refuse();
+  return mapping as Record<string, string | null>;
+}
+
+function staleStudy() {
+  return new ConflictException('Someone else changed this study; reload it and try again.');
+}
+
+@Injectable()
+export class StudiesService {
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly audit: AuditService,
+  ) {}
+
+  async findPage(query: ListStudiesQueryDto, user: AuthUser): Promise<StudyPageDto> {
+    const page = query.page ?? 1;
+    const pageSize = query.pageSize ?? 20;
+    const order = query.order === 'asc' ? 'ASC' : 'DESC';
+    const qb = this.dataSource
+      .getRepository(ValidationStudy)
+      .createQueryBuilder('study')
+      .innerJoin('study.methodVersion', 'version')
+      .innerJoin('version.method', 'method')
+      .innerJoin('study.author', 'author')
+      .select([
+        'study.id', 'study.title', 'study.status', 'study.methodVersionId', 'study.result', 'study.resultErrors', 'study.engineVersion',
+        'study.dataHash', 'study.meta', 'study.authorId', 'study.editorIds', 'study.copiedFromId', 'study.lockVersion', 'study.createdAt',
+        'study.updatedAt', 'study.submittedAt', 'study.approvedAt',
+        'version.id', 'version.number', 'version.status', 'version.criteria', 'version.settings',
+        'method.id', 'method.name', 'method.analyte', 'method.matrix', 'method.technique', 'method.xUnit', 'method.yUnit',
+        'author.id', 'author.name',
+      ]);
+    if (query.status) qb.andWhere('study.status = :status', { status: query.status });
+    if (query.methodId) qb.andWhere('version.methodId = :methodId', { methodId: query.methodId });
+    if (query.methodVersionId) qb.andWhere('study.methodVersionId = :methodVersionId', { methodVersionId: query.methodVersionId });
+    const authorId = query.mine ? user.id : query.authorId;
+    if (authorId) qb.andWhere('study.authorId = :authorId', { authorId });
+    if (query.from) qb.andWhere('study.updatedAt >= :from', { from: new Date(query.from) });
+    if (query.to) {
+      const dateOnly = /^\d{4}-\d{2}-\d{2}$/.test(query.to);
+      qb.andWhere(dateOnly ? 'study.updatedAt < :to' : 'study.updatedAt <= :to', { to: new Date(Date.parse(query.to) + (dateOnly ? DAY_MS : 0)) });
+    }
+    if (query.q) qb.andWhere(`LOWER(study.title) LIKE :q ESCAPE '\\'`, { q: `%${query.q.toLowerCase().replace(/[\\%_]/g, '\\$&')}%` });
+    const [studies, total] = await qb
+      .orderBy(`study.${query.sort ?? 'updatedAt'}`, order)
+      .addOrderBy('study.id', order)
+      .offset((page - 1) * pageSize)
+      .limit(pageSize)
+      .getManyAndCount();
+    return { items: studies.map(toStudySummary), total, page, pageSize };
+  }
+
+  async findOne(id: ValidationStudy['id'], manager: EntityManager = this.dataSource.manager): Promise<StudyDto> {
+    return toStudyDto(await this.load(manager, id));
+  }
+
+  async create(dto: CreateStudyDto, actor: AuthUser): Promise<StudyDto> {
+    const id = await writeTransaction(this.dataSource, async (manager) => {
+      const version = await manager.findOne(MethodVersion, { where: { id: dto.methodVersionId }, relations: { method: true } });
+      if (!version) throw unprocessable([{ field: 'methodVersionId', code: 'not_found', message: 'There is no method version with this id.' }]);
+      if (version.status === 'retired') {
+        throw unprocessable([{ field: 'methodVersionId', code: 'retired', message: `Version ${version.number} of this method is retired; choose its current version.` }]);
+      }
+      const data = withMethodDefaults(dto.data, version, version.method);
+      const evaluation = evaluateStudyData(data);
+      const study = await manager.save(
+        manager.create(ValidationStudy, {
+          methodVersionId: version.id,
+          title: dto.title,
+          status: 'draft',
+          data,
+          ...evaluation,
+          meta: mergeMeta({}, dto.meta),
+          authorId: actor.id,
+          editorIds: [actor.id],
+          copiedFromId: null,
+          submittedAt: null,
+          approvedAt: null,
+        }),
+      );
+      await this.audit.record(
+        {
+          actor,
+          action: 'study.created',
+          entity: 'study',
+          entityId: study.id,
+          changes: { title: { from: null, to: study.title }, methodVersionId: { from: null, to: version.id }, dataHash: { from: null, to: study.dataHash } },
+        },
+        manager,
+      );
+      return study.id;
+    });
+    return this.findOne(id);
+  }
+
+  async update(id: ValidationStudy['id'], dto: UpdateStudyDto, actor: AuthUser): Promise<StudyDto> {
+    return writeTransaction(this.dataSource, async (manager) => {
+      const study = await this.loadEditable(manager, id, actor);
+      if (dto.lockVersion !== study.lockVersion) throw staleStudy();
+      const patch: StudyPatch = {};
+      if (dto.title && dto.title !== study.title) patch.title = dto.title;
+      const meta = mergeMeta(study.meta, dto.meta);
+      if (changed(study.meta, meta)) patch.meta = meta;
+      let exclusions: AuditRecord[] = [];
+      if (dto.data !== undefined) {
+        const data = withMethodDefaults(dto.data, study.methodVersion, study.methodVersion.method);
+        if (changed(study.data, data)) {
+          Object.assign(patch, this.dataPatch(study, data, actor, dto.reason));
+          exclusions = exclusionEntries(study.data, data, actor, id);
+        }
+      }
+      if (Object.keys(patch).length === 0) return toStudyDto(study);
+
+      await this.save(manager, study, dto.lockVersion, patch);
+      const changes: FieldChanges = {};
+      if (patch.title) changes.title = { from: study.title, to: patch.title };
+      if (patch.meta) changes.meta = { from: study.meta, to: patch.meta };
+      if (patch.dataHash) changes.dataHash = { from: study.dataHash, to: patch.dataHash };
+      await this.audit.record({ actor, action: 'study.updated', entity: 'study', entityId: id, changes, reason: dto.reason ?? null }, manager);
+      for (const entry of exclusions) await this.audit.record(entry, manager);
+      return this.findOne(id, manager);
+    });
+  }
+
+  async remove(id: ValidationStudy['id'], actor: AuthUser): Promise<void> {
+    await writeTransaction(this.dataSource, async (manager) => {
+      const study = await this.loadEditable(manager, id, actor);
+      if (study.status !== 'draft') throw new ConflictException('Only a draft can be deleted; a returned study stays on record.');
+      await manager.delete(ValidationStudy, { id });
+      await this.audit.record(
+        { actor, action: 'study.deleted', entity: 'study', entityId: id, changes: { title: { from: study.title, to: null }, dataHash: { from: study.dataHash, to: null } } },
+        manager,
+      );
+    });
+  }
+
+  async importFile(id: ValidationStudy['id'], file: Express.Multer.File | undefined, dto: ImportStudyDto, actor: AuthUser): Promise<ImportPreviewDto | StudyDto> {
+    await this.loadEditable(this.dataSource.manager, id, actor);
+    if (!file) throw unprocessable([{ field: 'file', code: 'required', message: 'Choose a CSV or XLSX file.' }]);
+    const mapping = parseMapping(dto.mapping);
+    const preview = importSection(await readImportTable(file.buffer), dto.section, mapping);
+    if (dto.dryRun) return preview;
+    if (preview.errors.length > 0) throw unprocessable(preview.errors as FieldError[], 'The file has errors; nothing was imported.');
+
+    return writeTransaction(this.dataSource, async (manager) => {
+      const study = await this.loadEditable(manager, id, actor);
+      if (dto.lockVersion !== study.lockVersion) throw staleStudy();
+      const data = withMethodDefaults(replaceSection(study.data, dto.section, preview.rows), study.methodVersion, study.methodVersion.method);
+      if (!changed(study.data, data)) return toStudyDto(study);
+      const patch = this.dataPatch(study, data, actor, dto.reason);
+      await this.save(manager, study, dto.lockVersion as number, patch);
+      await this.audit.record(
+        {
+          actor,
+          action: 'study.imported',
+          entity: 'study',
+          entityId: id,
+          changes: {
+            section: { from: null, to: dto.section },
+            rowCount: { from: sectionSize(study.data, dto.section), to: preview.rowCount },
+            file: { from: null, to: file.originalname },
+            dataHash: { from: study.dataHash, to: patch.dataHash },
+          },
+          reason: dto.reason ?? null,
+        },
+        manager,
+      );
+      return this.findOne(id, manager);
+    });
+  }
+
+  /** New data and the server's result for them; once returned, a data change needs a reason. */
+  private dataPatch(study: ValidationStudy, data: StudyData, actor: AuthUser, reason: string | undefined): StudyPatch {
+    if (study.status === 'returned' && !reason) {
+      throw unprocessable([{ field: 'reason', code: 'required', message: 'Say why the data change after the study was returned.' }]);
+    }
+    return { data, ...evaluateStudyData(data), editorIds: [...new Set([...study.editorIds, actor.id])] };
+  }
+
+  /** Writes only if nobody changed the study since `lockVersion` was read. */
+  private async save(manager: EntityManager, study: ValidationStudy, lockVersion: number, patch: StudyPatch) {
+    const result = await manager.update(
+      ValidationStudy,
+      { id: study.id, lockVersion },
+      { ...patch, lockVersion: lockVersion + 1, updatedAt: new Date() } as QueryDeepPartialEntity<ValidationStudy>,
+    );
+    if (!result.affected) throw staleStudy();
+  }
+
+  private async load(manager: EntityManager, id: ValidationStudy['id']): Promise<ValidationStudy> {
+    const study = await manager.findOne(ValidationStudy, { where: { id }, relations: { methodVersion: { method: true }, author: true } });
+    if (!study) throw new NotFoundException('Study not found.');
+    return study;
+  }
+
+  private async loadEditable(manager: EntityManager, id: ValidationStudy['id'], actor: AuthUser): Promise<ValidationStudy> {
+    const study = await this.load(manager, id);
+    if (study.authorId !== actor.id) throw new ForbiddenException('Only the author of a study may change it.');
+    if (LOCKED_STATUSES.includes(study.status)) throw new ConflictException(`This study is locked while ${study.status}; it cannot be changed.`);
+    return study;
+  }
+}
