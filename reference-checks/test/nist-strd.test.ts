@@ -116,15 +116,16 @@ describe('NIST StRD ANOVA SiRstv: one-way layout, certified values', () => {
 describe('NIST StRD ANOVA AtmWtAg: 7 constant leading digits, certified values', () => {
   const { ref, result } = anovaStudy('nist_strd_anova_atmwtag.json');
   const cert = ref.certified;
-  // The reference file reports about 8.5 digits as the float64 limit for this set; 6 are required.
-  const SIX_DIGITS = 1e-6;
+  // 6 digits are asked of this set (the reference file's plain two-pass float64 gives 8.5); shifting
+  // the data by their first value before any sum keeps about 10, so 9 are checked.
+  const NINE_DIGITS_SHIFTED = 1e-9;
 
-  it('reproduces the between and within rows to 6 digits', () => {
-    expectRel(result.ssBetween, cert.between.ss, SIX_DIGITS, 'SS between');
-    expectRel(result.msBetween, cert.between.ms, SIX_DIGITS, 'MS between');
-    expectRel(result.F, cert.between.F, SIX_DIGITS, 'F');
-    expectRel(result.ssWithin, cert.within.ss, SIX_DIGITS, 'SS within');
-    expectRel(result.msWithin, cert.within.ms, SIX_DIGITS, 'MS within');
-    expectRel(result.sR, cert.residual_sd, SIX_DIGITS, 'residual SD');
+  it('reproduces the between and within rows to 9 digits', () => {
+    expectRel(result.ssBetween, cert.between.ss, NINE_DIGITS_SHIFTED, 'SS between');
+    expectRel(result.msBetween, cert.between.ms, NINE_DIGITS_SHIFTED, 'MS between');
+    expectRel(result.F, cert.between.F, NINE_DIGITS_SHIFTED, 'F');
+    expectRel(result.ssWithin, cert.within.ss, NINE_DIGITS_SHIFTED, 'SS within');
+    expectRel(result.msWithin, cert.within.ms, NINE_DIGITS_SHIFTED, 'MS within');
+    expectRel(result.sR, cert.residual_sd, NINE_DIGITS_SHIFTED, 'residual SD');
   });
 });
