@@ -125,7 +125,7 @@ export class ReviewsService {
           dataHash: source.dataHash,
           meta: { instrument: source.meta?.instrument },
           authorId: actor.id,
-          editorIds: [],
+          editorIds: [actor.id],
           copiedFromId: source.id,
           submittedAt: null,
           approvedAt: null,

@@ -37,6 +37,10 @@ export const routes: RouteObject[] = [
             children: [{ path: paths.reviews.path, lazy: page(() => import('@/features/reviews/routes/review-queue')) }],
           },
           {
+            element: <RequireRole roles={[Role.Analyst, Role.Reviewer, Role.QualityManager]} />,
+            children: [{ path: paths.studyView.path, lazy: page(() => import('@/features/reviews/routes/study-view')) }],
+          },
+          {
             element: <RequireRole roles={[Role.QualityManager]} />,
             children: [
               { path: paths.methods.path, lazy: page(() => import('@/features/methods/routes/methods')) },

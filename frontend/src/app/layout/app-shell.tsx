@@ -18,6 +18,7 @@ import { useState, type ReactNode } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
 import { ColorModeButton } from '@/components/ui/color-mode';
 import type { SessionUser } from '@/features/auth/use-session';
+import { NotificationsBell } from '@/features/notifications/components/notifications-bell';
 import { paths } from '@/lib/config/paths';
 import { formatRoles } from '@/lib/format';
 import { navigationFor } from './navigation';
@@ -86,6 +87,7 @@ export function AppShell({ user, onSignOut, children }: AppShellProps) {
           <Box flex="1" />
           <HStack gap="2">
             <ColorModeButton />
+            <NotificationsBell />
             <UserMenu user={user} onSignOut={onSignOut} />
           </HStack>
         </HStack>

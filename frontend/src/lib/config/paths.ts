@@ -21,6 +21,7 @@ export const paths = {
   studies: { path: '/studies', getHref: () => '/studies' },
   runs: { path: '/runs', getHref: () => '/runs' },
   reviews: { path: '/reviews', getHref: () => '/reviews' },
+  studyView: { path: '/studies/:studyId', getHref: (studyId: string) => `/studies/${encodeURIComponent(studyId)}` },
   methods: { path: '/methods', getHref: () => '/methods' },
   methodComparison: { path: '/methods/compare', getHref: () => '/methods/compare' },
   verify: { path: '/verify', getHref: () => '/verify' },

@@ -1,0 +1,28 @@
+import { queryOptions } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { HistoryItem, QueueItem, Signature, StudyComment, StudyDiff, StudyView } from './review-types';
+
+/** Keys start with ['studies', id] so a change made anywhere to a study refreshes its review data too. */
+export const studyReviewQueries = {
+  all: ['studies'] as const,
+  study: (id: string) => [...studyReviewQueries.all, id] as const,
+  detail: (id: string) =>
+    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'detail'], queryFn: ({ signal }) => api.get<StudyView>(`/studies/${encodeURIComponent(id)}`, { signal }) }),
+  signatures: (id: string) =>
+    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'signatures'], queryFn: ({ signal }) => api.get<Signature[]>(`/studies/${encodeURIComponent(id)}/signatures`, { signal }) }),
+  history: (id: string) =>
+    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'history'], queryFn: ({ signal }) => api.get<HistoryItem[]>(`/studies/${encodeURIComponent(id)}/history`, { signal }) }),
+  diff: (id: string) =>
+    queryOptions({
+      queryKey: [...studyReviewQueries.study(id), 'diff'],
+      // The server answers an empty body while the study has been submitted only once.
+      queryFn: async ({ signal }) => (await api.get<StudyDiff | undefined>(`/studies/${encodeURIComponent(id)}/diff`, { signal })) ?? null,
+    }),
+  comments: (id: string) =>
+    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'comments'], queryFn: ({ signal }) => api.get<StudyComment[]>(`/studies/${encodeURIComponent(id)}/comments`, { signal }) }),
+};
+
+export const reviewQueueQueries = {
+  all: ['review-queue'] as const,
+  list: () => queryOptions({ queryKey: [...reviewQueueQueries.all, 'list'], queryFn: ({ signal }) => api.get<QueueItem[]>('/reviews/queue', { signal }) }),
+};

@@ -1,0 +1,35 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import * as yup from 'yup';
+import { api } from '@/lib/api-client';
+import { notificationKeys } from './notification-keys';
+import { reviewQueueQueries, studyReviewQueries } from './review-queries';
+import type { TransitionResult } from './review-types';
+
+export const signSchema = yup.object({
+  password: yup.string().required('Enter your password to sign.').max(200),
+  comment: yup.string().trim().max(2000, 'Keep the comment under 2000 characters.').default(''),
+});
+
+export type SignValues = yup.InferType<typeof signSchema>;
+
+export type SigningAction = 'submit' | 'approve';
+
+/** Submitting and approving are electronic signatures: the signer re-enters the password. */
+export function useSignStudy(studyId: string, action: SigningAction) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: ({ values, lockVersion }: { values: SignValues; lockVersion: number }) =>
+      api.post<TransitionResult>(
+        `/studies/${encodeURIComponent(studyId)}/${action}`,
+        { password: values.password, comment: values.comment || undefined, lockVersion },
+        { passwordCheck: true },
+      ),
+    onSuccess: () =>
+      Promise.all([
+        queryClient.invalidateQueries({ queryKey: studyReviewQueries.study(studyId) }),
+        queryClient.invalidateQueries({ queryKey: reviewQueueQueries.all }),
+        queryClient.invalidateQueries({ queryKey: notificationKeys.all }),
+      ]),
+    meta: { inlineErrors: true },
+  });
+}

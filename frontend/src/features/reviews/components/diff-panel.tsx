@@ -1,0 +1,88 @@
+import { Badge, Box, Heading, Stack, Table, Text } from '@chakra-ui/react';
+import { formatDateTime } from '@/lib/format';
+import type { StudyDiff } from '../api/review-types';
+
+const SECTION_NAMES: Record<string, string> = {
+  standards: 'Calibration standards',
+  blanks: 'Blanks',
+  unknowns: 'Samples',
+  checks: 'Check standards',
+  recovery: 'Recovery',
+  precision: 'Precision',
+  criteria: 'Acceptance criteria',
+  'lowSpikes.spiked': 'Low-level spikes',
+  'lowSpikes.blanks': 'Method blanks (detection limit)',
+};
+
+const FIELD_NAMES: Record<string, string> = { x: 'Concentration', y: 'Response', excluded: 'Excluded', model: 'Calibration model', weighting: 'Weighting', confidence: 'Confidence level', alpha: 'False-positive rate (α)', units: 'Units', massFraction: 'Mass fraction' };
+
+function show(value: unknown): string {
+  if (value === null || value === undefined) return '—';
+  if (typeof value === 'object') {
+    const reason = (value as { reason?: unknown }).reason;
+    if (typeof reason === 'string') return `yes: ${reason}`;
+    return Object.entries(value as Record<string, unknown>)
+      .map(([key, v]) => `${FIELD_NAMES[key] ?? key} ${show(v)}`)
+      .join(', ');
+  }
+  return String(value);
+}
+
+const rowLabel = (key: string) => (key.startsWith('#') ? `Row ${key.slice(1)}` : key);
+
+/** What the author changed between the last two submissions. */
+export function DiffPanel({ diff }: { diff: StudyDiff | null }) {
+  if (!diff) return <Text color="fg.muted">This study has been submitted once; there is nothing to compare yet.</Text>;
+  const rows = [
+    ...diff.settings.map((s) => ({ where: 'Settings', what: FIELD_NAMES[s.field] ?? s.field, kind: 'changed', from: show(s.from), to: show(s.to) })),
+    ...diff.sections.flatMap((section) => {
+      const where = SECTION_NAMES[section.section] ?? section.section;
+      return [
+        ...section.changed.map((c) => ({ where, what: `${rowLabel(c.key)}: ${FIELD_NAMES[c.field] ?? c.field}`, kind: 'changed', from: show(c.from), to: show(c.to) })),
+        ...section.added.map((a) => ({ where, what: rowLabel(a.key), kind: 'added', from: '—', to: show(a.row) })),
+        ...section.removed.map((r) => ({ where, what: rowLabel(r.key), kind: 'removed', from: show(r.row), to: '—' })),
+      ];
+    }),
+  ];
+  return (
+    <Stack gap="4">
+      <Heading as="h3" size="md">
+        Changes between the submissions of {formatDateTime(diff.from.signedAt)} and {formatDateTime(diff.to.signedAt)}
+      </Heading>
+      {rows.length === 0 ? (
+        <Text color="fg.muted">The data were resubmitted unchanged.</Text>
+      ) : (
+        <Box borderWidth="1px" borderRadius="l3" overflow="hidden">
+          <Table.ScrollArea>
+            <Table.Root size="sm" aria-label="Changes between submissions">
+              <Table.Header>
+                <Table.Row bg="bg.subtle">
+                  <Table.ColumnHeader>Section</Table.ColumnHeader>
+                  <Table.ColumnHeader>What</Table.ColumnHeader>
+                  <Table.ColumnHeader>Change</Table.ColumnHeader>
+                  <Table.ColumnHeader>Before</Table.ColumnHeader>
+                  <Table.ColumnHeader>After</Table.ColumnHeader>
+                </Table.Row>
+              </Table.Header>
+              <Table.Body>
+                {rows.map((row, index) => (
+                  <Table.Row key={index}>
+                    <Table.Cell>{row.where}</Table.Cell>
+                    <Table.Cell>{row.what}</Table.Cell>
+                    <Table.Cell>
+                      <Badge colorPalette={row.kind === 'added' ? 'green' : row.kind === 'removed' ? 'red' : 'orange'}>{row.kind}</Badge>
+                    </Table.Cell>
+                    <Table.Cell fontFamily="mono" color="fg.muted">
+                      {row.from}
+                    </Table.Cell>
+                    <Table.Cell fontFamily="mono">{row.to}</Table.Cell>
+                  </Table.Row>
+                ))}
+              </Table.Body>
+            </Table.Root>
+          </Table.ScrollArea>
+        </Box>
+      )}
+    </Stack>
+  );
+}

@@ -1,0 +1,82 @@
+import { Button, HStack } from '@chakra-ui/react';
+import { hasAnyRole, Role } from '@meritline/shared';
+import { useNavigate } from 'react-router';
+import { toaster } from '@/components/ui/toaster';
+import type { SessionUser } from '@/features/auth/use-session';
+import { paths } from '@/lib/config/paths';
+import { useCopyStudy } from '../api/copy-study';
+import type { Signature, StudyView } from '../api/review-types';
+import { ReportLink } from './report-link';
+import { ReturnDialog } from './return-dialog';
+import { SignDialog } from './sign-dialog';
+import { MEANINGS } from './signature-meanings';
+
+interface ReviewActionsProps {
+  study: StudyView;
+  signatures: readonly Signature[];
+  user: SessionUser;
+}
+
+/** The actions this user may take on this study now; the server enforces the same rules. */
+export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
+  const navigate = useNavigate();
+  const copy = useCopyStudy(study.id);
+  const isAuthor = study.author.id === user.id;
+  const involved = isAuthor || study.editorIds.includes(user.id);
+  const round = signatures.slice(signatures.map((s) => s.meaning).lastIndexOf('authored'));
+  const firstApproval = study.status === 'submitted' ? round.find((s) => s.meaning === 'reviewed-and-approved') : undefined;
+
+  const actions = [];
+  if (isAuthor && (study.status === 'draft' || study.status === 'returned') && study.result) {
+    actions.push(
+      <SignDialog
+        key="submit"
+        studyId={study.id}
+        lockVersion={study.lockVersion}
+        action="submit"
+        meaning={MEANINGS.authored}
+        title="Submit the study for review"
+        triggerLabel={study.status === 'returned' ? 'Resubmit for review' : 'Submit for review'}
+        submitLabel="Sign and submit"
+        successTitle="Submitted for review"
+      />,
+    );
+  }
+  if (study.status === 'submitted' && !involved && hasAnyRole(user.roles, [Role.Reviewer, Role.QualityManager])) {
+    const canRelease = firstApproval && user.roles.includes(Role.QualityManager) && firstApproval.signerId !== user.id;
+    if (!firstApproval || canRelease) {
+      actions.push(<ReturnDialog key="return" studyId={study.id} lockVersion={study.lockVersion} authorName={study.author.name} />);
+      actions.push(
+        firstApproval ? (
+          <SignDialog key="release" studyId={study.id} lockVersion={study.lockVersion} action="approve" meaning={MEANINGS.released} title="Release the study" triggerLabel="Release" submitLabel="Sign and release" successTitle="Study released and approved" />
+        ) : (
+          <SignDialog key="approve" studyId={study.id} lockVersion={study.lockVersion} action="approve" meaning={MEANINGS.reviewed} title="Approve the study" triggerLabel="Approve" submitLabel="Sign and approve" successTitle="Study approved" />
+        ),
+      );
+    }
+  }
+  if (study.status === 'approved') {
+    actions.push(<ReportLink key="report" studyId={study.id} title={study.title} />);
+    if (user.roles.includes(Role.Analyst)) {
+      actions.push(
+        <Button
+          key="copy"
+          variant="outline"
+          loading={copy.isPending}
+          onClick={async () => {
+            const created = await copy.mutateAsync();
+            toaster.create({ type: 'success', title: 'New draft started', description: created.title });
+            void navigate(paths.studyView.getHref(created.id));
+          }}
+        >
+          Start a new study from this one
+        </Button>,
+      );
+    }
+  }
+  return actions.length ? (
+    <HStack gap="3" wrap="wrap">
+      {actions}
+    </HStack>
+  ) : null;
+}

@@ -1,0 +1,85 @@
+import { Alert, Button, CloseButton, Dialog, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
+import { useState } from 'react';
+import { Form } from '@/components/form/form';
+import { FormField } from '@/components/form/form-field';
+import { toaster } from '@/components/ui/toaster';
+import { signSchema, useSignStudy, type SignValues, type SigningAction } from '../api/sign-study';
+import { APPROVAL_CAUTION } from './approval-caution';
+
+export interface SignDialogProps {
+  studyId: string;
+  lockVersion: number;
+  action: SigningAction;
+  /** What the signature means, in words, shown above the password. */
+  meaning: string;
+  title: string;
+  triggerLabel: string;
+  submitLabel: string;
+  successTitle: string;
+  onSigned?: () => void;
+}
+
+const initialValues: SignValues = { password: '', comment: '' };
+
+/** An electronic signature: the meaning in words, the password re-entered, an optional comment. */
+export function SignDialog({ studyId, lockVersion, action, meaning, title, triggerLabel, submitLabel, successTitle, onSigned }: SignDialogProps) {
+  const [open, setOpen] = useState(false);
+  const sign = useSignStudy(studyId, action);
+
+  return (
+    <Dialog.Root open={open} onOpenChange={(event) => setOpen(event.open)} size="md">
+      <Dialog.Trigger asChild>
+        <Button>{triggerLabel}</Button>
+      </Dialog.Trigger>
+      <Portal>
+        <Dialog.Backdrop />
+        <Dialog.Positioner>
+          <Dialog.Content>
+            <Dialog.Header>
+              <Dialog.Title>{title}</Dialog.Title>
+            </Dialog.Header>
+            <Dialog.Body pb="6">
+              <Stack gap="4" mb="5">
+                <Alert.Root status="info" variant="subtle">
+                  <Alert.Indicator />
+                  <Alert.Content>
+                    <Alert.Title>What your signature means</Alert.Title>
+                    <Alert.Description>{meaning}</Alert.Description>
+                  </Alert.Content>
+                </Alert.Root>
+                <Text fontSize="sm" color="fg.muted">
+                  Your name, role, the time (UTC) and a fingerprint of the study’s data and results are recorded with the signature.
+                  {action === 'approve' && ` ${APPROVAL_CAUTION}`}
+                </Text>
+              </Stack>
+              <Form
+                initialValues={initialValues}
+                validationSchema={signSchema}
+                onSubmit={async (values) => {
+                  await sign.mutateAsync({ values, lockVersion });
+                  setOpen(false);
+                  toaster.create({ type: 'success', title: successTitle });
+                  onSigned?.();
+                }}
+                submitLabel={submitLabel}
+                secondaryAction={
+                  <Dialog.ActionTrigger asChild>
+                    <Button variant="outline">Cancel</Button>
+                  </Dialog.ActionTrigger>
+                }
+              >
+                <FormField name="password" label="Your password" type="password" autoComplete="current-password" required helperText="Re-enter the password you sign in with." />
+                <FormField name="comment" label="Comment (optional)">
+                  {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={3} />}
+                </FormField>
+              </Form>
+            </Dialog.Body>
+            <Dialog.CloseTrigger asChild>
+              <CloseButton size="sm" />
+            </Dialog.CloseTrigger>
+          </Dialog.Content>
+        </Dialog.Positioner>
+      </Portal>
+    </Dialog.Root>
+  );
+}
