@@ -73,11 +73,18 @@ function toTable(lines: TableRow[], limitReached: boolean, decimalComma: boolean
   };
 }
 
+/** The header line decides: a tab, else a semicolon, else a comma (data lines may hold decimal commas). */
+function separatorOf(text: string): string {
+  const header = text.split(/\r?\n/, 50).find((line) => line.trim() !== '' && !line.trim().startsWith('#')) ?? '';
+  return header.includes('\t') ? '\t' : header.includes(';') ? ';' : ',';
+}
+
 function readCsv(text: string): ImportTable {
   const preview = MAX_IMPORT_ROWS + 1000;
-  const parsed = Papa.parse<string[]>(text, { delimiter: '', delimitersToGuess: [',', ';', '\t'], skipEmptyLines: false, preview });
+  const delimiter = separatorOf(text);
+  const parsed = Papa.parse<string[]>(text, { delimiter, skipEmptyLines: false, preview });
   const lines = parsed.data.map((cells, i) => ({ line: i + 1, cells: cells as Cell[] }));
-  return toTable(lines, parsed.data.length >= preview, parsed.meta.delimiter !== ',', 'Line');
+  return toTable(lines, parsed.data.length >= preview, delimiter !== ',', 'Line');
 }
 
 function cellValue(value: unknown): Cell {

@@ -7,6 +7,7 @@ import { IMPORT_SECTIONS, type ImportSection } from '../study-import.js';
 /** The text fields of the multipart import request (the file itself travels as `file`). */
 export class ImportStudyDto {
   @ApiProperty({ type: 'string', format: 'binary', description: 'CSV (separator , ; or tab) or XLSX (first worksheet), at most 5 MB.' })
+  @IsOptional()
   file?: unknown;
 
   @ApiProperty({ enum: IMPORT_SECTIONS })
