@@ -3,13 +3,14 @@ import { DataSource, type EntityManager } from 'typeorm';
 import { User } from '../../users/user.entity.js';
 import { seedDemoMethods } from './demo-methods.seed.js';
 import { seedDemoReviews } from './demo-reviews.seed.js';
+import { seedDemoRuns } from './demo-runs.seed.js';
 import { seedDemoStudies } from './demo-studies.seed.js';
 import { seedDemoUsers } from './demo-users.seed.js';
 
 export type DemoSeeder = (manager: EntityManager) => Promise<void>;
 
 /** Seeders run in this order, in one transaction, only on an empty database. */
-const seeders: DemoSeeder[] = [seedDemoUsers, seedDemoMethods, seedDemoStudies, seedDemoReviews];
+const seeders: DemoSeeder[] = [seedDemoUsers, seedDemoMethods, seedDemoStudies, seedDemoReviews, seedDemoRuns];
 
 @Injectable()
 export class DemoSeedService implements OnApplicationBootstrap {

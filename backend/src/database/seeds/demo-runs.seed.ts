@@ -1,0 +1,130 @@
+import { createHash } from 'node:crypto';
+import type { EntityManager } from 'typeorm';
+import { canonicalJson, ENGINE_VERSION, type EvaluationResult } from '@meritline/shared';
+import { AuditService } from '../../audit/audit.service.js';
+import { MethodVersion } from '../../methods/method-version.entity.js';
+import { Method } from '../../methods/method.entity.js';
+import { modelChoices, validationBasis } from '../../runs/calibration-choices.js';
+import { evaluateRun } from '../../runs/run-calculation.js';
+import { Run } from '../../runs/run.entity.js';
+import { ValidationStudy } from '../../studies/validation-study.entity.js';
+import { User } from '../../users/user.entity.js';
+import { daysAgo, DEMO_METHODS } from './demo-methods.seed.js';
+
+/** The invented nitrate response: y = 0.0031 + 0.1523·x µS·min per mg/L, as in the validation studies. */
+const NITRATE = { intercept: 0.0031, slope: 0.1523 };
+
+/** A repeatable wobble of about ±0.4 %, so every demo database holds the same numbers. */
+const wobble = (run: number, point: number) => {
+  const v = Math.sin(run * 12.9898 + point * 78.233) * 43758.5453;
+  return 1 + 0.008 * (v - Math.floor(v) - 0.5);
+};
+
+const response = (x: number, sensitivity: number, run: number, point: number) =>
+  Number(((NITRATE.intercept + NITRATE.slope * x) * sensitivity * wobble(run, point)).toFixed(4));
+
+interface DemoRun {
+  daysAgo: number;
+  author: string;
+  model: 'one-point' | 'two-point' | 'linear';
+  /** Day-to-day sensitivity: the slope drifts slowly with the column and the suppressor. */
+  sensitivity: number;
+  /** Response of the mid check standard relative to the calibration (1 = as expected). */
+  checkFactor?: number;
+  samples: { id: string; x: number; dilution?: number }[];
+}
+
+const LINEAR_LEVELS = [0.5, 2.5, 10, 25, 50];
+
+// Five days below the long-run slope, then seven above it: the chart shows the drift.
+const ACTIVE_RUNS: DemoRun[] = [
+  { daysAgo: 27, author: 'analyst@meritline.test', model: 'linear', sensitivity: 0.99, samples: [{ id: 'W-2701 tap water, Riverside', x: 11.8 }, { id: 'W-2702 well, Oak Farm', x: 31.5 }, { id: 'W-2703 tap water, Hill Road', x: 0.3 }] },
+  { daysAgo: 25, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 0.994, samples: [{ id: 'W-2711 spring, Mill Brook', x: 6.2 }, { id: 'W-2712 tap water, Station Square', x: 14.9 }] },
+  { daysAgo: 23, author: 'analyst@meritline.test', model: 'two-point', sensitivity: 0.997, samples: [{ id: 'W-2720 well, Marsh Lane', x: 58.4, dilution: 2 }, { id: 'W-2721 tap water, Riverside', x: 12.1 }] },
+  { daysAgo: 21, author: 'analyst@meritline.test', model: 'linear', sensitivity: 0.992, samples: [{ id: 'W-2730 borehole, Ash Farm', x: 44.7 }, { id: 'W-2731 tap water, Elm Court', x: 8.8 }, { id: 'W-2732 well, Oak Farm', x: 33.2 }] },
+  { daysAgo: 19, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 0.995, samples: [{ id: 'W-2740 tap water, Hill Road', x: 0.9 }, { id: 'W-2741 reservoir outlet', x: 4.6 }] },
+  { daysAgo: 17, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 1.001, checkFactor: 0.86, samples: [{ id: 'W-2750 tap water, Riverside', x: 12.3 }, { id: 'W-2751 well, Marsh Lane', x: 29.6, dilution: 2 }] },
+  { daysAgo: 16, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.004, samples: [{ id: 'W-2750 tap water, Riverside (repeat)', x: 12.3 }, { id: 'W-2751 well, Marsh Lane (repeat)', x: 29.6, dilution: 2 }] },
+  { daysAgo: 14, author: 'analyst@meritline.test', model: 'one-point', sensitivity: 1.006, samples: [{ id: 'W-2760 tap water, Station Square', x: 9.7 }, { id: 'W-2761 spring, Mill Brook', x: 6.0 }, { id: 'W-2762 tap water, Elm Court', x: 11.4 }] },
+  { daysAgo: 12, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 1.008, samples: [{ id: 'W-2770 well, Oak Farm', x: 36.1 }, { id: 'W-2771 borehole, Ash Farm', x: 47.9 }] },
+  { daysAgo: 9, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.008, samples: [{ id: 'W-2780 tap water, Riverside', x: 12.6 }, { id: 'W-2781 new well, Birch Lane', x: 71.0 }] },
+  { daysAgo: 7, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.007, samples: [{ id: 'W-2781 new well, Birch Lane (diluted)', x: 71.0, dilution: 5 }, { id: 'W-2782 tap water, Hill Road', x: 0.4 }] },
+  { daysAgo: 4, author: 'analyst2@meritline.test', model: 'two-point', sensitivity: 1.010, samples: [{ id: 'W-2790 reservoir outlet', x: 4.4 }, { id: 'W-2791 tap water, Elm Court', x: 9.1 }] },
+  { daysAgo: 2, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.012, samples: [{ id: 'W-2800 tap water, Station Square', x: 10.2 }, { id: 'W-2801 well, Oak Farm', x: 34.8 }, { id: 'W-2802 spring, Mill Brook', x: 5.7 }] },
+];
+
+// Runs made on the first version while it was active (it has been retired since).
+const RETIRED_RUNS: DemoRun[] = [
+  { daysAgo: 320, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 1.012, samples: [{ id: 'W-1102 tap water, Riverside', x: 11.2 }, { id: 'W-1103 well, Oak Farm', x: 22.4 }] },
+  { daysAgo: 190, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 0.988, samples: [{ id: 'W-1530 tap water, Hill Road', x: 0.8 }, { id: 'W-1531 well, Marsh Lane', x: 19.9 }] },
+  { daysAgo: 75, author: 'analyst@meritline.test', model: 'two-point', sensitivity: 1.003, samples: [{ id: 'W-2210 tap water, Riverside', x: 12.0 }] },
+];
+
+function runData(run: DemoRun, model: DemoRun['model'], index: number, topLevel: number) {
+  const levels = model === 'linear' ? LINEAR_LEVELS.filter((x) => x <= topLevel) : model === 'two-point' ? [1, topLevel] : [10];
+  const measure = (x: number, point: number, factor = 1) => response(x, run.sensitivity * factor, index, point);
+  return {
+    model,
+    standards: levels.map((x, i) => ({ x, y: measure(x, i) })),
+    checks: [
+      { id: 'CCV 10 mg/L', nominal: 10, y: [measure(10, 20, run.checkFactor)] },
+      { id: 'Low check 1 mg/L', nominal: 1, y: [measure(1, 21)] },
+    ],
+    unknowns: run.samples.map((s, i) => {
+      const dilution = s.dilution ?? 1;
+      return { id: s.id, y: [measure(s.x / dilution, 30 + i), measure(s.x / dilution, 40 + i)], ...(dilution !== 1 ? { dilution } : {}) };
+    }),
+  };
+}
+
+async function seedVersionRuns(manager: EntityManager, version: MethodVersion, runs: DemoRun[], firstIndex: number) {
+  const study = await manager.findOne(ValidationStudy, { where: { methodVersionId: version.id, status: 'approved' }, order: { approvedAt: 'DESC' } });
+  const basis = study?.result ? validationBasis({ ...study, result: study.result as unknown as EvaluationResult }) : null;
+  if (!basis) return;
+  const method = await manager.findOneByOrFail(Method, { id: version.methodId });
+  const context = { basis, choices: modelChoices(basis, version.settings, method.yUnit), settings: version.settings, units: { x: method.xUnit, y: method.yUnit } };
+  const audit = new AuditService(manager.connection);
+  for (const [i, demo] of runs.entries()) {
+    const author = await manager.findOneByOrFail(User, { email: demo.author });
+    // A model the validation does not justify falls back to the straight line, as an analyst would.
+    const model = context.choices.find((c) => c.model === demo.model)?.allowed ? demo.model : 'linear';
+    const evaluation = evaluateRun(runData(demo, model, firstIndex + i, basis.validatedRange?.high ?? 50), context);
+    const date = daysAgo(demo.daysAgo, 15 - (i % 5));
+    const run = await manager.save(
+      manager.create(Run, {
+        methodVersionId: version.id,
+        title: `Nitrate in drinking water, batch ${date.toISOString().slice(0, 10)}`,
+        status: evaluation.status,
+        model,
+        data: evaluation.data,
+        result: evaluation.result as unknown as Record<string, unknown>,
+        rejectionReasons: evaluation.rejectionReasons,
+        engineVersion: ENGINE_VERSION,
+        dataHash: createHash('sha256').update(canonicalJson(evaluation.data)).digest('hex'),
+        authorId: author.id,
+        createdAt: date,
+      }),
+    );
+    await audit.record(
+      {
+        actor: author,
+        action: 'run.created',
+        entity: 'run',
+        entityId: run.id,
+        changes: { methodVersionId: { from: null, to: version.id }, model: { from: null, to: run.model }, status: { from: null, to: run.status }, dataHash: { from: null, to: run.dataHash } },
+      },
+      manager,
+    );
+  }
+}
+
+/** Routine batches on the validated nitrate method: a month on the active version and a few from the retired one. */
+export async function seedDemoRuns(manager: EntityManager) {
+  const method = await manager.findOneBy(Method, { name: DEMO_METHODS.nitrate });
+  if (!method) return;
+  const versions = await manager.find(MethodVersion, { where: { methodId: method.id }, order: { number: 'ASC' } });
+  const retired = versions.find((v) => v.status === 'retired');
+  const active = versions.find((v) => v.status === 'active');
+  if (retired) await seedVersionRuns(manager, retired, RETIRED_RUNS, 100);
+  if (active) await seedVersionRuns(manager, active, ACTIVE_RUNS, 0);
+}

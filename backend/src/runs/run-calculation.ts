@@ -1,0 +1,215 @@
+import { evaluateStudy, StudyValidationError, type CalibrationResult, type FieldError, type StudyInput, type Units } from '@meritline/shared';
+import { formatPct, formatSignificant, formatWithInterval, withUnit } from './report-format.js';
+import {
+  RUN_DATA_KEYS,
+  RUN_MODELS,
+  type ModelChoice,
+  type OnePointBias,
+  type RunCheck,
+  type RunEvaluation,
+  type RunFlag,
+  type RunModel,
+  type RunSettings,
+  type RunUnknown,
+  type ValidationBasis,
+} from './run-types.js';
+
+export interface RunContext {
+  basis: ValidationBasis;
+  choices: ModelChoice[];
+  settings: RunSettings;
+  units: Units;
+}
+
+const DILUTION_STEPS = [2, 5, 10, 20, 50, 100, 200, 500, 1000, 2000, 5000, 10000];
+/** A re-measured dilution should land below this share of the top standard, leaving headroom. */
+const DILUTION_TARGET = 0.8;
+
+type Json = Record<string, unknown>;
+const isObject = (value: unknown): value is Json => typeof value === 'object' && value !== null && !Array.isArray(value);
+
+function prefixed(errors: FieldError[]): StudyValidationError {
+  return new StudyValidationError(errors.map((e) => ({ ...e, field: e.field === 'study' ? 'data' : `data.${e.field}` })));
+}
+
+/** Refusals the engine would word generally, given here against the exact field. */
+function checkRunShape(data: Json, choices: ModelChoice[]): { model: RunModel; choice: ModelChoice } {
+  const errors: FieldError[] = [];
+  for (const key of Object.keys(data)) {
+    if (!(RUN_DATA_KEYS as readonly string[]).includes(key)) errors.push({ field: `data.${key}`, code: 'unknown_field', message: `${key} is not part of a run.` });
+  }
+  const model = data.model as RunModel;
+  const choice = choices.find((c) => c.model === model);
+  if (!RUN_MODELS.includes(model) || !choice) {
+    errors.push({ field: 'data.model', code: 'invalid_value', message: `Choose one of ${RUN_MODELS.join(', ')}.` });
+    throw new StudyValidationError(errors);
+  }
+  if (!choice.allowed) errors.push({ field: 'data.model', code: 'not_allowed', message: choice.reason ?? `${model} is not allowed on this version.` });
+  if (data.weighting !== undefined && data.weighting !== (choice.weighting ?? 'none')) {
+    errors.push({
+      field: 'data.weighting',
+      code: 'not_validated',
+      message: choice.weighting
+        ? `This version was validated with weighting ${choice.weighting}; a ${model} run uses the same.`
+        : `A ${model} calibration takes no weighting.`,
+    });
+  }
+  if (data.twoPoint !== undefined && model !== 'two-point') {
+    errors.push({ field: 'data.twoPoint', code: 'incompatible', message: 'Bracketing applies to two-point calibrations only.' });
+  }
+  for (const key of ['checks', 'unknowns'] as const) {
+    if (!Array.isArray(data[key]) || data[key].length === 0) {
+      const what = key === 'checks' ? 'at least one check standard, which decides whether the calibration still holds' : 'at least one sample';
+      errors.push({ field: `data.${key}`, code: 'required', message: `A run needs ${what}.` });
+    }
+  }
+  const standards = Array.isArray(data.standards) ? data.standards : [];
+  const used = standards
+    .map((s, index) => ({ s, index }))
+    .filter(({ s }) => isObject(s) && !s.excluded && typeof s.x === 'number');
+  if (model === 'one-point') {
+    for (const { s, index } of used) {
+      if ((s as Json).x as number <= 0) {
+        errors.push({ field: `data.standards[${index}].x`, code: 'not_positive', message: 'The one-point standard needs a concentration above zero.' });
+      }
+    }
+  }
+  if (model === 'two-point' && used.length >= 2 && used.every(({ s }) => (s as Json).x === (used[0].s as Json).x)) {
+    errors.push({
+      field: `data.standards[${used[1].index}].x`,
+      code: 'all_x_equal',
+      message: `Both standards are at the same concentration (${String((used[0].s as Json).x)}): a two-point line needs two different concentrations.`,
+    });
+  }
+  if (errors.length > 0) throw new StudyValidationError(errors);
+  return { model, choice };
+}
+
+function suggestDilution(x0Undiluted: number, top: number, dilution: number): number {
+  const step = DILUTION_STEPS.find((f) => x0Undiluted / f <= DILUTION_TARGET * top) ?? DILUTION_STEPS[DILUTION_STEPS.length - 1];
+  return step * dilution;
+}
+
+function readUnknown(
+  u: { id: string; m: number; yMean: number; dilution: number; x0: number; sX0: number | null; ci: [number, number] | null },
+  calibration: CalibrationResult,
+  basis: ValidationBasis,
+  unit: string | undefined,
+  reportable: boolean,
+): RunUnknown {
+  const x0Undiluted = u.x0 / u.dilution;
+  const { lod, loq, validatedRange: range } = basis;
+  const flags: RunFlag[] = [];
+  const remarks: string[] = [];
+  const inSample = (x: number) => withUnit(formatSignificant(x, 2), unit);
+  if (lod !== null && x0Undiluted < lod) {
+    flags.push('belowLod');
+    remarks.push(`Not detected: below the LOD (${inSample(lod)} in the measured solution).`);
+  }
+  if (loq !== null && x0Undiluted < loq) {
+    flags.push('belowLoq');
+    if (!flags.includes('belowLod')) remarks.push(`Detected but below the LOQ (${inSample(loq)} in the measured solution): not quantified.`);
+  }
+  const belowLimits = flags.length > 0;
+  let suggestedDilution: number | null = null;
+  if (x0Undiluted > calibration.xMax) {
+    flags.push('aboveTopStandard');
+    suggestedDilution = suggestDilution(x0Undiluted, calibration.xMax, u.dilution);
+    remarks.push(
+      `Above the top standard (${withUnit(formatSignificant(calibration.xMax, 3), unit)}): dilute and measure again, e.g. at a total dilution factor of ${suggestedDilution}.`,
+    );
+  }
+  if (range && !belowLimits && (x0Undiluted < range.low || x0Undiluted > range.high)) {
+    flags.push('outsideValidatedRange');
+    remarks.push(`Outside the validated range (${formatSignificant(range.low, 3)} to ${withUnit(formatSignificant(range.high, 3), unit)}).`);
+  }
+  if (!reportable) remarks.push('Not reportable: the run was rejected.');
+
+  let reported: string;
+  const limit = loq ?? lod;
+  if (belowLimits && limit !== null) reported = `< ${withUnit(formatSignificant(limit * u.dilution, 2), unit)}`;
+  else if (flags.includes('aboveTopStandard')) reported = `> ${withUnit(formatSignificant(calibration.xMax * u.dilution, 3), unit)}`;
+  else if (u.ci) reported = formatWithInterval(u.x0, (u.ci[1] - u.ci[0]) / 2, unit);
+  else reported = withUnit(formatSignificant(u.x0, 3), unit);
+
+  return { ...u, x0Undiluted, flags, reported, remarks, suggestedDilution, reportable };
+}
+
+/**
+ * The bias a line forced through the origin makes at each unknown. The reference is the
+ * validation's straight line rescaled to pass through today's standard, so that day-to-day
+ * sensitivity drops out and only the intercept remains: bias = (x_s − x)·a / (a + b·x_s)
+ * for a standard at x_s on a response y = a + b·x (common practice).
+ */
+function onePointBias(calibration: CalibrationResult, unknowns: RunUnknown[], basis: ValidationBasis): OnePointBias | null {
+  const level = calibration.levels[0];
+  const intercept = basis.model === 'linear' ? basis.intercept : (basis.interceptTest?.intercept ?? 0);
+  const interceptAsConcentration = intercept / basis.slope;
+  if (!level || !(level.x + interceptAsConcentration > 0)) return null;
+  const slope = level.yMean / (level.x + interceptAsConcentration);
+  const referenceLine = { slope, intercept: slope * interceptAsConcentration };
+  return {
+    referenceLine,
+    interceptAsConcentration,
+    items: unknowns.map((u) => {
+      const regression = ((u.yMean - referenceLine.intercept) / slope) * u.dilution;
+      const bias = u.x0 - regression;
+      return { id: u.id, yMean: u.yMean, onePoint: u.x0, regression, bias, biasPct: regression === 0 ? null : (100 * bias) / regression };
+    }),
+  };
+}
+
+function checkOutcome(check: { id: string; nominal: number; found: number; recoveryPct: number }, ys: number[], tolerancePct: number): RunCheck {
+  const yMean = ys.reduce((sum, y) => sum + y, 0) / ys.length;
+  // A recovery that rounds onto the limit passes: the window is inclusive.
+  const pass = Math.abs(check.recoveryPct - 100) <= tolerancePct + 1e-9;
+  return { ...check, yMean, pass };
+}
+
+/** Calibrates a routine run, reads its unknowns and judges its check standards. */
+export function evaluateRun(input: unknown, context: RunContext): RunEvaluation {
+  if (!isObject(input)) throw new StudyValidationError([{ field: 'data', code: 'not_object', message: 'The run data must be an object.' }]);
+  const { model, choice } = checkRunShape(input, context.choices);
+  const { basis, settings, units } = context;
+  const data: Json = {
+    units,
+    model,
+    weighting: choice.weighting ?? 'none',
+    confidence: basis.confidence,
+    ...(input.twoPoint !== undefined ? { twoPoint: input.twoPoint } : {}),
+    standards: input.standards,
+    checks: input.checks,
+    unknowns: input.unknowns,
+  };
+  let engine;
+  try {
+    engine = evaluateStudy(data as unknown as StudyInput);
+  } catch (error) {
+    if (error instanceof StudyValidationError) throw prefixed(error.errors);
+    throw error;
+  }
+  const calibration = engine.calibration as CalibrationResult;
+  const tolerancePct = settings.checkTolerancePct;
+  const checks = (engine.checks ?? []).map((c, i) => checkOutcome(c, (input.checks as { y: number[] }[])[i].y, tolerancePct));
+  const rejectionReasons = checks
+    .filter((c) => !c.pass)
+    .map(
+      (c) =>
+        `Check standard ${c.id} recovered ${formatPct(c.recoveryPct)} of its nominal ${withUnit(String(c.nominal), units.x)}, outside the acceptance window of ${100 - tolerancePct} to ${100 + tolerancePct} %.`,
+    );
+  const status = rejectionReasons.length === 0 ? 'accepted' : 'rejected';
+  const unknowns = (engine.unknowns ?? []).map((u) => readUnknown(u, calibration, basis, units.x, status === 'accepted'));
+  return {
+    data,
+    status,
+    rejectionReasons,
+    result: {
+      ...engine,
+      unknowns,
+      checks,
+      onePointBias: model === 'one-point' ? onePointBias(calibration, unknowns, basis) : null,
+      acceptance: { tolerancePct, low: 100 - tolerancePct, high: 100 + tolerancePct },
+      validation: basis,
+    },
+  };
+}

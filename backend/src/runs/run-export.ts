@@ -1,0 +1,126 @@
+import ExcelJS from 'exceljs';
+import Papa from 'papaparse';
+import type { RunDto } from './runs.service.js';
+import type { RunUnknown } from './run-types.js';
+
+/** Said on every exported and printed run: the software computes, the laboratory decides. */
+export const RUN_CAUTION =
+  'Results are reported under the laboratory’s own procedures and the regulations that apply to the sample (for drinking water and released products, the limits and reporting rules of the competent authority). A qualified person reviews them before release. The results of a rejected run are not reportable.';
+
+export const FLAG_LABELS: Record<RunUnknown['flags'][number], string> = {
+  belowLod: 'below LOD',
+  belowLoq: 'below LOQ',
+  aboveTopStandard: 'above top standard',
+  outsideValidatedRange: 'outside validated range',
+};
+
+const rounded = (value: number | null | undefined, significant = 6): number | null =>
+  typeof value === 'number' && Number.isFinite(value) ? Number(value.toPrecision(significant)) : null;
+
+export function reportableText(run: RunDto): string {
+  return run.status === 'accepted' ? 'yes' : 'no: run rejected';
+}
+
+/** One row per unknown, in the order the analyst entered them; the column names carry the units. */
+export function resultRows(run: RunDto): Record<string, string | number | null>[] {
+  const { xUnit, yUnit } = run.method;
+  const bias = new Map((run.result.onePointBias?.items ?? []).map((b) => [b.id, b]));
+  return run.result.unknowns.map((u) => {
+    const row: Record<string, string | number | null> = {
+      Sample: u.id,
+      Replicates: u.m,
+      [`Mean response (${yUnit})`]: rounded(u.yMean),
+      'Dilution factor': u.dilution,
+      [`Concentration (${xUnit})`]: rounded(u.x0),
+      [`CI low (${xUnit})`]: rounded(u.ci?.[0]),
+      [`CI high (${xUnit})`]: rounded(u.ci?.[1]),
+      Reported: u.reported,
+      Flags: u.flags.map((f) => FLAG_LABELS[f]).join('; '),
+      Remarks: u.remarks.join(' '),
+      Reportable: reportableText(run),
+    };
+    const b = bias.get(u.id);
+    if (run.result.onePointBias) {
+      row[`Validation line reading (${xUnit})`] = rounded(b?.regression);
+      row[`One-point bias (${xUnit})`] = rounded(b?.bias);
+      row['One-point bias (%)'] = rounded(b?.biasPct, 3);
+    }
+    return row;
+  });
+}
+
+export function runCsv(run: RunDto): string {
+  // The byte-order mark lets spreadsheet programs read ± and µ as UTF-8.
+  return `\uFEFF${Papa.unparse(resultRows(run), { newline: '\r\n' })}\r\n`;
+}
+
+function addTable(sheet: ExcelJS.Worksheet, rows: Record<string, string | number | boolean | null>[]): void {
+  if (!rows.length) return;
+  const headers = Object.keys(rows[0]);
+  sheet.columns = headers.map((header) => ({ header, key: header, width: Math.min(60, Math.max(12, header.length + 2)) }));
+  sheet.addRows(rows);
+  sheet.getRow(1).font = { bold: true };
+  sheet.views = [{ state: 'frozen', ySplit: 1 }];
+}
+
+export async function runWorkbook(run: RunDto): Promise<Buffer> {
+  const { result } = run;
+  const { xUnit, yUnit } = run.method;
+  const validation = result.validation;
+  const workbook = new ExcelJS.Workbook();
+  workbook.creator = 'Meritline';
+  workbook.created = new Date(run.createdAt);
+
+  addTable(workbook.addWorksheet('Results'), resultRows(run));
+  addTable(
+    workbook.addWorksheet('Check standards'),
+    result.checks.map((c) => ({
+      Check: c.id,
+      [`Nominal (${xUnit})`]: c.nominal,
+      [`Mean response (${yUnit})`]: rounded(c.yMean),
+      [`Found (${xUnit})`]: rounded(c.found),
+      'Recovery (%)': rounded(c.recoveryPct, 4),
+      'Acceptance window (%)': `${result.acceptance.low} to ${result.acceptance.high}`,
+      Outcome: c.pass ? 'pass' : 'fail',
+    })),
+  );
+  addTable(
+    workbook.addWorksheet('Standards'),
+    ((run.data.standards as { x: number; y: number; excluded?: { reason: string } }[]) ?? []).map((s) => ({
+      [`Concentration (${xUnit})`]: s.x,
+      [`Response (${yUnit})`]: s.y,
+      'Left out because': s.excluded?.reason ?? '',
+    })),
+  );
+  const calibration = result.calibration;
+  const summary = workbook.addWorksheet('Run');
+  summary.columns = [
+    { header: 'Item', key: 'item', width: 34 },
+    { header: 'Value', key: 'value', width: 90 },
+  ];
+  summary.getRow(1).font = { bold: true };
+  const info: [string, string | number | null][] = [
+    ['Run', run.title],
+    ['Status', run.status === 'accepted' ? 'Accepted' : 'Rejected: results not reportable'],
+    ['Reasons for rejection', run.rejectionReasons.join(' ') || null],
+    ['Method', `${run.method.name}, version ${run.versionNumber}`],
+    ['Calibration model', `${run.model}${result.weighting !== 'none' ? `, weighting ${result.weighting}` : ''}`],
+    [`Slope (${yUnit} per ${xUnit})`, rounded(calibration?.slope)],
+    [`Intercept (${yUnit})`, rounded(calibration?.intercept)],
+    ['Curvature', rounded(calibration?.curvature)],
+    ['R²', rounded(calibration?.r2)],
+    ['Validation study', `${validation.studyTitle} (${validation.studyId})`],
+    [`LOD (${xUnit}, measured solution)`, rounded(validation.lod, 3)],
+    [`LOQ (${xUnit}, measured solution)`, rounded(validation.loq, 3)],
+    ['Validated range', validation.validatedRange ? `${validation.validatedRange.low} to ${validation.validatedRange.high} ${xUnit}` : null],
+    ['Check acceptance', `recovery within ${result.acceptance.low} to ${result.acceptance.high} %`],
+    ['Analyst', run.author.name],
+    ['Created', run.createdAt],
+    ['Engine version', run.engineVersion],
+    ['Data hash (SHA-256)', run.dataHash],
+    ['Caution', RUN_CAUTION],
+  ];
+  summary.addRows(info.map(([item, value]) => ({ item, value: value ?? '' })));
+  summary.getColumn('value').alignment = { wrapText: true, vertical: 'top' };
+  return Buffer.from(await workbook.xlsx.writeBuffer());
+}

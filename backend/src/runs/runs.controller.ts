@@ -1,0 +1,65 @@
+import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query, Res, StreamableFile } from '@nestjs/common';
+import { ApiBearerAuth, ApiProduces, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import { Role } from '@meritline/shared';
+import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { CreateRunDto } from './dto/create-run.dto.js';
+import { ExportRunQueryDto } from './dto/export-run.query.dto.js';
+import { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
+import { RunsService, type MethodChoice, type RunDto, type RunFile, type RunPage, type RunPreview } from './runs.service.js';
+
+function send(res: Response, file: RunFile): StreamableFile {
+  res.set({ 'Content-Type': file.contentType, 'Content-Disposition': `attachment; filename="${file.filename}"` });
+  return new StreamableFile(file.body);
+}
+
+@ApiTags('runs')
+@ApiBearerAuth()
+@Roles(Role.Analyst, Role.Reviewer, Role.QualityManager)
+@Controller('runs')
+export class RunsController {
+  constructor(private readonly runsService: RunsService) {}
+
+  @Get()
+  list(@Query() query: ListRunsQueryDto): Promise<RunPage> {
+    return this.runsService.list(query);
+  }
+
+  /** Methods with their versions, each marked usable for runs or not (and why). */
+  @Get('method-choices')
+  methodChoices(): Promise<MethodChoice[]> {
+    return this.runsService.methodChoices();
+  }
+
+  @Post()
+  @Roles(Role.Analyst)
+  create(@Body() dto: CreateRunDto, @CurrentUser() actor: AuthUser): Promise<RunDto> {
+    return this.runsService.create(dto, actor);
+  }
+
+  /** The full result of a run as it would be saved, without saving it. */
+  @Post('preview')
+  @Roles(Role.Analyst)
+  @HttpCode(200)
+  preview(@Body() dto: CreateRunDto): Promise<RunPreview> {
+    return this.runsService.preview(dto);
+  }
+
+  @Get(':id')
+  findOne(@Param('id', ParseUUIDPipe) id: string): Promise<RunDto> {
+    return this.runsService.findOne(id);
+  }
+
+  @Get(':id/export')
+  @ApiProduces('text/csv', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
+  async export(@Param('id', ParseUUIDPipe) id: string, @Query() query: ExportRunQueryDto, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    return send(res, await this.runsService.exportFile(id, query.format));
+  }
+
+  @Get(':id/sheet')
+  @ApiProduces('application/pdf')
+  async sheet(@Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    return send(res, await this.runsService.sheet(id));
+  }
+}

@@ -1,0 +1,365 @@
+import { ConflictException, Inject, Injectable, NotFoundException } from '@nestjs/common';
+import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
+import { createHash } from 'node:crypto';
+import { DataSource, In, Repository, type FindOptionsWhere } from 'typeorm';
+import { canonicalJson, ENGINE_VERSION, StudyValidationError, type EvaluationResult, type RunStatus } from '@meritline/shared';
+import { AuditService } from '../audit/audit.service.js';
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { appConfig, type AppConfigType } from '../config/app.config.js';
+import { unprocessable } from '../common/validation.js';
+import { MethodVersion } from '../methods/method-version.entity.js';
+import { writeTransaction } from '../methods/write-transaction.js';
+import { Method } from '../methods/method.entity.js';
+import { ValidationStudy } from '../studies/validation-study.entity.js';
+import { User } from '../users/user.entity.js';
+import { modelChoices, validationBasis } from './calibration-choices.js';
+import { controlChart, type ControlChart } from './control-chart.js';
+import type { CreateRunDto } from './dto/create-run.dto.js';
+import type { ExportFormat } from './dto/export-run.query.dto.js';
+import type { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
+import { evaluateRun, type RunContext } from './run-calculation.js';
+import { runCsv, runWorkbook } from './run-export.js';
+import { runSheet } from './run-sheet.js';
+import { Run } from './run.entity.js';
+import type { ModelChoice, RunEvaluation, RunResult, ValidatedRange, ValidationBasis } from './run-types.js';
+
+export interface MethodSummary {
+  id: string;
+  name: string;
+  analyte: string;
+  matrix: string;
+  xUnit: string;
+  yUnit: string;
+}
+
+export interface RunOptions {
+  methodVersionId: string;
+  lockVersion: number;
+  versionNumber: number;
+  status: MethodVersion['status'];
+  method: MethodSummary;
+  /** False when no run may be made on the version; `reason` says why. */
+  usable: boolean;
+  reason: string | null;
+  models: ModelChoice[];
+  validationStudyId: string | null;
+  lod: number | null;
+  loq: number | null;
+  validatedRange: ValidatedRange | null;
+  checkTolerancePct: number;
+  onePointMaxInterceptPct: number;
+  validation: ValidationBasis | null;
+}
+
+export interface RunDto {
+  id: string;
+  methodVersionId: string;
+  versionNumber: number;
+  method: MethodSummary;
+  title: string;
+  status: RunStatus;
+  model: string;
+  data: Record<string, unknown>;
+  result: RunResult;
+  rejectionReasons: string[];
+  engineVersion: string;
+  dataHash: string;
+  author: { id: string; name: string };
+  createdAt: string;
+}
+
+export interface RunSummaryDto {
+  id: string;
+  title: string;
+  status: RunStatus;
+  model: string;
+  methodVersionId: string;
+  versionNumber: number;
+  method: Pick<MethodSummary, 'id' | 'name' | 'analyte'>;
+  author: { id: string; name: string };
+  createdAt: string;
+  slope: number | null;
+  unknownCount: number;
+  checkCount: number;
+}
+
+export interface RunPage {
+  items: RunSummaryDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export interface RunPreview {
+  status: RunStatus;
+  result: RunResult;
+  rejectionReasons: string[];
+  data: Record<string, unknown>;
+}
+
+export interface MethodChoice extends MethodSummary {
+  versions: { id: string; number: number; status: MethodVersion['status']; usable: boolean; reason: string | null }[];
+}
+
+export type RunControlChart = ControlChart & { methodVersionId: string; slopeUnit: string };
+
+export interface RunFile {
+  body: Buffer;
+  contentType: string;
+  filename: string;
+}
+
+const CONTENT_TYPES = {
+  csv: 'text/csv; charset=utf-8',
+  xlsx: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet',
+  pdf: 'application/pdf',
+} as const;
+
+function fileName(run: RunDto, extension: string): string {
+  const slug = run.title.normalize('NFKD').replace(/[^\w]+/g, '-').replace(/^-+|-+$/g, '').toLowerCase().slice(0, 60) || 'run';
+  return `run-${slug}-${run.createdAt.slice(0, 10)}.${extension}`;
+}
+
+const toMethodSummary = (m: Method): MethodSummary => ({ id: m.id, name: m.name, analyte: m.analyte, matrix: m.matrix, xUnit: m.xUnit, yUnit: m.yUnit });
+
+function versionLabel(version: MethodVersion): string {
+  return `Version ${version.number} of ${version.method.name}`;
+}
+
+function unusableReason(version: MethodVersion, hasApproved: boolean, hasCalibration = true): string | null {
+  if (version.status !== 'active') return `${versionLabel(version)} is ${version.status === 'draft' ? 'a draft' : 'retired'}: routine runs need an active version.`;
+  if (!hasApproved) return `${versionLabel(version)} has no approved validation study, so it is not validated for routine runs.`;
+  if (!hasCalibration) return `The approved validation study of ${versionLabel(version).toLowerCase()} has no calibration to compare a run with.`;
+  return null;
+}
+
+@Injectable()
+export class RunsService {
+  constructor(
+    @InjectRepository(Run) private readonly runs: Repository<Run>,
+    @InjectRepository(MethodVersion) private readonly versions: Repository<MethodVersion>,
+    @InjectRepository(ValidationStudy) private readonly studies: Repository<ValidationStudy>,
+    @InjectRepository(User) private readonly users: Repository<User>,
+    @InjectDataSource() private readonly dataSource: DataSource,
+    private readonly audit: AuditService,
+    @Inject(appConfig.KEY) private readonly config: AppConfigType,
+  ) {}
+
+  private async findVersion(id: MethodVersion['id']): Promise<MethodVersion | null> {
+    return this.versions.findOne({ where: { id }, relations: { method: true } });
+  }
+
+  private approvedStudy(methodVersionId: string): Promise<ValidationStudy | null> {
+    return this.studies.findOne({ where: { methodVersionId, status: 'approved' }, order: { approvedAt: 'DESC', createdAt: 'DESC' } });
+  }
+
+  private async optionsFor(version: MethodVersion): Promise<RunOptions> {
+    const study = await this.approvedStudy(version.id);
+    const basis = study?.result
+      ? validationBasis({ id: study.id, title: study.title, approvedAt: study.approvedAt, result: study.result as unknown as EvaluationResult })
+      : null;
+    const reason = unusableReason(version, study !== null, basis !== null);
+    const { settings } = version;
+    return {
+      methodVersionId: version.id,
+      lockVersion: version.lockVersion,
+      versionNumber: version.number,
+      status: version.status,
+      method: toMethodSummary(version.method),
+      usable: reason === null,
+      reason,
+      models: reason === null ? modelChoices(basis, settings, version.method.yUnit) : modelChoices(null, settings).map((m) => ({ ...m, reason })),
+      validationStudyId: study?.id ?? null,
+      lod: basis?.lod ?? null,
+      loq: basis?.loq ?? null,
+      validatedRange: basis?.validatedRange ?? null,
+      checkTolerancePct: settings.checkTolerancePct,
+      onePointMaxInterceptPct: settings.onePointMaxInterceptPct,
+      validation: basis,
+    };
+  }
+
+  async runOptions(methodVersionId: string): Promise<RunOptions> {
+    const version = await this.findVersion(methodVersionId);
+    if (!version) throw new NotFoundException('Method version not found.');
+    return this.optionsFor(version);
+  }
+
+  async methodChoices(): Promise<MethodChoice[]> {
+    const versions = await this.versions.find({ relations: { method: true }, order: { number: 'ASC' } });
+    const approved = await this.studies.find({ where: { status: 'approved' }, select: { id: true, methodVersionId: true } });
+    const validated = new Set(approved.map((s) => s.methodVersionId));
+    const byMethod = new Map<string, MethodChoice>();
+    for (const version of versions) {
+      const entry = byMethod.get(version.methodId) ?? { ...toMethodSummary(version.method), versions: [] };
+      const reason = unusableReason(version, validated.has(version.id));
+      entry.versions.push({ id: version.id, number: version.number, status: version.status, usable: reason === null, reason });
+      byMethod.set(version.methodId, entry);
+    }
+    return [...byMethod.values()].sort((a, b) => a.name.localeCompare(b.name));
+  }
+
+  /** Loads what a run on the version depends on, or refuses the version with the reason. */
+  private async contextFor(dto: CreateRunDto): Promise<{ version: MethodVersion; context: RunContext }> {
+    const version = await this.findVersion(dto.methodVersionId);
+    const refuse = (message: string) => unprocessable([{ field: 'methodVersionId', code: 'not_usable', message }], message);
+    if (!version) throw refuse('No method version has this id.');
+    if (dto.methodVersionLockVersion !== undefined && dto.methodVersionLockVersion !== version.lockVersion) {
+      throw new ConflictException(`${versionLabel(version)} was changed after you opened it (for example its check tolerance); reload and try again.`);
+    }
+    const options = await this.optionsFor(version);
+    if (!options.usable || !options.validation) throw refuse(options.reason ?? 'This version cannot be used for runs.');
+    const { method, settings } = version;
+    return {
+      version,
+      context: { basis: options.validation, choices: options.models, settings, units: { x: method.xUnit, y: method.yUnit } },
+    };
+  }
+
+  private calculate(dto: CreateRunDto, context: RunContext): RunEvaluation {
+    try {
+      return evaluateRun(dto.data, context);
+    } catch (error) {
+      if (error instanceof StudyValidationError) throw unprocessable(error.errors, 'The run cannot be calculated from these data.');
+      throw error;
+    }
+  }
+
+  async preview(dto: CreateRunDto): Promise<RunPreview> {
+    const { context } = await this.contextFor(dto);
+    return this.calculate(dto, context);
+  }
+
+  async create(dto: CreateRunDto, actor: AuthUser): Promise<RunDto> {
+    const { version, context } = await this.contextFor(dto);
+    const evaluation = this.calculate(dto, context);
+    const run = await writeTransaction(this.dataSource, async (manager) => {
+      const saved = await manager.save(
+        manager.create(Run, {
+          methodVersionId: version.id,
+          title: dto.title.trim(),
+          status: evaluation.status,
+          model: evaluation.data.model as string,
+          data: evaluation.data,
+          result: evaluation.result as unknown as Record<string, unknown>,
+          rejectionReasons: evaluation.rejectionReasons,
+          engineVersion: ENGINE_VERSION,
+          dataHash: createHash('sha256').update(canonicalJson(evaluation.data)).digest('hex'),
+          authorId: actor.id,
+          // Millisecond time keeps runs of the same second in order (the column default has whole seconds on SQLite).
+          createdAt: new Date(),
+        }),
+      );
+      await this.audit.record(
+        {
+          actor,
+          action: 'run.created',
+          entity: 'run',
+          entityId: saved.id,
+          changes: {
+            methodVersionId: { from: null, to: version.id },
+            model: { from: null, to: saved.model },
+            status: { from: null, to: saved.status },
+            dataHash: { from: null, to: saved.dataHash },
+          },
+        },
+        manager,
+      );
+      return saved;
+    });
+    return this.toDto(run, version, { id: actor.id, name: actor.name });
+  }
+
+  private toDto(run: Run, version: MethodVersion, author: { id: string; name: string }): RunDto {
+    return {
+      id: run.id,
+      methodVersionId: run.methodVersionId,
+      versionNumber: version.number,
+      method: toMethodSummary(version.method),
+      title: run.title,
+      status: run.status,
+      model: run.model,
+      data: run.data,
+      result: run.result as unknown as RunResult,
+      rejectionReasons: run.rejectionReasons,
+      engineVersion: run.engineVersion,
+      dataHash: run.dataHash,
+      author,
+      createdAt: run.createdAt.toISOString(),
+    };
+  }
+
+  private async authorsOf(runs: Run[]): Promise<Map<string, { id: string; name: string }>> {
+    const ids = [...new Set(runs.map((r) => r.authorId))];
+    const users = ids.length ? await this.users.find({ where: { id: In(ids) }, select: { id: true, name: true } }) : [];
+    return new Map(users.map((u) => [u.id, { id: u.id, name: u.name }]));
+  }
+
+  async findOne(id: Run['id']): Promise<RunDto> {
+    const run = await this.runs.findOne({ where: { id }, relations: { methodVersion: { method: true } } });
+    if (!run) throw new NotFoundException('Run not found.');
+    const authors = await this.authorsOf([run]);
+    return this.toDto(run, run.methodVersion, authors.get(run.authorId) ?? { id: run.authorId, name: 'Unknown user' });
+  }
+
+  async list(query: ListRunsQueryDto): Promise<RunPage> {
+    const where: FindOptionsWhere<Run> = {};
+    if (query.methodVersionId) where.methodVersionId = query.methodVersionId;
+    if (query.status) where.status = query.status;
+    if (query.methodId) where.methodVersion = { methodId: query.methodId };
+    const [runs, total] = await this.runs.findAndCount({
+      where,
+      relations: { methodVersion: { method: true } },
+      order: { createdAt: 'DESC', id: 'ASC' },
+      skip: (query.page - 1) * query.pageSize,
+      take: query.pageSize,
+    });
+    const authors = await this.authorsOf(runs);
+    return {
+      items: runs.map((run) => {
+        const result = run.result as unknown as RunResult;
+        return {
+          id: run.id,
+          title: run.title,
+          status: run.status,
+          model: run.model,
+          methodVersionId: run.methodVersionId,
+          versionNumber: run.methodVersion.number,
+          method: { id: run.methodVersion.method.id, name: run.methodVersion.method.name, analyte: run.methodVersion.method.analyte },
+          author: authors.get(run.authorId) ?? { id: run.authorId, name: 'Unknown user' },
+          createdAt: run.createdAt.toISOString(),
+          slope: result.calibration?.slope ?? null,
+          unknownCount: result.unknowns.length,
+          checkCount: result.checks.length,
+        };
+      }),
+      total,
+      page: query.page,
+      pageSize: query.pageSize,
+    };
+  }
+
+  async controlChart(methodVersionId: string): Promise<RunControlChart> {
+    const version = await this.findVersion(methodVersionId);
+    if (!version) throw new NotFoundException('Method version not found.');
+    const accepted = await this.runs.find({ where: { methodVersionId, status: 'accepted' }, order: { createdAt: 'ASC', id: 'ASC' } });
+    const chart = controlChart(
+      accepted.flatMap((run) => {
+        const slope = (run.result as unknown as RunResult).calibration?.slope;
+        return typeof slope === 'number' ? [{ runId: run.id, title: run.title, createdAt: run.createdAt.toISOString(), model: run.model, slope }] : [];
+      }),
+    );
+    return { methodVersionId, slopeUnit: `${version.method.yUnit} per ${version.method.xUnit}`, ...chart };
+  }
+
+  async exportFile(id: Run['id'], format: ExportFormat): Promise<RunFile> {
+    const run = await this.findOne(id);
+    const body = format === 'csv' ? Buffer.from(runCsv(run), 'utf8') : await runWorkbook(run);
+    return { body, contentType: CONTENT_TYPES[format], filename: fileName(run, format) };
+  }
+
+  async sheet(id: Run['id']): Promise<RunFile> {
+    const run = await this.findOne(id);
+    return { body: await runSheet(run, this.config.laboratoryName), contentType: CONTENT_TYPES.pdf, filename: fileName(run, 'pdf') };
+  }
+}
