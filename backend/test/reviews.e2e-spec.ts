@@ -329,7 +329,7 @@ describe('review and sign-off', () => {
     it('should copy the data and method version into a new draft authored by the caller', async () => {
       const study = await createStudy(t, { author: DEMO.analyst, status: 'approved' });
       const res = await t.http().post(`/api/studies/${study.id}/copy`).set(as('analyst2')).expect(201);
-      expect(res.body).toMatchObject({ status: 'draft', copiedFromId: study.id, methodVersionId: study.methodVersionId, authorId: await userId(t, DEMO.analyst2), data: study.data, submittedAt: null });
+      expect(res.body).toMatchObject({ status: 'draft', copiedFromId: study.id, methodVersionId: study.methodVersionId, author: { id: await userId(t, DEMO.analyst2), name: 'Tomasz Weber' }, data: study.data, submittedAt: null, result: expect.any(Object) });
       const audit = await t.http().get(`/api/audit?entity=study&id=${res.body.id}`).set(as('quality')).expect(200);
       expect(audit.body[0]).toMatchObject({ action: 'study.created', changes: { copiedFromId: { from: null, to: study.id } } });
     });

@@ -8,7 +8,7 @@ import type { CreateCommentDto } from './dto/create-comment.dto.js';
 import type { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
 import type { CommentDto } from './reviews.types.js';
-import { serialTransaction } from './serial-transaction.js';
+import { writeTransaction } from '../methods/write-transaction.js';
 import { StudyComment } from './study-comment.entity.js';
 
 export function toCommentDto(comment: StudyComment): CommentDto {
@@ -51,7 +51,7 @@ export class CommentsService {
       }
       section = thread.section;
     }
-    return serialTransaction(this.dataSource, async (manager) => {
+    return writeTransaction(this.dataSource, async (manager) => {
       const repo = manager.getRepository(StudyComment);
       const comment = await repo.save(repo.create({ studyId, section, threadId: dto.threadId ?? null, authorId: actor.id, authorName: actor.name, body: dto.body.trim(), resolved: false }));
       await this.audit.record(
@@ -64,7 +64,7 @@ export class CommentsService {
 
   async setResolved(studyId: string, commentId: string, dto: UpdateCommentDto, actor: AuthUser): Promise<CommentDto> {
     await this.reviews.findStudy(studyId);
-    return serialTransaction(this.dataSource, async (manager) => {
+    return writeTransaction(this.dataSource, async (manager) => {
       const repo = manager.getRepository(StudyComment);
       const comment = await repo.findOneBy({ id: commentId, studyId });
       if (!comment) throw new NotFoundException('Comment not found on this study.');

@@ -3,6 +3,7 @@ import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import type { StudyDto } from '../studies/dto/study.dto.js';
 import { CommentsService } from './comments.service.js';
 import { CreateCommentDto } from './dto/create-comment.dto.js';
 import { ReturnStudyDto } from './dto/return-study.dto.js';
@@ -11,7 +12,6 @@ import { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
 import type { CommentDto, HistoryItemDto, QueueItemDto, SignatureDto, StudyDiffDto, TransitionResultDto } from './reviews.types.js';
 import { StudyHistoryService } from './study-history.service.js';
-import { toCopiedStudyDto, type CopiedStudyDto } from './copied-study.dto.js';
 
 const STUDY_READERS = [Role.Analyst, Role.Reviewer, Role.QualityManager];
 
@@ -48,8 +48,8 @@ export class StudyReviewController {
 
   @Post('copy')
   @Roles(Role.Analyst)
-  async copy(@Param('id', ParseUUIDPipe) id: string, @CurrentUser() user: AuthUser): Promise<CopiedStudyDto> {
-    return toCopiedStudyDto(await this.reviewsService.copy(id, user));
+  copy(@Param('id', ParseUUIDPipe) id: string, @CurrentUser() user: AuthUser): Promise<StudyDto> {
+    return this.reviewsService.copy(id, user);
   }
 
   @Get('signatures')

@@ -6,13 +6,16 @@ import { AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
+import { writeTransaction } from '../methods/write-transaction.js';
+import type { StudyDto } from '../studies/dto/study.dto.js';
+import { toStudyDto } from '../studies/studies.service.js';
+import { evaluateStudyData } from '../studies/study-evaluation.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import type { ReturnStudyDto } from './dto/return-study.dto.js';
 import type { SignStudyDto } from './dto/sign-study.dto.js';
 import { ReviewNoticesService, type ReviewEvent } from './review-notices.service.js';
 import type { QueueItemDto, ReviewStage, SignatureDto, TransitionResultDto } from './reviews.types.js';
 import { contentHash, currentRound, toSignatureDtos } from './signatures.js';
-import { serialTransaction } from './serial-transaction.js';
 import { StudySignature } from './study-signature.entity.js';
 
 const STATUS_WORDS: Record<StudyStatus, string> = { draft: 'a draft', submitted: 'submitted', returned: 'returned', approved: 'approved' };
@@ -103,7 +106,8 @@ export class ReviewsService {
     return this.apply({ study, actor, to: 'approved', action: 'study.released', reason, set: { approvedAt: at }, signature: { meaning: 'released', role: Role.QualityManager, at }, event: 'approved' });
   }
 
-  async copy(studyId: string, actor: AuthUser): Promise<ValidationStudy> {
+  /** A new draft with the same data on the same method version, evaluated by the current engine. */
+  async copy(studyId: string, actor: AuthUser): Promise<StudyDto> {
     const source = await this.findStudy(studyId);
     if (source.methodVersion.status === 'retired') {
       throw unprocessable(
@@ -111,7 +115,7 @@ export class ReviewsService {
         'A study cannot be started on a retired method version.',
       );
     }
-    return serialTransaction(this.dataSource, async (manager) => {
+    const id = await writeTransaction(this.dataSource, async (manager) => {
       const repo = manager.getRepository(ValidationStudy);
       const copy = await repo.save(
         repo.create({
@@ -119,11 +123,8 @@ export class ReviewsService {
           title: `${source.title} (new study)`.slice(0, 200),
           status: 'draft',
           data: source.data,
-          result: source.result,
-          resultErrors: source.resultErrors,
-          engineVersion: source.engineVersion,
-          dataHash: source.dataHash,
-          meta: { instrument: source.meta?.instrument },
+          ...evaluateStudyData(source.data),
+          meta: source.meta?.instrument ? { instrument: source.meta.instrument } : {},
           authorId: actor.id,
           editorIds: [actor.id],
           copiedFromId: source.id,
@@ -135,8 +136,9 @@ export class ReviewsService {
         { actor, action: 'study.created', entity: 'study', entityId: copy.id, changes: { status: { from: null, to: 'draft' }, copiedFromId: { from: null, to: source.id } }, reason: `Started from the study “${source.title}”.` },
         manager,
       );
-      return copy;
+      return copy.id;
     });
+    return toStudyDto(await this.findStudy(id));
   }
 
   /** Submitted studies the caller may act on, oldest first. */
@@ -192,7 +194,7 @@ export class ReviewsService {
     const { study, actor, to, action, reason, signature } = transition;
     let deliver: () => Promise<void> = async () => {};
     let signed: StudySignature | null = null;
-    const updated = await serialTransaction(this.dataSource, async (manager) => {
+    const updated = await writeTransaction(this.dataSource, async (manager) => {
       const result = await manager
         .createQueryBuilder()
         .update(ValidationStudy)
