@@ -30,11 +30,17 @@ export const routes: RouteObject[] = [
             children: [
               { path: paths.studies.path, lazy: page(() => import('@/features/studies/routes/studies')) },
               { path: paths.runs.path, lazy: page(() => import('@/features/runs/routes/routine-batches')) },
+              { path: paths.runNew.path, lazy: page(() => import('@/features/runs/routes/new-run')) },
+              { path: paths.runDetail.path, lazy: page(() => import('@/features/runs/routes/run-detail')) },
             ],
           },
           {
             element: <RequireRole roles={[Role.Reviewer]} />,
             children: [{ path: paths.reviews.path, lazy: page(() => import('@/features/reviews/routes/review-queue')) }],
+          },
+          {
+            element: <RequireRole roles={[Role.Analyst, Role.Reviewer, Role.QualityManager]} />,
+            children: [{ path: paths.runControlChart.path, lazy: page(() => import('@/features/runs/routes/control-chart')) }],
           },
           {
             element: <RequireRole roles={[Role.Analyst, Role.Reviewer, Role.QualityManager]} />,

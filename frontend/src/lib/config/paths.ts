@@ -20,6 +20,9 @@ export const paths = {
 
   studies: { path: '/studies', getHref: () => '/studies' },
   runs: { path: '/runs', getHref: () => '/runs' },
+  runNew: { path: '/runs/new', getHref: (query: { versionId?: string; from?: string } = {}) => withQuery('/runs/new', query) },
+  runControlChart: { path: '/runs/control-chart', getHref: (versionId?: string) => withQuery('/runs/control-chart', { versionId }) },
+  runDetail: { path: '/runs/:runId', getHref: (runId: string) => `/runs/${encodeURIComponent(runId)}` },
   reviews: { path: '/reviews', getHref: () => '/reviews' },
   studyView: { path: '/studies/:studyId', getHref: (studyId: string) => `/studies/${encodeURIComponent(studyId)}` },
   methods: { path: '/methods', getHref: () => '/methods' },

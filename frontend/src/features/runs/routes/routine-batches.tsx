@@ -1,11 +1,109 @@
+import { Button, Field, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
+import type { RunStatus } from '@meritline/shared';
+import { useQuery } from '@tanstack/react-query';
+import { Link as RouterLink, useSearchParams } from 'react-router';
+import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
+import { QueryError } from '@/components/query-error';
+import { paths } from '@/lib/config/paths';
+import { runsQueries } from '../api/runs-queries';
+import type { RunFilters } from '../api/types';
+import { RUN_CAUTION } from '../components/run-result-view';
+import { runsColumns } from '../components/runs-columns';
+import { VersionFilter } from '../components/version-filter';
+
+const PAGE_SIZE = 20;
 
 export default function RoutineBatchesPage() {
+  const [params, setParams] = useSearchParams();
+  const scope = params.get('scope') ?? '';
+  const status = (params.get('status') ?? '') as RunStatus | '';
+  const page = Math.max(1, Number(params.get('page')) || 1);
+  const filters: RunFilters = {
+    ...(scope.startsWith('method:') ? { methodId: scope.slice('method:'.length) } : scope ? { methodVersionId: scope } : {}),
+    ...(status ? { status } : {}),
+    page,
+    pageSize: PAGE_SIZE,
+  };
+  const runs = useQuery(runsQueries.list(filters));
+  const methods = useQuery(runsQueries.methodChoices());
+  const update = (changes: Record<string, string>) =>
+    setParams((current) => {
+      const next = new URLSearchParams(current);
+      for (const [key, value] of Object.entries(changes)) {
+        if (value) next.set(key, value);
+        else next.delete(key);
+      }
+      return next;
+    });
+  const total = runs.data?.total ?? 0;
+  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
+  const versionId = scope && !scope.startsWith('method:') ? scope : undefined;
+
   return (
-    <PageHeader
-      section="Bench work"
-      title="Routine batches"
-      description="Quantify the samples of a batch against a released method, with its calibration and control checks."
-    />
+    <>
+      <PageHeader
+        section="Bench work"
+        title="Routine batches"
+        description="Each run calibrates a validated method version with the day's standards, reads the samples off it and lets the check standards decide whether the results may be reported."
+        actions={
+          <HStack gap="3">
+            <Button variant="outline" asChild>
+              <RouterLink to={paths.runControlChart.getHref(versionId)}>Slope control chart</RouterLink>
+            </Button>
+            <Button asChild>
+              <RouterLink to={paths.runNew.getHref({ versionId })}>New run</RouterLink>
+            </Button>
+          </HStack>
+        }
+      />
+      <Stack gap="4">
+        <HStack gap="4" align="flex-end" wrap="wrap">
+          <VersionFilter label="Method and version" methods={methods.data ?? []} value={scope} onChange={(value) => update({ scope: value, page: '' })} allowMethods />
+          <Field.Root maxW="2xs">
+            <Field.Label>Status</Field.Label>
+            <NativeSelect.Root>
+              <NativeSelect.Field value={status} onChange={(event) => update({ status: event.currentTarget.value, page: '' })}>
+                <option value="">Accepted and rejected</option>
+                <option value="accepted">Accepted</option>
+                <option value="rejected">Rejected</option>
+              </NativeSelect.Field>
+              <NativeSelect.Indicator />
+            </NativeSelect.Root>
+          </Field.Root>
+        </HStack>
+        {runs.isError ? (
+          <QueryError error={runs.error} onRetry={() => void runs.refetch()} />
+        ) : (
+          <DataTable
+            label="Routine runs"
+            columns={runsColumns}
+            data={runs.data?.items}
+            getRowId={(run) => run.id}
+            isLoading={runs.isPending}
+            emptyTitle="No runs yet"
+            emptyDescription="Start one with “New run”: it needs an active method version with an approved validation study."
+          />
+        )}
+        {total > PAGE_SIZE && (
+          <HStack justify="space-between">
+            <Text fontSize="sm" color="fg.muted">
+              Page {page} of {pages}, {total} runs
+            </Text>
+            <HStack gap="2">
+              <Button size="sm" variant="outline" disabled={page <= 1} onClick={() => update({ page: String(page - 1) })}>
+                Previous
+              </Button>
+              <Button size="sm" variant="outline" disabled={page >= pages} onClick={() => update({ page: String(page + 1) })}>
+                Next
+              </Button>
+            </HStack>
+          </HStack>
+        )}
+        <Text fontSize="sm" color="fg.muted">
+          {RUN_CAUTION}
+        </Text>
+      </Stack>
+    </>
   );
 }

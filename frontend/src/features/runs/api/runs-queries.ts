@@ -1,0 +1,52 @@
+import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { ControlChart, CreateRunInput, MethodChoice, Run, RunFilters, RunOptions, RunPage, RunPreview } from './types';
+
+const search = (filters: RunFilters) => {
+  const params = new URLSearchParams();
+  for (const [key, value] of Object.entries(filters)) if (value !== undefined && value !== '') params.set(key, String(value));
+  const text = params.toString();
+  return text ? `?${text}` : '';
+};
+
+export const runsQueries = {
+  all: ['runs'] as const,
+  lists: () => [...runsQueries.all, 'list'] as const,
+  list: (filters: RunFilters) =>
+    queryOptions({
+      queryKey: [...runsQueries.lists(), filters],
+      queryFn: ({ signal }) => api.get<RunPage>(`/runs${search(filters)}`, { signal }),
+      placeholderData: keepPreviousData,
+    }),
+  detail: (runId: string) =>
+    queryOptions({
+      queryKey: [...runsQueries.all, 'detail', runId],
+      queryFn: ({ signal }) => api.get<Run>(`/runs/${encodeURIComponent(runId)}`, { signal }),
+      // Runs never change once saved.
+      staleTime: Infinity,
+    }),
+  methodChoices: () =>
+    queryOptions({
+      queryKey: [...runsQueries.all, 'method-choices'],
+      queryFn: ({ signal }) => api.get<MethodChoice[]>('/runs/method-choices', { signal }),
+    }),
+  options: (methodVersionId: string) =>
+    queryOptions({
+      queryKey: [...runsQueries.all, 'options', methodVersionId],
+      queryFn: ({ signal }) => api.get<RunOptions>(`/method-versions/${encodeURIComponent(methodVersionId)}/run-options`, { signal }),
+    }),
+  controlChart: (methodVersionId: string) =>
+    queryOptions({
+      queryKey: [...runsQueries.all, 'control-chart', methodVersionId],
+      queryFn: ({ signal }) => api.get<ControlChart>(`/method-versions/${encodeURIComponent(methodVersionId)}/control-chart`, { signal }),
+    }),
+  /** The server's full result for unsaved data: the same calculation as saving, nothing stored. */
+  preview: (input: CreateRunInput) =>
+    queryOptions({
+      queryKey: [...runsQueries.all, 'preview', input],
+      queryFn: ({ signal }) => api.post<RunPreview>('/runs/preview', input, { signal }),
+      placeholderData: keepPreviousData,
+      retry: false,
+      staleTime: Infinity,
+    }),
+};

@@ -1,0 +1,213 @@
+import { Alert, Box, DataList, Heading, List, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
+import { useQuery } from '@tanstack/react-query';
+import { useFormikContext } from 'formik';
+import { useEffect } from 'react';
+import { FormField } from '@/components/form/form-field';
+import { formatNumber } from '@/components/study-results';
+import { isApiError } from '@/lib/api-client';
+import { buildRunInput, formFieldOf, standardLevels, type RunFormValues } from '../api/create-run';
+import { runsQueries } from '../api/runs-queries';
+import type { MethodChoice, RunModel, RunOptions } from '../api/types';
+import { useDebouncedValue } from '../hooks/use-debounced-value';
+import { parseChecks, parseStandards, parseUnknowns } from '../utils/measurement-text';
+import { MeasurementField } from './measurement-field';
+import { ModelPicker } from './model-picker';
+import { RunResultView } from './run-result-view';
+import { VersionSelect } from './version-filter';
+
+const PREFERRED: RunModel[] = ['linear', 'quadratic', 'two-point', 'one-point'];
+
+function plural(n: number, one: string, many = `${one}s`) {
+  return `${n} ${n === 1 ? one : many}`;
+}
+
+function ValidationSummary({ options }: { options: RunOptions }) {
+  const { validation, method } = options;
+  if (!validation) return null;
+  return (
+    <DataList.Root orientation="horizontal" size="sm" data-testid="validation-summary">
+      <DataList.Item>
+        <DataList.ItemLabel>Validation study</DataList.ItemLabel>
+        <DataList.ItemValue>{validation.studyTitle}</DataList.ItemValue>
+      </DataList.Item>
+      <DataList.Item>
+        <DataList.ItemLabel>LOD and LOQ</DataList.ItemLabel>
+        <DataList.ItemValue>
+          {formatNumber(options.lod, 3)} and {formatNumber(options.loq, 3)} {method.xUnit} in the measured solution
+        </DataList.ItemValue>
+      </DataList.Item>
+      {options.validatedRange && (
+        <DataList.Item>
+          <DataList.ItemLabel>Validated range</DataList.ItemLabel>
+          <DataList.ItemValue>
+            {formatNumber(options.validatedRange.low, 4)} to {formatNumber(options.validatedRange.high, 4)} {method.xUnit}
+          </DataList.ItemValue>
+        </DataList.Item>
+      )}
+      <DataList.Item>
+        <DataList.ItemLabel>Check standards must recover</DataList.ItemLabel>
+        <DataList.ItemValue>
+          {100 - options.checkTolerancePct} to {100 + options.checkTolerancePct} % of their nominal value
+        </DataList.ItemValue>
+      </DataList.Item>
+    </DataList.Root>
+  );
+}
+
+/** The server's result for the data as typed, refreshed a moment after the typing stops. */
+function RunPreview({ options }: { options: RunOptions }) {
+  const { values } = useFormikContext<RunFormValues>();
+  const settled = useDebouncedValue(values);
+  const choice = options.models.find((m) => m.model === settled.model);
+  const input = choice?.allowed ? buildRunInput({ ...settled, title: 'Preview' }, choice) : null;
+  const preview = useQuery({ ...runsQueries.preview(input ?? { methodVersionId: '', title: '', data: null as never }), enabled: input !== null });
+
+  let body;
+  if (!input) {
+    body = <Text color="fg.muted">The preview appears once the method, the calibration, the standards, the check standards and the samples are entered.</Text>;
+  } else if (preview.isError && !preview.isPlaceholderData) {
+    const errors = isApiError(preview.error) ? (preview.error.body.errors ?? []) : [];
+    body = (
+      <Alert.Root status="warning" variant="surface">
+        <Alert.Indicator />
+        <Alert.Content>
+          <Alert.Title>The run cannot be calculated from these data yet</Alert.Title>
+          <Alert.Description>
+            <List.Root ps="4">
+              {(errors.length ? errors : [{ field: '', message: preview.error.message }]).map((e) => {
+                const { row } = formFieldOf(e.field);
+                return <List.Item key={e.field + e.message}>{row ? `${row}: ${e.message}` : e.message}</List.Item>;
+              })}
+            </List.Root>
+          </Alert.Description>
+        </Alert.Content>
+      </Alert.Root>
+    );
+  } else if (!preview.data) {
+    body = <Skeleton height="40" borderRadius="l3" />;
+  } else {
+    body = (
+      <Box opacity={preview.isPlaceholderData ? 0.6 : 1} transition="opacity 0.2s">
+        <RunResultView
+          preview
+          status={preview.data.status}
+          result={preview.data.result}
+          rejectionReasons={preview.data.rejectionReasons}
+          data={preview.data.data}
+          units={{ x: options.method.xUnit, y: options.method.yUnit }}
+        />
+      </Box>
+    );
+  }
+  return (
+    <Stack as="section" gap="4" aria-label="Preview" borderTopWidth="1px" borderColor="border" pt="6">
+      <Heading as="h2" size="lg">
+        Preview
+      </Heading>
+      <Text color="fg.muted" fontSize="sm">
+        Calculated by the server exactly as it will be saved; nothing is stored until you save the run.
+      </Text>
+      {body}
+    </Stack>
+  );
+}
+
+/** Method version, calibration and measurements of a new run, with a live preview of its result. */
+export function RunFormFields({ methods }: { methods: readonly MethodChoice[] }) {
+  const { values, setFieldValue } = useFormikContext<RunFormValues>();
+  const options = useQuery({ ...runsQueries.options(values.methodVersionId), enabled: values.methodVersionId !== '' });
+  const standards = parseStandards(values.standards).rows;
+  const levels = standardLevels(standards);
+  const checks = parseChecks(values.checks).rows;
+  const unknowns = parseUnknowns(values.unknowns).rows;
+  const xUnit = options.data?.method.xUnit ?? '';
+  const yUnit = options.data?.method.yUnit ?? '';
+
+  // The validated regression is the usual choice; a model the version does not allow is cleared.
+  useEffect(() => {
+    const models = options.data?.models;
+    if (!models) return;
+    const current = models.find((m) => m.model === values.model);
+    if (current?.allowed) return;
+    const preferred = PREFERRED.map((model) => models.find((m) => m.model === model && m.allowed)).find(Boolean);
+    void setFieldValue('model', preferred?.model ?? '');
+  }, [options.data, values.model, setFieldValue]);
+
+  return (
+    <Stack gap="8">
+      <SimpleGrid columns={{ base: 1, lg: 2 }} gap="6">
+        <FormField name="methodVersionId" label="Method version" required>
+          {(field) => (
+            <VersionSelect
+              methods={methods}
+              value={field.value as string}
+              onChange={(value) => void setFieldValue('methodVersionId', value)}
+              includeUnusable={false}
+              emptyLabel="Choose a validated method version"
+            />
+          )}
+        </FormField>
+        <FormField name="title" label="Title" required placeholder="e.g. Nitrate in drinking water, batch of 2 December" />
+      </SimpleGrid>
+
+      {options.isError && <Text color="fg.error">{options.error.message}</Text>}
+      {options.data && (
+        <>
+          {!options.data.usable && (
+            <Alert.Root status="error">
+              <Alert.Indicator />
+              <Alert.Description>{options.data.reason}</Alert.Description>
+            </Alert.Root>
+          )}
+          <ValidationSummary options={options.data} />
+          <Stack as="fieldset" gap="3">
+            <Heading as="legend" size="md" mb="3">
+              Calibration
+            </Heading>
+            <FormField name="model" label="How to calibrate" required>
+              {() => (
+                <ModelPicker
+                  choices={options.data.models}
+                  value={values.model}
+                  onChange={(model) => void setFieldValue('model', model)}
+                  bracketing={values.bracketing}
+                  onBracketingChange={(on) => void setFieldValue('bracketing', on)}
+                  levels={levels}
+                  calibrant={values.calibrant}
+                  onCalibrantChange={(level) => void setFieldValue('calibrant', level)}
+                  unit={xUnit}
+                />
+              )}
+            </FormField>
+          </Stack>
+        </>
+      )}
+
+      <SimpleGrid columns={{ base: 1, xl: 3 }} gap="6">
+        <MeasurementField
+          name="standards"
+          label="Standards"
+          columns={`concentration${xUnit ? ` (${xUnit})` : ''}, response${yUnit ? ` (${yUnit})` : ''}${options.data?.validation?.weighting === '1/s2' ? ', SD of the response' : ''}`}
+          example={'0.5\t0.079\n10\t1.527\n50\t7.63'}
+          summary={standards.length ? `${plural(standards.length, 'reading')} at ${plural(levels.length, 'level')}` : undefined}
+        />
+        <MeasurementField
+          name="checks"
+          label="Check standards"
+          columns={`name, nominal concentration${xUnit ? ` (${xUnit})` : ''}, responses`}
+          example={'CCV 10 mg/L\t10\t1.526'}
+          summary={checks.length ? plural(checks.length, 'check standard') : undefined}
+        />
+        <MeasurementField
+          name="unknowns"
+          label="Samples"
+          columns="sample, dilution factor (empty for none), responses"
+          example={'W-2811 tap water\t1\t1.83\t1.84\nW-2812 well\t2\t3.95\t3.97'}
+          summary={unknowns.length ? plural(unknowns.length, 'sample') : undefined}
+        />
+      </SimpleGrid>
+
+      {options.data?.usable && <RunPreview options={options.data} />}
+    </Stack>
+  );
+}

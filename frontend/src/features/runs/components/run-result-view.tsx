@@ -1,0 +1,130 @@
+import { Alert, Box, DataList, Heading, List, Stack, Text } from '@chakra-ui/react';
+import type { ReactNode } from 'react';
+import type { RunStatus } from '@meritline/shared';
+import { formatNumber } from '@/components/study-results';
+import type { RunData, RunResult } from '../api/types';
+import { ChecksTable } from './checks-table';
+import { OnePointBiasTable } from './one-point-bias';
+import { ResultsTable } from './results-table';
+import { RunPlot } from './run-plot';
+
+export const RUN_CAUTION =
+  'Results are reported under the laboratory’s own procedures and the regulations that apply to the sample (for drinking water and released products, the limits and reporting rules of the competent authority), after review by a qualified person. The results of a rejected run are not reportable.';
+
+function equation(result: RunResult): string {
+  const c = result.calibration;
+  if (!c) return '—';
+  const sign = (v: number) => (v < 0 ? '−' : '+');
+  const parts = [`y = ${formatNumber(c.intercept, 4)}`, `${sign(c.slope)} ${formatNumber(Math.abs(c.slope), 5)}·x`];
+  if (c.curvature !== null) parts.push(`${sign(c.curvature)} ${formatNumber(Math.abs(c.curvature), 4)}·x²`);
+  return parts.join(' ');
+}
+
+function Section({ title, children }: { title: string; children: ReactNode }) {
+  return (
+    <Stack as="section" gap="3">
+      <Heading as="h2" size="md">
+        {title}
+      </Heading>
+      {children}
+    </Stack>
+  );
+}
+
+export interface RunResultViewProps {
+  status: RunStatus;
+  result: RunResult;
+  rejectionReasons: string[];
+  data: RunData;
+  units: { x: string; y: string };
+  /** An unsaved preview says so in its status. */
+  preview?: boolean;
+}
+
+/** Everything a run shows: acceptance, the calibration with samples projected, reported results, the one-point bias and the check standards. */
+export function RunResultView({ status, result, rejectionReasons, data, units, preview = false }: RunResultViewProps) {
+  const { validation, acceptance } = result;
+  const range = validation.validatedRange;
+  const calibration = result.calibration;
+  const saved = preview ? 'would be' : 'is';
+  return (
+    <Stack gap="8">
+      {status === 'accepted' ? (
+        <Alert.Root status="success" variant="surface">
+          <Alert.Indicator />
+          <Alert.Content>
+            <Alert.Title>The run {saved} accepted</Alert.Title>
+            <Alert.Description>
+              Every check standard recovered within {acceptance.low} to {acceptance.high} % of its nominal concentration.
+            </Alert.Description>
+          </Alert.Content>
+        </Alert.Root>
+      ) : (
+        <Alert.Root status="error" variant="surface">
+          <Alert.Indicator />
+          <Alert.Content>
+            <Alert.Title>The run {saved} rejected: its results are not reportable</Alert.Title>
+            <Alert.Description>
+              <List.Root ps="4">
+                {rejectionReasons.map((reason) => (
+                  <List.Item key={reason}>{reason}</List.Item>
+                ))}
+              </List.Root>
+            </Alert.Description>
+          </Alert.Content>
+        </Alert.Root>
+      )}
+
+      <Section title="Calibration">
+        <DataList.Root orientation="horizontal" size="sm">
+          <DataList.Item>
+            <DataList.ItemLabel>Equation</DataList.ItemLabel>
+            <DataList.ItemValue>
+              {equation(result)} ({units.y} against {units.x})
+            </DataList.ItemValue>
+          </DataList.Item>
+          {calibration?.r2 !== null && calibration?.r2 !== undefined && (
+            <DataList.Item>
+              <DataList.ItemLabel>R² and residual SD</DataList.ItemLabel>
+              <DataList.ItemValue>
+                {formatNumber(calibration.r2, 5)}; {formatNumber(calibration.sYX, 3)} {units.y}
+              </DataList.ItemValue>
+            </DataList.Item>
+          )}
+          <DataList.Item>
+            <DataList.ItemLabel>From the validation</DataList.ItemLabel>
+            <DataList.ItemValue>
+              LOD {formatNumber(validation.lod, 3)} {units.x}, LOQ {formatNumber(validation.loq, 3)} {units.x}
+              {range ? `, validated range ${formatNumber(range.low, 4)} to ${formatNumber(range.high, 4)} ${units.x}` : ''} ({validation.studyTitle})
+            </DataList.ItemValue>
+          </DataList.Item>
+        </DataList.Root>
+        <Box borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p="3">
+          <RunPlot data={data} result={result} units={units} />
+        </Box>
+      </Section>
+
+      <Section title="Samples">
+        <ResultsTable unknowns={result.unknowns} xUnit={units.x} yUnit={units.y} confidence={result.confidence} />
+        <Text fontSize="sm" color="fg.muted">
+          Concentrations include the dilution factor. Limits and the validated range apply to the measured solution, before dilution.
+          {calibration?.sYX === null ? ' One- and two-point calibrations have no residual spread, so their results carry no interval.' : ''}
+        </Text>
+      </Section>
+
+      {result.onePointBias && (
+        <Section title="What the one-point line costs">
+          <OnePointBiasTable bias={result.onePointBias} unit={units.x} />
+        </Section>
+      )}
+
+      <Section title="Check standards">
+        <ChecksTable checks={result.checks} xUnit={units.x} yUnit={units.y} />
+      </Section>
+
+      <Text fontSize="sm" color="fg.muted">
+        {RUN_CAUTION}
+      </Text>
+    </Stack>
+  );
+}

@@ -1,0 +1,32 @@
+import { Link, Stack, Text } from '@chakra-ui/react';
+import { Link as RouterLink } from 'react-router';
+import { dataTableColumns } from '@/components/data-table';
+import { formatNumber, MODEL_LABELS } from '@/components/study-results';
+import { paths } from '@/lib/config/paths';
+import { formatDateTime } from '@/lib/format';
+import type { RunSummary } from '../api/types';
+import { RunStatusBadge } from './run-status-badge';
+
+const column = dataTableColumns<RunSummary>();
+
+export const runsColumns = column.columns([
+  column.accessor('title', {
+    header: 'Run',
+    cell: (info) => (
+      <Stack gap="0">
+        <Link asChild fontWeight="600" color="brand.fg">
+          <RouterLink to={paths.runDetail.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
+        </Link>
+        <Text fontSize="sm" color="fg.muted">
+          {info.row.original.method.name}, version {info.row.original.versionNumber}
+        </Text>
+      </Stack>
+    ),
+  }),
+  column.accessor('status', { header: 'Status', cell: (info) => <RunStatusBadge status={info.getValue()} /> }),
+  column.accessor('model', { header: 'Calibration', cell: (info) => MODEL_LABELS[info.getValue()] ?? info.getValue() }),
+  column.accessor('unknownCount', { header: 'Samples', meta: { align: 'end' } }),
+  column.accessor('slope', { header: 'Slope', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
+  column.accessor((run) => run.author.name, { id: 'author', header: 'Analyst' }),
+  column.accessor('createdAt', { header: 'Created', meta: { align: 'end' }, cell: (info) => formatDateTime(info.getValue()) }),
+]);
