@@ -18,7 +18,8 @@ export default defineConfig({
   workers: 1,
   fullyParallel: false,
   reporter: 'list',
-  timeout: 60_000,
+  // Generous: the machine running the tests may be busy with builds of its own.
+  timeout: 120_000,
   expect: { timeout: 10_000 },
   use: {
     baseURL: BASE_URL,

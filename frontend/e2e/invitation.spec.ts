@@ -4,6 +4,7 @@ import { mainNavigation, signIn, signOut } from './support';
 const invitee = { email: 'noor.haddad@riverbend-lab.test', name: 'Noor Haddad', password: 'titration at dawn 42' };
 
 test('an administrator invites an analyst, who sets up the account from the e-mailed link', async ({ page }) => {
+  test.slow();
   await signIn(page, 'admin@meritline.test');
   await mainNavigation(page).getByRole('link', { name: 'Users' }).click();
   await expect(page.getByRole('table', { name: 'Users' })).toBeVisible();

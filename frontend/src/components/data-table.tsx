@@ -47,6 +47,8 @@ export interface DataTableProps<TData extends RowData> {
   columns: DataTableColumns<TData>;
   data: readonly TData[] | undefined;
   getRowId?: (row: TData) => string;
+  /** Highlights the row whose id (from `getRowId`) is shown in a detail view beside the table. */
+  selectedRowId?: string;
   isLoading?: boolean;
   emptyTitle?: string;
   emptyDescription?: ReactNode;
@@ -64,6 +66,7 @@ export function DataTable<TData extends RowData>({
   columns,
   data,
   getRowId,
+  selectedRowId,
   isLoading = false,
   emptyTitle = 'Nothing here yet',
   emptyDescription,
@@ -146,7 +149,11 @@ export function DataTable<TData extends RowData>({
               </Table.Row>
             ) : (
               rows.map((row) => (
-                <Table.Row key={row.id}>
+                <Table.Row
+                  key={row.id}
+                  aria-current={row.id === selectedRowId ? 'true' : undefined}
+                  css={{ '&[aria-current=true]': { bg: 'brand.subtle' } }}
+                >
                   {row.getAllCells().map((cell) => (
                     <Table.Cell key={cell.id} textAlign={cell.column.columnDef.meta?.align === 'end' ? 'end' : 'start'} py="3">
                       <table.FlexRender cell={cell} />

@@ -78,7 +78,7 @@ export default function OverviewPage() {
           </SimpleGrid>
         </Stack>
 
-        <Alert.Root status="info" variant="surface" maxW="4xl">
+        <Alert.Root status="info" colorPalette="accent" variant="surface" maxW="4xl">
           <Alert.Indicator />
           <Alert.Content>
             <Alert.Title>Before results leave the laboratory</Alert.Title>

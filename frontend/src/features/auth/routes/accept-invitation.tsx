@@ -17,7 +17,7 @@ export default function AcceptInvitationPage() {
   return (
     <AuthLayout
       title="Set up your account"
-      intro="You were invited to Meritline. Check your name as colleagues will see it on reviews and reports, and choose a password."
+      intro="You were invited to Meritline. Enter your name as colleagues will see it on reviews and reports, and choose a password."
     >
       {token ? (
         <Form

@@ -14,18 +14,32 @@ const column = dataTableColumns<OutboxMessageDto>();
 
 const outboxColumns = column.columns([
   column.accessor('subject', {
-    header: 'Subject',
+    header: 'E-mail',
     cell: (info) => (
-      <Link asChild color="brand.fg" fontWeight="500">
-        <RouterLink to={paths.outboxMessage.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
-      </Link>
+      <Stack gap="0.5">
+        <Link asChild color="brand.fg" fontWeight="500">
+          <RouterLink to={paths.outboxMessage.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
+        </Link>
+        <Text fontSize="sm" color="fg.muted" wordBreak="break-all">
+          To {info.row.original.to.join(', ')}
+        </Text>
+      </Stack>
     ),
   }),
-  column.accessor((message) => message.to.join(', '), { id: 'to', header: 'To' }),
   column.accessor('receivedAt', {
     header: 'Sent',
     meta: { align: 'end' },
-    cell: (info) => formatDateTime(info.getValue()),
+    cell: (info) => {
+      const sent = new Date(info.getValue());
+      return (
+        <Stack gap="0" fontSize="sm" whiteSpace="nowrap" title={formatDateTime(info.getValue())}>
+          <Text as="span">{sent.toLocaleDateString()}</Text>
+          <Text as="span" color="fg.muted">
+            {sent.toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })}
+          </Text>
+        </Stack>
+      );
+    },
   }),
 ]);
 
@@ -49,12 +63,13 @@ export default function OutboxPage() {
       {outbox.isError ? (
         <QueryError error={outbox.error} onRetry={() => void outbox.refetch()} />
       ) : (
-        <Grid templateColumns={{ base: '1fr', xl: messageId ? 'minmax(0, 1fr) minmax(0, 1fr)' : '1fr' }} gap="6" alignItems="start">
+        <Grid templateColumns={{ base: '1fr', xl: messageId ? 'minmax(0, 2fr) minmax(0, 3fr)' : '1fr' }} gap="6" alignItems="start">
           <DataTable
             label="Sent e-mails"
             columns={outboxColumns}
             data={outbox.data}
             getRowId={(message) => message.id}
+            selectedRowId={messageId}
             isLoading={outbox.isPending}
             pageSize={20}
             emptyTitle="No e-mails sent yet"

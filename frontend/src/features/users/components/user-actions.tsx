@@ -1,4 +1,4 @@
-import { Button, CloseButton, Dialog, HStack, Portal } from '@chakra-ui/react';
+import { Button, CloseButton, Dialog, HStack, Portal, Text } from '@chakra-ui/react';
 import type { UserDto } from '@meritline/shared';
 import { useState } from 'react';
 import { Form } from '@/components/form/form';
@@ -10,37 +10,95 @@ import { RoleCheckboxes } from './role-checkboxes';
 
 export function UserActions({ user }: { user: UserDto }) {
   const { user: me } = useSession();
-  const setActive = useUpdateUser();
   const isMe = me?.id === user.id;
-
-  const toggleActive = () =>
-    setActive.mutate(
-      { id: user.id, changes: { active: !user.active } },
-      {
-        onSuccess: (updated) =>
-          toaster.create({
-            type: 'success',
-            title: updated.active ? `${updated.name} can sign in again` : `${updated.name} can no longer sign in`,
-          }),
-      },
-    );
 
   return (
     <HStack gap="2" justify="flex-end">
       <EditUserDialog user={user} />
-      <Button
-        size="xs"
-        variant="ghost"
-        colorPalette={user.active ? 'red' : 'brand'}
-        onClick={toggleActive}
-        loading={setActive.isPending}
-        disabled={isMe}
-        title={isMe ? 'You cannot deactivate your own account' : undefined}
-        aria-label={`${user.active ? 'Deactivate' : 'Reactivate'} ${user.name}`}
-      >
-        {user.active ? 'Deactivate' : 'Reactivate'}
-      </Button>
+      {user.active ? <DeactivateDialog user={user} disabled={isMe} /> : <ReactivateButton user={user} />}
     </HStack>
+  );
+}
+
+const announce = (user: UserDto) =>
+  toaster.create({
+    type: 'success',
+    title: user.active ? `${user.name} can sign in again` : `${user.name} can no longer sign in`,
+  });
+
+function ReactivateButton({ user }: { user: UserDto }) {
+  const reactivate = useUpdateUser();
+  return (
+    <Button
+      size="xs"
+      variant="ghost"
+      loading={reactivate.isPending}
+      aria-label={`Reactivate ${user.name}`}
+      onClick={() => reactivate.mutate({ id: user.id, changes: { active: true } }, { onSuccess: announce })}
+    >
+      Reactivate
+    </Button>
+  );
+}
+
+/** Deactivation locks a colleague out at once, so it asks first. */
+function DeactivateDialog({ user, disabled }: { user: UserDto; disabled: boolean }) {
+  const [open, setOpen] = useState(false);
+  const deactivate = useUpdateUser();
+
+  return (
+    <Dialog.Root open={open} onOpenChange={(event) => setOpen(event.open)} role="alertdialog" size="sm">
+      <Dialog.Trigger asChild>
+        <Button
+          size="xs"
+          variant="ghost"
+          colorPalette="red"
+          disabled={disabled}
+          title={disabled ? 'You cannot deactivate your own account' : undefined}
+          aria-label={`Deactivate ${user.name}`}
+        >
+          Deactivate
+        </Button>
+      </Dialog.Trigger>
+      <Portal>
+        <Dialog.Backdrop />
+        <Dialog.Positioner>
+          <Dialog.Content>
+            <Dialog.Header>
+              <Dialog.Title>Deactivate {user.name}?</Dialog.Title>
+            </Dialog.Header>
+            <Dialog.Body>
+              <Text>
+                {user.name} can no longer sign in. Their studies, reviews and signatures stay in the record. You can reactivate the
+                account later.
+              </Text>
+            </Dialog.Body>
+            <Dialog.Footer>
+              <Dialog.ActionTrigger asChild>
+                <Button variant="outline">Cancel</Button>
+              </Dialog.ActionTrigger>
+              <Button
+                colorPalette="red"
+                loading={deactivate.isPending}
+                onClick={() =>
+                  deactivate.mutate(
+                    { id: user.id, changes: { active: false } },
+                    {
+                      onSuccess: (updated) => {
+                        setOpen(false);
+                        announce(updated);
+                      },
+                    },
+                  )
+                }
+              >
+                Deactivate
+              </Button>
+            </Dialog.Footer>
+          </Dialog.Content>
+        </Dialog.Positioner>
+      </Portal>
+    </Dialog.Root>
   );
 }
 

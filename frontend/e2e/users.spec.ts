@@ -1,0 +1,40 @@
+import { expect, test } from '@playwright/test';
+import { DEMO_PASSWORD, mainNavigation, signIn, signOut } from './support';
+
+test('an administrator deactivates an account after confirming, and reactivates it', async ({ page }) => {
+  await signIn(page, 'admin@meritline.test');
+  await mainNavigation(page).getByRole('link', { name: 'Users' }).click();
+  const row = page.getByRole('row', { name: /Tomasz Weber/ });
+
+  await row.getByRole('button', { name: 'Deactivate Tomasz Weber' }).click();
+  const confirm = page.getByRole('alertdialog', { name: 'Deactivate Tomasz Weber?' });
+  await confirm.getByRole('button', { name: 'Deactivate' }).click();
+  await expect(confirm).toBeHidden();
+  await expect(row).toContainText('Deactivated');
+
+  // Their own row offers no way to lock themselves out.
+  await expect(page.getByRole('row', { name: /Sam Okafor/ }).getByRole('button', { name: /Deactivate/ })).toBeDisabled();
+
+  await signOut(page);
+  await signIn(page, 'analyst2@meritline.test', DEMO_PASSWORD);
+  await expect(page.getByRole('alert')).toBeVisible();
+  await expect(page).toHaveURL(/\/sign-in$/);
+
+  await signIn(page, 'admin@meritline.test');
+  await mainNavigation(page).getByRole('link', { name: 'Users' }).click();
+  await page.getByRole('row', { name: /Tomasz Weber/ }).getByRole('button', { name: 'Reactivate Tomasz Weber' }).click();
+  await expect(page.getByRole('row', { name: /Tomasz Weber/ })).toContainText('Active');
+});
+
+test('the colours switch to dark and stay so after a reload', async ({ page }) => {
+  await signIn(page, 'admin@meritline.test');
+  await mainNavigation(page).getByRole('link', { name: 'Users' }).click();
+  await page.getByRole('button', { name: 'Use dark colours' }).click();
+  await expect(page.locator('html')).toHaveClass(/dark/);
+  await page.reload();
+  await expect(page.locator('html')).toHaveClass(/dark/);
+  await expect(page.getByRole('table', { name: 'Users' })).toBeVisible();
+  await page.screenshot({ path: 'test-output/screenshots/users-dark.png' });
+  await page.getByRole('button', { name: 'Use light colours' }).click();
+  await expect(page.locator('html')).not.toHaveClass(/dark/);
+});
