@@ -17,6 +17,7 @@ import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { MethodsModule } from './methods/methods.module.js';
 import { NotificationsModule } from './notifications/notifications.module.js';
+import { ReportsModule } from './reports/reports.module.js';
 import { ReviewsModule } from './reviews/reviews.module.js';
 import { RunsModule } from './runs/runs.module.js';
 import { StudiesModule } from './studies/studies.module.js';
@@ -40,6 +41,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     EvaluateModule,
     NotificationsModule,
     ReviewsModule,
+    ReportsModule,
     RunsModule,
   ],
   providers: [

@@ -147,7 +147,7 @@ export class PdfComposer {
     const before = level === 1 ? 16 : level === 2 ? 12 : 8;
     const height = this.heightOf(text, this.width, { size, weight: 'semibold' });
     if (this.doc.y > margins.top + 1) this.space(before);
-    this.ensureSpace(height + 70);
+    this.ensureSpace(height + 100);
     const top = this.doc.y;
     this.textAt(text, this.left, top, this.width, { size, weight: 'semibold', color: colors.spruce });
     this.doc.y = top + height + (level === 1 ? 4 : 3);
@@ -171,7 +171,7 @@ export class PdfComposer {
 
   /** A label above a block in small capitals, e.g. the laboratory name on a cover. */
   label(text: string, color: string = colors.muted): this {
-    return this.paragraph(text.toUpperCase(), { size: sizes.small, weight: 'semibold', color, characterSpacing: 0.8, gap: 2 });
+    return this.paragraph(text.toUpperCase(), { size: sizes.small, weight: 'semibold', color, characterSpacing: 0.3, gap: 2 });
   }
 
   bullets(items: string[], style: TextStyle = {}): this {

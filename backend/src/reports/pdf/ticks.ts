@@ -1,10 +1,8 @@
-/** A "nice" number near `range`: 1, 2 or 5 times a power of ten (Heckbert, Graphics Gems, 1990). */
-function niceNumber(range: number, round: boolean): number {
-  const exponent = Math.floor(Math.log10(range));
-  const fraction = range / 10 ** exponent;
-  const nice = round
-    ? fraction < 1.5 ? 1 : fraction < 3 ? 2 : fraction < 7 ? 5 : 10
-    : fraction <= 1 ? 1 : fraction <= 2 ? 2 : fraction <= 5 ? 5 : 10;
+/** The "nice" number nearest `value`: 1, 2 or 5 times a power of ten (Heckbert, Graphics Gems, 1990). */
+function niceNumber(value: number): number {
+  const exponent = Math.floor(Math.log10(value));
+  const fraction = value / 10 ** exponent;
+  const nice = fraction < 1.5 ? 1 : fraction < 3 ? 2 : fraction < 7 ? 5 : 10;
   return nice * 10 ** exponent;
 }
 
@@ -25,7 +23,7 @@ export function niceTicks(min: number, max: number, target = 6): AxisTicks {
     return niceTicks(min - pad, max + pad, target);
   }
   if (min > max) return niceTicks(max, min, target);
-  const step = niceNumber(niceNumber(max - min, false) / Math.max(1, target - 1), true);
+  const step = niceNumber((max - min) / Math.max(1, target - 1));
   const lo = Math.floor(min / step + 1e-9) * step;
   const hi = Math.ceil(max / step - 1e-9) * step;
   const decimals = Math.max(0, -Math.floor(Math.log10(step) + 1e-9));

@@ -1,0 +1,31 @@
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+
+/** The answer to "is this file a report we issued, unchanged?" */
+export class ReportVerificationDto {
+  @ApiProperty({ description: 'True only for a byte-identical copy of an issued report.' })
+  valid: boolean;
+
+  @ApiPropertyOptional({ description: 'Why the file is not a valid report (only when valid is false).' })
+  reason?: string;
+
+  @ApiPropertyOptional({ format: 'uuid' })
+  studyId?: string;
+
+  @ApiPropertyOptional()
+  studyTitle?: string;
+
+  @ApiPropertyOptional({ format: 'uuid' })
+  reportId?: string;
+
+  @ApiPropertyOptional()
+  methodName?: string;
+
+  @ApiPropertyOptional({ description: 'Method version number.' })
+  methodVersion?: number;
+
+  @ApiPropertyOptional({ format: 'date-time' })
+  signedAt?: string;
+
+  @ApiPropertyOptional({ description: 'SHA-256 of the report file (hex).' })
+  sha256?: string;
+}

@@ -1,0 +1,40 @@
+import { BadRequestException, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Res, StreamableFile, UploadedFile, UseInterceptors } from '@nestjs/common';
+import { FileInterceptor } from '@nestjs/platform-express';
+import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { Throttle } from '@nestjs/throttler';
+import type { Response } from 'express';
+import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
+import { Public } from '../common/decorators/public.decorator.js';
+import { ReportVerificationDto } from './dto/report-verification.dto.js';
+import { ReportsService, type ReportVerification } from './reports.service.js';
+
+export const MAX_VERIFY_UPLOAD_BYTES = 20 * 1024 * 1024;
+
+@ApiTags('reports')
+@Controller()
+export class ReportsController {
+  constructor(private readonly reports: ReportsService) {}
+
+  @Get('studies/:id/report')
+  @ApiBearerAuth()
+  @ApiProduces('application/pdf')
+  @ApiOkResponse({ description: 'The signed report of an approved study (always the same bytes), or an unsigned draft preview.', schema: { type: 'string', format: 'binary' } })
+  async download(@Param('id', ParseUUIDPipe) id: string, @CurrentUser() user: AuthUser, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    const file = await this.reports.reportFile(id, user);
+    res.setHeader('Cache-Control', 'private, no-store');
+    return new StreamableFile(file.pdf, { type: 'application/pdf', disposition: `attachment; filename="${file.fileName}"`, length: file.pdf.length });
+  }
+
+  @Public()
+  @Post('reports/verify')
+  @HttpCode(200)
+  @Throttle({ default: { limit: 30, ttl: 60_000 } })
+  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_VERIFY_UPLOAD_BYTES, files: 1 } }))
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({ schema: { type: 'object', required: ['file'], properties: { file: { type: 'string', format: 'binary', description: 'The PDF to check (at most 20 MB).' } } } })
+  @ApiOkResponse({ type: ReportVerificationDto })
+  verify(@UploadedFile() file: Express.Multer.File | undefined): Promise<ReportVerification> {
+    if (!file) throw new BadRequestException('Attach the PDF to check as the form field "file".');
+    return this.reports.verify(file.buffer);
+  }
+}

@@ -1,0 +1,106 @@
+import type { OutlierFlag } from '@meritline/shared';
+import { formatDateTime, formatLevel, formatNumber, NOT_AVAILABLE, type PdfComposer, type TableRow } from '../pdf/index.js';
+import type { ReportContent } from '../report-content.js';
+import { notEvaluated, plural, sectionWarnings, xUnit, yUnit } from './common.js';
+
+const TEST_WORDS: Record<OutlierFlag['test'], string> = {
+  grubbs: 'Grubbs (two-sided)',
+  dixon: 'Dixon r10',
+  cochran: 'Cochran C',
+  standardizedResidual: 'Standardised residual',
+};
+
+const SET_WORDS: Record<string, string> = { standards: 'standard', blanks: 'blank', recovery: 'spiked sample', precision: 'precision result', unknowns: 'sample' };
+
+type Exclusion = ReportContent['exclusions'][number];
+
+function pointOf(text: string): { set: string; index: number } | null {
+  const match = /(standards|blanks|recovery|precision|unknowns)(?:\[|\.)(\d+)/.exec(text);
+  return match ? { set: match[1], index: Number(match[2]) } : null;
+}
+
+function describeChange(entry: Exclusion): string {
+  const point = pointOf(JSON.stringify(entry.changes ?? {}));
+  const what = point ? `${SET_WORDS[point.set]} ${point.index + 1}` : Object.keys(entry.changes ?? {}).join(', ') || 'a point';
+  return entry.action.endsWith('excluded') ? `excluded ${what}` : `${entry.action.replace(/^study\.point-/, '')} ${what}`;
+}
+
+function reasonOf(entry: Exclusion): string {
+  if (entry.reason) return entry.reason;
+  for (const change of Object.values(entry.changes ?? {})) {
+    const to = change?.to as { reason?: unknown } | null;
+    if (to && typeof to === 'object' && typeof to.reason === 'string') return to.reason;
+  }
+  return NOT_AVAILABLE;
+}
+
+function exclusions(pdf: PdfComposer, content: ReportContent): void {
+  pdf.heading('5.2  Excluded points', 2);
+  const excluded = content.study.result?.calibration?.excluded ?? [];
+  const recordOf = (index: number) =>
+    [...content.exclusions].reverse().find((entry) => {
+      const point = pointOf(JSON.stringify(entry.changes ?? {}));
+      return entry.action.endsWith('excluded') && point?.set === 'standards' && point.index === index;
+    });
+  if (!excluded.length) {
+    pdf.paragraph('No point is excluded: every standard enters the fit.');
+  } else {
+    pdf.table({
+      columns: [
+        { header: 'Standard', width: 0.7, align: 'right' },
+        { header: `x (${xUnit(content)})`, width: 0.9, align: 'right' },
+        { header: `Response (${yUnit(content)})`, width: 1.1, align: 'right' },
+        { header: 'Reason given', width: 2.4 },
+        { header: 'Excluded by', width: 1.1 },
+        { header: 'When', width: 1.5 },
+      ],
+      rows: excluded.map((p) => {
+        const record = recordOf(p.index);
+        return [String(p.index + 1), formatLevel(p.x), formatNumber(p.y, 5), p.reason, record?.actorName ?? 'not in the audit trail', record ? formatDateTime(record.at) : NOT_AVAILABLE];
+      }),
+      note: 'Excluded points stay in the study data and in the plots (hollow markers) but enter no computation.',
+    });
+  }
+  if (content.exclusions.length) {
+    pdf.table({
+      caption: 'Exclusion history from the audit trail',
+      columns: [{ header: 'When', width: 1.5 }, { header: 'By', width: 1.2 }, { header: 'Change', width: 1.6 }, { header: 'Reason', width: 2.7 }],
+      rows: content.exclusions.map((entry) => [formatDateTime(entry.at), entry.actorName, describeChange(entry), reasonOf(entry)]),
+    });
+  }
+}
+
+export function outliersSection(pdf: PdfComposer, content: ReportContent): void {
+  pdf.heading('5  Outliers and exclusions');
+  const result = content.study.result;
+  pdf.heading('5.1  Outlier tests', 2);
+  const flags = result?.outliers;
+  if (!result || !flags) {
+    notEvaluated(pdf, result, ['outliers']);
+  } else {
+    const flagged = flags.filter((f) => f.outlier).length;
+    pdf.paragraph(
+      `${plural(flags.length, 'test')} on the replicate sets; ${flagged === 0 ? 'none flags a value' : `${plural(flagged, 'test')} flag a value`}. ` +
+        'Tests only flag: no value was removed because of a test. Points are excluded only by a person, with a reason (section 5.2).',
+    );
+    const rows: TableRow[] = flags.map((f) => ({
+      cells: [f.set, TEST_WORDS[f.test] ?? f.test, formatNumber(f.value, 5), formatNumber(f.statistic, 3), formatNumber(f.critical, 3), f.outlier ? 'Outlier' : 'No outlier'],
+      bold: f.outlier,
+      shaded: f.outlier,
+    }));
+    pdf.table({
+      columns: [
+        { header: 'Set of values', width: 1.8 },
+        { header: 'Test', width: 1.4 },
+        { header: 'Most extreme value', width: 1.2, align: 'right' },
+        { header: 'Statistic', width: 0.9, align: 'right' },
+        { header: 'Critical value', width: 0.9, align: 'right' },
+        { header: 'Flag', width: 0.9, align: 'center' },
+      ],
+      rows,
+      note: 'Grubbs, Dixon and Cochran tests (ISO 5725-2) at the 5 % significance level; standardised residuals flag beyond 3. A flag asks for a look at the laboratory records, not for removal.',
+    });
+    sectionWarnings(pdf, result, ['outliers']);
+  }
+  exclusions(pdf, content);
+}

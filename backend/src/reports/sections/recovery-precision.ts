@@ -1,0 +1,126 @@
+import type { EvaluationResult, RecoveryGroup } from '@meritline/shared';
+import { formatFixed, formatInteger, formatInterval, formatNumber, formatPercent, formatPValue, NOT_AVAILABLE, withUnit, type PdfComposer, type TableRow } from '../pdf/index.js';
+import type { ReportContent } from '../report-content.js';
+import { confidenceWords, notEvaluated, sectionWarnings, xUnit } from './common.js';
+
+function groupRow(group: RecoveryGroup, label: string): string[] {
+  const bias = group.significant === null ? NOT_AVAILABLE : group.significant ? 'Yes' : 'No';
+  return [
+    label,
+    String(group.n),
+    formatPercent(group.meanPct),
+    formatPercent(group.sdPct),
+    formatPercent(group.rsdPct),
+    formatInterval(group.ci, (v) => formatFixed(v, 1)),
+    formatNumber(group.t, 3),
+    formatPValue(group.p),
+    bias,
+  ];
+}
+
+function recovery(pdf: PdfComposer, content: ReportContent, result: EvaluationResult): void {
+  pdf.heading('4.1  Recovery', 2);
+  const r = result.recovery;
+  if (!r) {
+    notEvaluated(pdf, result, ['recovery']);
+    return;
+  }
+  const x = xUnit(content);
+  const items = content.study.data.recovery ?? [];
+  pdf.table({
+    caption: 'Spiked samples',
+    columns: [
+      { header: 'Sample', width: 1.2 },
+      { header: 'Level', width: 0.9 },
+      { header: `Added (${x})`, align: 'right' },
+      { header: `Native (${x})`, align: 'right' },
+      { header: `Found (${x})`, align: 'right' },
+      { header: 'Recovery %', align: 'right' },
+    ],
+    rows: r.items.map((item, i) => {
+      const input = items.find((candidate) => candidate.id === item.id) ?? items[i];
+      return [item.id, item.level ?? NOT_AVAILABLE, input ? String(input.added) : NOT_AVAILABLE, input ? String(input.native ?? 0) : NOT_AVAILABLE, input ? String(input.found) : NOT_AVAILABLE, formatPercent(item.pct)];
+    }),
+    note: 'Recovery % = 100 (found - native) / added.',
+  });
+  const rows: TableRow[] = r.byLevel.map((g) => ({ cells: groupRow(g, g.level ?? NOT_AVAILABLE) }));
+  rows.push({ cells: groupRow(r.overall, 'All levels'), bold: true, shaded: true });
+  pdf.table({
+    caption: 'Recovery by level',
+    columns: [
+      { header: 'Level', width: 1.1 },
+      { header: 'n', width: 0.45, align: 'right' },
+      { header: 'Mean %', width: 0.8, align: 'right' },
+      { header: 'SD %', width: 0.7, align: 'right' },
+      { header: 'RSD %', width: 0.7, align: 'right' },
+      { header: `${confidenceWords(result)} interval %`, width: 1.5, align: 'right' },
+      { header: 't', width: 0.7, align: 'right' },
+      { header: 'p', width: 0.7, align: 'right' },
+      { header: 'Bias?', width: 0.7, align: 'center' },
+    ],
+    rows,
+    note: `t tests the mean recovery against 100 % (two-sided); "Bias? Yes" means the mean differs significantly from 100 % at the ${confidenceWords(result)} level.`,
+  });
+  sectionWarnings(pdf, result, ['recovery']);
+}
+
+function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationResult): void {
+  pdf.heading('4.2  Precision', 2);
+  const p = result.precision;
+  if (!p) {
+    notEvaluated(pdf, result, ['precision']);
+    return;
+  }
+  const x = xUnit(content);
+  pdf.table({
+    caption: 'Series',
+    columns: [{ header: 'Series', width: 1.6 }, { header: 'n', width: 0.5, align: 'right' }, { header: `Mean (${x})`, align: 'right' }, { header: `SD (${x})`, align: 'right' }],
+    rows: p.series.map((s) => [s.group, String(s.n), formatNumber(s.mean, 5), formatNumber(s.sd, 3)]),
+  });
+  const total = (p.ssBetween ?? 0) + p.ssWithin;
+  const rows: TableRow[] = [
+    { cells: ['Between series', formatInteger(p.dfBetween), formatNumber(p.ssBetween, 4), formatNumber(p.msBetween, 4), formatNumber(p.F, 4), formatPValue(p.p)] },
+    { cells: ['Within series', formatInteger(p.dfWithin), formatNumber(p.ssWithin, 4), formatNumber(p.msWithin, 4), '', ''] },
+    { cells: ['Total', formatInteger(p.N - 1), formatNumber(total, 4), '', '', ''], bold: true },
+  ];
+  pdf.table({
+    caption: 'One-way analysis of variance (ISO 5725-2)',
+    columns: [
+      { header: 'Source', width: 1.4 },
+      { header: 'df', width: 0.5, align: 'right' },
+      { header: 'Sum of squares', width: 1.2, align: 'right' },
+      { header: 'Mean square', width: 1.2, align: 'right' },
+      { header: 'F', width: 0.9, align: 'right' },
+      { header: 'p', width: 0.8, align: 'right' },
+    ],
+    rows,
+  });
+  const pairs: [string, string][] = [
+    ['Results', `N = ${p.N} in k = ${p.k} series; grand mean ${withUnit(formatNumber(p.grandMean, 5), x)}${p.n0 === null ? '' : `; n0 = ${formatNumber(p.n0, 3)}`}`],
+    ['Repeatability', `s_r = ${withUnit(formatNumber(p.sR, 3), x)}, RSD_r = ${p.rsdR === null ? NOT_AVAILABLE : `${formatPercent(p.rsdR)} %`}`],
+    ['Between-series SD', p.sBetween === null ? NOT_AVAILABLE : withUnit(formatNumber(p.sBetween, 3), x)],
+    ['Intermediate precision', `s_I = ${withUnit(formatNumber(p.sI, 3), x)}, RSD_I = ${p.rsdI === null ? NOT_AVAILABLE : `${formatPercent(p.rsdI)} %`}`],
+  ];
+  if (p.horwitz) {
+    pairs.push([
+      'Horwitz',
+      `mass fraction ${formatNumber(p.horwitz.massFraction, 3)}; predicted RSD_R = ${formatPercent(p.horwitz.predictedRsd)} % (2^(1 - 0.5 log10 C), Horwitz 1980); ` +
+        `HorRat = RSD_I / PRSD_R = ${formatFixed(p.horwitz.horRat, 2)}; repeatability HorRat = ${formatFixed(p.horwitz.horRatRepeatability, 2)}`,
+    ]);
+  } else {
+    pairs.push(['Horwitz', 'not evaluated: the study gives no mass fraction']);
+  }
+  pdf.keyValues(pairs, { labelWidth: 130 });
+  sectionWarnings(pdf, result, ['precision']);
+}
+
+export function recoveryPrecisionSection(pdf: PdfComposer, content: ReportContent): void {
+  pdf.heading('4  Recovery and precision');
+  const result = content.study.result;
+  if (!result) {
+    notEvaluated(pdf, result, ['recovery', 'precision']);
+    return;
+  }
+  recovery(pdf, content, result);
+  precision(pdf, content, result);
+}
