@@ -23,6 +23,7 @@ export function reportFileName(methodName: string, versionNumber: number, report
     methodName
       .normalize('NFKD')
       .replace(/[\u0300-\u036f]/g, '')
+      .replace(/ß/g, 'ss')
       .toLowerCase()
       .replace(/[^a-z0-9]+/g, '-')
       .slice(0, 60)
