@@ -19,12 +19,17 @@ const sirstv = reference('nist_strd_anova_sirstv.json');
 
 const CLI = fileURLToPath(new URL('../../shared/dist/cli.js', import.meta.url));
 const pairs = (x: number[], y: number[]) => x.map((xi, i) => ({ x: xi, y: y[i] }));
-const close = (actual: number, expected: number, relative = 1e-9) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(Math.abs(expected) * relative);
+const close = (actual: number, expected: number, relative = 1e-9) =>
+  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(Math.abs(expected) * relative);
 
 describe('POST /api/evaluate', () => {
   let t: TestApp;
   const evaluate = async (body: unknown, email: string = DEMO.reviewer) =>
-    t.http().post('/api/evaluate').set('Authorization', `Bearer ${await t.tokenFor(email)}`).send(body as object);
+    t
+      .http()
+      .post('/api/evaluate')
+      .set('Authorization', `Bearer ${await t.tokenFor(email)}`)
+      .send(body as object);
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -36,7 +41,13 @@ describe('POST /api/evaluate', () => {
   });
 
   it('should reproduce the Miller & Miller fluorescence example: line, intervals, detection limits and inverse prediction', async () => {
-    const res = await evaluate({ standards: pairs(miller.data.x, miller.data.y), unknowns: [{ id: 'y0 = 13.5', y: [13.5] }, { id: 'y0 = 2.9', y: [2.9, 2.9, 2.9] }] });
+    const res = await evaluate({
+      standards: pairs(miller.data.x, miller.data.y),
+      unknowns: [
+        { id: 'y0 = 13.5', y: [13.5] },
+        { id: 'y0 = 2.9', y: [2.9, 2.9, 2.9] },
+      ],
+    });
     expect(res.status).toBe(200);
     const { calibration, detection, unknowns } = res.body;
     const c = miller.computed;
@@ -54,8 +65,12 @@ describe('POST /api/evaluate', () => {
     close(detection.sdResidual.loq, c['ICH_QL 10 s_y/x / b']);
     close(detection.sdIntercept.lod, c['ICH_DL 3.3 s_a / b (sigma = SE of intercept)']);
     // Inverse prediction x0 = (y0 − a)/b and its standard deviation s_x0 (m = 1 and m = 3 readings).
-    const one = c.inverse_prediction.find((p: { y0: number; m_replicates_of_unknown: number }) => p.y0 === 13.5 && p.m_replicates_of_unknown === 1);
-    const three = c.inverse_prediction.find((p: { y0: number; m_replicates_of_unknown: number }) => p.y0 === 2.9 && p.m_replicates_of_unknown === 3);
+    const one = c.inverse_prediction.find(
+      (p: { y0: number; m_replicates_of_unknown: number }) => p.y0 === 13.5 && p.m_replicates_of_unknown === 1,
+    );
+    const three = c.inverse_prediction.find(
+      (p: { y0: number; m_replicates_of_unknown: number }) => p.y0 === 2.9 && p.m_replicates_of_unknown === 3,
+    );
     close(unknowns[0].x0, one.x0);
     close(unknowns[0].sX0, one.s_x0);
     close(unknowns[1].sX0, three.s_x0);
@@ -84,7 +99,13 @@ describe('POST /api/evaluate', () => {
   });
 
   it('should answer exactly what the command-line engine prints for the same study', async () => {
-    const study = { model: 'linear', weighting: '1/x', standards: pairs(miller.data.x, miller.data.y).slice(1), blanks: [2.0, 2.2, 1.9], criteria: [{ figure: 'calibration.r2', op: '>=', value: 0.995 }] };
+    const study = {
+      model: 'linear',
+      weighting: '1/x',
+      standards: pairs(miller.data.x, miller.data.y).slice(1),
+      blanks: [2.0, 2.2, 1.9],
+      criteria: [{ figure: 'calibration.r2', op: '>=', value: 0.995 }],
+    };
     const res = await evaluate(study);
     const dir = mkdtempSync(join(tmpdir(), 'meritline-evaluate-'));
     try {
@@ -116,7 +137,13 @@ describe('POST /api/evaluate', () => {
 
   it('should answer malformed JSON with 400 and a body over 5 MB with 413', async () => {
     const token = await t.tokenFor(DEMO.reviewer);
-    await t.http().post('/api/evaluate').set('Authorization', `Bearer ${token}`).set('Content-Type', 'application/json').send('{"standards": [').expect(400);
+    await t
+      .http()
+      .post('/api/evaluate')
+      .set('Authorization', `Bearer ${token}`)
+      .set('Content-Type', 'application/json')
+      .send('{"standards": [')
+      .expect(400);
     const big = { standards: Array.from({ length: 200_000 }, (_, i) => ({ x: i, y: i * 2.000001 })) };
     await t.http().post('/api/evaluate').set('Authorization', `Bearer ${token}`).send(big).expect(413);
   });

@@ -38,7 +38,13 @@ function completeData() {
   return {
     standards: (miller.data.x as number[]).map((x, i) => ({ x, y: miller.data.y[i] as number })),
     blanks: [2.0, 2.2, 1.9, 2.1, 2.3],
-    recovery: (spike.c_spiked as number[]).map((found, i) => ({ id: `R${i + 1}`, level: 'mid', added: spike.c_added, found, native: spike.c_unspiked })),
+    recovery: (spike.c_spiked as number[]).map((found, i) => ({
+      id: `R${i + 1}`,
+      level: 'mid',
+      added: spike.c_added,
+      found,
+      native: spike.c_unspiked,
+    })),
     precision: (sirstv.data.group as number[]).map((group, i) => ({ group: `instrument ${group}`, value: sirstv.data.value[i] as number })),
     unknowns: [{ id: 'U-1', y: [13.5] }],
   };
@@ -57,15 +63,33 @@ describe('validation studies', () => {
       db.close();
     }
   };
-  const stored = (id: string) => rows('SELECT data, data_hash, lock_version, title, status, editor_ids FROM validation_studies WHERE id = ?', id)[0];
+  const stored = (id: string) =>
+    rows('SELECT data, data_hash, lock_version, title, status, editor_ids FROM validation_studies WHERE id = ?', id)[0];
   const studyCount = () => rows('SELECT COUNT(*) AS n FROM validation_studies')[0].n;
-  const create = async (body: Row, status = 201) => t.http().post('/api/studies').set(await auth(DEMO.analyst)).send(body).expect(status);
+  const create = async (body: Row, status = 201) =>
+    t
+      .http()
+      .post('/api/studies')
+      .set(await auth(DEMO.analyst))
+      .send(body)
+      .expect(status);
 
   beforeAll(async () => {
     t = await createTestApp();
-    const methods = (await t.http().get('/api/methods').set(await auth(DEMO.analyst))).body;
-    for (const method of methods) for (const version of method.versions) versions[`${method.analyte.split(' ')[0].toLowerCase()} v${version.number}`] = version.id;
-    const page = (await t.http().get('/api/studies?pageSize=100').set(await auth(DEMO.analyst))).body;
+    const methods = (
+      await t
+        .http()
+        .get('/api/methods')
+        .set(await auth(DEMO.analyst))
+    ).body;
+    for (const method of methods)
+      for (const version of method.versions) versions[`${method.analyte.split(' ')[0].toLowerCase()} v${version.number}`] = version.id;
+    const page = (
+      await t
+        .http()
+        .get('/api/studies?pageSize=100')
+        .set(await auth(DEMO.analyst))
+    ).body;
     for (const study of page.items) seeded[study.title] = study;
   });
   afterAll(() => t.close());
@@ -73,30 +97,46 @@ describe('validation studies', () => {
   describe('GET /api/studies', () => {
     it('should refuse anonymous callers and list the demo studies for every role, without data and result but with the verdict', async () => {
       await t.http().get('/api/studies').expect(401);
-      const res = await t.http().get('/api/studies').set(await auth(DEMO.reviewer)).expect(200);
+      const res = await t
+        .http()
+        .get('/api/studies')
+        .set(await auth(DEMO.reviewer))
+        .expect(200);
       expect(res.body).toMatchObject({ total: 6, page: 1, pageSize: 20 });
       expect(res.body.items.map((s: Row) => s.title).sort()).toEqual(Object.values(TITLES).sort());
       for (const item of res.body.items) {
         expect(item).not.toHaveProperty('data');
         expect(item).not.toHaveProperty('result');
-        expect(item).toMatchObject({ method: { name: expect.any(String), xUnit: expect.any(String) }, methodVersion: { number: expect.any(Number) }, author: { name: expect.any(String) } });
+        expect(item).toMatchObject({
+          method: { name: expect.any(String), xUnit: expect.any(String) },
+          methodVersion: { number: expect.any(Number) },
+          author: { name: expect.any(String) },
+        });
       }
       const byTitle = (title: string) => res.body.items.find((s: Row) => s.title === title);
       expect(byTitle(TITLES.dye)).toMatchObject({ status: 'submitted', verdictPass: true, author: { name: 'Alma Ruiz' } });
-      expect(byTitle(TITLES.nitrateApproved)).toMatchObject({ status: 'approved', verdictPass: true, methodVersion: { number: 2, status: 'active' } });
+      expect(byTitle(TITLES.nitrateApproved)).toMatchObject({
+        status: 'approved',
+        verdictPass: true,
+        methodVersion: { number: 2, status: 'active' },
+      });
       expect(byTitle(TITLES.pesticideReturned)).toMatchObject({ status: 'returned', author: { name: 'Tomasz Weber' } });
       expect(byTitle(TITLES.pesticideDraft)).toMatchObject({ status: 'draft', verdictPass: false });
     });
 
     it('should page and sort on the server', async () => {
       const headers = await auth(DEMO.reviewer);
-      const titles = (await t.http().get('/api/studies?sort=title&order=asc&pageSize=100').set(headers).expect(200)).body.items.map((s: Row) => s.title);
+      const titles = (await t.http().get('/api/studies?sort=title&order=asc&pageSize=100').set(headers).expect(200)).body.items.map(
+        (s: Row) => s.title,
+      );
       expect(titles).toEqual([...Object.values(TITLES)].sort((a, b) => (a < b ? -1 : 1)));
       const second = await t.http().get('/api/studies?sort=title&order=asc&pageSize=2&page=2').set(headers).expect(200);
       expect(second.body).toMatchObject({ total: 6, page: 2, pageSize: 2 });
       expect(second.body.items.map((s: Row) => s.title)).toEqual(titles.slice(2, 4));
       expect((await t.http().get('/api/studies?pageSize=2&page=4').set(headers)).body.items).toEqual([]);
-      const byCreation = (await t.http().get('/api/studies?sort=createdAt&order=desc').set(headers)).body.items.map((s: Row) => s.createdAt);
+      const byCreation = (await t.http().get('/api/studies?sort=createdAt&order=desc').set(headers)).body.items.map(
+        (s: Row) => s.createdAt,
+      );
       expect(byCreation).toEqual([...byCreation].sort().reverse());
       const byUpdate = (await t.http().get('/api/studies').set(headers)).body.items.map((s: Row) => s.updatedAt);
       expect(byUpdate).toEqual([...byUpdate].sort().reverse());
@@ -145,13 +185,21 @@ describe('validation studies', () => {
     it('should refuse anonymous callers (401) and every role but analyst (403), saving nothing', async () => {
       const body = { methodVersionId: versions['tartrazine v1'], title: 'Refused', data: completeData() };
       await t.http().post('/api/studies').send(body).expect(401);
-      for (const email of [DEMO.reviewer, DEMO.quality, DEMO.admin]) await t.http().post('/api/studies').set(await auth(email)).send(body).expect(403);
+      for (const email of [DEMO.reviewer, DEMO.quality, DEMO.admin])
+        await t
+          .http()
+          .post('/api/studies')
+          .set(await auth(email))
+          .send(body)
+          .expect(403);
       expect(studyCount()).toBe(6);
     });
 
     it('should refuse a retired or unknown method version with 422 on methodVersionId', async () => {
       const retired = await create({ methodVersionId: versions['nitrate v1'], title: 'On the old column', data: completeData() }, 422);
-      expect(retired.body.errors).toEqual([{ field: 'methodVersionId', code: 'retired', message: expect.stringMatching(/retired; choose its current version/) }]);
+      expect(retired.body.errors).toEqual([
+        { field: 'methodVersionId', code: 'retired', message: expect.stringMatching(/retired; choose its current version/) },
+      ]);
       const unknown = await create({ methodVersionId: UNKNOWN_ID, title: 'Nowhere', data: completeData() }, 422);
       expect(unknown.body.errors[0]).toMatchObject({ field: 'methodVersionId', code: 'not_found' });
       expect(studyCount()).toBe(6);
@@ -160,15 +208,29 @@ describe('validation studies', () => {
     it('should answer missing fields, bad meta and malformed study data with 422 field messages, saving nothing', async () => {
       const missing = await create({}, 422);
       expect(missing.body.errors.map((e: Row) => e.field).sort()).toEqual(['data', 'methodVersionId', 'title']);
-      const badDate = await create({ methodVersionId: versions['tartrazine v1'], title: 'Dates', data: {}, meta: { startedOn: 'last Tuesday' } }, 422);
+      const badDate = await create(
+        { methodVersionId: versions['tartrazine v1'], title: 'Dates', data: {}, meta: { startedOn: 'last Tuesday' } },
+        422,
+      );
       expect(badDate.body.errors[0]).toMatchObject({ field: 'meta.startedOn', message: 'Give the date as YYYY-MM-DD.' });
-      const backwards = await create({ methodVersionId: versions['tartrazine v1'], title: 'Dates', data: {}, meta: { startedOn: '2026-11-10', finishedOn: '2026-11-02' } }, 422);
+      const backwards = await create(
+        {
+          methodVersionId: versions['tartrazine v1'],
+          title: 'Dates',
+          data: {},
+          meta: { startedOn: '2026-11-10', finishedOn: '2026-11-02' },
+        },
+        422,
+      );
       expect(backwards.body.errors[0].field).toBe('meta.finishedOn');
 
       const data = completeData();
       (data.standards[1] as Row).y = 'five';
       (data.recovery[0] as Row).added = -1;
-      const malformed = await create({ methodVersionId: versions['tartrazine v1'], title: 'Malformed', data: { ...data, model: 'cubic-spline' } }, 422);
+      const malformed = await create(
+        { methodVersionId: versions['tartrazine v1'], title: 'Malformed', data: { ...data, model: 'cubic-spline' } },
+        422,
+      );
       expect(malformed.body.errors).toEqual(
         expect.arrayContaining([
           expect.objectContaining({ field: 'model', code: 'invalid_value' }),
@@ -180,16 +242,52 @@ describe('validation studies', () => {
     });
 
     it('should keep an incomplete draft with no result and the engine’s reasons', async () => {
-      const res = await create({ methodVersionId: versions['tartrazine v1'], title: 'Just started', data: { standards: [{ x: 1, y: 0.052 }, { x: 2, y: 0.103 }] } }, 201);
-      expect(res.body).toMatchObject({ status: 'draft', result: null, resultErrors: [{ field: 'standards', code: 'too_few', message: expect.any(String) }], lockVersion: 1, engineVersion: ENGINE_VERSION });
+      const res = await create(
+        {
+          methodVersionId: versions['tartrazine v1'],
+          title: 'Just started',
+          data: {
+            standards: [
+              { x: 1, y: 0.052 },
+              { x: 2, y: 0.103 },
+            ],
+          },
+        },
+        201,
+      );
+      expect(res.body).toMatchObject({
+        status: 'draft',
+        result: null,
+        resultErrors: [{ field: 'standards', code: 'too_few', message: expect.any(String) }],
+        lockVersion: 1,
+        engineVersion: ENGINE_VERSION,
+      });
       expect(res.body.data.units).toEqual({ x: 'mg/L', y: 'AU' });
     });
 
     it('should store the server’s result, the engine version and the hash, with the method version’s criteria', async () => {
       const data = { ...completeData(), criteria: [{ figure: 'calibration.r2', op: '>=', value: 0.1 }] };
-      const res = await create({ methodVersionId: versions['tartrazine v1'], title: 'Fluorescein check', data, meta: { instrument: 'Fluorimeter 2', startedOn: '2026-11-02' } }, 201);
-      const version = (await t.http().get(`/api/method-versions/${versions['tartrazine v1']}`).set(await auth(DEMO.analyst))).body;
-      const analyst = (await t.http().get('/api/auth/me').set(await auth(DEMO.analyst))).body;
+      const res = await create(
+        {
+          methodVersionId: versions['tartrazine v1'],
+          title: 'Fluorescein check',
+          data,
+          meta: { instrument: 'Fluorimeter 2', startedOn: '2026-11-02' },
+        },
+        201,
+      );
+      const version = (
+        await t
+          .http()
+          .get(`/api/method-versions/${versions['tartrazine v1']}`)
+          .set(await auth(DEMO.analyst))
+      ).body;
+      const analyst = (
+        await t
+          .http()
+          .get('/api/auth/me')
+          .set(await auth(DEMO.analyst))
+      ).body;
       expect(res.body).toMatchObject({
         title: 'Fluorescein check',
         status: 'draft',
@@ -216,16 +314,49 @@ describe('validation studies', () => {
       // Spike-recovery worked example: mean recovery 98.767 %.
       expect(res.body.result.recovery.overall.meanPct).toBeCloseTo(spike.mean_recovery_pct, 10);
       expect(Object.keys(res.body).sort()).toEqual(
-        ['approvedAt', 'author', 'copiedFromId', 'createdAt', 'data', 'dataHash', 'editorIds', 'engineVersion', 'id', 'lockVersion', 'meta', 'method', 'methodVersion', 'methodVersionId', 'result', 'resultErrors', 'status', 'submittedAt', 'title', 'updatedAt'].sort(),
+        [
+          'approvedAt',
+          'author',
+          'copiedFromId',
+          'createdAt',
+          'data',
+          'dataHash',
+          'editorIds',
+          'engineVersion',
+          'id',
+          'lockVersion',
+          'meta',
+          'method',
+          'methodVersion',
+          'methodVersionId',
+          'result',
+          'resultErrors',
+          'status',
+          'submittedAt',
+          'title',
+          'updatedAt',
+        ].sort(),
       );
       const audit = rows(`SELECT action FROM audit_entries WHERE entity_id = ?`, res.body.id);
       expect(audit.map((entry) => entry.action)).toEqual(['study.created']);
     });
 
     it('should return from GET exactly the result the command-line engine prints for the stored data', async () => {
-      const created = (await create({ methodVersionId: versions['chlorpyrifos v1'], title: 'CLI parity', data: { ...completeData(), weighting: '1/x', standards: completeData().standards.slice(1) } })).body;
+      const created = (
+        await create({
+          methodVersionId: versions['chlorpyrifos v1'],
+          title: 'CLI parity',
+          data: { ...completeData(), weighting: '1/x', standards: completeData().standards.slice(1) },
+        })
+      ).body;
       for (const id of [created.id, seeded[TITLES.pesticideReturned].id, seeded[TITLES.nitrateApproved].id]) {
-        const study = (await t.http().get(`/api/studies/${id}`).set(await auth(DEMO.reviewer)).expect(200)).body;
+        const study = (
+          await t
+            .http()
+            .get(`/api/studies/${id}`)
+            .set(await auth(DEMO.reviewer))
+            .expect(200)
+        ).body;
         const dir = mkdtempSync(join(tmpdir(), 'meritline-cli-'));
         try {
           writeFileSync(join(dir, 'study.json'), JSON.stringify(study.data));
@@ -242,8 +373,16 @@ describe('validation studies', () => {
     it('should answer 401 anonymously, 404 for an unknown id and 400 for a malformed one', async () => {
       const id = seeded[TITLES.dye].id;
       await t.http().get(`/api/studies/${id}`).expect(401);
-      await t.http().get(`/api/studies/${UNKNOWN_ID}`).set(await auth(DEMO.reviewer)).expect(404);
-      await t.http().get('/api/studies/42').set(await auth(DEMO.reviewer)).expect(400);
+      await t
+        .http()
+        .get(`/api/studies/${UNKNOWN_ID}`)
+        .set(await auth(DEMO.reviewer))
+        .expect(404);
+      await t
+        .http()
+        .get('/api/studies/42')
+        .set(await auth(DEMO.reviewer))
+        .expect(400);
     });
   });
 
@@ -256,8 +395,18 @@ describe('validation studies', () => {
 
     it('should let the author change the title and meta without touching the data', async () => {
       const before = stored(studyId);
-      const res = await t.http().patch(`/api/studies/${studyId}`).set(await auth(DEMO.analyst)).send({ lockVersion: 1, title: 'Editable study, renamed', meta: { conclusion: 'Pending.' } }).expect(200);
-      expect(res.body).toMatchObject({ title: 'Editable study, renamed', lockVersion: 2, meta: { conclusion: 'Pending.' }, dataHash: before.data_hash });
+      const res = await t
+        .http()
+        .patch(`/api/studies/${studyId}`)
+        .set(await auth(DEMO.analyst))
+        .send({ lockVersion: 1, title: 'Editable study, renamed', meta: { conclusion: 'Pending.' } })
+        .expect(200);
+      expect(res.body).toMatchObject({
+        title: 'Editable study, renamed',
+        lockVersion: 2,
+        meta: { conclusion: 'Pending.' },
+        dataHash: before.data_hash,
+      });
       const [entry] = rows(`SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'study.updated'`, studyId);
       expect(JSON.parse(entry.changes as string).title).toEqual({ from: 'Editable study', to: 'Editable study, renamed' });
     });
@@ -265,17 +414,37 @@ describe('validation studies', () => {
     it('should refuse anonymous callers (401), other roles (403) and another analyst (403), saving nothing', async () => {
       const before = stored(studyId);
       await t.http().patch(`/api/studies/${studyId}`).send({ lockVersion: 2, title: 'x' }).expect(401);
-      await t.http().patch(`/api/studies/${studyId}`).set(await auth(DEMO.reviewer)).send({ lockVersion: 2, title: 'x' }).expect(403);
-      const other = await t.http().patch(`/api/studies/${studyId}`).set(await auth(DEMO.analyst2)).send({ lockVersion: 2, title: 'Mine now' }).expect(403);
+      await t
+        .http()
+        .patch(`/api/studies/${studyId}`)
+        .set(await auth(DEMO.reviewer))
+        .send({ lockVersion: 2, title: 'x' })
+        .expect(403);
+      const other = await t
+        .http()
+        .patch(`/api/studies/${studyId}`)
+        .set(await auth(DEMO.analyst2))
+        .send({ lockVersion: 2, title: 'Mine now' })
+        .expect(403);
       expect(other.body.message).toBe('Only the author of a study may change it.');
       expect(stored(studyId)).toEqual(before);
     });
 
     it('should answer 409 for a submitted or approved study, 409 for a stale lockVersion, 422 without one and 404 for an unknown id', async () => {
       const alma = await auth(DEMO.analyst);
-      const submitted = await t.http().patch(`/api/studies/${seeded[TITLES.dye].id}`).set(alma).send({ lockVersion: seeded[TITLES.dye].lockVersion, title: 'x' }).expect(409);
+      const submitted = await t
+        .http()
+        .patch(`/api/studies/${seeded[TITLES.dye].id}`)
+        .set(alma)
+        .send({ lockVersion: seeded[TITLES.dye].lockVersion, title: 'x' })
+        .expect(409);
       expect(submitted.body.message).toMatch(/locked/);
-      await t.http().patch(`/api/studies/${seeded[TITLES.nitrateApproved].id}`).set(alma).send({ lockVersion: seeded[TITLES.nitrateApproved].lockVersion, title: 'x' }).expect(409);
+      await t
+        .http()
+        .patch(`/api/studies/${seeded[TITLES.nitrateApproved].id}`)
+        .set(alma)
+        .send({ lockVersion: seeded[TITLES.nitrateApproved].lockVersion, title: 'x' })
+        .expect(409);
       await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion: 1, title: 'Stale' }).expect(409);
       const missing = await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ title: 'No lock' }).expect(422);
       expect(missing.body.errors[0].field).toBe('lockVersion');
@@ -289,8 +458,16 @@ describe('validation studies', () => {
       const { lock_version: lockVersion } = stored(studyId);
       const edit = (blank: number) => ({ ...completeData(), blanks: [blank, blank + 0.1, blank + 0.2] });
       const [a, b] = await Promise.all([
-        t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion, data: edit(1) }),
-        t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion, data: edit(5) }),
+        t
+          .http()
+          .patch(`/api/studies/${studyId}`)
+          .set(alma)
+          .send({ lockVersion, data: edit(1) }),
+        t
+          .http()
+          .patch(`/api/studies/${studyId}`)
+          .set(alma)
+          .send({ lockVersion, data: edit(5) }),
       ]);
       expect([a.status, b.status].sort()).toEqual([200, 409]);
       const winner = a.status === 200 ? a.body : b.body;
@@ -305,7 +482,12 @@ describe('validation studies', () => {
       const before = stored(studyId);
       const data = completeData();
       (data.standards[0] as Row).excluded = { reason: '' };
-      const res = await t.http().patch(`/api/studies/${studyId}`).set(await auth(DEMO.analyst)).send({ lockVersion: before.lock_version, data }).expect(422);
+      const res = await t
+        .http()
+        .patch(`/api/studies/${studyId}`)
+        .set(await auth(DEMO.analyst))
+        .send({ lockVersion: before.lock_version, data })
+        .expect(422);
       expect(res.body.errors).toEqual([expect.objectContaining({ field: 'standards[0].excluded.reason' })]);
       expect(stored(studyId)).toEqual(before);
     });
@@ -316,11 +498,19 @@ describe('validation studies', () => {
       const data = structuredClone(current.data);
       data.standards[2].excluded = { reason: 'Cuvette scratched.' };
       data.standards[4].excluded = { reason: 'Pipetting error noted in the logbook.' };
-      const excluded = await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion: current.lockVersion, data }).expect(200);
+      const excluded = await t
+        .http()
+        .patch(`/api/studies/${studyId}`)
+        .set(alma)
+        .send({ lockVersion: current.lockVersion, data })
+        .expect(200);
       expect(excluded.body.result.calibration.excluded.map((e: Row) => e.index)).toEqual([2, 4]);
       delete data.standards[2].excluded;
       await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion: excluded.body.lockVersion, data }).expect(200);
-      const entries = rows(`SELECT action, reason, changes FROM audit_entries WHERE entity_id = ? AND action LIKE 'study.point-%' ORDER BY seq`, studyId);
+      const entries = rows(
+        `SELECT action, reason, changes FROM audit_entries WHERE entity_id = ? AND action LIKE 'study.point-%' ORDER BY seq`,
+        studyId,
+      );
       expect(entries.map((e) => [e.action, e.reason])).toEqual([
         ['study.point-excluded', 'Cuvette scratched.'],
         ['study.point-excluded', 'Pipetting error noted in the logbook.'],
@@ -332,7 +522,12 @@ describe('validation studies', () => {
     it('should keep a draft whose data become incomplete, with no result and the reasons', async () => {
       const alma = await auth(DEMO.analyst);
       const { lock_version: lockVersion } = stored(studyId);
-      const res = await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion, data: { standards: [{ x: 1, y: 0.05 }] } }).expect(200);
+      const res = await t
+        .http()
+        .patch(`/api/studies/${studyId}`)
+        .set(alma)
+        .send({ lockVersion, data: { standards: [{ x: 1, y: 0.05 }] } })
+        .expect(200);
       expect(res.body).toMatchObject({ result: null, resultErrors: [expect.objectContaining({ field: 'standards', code: 'too_few' })] });
     });
 
@@ -342,18 +537,34 @@ describe('validation studies', () => {
       const before = stored(study.id);
       const data = structuredClone(study.data);
       data.standards[0].excluded = { reason: 'Re-injected: the first injection of the lowest standard was contaminated.' };
-      const refused = await t.http().patch(`/api/studies/${study.id}`).set(tomasz).send({ lockVersion: study.lockVersion, data }).expect(422);
-      expect(refused.body.errors).toEqual([{ field: 'reason', code: 'required', message: 'Say why the data change after the study was returned.' }]);
+      const refused = await t
+        .http()
+        .patch(`/api/studies/${study.id}`)
+        .set(tomasz)
+        .send({ lockVersion: study.lockVersion, data })
+        .expect(422);
+      expect(refused.body.errors).toEqual([
+        { field: 'reason', code: 'required', message: 'Say why the data change after the study was returned.' },
+      ]);
       expect(stored(study.id)).toEqual(before);
-      const titleOnly = await t.http().patch(`/api/studies/${study.id}`).set(tomasz).send({ lockVersion: study.lockVersion, title: `${study.title} (rev. 2)` }).expect(200);
-      const res = await t.http()
+      const titleOnly = await t
+        .http()
+        .patch(`/api/studies/${study.id}`)
+        .set(tomasz)
+        .send({ lockVersion: study.lockVersion, title: `${study.title} (rev. 2)` })
+        .expect(200);
+      const res = await t
+        .http()
         .patch(`/api/studies/${study.id}`)
         .set(tomasz)
         .send({ lockVersion: titleOnly.body.lockVersion, data, reason: 'Reviewer asked to deal with the lowest standard.' })
         .expect(200);
       expect(res.body.status).toBe('returned');
       expect(res.body.editorIds).toEqual([study.author.id]);
-      const [entry] = rows(`SELECT reason FROM audit_entries WHERE entity_id = ? AND action = 'study.updated' ORDER BY seq DESC LIMIT 1`, study.id);
+      const [entry] = rows(
+        `SELECT reason FROM audit_entries WHERE entity_id = ? AND action = 'study.updated' ORDER BY seq DESC LIMIT 1`,
+        study.id,
+      );
       expect(entry.reason).toBe('Reviewer asked to deal with the lowest standard.');
     });
   });
@@ -362,17 +573,48 @@ describe('validation studies', () => {
     it('should delete only the author’s own draft, answering 401, 403, 409 and 404 otherwise', async () => {
       const draft = (await create({ methodVersionId: versions['tartrazine v1'], title: 'To be deleted', data: completeData() })).body;
       await t.http().delete(`/api/studies/${draft.id}`).expect(401);
-      await t.http().delete(`/api/studies/${draft.id}`).set(await auth(DEMO.quality)).expect(403);
-      await t.http().delete(`/api/studies/${draft.id}`).set(await auth(DEMO.analyst2)).expect(403);
-      await t.http().delete(`/api/studies/${seeded[TITLES.dye].id}`).set(await auth(DEMO.analyst)).expect(409);
-      const returned = await t.http().delete(`/api/studies/${seeded[TITLES.pesticideReturned].id}`).set(await auth(DEMO.analyst2)).expect(409);
+      await t
+        .http()
+        .delete(`/api/studies/${draft.id}`)
+        .set(await auth(DEMO.quality))
+        .expect(403);
+      await t
+        .http()
+        .delete(`/api/studies/${draft.id}`)
+        .set(await auth(DEMO.analyst2))
+        .expect(403);
+      await t
+        .http()
+        .delete(`/api/studies/${seeded[TITLES.dye].id}`)
+        .set(await auth(DEMO.analyst))
+        .expect(409);
+      const returned = await t
+        .http()
+        .delete(`/api/studies/${seeded[TITLES.pesticideReturned].id}`)
+        .set(await auth(DEMO.analyst2))
+        .expect(409);
       expect(returned.body.message).toMatch(/Only a draft/);
-      await t.http().delete(`/api/studies/${UNKNOWN_ID}`).set(await auth(DEMO.analyst)).expect(404);
+      await t
+        .http()
+        .delete(`/api/studies/${UNKNOWN_ID}`)
+        .set(await auth(DEMO.analyst))
+        .expect(404);
       expect(stored(draft.id)).toBeDefined();
 
-      await t.http().delete(`/api/studies/${draft.id}`).set(await auth(DEMO.analyst)).expect(204);
-      await t.http().get(`/api/studies/${draft.id}`).set(await auth(DEMO.analyst)).expect(404);
-      expect(rows(`SELECT action FROM audit_entries WHERE entity_id = ? ORDER BY seq`, draft.id).map((e) => e.action)).toEqual(['study.created', 'study.deleted']);
+      await t
+        .http()
+        .delete(`/api/studies/${draft.id}`)
+        .set(await auth(DEMO.analyst))
+        .expect(204);
+      await t
+        .http()
+        .get(`/api/studies/${draft.id}`)
+        .set(await auth(DEMO.analyst))
+        .expect(404);
+      expect(rows(`SELECT action FROM audit_entries WHERE entity_id = ? ORDER BY seq`, draft.id).map((e) => e.action)).toEqual([
+        'study.created',
+        'study.deleted',
+      ]);
     });
   });
 });

@@ -9,9 +9,13 @@ import { evaluateStudy, type EvaluationResult } from '@meritline/shared';
 export class EvaluateController {
   @Post()
   @HttpCode(200)
-  @ApiBody({ schema: { type: 'object', additionalProperties: true, description: 'A study in the engine’s input format (at most 5 MB of JSON).' } })
+  @ApiBody({
+    schema: { type: 'object', additionalProperties: true, description: 'A study in the engine’s input format (at most 5 MB of JSON).' },
+  })
   @ApiOkResponse({ schema: { type: 'object', additionalProperties: true, description: 'The engine’s result.' } })
-  @ApiUnprocessableEntityResponse({ description: '{ statusCode, message, errors: [{ field, code, message }] } for a study the engine cannot evaluate.' })
+  @ApiUnprocessableEntityResponse({
+    description: '{ statusCode, message, errors: [{ field, code, message }] } for a study the engine cannot evaluate.',
+  })
   evaluate(@Body() study: Record<string, unknown>): EvaluationResult {
     return evaluateStudy(study);
   }

@@ -21,7 +21,12 @@ export const CRITERIA_TEMPLATES: readonly CriteriaTemplate[] = [
     description: 'Content of the main component of a product or raw material, usually 80–120 % of the declared amount.',
     criteria: [
       { figure: 'calibration.r2', op: '>=', value: 0.999, label: 'Coefficient of determination r² at least 0.999' },
-      { figure: 'interceptTest.interceptPctOfTopResponse', op: 'abs<=', value: 2, label: 'Intercept within ±2 % of the top standard’s response' },
+      {
+        figure: 'interceptTest.interceptPctOfTopResponse',
+        op: 'abs<=',
+        value: 2,
+        label: 'Intercept within ±2 % of the top standard’s response',
+      },
       { figure: 'recovery.overall.meanPct', op: 'between', value: [98, 102], label: 'Mean recovery 98–102 %' },
       { figure: 'precision.rsdR', op: '<=', value: 2, label: 'Repeatability RSD at most 2 %' },
       { figure: 'precision.rsdI', op: '<=', value: 3, label: 'Intermediate precision RSD at most 3 %' },

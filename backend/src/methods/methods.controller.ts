@@ -44,8 +44,15 @@ export class MethodsController {
 
   @Post('methods/:id/versions')
   @Roles(...EDITORS)
-  @ApiCreatedResponse({ type: MethodVersionDetailDto, description: 'A new draft version; criteria and settings copied from the latest version unless given.' })
-  createVersion(@Param('id', ParseUUIDPipe) id: string, @Body() dto: CreateMethodVersionDto, @CurrentUser() actor: AuthUser): Promise<MethodVersionDetailDto> {
+  @ApiCreatedResponse({
+    type: MethodVersionDetailDto,
+    description: 'A new draft version; criteria and settings copied from the latest version unless given.',
+  })
+  createVersion(
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body() dto: CreateMethodVersionDto,
+    @CurrentUser() actor: AuthUser,
+  ): Promise<MethodVersionDetailDto> {
     return this.methodsService.createVersion(id, dto, actor);
   }
 
@@ -58,7 +65,11 @@ export class MethodsController {
   @Patch('method-versions/:id')
   @Roles(...EDITORS)
   @ApiOkResponse({ type: MethodVersionDetailDto })
-  updateVersion(@Param('id', ParseUUIDPipe) id: string, @Body() dto: UpdateMethodVersionDto, @CurrentUser() actor: AuthUser): Promise<MethodVersionDetailDto> {
+  updateVersion(
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body() dto: UpdateMethodVersionDto,
+    @CurrentUser() actor: AuthUser,
+  ): Promise<MethodVersionDetailDto> {
     return this.methodsService.updateVersion(id, dto, actor);
   }
 }

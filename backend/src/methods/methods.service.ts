@@ -90,9 +90,17 @@ export class MethodsService {
     const methodId = await writeTransaction(this.dataSource, async (manager) => {
       await this.assertNameFree(manager, dto.name);
       const { name, analyte, matrix, technique, xUnit, yUnit, purpose } = dto;
-      const method = await manager.save(manager.create(Method, { name, analyte, matrix, technique, xUnit, yUnit, purpose, createdById: actor.id }));
+      const method = await manager.save(
+        manager.create(Method, { name, analyte, matrix, technique, xUnit, yUnit, purpose, createdById: actor.id }),
+      );
       await this.audit.record(
-        { actor, action: 'method.created', entity: 'method', entityId: method.id, changes: { name: { from: null, to: name }, purpose: { from: null, to: purpose } } },
+        {
+          actor,
+          action: 'method.created',
+          entity: 'method',
+          entityId: method.id,
+          changes: { name: { from: null, to: name }, purpose: { from: null, to: purpose } },
+        },
         manager,
       );
       await this.insertVersion(manager, actor, method.id, 1, {
@@ -124,7 +132,8 @@ export class MethodsService {
       if (!version) throw new NotFoundException('Method version not found.');
       const status = dto.status ?? version.status;
       if (!hasAnyRole(actor.roles, [Role.QualityManager, Role.Admin])) {
-        if (status !== version.status) throw new ForbiddenException('Only quality managers and administrators change the status of a version.');
+        if (status !== version.status)
+          throw new ForbiddenException('Only quality managers and administrators change the status of a version.');
         if (version.createdById !== actor.id || version.status !== 'draft') {
           throw new ForbiddenException('Analysts may edit only the draft versions they proposed.');
         }
@@ -141,23 +150,44 @@ export class MethodsService {
         if (changed(version[key], next[key])) changes[key] = { from: version[key], to: next[key] };
       }
       if (Object.keys(changes).length > 0 && version.status !== 'draft') {
-        throw new ConflictException({ statusCode: 409, message: FROZEN_MESSAGES[version.status], errors: Object.keys(changes).map((field) => ({ field, code: 'frozen', message: FROZEN_MESSAGES[version.status] })) });
+        throw new ConflictException({
+          statusCode: 409,
+          message: FROZEN_MESSAGES[version.status],
+          errors: Object.keys(changes).map((field) => ({ field, code: 'frozen', message: FROZEN_MESSAGES[version.status] })),
+        });
       }
       if (status !== version.status && !ALLOWED_TRANSITIONS[version.status].includes(status)) {
-        throw new ConflictException({ statusCode: 409, message: TRANSITION_REFUSALS[version.status], errors: [{ field: 'status', code: 'transition', message: TRANSITION_REFUSALS[version.status] }] });
+        throw new ConflictException({
+          statusCode: 409,
+          message: TRANSITION_REFUSALS[version.status],
+          errors: [{ field: 'status', code: 'transition', message: TRANSITION_REFUSALS[version.status] }],
+        });
       }
       if (Object.keys(changes).length === 0 && status === version.status) return;
 
       if (status === 'active') await this.retireActiveVersions(manager, actor, version);
-      const updated = await manager.update(MethodVersion, { id, lockVersion: dto.lockVersion }, { ...next, status, lockVersion: dto.lockVersion + 1 });
+      const updated = await manager.update(
+        MethodVersion,
+        { id, lockVersion: dto.lockVersion },
+        { ...next, status, lockVersion: dto.lockVersion + 1 },
+      );
       if (!updated.affected) throw staleVersion();
 
       const entry = { actor, entity: 'method-version', entityId: id };
-      if (changes.criteria) await this.audit.record({ ...entry, action: 'method-version.criteria-changed', changes: { criteria: changes.criteria } }, manager);
+      if (changes.criteria)
+        await this.audit.record({ ...entry, action: 'method-version.criteria-changed', changes: { criteria: changes.criteria } }, manager);
       const { criteria: _criteria, ...otherChanges } = changes;
-      if (Object.keys(otherChanges).length > 0) await this.audit.record({ ...entry, action: 'method-version.updated', changes: otherChanges }, manager);
+      if (Object.keys(otherChanges).length > 0)
+        await this.audit.record({ ...entry, action: 'method-version.updated', changes: otherChanges }, manager);
       if (status !== version.status) {
-        await this.audit.record({ ...entry, action: `method-version.${status === 'active' ? 'activated' : 'retired'}`, changes: { status: { from: version.status, to: status } } }, manager);
+        await this.audit.record(
+          {
+            ...entry,
+            action: `method-version.${status === 'active' ? 'activated' : 'retired'}`,
+            changes: { status: { from: version.status, to: status } },
+          },
+          manager,
+        );
       }
     });
     return this.findVersion(id);
@@ -188,14 +218,20 @@ export class MethodsService {
     number: number,
     content: Pick<MethodVersion, 'changeSummary' | 'criteria' | 'settings'>,
   ): Promise<MethodVersion['id']> {
-    const version = await manager.save(manager.create(MethodVersion, { ...content, methodId, number, status: 'draft', createdById: actor.id }));
+    const version = await manager.save(
+      manager.create(MethodVersion, { ...content, methodId, number, status: 'draft', createdById: actor.id }),
+    );
     await this.audit.record(
       {
         actor,
         action: 'method-version.created',
         entity: 'method-version',
         entityId: version.id,
-        changes: { number: { from: null, to: number }, criteria: { from: null, to: content.criteria }, settings: { from: null, to: content.settings } },
+        changes: {
+          number: { from: null, to: number },
+          criteria: { from: null, to: content.criteria },
+          settings: { from: null, to: content.settings },
+        },
         reason: content.changeSummary,
       },
       manager,
@@ -204,7 +240,11 @@ export class MethodsService {
   }
 
   private async assertNameFree(manager: EntityManager, name: string) {
-    const taken = await manager.getRepository(Method).createQueryBuilder('method').where('LOWER(method.name) = LOWER(:name)', { name }).getExists();
+    const taken = await manager
+      .getRepository(Method)
+      .createQueryBuilder('method')
+      .where('LOWER(method.name) = LOWER(:name)', { name })
+      .getExists();
     if (taken) {
       const message = 'A method with this name already exists.';
       throw new ConflictException({ statusCode: 409, message, errors: [{ field: 'name', code: 'exists', message }] });
@@ -212,11 +252,11 @@ export class MethodsService {
   }
 
   private async toMethodDtos(methods: Method[]): Promise<MethodDto[]> {
-    const versions = await this.toVersionDtos(methods.flatMap((method) => method.versions));
+    const versions = new Map((await this.toVersionDtos(methods.flatMap((method) => method.versions))).map((dto) => [dto.id, dto]));
     return methods.map((method) => ({
       ...toMethodSummary(method),
       createdAt: method.createdAt.toISOString(),
-      versions: versions.filter((version) => method.versions.some((v) => v.id === version.id)).sort((a, b) => a.number - b.number),
+      versions: method.versions.map((version) => versions.get(version.id) as MethodVersionDto).sort((a, b) => a.number - b.number),
     }));
   }
 

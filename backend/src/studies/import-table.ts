@@ -38,7 +38,7 @@ function unsupported(what: string) {
   return new UnsupportedMediaTypeException({ statusCode: 415, message, errors: [{ field: 'file', code: 'unsupported_type', message }] });
 }
 
-export function emptyFile() {
+function emptyFile() {
   const message = 'The file is empty.';
   return new UnprocessableEntityException({ statusCode: 422, message, errors: [{ field: 'file', code: 'empty', message }] });
 }

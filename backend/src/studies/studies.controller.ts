@@ -15,7 +15,18 @@ import {
   UseInterceptors,
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
-import { ApiBearerAuth, ApiBody, ApiConsumes, ApiCreatedResponse, ApiExtraModels, ApiNoContentResponse, ApiOkResponse, ApiProduces, ApiTags, getSchemaPath } from '@nestjs/swagger';
+import {
+  ApiBearerAuth,
+  ApiBody,
+  ApiConsumes,
+  ApiCreatedResponse,
+  ApiExtraModels,
+  ApiNoContentResponse,
+  ApiOkResponse,
+  ApiProduces,
+  ApiTags,
+  getSchemaPath,
+} from '@nestjs/swagger';
 import { Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -48,7 +59,10 @@ export class StudiesController {
 
   @Post('studies')
   @Roles(Role.Analyst)
-  @ApiCreatedResponse({ type: StudyDto, description: 'A draft, with the server’s result (or the reasons the data cannot be evaluated yet).' })
+  @ApiCreatedResponse({
+    type: StudyDto,
+    description: 'A draft, with the server’s result (or the reasons the data cannot be evaluated yet).',
+  })
   create(@Body() dto: CreateStudyDto, @CurrentUser() actor: AuthUser): Promise<StudyDto> {
     return this.studiesService.create(dto, actor);
   }
@@ -76,7 +90,8 @@ export class StudiesController {
   @ApiBody({ type: ImportStudyDto })
   @ApiExtraModels(ImportPreviewDto, StudyDto)
   @ApiOkResponse({
-    description: 'dryRun: the preview (errors listed); otherwise the study with the section replaced. A real import with any error answers 422 and saves nothing.',
+    description:
+      'dryRun: the preview (errors listed); otherwise the study with the section replaced. A real import with any error answers 422 and saves nothing.',
     schema: { oneOf: [{ $ref: getSchemaPath(ImportPreviewDto) }, { $ref: getSchemaPath(StudyDto) }] },
   })
   importFile(

@@ -24,7 +24,9 @@ import { ValidationStudy, type StudyMeta } from './validation-study.entity.js';
 const LOCKED_STATUSES = ['submitted', 'approved'];
 const DAY_MS = 86_400_000;
 
-type StudyPatch = Partial<Pick<ValidationStudy, 'title' | 'meta' | 'data' | 'result' | 'resultErrors' | 'engineVersion' | 'dataHash' | 'editorIds'>>;
+type StudyPatch = Partial<
+  Pick<ValidationStudy, 'title' | 'meta' | 'data' | 'result' | 'resultErrors' | 'engineVersion' | 'dataHash' | 'editorIds'>
+>;
 
 const iso = (date: Date | null) => date?.toISOString() ?? null;
 
@@ -37,8 +39,22 @@ export function toStudySummary(study: ValidationStudy): StudySummaryDto {
     title: study.title,
     status: study.status,
     methodVersionId: study.methodVersionId,
-    method: { id: method.id, name: method.name, analyte: method.analyte, matrix: method.matrix, technique: method.technique, xUnit: method.xUnit, yUnit: method.yUnit },
-    methodVersion: { id: version.id, number: version.number, status: version.status, criteria: version.criteria as CriterionDto[], settings: version.settings },
+    method: {
+      id: method.id,
+      name: method.name,
+      analyte: method.analyte,
+      matrix: method.matrix,
+      technique: method.technique,
+      xUnit: method.xUnit,
+      yUnit: method.yUnit,
+    },
+    methodVersion: {
+      id: version.id,
+      number: version.number,
+      status: version.status,
+      criteria: version.criteria as CriterionDto[],
+      settings: version.settings,
+    },
     resultErrors: study.resultErrors,
     engineVersion: study.engineVersion,
     dataHash: study.dataHash,
@@ -86,8 +102,17 @@ function exclusionEntries(before: StudyData, after: StudyData, actor: AuthUser, 
     const was = old[i]?.excluded?.reason;
     const is = point?.excluded?.reason;
     const entry = { actor, entity: 'study', entityId: studyId };
-    if (is && !was) return [{ ...entry, action: 'study.point-excluded', changes: { [`standards[${i}].excluded`]: { from: null, to: point.excluded } }, reason: is }];
-    if (was && !is && old[i]) return [{ ...entry, action: 'study.point-included', changes: { [`standards[${i}].excluded`]: { from: old[i].excluded, to: null } } }];
+    if (is && !was)
+      return [
+        {
+          ...entry,
+          action: 'study.point-excluded',
+          changes: { [`standards[${i}].excluded`]: { from: null, to: point.excluded } },
+          reason: is,
+        },
+      ];
+    if (was && !is && old[i])
+      return [{ ...entry, action: 'study.point-included', changes: { [`standards[${i}].excluded`]: { from: old[i].excluded, to: null } } }];
     return [];
   });
 }
@@ -104,7 +129,8 @@ function sectionSize(data: StudyData, section: ImportSection): number {
 
 function parseMapping(text: string | undefined): Record<string, string | null> | undefined {
   if (text === undefined || text.trim() === '') return undefined;
-  const refuse = () => unprocessable([{ field: 'mapping', code: 'invalid', message: 'The mapping must be a JSON object of field names to column headers.' }]);
+  const refuse = () =>
+    unprocessable([{ field: 'mapping', code: 'invalid', message: 'The mapping must be a JSON object of field names to column headers.' }]);
   let mapping: unknown;
   try {
     mapping = JSON.parse(text);
@@ -138,12 +164,37 @@ export class StudiesService {
       .innerJoin('version.method', 'method')
       .innerJoin('study.author', 'author')
       .select([
-        'study.id', 'study.title', 'study.status', 'study.methodVersionId', 'study.result', 'study.resultErrors', 'study.engineVersion',
-        'study.dataHash', 'study.meta', 'study.authorId', 'study.editorIds', 'study.copiedFromId', 'study.lockVersion', 'study.createdAt',
-        'study.updatedAt', 'study.submittedAt', 'study.approvedAt',
-        'version.id', 'version.number', 'version.status', 'version.criteria', 'version.settings',
-        'method.id', 'method.name', 'method.analyte', 'method.matrix', 'method.technique', 'method.xUnit', 'method.yUnit',
-        'author.id', 'author.name',
+        'study.id',
+        'study.title',
+        'study.status',
+        'study.methodVersionId',
+        'study.result',
+        'study.resultErrors',
+        'study.engineVersion',
+        'study.dataHash',
+        'study.meta',
+        'study.authorId',
+        'study.editorIds',
+        'study.copiedFromId',
+        'study.lockVersion',
+        'study.createdAt',
+        'study.updatedAt',
+        'study.submittedAt',
+        'study.approvedAt',
+        'version.id',
+        'version.number',
+        'version.status',
+        'version.criteria',
+        'version.settings',
+        'method.id',
+        'method.name',
+        'method.analyte',
+        'method.matrix',
+        'method.technique',
+        'method.xUnit',
+        'method.yUnit',
+        'author.id',
+        'author.name',
       ]);
     if (query.status) qb.andWhere('study.status = :status', { status: query.status });
     if (query.methodId) qb.andWhere('version.methodId = :methodId', { methodId: query.methodId });
@@ -153,7 +204,9 @@ export class StudiesService {
     if (query.from) qb.andWhere('study.updatedAt >= :from', { from: new Date(query.from) });
     if (query.to) {
       const dateOnly = /^\d{4}-\d{2}-\d{2}$/.test(query.to);
-      qb.andWhere(dateOnly ? 'study.updatedAt < :to' : 'study.updatedAt <= :to', { to: new Date(Date.parse(query.to) + (dateOnly ? DAY_MS : 0)) });
+      qb.andWhere(dateOnly ? 'study.updatedAt < :to' : 'study.updatedAt <= :to', {
+        to: new Date(Date.parse(query.to) + (dateOnly ? DAY_MS : 0)),
+      });
     }
     if (query.q) qb.andWhere(`LOWER(study.title) LIKE :q ESCAPE '\\'`, { q: `%${query.q.toLowerCase().replace(/[\\%_]/g, '\\$&')}%` });
     const [studies, total] = await qb
@@ -172,9 +225,16 @@ export class StudiesService {
   async create(dto: CreateStudyDto, actor: AuthUser): Promise<StudyDto> {
     const id = await writeTransaction(this.dataSource, async (manager) => {
       const version = await manager.findOne(MethodVersion, { where: { id: dto.methodVersionId }, relations: { method: true } });
-      if (!version) throw unprocessable([{ field: 'methodVersionId', code: 'not_found', message: 'There is no method version with this id.' }]);
+      if (!version)
+        throw unprocessable([{ field: 'methodVersionId', code: 'not_found', message: 'There is no method version with this id.' }]);
       if (version.status === 'retired') {
-        throw unprocessable([{ field: 'methodVersionId', code: 'retired', message: `Version ${version.number} of this method is retired; choose its current version.` }]);
+        throw unprocessable([
+          {
+            field: 'methodVersionId',
+            code: 'retired',
+            message: `Version ${version.number} of this method is retired; choose its current version.`,
+          },
+        ]);
       }
       const data = withMethodDefaults(dto.data, version, version.method);
       const evaluation = evaluateStudyData(data);
@@ -199,7 +259,11 @@ export class StudiesService {
           action: 'study.created',
           entity: 'study',
           entityId: study.id,
-          changes: { title: { from: null, to: study.title }, methodVersionId: { from: null, to: version.id }, dataHash: { from: null, to: study.dataHash } },
+          changes: {
+            title: { from: null, to: study.title },
+            methodVersionId: { from: null, to: version.id },
+            dataHash: { from: null, to: study.dataHash },
+          },
         },
         manager,
       );
@@ -231,7 +295,10 @@ export class StudiesService {
       if (patch.title) changes.title = { from: study.title, to: patch.title };
       if (patch.meta) changes.meta = { from: study.meta, to: patch.meta };
       if (patch.dataHash) changes.dataHash = { from: study.dataHash, to: patch.dataHash };
-      await this.audit.record({ actor, action: 'study.updated', entity: 'study', entityId: id, changes, reason: dto.reason ?? null }, manager);
+      await this.audit.record(
+        { actor, action: 'study.updated', entity: 'study', entityId: id, changes, reason: dto.reason ?? null },
+        manager,
+      );
       for (const entry of exclusions) await this.audit.record(entry, manager);
       return this.findOne(id, manager);
     });
@@ -243,13 +310,24 @@ export class StudiesService {
       if (study.status !== 'draft') throw new ConflictException('Only a draft can be deleted; a returned study stays on record.');
       await manager.delete(ValidationStudy, { id });
       await this.audit.record(
-        { actor, action: 'study.deleted', entity: 'study', entityId: id, changes: { title: { from: study.title, to: null }, dataHash: { from: study.dataHash, to: null } } },
+        {
+          actor,
+          action: 'study.deleted',
+          entity: 'study',
+          entityId: id,
+          changes: { title: { from: study.title, to: null }, dataHash: { from: study.dataHash, to: null } },
+        },
         manager,
       );
     });
   }
 
-  async importFile(id: ValidationStudy['id'], file: Express.Multer.File | undefined, dto: ImportStudyDto, actor: AuthUser): Promise<ImportPreviewDto | StudyDto> {
+  async importFile(
+    id: ValidationStudy['id'],
+    file: Express.Multer.File | undefined,
+    dto: ImportStudyDto,
+    actor: AuthUser,
+  ): Promise<ImportPreviewDto | StudyDto> {
     await this.loadEditable(this.dataSource.manager, id, actor);
     if (!file) throw unprocessable([{ field: 'file', code: 'required', message: 'Choose a CSV or XLSX file.' }]);
     const mapping = parseMapping(dto.mapping);
@@ -260,7 +338,11 @@ export class StudiesService {
     return writeTransaction(this.dataSource, async (manager) => {
       const study = await this.loadEditable(manager, id, actor);
       if (dto.lockVersion !== study.lockVersion) throw staleStudy();
-      const data = withMethodDefaults(replaceSection(study.data, dto.section, preview.rows), study.methodVersion, study.methodVersion.method);
+      const data = withMethodDefaults(
+        replaceSection(study.data, dto.section, preview.rows),
+        study.methodVersion,
+        study.methodVersion.method,
+      );
       if (!changed(study.data, data)) return toStudyDto(study);
       const patch = this.dataPatch(study, data, actor, dto.reason);
       await this.save(manager, study, dto.lockVersion as number, patch);
@@ -294,11 +376,11 @@ export class StudiesService {
 
   /** Writes only if nobody changed the study since `lockVersion` was read. */
   private async save(manager: EntityManager, study: ValidationStudy, lockVersion: number, patch: StudyPatch) {
-    const result = await manager.update(
-      ValidationStudy,
-      { id: study.id, lockVersion },
-      { ...patch, lockVersion: lockVersion + 1, updatedAt: new Date() } as QueryDeepPartialEntity<ValidationStudy>,
-    );
+    const result = await manager.update(ValidationStudy, { id: study.id, lockVersion }, {
+      ...patch,
+      lockVersion: lockVersion + 1,
+      updatedAt: new Date(),
+    } as QueryDeepPartialEntity<ValidationStudy>);
     if (!result.affected) throw staleStudy();
   }
 
@@ -311,7 +393,8 @@ export class StudiesService {
   private async loadEditable(manager: EntityManager, id: ValidationStudy['id'], actor: AuthUser): Promise<ValidationStudy> {
     const study = await this.load(manager, id);
     if (study.authorId !== actor.id) throw new ForbiddenException('Only the author of a study may change it.');
-    if (LOCKED_STATUSES.includes(study.status)) throw new ConflictException(`This study is locked while ${study.status}; it cannot be changed.`);
+    if (LOCKED_STATUSES.includes(study.status))
+      throw new ConflictException(`This study is locked while ${study.status}; it cannot be changed.`);
     return study;
   }
 }

@@ -1,13 +1,6 @@
 import { Logger } from '@nestjs/common';
 import { createHash } from 'node:crypto';
-import {
-  canonicalJson,
-  ENGINE_VERSION,
-  evaluateStudy,
-  parseStudy,
-  StudyValidationError,
-  type StudyFieldError,
-} from '@meritline/shared';
+import { canonicalJson, ENGINE_VERSION, evaluateStudy, parseStudy, StudyValidationError, type StudyFieldError } from '@meritline/shared';
 import type { MethodVersion } from '../methods/method-version.entity.js';
 import type { Method } from '../methods/method.entity.js';
 
@@ -64,7 +57,13 @@ export function evaluateStudyData(data: StudyData): StudyEvaluation {
     logger.error(`The engine failed on study data ${stamp.dataHash}: ${(error as Error).stack ?? String(error)}`);
     return {
       result: null,
-      resultErrors: [{ field: 'study', code: 'engine_failure', message: 'The statistics engine could not evaluate these data; the failure is in the server log.' }],
+      resultErrors: [
+        {
+          field: 'study',
+          code: 'engine_failure',
+          message: 'The statistics engine could not evaluate these data; the failure is in the server log.',
+        },
+      ],
       ...stamp,
     };
   }

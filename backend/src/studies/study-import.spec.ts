@@ -5,7 +5,8 @@ import { MAX_IMPORT_ROWS, readImportTable } from './import-table.js';
 import { importSection, importTemplate, IMPORT_SECTIONS, normaliseHeader, resolveMapping, type ImportSection } from './study-import.js';
 
 const csv = (text: string) => Buffer.from(text, 'utf8');
-const preview = async (buffer: Buffer, section: ImportSection, mapping?: Record<string, string | null>) => importSection(await readImportTable(buffer), section, mapping);
+const preview = async (buffer: Buffer, section: ImportSection, mapping?: Record<string, string | null>) =>
+  importSection(await readImportTable(buffer), section, mapping);
 
 async function xlsx(rows: unknown[][]): Promise<Buffer> {
   const workbook = new ExcelJS.Workbook();
@@ -70,13 +71,24 @@ describe('reading CSV and XLSX files', () => {
       [4, '0.2091'],
     ]);
     const result = await preview(buffer, 'standards');
-    expect(result).toMatchObject({ columns: ['Conc (mg/L)', 'Absorbance'], mapping: { x: 'Conc (mg/L)', y: 'Absorbance' }, errors: [], rowCount: 3 });
+    expect(result).toMatchObject({
+      columns: ['Conc (mg/L)', 'Absorbance'],
+      mapping: { x: 'Conc (mg/L)', y: 'Absorbance' },
+      errors: [],
+      rowCount: 3,
+    });
     expect(result.rows).toEqual([
       { x: 1, y: 0.0523 },
       { x: 2, y: 0.1046 },
       { x: 4, y: 0.2091 },
     ]);
-    const bad = await preview(await xlsx([['x', 'y'], [1, 'n/a']]), 'standards');
+    const bad = await preview(
+      await xlsx([
+        ['x', 'y'],
+        [1, 'n/a'],
+      ]),
+      'standards',
+    );
     expect(bad.errors).toEqual([{ field: 'rows[0].y', code: 'not_number', message: 'Row 2, column “y”: “n/a” is not a number.' }]);
   });
 
@@ -136,7 +148,11 @@ describe('mapping headers to study fields', () => {
   it('should name the columns that match nothing when a required field has no column', () => {
     const { errors } = resolveMapping('standards', ['Conc', 'Wavelength']);
     expect(errors).toEqual([
-      { field: 'mapping.y', code: 'unmapped', message: 'No column for y (response). Columns that match nothing: “Wavelength”. Choose one in the mapping.' },
+      {
+        field: 'mapping.y',
+        code: 'unmapped',
+        message: 'No column for y (response). Columns that match nothing: “Wavelength”. Choose one in the mapping.',
+      },
     ]);
   });
 });

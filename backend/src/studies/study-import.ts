@@ -31,15 +31,44 @@ interface ImportField {
 }
 
 const RESPONSE_ALIASES = [
-  'y', 'response', 'signal', 'area', 'peak area', 'height', 'peak height', 'absorbance', 'abs', 'intensity', 'counts',
-  'ratio', 'area ratio', 'peak area ratio', 'response ratio',
+  'y',
+  'response',
+  'signal',
+  'area',
+  'peak area',
+  'height',
+  'peak height',
+  'absorbance',
+  'abs',
+  'intensity',
+  'counts',
+  'ratio',
+  'area ratio',
+  'peak area ratio',
+  'response ratio',
 ];
 
-const field = (key: string, label: string, kind: FieldKind, required: boolean, aliases: string[]): ImportField => ({ key, label, kind, required, aliases });
+const field = (key: string, label: string, kind: FieldKind, required: boolean, aliases: string[]): ImportField => ({
+  key,
+  label,
+  kind,
+  required,
+  aliases,
+});
 
 const SECTION_FIELDS: Record<ImportSection, ImportField[]> = {
   standards: [
-    field('x', 'concentration', 'number', true, ['x', 'conc', 'concentration', 'nominal', 'level', 'amount', 'standard', 'std', 'calibrator']),
+    field('x', 'concentration', 'number', true, [
+      'x',
+      'conc',
+      'concentration',
+      'nominal',
+      'level',
+      'amount',
+      'standard',
+      'std',
+      'calibrator',
+    ]),
     field('y', 'response', 'number', true, RESPONSE_ALIASES),
     field('id', 'identifier', 'text', false, ['id', 'name', 'label', 'sample', 'sample id', 'vial']),
   ],
@@ -74,12 +103,32 @@ const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 const MAX_ROW_ERRORS = 100;
 
 const TEMPLATE_ROWS: Record<ImportSection, string[][]> = {
-  standards: [['x', 'y'], ['0.5', '0.0612'], ['1.0', '0.1218']],
+  standards: [
+    ['x', 'y'],
+    ['0.5', '0.0612'],
+    ['1.0', '0.1218'],
+  ],
   blanks: [['value'], ['0.0011'], ['0.0018']],
-  recovery: [['id', 'level', 'added', 'found', 'native'], ['R1', 'low', '1.0', '0.982', '0'], ['R2', 'low', '1.0', '1.013', '0']],
-  precision: [['group', 'value'], ['day 1', '5.02'], ['day 1', '4.97']],
-  unknowns: [['id', 'y1', 'y2', 'dilution'], ['W-014', '0.412', '0.415', '1'], ['W-015', '0.288', '0.291', '2']],
-  lowSpikes: [['spiked', 'blank'], ['0.21', '0.02'], ['0.18', 'ND']],
+  recovery: [
+    ['id', 'level', 'added', 'found', 'native'],
+    ['R1', 'low', '1.0', '0.982', '0'],
+    ['R2', 'low', '1.0', '1.013', '0'],
+  ],
+  precision: [
+    ['group', 'value'],
+    ['day 1', '5.02'],
+    ['day 1', '4.97'],
+  ],
+  unknowns: [
+    ['id', 'y1', 'y2', 'dilution'],
+    ['W-014', '0.412', '0.415', '1'],
+    ['W-015', '0.288', '0.291', '2'],
+  ],
+  lowSpikes: [
+    ['spiked', 'blank'],
+    ['0.21', '0.02'],
+    ['0.18', 'ND'],
+  ],
 };
 
 /** A CSV template: the header and two rows of invented numbers. */
@@ -113,7 +162,11 @@ export function resolveMapping(section: ImportSection, columns: string[], reques
   for (const [key, source] of Object.entries(requested)) {
     if (!isKnownTarget(section, key)) {
       const fields = SECTION_FIELDS[section].map((f) => f.key).join(', ');
-      errors.push({ field: `mapping.${key}`, code: 'unknown_field', message: `“${key}” is not a field of ${section}; the fields are ${fields}.` });
+      errors.push({
+        field: `mapping.${key}`,
+        code: 'unknown_field',
+        message: `“${key}” is not a field of ${section}; the fields are ${fields}.`,
+      });
       continue;
     }
     if (source === null || source === '') {
@@ -146,11 +199,14 @@ export function resolveMapping(section: ImportSection, columns: string[], reques
   for (const f of SECTION_FIELDS[section]) claim(f.key, (header) => f.aliases.some((alias) => header.startsWith(`${alias} `)));
 
   const leftOver = columns.filter((_, i) => !used.has(i));
-  const unmatched = leftOver.length ? ` Columns that match nothing: ${leftOver.map((c) => `“${c}”`).join(', ')}.` : ' The file has no other column.';
+  const unmatched = leftOver.length
+    ? ` Columns that match nothing: ${leftOver.map((c) => `“${c}”`).join(', ')}.`
+    : ' The file has no other column.';
   const missing = (key: string, what: string) =>
     errors.push({ field: `mapping.${key}`, code: 'unmapped', message: `No column for ${what}.${unmatched} Choose one in the mapping.` });
   for (const f of SECTION_FIELDS[section]) if (f.required && !(f.key in mapping)) missing(f.key, `${f.key} (${f.label})`);
-  if (section === 'unknowns' && !Object.keys(mapping).some((key) => key === 'y' || REPLICATE_KEY.test(key))) missing('y', 'the responses (y, or y1, y2…)');
+  if (section === 'unknowns' && !Object.keys(mapping).some((key) => key === 'y' || REPLICATE_KEY.test(key)))
+    missing('y', 'the responses (y, or y1, y2…)');
   if (section === 'lowSpikes' && !('spiked' in mapping) && !('blank' in mapping)) missing('spiked', 'spiked results or blank results');
   return { mapping, errors };
 }
@@ -185,13 +241,20 @@ function readRow(row: TableRow, index: number, section: ImportSection, mapping: 
       continue;
     }
     const number = parseNumber(cell as Cell, table.decimalComma);
-    if (number === undefined) errors.push({ field: `rows[${index}].${key}`, code: 'not_number', message: `${where}: “${text}” is not a number.` });
+    if (number === undefined)
+      errors.push({ field: `rows[${index}].${key}`, code: 'not_number', message: `${where}: “${text}” is not a number.` });
     else values[key] = number;
   }
   return values;
 }
 
-function buildRows(section: ImportSection, records: Record<string, number | string | null | undefined>[], mapping: ImportMapping, table: ImportTable, errors: FieldError[]): ImportedRows {
+function buildRows(
+  section: ImportSection,
+  records: Record<string, number | string | null | undefined>[],
+  mapping: ImportMapping,
+  table: ImportTable,
+  errors: FieldError[],
+): ImportedRows {
   const num = (value: unknown) => value as number;
   const text = (value: unknown) => value as string;
   switch (section) {
@@ -223,7 +286,11 @@ function buildRows(section: ImportSection, records: Record<string, number | stri
         sample.y.push(...y);
         if (r.dilution !== undefined) {
           if (sample.dilution !== undefined && sample.dilution !== r.dilution) {
-            errors.push({ field: `rows[${i}].dilution`, code: 'conflict', message: `${where}: sample “${id}” has another dilution factor on an earlier row.` });
+            errors.push({
+              field: `rows[${i}].dilution`,
+              code: 'conflict',
+              message: `${where}: sample “${id}” has another dilution factor on an earlier row.`,
+            });
           }
           sample.dilution = num(r.dilution);
         }

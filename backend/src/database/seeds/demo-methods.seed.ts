@@ -51,11 +51,19 @@ const METHODS: DemoMethod[] = [
     purpose: 'environmental',
     createdDaysAgo: 420,
     versions: [
-      { number: 1, status: 'retired', changeSummary: 'First release: 0.5–25 mg/L on the 4 mm anion column.', criteria: template('environmental').criteria, createdBy: 'quality@meritline.test', createdDaysAgo: 420 },
+      {
+        number: 1,
+        status: 'retired',
+        changeSummary: 'First release: 0.5–25 mg/L on the 4 mm anion column.',
+        criteria: template('environmental').criteria,
+        createdBy: 'quality@meritline.test',
+        createdDaysAgo: 420,
+      },
       {
         number: 2,
         status: 'active',
-        changeSummary: 'New guard and analytical column (smaller particles); range extended to 0.2–50 mg/L; detection limit by the MDL procedure.',
+        changeSummary:
+          'New guard and analytical column (smaller particles); range extended to 0.2–50 mg/L; detection limit by the MDL procedure.',
         criteria: nitrateCriteria,
         createdBy: 'quality@meritline.test',
         createdDaysAgo: 45,
@@ -71,7 +79,16 @@ const METHODS: DemoMethod[] = [
     yUnit: 'AU',
     purpose: 'assay',
     createdDaysAgo: 90,
-    versions: [{ number: 1, status: 'active', changeSummary: 'First release: 1–12 mg/L after degassing and dilution.', criteria: template('assay').criteria, createdBy: 'quality@meritline.test', createdDaysAgo: 90 }],
+    versions: [
+      {
+        number: 1,
+        status: 'active',
+        changeSummary: 'First release: 1–12 mg/L after degassing and dilution.',
+        criteria: template('assay').criteria,
+        createdBy: 'quality@meritline.test',
+        createdDaysAgo: 90,
+      },
+    ],
   },
   {
     name: DEMO_METHODS.pesticide,
@@ -83,7 +100,14 @@ const METHODS: DemoMethod[] = [
     purpose: 'residue',
     createdDaysAgo: 150,
     versions: [
-      { number: 1, status: 'active', changeSummary: 'First release: 1–100 µg/kg, 1/x² weighting.', criteria: pesticideCriteria, createdBy: 'quality@meritline.test', createdDaysAgo: 150 },
+      {
+        number: 1,
+        status: 'active',
+        changeSummary: 'First release: 1–100 µg/kg, 1/x² weighting.',
+        criteria: pesticideCriteria,
+        createdBy: 'quality@meritline.test',
+        createdDaysAgo: 150,
+      },
       {
         number: 2,
         status: 'draft',
@@ -102,8 +126,13 @@ export async function seedDemoMethods(manager: EntityManager) {
   const user = (email: string) => users.find((u) => u.email === email) as User;
   for (const { versions, createdDaysAgo, ...fields } of METHODS) {
     const owner = user('quality@meritline.test');
-    const method = await manager.save(manager.create(Method, { ...fields, createdById: owner.id, createdAt: daysAgo(createdDaysAgo), updatedAt: daysAgo(createdDaysAgo) }));
-    await audit.record({ actor: owner, action: 'method.created', entity: 'method', entityId: method.id, changes: { name: { from: null, to: method.name } } }, manager);
+    const method = await manager.save(
+      manager.create(Method, { ...fields, createdById: owner.id, createdAt: daysAgo(createdDaysAgo), updatedAt: daysAgo(createdDaysAgo) }),
+    );
+    await audit.record(
+      { actor: owner, action: 'method.created', entity: 'method', entityId: method.id, changes: { name: { from: null, to: method.name } } },
+      manager,
+    );
     for (const version of versions) {
       const author = user(version.createdBy);
       const saved = await manager.save(
@@ -119,14 +148,39 @@ export async function seedDemoMethods(manager: EntityManager) {
         }),
       );
       await audit.record(
-        { actor: author, action: 'method-version.created', entity: 'method-version', entityId: saved.id, changes: { number: { from: null, to: version.number } }, reason: version.changeSummary },
+        {
+          actor: author,
+          action: 'method-version.created',
+          entity: 'method-version',
+          entityId: saved.id,
+          changes: { number: { from: null, to: version.number } },
+          reason: version.changeSummary,
+        },
         manager,
       );
       if (version.status !== 'draft') {
-        await audit.record({ actor: owner, action: 'method-version.activated', entity: 'method-version', entityId: saved.id, changes: { status: { from: 'draft', to: 'active' } } }, manager);
+        await audit.record(
+          {
+            actor: owner,
+            action: 'method-version.activated',
+            entity: 'method-version',
+            entityId: saved.id,
+            changes: { status: { from: 'draft', to: 'active' } },
+          },
+          manager,
+        );
       }
       if (version.status === 'retired') {
-        await audit.record({ actor: owner, action: 'method-version.retired', entity: 'method-version', entityId: saved.id, changes: { status: { from: 'active', to: 'retired' } } }, manager);
+        await audit.record(
+          {
+            actor: owner,
+            action: 'method-version.retired',
+            entity: 'method-version',
+            entityId: saved.id,
+            changes: { status: { from: 'active', to: 'retired' } },
+          },
+          manager,
+        );
       }
     }
   }

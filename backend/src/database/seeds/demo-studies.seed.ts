@@ -83,7 +83,9 @@ function studyData(s: Scenario): StudyData {
   if (s.unknowns) {
     data.unknowns = s.unknowns.map(({ id, x, m, dilution }) => ({
       id,
-      y: Array.from({ length: m }, () => round(response(x / (dilution ?? 1)) + noise(s.responseSd(response(x / (dilution ?? 1)))), s.yDecimals)),
+      y: Array.from({ length: m }, () =>
+        round(response(x / (dilution ?? 1)) + noise(s.responseSd(response(x / (dilution ?? 1)))), s.yDecimals),
+      ),
       ...(dilution ? { dilution } : {}),
     }));
   }
@@ -195,13 +197,17 @@ interface DemoStudy {
 
 /** The first replicate of the lowest standard reads well off the line: a point a reviewer questions. */
 function withLowStandardOffLine(data: StudyData): StudyData {
-  const standards = (data.standards as { x: number; y: number }[]).map((point, i) => (i === 0 ? { ...point, y: round(point.y * 1.35, 5) } : point));
+  const standards = (data.standards as { x: number; y: number }[]).map((point, i) =>
+    i === 0 ? { ...point, y: round(point.y * 1.35, 5) } : point,
+  );
   return { ...data, standards };
 }
 
 function withExcludedStandard(data: StudyData): StudyData {
   const standards = (data.standards as { x: number; y: number }[]).map((point, i) =>
-    i === 13 ? { ...point, y: round(point.y * 1.09, 4), excluded: { reason: 'Air bubble in the sample loop; injection repeated.' } } : point,
+    i === 13
+      ? { ...point, y: round(point.y * 1.09, 4), excluded: { reason: 'Air bubble in the sample loop; injection repeated.' } }
+      : point,
   );
   return { ...data, standards };
 }
@@ -219,7 +225,12 @@ const STUDIES: DemoStudy[] = [
     author: 'analyst2@meritline.test',
     status: 'approved',
     data: studyData(nitrate(416, [0.5, 1, 2.5, 5, 10, 15, 25])),
-    meta: { instrument: 'IC-1, suppressed conductivity', startedOn: isoDay(410), finishedOn: isoDay(404), conclusion: 'Linear from 0.5 to 25 mg/L; recovery and precision within the criteria.' },
+    meta: {
+      instrument: 'IC-1, suppressed conductivity',
+      startedOn: isoDay(410),
+      finishedOn: isoDay(404),
+      conclusion: 'Linear from 0.5 to 25 mg/L; recovery and precision within the criteria.',
+    },
     createdDaysAgo: 410,
     updatedDaysAgo: 403,
     submittedDaysAgo: 403,
@@ -251,7 +262,12 @@ const STUDIES: DemoStudy[] = [
     author: 'analyst@meritline.test',
     status: 'submitted',
     data: studyData(tartrazine),
-    meta: { instrument: 'UV-Vis 1, 1 cm glass cell', startedOn: isoDay(9), finishedOn: isoDay(4), conclusion: 'All criteria met; fit for the assay of tartrazine in soft drinks.' },
+    meta: {
+      instrument: 'UV-Vis 1, 1 cm glass cell',
+      startedOn: isoDay(9),
+      finishedOn: isoDay(4),
+      conclusion: 'All criteria met; fit for the assay of tartrazine in soft drinks.',
+    },
     createdDaysAgo: 9,
     updatedDaysAgo: 2,
     submittedDaysAgo: 2,
@@ -322,7 +338,13 @@ export async function seedDemoStudies(manager: EntityManager) {
       }),
     );
     await audit.record(
-      { actor: author, action: 'study.created', entity: 'study', entityId: study.id, changes: { title: { from: null, to: study.title }, dataHash: { from: null, to: study.dataHash } } },
+      {
+        actor: author,
+        action: 'study.created',
+        entity: 'study',
+        entityId: study.id,
+        changes: { title: { from: null, to: study.title }, dataHash: { from: null, to: study.dataHash } },
+      },
       manager,
     );
   }

@@ -4,8 +4,19 @@ import { CRITERION_OPS, type CriterionOp } from '@meritline/shared';
 import { OptionalText } from './text.decorators.js';
 
 const RESULT_SECTIONS = [
-  'calibration', 'lackOfFit', 'mandel', 'interceptTest', 'throughOrigin', 'homoscedasticity', 'unknowns',
-  'checks', 'detection', 'recovery', 'precision', 'outliers', 'range',
+  'calibration',
+  'lackOfFit',
+  'mandel',
+  'interceptTest',
+  'throughOrigin',
+  'homoscedasticity',
+  'unknowns',
+  'checks',
+  'detection',
+  'recovery',
+  'precision',
+  'outliers',
+  'range',
 ];
 const FIGURE_PATTERN = new RegExp(`^(${RESULT_SECTIONS.join('|')})(\\.[A-Za-z0-9_-]+|\\[[A-Za-z0-9_-]+\\])+$`);
 

@@ -53,6 +53,7 @@ export class CriteriaTemplateDto {
   @ApiProperty({ example: 'Assay of a major component' }) name: string;
   @ApiProperty() description: string;
   @ApiProperty({ type: [CriterionDto] }) criteria: CriterionDto[];
-  @ApiProperty({ type: MethodVersionSettingsViewDto, description: 'Typical settings for this purpose.' }) settings: MethodVersionSettingsViewDto;
+  @ApiProperty({ type: MethodVersionSettingsViewDto, description: 'Typical settings for this purpose.' })
+  settings: MethodVersionSettingsViewDto;
   @ApiProperty({ description: 'Where the thresholds come from (common practice) and the cautions that go with them.' }) note: string;
 }

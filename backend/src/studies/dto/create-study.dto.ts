@@ -16,7 +16,8 @@ export class CreateStudyDto {
   @ApiProperty({
     type: 'object',
     additionalProperties: true,
-    description: 'The study in the engine’s input format (standards, blanks, recovery, precision, unknowns, lowSpikes…). The method version’s criteria replace any given here.',
+    description:
+      'The study in the engine’s input format (standards, blanks, recovery, precision, unknowns, lowSpikes…). The method version’s criteria replace any given here.',
   })
   @IsObject({ message: 'The study data must be an object.' })
   data: Record<string, unknown>;

@@ -14,7 +14,10 @@ export class ImportStudyDto {
   @IsIn(IMPORT_SECTIONS, { message: `Choose the section: ${IMPORT_SECTIONS.join(', ')}.` })
   section: ImportSection;
 
-  @ApiPropertyOptional({ description: 'JSON: { "<target field>": "<column header>" }; auto-mapped when left out.', example: '{"x":"Conc (mg/L)","y":"Area"}' })
+  @ApiPropertyOptional({
+    description: 'JSON: { "<target field>": "<column header>" }; auto-mapped when left out.',
+    example: '{"x":"Conc (mg/L)","y":"Area"}',
+  })
   @IsOptional()
   @IsString()
   @MaxLength(4000)

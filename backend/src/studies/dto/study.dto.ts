@@ -39,7 +39,12 @@ export class StudyDto {
   @ApiProperty({ type: StudyMethodVersionDto }) methodVersion: StudyMethodVersionDto;
   @ApiProperty({ type: 'object', additionalProperties: true, description: 'The study in the engine’s input format, as stored.' })
   data: Record<string, unknown>;
-  @ApiProperty({ type: 'object', additionalProperties: true, nullable: true, description: 'The engine’s result for exactly `data`; null while the data cannot be evaluated yet.' })
+  @ApiProperty({
+    type: 'object',
+    additionalProperties: true,
+    nullable: true,
+    description: 'The engine’s result for exactly `data`; null while the data cannot be evaluated yet.',
+  })
   result: Record<string, unknown> | null;
   @ApiProperty({ type: [FieldErrorDto], nullable: true, description: 'Why `data` cannot be evaluated yet.' })
   resultErrors: FieldErrorDto[] | null;
