@@ -186,6 +186,9 @@ function UserMenu({ user, onSignOut }: { user: SessionUser; onSignOut: () => voi
               <Text fontSize="xs" color="fg.muted">
                 {user.email}
               </Text>
+              <Text fontSize="xs" color="fg.muted">
+                {formatRoles(user.roles)}
+              </Text>
             </Box>
             <Menu.Separator />
             <Menu.Item value="password" asChild>
