@@ -1,3 +1,4 @@
+import { loadavg } from 'node:os';
 import { Bench } from 'tinybench';
 import { fitCalibration } from '../engine/calibration.js';
 import { fitLine } from '../engine/regression.js';
@@ -10,7 +11,10 @@ const typicalStudy = {
     [0, 1, 2].map((r) => ({ x, y: 0.012 + 0.2051 * x * (1 + 0.004 * Math.sin(3 * level + r)) + 0.0021 * Math.cos(7 * level + 2 * r) })),
   ),
   blanks: [0.011, 0.013, 0.0095, 0.0122, 0.0108, 0.0131, 0.0117, 0.0099, 0.0126, 0.0114],
-  unknowns: [{ id: 'S1', y: [2.071, 2.083] }, { id: 'S2', y: [6.52, 6.49, 6.55], dilution: 2 }],
+  unknowns: [
+    { id: 'S1', y: [2.071, 2.083] },
+    { id: 'S2', y: [6.52, 6.49, 6.55], dilution: 2 },
+  ],
   recovery: [0.982, 1.011, 0.994, 10.12, 9.87, 10.05, 30.4, 29.7, 30.2].map((found, i) => ({
     id: `R${i}`,
     level: ['low', 'mid', 'high'][Math.floor(i / 3)],
@@ -36,51 +40,61 @@ function line(n: number): StandardPoint[] {
   });
 }
 
-const ms = (v: number) => (v < 0.1 ? v.toFixed(4) : v < 10 ? v.toFixed(3) : v.toFixed(1));
+interface Case {
+  name: string;
+  points: number;
+  run: () => void;
+}
 
-async function main(): Promise<void> {
-  const firstStart = performance.now();
-  evaluateStudy(typicalStudy);
-  const firstMs = performance.now() - firstStart;
-
-  const quick = new Bench({ time: 1500, warmupTime: 200 });
-  quick.add('typical study, full evaluation', () => {
-    evaluateStudy(typicalStudy);
-  });
-  const big = new Bench({ time: 0, iterations: 6, warmupIterations: 1 });
+function cases(): Case[] {
+  const list: Case[] = [{ name: 'typical study, full evaluation', points: 21, run: () => void evaluateStudy(typicalStudy) }];
   for (const n of [100, 10_000, 1_000_000]) {
     const data = line(n);
     const xs = data.map((p) => p.x);
     const ys = data.map((p) => p.y);
     const ones = new Float64Array(n).fill(1);
-    const target = n >= 1_000_000 ? big : quick;
     const size = n.toLocaleString('en');
-    target.add(`least-squares line, n = ${size}`, () => {
-      fitLine(xs, ys, ones);
-    });
-    target.add(`full linear calibration, n = ${size}`, () => {
-      fitCalibration(data);
-    });
+    list.push({ name: `least-squares line, n = ${size}`, points: n, run: () => void fitLine(xs, ys, ones) });
+    list.push({ name: `full linear calibration, n = ${size}`, points: n, run: () => void fitCalibration(data) });
   }
+  return list;
+}
+
+/** CPU time (user + system, all threads, GC included) per call over a loop of about `budgetMs`. */
+function cpuPerCall(run: () => void, budgetMs: number): number {
+  const probe = process.cpuUsage();
+  run();
+  const once = Math.max(1e-3, (process.cpuUsage(probe).user + process.cpuUsage(probe).system) / 2000);
+  const calls = Math.max(3, Math.min(200_000, Math.round(budgetMs / once)));
+  const start = process.cpuUsage();
+  for (let i = 0; i < calls; i++) run();
+  const used = process.cpuUsage(start);
+  return (used.user + used.system) / 1000 / calls;
+}
+
+const fmt = (v: number) => (v < 0.1 ? v.toFixed(4) : v < 10 ? v.toFixed(3) : v.toFixed(1));
+
+async function main(): Promise<void> {
+  const firstStart = performance.now();
+  evaluateStudy(typicalStudy);
+  const firstMs = performance.now() - firstStart;
+  const list = cases();
+
+  const quick = new Bench({ time: 1500, warmupTime: 200 });
+  const big = new Bench({ time: 0, iterations: 6, warmupIterations: 1 });
+  for (const c of list) (c.points >= 1_000_000 ? big : quick).add(c.name, c.run);
   await quick.run();
   await big.run();
-  const tasks = [...quick.tasks, ...big.tasks];
+  const wall = new Map([...quick.tasks, ...big.tasks].map((t) => [t.name, t.result]));
 
-  console.log(`node ${process.version}, ${process.platform}/${process.arch}`);
-  console.log(`first evaluation of the typical study (cold caches, JIT warm-up): ${ms(firstMs)} ms`);
-  console.log('task | median ms | mean ms | samples | points/s');
-  for (const task of tasks) {
-    const result = task.result;
-    if (result.state !== 'completed') {
-      console.log(`${task.name} | ${result.state}`);
-      continue;
-    }
-    const n = /n = ([\d,]+)/.exec(task.name)?.[1];
-    const points = n ? Number(n.replace(/,/g, '')) : 21;
-    const median = result.latency.p50;
-    console.log(
-      `${task.name} | ${ms(median)} | ${ms(result.latency.mean)} | ${result.latency.samplesCount} | ${Math.round((points / median) * 1000).toLocaleString('en')}`,
-    );
+  console.log(`node ${process.version}, ${process.platform}/${process.arch}, load average ${loadavg()[0].toFixed(1)}`);
+  console.log(`first evaluation of the typical study (cold caches, JIT warm-up): ${fmt(firstMs)} ms`);
+  console.log('task | wall median ms | CPU ms per call | points/s (CPU)');
+  for (const c of list) {
+    const result = wall.get(c.name);
+    const median = result && result.state === 'completed' ? fmt(result.latency.p50) : (result?.state ?? 'missing');
+    const cpu = cpuPerCall(c.run, c.points >= 1_000_000 ? 3000 : 1500);
+    console.log(`${c.name} | ${median} | ${fmt(cpu)} | ${Math.round((c.points / cpu) * 1000).toLocaleString('en')}`);
   }
 }
 

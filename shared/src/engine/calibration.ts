@@ -21,8 +21,8 @@ export interface FitOptions {
   twoPoint?: { bracketing: boolean };
 }
 
+/** A standard used by the fit (the caller's own object; never copied). */
 export interface FitPoint {
-  index: number;
   x: number;
   y: number;
   sd?: number;
@@ -34,6 +34,8 @@ export interface CalibrationFit {
   weighting: Weighting;
   confidence: number;
   points: FitPoint[];
+  /** Position of each point in the study's `standards` array. */
+  indices: number[];
   calibration: CalibrationResult;
   /** Regression core (null for one- and two-point calibrations). */
   core: RegressionCore | null;
@@ -97,11 +99,13 @@ function fail(code: string, message: string, field = 'standards'): never {
 
 function usedPoints(standards: readonly StandardPoint[]): {
   points: FitPoint[];
+  indices: number[];
   xs: number[];
   ys: number[];
   excluded: ExcludedStandard[];
 } {
   const points: FitPoint[] = [];
+  const indices: number[] = [];
   const xs: number[] = [];
   const ys: number[] = [];
   const excluded: ExcludedStandard[] = [];
@@ -111,11 +115,12 @@ function usedPoints(standards: readonly StandardPoint[]): {
       excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
       continue;
     }
-    points.push({ index, x: s.x, y: s.y, sd: s.sd });
+    points.push(s);
+    indices.push(index);
     xs.push(s.x);
     ys.push(s.y);
   }
-  return { points, xs, ys, excluded };
+  return { points, indices, xs, ys, excluded };
 }
 
 /** Real root of c2 z² + c1 z + c0 = 0 on the branch that covers [zLo, zHi]. */
@@ -228,7 +233,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
-  const { points, xs, ys, excluded } = usedPoints(standards);
+  const { points, indices, xs, ys, excluded } = usedPoints(standards);
   const n = points.length;
   if (n === 0) fail('too_few', 'no standards to calibrate with');
   const distinct = new Set(xs).size;
@@ -333,11 +338,11 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
   assertComputable([slope, intercept]);
 
   const residuals = core ? core.residuals : points.map((p) => p.y - predict(p.x));
-  const backCalculated: BackCalculatedPoint[] = points.map((p) => {
+  const backCalculated: BackCalculatedPoint[] = points.map((p, i) => {
     const xBack = inverse(p.y);
     const finite = xBack !== null && Number.isFinite(xBack) ? xBack : null;
     return {
-      index: p.index,
+      index: indices[i],
       x: p.x,
       y: p.y,
       xBack: finite,
@@ -427,5 +432,5 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
       anova: null,
     };
   }
-  return { model, weighting, confidence, points, calibration, core, segments, weightAt, predict, slopeAt, inverse };
+  return { model, weighting, confidence, points, indices, calibration, core, segments, weightAt, predict, slopeAt, inverse };
 }

@@ -102,7 +102,8 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
   const flags: OutlierFlag[] = [];
   const sets: ValueSet[] = [];
   if (study.blanks) sets.push({ name: 'blanks', values: [...study.blanks], indices: study.blanks.map((_, i) => i) });
-  const levels = [...groupBy(fit?.points ?? [], (p) => p.x).entries()].sort(([a], [b]) => a - b);
+  const indexed = fit ? fit.points.map((p, i) => ({ x: p.x, y: p.y, index: fit.indices[i] })) : [];
+  const levels = [...groupBy(indexed, (p) => p.x).entries()].sort(([a], [b]) => a - b);
   for (const [x, points] of levels) {
     sets.push({ name: `standards x=${x}`, values: points.map((p) => p.y), indices: points.map((p) => p.index) });
   }
@@ -133,7 +134,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
       test: 'standardizedResidual',
       statistic: Math.abs(standardized[position]),
       critical: 3,
-      index: fit.points[position].index,
+      index: fit.indices[position],
       value: fit.calibration.residuals[position],
       outlier: Math.abs(standardized[position]) > 3,
     });
