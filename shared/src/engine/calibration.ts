@@ -228,118 +228,224 @@ function assertComputable(values: number[]): void {
   }
 }
 
+/** A calibration curve: how to go from x to y and back, with its least-squares core if any. */
+interface Curve {
+  core: RegressionCore | null;
+  segments: BracketSegment[] | null;
+  slope: number;
+  intercept: number;
+  predict(x: number): number;
+  slopeAt(x: number): number;
+  inverse(y: number): number | null;
+}
+
+function straight(slope: number, intercept: number, segments: BracketSegment[] | null = null): Curve {
+  return {
+    core: null,
+    segments,
+    slope,
+    intercept,
+    predict: (x) => intercept + slope * x,
+    slopeAt: () => slope,
+    inverse: (y) => (y - intercept) / slope,
+  };
+}
+
+function onePointCurve(ys: number[], levels: number, x: number): Curve {
+  if (levels !== 1) fail('too_many_levels', 'a one-point calibration takes one standard level');
+  if (x <= 0) fail('not_positive', 'the one-point standard must have a concentration above zero');
+  const slope = mean(ys) / x;
+  if (slope === 0) fail('zero_slope', 'the standard response is zero: zero slope');
+  return straight(slope, 0);
+}
+
+function twoPointCurve(points: FitPoint[], levels: number, bracketing: boolean): Curve {
+  if (points.length < 2 || levels < 2) fail('all_x_equal', 'a two-point calibration needs two standards at different x');
+  if (levels > 2 && !bracketing) fail('too_many_levels', 'a two-point calibration takes two standard levels');
+  const built = buildSegments(points);
+  const low = built.levels[0];
+  const high = built.levels[built.levels.length - 1];
+  const slope = (high.yMean - low.yMean) / (high.x - low.x);
+  const outer = straight(slope, low.yMean - slope * low.x);
+  if (!bracketing) return outer;
+  const segs = built.segments;
+  const segmentAt = (x: number) => segs.find((seg) => x <= seg.xHigh) ?? segs[segs.length - 1];
+  return {
+    ...outer,
+    segments: segs,
+    predict: (x) => segmentAt(x).intercept + segmentAt(x).slope * x,
+    slopeAt: (x) => segmentAt(x).slope,
+    inverse: (y) => {
+      const seg = pickSegment(segs, y);
+      return (y - seg.intercept) / seg.slope;
+    },
+  };
+}
+
+function regressionCurve(
+  model: CalibrationModel,
+  xs: number[],
+  ys: number[],
+  w: ArrayLike<number>,
+  levels: number,
+  xMin: number,
+  xMax: number,
+): Curve {
+  const minPoints = model === 'quadratic' ? 4 : 3;
+  if (xs.length < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${xs.length} given)`);
+  if (levels < 2) fail('all_x_equal', 'all standards have the same x');
+  if (model === 'quadratic') {
+    if (levels < 3) fail('too_few_levels', 'a quadratic calibration needs at least 3 distinct x');
+    const q = fitQuadratic(xs, ys, w);
+    assertComputable([q.sxx, q.ssTotal, q.a, q.b, q.c, q.s]);
+    if (q.b === 0 && q.c === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
+    const [c0, c1, c2] = q.zCoefficients;
+    return {
+      core: q,
+      segments: null,
+      slope: q.b,
+      intercept: q.a,
+      predict: (x) => {
+        const z = (x - q.centre) / q.scale;
+        return c0 + z * (c1 + z * c2);
+      },
+      slopeAt: (x) => q.b + 2 * q.c * x,
+      inverse: (y) => invertQuadratic(q, y, xMin, xMax),
+    };
+  }
+  const origin = model === 'linear-through-origin';
+  const line = origin ? fitThroughOrigin(xs, ys) : fitLine(xs, ys, w);
+  assertComputable([line.sxx, line.ssTotal, line.a, line.b, line.s]);
+  if (line.b === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
+  const cx = origin ? 0 : line.xMean;
+  const cy = origin ? 0 : line.yMean;
+  return {
+    core: line,
+    segments: null,
+    slope: line.b,
+    intercept: line.a,
+    predict: (x) => cy + line.b * (x - cx),
+    slopeAt: () => line.b,
+    inverse: (y) => cx + (y - cy) / line.b,
+  };
+}
+
+type Statistics = Omit<
+  CalibrationResult,
+  'model' | 'weighting' | 'n' | 'slope' | 'intercept' | 'xMin' | 'xMax' | 'residuals' | 'backCalculated' | 'levels' | 'segments' | 'excluded'
+>;
+
+function regressionStatistics(
+  core: RegressionCore,
+  model: CalibrationModel,
+  confidence: number,
+  bandXs: number[],
+  curve: Curve,
+  weightAt: (x: number) => number,
+): Statistics {
+  const t = core.df > 0 ? studentQuantile((1 + confidence) / 2, core.df) : null;
+  const ci = (estimate: number, se: number | null) => (t === null || se === null ? null : interval(estimate, t * se));
+  const quadratic = model === 'quadratic';
+  const r2 = core.ssTotal > 0 ? 1 - core.ssResidual / core.ssTotal : 1;
+  const dfTotal = model === 'linear-through-origin' ? core.n : core.n - 1;
+  const msResidual = core.df > 0 ? core.ssResidual / core.df : 0;
+  const msRegression = core.ssRegression / core.dfRegression;
+  const F = msResidual > 0 ? msRegression / msResidual : null;
+  return {
+    df: core.df,
+    seSlope: core.seB,
+    seIntercept: core.seA,
+    ciSlope: ci(core.b, core.seB),
+    ciIntercept: ci(core.a, core.seA),
+    curvature: quadratic ? core.c : null,
+    seCurvature: quadratic ? core.seC : null,
+    ciCurvature: quadratic ? ci(core.c, core.seC) : null,
+    r: (quadratic ? 1 : Math.sign(core.b)) * Math.sqrt(Math.max(0, r2)),
+    r2,
+    adjR2: core.df > 0 ? 1 - ((1 - r2) * dfTotal) / core.df : null,
+    sYX: core.s,
+    t,
+    xMean: core.xMean,
+    yMean: core.yMean,
+    sxx: core.sxx,
+    sumWeights: core.sumWeights,
+    standardizedResiduals: core.residuals.map((e) => (core.s > 0 ? e / core.s : 0)),
+    bands: t === null ? null : bandXs.map((x) => band(core, t, x, curve.predict, weightAt)),
+    anova: {
+      dfRegression: core.dfRegression,
+      ssRegression: core.ssRegression,
+      msRegression,
+      dfResidual: core.df,
+      ssResidual: core.ssResidual,
+      msResidual,
+      F,
+      p: F === null ? null : fUpper(F, core.dfRegression, core.df),
+    },
+  };
+}
+
+function noRegressionStatistics(xs: number[], ys: number[]): Statistics {
+  return {
+    df: null,
+    seSlope: null,
+    seIntercept: null,
+    ciSlope: null,
+    ciIntercept: null,
+    curvature: null,
+    seCurvature: null,
+    ciCurvature: null,
+    r: null,
+    r2: null,
+    adjR2: null,
+    sYX: null,
+    t: null,
+    xMean: mean(xs),
+    yMean: mean(ys),
+    sxx: sumSquaredDeviations(xs),
+    sumWeights: xs.length,
+    standardizedResiduals: null,
+    bands: null,
+    anova: null,
+  };
+}
+
+function checkWeighting(model: CalibrationModel, weighting: Weighting, points: FitPoint[], xMin: number): void {
+  if (weighting === 'none') return;
+  if (model !== 'linear' && model !== 'quadratic') fail('incompatible', 'weighting applies only to linear and quadratic', 'weighting');
+  if (weighting === '1/s2') {
+    if (points.some((p) => !(p.sd !== undefined && p.sd > 0))) fail('required', 'weighting 1/s2 needs the SD of every standard');
+  } else if (xMin <= 0) {
+    fail('not_positive', `weighting ${weighting} needs every standard above zero`);
+  }
+}
+
 /** Fits a calibration of the chosen model to the standards that are not excluded. */
 export function fitCalibration(standards: readonly StandardPoint[], options: FitOptions = {}): CalibrationFit {
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
   const { points, indices, xs, ys, excluded } = usedPoints(standards);
-  const n = points.length;
-  if (n === 0) fail('too_few', 'no standards to calibrate with');
-  const distinct = new Set(xs).size;
+  if (points.length === 0) fail('too_few', 'no standards to calibrate with');
+  const levels = new Set(xs).size;
   let xMin = Infinity;
   let xMax = -Infinity;
   for (const x of xs) {
     if (x < xMin) xMin = x;
     if (x > xMax) xMax = x;
   }
-  if (weighting !== 'none') {
-    if (model !== 'linear' && model !== 'quadratic') fail('incompatible', `weighting applies only to linear and quadratic`, 'weighting');
-    if (weighting === '1/s2') {
-      if (points.some((p) => !(p.sd !== undefined && p.sd > 0))) fail('required', 'weighting 1/s2 needs the SD of every standard');
-    } else if (xMin <= 0) {
-      fail('not_positive', `weighting ${weighting} needs every standard above zero`);
-    }
-  }
+  checkWeighting(model, weighting, points, xMin);
   const { w, weightAt } = makeWeights(points, weighting);
 
-  let core: RegressionCore | null = null;
-  let segments: BracketSegment[] | null = null;
-  let predict: (x: number) => number;
-  let slopeAt: (x: number) => number;
-  let inverse: (y: number) => number | null;
-  let slope: number;
-  let intercept: number;
+  const curve =
+    model === 'one-point'
+      ? onePointCurve(ys, levels, xMin)
+      : model === 'two-point'
+        ? twoPointCurve(points, levels, options.twoPoint?.bracketing === true)
+        : regressionCurve(model, xs, ys, w, levels, xMin, xMax);
+  assertComputable([curve.slope, curve.intercept]);
 
-  if (model === 'one-point') {
-    if (distinct !== 1) fail('too_many_levels', 'a one-point calibration takes one standard level');
-    if (xMin <= 0) fail('not_positive', 'the one-point standard must have a concentration above zero');
-    slope = mean(ys) / xMin;
-    intercept = 0;
-    if (slope === 0) fail('zero_slope', 'the standard response is zero: zero slope');
-    predict = (x) => slope * x;
-    slopeAt = () => slope;
-    inverse = (y) => y / slope;
-  } else if (model === 'two-point') {
-    if (n < 2 || distinct < 2) fail('all_x_equal', 'a two-point calibration needs two standards at different x');
-    const bracketing = options.twoPoint?.bracketing === true;
-    if (distinct > 2 && !bracketing) fail('too_many_levels', 'a two-point calibration takes two standard levels');
-    const built = buildSegments(points);
-    const outer: BracketSegment = {
-      xLow: built.levels[0].x,
-      xHigh: built.levels[built.levels.length - 1].x,
-      slope: 0,
-      intercept: 0,
-    };
-    outer.slope = (built.levels[built.levels.length - 1].yMean - built.levels[0].yMean) / (outer.xHigh - outer.xLow);
-    outer.intercept = built.levels[0].yMean - outer.slope * outer.xLow;
-    slope = outer.slope;
-    intercept = outer.intercept;
-    if (bracketing) {
-      const segs = built.segments;
-      segments = segs;
-      const segmentAtX = (x: number) => segs.find((s) => x <= s.xHigh) ?? segs[segs.length - 1];
-      predict = (x) => {
-        const s = segmentAtX(x);
-        return s.intercept + s.slope * x;
-      };
-      slopeAt = (x) => segmentAtX(x).slope;
-      inverse = (y) => {
-        const s = pickSegment(segs, y);
-        return (y - s.intercept) / s.slope;
-      };
-    } else {
-      predict = (x) => intercept + slope * x;
-      slopeAt = () => slope;
-      inverse = (y) => (y - intercept) / slope;
-    }
-  } else {
-    const minPoints = model === 'quadratic' ? 4 : 3;
-    if (n < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${n} given)`);
-    if (distinct < 2) fail('all_x_equal', 'all standards have the same x');
-    if (model === 'quadratic' && distinct < 3) fail('too_few_levels', 'a quadratic calibration needs at least 3 distinct x');
-    if (model === 'quadratic') {
-      const q = fitQuadratic(xs, ys, w);
-      core = q;
-      assertComputable([q.sxx, q.ssTotal, q.a, q.b, q.c, q.s]);
-      if (q.b === 0 && q.c === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
-      predict = (x) => {
-        const z = (x - q.centre) / q.scale;
-        return q.zCoefficients[0] + z * (q.zCoefficients[1] + z * q.zCoefficients[2]);
-      };
-      slopeAt = (x) => q.b + 2 * q.c * x;
-      inverse = (y) => invertQuadratic(q, y, xMin, xMax);
-    } else {
-      const line = model === 'linear-through-origin' ? fitThroughOrigin(xs, ys) : fitLine(xs, ys, w);
-      core = line;
-      assertComputable([line.sxx, line.ssTotal, line.a, line.b, line.s]);
-      if (line.b === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
-      predict = (x) => line.yMean + line.b * (x - line.xMean);
-      if (model === 'linear-through-origin') predict = (x) => line.b * x;
-      slopeAt = () => line.b;
-      inverse =
-        model === 'linear-through-origin'
-          ? (y) => y / line.b
-          : (y) => line.xMean + (y - line.yMean) / line.b;
-    }
-    slope = core.b;
-    intercept = core.a;
-  }
-  assertComputable([slope, intercept]);
-
-  const residuals = core ? core.residuals : points.map((p) => p.y - predict(p.x));
   const backCalculated: BackCalculatedPoint[] = points.map((p, i) => {
-    const xBack = inverse(p.y);
+    const xBack = curve.inverse(p.y);
     const finite = xBack !== null && Number.isFinite(xBack) ? xBack : null;
     return {
       index: indices[i],
@@ -349,88 +455,36 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
       rePct: finite === null || p.x === 0 ? null : (100 * (finite - p.x)) / p.x,
     };
   });
-
-  let calibration: CalibrationResult;
-  const base = {
+  const statistics = curve.core
+    ? regressionStatistics(curve.core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt)
+    : noRegressionStatistics(xs, ys);
+  const calibration: CalibrationResult = {
     model,
     weighting,
-    n,
-    slope,
-    intercept,
+    n: points.length,
+    slope: curve.slope,
+    intercept: curve.intercept,
+    ...statistics,
     xMin,
     xMax,
-    residuals,
+    residuals: curve.core ? curve.core.residuals : points.map((p) => p.y - curve.predict(p.x)),
     backCalculated,
     levels: levelSummaries(backCalculated),
-    segments,
+    segments: curve.segments,
     excluded,
   };
-  if (core) {
-    const t = core.df > 0 ? studentQuantile((1 + confidence) / 2, core.df) : null;
-    const ci = (estimate: number, se: number | null) => (t === null || se === null ? null : interval(estimate, t * se));
-    const isOrigin = model === 'linear-through-origin';
-    const r2 = core.ssTotal > 0 ? 1 - core.ssResidual / core.ssTotal : 1;
-    const dfTotal = isOrigin ? n : n - 1;
-    const msResidual = core.df > 0 ? core.ssResidual / core.df : 0;
-    const msRegression = core.ssRegression / core.dfRegression;
-    const F = msResidual > 0 ? msRegression / msResidual : null;
-    const c = core;
-    calibration = {
-      ...base,
-      df: core.df,
-      seSlope: core.seB,
-      seIntercept: core.seA,
-      ciSlope: ci(core.b, core.seB),
-      ciIntercept: core.seA === null ? null : ci(core.a, core.seA),
-      curvature: model === 'quadratic' ? core.c : null,
-      seCurvature: model === 'quadratic' ? core.seC : null,
-      ciCurvature: model === 'quadratic' ? ci(core.c, core.seC) : null,
-      r: model === 'quadratic' ? Math.sqrt(Math.max(0, r2)) : Math.sign(core.b) * Math.sqrt(Math.max(0, r2)),
-      r2,
-      adjR2: core.df > 0 ? 1 - ((1 - r2) * dfTotal) / core.df : null,
-      sYX: core.s,
-      t,
-      xMean: core.xMean,
-      yMean: core.yMean,
-      sxx: core.sxx,
-      sumWeights: core.sumWeights,
-      standardizedResiduals: residuals.map((e) => (core.s > 0 ? e / core.s : 0)),
-      bands: t === null ? null : linspace(xMin, xMax, BAND_POINTS).map((x) => band(c, t, x, predict, weightAt)),
-      anova: {
-        dfRegression: core.dfRegression,
-        ssRegression: core.ssRegression,
-        msRegression,
-        dfResidual: core.df,
-        ssResidual: core.ssResidual,
-        msResidual,
-        F,
-        p: F === null ? null : fUpper(F, core.dfRegression, core.df),
-      },
-    };
-  } else {
-    calibration = {
-      ...base,
-      df: null,
-      seSlope: null,
-      seIntercept: null,
-      ciSlope: null,
-      ciIntercept: null,
-      curvature: null,
-      seCurvature: null,
-      ciCurvature: null,
-      r: null,
-      r2: null,
-      adjR2: null,
-      sYX: null,
-      t: null,
-      xMean: mean(xs),
-      yMean: mean(ys),
-      sxx: sumSquaredDeviations(xs),
-      sumWeights: n,
-      standardizedResiduals: null,
-      bands: null,
-      anova: null,
-    };
-  }
-  return { model, weighting, confidence, points, indices, calibration, core, segments, weightAt, predict, slopeAt, inverse };
+  return {
+    model,
+    weighting,
+    confidence,
+    points,
+    indices,
+    calibration,
+    core: curve.core,
+    segments: curve.segments,
+    weightAt,
+    predict: curve.predict,
+    slopeAt: curve.slopeAt,
+    inverse: curve.inverse,
+  };
 }
