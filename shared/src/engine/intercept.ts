@@ -43,7 +43,7 @@ export function interceptTest(fit: CalibrationFit, warn: Warn): InterceptTestRes
  */
 export function throughOrigin(
   fit: CalibrationFit,
-  unknowns: (UnknownResult & { yMean: number })[],
+  unknowns: readonly UnknownResult[],
   warn: Warn,
 ): ThroughOriginResult | null {
   const xs = fit.points.map((p) => p.x);
