@@ -21,6 +21,17 @@ describe('Lack-of-fit F on the Pontius load-cell data (NIST/SEMATECH e-Handbook 
     expectRel(lof.p, pontius.recomputed_linear.p_value, 1e-6, 'p');
   });
 
+  it('straight line: the e-Handbook printout of the fit (Dataplot, about 6 digits)', () => {
+    const published = pontius.published;
+    const cal = evaluateStudy({ model: 'linear', standards: data }).calibration!;
+    expectRel(cal.intercept, published.B0, 1e-5, 'B0');
+    expectRel(cal.slope, published.B1, 1e-5, 'B1');
+    expectRel(cal.seIntercept, published.sd_B0, 1e-4, 'sd B0 (4 digits printed)');
+    expectRel(cal.seSlope, published.sd_B1, 1e-4, 'sd B1 (4 digits printed)');
+    expectRel(cal.sYX, published.residual_sd, 1e-5, 'residual SD');
+    expect(cal.df).toBe(published.residual_df);
+  });
+
   it('quadratic: F = 0.81072 (printed 0.8107, from memory), not significant', () => {
     const lof = evaluateStudy({ model: 'quadratic', standards: data }).lackOfFit!;
     expectRel(lof.F, pontius.recomputed_quadratic.F_lack_of_fit, 1e-9, 'F');

@@ -1,5 +1,6 @@
 import {
   cochranCritical,
+  evaluateStudy,
   DIXON_R10_95,
   fQuantile,
   grubbsCritical,
@@ -73,6 +74,22 @@ describe("Cochran's C critical values (cochran_c_critical_values.csv: formula; c
 });
 
 describe('Horwitz function (Horwitz 1980; AOAC OMA Appendix F 2012 Table D1, horwitz_horrat.json)', () => {
+  it('HorRat examples of the reference file', () => {
+    for (const ex of loadJson('horwitz_horrat.json').examples) {
+      const predicted = horwitzRsd(ex.C);
+      expectRel(predicted, ex.PRSD_R_pct ?? ex.PRSD_R_pct_Horwitz, 1e-12, `PRSD_R at C = ${ex.C}`);
+      const observed = ex.observed_RSD_R_pct ?? ex.observed_RSD_r_pct;
+      expectRel(observed / predicted, ex.HorRat_R ?? ex.HorRat_r ?? ex.HorRat_R_Horwitz, 1e-12, `HorRat at C = ${ex.C}`);
+    }
+  });
+
+  it('the engine reports HorRat = RSD_I / PRSD_R for a precision study', () => {
+    const precision = [1.0, 1.2, 0.9, 1.1, 1.3, 0.8].map((value, i) => ({ group: `day ${i % 2}`, value }));
+    const result = evaluateStudy({ precision, massFraction: 1e-6 }).precision!;
+    expectRel(result.horwitz!.predictedRsd, 16, 1e-12, 'PRSD_R at 1 mg/kg (AOAC Table D1: 16 %)');
+    expectRel(result.horwitz!.horRat, result.rsdI! / 16, 1e-12, 'HorRat');
+  });
+
   const ref = loadJson('horwitz_horrat.json');
   const table: Record<string, number | null>[] = ref.table;
   it.each(table)('C = $C_mass_fraction', (row) => {
