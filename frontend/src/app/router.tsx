@@ -29,6 +29,8 @@ export const routes: RouteObject[] = [
             element: <RequireRole roles={[Role.Analyst]} />,
             children: [
               { path: paths.studies.path, lazy: page(() => import('@/features/studies/routes/studies')) },
+              { path: paths.studyNew.path, lazy: page(() => import('@/features/studies/routes/new-study')) },
+              { path: paths.studyEdit.path, lazy: page(() => import('@/features/studies/routes/study-wizard')) },
               { path: paths.runs.path, lazy: page(() => import('@/features/runs/routes/routine-batches')) },
               { path: paths.runNew.path, lazy: page(() => import('@/features/runs/routes/new-run')) },
               { path: paths.runDetail.path, lazy: page(() => import('@/features/runs/routes/run-detail')) },
@@ -47,9 +49,16 @@ export const routes: RouteObject[] = [
             children: [{ path: paths.studyView.path, lazy: page(() => import('@/features/reviews/routes/study-view')) }],
           },
           {
-            element: <RequireRole roles={[Role.QualityManager]} />,
+            // Analysts read methods and may propose drafts; quality managers and administrators decide.
+            element: <RequireRole roles={[Role.Analyst, Role.QualityManager, Role.Admin]} />,
             children: [
               { path: paths.methods.path, lazy: page(() => import('@/features/methods/routes/methods')) },
+              { path: paths.methodDetail.path, lazy: page(() => import('@/features/methods/routes/method-detail')) },
+            ],
+          },
+          {
+            element: <RequireRole roles={[Role.QualityManager]} />,
+            children: [
               { path: paths.methodComparison.path, lazy: page(() => import('@/features/methods/routes/version-comparison')) },
             ],
           },

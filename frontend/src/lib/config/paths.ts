@@ -19,6 +19,11 @@ export const paths = {
   changePassword: { path: '/account/password', getHref: () => '/account/password' },
 
   studies: { path: '/studies', getHref: () => '/studies' },
+  studyNew: { path: '/studies/new', getHref: () => '/studies/new' },
+  studyEdit: {
+    path: '/studies/:studyId/edit',
+    getHref: (studyId: string, step?: number) => withQuery(`/studies/${encodeURIComponent(studyId)}/edit`, { step: step ? String(step) : undefined }),
+  },
   runs: { path: '/runs', getHref: () => '/runs' },
   runNew: { path: '/runs/new', getHref: (query: { versionId?: string; from?: string } = {}) => withQuery('/runs/new', query) },
   runControlChart: { path: '/runs/control-chart', getHref: (versionId?: string) => withQuery('/runs/control-chart', { versionId }) },
@@ -26,6 +31,7 @@ export const paths = {
   reviews: { path: '/reviews', getHref: () => '/reviews' },
   studyView: { path: '/studies/:studyId', getHref: (studyId: string) => `/studies/${encodeURIComponent(studyId)}` },
   methods: { path: '/methods', getHref: () => '/methods' },
+  methodDetail: { path: '/methods/:methodId', getHref: (methodId: string) => `/methods/${encodeURIComponent(methodId)}` },
   methodComparison: { path: '/methods/compare', getHref: () => '/methods/compare' },
   verify: { path: '/verify', getHref: () => '/verify' },
 

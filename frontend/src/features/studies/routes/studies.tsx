@@ -1,11 +1,128 @@
+import { Button, HStack, Stack, Text } from '@chakra-ui/react';
+import type { StudyStatus } from '@meritline/shared';
+import { useQuery } from '@tanstack/react-query';
+import { useCallback, useMemo } from 'react';
+import { Link as RouterLink, useSearchParams } from 'react-router';
+import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
+import { QueryError } from '@/components/query-error';
+import { paths } from '@/lib/config/paths';
+import { methodChoicesQueries } from '../api/method-choices-queries';
+import { studiesQueries } from '../api/studies-queries';
+import { STUDY_SORTS, type StudyListParams, type StudySort } from '../api/types';
+import { StudiesFilters, type StudyFilters } from '../components/list/studies-filters';
+import { studiesColumns } from '../components/list/studies-columns';
+
+const PAGE_SIZE = 20;
+const STATUSES: StudyStatus[] = ['draft', 'submitted', 'returned', 'approved'];
+
+function paramsFrom(search: URLSearchParams): StudyListParams {
+  const status = search.get('status') as StudyStatus | null;
+  const sort = search.get('sort') as StudySort | null;
+  const page = Number(search.get('page'));
+  return {
+    status: status && STATUSES.includes(status) ? status : undefined,
+    methodId: search.get('methodId') || undefined,
+    mine: search.get('mine') === 'true',
+    from: search.get('from') || undefined,
+    to: search.get('to') || undefined,
+    q: search.get('q') || undefined,
+    sort: sort && STUDY_SORTS.includes(sort) ? sort : 'updatedAt',
+    order: search.get('order') === 'asc' ? 'asc' : 'desc',
+    page: Number.isInteger(page) && page > 0 ? page : 1,
+    pageSize: PAGE_SIZE,
+  };
+}
 
 export default function ValidationStudiesPage() {
+  const [search, setSearch] = useSearchParams();
+  const params = paramsFrom(search);
+  const studies = useQuery(studiesQueries.list(params));
+  const methods = useQuery(methodChoicesQueries.list());
+
+  const update = useCallback(
+    (changes: Record<string, string | undefined>) =>
+      setSearch(
+        (current) => {
+          const next = new URLSearchParams(current);
+          for (const [key, value] of Object.entries(changes)) {
+            if (value) next.set(key, value);
+            else next.delete(key);
+          }
+          return next;
+        },
+        { replace: true },
+      ),
+    [setSearch],
+  );
+
+  const onFilters = useCallback(
+    (filters: StudyFilters) =>
+      update({ status: filters.status, methodId: filters.methodId, mine: filters.mine ? 'true' : undefined, from: filters.from, to: filters.to, q: filters.q, page: undefined }),
+    [update],
+  );
+
+  const { sort, order } = params;
+  const onSort = useCallback(
+    (by: StudySort) => update({ sort: by, order: sort === by && order === 'desc' ? 'asc' : 'desc', page: undefined }),
+    [update, sort, order],
+  );
+  const columns = useMemo(() => studiesColumns({ sort, order, onSort }), [sort, order, onSort]);
+
+  const total = studies.data?.total ?? 0;
+  const first = total === 0 ? 0 : (params.page - 1) * PAGE_SIZE + 1;
+  const last = Math.min(params.page * PAGE_SIZE, total);
+  const filters: StudyFilters = { status: params.status, methodId: params.methodId, mine: params.mine ?? false, from: params.from, to: params.to, q: params.q };
+
   return (
-    <PageHeader
-      section="Bench work"
-      title="Validation studies"
-      description="Plan a validation, enter the calibration standards and responses, and see linearity, LOD/LOQ, recovery and precision against the method's acceptance criteria."
-    />
+    <>
+      <PageHeader
+        section="Bench work"
+        title="Validation studies"
+        description="Plan a validation, enter the calibration standards and responses, and see linearity, LOD/LOQ, recovery and precision against the method's acceptance criteria."
+        actions={
+          <HStack gap="2">
+            <Button asChild variant="outline">
+              <RouterLink to={paths.methods.getHref()}>Methods</RouterLink>
+            </Button>
+            <Button asChild>
+              <RouterLink to={paths.studyNew.getHref()}>New study</RouterLink>
+            </Button>
+          </HStack>
+        }
+      />
+      <Stack gap="4">
+        <StudiesFilters filters={filters} methods={methods.data ?? []} onChange={onFilters} />
+        {studies.isError ? (
+          <QueryError error={studies.error} onRetry={() => void studies.refetch()} />
+        ) : (
+          <DataTable
+            label="Validation studies"
+            columns={columns}
+            data={studies.data?.items}
+            getRowId={(study) => study.id}
+            isLoading={studies.isPending}
+            emptyTitle={search.size > 0 ? 'No study matches the filters' : 'No studies yet'}
+            emptyDescription={search.size > 0 ? 'Change or clear the filters.' : 'Start one with “New study”.'}
+          />
+        )}
+        {total > 0 && (
+          <HStack justify="space-between">
+            <Text fontSize="sm" color="fg.muted" aria-live="polite">
+              Studies {first}–{last} of {total}
+              {studies.isFetching && ' · updating…'}
+            </Text>
+            <HStack gap="2">
+              <Button size="sm" variant="outline" disabled={params.page <= 1} onClick={() => update({ page: String(params.page - 1) })}>
+                Previous
+              </Button>
+              <Button size="sm" variant="outline" disabled={last >= total} onClick={() => update({ page: String(params.page + 1) })}>
+                Next
+              </Button>
+            </HStack>
+          </HStack>
+        )}
+      </Stack>
+    </>
   );
 }

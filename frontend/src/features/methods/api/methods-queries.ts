@@ -1,0 +1,17 @@
+import { queryOptions } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { MethodDto } from './types';
+
+export const methodsQueries = {
+  all: ['methods'] as const,
+  list: () =>
+    queryOptions({
+      queryKey: [...methodsQueries.all, 'list'],
+      queryFn: ({ signal }) => api.get<MethodDto[]>('/methods', { signal }),
+    }),
+  detail: (id: string) =>
+    queryOptions({
+      queryKey: [...methodsQueries.all, 'detail', id],
+      queryFn: ({ signal }) => api.get<MethodDto>(`/methods/${encodeURIComponent(id)}`, { signal }),
+    }),
+};

@@ -1,0 +1,26 @@
+import type { MethodVersionStatus } from '@meritline/shared';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import { versionBody, type VersionFormValues } from './create-version';
+import { methodsQueries } from './methods-queries';
+import type { MethodVersionDto } from './types';
+
+/** Edits a draft version's criteria and settings; the server answers 409 when someone saved first or the version is no longer a draft. */
+export function useUpdateVersion(version: Pick<MethodVersionDto, 'id' | 'lockVersion'>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (values: VersionFormValues) =>
+      api.patch<MethodVersionDto>(`/method-versions/${encodeURIComponent(version.id)}`, { lockVersion: version.lockVersion, ...versionBody(values) }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: methodsQueries.all }),
+    meta: { inlineErrors: true },
+  });
+}
+
+export function useChangeVersionStatus(version: Pick<MethodVersionDto, 'id' | 'lockVersion'>) {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: (status: MethodVersionStatus) =>
+      api.patch<MethodVersionDto>(`/method-versions/${encodeURIComponent(version.id)}`, { lockVersion: version.lockVersion, status }),
+    onSettled: () => queryClient.invalidateQueries({ queryKey: methodsQueries.all }),
+  });
+}

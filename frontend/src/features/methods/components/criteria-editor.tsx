@@ -1,0 +1,127 @@
+import { Box, Button, Field, Grid, HStack, IconButton, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
+import { CRITERION_OPS, type CriterionOp } from '@meritline/shared';
+import { FieldArray, getIn, useFormikContext } from 'formik';
+import { useId } from 'react';
+import { FIGURE_LABELS, figureLabel } from '@/components/study-results';
+import type { CriterionRow } from '../api/version-rules';
+
+const OP_LABELS: Record<CriterionOp, string> = {
+  '>=': 'at least',
+  '<=': 'at most',
+  '>': 'above',
+  '<': 'below',
+  between: 'from … to',
+  'abs<=': 'within ± (absolute value at most)',
+};
+
+const NEW_ROW: CriterionRow = { figure: '', label: '', op: '>=', value: '', high: '' };
+
+/** The acceptance criteria of a version as editable rows: figure, comparison, limit(s) and a name for people. */
+export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
+  const { values, errors, touched, submitCount, setFieldValue, setFieldTouched } = useFormikContext<Record<string, unknown>>();
+  const rows = (getIn(values, name) as CriterionRow[]) ?? [];
+  const listId = useId();
+  const errorAt = (i: number, key: keyof CriterionRow): string | undefined => {
+    const error = getIn(errors, `${name}.${i}.${key}`);
+    const shown = submitCount > 0 || getIn(touched, `${name}.${i}.${key}`);
+    return shown && typeof error === 'string' ? error : undefined;
+  };
+
+  return (
+    <FieldArray name={name}>
+      {({ push, remove }) => (
+        <Stack gap="3">
+          <datalist id={listId}>
+            {Object.entries(FIGURE_LABELS).map(([figure, label]) => (
+              <option key={figure} value={figure}>
+                {label}
+              </option>
+            ))}
+          </datalist>
+          {rows.length === 0 && (
+            <Text color="fg.muted" fontSize="sm">
+              No criteria yet. Studies on this version will show every figure but no verdict.
+            </Text>
+          )}
+          {rows.map((row, i) => {
+            const prefix = `${name}.${i}`;
+            return (
+              <Box key={i} borderWidth="1px" borderColor="border" borderRadius="l2" p="3" role="group" aria-label={`Criterion ${i + 1}`}>
+                <Grid templateColumns={{ base: '1fr', md: '2fr 2fr 1.4fr 1fr 1fr auto' }} gap="3" alignItems="start">
+                  <Field.Root invalid={Boolean(errorAt(i, 'figure'))}>
+                    <Field.Label>Figure</Field.Label>
+                    <Input
+                      list={listId}
+                      value={row.figure}
+                      placeholder="calibration.r2"
+                      fontFamily="mono"
+                      onChange={(e) => void setFieldValue(`${prefix}.figure`, e.target.value)}
+                      onBlur={() => void setFieldTouched(`${prefix}.figure`, true)}
+                    />
+                    {errorAt(i, 'figure') ? (
+                      <Field.ErrorText>{errorAt(i, 'figure')}</Field.ErrorText>
+                    ) : (
+                      row.figure && <Field.HelperText>{figureLabel(row.figure)}</Field.HelperText>
+                    )}
+                  </Field.Root>
+                  <Field.Root invalid={Boolean(errorAt(i, 'label'))}>
+                    <Field.Label>Name shown to people</Field.Label>
+                    <Input value={row.label} placeholder="Optional" onChange={(e) => void setFieldValue(`${prefix}.label`, e.target.value)} />
+                    {errorAt(i, 'label') && <Field.ErrorText>{errorAt(i, 'label')}</Field.ErrorText>}
+                  </Field.Root>
+                  <Field.Root>
+                    <Field.Label>Comparison</Field.Label>
+                    <NativeSelect.Root>
+                      <NativeSelect.Field value={row.op} onChange={(e) => void setFieldValue(`${prefix}.op`, e.target.value)}>
+                        {CRITERION_OPS.map((op) => (
+                          <option key={op} value={op}>
+                            {OP_LABELS[op]}
+                          </option>
+                        ))}
+                      </NativeSelect.Field>
+                      <NativeSelect.Indicator />
+                    </NativeSelect.Root>
+                  </Field.Root>
+                  <Field.Root invalid={Boolean(errorAt(i, 'value'))}>
+                    <Field.Label>{row.op === 'between' ? 'From' : 'Limit'}</Field.Label>
+                    <Input
+                      inputMode="decimal"
+                      value={row.value}
+                      onChange={(e) => void setFieldValue(`${prefix}.value`, e.target.value)}
+                      onBlur={() => void setFieldTouched(`${prefix}.value`, true)}
+                    />
+                    {errorAt(i, 'value') && <Field.ErrorText>{errorAt(i, 'value')}</Field.ErrorText>}
+                  </Field.Root>
+                  {row.op === 'between' ? (
+                    <Field.Root invalid={Boolean(errorAt(i, 'high'))}>
+                      <Field.Label>To</Field.Label>
+                      <Input
+                        inputMode="decimal"
+                        value={row.high}
+                        onChange={(e) => void setFieldValue(`${prefix}.high`, e.target.value)}
+                        onBlur={() => void setFieldTouched(`${prefix}.high`, true)}
+                      />
+                      {errorAt(i, 'high') && <Field.ErrorText>{errorAt(i, 'high')}</Field.ErrorText>}
+                    </Field.Root>
+                  ) : (
+                    <Box display={{ base: 'none', md: 'block' }} />
+                  )}
+                  <HStack pt={{ base: '0', md: '6' }}>
+                    <IconButton size="sm" variant="ghost" colorPalette="red" aria-label={`Remove criterion ${i + 1}`} onClick={() => remove(i)}>
+                      ×
+                    </IconButton>
+                  </HStack>
+                </Grid>
+              </Box>
+            );
+          })}
+          <Box>
+            <Button size="sm" variant="outline" onClick={() => push({ ...NEW_ROW })}>
+              Add a criterion
+            </Button>
+          </Box>
+        </Stack>
+      )}
+    </FieldArray>
+  );
+}

@@ -1,0 +1,37 @@
+import { Stack, Text } from '@chakra-ui/react';
+import { DataTable, dataTableColumns } from '@/components/data-table';
+import { criterionName, describeRequirement, figureUnit, type CriterionDefinition } from '@/components/study-results';
+
+const column = dataTableColumns<CriterionDefinition & { id: string }>();
+const columns = column.columns([
+  column.display({
+    id: 'name',
+    header: 'Criterion',
+    cell: (info) => (
+      <Stack gap="0">
+        <Text fontWeight="500">{criterionName(info.row.original)}</Text>
+        <Text fontSize="xs" color="fg.muted" fontFamily="mono">
+          {info.row.original.figure}
+        </Text>
+      </Stack>
+    ),
+  }),
+  column.display({
+    id: 'requirement',
+    header: 'Required',
+    cell: (info) => describeRequirement(info.row.original.op, info.row.original.value, figureUnit(info.row.original.figure)),
+  }),
+]);
+
+export function CriteriaList({ criteria, label }: { criteria: readonly CriterionDefinition[]; label: string }) {
+  return (
+    <DataTable
+      label={label}
+      columns={columns}
+      data={criteria.map((c, i) => ({ ...c, id: String(i) }))}
+      getRowId={(row) => row.id}
+      emptyTitle="No acceptance criteria"
+      emptyDescription="Studies on this version get figures but no verdict."
+    />
+  );
+}

@@ -1,0 +1,31 @@
+import { Checkbox, SimpleGrid } from '@chakra-ui/react';
+import { FormField } from '@/components/form/form-field';
+
+/** The settings of a method version that decide how its studies and routine batches are handled. */
+export function SettingsFields() {
+  return (
+    <SimpleGrid columns={{ base: 1, md: 3 }} gap="4" alignItems="start">
+      <FormField
+        name="settings.checkTolerancePct"
+        label="Check standard tolerance (± %)"
+        type="number"
+        helperText="Routine batches accept a check standard recovering within 100 ± this %."
+      />
+      <FormField
+        name="settings.onePointMaxInterceptPct"
+        label="One-point calibration allowed up to an intercept of (% of top response)"
+        type="number"
+        helperText="A single standard is allowed only when the intercept is this small."
+      />
+      <FormField name="settings.requiresQualityRelease" label="Release">
+        {(field, helpers) => (
+          <Checkbox.Root checked={Boolean(field.value)} onCheckedChange={(e) => void helpers.setValue(e.checked === true)} alignItems="flex-start">
+            <Checkbox.HiddenInput />
+            <Checkbox.Control mt="0.5" />
+            <Checkbox.Label fontWeight="400">A quality manager releases each study after the reviewer approves it</Checkbox.Label>
+          </Checkbox.Root>
+        )}
+      </FormField>
+    </SimpleGrid>
+  );
+}

@@ -1,0 +1,74 @@
+import { Box, DataList, Heading, HStack, Stack, Text } from '@chakra-ui/react';
+import { formatDateTime } from '@/lib/format';
+import type { MethodDto, MethodVersionDto } from '../api/types';
+import { CriteriaList } from './criteria-list';
+import { VersionFormDialog } from './version-form-dialog';
+import { VersionStatusAction } from './version-status-action';
+import { VersionStatusBadge, versionStatusHint } from './version-status-badge';
+
+export interface VersionCardProps {
+  method: MethodDto;
+  version: MethodVersionDto;
+  /** Quality managers and administrators edit drafts and change status. */
+  canManage: boolean;
+}
+
+export function VersionCard({ method, version, canManage }: VersionCardProps) {
+  const { settings } = version;
+  return (
+    <Box
+      as="article"
+      aria-labelledby={`version-${version.id}`}
+      borderWidth="1px"
+      borderColor={version.status === 'active' ? 'brand.solid' : 'border'}
+      borderLeftWidth="4px"
+      borderRadius="l3"
+      bg="bg.panel"
+      p={{ base: '4', md: '6' }}
+    >
+      <Stack gap="5">
+        <HStack justify="space-between" align="flex-start" wrap="wrap" gap="3">
+          <Stack gap="1">
+            <HStack gap="3">
+              <Heading as="h3" size="lg" id={`version-${version.id}`}>
+                Version {version.number}
+              </Heading>
+              <VersionStatusBadge status={version.status} />
+            </HStack>
+            <Text fontSize="sm" color="fg.muted">
+              {versionStatusHint(version.status)} Created {formatDateTime(version.createdAt)} by {version.createdBy.name}.
+            </Text>
+          </Stack>
+          {canManage && (
+            <HStack gap="2" wrap="wrap">
+              {version.status === 'draft' && <VersionFormDialog method={method} mode="edit" version={version} triggerLabel="Edit criteria and settings" />}
+              <VersionStatusAction version={version} />
+            </HStack>
+          )}
+        </HStack>
+        <Text whiteSpace="pre-wrap">{version.changeSummary}</Text>
+        <DataList.Root orientation="horizontal" size="sm" variant="subtle">
+          <DataList.Item>
+            <DataList.ItemLabel>Validation studies</DataList.ItemLabel>
+            <DataList.ItemValue>
+              {version.studyCount} ({version.approvedStudyCount} approved)
+            </DataList.ItemValue>
+          </DataList.Item>
+          <DataList.Item>
+            <DataList.ItemLabel>Check standard tolerance</DataList.ItemLabel>
+            <DataList.ItemValue>± {settings.checkTolerancePct} %</DataList.ItemValue>
+          </DataList.Item>
+          <DataList.Item>
+            <DataList.ItemLabel>One-point calibration</DataList.ItemLabel>
+            <DataList.ItemValue>allowed up to an intercept of {settings.onePointMaxInterceptPct} % of the top response</DataList.ItemValue>
+          </DataList.Item>
+          <DataList.Item>
+            <DataList.ItemLabel>Release of studies</DataList.ItemLabel>
+            <DataList.ItemValue>{settings.requiresQualityRelease ? 'A quality manager releases after review' : 'Approval by the reviewer is enough'}</DataList.ItemValue>
+          </DataList.Item>
+        </DataList.Root>
+        <CriteriaList criteria={version.criteria} label={`Acceptance criteria of version ${version.number}`} />
+      </Stack>
+    </Box>
+  );
+}

@@ -1,0 +1,11 @@
+import { hasAnyRole, Role } from '@meritline/shared';
+import { useSession } from '@/features/auth/use-session';
+
+/** Quality managers and administrators decide on methods; analysts may propose drafts. */
+export function useMethodPermissions() {
+  const { user } = useSession();
+  const roles = user?.roles ?? [];
+  const canManage = hasAnyRole(roles, [Role.QualityManager, Role.Admin]);
+  const canPropose = canManage || hasAnyRole(roles, [Role.Analyst]);
+  return { canManage, canPropose };
+}

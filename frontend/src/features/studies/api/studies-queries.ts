@@ -1,0 +1,30 @@
+import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { StudyDto, StudyListParams, StudyPage } from './types';
+
+function listSearch(params: StudyListParams): string {
+  const search = new URLSearchParams();
+  for (const [key, value] of Object.entries(params)) {
+    if (value === undefined || value === '' || value === false) continue;
+    search.set(key, String(value));
+  }
+  return search.toString();
+}
+
+export const studiesQueries = {
+  all: ['studies'] as const,
+  list: (params: StudyListParams) =>
+    queryOptions({
+      queryKey: [...studiesQueries.all, 'list', params],
+      queryFn: ({ signal }) => api.get<StudyPage>(`/studies?${listSearch(params)}`, { signal }),
+      placeholderData: keepPreviousData,
+    }),
+  detail: (id: string) =>
+    queryOptions({
+      queryKey: [...studiesQueries.all, 'detail', id],
+      queryFn: ({ signal }) => api.get<StudyDto>(`/studies/${encodeURIComponent(id)}`, { signal }),
+      // The wizard holds its own draft; a background refetch must not overwrite what is being typed.
+      staleTime: Infinity,
+      refetchOnWindowFocus: false,
+    }),
+};

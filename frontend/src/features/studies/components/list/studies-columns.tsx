@@ -1,0 +1,96 @@
+import { Button, chakra, Link, Stack, Text } from '@chakra-ui/react';
+import { Link as RouterLink } from 'react-router';
+import { dataTableColumns } from '@/components/data-table';
+import { CriterionMark } from '@/components/study-results';
+import { paths } from '@/lib/config/paths';
+import { formatDateTime } from '@/lib/format';
+import type { StudySort, StudySummary } from '../../api/types';
+import { StudyStatusBadge } from '../study-status-badge';
+
+export interface ServerSort {
+  sort: StudySort;
+  order: 'asc' | 'desc';
+  onSort: (sort: StudySort) => void;
+}
+
+const SortButton = chakra('button', {
+  base: {
+    display: 'inline-flex',
+    alignItems: 'center',
+    gap: '1.5',
+    font: 'inherit',
+    letterSpacing: 'inherit',
+    textTransform: 'inherit',
+    color: 'inherit',
+    cursor: 'pointer',
+    borderRadius: 'l1',
+    _hover: { color: 'fg' },
+    _focusVisible: { outline: '2px solid', outlineColor: 'colorPalette.focusRing', outlineOffset: '2px' },
+  },
+});
+
+function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: ServerSort }) {
+  const active = sort.sort === by;
+  const direction = active ? (sort.order === 'asc' ? 'ascending' : 'descending') : 'not sorted';
+  return (
+    <SortButton type="button" onClick={() => sort.onSort(by)} aria-label={`${label}, ${direction}; sort by ${label.toLowerCase()}`}>
+      {label}
+      <Text as="span" aria-hidden="true" color={active ? 'brand.fg' : 'fg.subtle'}>
+        {active ? (sort.order === 'asc' ? '↑' : '↓') : '↕'}
+      </Text>
+    </SortButton>
+  );
+}
+
+const column = dataTableColumns<StudySummary>();
+
+/** Columns of the studies list; the sortable headers ask the server to sort. */
+export function studiesColumns(sort: ServerSort) {
+  return column.columns([
+    column.accessor('title', {
+      header: () => <SortHeader label="Title" by="title" sort={sort} />,
+      cell: (info) => (
+        <Stack gap="0">
+          <Link asChild fontWeight="600" color="brand.fg">
+            <RouterLink to={paths.studyEdit.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
+          </Link>
+          <Text fontSize="sm" color="fg.muted">
+            {info.row.original.method.name}, version {info.row.original.methodVersion.number}
+          </Text>
+        </Stack>
+      ),
+    }),
+    column.accessor('status', { header: () => <SortHeader label="Status" by="status" sort={sort} />, cell: (info) => <StudyStatusBadge status={info.getValue()} /> }),
+    column.accessor('verdictPass', {
+      header: 'Verdict',
+      cell: (info) => <CriterionMark pass={info.getValue()} />,
+    }),
+    column.accessor((s) => s.author.name, { id: 'author', header: 'Author' }),
+    column.accessor('createdAt', {
+      header: () => <SortHeader label="Created" by="createdAt" sort={sort} />,
+      meta: { align: 'end' },
+      cell: (info) => formatDateTime(info.getValue()),
+    }),
+    column.accessor('updatedAt', {
+      header: () => <SortHeader label="Last change" by="updatedAt" sort={sort} />,
+      meta: { align: 'end' },
+      cell: (info) => formatDateTime(info.getValue()),
+    }),
+    column.display({
+      id: 'open',
+      header: () => <Text srOnly>Open</Text>,
+      meta: { align: 'end' },
+      cell: (info) => {
+        const study = info.row.original;
+        const editable = study.status === 'draft' || study.status === 'returned';
+        return (
+          <Button asChild size="xs" variant={editable ? 'solid' : 'outline'}>
+            <RouterLink to={paths.studyEdit.getHref(study.id, editable ? 2 : 6)} aria-label={`${editable ? 'Resume' : 'Open'} ${study.title}`}>
+              {editable ? 'Resume' : 'Open'}
+            </RouterLink>
+          </Button>
+        );
+      },
+    }),
+  ]);
+}

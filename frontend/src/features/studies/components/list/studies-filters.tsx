@@ -1,0 +1,96 @@
+import { Button, Checkbox, Field, HStack, Input, NativeSelect, Wrap } from '@chakra-ui/react';
+import type { StudyStatus } from '@meritline/shared';
+import { useEffect, useState } from 'react';
+import type { MethodChoice } from '../../api/types';
+import { STUDY_STATUS_WORDS } from '../study-status-badge';
+
+export interface StudyFilters {
+  status?: StudyStatus;
+  methodId?: string;
+  mine: boolean;
+  from?: string;
+  to?: string;
+  q?: string;
+}
+
+export interface StudiesFiltersProps {
+  filters: StudyFilters;
+  methods: readonly MethodChoice[];
+  onChange: (filters: StudyFilters) => void;
+}
+
+/** Status, method, mine, a date range on the last change and the title: each narrows the list on the server. */
+export function StudiesFilters({ filters, methods, onChange }: StudiesFiltersProps) {
+  const [q, setQ] = useState(filters.q ?? '');
+  useEffect(() => {
+    if ((filters.q ?? '') === q.trim()) return;
+    const timer = setTimeout(() => onChange({ ...filters, q: q.trim() || undefined }), 350);
+    return () => clearTimeout(timer);
+  }, [q, filters, onChange]);
+
+  const active = Boolean(filters.status || filters.methodId || filters.mine || filters.from || filters.to || filters.q);
+  return (
+    <Wrap gap="4" align="flex-end" borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p="4" role="search" aria-label="Filter the studies">
+      <Field.Root maxW="18rem">
+        <Field.Label>Title contains</Field.Label>
+        <Input value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. nitrate" type="search" />
+      </Field.Root>
+      <Field.Root maxW="14rem">
+        <Field.Label>Status</Field.Label>
+        <NativeSelect.Root>
+          <NativeSelect.Field value={filters.status ?? ''} onChange={(e) => onChange({ ...filters, status: (e.target.value || undefined) as StudyStatus | undefined })}>
+            <option value="">Any status</option>
+            {Object.entries(STUDY_STATUS_WORDS).map(([status, words]) => (
+              <option key={status} value={status}>
+                {words.label}
+              </option>
+            ))}
+          </NativeSelect.Field>
+          <NativeSelect.Indicator />
+        </NativeSelect.Root>
+      </Field.Root>
+      <Field.Root maxW="20rem">
+        <Field.Label>Method</Field.Label>
+        <NativeSelect.Root>
+          <NativeSelect.Field value={filters.methodId ?? ''} onChange={(e) => onChange({ ...filters, methodId: e.target.value || undefined })}>
+            <option value="">Any method</option>
+            {methods.map((m) => (
+              <option key={m.id} value={m.id}>
+                {m.name}
+              </option>
+            ))}
+          </NativeSelect.Field>
+          <NativeSelect.Indicator />
+        </NativeSelect.Root>
+      </Field.Root>
+      <HStack gap="2" align="flex-end">
+        <Field.Root maxW="11rem">
+          <Field.Label>Changed from</Field.Label>
+          <Input type="date" value={filters.from ?? ''} onChange={(e) => onChange({ ...filters, from: e.target.value || undefined })} />
+        </Field.Root>
+        <Field.Root maxW="11rem">
+          <Field.Label>to</Field.Label>
+          <Input type="date" value={filters.to ?? ''} onChange={(e) => onChange({ ...filters, to: e.target.value || undefined })} />
+        </Field.Root>
+      </HStack>
+      <Checkbox.Root checked={filters.mine} onCheckedChange={(e) => onChange({ ...filters, mine: e.checked === true })} pb="2">
+        <Checkbox.HiddenInput />
+        <Checkbox.Control />
+        <Checkbox.Label>Only my studies</Checkbox.Label>
+      </Checkbox.Root>
+      {active && (
+        <Button
+          variant="ghost"
+          size="sm"
+          mb="1"
+          onClick={() => {
+            setQ('');
+            onChange({ mine: false });
+          }}
+        >
+          Clear the filters
+        </Button>
+      )}
+    </Wrap>
+  );
+}

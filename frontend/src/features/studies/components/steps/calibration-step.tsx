@@ -1,0 +1,88 @@
+import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
+import { CalibrationPlot, formatNumber, MODEL_LABELS, type CriterionDefinition } from '@/components/study-results';
+import type { LiveEvaluation } from '../../hooks/use-live-evaluation';
+import type { StudyDraftController } from '../../hooks/use-study-draft';
+import { usableRows } from '../../utils/study-sheets';
+import { SectionEditor } from '../grid/section-editor';
+import { setSheet, useStandardExclusion } from './exclusion';
+import { FigureLine, LivePanel } from './live-panel';
+
+export interface DataStepProps {
+  controller: StudyDraftController;
+  live: LiveEvaluation;
+  units: { x: string; y: string };
+  criteria: readonly CriterionDefinition[];
+}
+
+export function CalibrationStep({ controller, live, units, criteria }: DataStepProps) {
+  const { draft, server, editable, prepareImport, adopt } = controller;
+  const exclusion = useStandardExclusion(controller);
+  const c = live.result?.calibration;
+  const onPointClick = (index: number) => {
+    const row = usableRows('standards', draft.data.sheets.standards)[index];
+    if (row) exclusion.toggle(row.id);
+  };
+
+  return (
+    <Grid templateColumns={{ base: '1fr', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+      <Stack gap="10">
+        <Stack gap="3">
+          <Heading as="h2" size="lg">
+            Calibration standards
+          </Heading>
+          <Text color="fg.muted">
+            One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same concentration.
+          </Text>
+          <SectionEditor
+            studyId={server.id}
+            section="standards"
+            sectionName="calibration standards"
+            units={units}
+            rows={draft.data.sheets.standards}
+            onRowsChange={(rows) => setSheet(controller, 'standards', rows)}
+            readOnly={!editable}
+            prepareImport={prepareImport}
+            onImported={adopt}
+            rowActions={exclusion.rowActions}
+          />
+        </Stack>
+        <Stack gap="3">
+          <Heading as="h2" size="md">
+            Samples read off the line (optional)
+          </Heading>
+          <Text color="fg.muted">One row per reading; rows with the same sample name are replicates of that sample. The dilution factor multiplies the result.</Text>
+          <SectionEditor
+            studyId={server.id}
+            section="unknowns"
+            sectionName="samples"
+            units={units}
+            rows={draft.data.sheets.unknowns}
+            onRowsChange={(rows) => setSheet(controller, 'unknowns', rows)}
+            readOnly={!editable}
+            prepareImport={prepareImport}
+            onImported={adopt}
+          />
+        </Stack>
+      </Stack>
+      <LivePanel title="Calibration as you type" live={live}>
+        {live.result && c && (
+          <>
+            <CalibrationPlot data={live.data} result={live.result} units={units} criteria={criteria} height={320} onPointClick={editable ? onPointClick : undefined} />
+            <Stack gap="0">
+              <FigureLine label="Model" value={MODEL_LABELS[c.model] ?? c.model} />
+              <FigureLine label="Standards used" value={`${c.n}${c.excluded.length ? ` (${c.excluded.length} excluded)` : ''}`} />
+              <FigureLine label="Slope" value={formatNumber(c.slope, 5)} />
+              <FigureLine label="Intercept" value={formatNumber(c.intercept, 4)} />
+              <FigureLine label="R²" value={formatNumber(c.r2, 6)} />
+              <FigureLine label="s(y/x)" value={formatNumber(c.sYX, 4)} />
+            </Stack>
+            <Text fontSize="xs" color="fg.muted">
+              Click a point to exclude it, with a reason, or to include it again. All figures and the verdict are on the Results step.
+            </Text>
+          </>
+        )}
+      </LivePanel>
+      {exclusion.dialog}
+    </Grid>
+  );
+}

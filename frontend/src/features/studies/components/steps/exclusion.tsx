@@ -1,0 +1,112 @@
+import { Badge, Button, CloseButton, Dialog, Field, HStack, Portal, Text, Textarea } from '@chakra-ui/react';
+import { useState } from 'react';
+import { toaster } from '@/components/ui/toaster';
+import type { StudyDraftController } from '../../hooks/use-study-draft';
+import type { GridRow } from '../../utils/grid-sections';
+
+export const setSheet = (controller: StudyDraftController, section: keyof StudyDraftController['draft']['data']['sheets'], rows: GridRow[]) =>
+  controller.change((d) => ({ ...d, data: { ...d.data, sheets: { ...d.data.sheets, [section]: rows } } }));
+
+const describe = (row: GridRow) => `x = ${row.cells.x ?? '?'}, y = ${row.cells.y ?? '?'}`;
+
+/**
+ * Excluding a standard takes a written reason and can be undone: the point stays in the data,
+ * shown hollow, and leaves every computation.
+ */
+export function useStandardExclusion(controller: StudyDraftController) {
+  const [target, setTarget] = useState<GridRow | null>(null);
+  const [reason, setReason] = useState('');
+  const [touched, setTouched] = useState(false);
+  const rows = controller.draft.data.sheets.standards;
+
+  const setExcluded = (rowId: string, excluded: { reason: string } | undefined) =>
+    setSheet(
+      controller,
+      'standards',
+      rows.map((row) => {
+        if (row.id !== rowId) return row;
+        const { excluded: _previous, ...rest } = row;
+        return excluded ? { ...rest, excluded } : rest;
+      }),
+    );
+
+  const toggle = (rowId: string) => {
+    const row = rows.find((r) => r.id === rowId);
+    if (!row || !controller.editable) return;
+    if (row.excluded) {
+      setExcluded(row.id, undefined);
+      toaster.create({ type: 'info', title: 'Standard included again', description: describe(row) });
+      return;
+    }
+    setReason('');
+    setTouched(false);
+    setTarget(row);
+  };
+
+  const trimmed = reason.trim();
+  const invalid = trimmed.length < 3;
+  const confirm = () => {
+    setTouched(true);
+    if (!target || invalid) return;
+    setExcluded(target.id, { reason: trimmed });
+    setTarget(null);
+  };
+
+  const dialog = (
+    <Dialog.Root open={target !== null} onOpenChange={(e) => !e.open && setTarget(null)} initialFocusEl={() => document.getElementById('exclusion-reason')}>
+      <Portal>
+        <Dialog.Backdrop />
+        <Dialog.Positioner>
+          <Dialog.Content>
+            <Dialog.Header>
+              <Dialog.Title>Exclude the standard {target ? describe(target) : ''}?</Dialog.Title>
+            </Dialog.Header>
+            <Dialog.Body>
+              <Text mb="4" color="fg.muted">
+                The point stays in the study, shown hollow, and is left out of every figure. Exclude only for an assignable cause, such as a bubble in the cell
+                or a failed injection; the reason goes on record and can be read by the reviewer.
+              </Text>
+              <Field.Root invalid={touched && invalid} required>
+                <Field.Label>
+                  Reason
+                  <Field.RequiredIndicator />
+                </Field.Label>
+                <Textarea id="exclusion-reason" value={reason} onChange={(e) => setReason(e.target.value)} rows={2} />
+                {touched && invalid && <Field.ErrorText>Say why the point is excluded (at least 3 characters).</Field.ErrorText>}
+              </Field.Root>
+            </Dialog.Body>
+            <Dialog.Footer>
+              <Button variant="outline" onClick={() => setTarget(null)}>
+                Cancel
+              </Button>
+              <Button onClick={confirm}>Exclude the point</Button>
+            </Dialog.Footer>
+            <Dialog.CloseTrigger asChild>
+              <CloseButton size="sm" />
+            </Dialog.CloseTrigger>
+          </Dialog.Content>
+        </Dialog.Positioner>
+      </Portal>
+    </Dialog.Root>
+  );
+
+  const rowActions = (row: GridRow) =>
+    row.excluded ? (
+      <HStack gap="1">
+        <Badge colorPalette="gray" variant="outline" maxW="14rem" title={row.excluded.reason}>
+          <Text as="span" truncate>
+            Excluded: {row.excluded.reason}
+          </Text>
+        </Badge>
+        <Button size="xs" variant="ghost" onClick={() => toggle(row.id)} disabled={!controller.editable}>
+          Include
+        </Button>
+      </HStack>
+    ) : (
+      <Button size="xs" variant="ghost" onClick={() => toggle(row.id)} disabled={!controller.editable}>
+        Exclude…
+      </Button>
+    );
+
+  return { toggle, dialog, rowActions };
+}

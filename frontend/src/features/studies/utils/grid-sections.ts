@@ -1,0 +1,98 @@
+import type { ImportSection } from '../api/types';
+import { isNotDetected, parseDecimal } from './parse-number';
+
+export type CellKind = 'number' | 'positive' | 'text' | 'numberOrNotDetected';
+
+export interface GridColumn {
+  key: string;
+  label: string;
+  unit?: string;
+  kind: CellKind;
+  required?: boolean;
+  /** Header words a pasted column may carry for this column. */
+  aliases?: readonly string[];
+  placeholder?: string;
+}
+
+export interface GridRow {
+  id: string;
+  cells: Record<string, string>;
+  /** Standards only: left out of every computation, with the analyst's reason. */
+  excluded?: { reason: string };
+}
+
+let lastRowId = 0;
+export const newRowId = () => `row-${++lastRowId}`;
+
+export function newRow(cells: Record<string, string> = {}, excluded?: { reason: string }): GridRow {
+  return { id: newRowId(), cells, ...(excluded ? { excluded } : {}) };
+}
+
+const RESPONSE = ['y', 'response', 'signal', 'area', 'peak area', 'height', 'absorbance', 'abs', 'intensity', 'counts', 'reading'];
+
+export interface SectionUnits {
+  x?: string;
+  y?: string;
+}
+
+/** The grid columns of each section of the study, in the order a lab sheet usually has them. */
+export function sectionColumns(section: ImportSection, units: SectionUnits): GridColumn[] {
+  switch (section) {
+    case 'standards':
+      return [
+        { key: 'x', label: 'Concentration', unit: units.x, kind: 'number', required: true, aliases: ['x', 'conc', 'concentration', 'nominal', 'level', 'amount', 'standard', 'std'] },
+        { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: RESPONSE },
+      ];
+    case 'unknowns':
+      return [
+        { key: 'id', label: 'Sample', kind: 'text', required: true, aliases: ['id', 'sample', 'sample id', 'name', 'label'] },
+        { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: RESPONSE },
+        { key: 'dilution', label: 'Dilution factor', kind: 'positive', placeholder: '1', aliases: ['dilution', 'dilution factor', 'df', 'dil'] },
+      ];
+    case 'blanks':
+      return [{ key: 'value', label: 'Blank response', unit: units.y, kind: 'number', required: true, aliases: ['value', 'blank', 'blanks', ...RESPONSE] }];
+    case 'lowSpikes':
+      return [
+        { key: 'spiked', label: 'Low-level spike result', unit: units.x, kind: 'number', aliases: ['spiked', 'spike', 'spiked result', 'low spike'] },
+        { key: 'blank', label: 'Method blank result', unit: units.x, kind: 'numberOrNotDetected', placeholder: 'ND', aliases: ['blank', 'blanks', 'method blank'] },
+      ];
+    case 'recovery':
+      return [
+        { key: 'id', label: 'Spike', kind: 'text', placeholder: 'R1', aliases: ['id', 'sample', 'sample id', 'name', 'replicate'] },
+        { key: 'level', label: 'Level', kind: 'text', placeholder: 'low', aliases: ['level', 'spike level', 'fortification level'] },
+        { key: 'added', label: 'Added', unit: units.x, kind: 'positive', required: true, aliases: ['added', 'spike', 'spiked', 'amount added', 'nominal'] },
+        { key: 'found', label: 'Found', unit: units.x, kind: 'number', required: true, aliases: ['found', 'measured', 'result', 'determined'] },
+        { key: 'native', label: 'Native (before spiking)', unit: units.x, kind: 'number', placeholder: '0', aliases: ['native', 'background', 'unspiked'] },
+      ];
+    case 'precision':
+      return [
+        { key: 'group', label: 'Series (day, analyst, instrument)', kind: 'text', required: true, aliases: ['group', 'series', 'day', 'run', 'batch', 'analyst'] },
+        { key: 'value', label: 'Result', unit: units.x, kind: 'number', required: true, aliases: ['value', 'result', 'found', 'measured', 'concentration'] },
+      ];
+  }
+}
+
+export const isBlankRow = (row: GridRow, columns: readonly GridColumn[]) => columns.every((c) => (row.cells[c.key] ?? '').trim() === '');
+
+/** What is wrong with one cell, in words for the cell itself; null when nothing is. */
+export function cellProblem(column: GridColumn, text: string | undefined): string | null {
+  const value = (text ?? '').trim();
+  if (value === '') return column.required ? 'Required' : null;
+  if (column.kind === 'text') return null;
+  if (column.kind === 'numberOrNotDetected' && isNotDetected(value)) return null;
+  const number = parseDecimal(value);
+  if (number === null) return column.kind === 'numberOrNotDetected' ? `“${value}” is not a number; write ND if not detected` : `“${value}” is not a number`;
+  if (column.kind === 'positive' && number <= 0) return 'Must be above zero';
+  return null;
+}
+
+/** Problems by column key; an empty row has none (it is simply ignored). */
+export function rowProblems(row: GridRow, columns: readonly GridColumn[]): Record<string, string> {
+  if (isBlankRow(row, columns)) return {};
+  const problems: Record<string, string> = {};
+  for (const column of columns) {
+    const problem = cellProblem(column, row.cells[column.key]);
+    if (problem) problems[column.key] = problem;
+  }
+  return problems;
+}
