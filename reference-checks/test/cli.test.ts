@@ -1,19 +1,22 @@
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { execFile } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { evaluateStudy } from '@meritline/shared';
 import { afterAll, describe, expect, it } from 'vitest';
-import { rmSync } from 'node:fs';
 import { loadJson, standards } from './helpers.js';
 
 const cli = fileURLToPath(new URL('../../shared/dist/cli.js', import.meta.url));
 const dir = mkdtempSync(join(tmpdir(), 'meritline-cli-'));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
-function run(file: string) {
-  return spawnSync(process.execPath, [cli, file], { encoding: 'utf8' });
+function run(file: string): Promise<{ status: number | null; stdout: string; stderr: string }> {
+  return new Promise((resolve) => {
+    execFile(process.execPath, [cli, file], { maxBuffer: 64 * 1024 * 1024 }, (error, stdout, stderr) => {
+      resolve({ status: error ? (typeof error.code === 'number' ? error.code : null) : 0, stdout, stderr });
+    });
+  });
 }
 
 function write(name: string, content: unknown): string {
@@ -47,33 +50,33 @@ const studies: [string, unknown][] = [
   ['spike recovery', { recovery: recovery.c_spiked.map((found: number, i: number) => ({ id: `R${i}`, added: recovery.c_added, found, native: recovery.c_unspiked })) }],
 ];
 
-describe('CLI: node shared/dist/cli.js <study>', () => {
-  it.each(studies)('%s: exit 0 and the same JSON as evaluateStudy', (name, study) => {
-    const out = run(write(`${name.replace(/\W+/g, '-')}.json`, study));
+describe.concurrent('CLI: node shared/dist/cli.js <study>', () => {
+  it.each(studies)('%s: exit 0 and the same JSON as evaluateStudy', async (name, study) => {
+    const out = await run(write(`${name.replace(/\W+/g, '-')}.json`, study));
     expect(out.stderr).toBe('');
     expect(out.status).toBe(0);
     expect(JSON.parse(out.stdout)).toEqual(JSON.parse(JSON.stringify(evaluateStudy(study))));
   });
 
-  it('reads a CSV of standards with ; and decimal commas', () => {
+  it('reads a CSV of standards with ; and decimal commas', async () => {
     const csv = ['x;y', ...miller.data.x.map((x: number, i: number) => `${x};${String(miller.data.y[i]).replace('.', ',')}`)].join('\n');
-    const out = run(write('fluorescence.csv', csv));
+    const out = await run(write('fluorescence.csv', csv));
     expect(out.status).toBe(0);
     expect(JSON.parse(out.stdout)).toEqual(JSON.parse(JSON.stringify(evaluateStudy({ standards: standards(miller.data.x, miller.data.y) }))));
   });
 
-  it('bad input: exit 2 with the field named on stderr', () => {
-    const out = run(write('bad.json', { standards: [{ x: 1, y: 2 }, { x: 'two', y: 3 }] }));
+  it('bad input: exit 2 with the field named on stderr', async () => {
+    const out = await run(write('bad.json', { standards: [{ x: 1, y: 2 }, { x: 'two', y: 3 }] }));
     expect(out.status).toBe(2);
     expect(out.stdout).toBe('');
     expect(out.stderr).toContain('standards[1].x');
   });
 
-  it('not JSON, or a missing file: exit 2 with a message', () => {
-    const broken = run(write('broken.json', '{ "standards": ['));
+  it('not JSON, or a missing file: exit 2 with a message', async () => {
+    const broken = await run(write('broken.json', '{ "standards": ['));
     expect(broken.status).toBe(2);
     expect(broken.stderr).toMatch(/not valid JSON/);
-    const missing = run(join(dir, 'nothing-here.json'));
+    const missing = await run(join(dir, 'nothing-here.json'));
     expect(missing.status).toBe(2);
     expect(missing.stderr).toMatch(/cannot read/);
   });
