@@ -342,6 +342,7 @@ function regressionStatistics(
   bandXs: number[],
   curve: Curve,
   weightAt: (x: number) => number,
+  w: ArrayLike<number>,
 ): Statistics {
   const t = core.df > 0 ? studentQuantile((1 + confidence) / 2, core.df) : null;
   const ci = (estimate: number, se: number | null) => (t === null || se === null ? null : interval(estimate, t * se));
@@ -369,7 +370,8 @@ function regressionStatistics(
     yMean: core.yMean,
     sxx: core.sxx,
     sumWeights: core.sumWeights,
-    standardizedResiduals: core.residuals.map((e) => (core.s > 0 ? e / core.s : 0)),
+    // Weighted fits: s_y/x estimates the SD of a unit-weight residual, so each residual is scaled by √w.
+    standardizedResiduals: core.residuals.map((e, i) => (core.s > 0 ? (Math.sqrt(w[i]) * e) / core.s : 0)),
     bands: t === null ? null : bandXs.map((x) => band(core, t, x, curve.predict, weightAt)),
     anova: {
       dfRegression: core.dfRegression,
@@ -456,7 +458,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     };
   });
   const statistics = curve.core
-    ? regressionStatistics(curve.core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt)
+    ? regressionStatistics(curve.core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt, w)
     : noRegressionStatistics(xs, ys);
   const calibration: CalibrationResult = {
     model,
