@@ -1,7 +1,16 @@
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
+import { expect as baseExpect, test, type APIRequestContext, type Page } from '@playwright/test';
 import { DEMO_PASSWORD, signIn, signOut } from './support';
 
-const shot = (page: Page, name: string) => page.screenshot({ path: `test-output/screenshots/review-${name}.png`, fullPage: true });
+// The study page draws Plotly charts; on a busy two-core machine a page can take a while to settle.
+const expect = baseExpect.configure({ timeout: 30_000 });
+test.setTimeout(480_000);
+
+async function signInAs(page: Page, email: string) {
+  await signIn(page, email);
+  await expect(page.getByTestId('user-menu')).toBeVisible();
+}
+
+const shot = (page: Page, name: string) => page.screenshot({ path: `test-output/screenshots/review-${name}.png` });
 
 async function tokenFor(request: APIRequestContext, email: string): Promise<string> {
   const res = await request.post('/api/auth/login', { data: { email, password: DEMO_PASSWORD } });
@@ -25,7 +34,7 @@ test('an analyst submits, a reviewer returns, the analyst corrects and resubmits
   const status = page.getByTestId('study-status');
 
   // The analyst signs and submits; a wrong password is refused and nothing is signed.
-  await signIn(page, 'analyst@meritline.test');
+  await signInAs(page, 'analyst@meritline.test');
   await page.goto(studyPage);
   await expect(status).toHaveText('Draft');
   await shot(page, '1-draft');
@@ -43,7 +52,7 @@ test('an analyst submits, a reviewer returns, the analyst corrects and resubmits
   await signOut(page);
 
   // The reviewer finds it in the queue and returns it with a comment.
-  await signIn(page, 'reviewer@meritline.test');
+  await signInAs(page, 'reviewer@meritline.test');
   await expect(page.getByTestId('notifications-unread')).toBeVisible();
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Review queue' }).click();
   await expect(page.getByRole('link', { name: study.title })).toBeVisible();
@@ -68,9 +77,9 @@ test('an analyst submits, a reviewer returns, the analyst corrects and resubmits
     data: { data: { ...current.data, standards }, lockVersion: current.lockVersion, reason: 'Top standard re-injected after the review.' },
   });
   expect(patched.status()).toBe(200);
-  await signIn(page, 'analyst@meritline.test');
+  await signInAs(page, 'analyst@meritline.test');
   await page.goto(studyPage);
-  await expect(page.getByText('Re-inject the top standard: its duplicate reads high.')).toBeVisible();
+  await expect(page.getByRole('main').getByText('Re-inject the top standard: its duplicate reads high.')).toBeVisible();
   await shot(page, '5-returned');
   await page.getByRole('button', { name: 'Resubmit for review' }).click();
   await page.getByRole('dialog').getByLabel('Your password').fill(DEMO_PASSWORD);
@@ -79,7 +88,7 @@ test('an analyst submits, a reviewer returns, the analyst corrects and resubmits
   await signOut(page);
 
   // The reviewer sees what changed and approves with a signature.
-  await signIn(page, 'reviewer@meritline.test');
+  await signInAs(page, 'reviewer@meritline.test');
   await page.goto(studyPage);
   await expect(page.getByRole('table', { name: 'Changes between submissions' })).toContainText('Response');
   await shot(page, '6-changes');

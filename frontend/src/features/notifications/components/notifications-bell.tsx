@@ -22,13 +22,13 @@ export function NotificationsBell() {
   };
 
   return (
-    <Popover.Root open={open} onOpenChange={(event) => setOpen(event.open)} positioning={{ placement: 'bottom-end' }}>
+    <Popover.Root open={open} onOpenChange={(event) => setOpen(event.open)} positioning={{ placement: 'bottom-end' }} lazyMount unmountOnExit>
       <Popover.Trigger asChild>
         <IconButton variant="ghost" size="sm" aria-label={unread ? `Notifications: ${unread} unread` : 'Notifications'} position="relative" data-testid="notifications-bell">
           <BellIcon />
           {unread > 0 && (
             <Float placement="top-end" offset="1.5">
-              <Box as="span" minW="4.5" h="4.5" px="1" borderRadius="full" bg="red.solid" color="white" fontSize="2xs" fontWeight="700" lineHeight="4.5" textAlign="center" data-testid="notifications-unread">
+              <Box as="span" display="inline-flex" alignItems="center" justifyContent="center" minW="18px" h="18px" px="1" borderRadius="full" bg="red.solid" color="white" fontSize="11px" fontWeight="700" lineHeight="1" data-testid="notifications-unread">
                 {unread > 99 ? '99+' : unread}
               </Box>
             </Float>

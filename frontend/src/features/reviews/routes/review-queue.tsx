@@ -21,14 +21,21 @@ const columns = column.columns([
   }),
   column.accessor('methodName', {
     header: 'Method',
-    cell: (info) => `${info.getValue()}, version ${info.row.original.methodVersionNumber}`,
+    cell: (info) => (
+      <Stack gap="0">
+        <Text>{info.getValue()}</Text>
+        <Text fontSize="xs" color="fg.muted">
+          Version {info.row.original.methodVersionNumber}
+        </Text>
+      </Stack>
+    ),
   }),
   column.accessor('authorName', { header: 'Author' }),
   column.accessor('submittedAt', { header: 'Submitted', cell: (info) => formatDateTime(info.getValue()) }),
   column.accessor('stage', {
     header: 'Waiting for',
     cell: (info) =>
-      info.getValue() === 'release' ? <Badge colorPalette="purple">Release by a quality manager</Badge> : <Badge colorPalette="orange">Second-person review</Badge>,
+      info.getValue() === 'release' ? <Badge colorPalette="purple">Quality release</Badge> : <Badge colorPalette="orange">Review</Badge>,
   }),
 ]);
 

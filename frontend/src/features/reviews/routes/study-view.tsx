@@ -1,5 +1,6 @@
 import { Alert, Badge, Box, Heading, HStack, Stack, Tabs, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import { useParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
@@ -32,6 +33,8 @@ export default function StudyViewPage() {
   const comments = useQuery(studyReviewQueries.comments(studyId));
   const history = useQuery(studyReviewQueries.history(studyId));
   const diff = useQuery(studyReviewQueries.diff(studyId));
+  // After a resubmission the reviewer starts with what changed, once that has loaded.
+  const [chosenTab, setChosenTab] = useState<string | null>(null);
 
   if (study.isError) return <QueryError error={study.error} title="The study could not be loaded" onRetry={() => void study.refetch()} />;
   if (study.isPending || !user) return <PageSpinner label="Loading the study" />;
@@ -80,7 +83,7 @@ export default function StudyViewPage() {
             </Alert.Content>
           </Alert.Root>
         )}
-        <Tabs.Root defaultValue={diff.data ? 'changes' : 'results'} variant="line" lazyMount>
+        <Tabs.Root value={chosenTab ?? (diff.data ? 'changes' : 'results')} onValueChange={(event) => setChosenTab(event.value)} variant="line" lazyMount>
           <Tabs.List flexWrap="wrap">
             <Tabs.Trigger value="results">Results</Tabs.Trigger>
             <Tabs.Trigger value="data">Data</Tabs.Trigger>
