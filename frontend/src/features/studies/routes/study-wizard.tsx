@@ -103,7 +103,12 @@ function StudyWizard({ study, step }: { study: StudyDto; step: number }) {
           <Alert.Root status="info">
             <Alert.Indicator />
             <Alert.Description>
-              This study is {server.status === 'approved' ? 'approved' : 'submitted for review'} and can no longer be changed. What you see is the record.
+              This study is {server.status === 'approved' ? 'approved' : 'submitted for review'} and can no longer be changed. What you see is the record;
+              its signatures and comments are on the{' '}
+              <Link asChild color="brand.fg">
+                <RouterLink to={paths.studyView.getHref(server.id)}>review page</RouterLink>
+              </Link>
+              .
             </Alert.Description>
           </Alert.Root>
         )}

@@ -44,6 +44,10 @@ function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: S
 
 const column = dataTableColumns<StudySummary>();
 
+const isEditable = (study: StudySummary) => study.status === 'draft' || study.status === 'returned';
+/** Drafts open in the wizard; submitted and approved studies on their read-only review page. */
+const studyHref = (study: StudySummary) => (isEditable(study) ? paths.studyEdit.getHref(study.id, 2) : paths.studyView.getHref(study.id));
+
 /** Columns of the studies list; the sortable headers ask the server to sort. */
 export function studiesColumns(sort: ServerSort) {
   return column.columns([
@@ -52,7 +56,7 @@ export function studiesColumns(sort: ServerSort) {
       cell: (info) => (
         <Stack gap="0">
           <Link asChild fontWeight="600" color="brand.fg">
-            <RouterLink to={paths.studyEdit.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
+            <RouterLink to={studyHref(info.row.original)}>{info.getValue()}</RouterLink>
           </Link>
           <Text fontSize="sm" color="fg.muted">
             {info.row.original.method.name}, version {info.row.original.methodVersion.number}
@@ -82,10 +86,10 @@ export function studiesColumns(sort: ServerSort) {
       meta: { align: 'end' },
       cell: (info) => {
         const study = info.row.original;
-        const editable = study.status === 'draft' || study.status === 'returned';
+        const editable = isEditable(study);
         return (
           <Button asChild size="xs" variant={editable ? 'solid' : 'outline'}>
-            <RouterLink to={paths.studyEdit.getHref(study.id, editable ? 2 : 6)} aria-label={`${editable ? 'Resume' : 'Open'} ${study.title}`}>
+            <RouterLink to={studyHref(study)} aria-label={`${editable ? 'Resume' : 'Open'} ${study.title}`}>
               {editable ? 'Resume' : 'Open'}
             </RouterLink>
           </Button>

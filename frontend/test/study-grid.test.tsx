@@ -1,0 +1,104 @@
+import { fireEvent, screen, within } from '@testing-library/react';
+import { useState } from 'react';
+import { DataGrid } from '@/features/studies/components/grid/data-grid';
+import { cellProblem, newRow, sectionColumns, type GridRow } from '@/features/studies/utils/grid-sections';
+import { dataToDraft, draftToData } from '@/features/studies/utils/study-sheets';
+import { renderWithProviders } from './render';
+
+// Invented numbers of the demo laboratory; what is checked is the handling of the cells.
+const units = { x: 'mg/L', y: 'AU' };
+const standards = sectionColumns('standards', units);
+
+function Harness({ initial, onChange }: { initial: GridRow[]; onChange?: (rows: GridRow[]) => void }) {
+  const [rows, setRows] = useState(initial);
+  return (
+    <DataGrid
+      label="Calibration standards"
+      columns={standards}
+      rows={rows}
+      onRowsChange={(next) => {
+        setRows(next);
+        onChange?.(next);
+      }}
+    />
+  );
+}
+
+describe('numeric validation of grid cells', () => {
+  it('says at the cell what is wrong', () => {
+    const [x, y] = standards;
+    expect(cellProblem(x, '0,5')).toBeNull();
+    expect(cellProblem(x, 'abc')).toBe('“abc” is not a number');
+    expect(cellProblem(y, '')).toBe('Required');
+    expect(cellProblem(sectionColumns('recovery', units)[2], '0')).toBe('Must be above zero');
+    const blank = sectionColumns('lowSpikes', units)[1];
+    expect(cellProblem(blank, 'ND')).toBeNull();
+    expect(cellProblem(blank, 'n.d.')).toBeNull();
+    expect(cellProblem(blank, 'trace')).toMatch(/not a number; write ND/);
+  });
+
+  it('marks a non-numeric cell, names the problem and moves on with Enter', async () => {
+    const { user } = renderWithProviders(<Harness initial={[newRow({ x: '0.5', y: '0.0612' }), newRow({ x: '1', y: '0,1218' })]} />);
+    const grid = await screen.findByRole('table', { name: 'Calibration standards' });
+
+    const response = within(grid).getByRole('textbox', { name: 'Response, row 2' });
+    await user.clear(response);
+    await user.type(response, '0.12a{Enter}');
+
+    expect(response).toHaveAttribute('aria-invalid', 'true');
+    expect(response).toHaveAccessibleDescription('“0.12a” is not a number');
+    // Enter moved on to the same column of the next (empty) row.
+    expect(within(grid).getByRole('textbox', { name: 'Response, row 3' })).toHaveFocus();
+    // A decimal comma is a number: no mark.
+    expect(within(grid).getByRole('textbox', { name: 'Response, row 1' })).not.toHaveAttribute('aria-invalid');
+  });
+
+  it('spreads a block pasted into one cell over the grid', async () => {
+    const changes: GridRow[][] = [];
+    renderWithProviders(<Harness initial={[]} onChange={(rows) => changes.push(rows)} />);
+    const first = await screen.findByRole('textbox', { name: 'Concentration, row 1' });
+    fireEvent.paste(first, { clipboardData: { getData: () => 'Conc\tAbs\n0,5\t0,0612\n1,0\t0,1218\n' } });
+    expect(changes.at(-1)?.map((row) => row.cells)).toEqual([
+      { x: '0,5', y: '0,0612' },
+      { x: '1,0', y: '0,1218' },
+    ]);
+    expect(await screen.findByRole('textbox', { name: 'Response, row 2' })).toHaveValue('0,1218');
+  });
+});
+
+describe('what the grid sends', () => {
+  it('never sends a cell that is not a number; decimal commas become numbers', () => {
+    const draft = dataToDraft({ standards: [] });
+    draft.sheets.standards = [newRow({ x: '0,5', y: '0,0612' }), newRow({ x: '1', y: 'n.a.' }), newRow({ x: '2', y: '0.2431' }, { reason: 'bubble in the cell' })];
+    draft.sheets.lowSpikes = [newRow({ spiked: '0,21', blank: 'ND' }), newRow({ spiked: '0.18', blank: '0,02' })];
+    draft.sheets.unknowns = [newRow({ id: 'W-014', y: '0.412', dilution: '2' }), newRow({ id: 'W-014', y: '0,415' })];
+
+    const data = draftToData(draft);
+    expect(data.standards).toEqual([
+      { x: 0.5, y: 0.0612 },
+      { x: 2, y: 0.2431, excluded: { reason: 'bubble in the cell' } },
+    ]);
+    expect(data.lowSpikes).toEqual({ spiked: [0.21, 0.18], blanks: [null, 0.02] });
+    expect(data.unknowns).toEqual([{ id: 'W-014', y: [0.412, 0.415], dilution: 2 }]);
+    expect(JSON.stringify(data)).not.toContain('n.a.');
+  });
+
+  it('keeps what the wizard does not edit (criteria, units) and reads stored data back into the same grid', () => {
+    const stored = {
+      units: { x: 'mg/L', y: 'AU' },
+      criteria: [{ figure: 'calibration.r2', op: '>=', value: 0.995 }],
+      model: 'linear',
+      weighting: '1/x',
+      confidence: 0.95,
+      alpha: 0.05,
+      standards: [
+        { x: 0.5, y: 0.0612 },
+        { x: 1, y: 0.1218, excluded: { reason: 'pipetting error noted in the bench log' } },
+      ],
+      blanks: [0.0011, 0.0018],
+      recovery: [{ id: 'R1', level: 'low', added: 1, found: 0.982 }],
+      precision: [{ group: 'day 1', value: 5.02 }],
+    };
+    expect(draftToData(dataToDraft(stored))).toEqual(stored);
+  });
+});
