@@ -10,6 +10,7 @@ import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
+import { formatDateTime } from './pdf/index.js';
 import type { ReportContent } from './report-content.js';
 import { LabCertificateService } from './signing/lab-certificate.service.js';
 import { renderValidationReport, reportFileName, REPORT_ID_INFO_KEY } from './validation-report.document.js';
@@ -147,8 +148,8 @@ export class ReportsService {
       return {
         valid: false,
         reason:
-          `This file names report ${original.id}, signed on ${original.signedAt.toISOString()}, but its content differs from the report as issued: ` +
-          'it has been changed since it was signed. Do not rely on it; ask the laboratory for the original.',
+          `This file names report ${original.id}, signed on ${formatDateTime(original.signedAt)}, but its content differs from the report as issued: ` +
+          'it has been changed since it was signed.',
       };
     }
     return {

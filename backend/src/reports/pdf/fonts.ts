@@ -65,13 +65,20 @@ export function fontName(weight: FontWeight, subset: Subset = 'latin'): string {
   return `plex-${weight}-${subset}`;
 }
 
-/** A subset is embedded only when some text uses it; parsing happens once, on first use in the process. */
-export function registerFonts(doc: PDFKit.PDFDocument): void {
-  for (const subset of SUBSETS) {
-    for (const weight of Object.keys(WEIGHT_FILES) as FontWeight[]) {
-      doc.registerFont(fontName(weight, subset), parsedFont(subset, weight) as unknown as Buffer);
-    }
+const FONTS = new Map(SUBSETS.flatMap((subset) => (Object.keys(WEIGHT_FILES) as FontWeight[]).map((weight) => [fontName(weight, subset), { subset, weight }] as const)));
+const registered = new WeakMap<PDFKit.PDFDocument, Set<string>>();
+
+/** Makes `name` the current font; a subset is parsed the first time any document needs it and embedded only where used. */
+export function selectFont(doc: PDFKit.PDFDocument, name: string): void {
+  let names = registered.get(doc);
+  if (!names) registered.set(doc, (names = new Set()));
+  if (!names.has(name)) {
+    const font = FONTS.get(name);
+    if (!font) throw new Error(`unknown font ${name}`);
+    doc.registerFont(name, parsedFont(font.subset, font.weight) as unknown as Buffer);
+    names.add(name);
   }
+  doc.font(name);
 }
 
 function subsetOf(codePoint: number): Subset {
@@ -89,6 +96,7 @@ export interface FontRun {
 
 /** Splits text into runs that one embedded font can draw; plain Latin text is a single run. */
 export function fontRuns(text: string, weight: FontWeight): FontRun[] {
+  if (/^[\x20-\x7e\xa0-\xff]*$/.test(text)) return [{ font: fontName(weight), text }];
   const runs: FontRun[] = [];
   for (const char of printable(text)) {
     // Whitespace always comes from the Latin subset: fontkit cannot read the empty space glyph of the other subsets.

@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit';
-import { fontName, fontRuns, printable, registerFonts, type FontWeight } from './fonts.js';
+import { fontName, fontRuns, printable, selectFont, type FontWeight } from './fonts.js';
 import { drawPlot, type PlotSpec } from './plot.js';
 import { drawTable, type TableSpec } from './table.js';
 import { A4, colors, margins, sizes } from './theme.js';
@@ -61,8 +61,7 @@ export class PdfComposer {
     // pdfkit hashes every information entry into the file ID, so none may be undefined.
     const extra = { Author: options.author, Subject: options.subject, Keywords: options.keywords, ...options.info };
     for (const [key, value] of Object.entries(extra)) if (value !== undefined) (this.doc.info as Record<string, unknown>)[key] = value;
-    registerFonts(this.doc);
-    this.doc.font(fontName('regular')).fontSize(sizes.body).fillColor(colors.text);
+    this.style();
     this.done = new Promise<Buffer>((resolve, reject) => {
       this.doc.on('data', (chunk: Buffer) => this.chunks.push(chunk));
       this.doc.on('end', () => resolve(Buffer.concat(this.chunks)));
@@ -92,10 +91,8 @@ export class PdfComposer {
 
   /** Sets font, size and colour for measuring or drawing. */
   style(style: TextStyle = {}): this {
-    this.doc
-      .font(fontName(style.weight ?? 'regular'))
-      .fontSize(style.size ?? sizes.body)
-      .fillColor(style.color ?? colors.text);
+    selectFont(this.doc, fontName(style.weight ?? 'regular'));
+    this.doc.fontSize(style.size ?? sizes.body).fillColor(style.color ?? colors.text);
     return this;
   }
 
@@ -115,7 +112,7 @@ export class PdfComposer {
     const runs = fontRuns(text, style.weight ?? 'regular');
     const base = { width, align: runs.length > 1 ? 'left' : style.align, lineGap: style.lineGap ?? 1.5, characterSpacing: style.characterSpacing, lineBreak };
     runs.forEach((run, i) => {
-      this.doc.font(run.font);
+      selectFont(this.doc, run.font);
       const options = { ...base, continued: i < runs.length - 1 };
       if (i === 0) this.doc.text(run.text, x, y, options);
       else this.doc.text(run.text, options);

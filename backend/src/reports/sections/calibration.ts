@@ -251,7 +251,7 @@ function samples(pdf: PdfComposer, result: EvaluationResult, x: string, y: strin
         { header: 'Readings', width: 0.85, align: 'right' },
         { header: `Mean response (${y})`, width: 1.3, align: 'right' },
         { header: 'Dilution', width: 0.7, align: 'right' },
-        { header: `Result (${x})`, width: 1, align: 'right' },
+        { header: `Result (${x})`, width: 1.15, align: 'right' },
         { header: `${confidenceWords(result)} interval`, width: 1.6, align: 'right' },
         { header: 'Flags', width: 1.6 },
       ],

@@ -30,7 +30,8 @@ export function summarySection(pdf: PdfComposer, content: ReportContent): void {
       ],
       rows: result.verdict.criteria.map((c) => {
         const described = describeFigure(c.figure, units);
-        const label = content.version.criteria.find((v) => v.figure === c.figure && v.op === c.op)?.label ?? described.label;
+        // The lab's own label often repeats the threshold, which has its own column; it names figures we have no words for.
+        const label = described.label !== c.figure ? described.label : (content.version.criteria.find((v) => v.figure === c.figure && v.op === c.op)?.label ?? c.figure);
         const value = formatAgainstCriterion(c.value, described.kind, c.op as CriterionOp, c.threshold, c.pass);
         return {
           cells: [label, c.value === null ? 'not computed' : withUnit(value, described.unit), criterionInWords(c.op, c.threshold, described.unit), c.pass ? 'Pass' : 'Fail'],
