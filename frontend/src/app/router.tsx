@@ -19,12 +19,12 @@ export const routes: RouteObject[] = [
     children: [
       { path: paths.signIn.path, lazy: page(() => import('@/features/auth/routes/sign-in')) },
       { path: paths.acceptInvitation.path, lazy: page(() => import('@/features/auth/routes/accept-invitation')) },
+      { path: paths.verify.path, lazy: page(() => import('@/features/reports/routes/verify-report')) },
       {
         Component: ProtectedRoute,
         children: [
           { index: true, lazy: page(() => import('./routes/overview')) },
           { path: paths.changePassword.path, lazy: page(() => import('@/features/auth/routes/change-password')) },
-          { path: paths.verify.path, lazy: page(() => import('@/features/verify/routes/verify-report')) },
           {
             element: <RequireRole roles={[Role.Analyst]} />,
             children: [

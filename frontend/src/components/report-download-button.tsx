@@ -1,0 +1,48 @@
+import { Button, type ButtonProps } from '@chakra-ui/react';
+import type { StudyStatus } from '@meritline/shared';
+import { useState } from 'react';
+import { toaster } from '@/components/ui/toaster';
+import { api, isApiError } from '@/lib/api-client';
+
+export interface ReportDownloadButtonProps extends Omit<ButtonProps, 'onClick' | 'children'> {
+  studyId: string;
+  status: StudyStatus;
+}
+
+function save(pdf: Blob, fileName: string) {
+  const url = URL.createObjectURL(pdf);
+  const link = Object.assign(document.createElement('a'), { href: url, download: fileName });
+  document.body.append(link);
+  link.click();
+  link.remove();
+  // Revoking at once can cancel the download in some browsers.
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+/** The signed report of an approved study, or an unsigned draft preview before approval, fetched with the session token and saved. */
+export function ReportDownloadButton({ studyId, status, ...buttonProps }: ReportDownloadButtonProps) {
+  const [loading, setLoading] = useState(false);
+  const approved = status === 'approved';
+
+  const download = async () => {
+    setLoading(true);
+    try {
+      const pdf = await api.download(`/studies/${encodeURIComponent(studyId)}/report`);
+      save(pdf, `meritline-study-${studyId.slice(0, 8)}${approved ? '' : '-draft'}.pdf`);
+    } catch (error) {
+      toaster.create({
+        type: 'error',
+        title: approved ? 'The signed report could not be downloaded' : 'The draft preview could not be made',
+        description: isApiError(error) ? error.body.message : undefined,
+      });
+    } finally {
+      setLoading(false);
+    }
+  };
+
+  return (
+    <Button variant={approved ? 'solid' : 'outline'} loading={loading} loadingText={approved ? 'Preparing the report' : 'Preparing the preview'} onClick={() => void download()} {...buttonProps}>
+      {approved ? 'Download signed report' : 'Preview draft report'}
+    </Button>
+  );
+}
