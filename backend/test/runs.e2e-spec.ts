@@ -43,12 +43,14 @@ const PONTIUS_CERTIFIED = {
   B1: Number(pontius.certified.parameters.B1.estimate),
   B2: Number(pontius.certified.parameters.B2.estimate),
 };
-const inverse = (y0: number, m: number) => miller.computed.inverse_prediction.find((p: any) => p.y0 === y0 && p.m_replicates_of_unknown === m);
+const inverse = (y0: number, m: number) =>
+  miller.computed.inverse_prediction.find((p: any) => p.y0 === y0 && p.m_replicates_of_unknown === m);
 const weightedInverse = (y0: number) => millerWeighted.computed.inverse_prediction.find((p: any) => p.y0 === y0);
 /* eslint-enable @typescript-eslint/no-explicit-any */
 
 const pairs = (x: number[], y: number[]) => x.map((xi, i) => ({ x: xi, y: y[i] }));
-const close = (actual: number, expected: number, relative = 1e-9) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(Math.abs(expected) * relative + 1e-15);
+const close = (actual: number, expected: number, relative = 1e-9) =>
+  expect(Math.abs(actual - expected)).toBeLessThanOrEqual(Math.abs(expected) * relative + 1e-15);
 
 describe('routine runs', () => {
   let t: TestApp;
@@ -60,7 +62,13 @@ describe('routine runs', () => {
 
   async function addVersion(
     key: string,
-    options: { method: Partial<Method>; study?: StudyInput; status?: MethodVersion['status']; studyStatus?: ValidationStudy['status']; onePointMaxInterceptPct?: number },
+    options: {
+      method: Partial<Method>;
+      study?: StudyInput;
+      status?: MethodVersion['status'];
+      studyStatus?: ValidationStudy['status'];
+      onePointMaxInterceptPct?: number;
+    },
   ) {
     const dataSource = t.app.get(DataSource);
     const author = await dataSource.getRepository(User).findOneByOrFail({ email: DEMO.quality });
@@ -108,7 +116,12 @@ describe('routine runs', () => {
   }
 
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const post = (body: unknown, token = analyst) => t.http().post('/api/runs').set(auth(token)).send(body as object);
+  const post = (body: unknown, token = analyst) =>
+    t
+      .http()
+      .post('/api/runs')
+      .set(auth(token))
+      .send(body as object);
   const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
   const tableCounts = async () => ({
     runs: (await query<{ n: number }>('select count(*) as n from runs'))[0].n,
@@ -143,9 +156,18 @@ describe('routine runs', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    [analyst, reviewer, quality, admin] = await Promise.all([t.tokenFor(DEMO.analyst), t.tokenFor(DEMO.reviewer), t.tokenFor(DEMO.quality), t.tokenFor(DEMO.admin)]);
+    [analyst, reviewer, quality, admin] = await Promise.all([
+      t.tokenFor(DEMO.analyst),
+      t.tokenFor(DEMO.reviewer),
+      t.tokenFor(DEMO.quality),
+      t.tokenFor(DEMO.admin),
+    ]);
 
-    const fluorescence: StudyInput = { model: 'linear', units: { x: 'pg/ml', y: 'intensity' }, standards: pairs(FLUORESCENCE.x, FLUORESCENCE.y) };
+    const fluorescence: StudyInput = {
+      model: 'linear',
+      units: { x: 'pg/ml', y: 'intensity' },
+      standards: pairs(FLUORESCENCE.x, FLUORESCENCE.y),
+    };
     await addVersion('fluorescence', { method: { xUnit: 'pg/ml', yUnit: 'intensity' }, study: fluorescence });
     const absorbance: StudyInput = { model: 'linear', standards: pairs(ABSORBANCE.x, ABSORBANCE.y) };
     await addVersion('absorbance', { method: { xUnit: 'µg/ml' }, study: absorbance });
@@ -153,9 +175,16 @@ describe('routine runs', () => {
     await addVersion('absorbanceChart', { method: { xUnit: 'µg/ml' }, study: absorbance });
     await addVersion('weighted', {
       method: { xUnit: 'µg/ml' },
-      study: { model: 'linear', weighting: '1/s2', standards: ABSORBANCE.x.map((x, i) => ({ x, y: ABSORBANCE.y[i], sd: ABSORBANCE.s[i] })) },
+      study: {
+        model: 'linear',
+        weighting: '1/s2',
+        standards: ABSORBANCE.x.map((x, i) => ({ x, y: ABSORBANCE.y[i], sd: ABSORBANCE.s[i] })),
+      },
     });
-    await addVersion('pontius', { method: { xUnit: 'load', yUnit: 'deflection' }, study: { model: 'quadratic', standards: pairs(PONTIUS_X, PONTIUS_Y) } });
+    await addVersion('pontius', {
+      method: { xUnit: 'load', yUnit: 'deflection' },
+      study: { model: 'quadratic', standards: pairs(PONTIUS_X, PONTIUS_Y) },
+    });
     await addVersion('draft', { method: {}, study: absorbance, status: 'draft' });
     await addVersion('retired', { method: {}, study: absorbance, status: 'retired' });
     await addVersion('unvalidated', { method: {}, study: absorbance, studyStatus: 'submitted' });
@@ -192,13 +221,23 @@ describe('routine runs', () => {
 
     it('should offer only the validated quadratic and weighting on curved and weighted versions', async () => {
       const curved = await t.http().get(`/api/method-versions/${versions.pontius}/run-options`).set(auth(analyst)).expect(200);
-      expect(curved.body.models.filter((m: { allowed: boolean }) => m.allowed)).toEqual([{ model: 'quadratic', allowed: true, weighting: 'none' }]);
+      expect(curved.body.models.filter((m: { allowed: boolean }) => m.allowed)).toEqual([
+        { model: 'quadratic', allowed: true, weighting: 'none' },
+      ]);
       const weighted = await t.http().get(`/api/method-versions/${versions.weighted}/run-options`).set(auth(analyst)).expect(200);
-      expect(weighted.body.models.find((m: { model: string }) => m.model === 'linear')).toEqual({ model: 'linear', allowed: true, weighting: '1/s2' });
+      expect(weighted.body.models.find((m: { model: string }) => m.model === 'linear')).toEqual({
+        model: 'linear',
+        allowed: true,
+        weighting: '1/s2',
+      });
     });
 
     it('should mark draft, retired and never-validated versions unusable with the reason', async () => {
-      for (const [key, pattern] of [['draft', /is a draft/], ['retired', /is retired/], ['unvalidated', /no approved validation study/]] as const) {
+      for (const [key, pattern] of [
+        ['draft', /is a draft/],
+        ['retired', /is retired/],
+        ['unvalidated', /no approved validation study/],
+      ] as const) {
         const res = await t.http().get(`/api/method-versions/${versions[key]}/run-options`).set(auth(analyst)).expect(200);
         expect(res.body.usable).toBe(false);
         expect(res.body.reason).toMatch(pattern);
@@ -226,7 +265,13 @@ describe('routine runs', () => {
     it('should read unknowns off a straight line with the inverse-prediction interval of Miller & Miller', async () => {
       const res = await post(fluorescenceRun()).expect(201);
       linearRunId = res.body.id;
-      expect(res.body).toMatchObject({ status: 'accepted', model: 'linear', rejectionReasons: [], engineVersion: ENGINE_VERSION, author: { name: 'Alma Ruiz' } });
+      expect(res.body).toMatchObject({
+        status: 'accepted',
+        model: 'linear',
+        rejectionReasons: [],
+        engineVersion: ENGINE_VERSION,
+        author: { name: 'Alma Ruiz' },
+      });
       const [s1, s2, s3, s4, s5] = res.body.result.unknowns;
       // Miller & Miller: y0 = 13.5 with m = 4 gives x0 = 6.2072 and a 95 % half-width of 0.36146.
       close(s1.x0, inverse(13.5, 4).x0);
@@ -248,22 +293,37 @@ describe('routine runs', () => {
       expect(s5.flags).toEqual(['aboveTopStandard', 'outsideValidatedRange']);
       expect(s5.reported).toBe('> 12.0 pg/ml');
       expect(s5.suggestedDilution).toBe(2);
-      expect(res.body.result.checks).toEqual([{ id: 'CCV-1', nominal: 6, yMean: 13.1, found: expect.any(Number), recoveryPct: expect.any(Number), pass: true }]);
+      expect(res.body.result.checks).toEqual([
+        { id: 'CCV-1', nominal: 6, yMean: 13.1, found: expect.any(Number), recoveryPct: expect.any(Number), pass: true },
+      ]);
       close(res.body.result.checks[0].recoveryPct, 100, 1e-12);
       expect(res.body.result.onePointBias).toBeNull();
       expect(res.body.data.units).toEqual({ x: 'pg/ml', y: 'intensity' });
     });
 
     it('should record the creation in the audit trail', async () => {
-      const rows = await query<{ entityId: string; actorName: string }>("select actor_name as actorName, entity_id as entityId from audit_entries where action = 'run.created'");
+      const rows = await query<{ entityId: string; actorName: string }>(
+        "select actor_name as actorName, entity_id as entityId from audit_entries where action = 'run.created'",
+      );
       expect(rows).toContainEqual(expect.objectContaining({ entityId: linearRunId, actorName: 'Alma Ruiz' }));
     });
 
     it('should reject a run whose check standard recovers outside the window, on every result', async () => {
-      const res = await post(fluorescenceRun({ checks: [{ id: 'CCV-1', nominal: 6, y: [13.1] }, { id: 'CCV-2', nominal: 6, y: [15] }] })).expect(201);
+      const res = await post(
+        fluorescenceRun({
+          checks: [
+            { id: 'CCV-1', nominal: 6, y: [13.1] },
+            { id: 'CCV-2', nominal: 6, y: [15] },
+          ],
+        }),
+      ).expect(201);
       expect(res.body.status).toBe('rejected');
       // (15 − a)/b = 6.984 pg/ml: 116.4 % of 6.
-      expect(res.body.rejectionReasons).toEqual([expect.stringMatching(/^Check standard CCV-2 recovered 116\.4 % of its nominal 6 pg\/ml, outside the acceptance window of 90 to 110 %\.$/)]);
+      expect(res.body.rejectionReasons).toEqual([
+        expect.stringMatching(
+          /^Check standard CCV-2 recovered 116\.4 % of its nominal 6 pg\/ml, outside the acceptance window of 90 to 110 %\.$/,
+        ),
+      ]);
       expect(res.body.result.checks.map((c: { pass: boolean }) => c.pass)).toEqual([true, false]);
       for (const u of res.body.result.unknowns) {
         expect(u.reportable).toBe(false);
@@ -275,7 +335,15 @@ describe('routine runs', () => {
       const res = await post({
         methodVersionId: versions.absorbance,
         title: 'Two-point batch',
-        data: { model: 'two-point', standards: [{ x: 2, y: 0.158 }, { x: 10, y: 0.739 }], checks: [{ id: 'C', nominal: 6, y: [0.472] }], unknowns: [{ id: 'U', y: [0.5] }] },
+        data: {
+          model: 'two-point',
+          standards: [
+            { x: 2, y: 0.158 },
+            { x: 10, y: 0.739 },
+          ],
+          checks: [{ id: 'C', nominal: 6, y: [0.472] }],
+          unknowns: [{ id: 'U', y: [0.5] }],
+        },
       }).expect(201);
       const x0 = 2 + ((0.5 - 0.158) * (10 - 2)) / (0.739 - 0.158);
       close(res.body.result.unknowns[0].x0, x0, 1e-12);
@@ -294,7 +362,10 @@ describe('routine runs', () => {
           twoPoint: { bracketing: true },
           standards: pairs(ABSORBANCE.x.slice(1), ABSORBANCE.y.slice(1)),
           checks: [{ id: 'C', nominal: 6, y: [0.472] }],
-          unknowns: [{ id: 'low', y: [0.2] }, { id: 'high', y: [0.5] }],
+          unknowns: [
+            { id: 'low', y: [0.2] },
+            { id: 'high', y: [0.5] },
+          ],
         },
       }).expect(201);
       const [low, high] = res.body.result.unknowns;
@@ -307,7 +378,15 @@ describe('routine runs', () => {
       const res = await post({
         methodVersionId: versions.absorbance,
         title: 'One-point batch',
-        data: { model: 'one-point', standards: [{ x: 6, y: 0.472 }], checks: [{ id: 'C', nominal: 6, y: [0.47] }], unknowns: [{ id: 'low', y: [0.158] }, { id: 'top', y: [0.739] }] },
+        data: {
+          model: 'one-point',
+          standards: [{ x: 6, y: 0.472 }],
+          checks: [{ id: 'C', nominal: 6, y: [0.47] }],
+          unknowns: [
+            { id: 'low', y: [0.158] },
+            { id: 'top', y: [0.739] },
+          ],
+        },
       }).expect(201);
       const { onePointBias, unknowns } = res.body.result;
       // One-point reading y0·x_s/y_s; the validation line y = a + b·x rescaled through today's standard
@@ -336,7 +415,10 @@ describe('routine runs', () => {
           weighting: '1/s2',
           standards: ABSORBANCE.x.map((x, i) => ({ x, y: ABSORBANCE.y[i], sd: ABSORBANCE.s[i] })),
           checks: [{ id: 'C', nominal: 6, y: [0.45] }],
-          unknowns: [{ id: 'A', y: [0.1] }, { id: 'B', y: [0.6] }],
+          unknowns: [
+            { id: 'A', y: [0.1] },
+            { id: 'B', y: [0.6] },
+          ],
         },
       }).expect(201);
       const [a, b] = res.body.result.unknowns;
@@ -356,7 +438,12 @@ describe('routine runs', () => {
       const res = await post({
         methodVersionId: versions.pontius,
         title: 'Load cell check',
-        data: { model: 'quadratic', standards: pairs(PONTIUS_X, PONTIUS_Y), checks: [{ id: 'C', nominal: 1500000, y: [1.09148] }], unknowns: [{ id: 'L', y: [1.5] }] },
+        data: {
+          model: 'quadratic',
+          standards: pairs(PONTIUS_X, PONTIUS_Y),
+          checks: [{ id: 'C', nominal: 1500000, y: [1.09148] }],
+          unknowns: [{ id: 'L', y: [1.5] }],
+        },
       }).expect(201);
       const { calibration, unknowns } = res.body.result;
       close(calibration.intercept, PONTIUS_CERTIFIED.B0, 1e-9);
@@ -371,7 +458,11 @@ describe('routine runs', () => {
 
   describe('refusals', () => {
     it('should refuse runs on draft, retired and never-validated versions with the reason on methodVersionId', async () => {
-      for (const [key, pattern] of [['draft', /is a draft/], ['retired', /is retired/], ['unvalidated', /no approved validation study/]] as const) {
+      for (const [key, pattern] of [
+        ['draft', /is a draft/],
+        ['retired', /is retired/],
+        ['unvalidated', /no approved validation study/],
+      ] as const) {
         const body = await refused({ ...fluorescenceRun(), methodVersionId: versions[key] }, 422);
         expect(body.errors).toEqual([{ field: 'methodVersionId', code: 'not_usable', message: expect.stringMatching(pattern) }]);
       }
@@ -381,20 +472,65 @@ describe('routine runs', () => {
 
     it('should refuse one-point where the validation does not justify it, with the reason on data.model', async () => {
       const body = await refused(fluorescenceRun({ model: 'one-point', standards: [{ x: 6, y: 12.6 }] }), 422);
-      expect(body.errors).toContainEqual({ field: 'data.model', code: 'not_allowed', message: expect.stringMatching(/differs significantly from zero/) });
+      expect(body.errors).toContainEqual({
+        field: 'data.model',
+        code: 'not_allowed',
+        message: expect.stringMatching(/differs significantly from zero/),
+      });
     });
 
     it('should refuse a one-point standard at zero or below concentration', async () => {
       for (const x of [0, -1]) {
-        const body = await refused({ methodVersionId: versions.absorbance, title: 'x', data: { model: 'one-point', standards: [{ x, y: 0.009 }], checks: [{ id: 'C', nominal: 6, y: [0.47] }], unknowns: [{ id: 'U', y: [0.1] }] } }, 422);
+        const body = await refused(
+          {
+            methodVersionId: versions.absorbance,
+            title: 'x',
+            data: {
+              model: 'one-point',
+              standards: [{ x, y: 0.009 }],
+              checks: [{ id: 'C', nominal: 6, y: [0.47] }],
+              unknowns: [{ id: 'U', y: [0.1] }],
+            },
+          },
+          422,
+        );
         expect(body.errors).toEqual([{ field: 'data.standards[0].x', code: 'not_positive', message: expect.stringMatching(/above zero/) }]);
       }
     });
 
     it('should refuse two standards at the same concentration, and a third level without bracketing', async () => {
-      const same = await refused({ methodVersionId: versions.absorbance, title: 'x', data: { model: 'two-point', standards: [{ x: 5, y: 0.36 }, { x: 5, y: 0.37 }], checks: [{ id: 'C', nominal: 5, y: [0.36] }], unknowns: [{ id: 'U', y: [0.1] }] } }, 422);
-      expect(same.errors).toEqual([{ field: 'data.standards[1].x', code: 'all_x_equal', message: expect.stringMatching(/same concentration/) }]);
-      const three = await refused({ methodVersionId: versions.absorbance, title: 'x', data: { model: 'two-point', standards: pairs([2, 4, 6], [0.158, 0.301, 0.472]), checks: [{ id: 'C', nominal: 5, y: [0.36] }], unknowns: [{ id: 'U', y: [0.1] }] } }, 422);
+      const same = await refused(
+        {
+          methodVersionId: versions.absorbance,
+          title: 'x',
+          data: {
+            model: 'two-point',
+            standards: [
+              { x: 5, y: 0.36 },
+              { x: 5, y: 0.37 },
+            ],
+            checks: [{ id: 'C', nominal: 5, y: [0.36] }],
+            unknowns: [{ id: 'U', y: [0.1] }],
+          },
+        },
+        422,
+      );
+      expect(same.errors).toEqual([
+        { field: 'data.standards[1].x', code: 'all_x_equal', message: expect.stringMatching(/same concentration/) },
+      ]);
+      const three = await refused(
+        {
+          methodVersionId: versions.absorbance,
+          title: 'x',
+          data: {
+            model: 'two-point',
+            standards: pairs([2, 4, 6], [0.158, 0.301, 0.472]),
+            checks: [{ id: 'C', nominal: 5, y: [0.36] }],
+            unknowns: [{ id: 'U', y: [0.1] }],
+          },
+        },
+        422,
+      );
       expect(three.errors).toEqual([expect.objectContaining({ field: 'data.standards', code: 'too_many_levels' })]);
     });
 
@@ -413,7 +549,19 @@ describe('routine runs', () => {
 
     it('should refuse a response outside the range where the quadratic can be inverted', async () => {
       // Pontius: the fitted parabola peaks near 42 deflection units; 50 has no real root.
-      const body = await refused({ methodVersionId: versions.pontius, title: 'x', data: { model: 'quadratic', standards: pairs(PONTIUS_X, PONTIUS_Y), checks: [{ id: 'C', nominal: 1500000, y: [1.0915] }], unknowns: [{ id: 'L', y: [50] }] } }, 422);
+      const body = await refused(
+        {
+          methodVersionId: versions.pontius,
+          title: 'x',
+          data: {
+            model: 'quadratic',
+            standards: pairs(PONTIUS_X, PONTIUS_Y),
+            checks: [{ id: 'C', nominal: 1500000, y: [1.0915] }],
+            unknowns: [{ id: 'L', y: [50] }],
+          },
+        },
+        422,
+      );
       expect(body.errors).toEqual([expect.objectContaining({ field: 'data.unknowns[0].y', code: 'not_invertible' })]);
     });
 
@@ -421,7 +569,12 @@ describe('routine runs', () => {
       const quadratic = await refused(fluorescenceRun({ model: 'quadratic' }), 422);
       expect(quadratic.errors).toContainEqual(expect.objectContaining({ field: 'data.model', code: 'not_allowed' }));
       const weighting = await refused(fluorescenceRun({ weighting: '1/x' }), 422);
-      expect(weighting.errors).toEqual([expect.objectContaining({ field: 'data.weighting', message: expect.stringMatching(/validated with weighting none|takes no weighting|weighting none/) })]);
+      expect(weighting.errors).toEqual([
+        expect.objectContaining({
+          field: 'data.weighting',
+          message: expect.stringMatching(/validated with weighting none|takes no weighting|weighting none/),
+        }),
+      ]);
       const unknownModel = await refused(fluorescenceRun({ model: 'cubic' }), 422);
       expect(fieldsOf(unknownModel)).toEqual(['data.model']);
       const extra = await refused(fluorescenceRun({ blanks: [0.1, 0.2] }), 422);
@@ -464,10 +617,24 @@ describe('routine runs', () => {
       const all = await t.http().get('/api/runs').query({ methodVersionId: versions.fluorescence }).set(auth(reviewer)).expect(200);
       expect(all.body.total).toBe(3);
       expect(all.body.items.map((r: { status: string }) => r.status)).toEqual(['accepted', 'rejected', 'accepted']);
-      expect(all.body.items[0]).toMatchObject({ title: 'Fluorescein batch 7', model: 'linear', versionNumber: 1, unknownCount: 5, checkCount: 1, author: { name: 'Alma Ruiz' } });
-      const rejected = await t.http().get('/api/runs').query({ methodVersionId: versions.fluorescence, status: 'rejected' }).set(auth(analyst)).expect(200);
+      expect(all.body.items[0]).toMatchObject({
+        title: 'Fluorescein batch 7',
+        model: 'linear',
+        versionNumber: 1,
+        unknownCount: 5,
+        checkCount: 1,
+        author: { name: 'Alma Ruiz' },
+      });
+      const rejected = await t
+        .http()
+        .get('/api/runs')
+        .query({ methodVersionId: versions.fluorescence, status: 'rejected' })
+        .set(auth(analyst))
+        .expect(200);
       expect(rejected.body.total).toBe(1);
-      const [{ id: methodId }] = await query<{ id: string }>('select method_id as id from method_versions where id = ?', [versions.absorbance]);
+      const [{ id: methodId }] = await query<{ id: string }>('select method_id as id from method_versions where id = ?', [
+        versions.absorbance,
+      ]);
       const byMethod = await t.http().get('/api/runs').query({ methodId, pageSize: 2, page: 2 }).set(auth(analyst)).expect(200);
       expect(byMethod.body).toMatchObject({ total: 3, page: 2, pageSize: 2 });
       expect(byMethod.body.items).toHaveLength(1);
@@ -508,11 +675,17 @@ describe('routine runs', () => {
     });
 
     it('should export an XLSX workbook that reads back with exceljs', async () => {
-      const res = await t.http().get(`/api/runs/${runId}/export?format=xlsx`).set(auth(analyst)).buffer(true).parse((response, done) => {
-        const chunks: Buffer[] = [];
-        response.on('data', (chunk: Buffer) => chunks.push(chunk));
-        response.on('end', () => done(null, Buffer.concat(chunks)));
-      }).expect(200);
+      const res = await t
+        .http()
+        .get(`/api/runs/${runId}/export?format=xlsx`)
+        .set(auth(analyst))
+        .buffer(true)
+        .parse((response, done) => {
+          const chunks: Buffer[] = [];
+          response.on('data', (chunk: Buffer) => chunks.push(chunk));
+          response.on('end', () => done(null, Buffer.concat(chunks)));
+        })
+        .expect(200);
       const workbook = new ExcelJS.Workbook();
       await workbook.xlsx.load(res.body as ArrayBuffer);
       expect(workbook.worksheets.map((s) => s.name)).toEqual(['Results', 'Check standards', 'Standards', 'Run']);
@@ -525,11 +698,17 @@ describe('routine runs', () => {
     });
 
     it('should print a run sheet whose text carries the title, a reported unknown and the caution', async () => {
-      const res = await t.http().get(`/api/runs/${runId}/sheet`).set(auth(quality)).buffer(true).parse((response, done) => {
-        const chunks: Buffer[] = [];
-        response.on('data', (chunk: Buffer) => chunks.push(chunk));
-        response.on('end', () => done(null, Buffer.concat(chunks)));
-      }).expect(200);
+      const res = await t
+        .http()
+        .get(`/api/runs/${runId}/sheet`)
+        .set(auth(quality))
+        .buffer(true)
+        .parse((response, done) => {
+          const chunks: Buffer[] = [];
+          response.on('data', (chunk: Buffer) => chunks.push(chunk));
+          response.on('end', () => done(null, Buffer.concat(chunks)));
+        })
+        .expect(200);
       expect(res.headers['content-type']).toBe('application/pdf');
       mkdirSync(OUTPUT, { recursive: true });
       const file = join(OUTPUT, 'run-sheet.pdf');
@@ -562,7 +741,14 @@ describe('routine runs', () => {
 
     it('should give no limits below three accepted runs, with a message', async () => {
       const res = await t.http().get(`/api/method-versions/${versions.absorbanceChart}/control-chart`).set(auth(analyst)).expect(200);
-      expect(res.body).toMatchObject({ n: 0, limits: null, mean: null, sd: null, points: [], message: expect.stringMatching(/at least 3 accepted runs/) });
+      expect(res.body).toMatchObject({
+        n: 0,
+        limits: null,
+        mean: null,
+        sd: null,
+        points: [],
+        message: expect.stringMatching(/at least 3 accepted runs/),
+      });
     });
 
     it('should draw mean ± 2s and ± 3s of the accepted slopes and flag seven runs in a row on one side (common practice)', async () => {
@@ -571,14 +757,30 @@ describe('routine runs', () => {
         await post({
           methodVersionId: versions.absorbanceChart,
           title: `Chart run ${i + 1}`,
-          data: { model: 'two-point', standards: [{ x: 0, y: 0 }, { x: 10, y }], checks: [{ id: 'C', nominal: 5, y: [y / 2] }], unknowns: [{ id: 'U', y: [0.3] }] },
+          data: {
+            model: 'two-point',
+            standards: [
+              { x: 0, y: 0 },
+              { x: 10, y },
+            ],
+            checks: [{ id: 'C', nominal: 5, y: [y / 2] }],
+            unknowns: [{ id: 'U', y: [0.3] }],
+          },
         }).expect(201);
       }
       // A rejected run stays off the chart.
       await post({
         methodVersionId: versions.absorbanceChart,
         title: 'Rejected chart run',
-        data: { model: 'two-point', standards: [{ x: 0, y: 0 }, { x: 10, y: 0.9 }], checks: [{ id: 'C', nominal: 5, y: [0.3] }], unknowns: [{ id: 'U', y: [0.3] }] },
+        data: {
+          model: 'two-point',
+          standards: [
+            { x: 0, y: 0 },
+            { x: 10, y: 0.9 },
+          ],
+          checks: [{ id: 'C', nominal: 5, y: [0.3] }],
+          unknowns: [{ id: 'U', y: [0.3] }],
+        },
       }).expect(201);
       const res = await t.http().get(`/api/method-versions/${versions.absorbanceChart}/control-chart`).set(auth(reviewer)).expect(200);
       const slopes = top.map((y) => y / 10);

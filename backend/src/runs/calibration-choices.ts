@@ -84,7 +84,9 @@ function onePointChoice(basis: ValidationBasis, settings: RunSettings, yUnit: st
   }
   const test = basis.interceptTest;
   if (!test) {
-    return refuse('The validation has no intercept test (it needs at least 3 standards at 2 or more concentrations), so a line through the origin is not justified.');
+    return refuse(
+      'The validation has no intercept test (it needs at least 3 standards at 2 or more concentrations), so a line through the origin is not justified.',
+    );
   }
   const intercept = `${formatSignificant(test.intercept, 3)}${yUnit ? ` ${yUnit}` : ''}`;
   if (test.significant) {
@@ -114,9 +116,15 @@ export function modelChoices(basis: ValidationBasis | null, settings: RunSetting
     straight
       ? { model: 'two-point', allowed: true }
       : { model: 'two-point', allowed: false, reason: `${curved} A line through two standards would misread the samples between them.` },
-    straight ? { model: 'linear', allowed: true, weighting: basis.model === 'linear' ? basis.weighting : 'none' } : { model: 'linear', allowed: false, reason: curved },
+    straight
+      ? { model: 'linear', allowed: true, weighting: basis.model === 'linear' ? basis.weighting : 'none' }
+      : { model: 'linear', allowed: false, reason: curved },
     basis.model === 'quadratic'
       ? { model: 'quadratic', allowed: true, weighting: basis.weighting }
-      : { model: 'quadratic', allowed: false, reason: 'The validation showed a straight line; a quadratic calibration was not validated for this version.' },
+      : {
+          model: 'quadratic',
+          allowed: false,
+          reason: 'The validation showed a straight line; a quadratic calibration was not validated for this version.',
+        },
   ];
 }

@@ -1,7 +1,14 @@
 import { describe, expect, it } from 'vitest';
 import { controlChart } from './control-chart.js';
 
-const points = (slopes: number[]) => slopes.map((slope, i) => ({ runId: `r${i}`, title: `Run ${i + 1}`, createdAt: `2026-11-${String(i + 1).padStart(2, '0')}`, model: 'linear', slope }));
+const points = (slopes: number[]) =>
+  slopes.map((slope, i) => ({
+    runId: `r${i}`,
+    title: `Run ${i + 1}`,
+    createdAt: `2026-11-${String(i + 1).padStart(2, '0')}`,
+    model: 'linear',
+    slope,
+  }));
 
 describe('slope control chart', () => {
   it('should give no limits below three runs and say why', () => {

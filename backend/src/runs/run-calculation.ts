@@ -1,4 +1,11 @@
-import { evaluateStudy, StudyValidationError, type CalibrationResult, type FieldError, type StudyInput, type Units } from '@meritline/shared';
+import {
+  evaluateStudy,
+  StudyValidationError,
+  type CalibrationResult,
+  type FieldError,
+  type StudyInput,
+  type Units,
+} from '@meritline/shared';
 import { formatPct, formatSignificant, formatWithInterval, withUnit } from './report-format.js';
 import {
   RUN_DATA_KEYS,
@@ -36,7 +43,8 @@ function prefixed(errors: FieldError[]): StudyValidationError {
 function checkRunShape(data: Json, choices: ModelChoice[]): { model: RunModel; choice: ModelChoice } {
   const errors: FieldError[] = [];
   for (const key of Object.keys(data)) {
-    if (!(RUN_DATA_KEYS as readonly string[]).includes(key)) errors.push({ field: `data.${key}`, code: 'unknown_field', message: `${key} is not part of a run.` });
+    if (!(RUN_DATA_KEYS as readonly string[]).includes(key))
+      errors.push({ field: `data.${key}`, code: 'unknown_field', message: `${key} is not part of a run.` });
   }
   const model = data.model as RunModel;
   const choice = choices.find((c) => c.model === model);
@@ -44,7 +52,8 @@ function checkRunShape(data: Json, choices: ModelChoice[]): { model: RunModel; c
     errors.push({ field: 'data.model', code: 'invalid_value', message: `Choose one of ${RUN_MODELS.join(', ')}.` });
     throw new StudyValidationError(errors);
   }
-  if (!choice.allowed) errors.push({ field: 'data.model', code: 'not_allowed', message: choice.reason ?? `${model} is not allowed on this version.` });
+  if (!choice.allowed)
+    errors.push({ field: 'data.model', code: 'not_allowed', message: choice.reason ?? `${model} is not allowed on this version.` });
   if (data.weighting !== undefined && data.weighting !== (choice.weighting ?? 'none')) {
     errors.push({
       field: 'data.weighting',
@@ -59,18 +68,21 @@ function checkRunShape(data: Json, choices: ModelChoice[]): { model: RunModel; c
   }
   for (const key of ['checks', 'unknowns'] as const) {
     if (!Array.isArray(data[key]) || data[key].length === 0) {
-      const what = key === 'checks' ? 'at least one check standard, which decides whether the calibration still holds' : 'at least one sample';
+      const what =
+        key === 'checks' ? 'at least one check standard, which decides whether the calibration still holds' : 'at least one sample';
       errors.push({ field: `data.${key}`, code: 'required', message: `A run needs ${what}.` });
     }
   }
   const standards = Array.isArray(data.standards) ? data.standards : [];
-  const used = standards
-    .map((s, index) => ({ s, index }))
-    .filter(({ s }) => isObject(s) && !s.excluded && typeof s.x === 'number');
+  const used = standards.map((s, index) => ({ s, index })).filter(({ s }) => isObject(s) && !s.excluded && typeof s.x === 'number');
   if (model === 'one-point') {
     for (const { s, index } of used) {
-      if ((s as Json).x as number <= 0) {
-        errors.push({ field: `data.standards[${index}].x`, code: 'not_positive', message: 'The one-point standard needs a concentration above zero.' });
+      if (((s as Json).x as number) <= 0) {
+        errors.push({
+          field: `data.standards[${index}].x`,
+          code: 'not_positive',
+          message: 'The one-point standard needs a concentration above zero.',
+        });
       }
     }
   }
@@ -108,7 +120,8 @@ function readUnknown(
   }
   if (loq !== null && x0Undiluted < loq) {
     flags.push('belowLoq');
-    if (!flags.includes('belowLod')) remarks.push(`Detected but below the LOQ (${inSample(loq)} in the measured solution): not quantified.`);
+    if (!flags.includes('belowLod'))
+      remarks.push(`Detected but below the LOQ (${inSample(loq)} in the measured solution): not quantified.`);
   }
   const belowLimits = flags.length > 0;
   let suggestedDilution: number | null = null;
@@ -121,7 +134,9 @@ function readUnknown(
   }
   if (range && !belowLimits && (x0Undiluted < range.low || x0Undiluted > range.high)) {
     flags.push('outsideValidatedRange');
-    remarks.push(`Outside the validated range (${formatSignificant(range.low, 3)} to ${withUnit(formatSignificant(range.high, 3), unit)}).`);
+    remarks.push(
+      `Outside the validated range (${formatSignificant(range.low, 3)} to ${withUnit(formatSignificant(range.high, 3), unit)}).`,
+    );
   }
   if (!reportable) remarks.push('Not reportable: the run was rejected.');
 
@@ -159,7 +174,11 @@ function onePointBias(calibration: CalibrationResult, unknowns: RunUnknown[], ba
   };
 }
 
-function checkOutcome(check: { id: string; nominal: number; found: number; recoveryPct: number }, ys: number[], tolerancePct: number): RunCheck {
+function checkOutcome(
+  check: { id: string; nominal: number; found: number; recoveryPct: number },
+  ys: number[],
+  tolerancePct: number,
+): RunCheck {
   const yMean = ys.reduce((sum, y) => sum + y, 0) / ys.length;
   // A recovery that rounds onto the limit passes: the window is inclusive.
   const pass = Math.abs(check.recoveryPct - 100) <= tolerancePct + 1e-9;

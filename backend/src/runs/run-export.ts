@@ -112,7 +112,10 @@ export async function runWorkbook(run: RunDto): Promise<Buffer> {
     ['Validation study', `${validation.studyTitle} (${validation.studyId})`],
     [`LOD (${xUnit}, measured solution)`, rounded(validation.lod, 3)],
     [`LOQ (${xUnit}, measured solution)`, rounded(validation.loq, 3)],
-    ['Validated range', validation.validatedRange ? `${validation.validatedRange.low} to ${validation.validatedRange.high} ${xUnit}` : null],
+    [
+      'Validated range',
+      validation.validatedRange ? `${validation.validatedRange.low} to ${validation.validatedRange.high} ${xUnit}` : null,
+    ],
     ['Check acceptance', `recovery within ${result.acceptance.low} to ${result.acceptance.high} %`],
     ['Analyst', run.author.name],
     ['Created', run.createdAt],

@@ -45,15 +45,38 @@ export function runPlotLayers(run: RunDto): PlotLayer[] {
   const layers: PlotLayer[] = [];
   const reference = result.onePointBias?.referenceLine;
   if (reference) {
-    layers.push({ type: 'line', label: 'Validation line through today’s standard', points: curve(0, to, (x) => reference.intercept + reference.slope * x, 2), color: colors.warning, dashed: true });
+    layers.push({
+      type: 'line',
+      label: 'Validation line through today’s standard',
+      points: curve(0, to, (x) => reference.intercept + reference.slope * x, 2),
+      color: colors.warning,
+      dashed: true,
+    });
   }
   layers.push({ type: 'line', label: 'Calibration', points: curve(from, to, (x) => responseAt(result, x)), color: colors.spruce });
   const yFloor = Math.min(0, ...standards.map((s) => s.y), ...unknowns.map((u) => u.yMean));
   for (const u of unknowns) {
-    layers.push({ type: 'line', points: [{ x: from, y: u.yMean }, { x: u.x0Undiluted, y: u.yMean }, { x: u.x0Undiluted, y: yFloor }], color: colors.faint, width: 0.6, dashed: true });
+    layers.push({
+      type: 'line',
+      points: [
+        { x: from, y: u.yMean },
+        { x: u.x0Undiluted, y: u.yMean },
+        { x: u.x0Undiluted, y: yFloor },
+      ],
+      color: colors.faint,
+      width: 0.6,
+      dashed: true,
+    });
   }
   layers.push({ type: 'points', label: 'Standards', points: standards.map((s) => ({ x: s.x, y: s.y })), color: colors.spruce });
-  layers.push({ type: 'points', label: 'Samples (read off the line)', points: unknowns.map((u) => ({ x: u.x0Undiluted, y: u.yMean })), color: colors.spruceMid, hollow: true, radius: 3 });
+  layers.push({
+    type: 'points',
+    label: 'Samples (read off the line)',
+    points: unknowns.map((u) => ({ x: u.x0Undiluted, y: u.yMean })),
+    color: colors.spruceMid,
+    hollow: true,
+    radius: 3,
+  });
   return layers;
 }
 
@@ -83,13 +106,25 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
     ['Analyst', run.author.name],
     ['Created', formatDateTime(run.createdAt)],
     ['Validation study', validation.studyTitle],
-    ['LOD / LOQ', `${withUnit(formatNumber(validation.lod, 3), xUnit)} / ${withUnit(formatNumber(validation.loq, 3), xUnit)} (measured solution, ${validation.lodBasis ?? 'n/a'})`],
-    ['Validated range', validation.validatedRange ? `${formatNumber(validation.validatedRange.low, 3)} to ${withUnit(formatNumber(validation.validatedRange.high, 3), xUnit)}` : 'not stated'],
+    [
+      'LOD / LOQ',
+      `${withUnit(formatNumber(validation.lod, 3), xUnit)} / ${withUnit(formatNumber(validation.loq, 3), xUnit)} (measured solution, ${validation.lodBasis ?? 'n/a'})`,
+    ],
+    [
+      'Validated range',
+      validation.validatedRange
+        ? `${formatNumber(validation.validatedRange.low, 3)} to ${withUnit(formatNumber(validation.validatedRange.high, 3), xUnit)}`
+        : 'not stated',
+    ],
   ]);
   if (rejected) {
     pdf.callout('Run rejected: its results are not reportable', run.rejectionReasons, 'fail');
   } else {
-    pdf.callout('Run accepted', [`Every check standard recovered within ${result.acceptance.low} to ${result.acceptance.high} % of its nominal value.`], 'pass');
+    pdf.callout(
+      'Run accepted',
+      [`Every check standard recovered within ${result.acceptance.low} to ${result.acceptance.high} % of its nominal value.`],
+      'pass',
+    );
   }
 
   pdf.heading('Results', 2);
@@ -102,9 +137,18 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
       { header: 'Remarks', width: 2.8 },
     ],
     rows: result.unknowns.map((u) => ({
-      cells: [u.id, String(u.dilution), formatNumber(u.yMean, 4), rejected ? `${u.reported} (not reportable)` : u.reported, u.remarks.join(' ')],
+      cells: [
+        u.id,
+        String(u.dilution),
+        formatNumber(u.yMean, 4),
+        rejected ? `${u.reported} (not reportable)` : u.reported,
+        u.remarks.join(' '),
+      ],
     })),
-    note: calibration.sYX === null ? 'No interval: a one- or two-point calibration has no residual spread to estimate it from.' : `± is the ${Math.round(result.confidence * 100)} % confidence interval of the reading (s_x0, Miller & Miller), times the dilution factor.`,
+    note:
+      calibration.sYX === null
+        ? 'No interval: a one- or two-point calibration has no residual spread to estimate it from.'
+        : `± is the ${Math.round(result.confidence * 100)} % confidence interval of the reading (s_x0, Miller & Miller), times the dilution factor.`,
   });
 
   const bias = result.onePointBias;
@@ -115,15 +159,36 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
       { color: colors.muted },
     );
     pdf.table({
-      columns: [{ header: 'Sample' }, { header: `One-point (${xUnit})`, align: 'right' }, { header: `Validation line (${xUnit})`, align: 'right' }, { header: `Bias (${xUnit})`, align: 'right' }, { header: 'Bias (%)', align: 'right' }],
-      rows: bias.items.map((b) => [b.id, formatNumber(b.onePoint, 4), formatNumber(b.regression, 4), formatNumber(b.bias, 3), formatPercent(b.biasPct)]),
+      columns: [
+        { header: 'Sample' },
+        { header: `One-point (${xUnit})`, align: 'right' },
+        { header: `Validation line (${xUnit})`, align: 'right' },
+        { header: `Bias (${xUnit})`, align: 'right' },
+        { header: 'Bias (%)', align: 'right' },
+      ],
+      rows: bias.items.map((b) => [
+        b.id,
+        formatNumber(b.onePoint, 4),
+        formatNumber(b.regression, 4),
+        formatNumber(b.bias, 3),
+        formatPercent(b.biasPct),
+      ]),
     });
   }
 
   pdf.heading('Check standards', 2);
   pdf.table({
-    columns: [{ header: 'Check' }, { header: `Nominal (${xUnit})`, align: 'right' }, { header: `Found (${xUnit})`, align: 'right' }, { header: 'Recovery (%)', align: 'right' }, { header: 'Outcome' }],
-    rows: result.checks.map((c) => ({ cells: [c.id, formatNumber(c.nominal, 4), formatNumber(c.found, 4), formatPercent(c.recoveryPct), c.pass ? 'pass' : 'FAIL'], bold: !c.pass })),
+    columns: [
+      { header: 'Check' },
+      { header: `Nominal (${xUnit})`, align: 'right' },
+      { header: `Found (${xUnit})`, align: 'right' },
+      { header: 'Recovery (%)', align: 'right' },
+      { header: 'Outcome' },
+    ],
+    rows: result.checks.map((c) => ({
+      cells: [c.id, formatNumber(c.nominal, 4), formatNumber(c.found, 4), formatPercent(c.recoveryPct), c.pass ? 'pass' : 'FAIL'],
+      bold: !c.pass,
+    })),
     note: `Acceptance window: ${result.acceptance.low} to ${result.acceptance.high} % recovery.`,
   });
 

@@ -53,7 +53,11 @@ export class RunsController {
 
   @Get(':id/export')
   @ApiProduces('text/csv', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
-  async export(@Param('id', ParseUUIDPipe) id: string, @Query() query: ExportRunQueryDto, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+  async export(
+    @Param('id', ParseUUIDPipe) id: string,
+    @Query() query: ExportRunQueryDto,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<StreamableFile> {
     return send(res, await this.runsService.exportFile(id, query.format));
   }
 

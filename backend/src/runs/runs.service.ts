@@ -116,20 +116,35 @@ const CONTENT_TYPES = {
 } as const;
 
 function fileName(run: RunDto, extension: string): string {
-  const slug = run.title.normalize('NFKD').replace(/[^\w]+/g, '-').replace(/^-+|-+$/g, '').toLowerCase().slice(0, 60) || 'run';
+  const slug =
+    run.title
+      .normalize('NFKD')
+      .replace(/[^\w]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .toLowerCase()
+      .slice(0, 60) || 'run';
   return `run-${slug}-${run.createdAt.slice(0, 10)}.${extension}`;
 }
 
-const toMethodSummary = (m: Method): MethodSummary => ({ id: m.id, name: m.name, analyte: m.analyte, matrix: m.matrix, xUnit: m.xUnit, yUnit: m.yUnit });
+const toMethodSummary = (m: Method): MethodSummary => ({
+  id: m.id,
+  name: m.name,
+  analyte: m.analyte,
+  matrix: m.matrix,
+  xUnit: m.xUnit,
+  yUnit: m.yUnit,
+});
 
 function versionLabel(version: MethodVersion): string {
   return `Version ${version.number} of ${version.method.name}`;
 }
 
 function unusableReason(version: MethodVersion, hasApproved: boolean, hasCalibration = true): string | null {
-  if (version.status !== 'active') return `${versionLabel(version)} is ${version.status === 'draft' ? 'a draft' : 'retired'}: routine runs need an active version.`;
+  if (version.status !== 'active')
+    return `${versionLabel(version)} is ${version.status === 'draft' ? 'a draft' : 'retired'}: routine runs need an active version.`;
   if (!hasApproved) return `${versionLabel(version)} has no approved validation study, so it is not validated for routine runs.`;
-  if (!hasCalibration) return `The approved validation study of ${versionLabel(version).toLowerCase()} has no calibration to compare a run with.`;
+  if (!hasCalibration)
+    return `The approved validation study of ${versionLabel(version).toLowerCase()} has no calibration to compare a run with.`;
   return null;
 }
 
@@ -156,7 +171,12 @@ export class RunsService {
   private async optionsFor(version: MethodVersion): Promise<RunOptions> {
     const study = await this.approvedStudy(version.id);
     const basis = study?.result
-      ? validationBasis({ id: study.id, title: study.title, approvedAt: study.approvedAt, result: study.result as unknown as EvaluationResult })
+      ? validationBasis({
+          id: study.id,
+          title: study.title,
+          approvedAt: study.approvedAt,
+          result: study.result as unknown as EvaluationResult,
+        })
       : null;
     const reason = unusableReason(version, study !== null, basis !== null);
     const { settings } = version;
@@ -168,7 +188,8 @@ export class RunsService {
       method: toMethodSummary(version.method),
       usable: reason === null,
       reason,
-      models: reason === null ? modelChoices(basis, settings, version.method.yUnit) : modelChoices(null, settings).map((m) => ({ ...m, reason })),
+      models:
+        reason === null ? modelChoices(basis, settings, version.method.yUnit) : modelChoices(null, settings).map((m) => ({ ...m, reason })),
       validationStudyId: study?.id ?? null,
       lod: basis?.lod ?? null,
       loq: basis?.loq ?? null,
@@ -205,7 +226,9 @@ export class RunsService {
     const refuse = (message: string) => unprocessable([{ field: 'methodVersionId', code: 'not_usable', message }], message);
     if (!version) throw refuse('No method version has this id.');
     if (dto.methodVersionLockVersion !== undefined && dto.methodVersionLockVersion !== version.lockVersion) {
-      throw new ConflictException(`${versionLabel(version)} was changed after you opened it (for example its check tolerance); reload and try again.`);
+      throw new ConflictException(
+        `${versionLabel(version)} was changed after you opened it (for example its check tolerance); reload and try again.`,
+      );
     }
     const options = await this.optionsFor(version);
     if (!options.usable || !options.validation) throw refuse(options.reason ?? 'This version cannot be used for runs.');
@@ -346,7 +369,9 @@ export class RunsService {
     const chart = controlChart(
       accepted.flatMap((run) => {
         const slope = (run.result as unknown as RunResult).calibration?.slope;
-        return typeof slope === 'number' ? [{ runId: run.id, title: run.title, createdAt: run.createdAt.toISOString(), model: run.model, slope }] : [];
+        return typeof slope === 'number'
+          ? [{ runId: run.id, title: run.title, createdAt: run.createdAt.toISOString(), model: run.model, slope }]
+          : [];
       }),
     );
     return { methodVersionId, slopeUnit: `${version.method.yUnit} per ${version.method.xUnit}`, ...chart };

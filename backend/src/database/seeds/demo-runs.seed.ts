@@ -38,26 +38,172 @@ const LINEAR_LEVELS = [0.5, 2.5, 10, 25, 50];
 
 // Five days below the long-run slope, then seven above it: the chart shows the drift.
 const ACTIVE_RUNS: DemoRun[] = [
-  { daysAgo: 27, author: 'analyst@meritline.test', model: 'linear', sensitivity: 0.99, samples: [{ id: 'W-2701 tap water, Riverside', x: 11.8 }, { id: 'W-2702 well, Oak Farm', x: 31.5 }, { id: 'W-2703 tap water, Hill Road', x: 0.3 }] },
-  { daysAgo: 25, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 0.994, samples: [{ id: 'W-2711 spring, Mill Brook', x: 6.2 }, { id: 'W-2712 tap water, Station Square', x: 14.9 }] },
-  { daysAgo: 23, author: 'analyst@meritline.test', model: 'two-point', sensitivity: 0.997, samples: [{ id: 'W-2720 well, Marsh Lane', x: 58.4, dilution: 2 }, { id: 'W-2721 tap water, Riverside', x: 12.1 }] },
-  { daysAgo: 21, author: 'analyst@meritline.test', model: 'linear', sensitivity: 0.992, samples: [{ id: 'W-2730 borehole, Ash Farm', x: 44.7 }, { id: 'W-2731 tap water, Elm Court', x: 8.8 }, { id: 'W-2732 well, Oak Farm', x: 33.2 }] },
-  { daysAgo: 19, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 0.995, samples: [{ id: 'W-2740 tap water, Hill Road', x: 0.9 }, { id: 'W-2741 reservoir outlet', x: 4.6 }] },
-  { daysAgo: 17, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 1.001, checkFactor: 0.86, samples: [{ id: 'W-2750 tap water, Riverside', x: 12.3 }, { id: 'W-2751 well, Marsh Lane', x: 29.6, dilution: 2 }] },
-  { daysAgo: 16, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.004, samples: [{ id: 'W-2750 tap water, Riverside (repeat)', x: 12.3 }, { id: 'W-2751 well, Marsh Lane (repeat)', x: 29.6, dilution: 2 }] },
-  { daysAgo: 14, author: 'analyst@meritline.test', model: 'one-point', sensitivity: 1.006, samples: [{ id: 'W-2760 tap water, Station Square', x: 9.7 }, { id: 'W-2761 spring, Mill Brook', x: 6.0 }, { id: 'W-2762 tap water, Elm Court', x: 11.4 }] },
-  { daysAgo: 12, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 1.008, samples: [{ id: 'W-2770 well, Oak Farm', x: 36.1 }, { id: 'W-2771 borehole, Ash Farm', x: 47.9 }] },
-  { daysAgo: 9, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.008, samples: [{ id: 'W-2780 tap water, Riverside', x: 12.6 }, { id: 'W-2781 new well, Birch Lane', x: 71.0 }] },
-  { daysAgo: 7, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.007, samples: [{ id: 'W-2781 new well, Birch Lane (diluted)', x: 71.0, dilution: 5 }, { id: 'W-2782 tap water, Hill Road', x: 0.4 }] },
-  { daysAgo: 4, author: 'analyst2@meritline.test', model: 'two-point', sensitivity: 1.010, samples: [{ id: 'W-2790 reservoir outlet', x: 4.4 }, { id: 'W-2791 tap water, Elm Court', x: 9.1 }] },
-  { daysAgo: 2, author: 'analyst@meritline.test', model: 'linear', sensitivity: 1.012, samples: [{ id: 'W-2800 tap water, Station Square', x: 10.2 }, { id: 'W-2801 well, Oak Farm', x: 34.8 }, { id: 'W-2802 spring, Mill Brook', x: 5.7 }] },
+  {
+    daysAgo: 27,
+    author: 'analyst@meritline.test',
+    model: 'linear',
+    sensitivity: 0.99,
+    samples: [
+      { id: 'W-2701 tap water, Riverside', x: 11.8 },
+      { id: 'W-2702 well, Oak Farm', x: 31.5 },
+      { id: 'W-2703 tap water, Hill Road', x: 0.3 },
+    ],
+  },
+  {
+    daysAgo: 25,
+    author: 'analyst2@meritline.test',
+    model: 'linear',
+    sensitivity: 0.994,
+    samples: [
+      { id: 'W-2711 spring, Mill Brook', x: 6.2 },
+      { id: 'W-2712 tap water, Station Square', x: 14.9 },
+    ],
+  },
+  {
+    daysAgo: 23,
+    author: 'analyst@meritline.test',
+    model: 'two-point',
+    sensitivity: 0.997,
+    samples: [
+      { id: 'W-2720 well, Marsh Lane', x: 58.4, dilution: 2 },
+      { id: 'W-2721 tap water, Riverside', x: 12.1 },
+    ],
+  },
+  {
+    daysAgo: 21,
+    author: 'analyst@meritline.test',
+    model: 'linear',
+    sensitivity: 0.992,
+    samples: [
+      { id: 'W-2730 borehole, Ash Farm', x: 44.7 },
+      { id: 'W-2731 tap water, Elm Court', x: 8.8 },
+      { id: 'W-2732 well, Oak Farm', x: 33.2 },
+    ],
+  },
+  {
+    daysAgo: 19,
+    author: 'analyst2@meritline.test',
+    model: 'linear',
+    sensitivity: 0.995,
+    samples: [
+      { id: 'W-2740 tap water, Hill Road', x: 0.9 },
+      { id: 'W-2741 reservoir outlet', x: 4.6 },
+    ],
+  },
+  {
+    daysAgo: 17,
+    author: 'analyst2@meritline.test',
+    model: 'linear',
+    sensitivity: 1.001,
+    checkFactor: 0.86,
+    samples: [
+      { id: 'W-2750 tap water, Riverside', x: 12.3 },
+      { id: 'W-2751 well, Marsh Lane', x: 29.6, dilution: 2 },
+    ],
+  },
+  {
+    daysAgo: 16,
+    author: 'analyst@meritline.test',
+    model: 'linear',
+    sensitivity: 1.004,
+    samples: [
+      { id: 'W-2750 tap water, Riverside (repeat)', x: 12.3 },
+      { id: 'W-2751 well, Marsh Lane (repeat)', x: 29.6, dilution: 2 },
+    ],
+  },
+  {
+    daysAgo: 14,
+    author: 'analyst@meritline.test',
+    model: 'one-point',
+    sensitivity: 1.006,
+    samples: [
+      { id: 'W-2760 tap water, Station Square', x: 9.7 },
+      { id: 'W-2761 spring, Mill Brook', x: 6.0 },
+      { id: 'W-2762 tap water, Elm Court', x: 11.4 },
+    ],
+  },
+  {
+    daysAgo: 12,
+    author: 'analyst2@meritline.test',
+    model: 'linear',
+    sensitivity: 1.008,
+    samples: [
+      { id: 'W-2770 well, Oak Farm', x: 36.1 },
+      { id: 'W-2771 borehole, Ash Farm', x: 47.9 },
+    ],
+  },
+  {
+    daysAgo: 9,
+    author: 'analyst@meritline.test',
+    model: 'linear',
+    sensitivity: 1.008,
+    samples: [
+      { id: 'W-2780 tap water, Riverside', x: 12.6 },
+      { id: 'W-2781 new well, Birch Lane', x: 71.0 },
+    ],
+  },
+  {
+    daysAgo: 7,
+    author: 'analyst@meritline.test',
+    model: 'linear',
+    sensitivity: 1.007,
+    samples: [
+      { id: 'W-2781 new well, Birch Lane (diluted)', x: 71.0, dilution: 5 },
+      { id: 'W-2782 tap water, Hill Road', x: 0.4 },
+    ],
+  },
+  {
+    daysAgo: 4,
+    author: 'analyst2@meritline.test',
+    model: 'two-point',
+    sensitivity: 1.01,
+    samples: [
+      { id: 'W-2790 reservoir outlet', x: 4.4 },
+      { id: 'W-2791 tap water, Elm Court', x: 9.1 },
+    ],
+  },
+  {
+    daysAgo: 2,
+    author: 'analyst@meritline.test',
+    model: 'linear',
+    sensitivity: 1.012,
+    samples: [
+      { id: 'W-2800 tap water, Station Square', x: 10.2 },
+      { id: 'W-2801 well, Oak Farm', x: 34.8 },
+      { id: 'W-2802 spring, Mill Brook', x: 5.7 },
+    ],
+  },
 ];
 
 // Runs made on the first version while it was active (it has been retired since).
 const RETIRED_RUNS: DemoRun[] = [
-  { daysAgo: 320, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 1.012, samples: [{ id: 'W-1102 tap water, Riverside', x: 11.2 }, { id: 'W-1103 well, Oak Farm', x: 22.4 }] },
-  { daysAgo: 190, author: 'analyst2@meritline.test', model: 'linear', sensitivity: 0.988, samples: [{ id: 'W-1530 tap water, Hill Road', x: 0.8 }, { id: 'W-1531 well, Marsh Lane', x: 19.9 }] },
-  { daysAgo: 75, author: 'analyst@meritline.test', model: 'two-point', sensitivity: 1.003, samples: [{ id: 'W-2210 tap water, Riverside', x: 12.0 }] },
+  {
+    daysAgo: 320,
+    author: 'analyst2@meritline.test',
+    model: 'linear',
+    sensitivity: 1.012,
+    samples: [
+      { id: 'W-1102 tap water, Riverside', x: 11.2 },
+      { id: 'W-1103 well, Oak Farm', x: 22.4 },
+    ],
+  },
+  {
+    daysAgo: 190,
+    author: 'analyst2@meritline.test',
+    model: 'linear',
+    sensitivity: 0.988,
+    samples: [
+      { id: 'W-1530 tap water, Hill Road', x: 0.8 },
+      { id: 'W-1531 well, Marsh Lane', x: 19.9 },
+    ],
+  },
+  {
+    daysAgo: 75,
+    author: 'analyst@meritline.test',
+    model: 'two-point',
+    sensitivity: 1.003,
+    samples: [{ id: 'W-2210 tap water, Riverside', x: 12.0 }],
+  },
 ];
 
 function runData(run: DemoRun, model: DemoRun['model'], index: number, topLevel: number) {
@@ -78,11 +224,19 @@ function runData(run: DemoRun, model: DemoRun['model'], index: number, topLevel:
 }
 
 async function seedVersionRuns(manager: EntityManager, version: MethodVersion, runs: DemoRun[], firstIndex: number) {
-  const study = await manager.findOne(ValidationStudy, { where: { methodVersionId: version.id, status: 'approved' }, order: { approvedAt: 'DESC' } });
+  const study = await manager.findOne(ValidationStudy, {
+    where: { methodVersionId: version.id, status: 'approved' },
+    order: { approvedAt: 'DESC' },
+  });
   const basis = study?.result ? validationBasis({ ...study, result: study.result as unknown as EvaluationResult }) : null;
   if (!basis) return;
   const method = await manager.findOneByOrFail(Method, { id: version.methodId });
-  const context = { basis, choices: modelChoices(basis, version.settings, method.yUnit), settings: version.settings, units: { x: method.xUnit, y: method.yUnit } };
+  const context = {
+    basis,
+    choices: modelChoices(basis, version.settings, method.yUnit),
+    settings: version.settings,
+    units: { x: method.xUnit, y: method.yUnit },
+  };
   const audit = new AuditService(manager.connection);
   for (const [i, demo] of runs.entries()) {
     const author = await manager.findOneByOrFail(User, { email: demo.author });
@@ -111,7 +265,12 @@ async function seedVersionRuns(manager: EntityManager, version: MethodVersion, r
         action: 'run.created',
         entity: 'run',
         entityId: run.id,
-        changes: { methodVersionId: { from: null, to: version.id }, model: { from: null, to: run.model }, status: { from: null, to: run.status }, dataHash: { from: null, to: run.dataHash } },
+        changes: {
+          methodVersionId: { from: null, to: version.id },
+          model: { from: null, to: run.model },
+          status: { from: null, to: run.status },
+          dataHash: { from: null, to: run.dataHash },
+        },
       },
       manager,
     );

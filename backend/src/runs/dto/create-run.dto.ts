@@ -13,7 +13,8 @@ export class CreateRunDto {
   title: string;
 
   @ApiProperty({
-    description: 'The run in the study format: model, weighting, twoPoint, standards, checks [{ id, nominal, y }], unknowns [{ id, y, dilution }].',
+    description:
+      'The run in the study format: model, weighting, twoPoint, standards, checks [{ id, nominal, y }], unknowns [{ id, y, dilution }].',
     example: {
       model: 'linear',
       standards: [

@@ -17,7 +17,16 @@ export interface RunFormValues {
   unknowns: string;
 }
 
-export const emptyRunForm: RunFormValues = { methodVersionId: '', title: '', model: '', bracketing: false, calibrant: '', standards: '', checks: '', unknowns: '' };
+export const emptyRunForm: RunFormValues = {
+  methodVersionId: '',
+  title: '',
+  model: '',
+  bracketing: false,
+  calibrant: '',
+  standards: '',
+  checks: '',
+  unknowns: '',
+};
 
 const readable = (parse: (text: string) => ParsedTable<unknown>, what: string) =>
   yup
@@ -53,7 +62,8 @@ export function buildRunInput(values: RunFormValues, choice: ModelChoice | undef
   const standards = parseStandards(values.standards);
   const checks = parseChecks(values.checks);
   const unknowns = parseUnknowns(values.unknowns);
-  if (!values.methodVersionId || !values.model || [standards, checks, unknowns].some((t) => t.errors.length > 0 || t.rows.length === 0)) return null;
+  if (!values.methodVersionId || !values.model || [standards, checks, unknowns].some((t) => t.errors.length > 0 || t.rows.length === 0))
+    return null;
   const levels = standardLevels(standards.rows);
   let used: (x: number) => boolean = () => true;
   let reason = '';
@@ -73,10 +83,21 @@ export function buildRunInput(values: RunFormValues, choice: ModelChoice | undef
     checks: checks.rows,
     unknowns: unknowns.rows,
   };
-  return { methodVersionId: values.methodVersionId, title: values.title.trim() || 'Untitled run', data, ...(lockVersion ? { methodVersionLockVersion: lockVersion } : {}) };
+  return {
+    methodVersionId: values.methodVersionId,
+    title: values.title.trim() || 'Untitled run',
+    data,
+    ...(lockVersion ? { methodVersionLockVersion: lockVersion } : {}),
+  };
 }
 
-const FIELD_OF: Record<string, keyof RunFormValues> = { methodVersionId: 'methodVersionId', title: 'title', 'data.model': 'model', 'data.weighting': 'model', 'data.twoPoint': 'bracketing' };
+const FIELD_OF: Record<string, keyof RunFormValues> = {
+  methodVersionId: 'methodVersionId',
+  title: 'title',
+  'data.model': 'model',
+  'data.weighting': 'model',
+  'data.twoPoint': 'bracketing',
+};
 
 const ROW_NAMES = { standards: 'Standard', checks: 'Check standard', unknowns: 'Sample' } as const;
 

@@ -1,4 +1,12 @@
-import type { CalibrationModel, DetectionApproach, EvaluationResult, MethodVersionStatus, RunStatus, UnknownResult, Weighting } from '@meritline/shared';
+import type {
+  CalibrationModel,
+  DetectionApproach,
+  EvaluationResult,
+  MethodVersionStatus,
+  RunStatus,
+  UnknownResult,
+  Weighting,
+} from '@meritline/shared';
 
 export type RunModel = 'one-point' | 'two-point' | 'linear' | 'quadratic';
 

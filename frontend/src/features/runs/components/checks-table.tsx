@@ -3,15 +3,28 @@ import { Badge } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { formatNumber } from '@/components/study-results';
 import type { RunCheck } from '../api/types';
+import { headerWithUnit } from './column-header';
 
 const column = dataTableColumns<RunCheck>();
 
 function columnsFor(xUnit: string, yUnit: string) {
   return column.columns([
     column.accessor('id', { header: 'Check standard' }),
-    column.accessor('nominal', { header: `Nominal (${xUnit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 6) }),
-    column.accessor('yMean', { header: `Mean response (${yUnit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 5) }),
-    column.accessor('found', { header: `Found (${xUnit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
+    column.accessor('nominal', {
+      header: headerWithUnit('Nominal', xUnit),
+      meta: { align: 'end' },
+      cell: (info) => formatNumber(info.getValue(), 6),
+    }),
+    column.accessor('yMean', {
+      header: headerWithUnit('Mean response', yUnit),
+      meta: { align: 'end' },
+      cell: (info) => formatNumber(info.getValue(), 5),
+    }),
+    column.accessor('found', {
+      header: headerWithUnit('Found', xUnit),
+      meta: { align: 'end' },
+      cell: (info) => formatNumber(info.getValue(), 4),
+    }),
     column.accessor('recoveryPct', { header: 'Recovery', meta: { align: 'end' }, cell: (info) => `${info.getValue().toFixed(1)} %` }),
     column.accessor('pass', {
       header: 'Outcome',

@@ -18,14 +18,26 @@ export function ControlChartPlot({ chart }: { chart: ControlChart }) {
       y: chart.points.map((p) => p.slope),
       text: chart.points.map((p) => `${p.title}<br>${new Date(p.createdAt).toLocaleDateString()}`),
       line: { color: 'rgba(28,79,75,0.35)', width: 1 },
-      marker: { size: 10, color: flagged.map((f) => (f ? COLOURS.flagged : COLOURS.point)), symbol: flagged.map((f) => (f ? 'diamond' : 'circle')) },
+      marker: {
+        size: 10,
+        color: flagged.map((f) => (f ? COLOURS.flagged : COLOURS.point)),
+        symbol: flagged.map((f) => (f ? 'diamond' : 'circle')),
+      },
       hovertemplate: '%{text}<br>slope %{y}<extra></extra>',
     },
   ];
   const shapes: Partial<Shape>[] = [];
   const line = (y: number, color: string, dash: 'solid' | 'dash' | 'dot', name: string) => {
     shapes.push({ type: 'line', xref: 'paper', x0: 0, x1: 1, y0: y, y1: y, line: { color, width: 1.5, dash } });
-    data.push({ type: 'scatter', mode: 'lines', x: [null as unknown as number], y: [null as unknown as number], name, line: { color, dash }, hoverinfo: 'skip' });
+    data.push({
+      type: 'scatter',
+      mode: 'lines',
+      x: [null as unknown as number],
+      y: [null as unknown as number],
+      name,
+      line: { color, dash },
+      hoverinfo: 'skip',
+    });
   };
   if (chart.mean !== null && chart.limits) {
     line(chart.mean, COLOURS.mean, 'solid', `Mean ${formatNumber(chart.mean, 5)}`);

@@ -34,11 +34,25 @@ export interface ModelPickerProps {
 }
 
 /** The four ways to calibrate a run, each with what it costs; those the validation does not justify are shown disabled with the reason. */
-export function ModelPicker({ choices, value, onChange, bracketing, onBracketingChange, levels, calibrant, onCalibrantChange, unit }: ModelPickerProps) {
+export function ModelPicker({
+  choices,
+  value,
+  onChange,
+  bracketing,
+  onBracketingChange,
+  levels,
+  calibrant,
+  onCalibrantChange,
+  unit,
+}: ModelPickerProps) {
   const calibrantValue = levels.map(String).includes(calibrant) ? calibrant : String(levels.at(-1) ?? '');
   return (
     <Stack gap="4">
-      <RadioCard.Root value={value || null} onValueChange={(event) => event.value && onChange(event.value as RunModel)} aria-label="Calibration">
+      <RadioCard.Root
+        value={value || null}
+        onValueChange={(event) => event.value && onChange(event.value as RunModel)}
+        aria-label="Calibration"
+      >
         <SimpleGrid columns={{ base: 1, md: 2, xl: 4 }} gap="3">
           {choices.map((choice) => (
             <RadioCard.Item key={choice.model} value={choice.model} disabled={!choice.allowed} alignItems="stretch">

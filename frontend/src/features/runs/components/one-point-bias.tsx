@@ -3,6 +3,7 @@ import { Stack, Text } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { formatNumber } from '@/components/study-results';
 import type { OnePointBias } from '../api/types';
+import { headerWithUnit } from './column-header';
 
 type Item = OnePointBias['items'][number];
 const column = dataTableColumns<Item>();
@@ -10,11 +11,23 @@ const column = dataTableColumns<Item>();
 function columnsFor(unit: string) {
   return column.columns([
     column.accessor('id', { header: 'Sample' }),
-    column.accessor('onePoint', { header: `One-point reading (${unit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
-    column.accessor('regression', { header: `Validation line reading (${unit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
-    column.accessor('bias', { header: `Bias (${unit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 3) }),
+    column.accessor('onePoint', {
+      header: headerWithUnit('One-point reading', unit),
+      meta: { align: 'end' },
+      cell: (info) => formatNumber(info.getValue(), 4),
+    }),
+    column.accessor('regression', {
+      header: headerWithUnit('Validation line reading', unit),
+      meta: { align: 'end' },
+      cell: (info) => formatNumber(info.getValue(), 4),
+    }),
+    column.accessor('bias', {
+      header: headerWithUnit('Bias', unit),
+      meta: { align: 'end' },
+      cell: (info) => formatNumber(info.getValue(), 3),
+    }),
     column.accessor('biasPct', {
-      header: 'Bias',
+      header: 'Bias (%)',
       meta: { align: 'end' },
       cell: (info) => {
         const pct = info.getValue();
@@ -30,9 +43,9 @@ export function OnePointBiasTable({ bias, unit }: { bias: OnePointBias; unit: st
   return (
     <Stack gap="3" data-testid="one-point-bias">
       <Text color="fg.muted">
-        The validation's straight line crosses the response axis at the equivalent of {formatNumber(bias.interceptAsConcentration, 3)} {unit}. Drawn through
-        today's standard, it reads each sample as below; the difference is the bias the one-point line makes. It is zero at the standard and grows with the
-        distance from it, so keep the samples near the standard's concentration.
+        The validation's straight line crosses the response axis at the equivalent of {formatNumber(bias.interceptAsConcentration, 3)}{' '}
+        {unit}. Drawn through today's standard, it reads each sample as below; the difference is the bias the one-point line makes. It is
+        zero at the standard and grows with the distance from it, so keep the samples near the standard's concentration.
       </Text>
       <DataTable label="Bias of the one-point line" columns={columns} data={bias.items} getRowId={(b) => b.id} />
     </Stack>

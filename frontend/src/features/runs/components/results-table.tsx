@@ -1,34 +1,27 @@
-import { useMemo } from 'react';
 import { Badge, Stack, Text } from '@chakra-ui/react';
+import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { formatNumber } from '@/components/study-results';
 import type { RunUnknown } from '../api/types';
+import { headerWithUnit } from './column-header';
 
 const column = dataTableColumns<RunUnknown>();
 
 function columnsFor(xUnit: string, yUnit: string, confidencePct: number) {
   return column.columns([
     column.accessor('id', { header: 'Sample', cell: (info) => <Text fontWeight="500">{info.getValue()}</Text> }),
-    column.accessor('m', { header: 'Readings', meta: { align: 'end' } }),
-    column.accessor('yMean', { header: `Mean response (${yUnit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 5) }),
-    column.accessor('dilution', { header: 'Dilution', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
-    column.accessor('x0', { header: `Read off the line (${xUnit})`, meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
-    column.accessor('ci', {
-      header: `${confidencePct} % interval`,
-      meta: { align: 'end' },
-      cell: (info) => {
-        const ci = info.getValue();
-        return ci ? `${formatNumber(ci[0], 4)} to ${formatNumber(ci[1], 4)}` : <Text color="fg.muted">none</Text>;
-      },
-    }),
     column.accessor('reported', {
       header: 'Reported',
-      meta: { align: 'end' },
       cell: (info) => (
-        <Stack gap="1" align="flex-end">
+        <Stack gap="1" align="flex-start">
           <Text fontWeight="600" whiteSpace="nowrap" textDecoration={info.row.original.reportable ? undefined : 'line-through'}>
             {info.getValue()}
           </Text>
+          {info.row.original.dilution !== 1 && (
+            <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
+              dilution factor {formatNumber(info.row.original.dilution, 4)} included
+            </Text>
+          )}
           {!info.row.original.reportable && (
             <Badge colorPalette="red" variant="subtle">
               Not reportable
@@ -37,11 +30,38 @@ function columnsFor(xUnit: string, yUnit: string, confidencePct: number) {
         </Stack>
       ),
     }),
+    column.accessor('x0', {
+      header: headerWithUnit('Read off the line', xUnit),
+      meta: { align: 'end' },
+      cell: (info) => {
+        const ci = info.row.original.ci;
+        return (
+          <Stack gap="0" align="flex-end">
+            <Text whiteSpace="nowrap">{formatNumber(info.getValue(), 4)}</Text>
+            <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
+              {ci ? `${confidencePct} %: ${formatNumber(ci[0], 4)} to ${formatNumber(ci[1], 4)}` : 'no interval'}
+            </Text>
+          </Stack>
+        );
+      },
+    }),
+    column.accessor('yMean', {
+      header: headerWithUnit('Mean response', yUnit),
+      meta: { align: 'end' },
+      cell: (info) => (
+        <Stack gap="0" align="flex-end">
+          <Text whiteSpace="nowrap">{formatNumber(info.getValue(), 5)}</Text>
+          <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
+            {info.row.original.m === 1 ? '1 reading' : `${info.row.original.m} readings`}
+          </Text>
+        </Stack>
+      ),
+    }),
     column.accessor('remarks', {
       header: 'Remarks',
       cell: (info) =>
         info.getValue().length ? (
-          <Stack gap="1" maxW="md" fontSize="sm">
+          <Stack gap="1" minW="56" maxW="xs" fontSize="sm" whiteSpace="normal">
             {info.getValue().map((remark) => (
               <Text key={remark}>{remark}</Text>
             ))}
@@ -53,7 +73,17 @@ function columnsFor(xUnit: string, yUnit: string, confidencePct: number) {
   ]);
 }
 
-export function ResultsTable({ unknowns, xUnit, yUnit, confidence }: { unknowns: RunUnknown[]; xUnit: string; yUnit: string; confidence: number }) {
+export function ResultsTable({
+  unknowns,
+  xUnit,
+  yUnit,
+  confidence,
+}: {
+  unknowns: RunUnknown[];
+  xUnit: string;
+  yUnit: string;
+  confidence: number;
+}) {
   const columns = useMemo(() => columnsFor(xUnit, yUnit, Math.round(confidence * 100)), [xUnit, yUnit, confidence]);
   return <DataTable label="Sample results" columns={columns} data={unknowns} getRowId={(u) => u.id} />;
 }

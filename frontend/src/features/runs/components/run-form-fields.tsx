@@ -60,11 +60,18 @@ function RunPreview({ options }: { options: RunOptions }) {
   const settled = useDebouncedValue(values);
   const choice = options.models.find((m) => m.model === settled.model);
   const input = choice?.allowed ? buildRunInput({ ...settled, title: 'Preview' }, choice) : null;
-  const preview = useQuery({ ...runsQueries.preview(input ?? { methodVersionId: '', title: '', data: null as never }), enabled: input !== null });
+  const preview = useQuery({
+    ...runsQueries.preview(input ?? { methodVersionId: '', title: '', data: null as never }),
+    enabled: input !== null,
+  });
 
   let body;
   if (!input) {
-    body = <Text color="fg.muted">The preview appears once the method, the calibration, the standards, the check standards and the samples are entered.</Text>;
+    body = (
+      <Text color="fg.muted">
+        The preview appears once the method, the calibration, the standards, the check standards and the samples are entered.
+      </Text>
+    );
   } else if (preview.isError && !preview.isPlaceholderData) {
     const errors = isApiError(preview.error) ? (preview.error.body.errors ?? []) : [];
     body = (
@@ -183,7 +190,7 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
         </>
       )}
 
-      <SimpleGrid columns={{ base: 1, xl: 3 }} gap="6">
+      <SimpleGrid columns={{ base: 1, lg: 2 }} gap="6">
         <MeasurementField
           name="standards"
           label="Standards"
@@ -199,6 +206,7 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
           summary={checks.length ? plural(checks.length, 'check standard') : undefined}
         />
         <MeasurementField
+          wide
           name="unknowns"
           label="Samples"
           columns="sample, dilution factor (empty for none), responses"

@@ -19,7 +19,17 @@ const span = (from: number, to: number, steps = 40) => Array.from({ length: step
  * concentration axis, so the graphical reading matches the number in the table. A one-point run
  * also shows the validation's line through the same standard: the gap between them is the bias.
  */
-export function RunPlot({ data, result, units, height = 420 }: { data: RunData; result: RunResult; units: { x?: string; y?: string }; height?: number }) {
+export function RunPlot({
+  data,
+  result,
+  units,
+  height = 420,
+}: {
+  data: RunData;
+  result: RunResult;
+  units: { x?: string; y?: string };
+  height?: number;
+}) {
   const { traces, layout } = calibrationFigure(data as unknown as StudyInput, result as unknown as EvaluationResult, units);
   const calibration = result.calibration;
   const extra: Data[] = [];
@@ -51,9 +61,13 @@ export function RunPlot({ data, result, units, height = 420 }: { data: RunData; 
     });
   }
   // The run's points cannot be excluded by clicking, unlike a study's.
-  const plain = traces.map((trace) =>
-    'name' in trace && trace.name === 'Standards' ? { ...trace, hovertemplate: 'Standard<br>x = %{x}<br>y = %{y}<extra></extra>' } : trace,
-  );
+  const plain = traces.map((trace) => {
+    const name = 'name' in trace ? trace.name : undefined;
+    if (name === 'Standards') return { ...trace, hovertemplate: 'Standard<br>x = %{x}<br>y = %{y}<extra></extra>' };
+    if (name?.startsWith('Excluded standards'))
+      return { ...trace, name: 'Standards not used (hollow)', hovertemplate: 'Standard not used<br>x = %{x}<br>y = %{y}<extra></extra>' };
+    return trace;
+  });
   const samples = result.unknowns.length;
   return (
     <LazyPlot

@@ -15,7 +15,10 @@ function equation(result: RunResult): string {
   const c = result.calibration;
   if (!c) return '—';
   const sign = (v: number) => (v < 0 ? '−' : '+');
-  const parts = [`y = ${formatNumber(c.intercept, 4)}`, `${sign(c.slope)} ${formatNumber(Math.abs(c.slope), 5)}·x`];
+  const parts =
+    c.intercept === 0
+      ? [`y = ${formatNumber(c.slope, 5)}·x`]
+      : [`y = ${formatNumber(c.intercept, 4)}`, `${sign(c.slope)} ${formatNumber(Math.abs(c.slope), 5)}·x`];
   if (c.curvature !== null) parts.push(`${sign(c.curvature)} ${formatNumber(Math.abs(c.curvature), 4)}·x²`);
   return parts.join(' ');
 }
@@ -95,7 +98,8 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
             <DataList.ItemLabel>From the validation</DataList.ItemLabel>
             <DataList.ItemValue>
               LOD {formatNumber(validation.lod, 3)} {units.x}, LOQ {formatNumber(validation.loq, 3)} {units.x}
-              {range ? `, validated range ${formatNumber(range.low, 4)} to ${formatNumber(range.high, 4)} ${units.x}` : ''} ({validation.studyTitle})
+              {range ? `, validated range ${formatNumber(range.low, 4)} to ${formatNumber(range.high, 4)} ${units.x}` : ''} (
+              {validation.studyTitle})
             </DataList.ItemValue>
           </DataList.Item>
         </DataList.Root>

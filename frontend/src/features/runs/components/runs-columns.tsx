@@ -1,11 +1,18 @@
 import { Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
-import { formatNumber, MODEL_LABELS } from '@/components/study-results';
+import { formatNumber } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
 import { formatDateTime } from '@/lib/format';
-import type { RunSummary } from '../api/types';
+import type { RunModel, RunSummary } from '../api/types';
 import { RunStatusBadge } from './run-status-badge';
+
+const MODEL_NAMES: Record<RunModel, string> = {
+  'one-point': 'One point',
+  'two-point': 'Two points',
+  linear: 'Straight line',
+  quadratic: 'Quadratic',
+};
 
 const column = dataTableColumns<RunSummary>();
 
@@ -23,10 +30,23 @@ export const runsColumns = column.columns([
       </Stack>
     ),
   }),
-  column.accessor('status', { header: 'Status', cell: (info) => <RunStatusBadge status={info.getValue()} /> }),
-  column.accessor('model', { header: 'Calibration', cell: (info) => MODEL_LABELS[info.getValue()] ?? info.getValue() }),
+  column.accessor('status', { header: 'Status', cell: (info) => <RunStatusBadge status={info.getValue()} short /> }),
+  column.accessor('model', {
+    header: 'Calibration',
+    cell: (info) => (
+      <Stack gap="0">
+        <Text whiteSpace="nowrap">{MODEL_NAMES[info.getValue()]}</Text>
+        <Text fontSize="sm" color="fg.muted" whiteSpace="nowrap">
+          slope {formatNumber(info.row.original.slope, 4)}
+        </Text>
+      </Stack>
+    ),
+  }),
   column.accessor('unknownCount', { header: 'Samples', meta: { align: 'end' } }),
-  column.accessor('slope', { header: 'Slope', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
   column.accessor((run) => run.author.name, { id: 'author', header: 'Analyst' }),
-  column.accessor('createdAt', { header: 'Created', meta: { align: 'end' }, cell: (info) => formatDateTime(info.getValue()) }),
+  column.accessor('createdAt', {
+    header: 'Created',
+    meta: { align: 'end' },
+    cell: (info) => <Text whiteSpace="nowrap">{formatDateTime(info.getValue())}</Text>,
+  }),
 ]);

@@ -87,14 +87,13 @@ export default function ControlChartPage() {
             )}
             {chart.data.limits && chart.data.mean !== null && chart.data.sd !== null && (
               <Text fontSize="sm" color="fg.muted">
-                {chart.data.n} accepted runs: mean slope {formatNumber(chart.data.mean, 5)}, s {formatNumber(chart.data.sd, 3)} {chart.data.slopeUnit}; warning limits{' '}
-                {formatNumber(chart.data.limits.warning[0], 5)} to {formatNumber(chart.data.limits.warning[1], 5)}, action limits{' '}
-                {formatNumber(chart.data.limits.action[0], 5)} to {formatNumber(chart.data.limits.action[1], 5)}. Rejected runs are left out.
+                {chart.data.n} accepted runs: mean slope {formatNumber(chart.data.mean, 5)}, s {formatNumber(chart.data.sd, 3)}{' '}
+                {chart.data.slopeUnit}; warning limits {formatNumber(chart.data.limits.warning[0], 5)} to{' '}
+                {formatNumber(chart.data.limits.warning[1], 5)}, action limits {formatNumber(chart.data.limits.action[0], 5)} to{' '}
+                {formatNumber(chart.data.limits.action[1], 5)}. Rejected runs are left out.
               </Text>
             )}
-            {flagged.length > 0 && (
-              <DataTable label="Runs with a signal" columns={columns} data={flagged} getRowId={(p) => p.runId} />
-            )}
+            {flagged.length > 0 && <DataTable label="Runs with a signal" columns={columns} data={flagged} getRowId={(p) => p.runId} />}
           </>
         )}
       </Stack>

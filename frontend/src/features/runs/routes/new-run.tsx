@@ -46,7 +46,11 @@ export default function NewRunPage() {
 
   const submit = async (values: RunFormValues) => {
     const options = await queryClient.fetchQuery(runsQueries.options(values.methodVersionId));
-    const input = buildRunInput(values, options.models.find((m) => m.model === values.model), options.lockVersion);
+    const input = buildRunInput(
+      values,
+      options.models.find((m) => m.model === values.model),
+      options.lockVersion,
+    );
     if (!input) return;
     const run = await createRun.mutateAsync(input);
     toaster.create({

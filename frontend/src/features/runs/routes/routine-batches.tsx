@@ -59,7 +59,13 @@ export default function RoutineBatchesPage() {
       />
       <Stack gap="4">
         <HStack gap="4" align="flex-end" wrap="wrap">
-          <VersionFilter label="Method and version" methods={methods.data ?? []} value={scope} onChange={(value) => update({ scope: value, page: '' })} allowMethods />
+          <VersionFilter
+            label="Method and version"
+            methods={methods.data ?? []}
+            value={scope}
+            onChange={(value) => update({ scope: value, page: '' })}
+            allowMethods
+          />
           <Field.Root maxW="2xs">
             <Field.Label>Status</Field.Label>
             <NativeSelect.Root>

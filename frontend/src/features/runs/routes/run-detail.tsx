@@ -36,7 +36,11 @@ export default function RunDetailPage() {
     try {
       await downloadRunFile(r.id, kind, stem);
     } catch (error) {
-      toaster.create({ type: 'error', title: 'The file could not be made', description: isApiError(error) ? error.body.message : undefined });
+      toaster.create({
+        type: 'error',
+        title: 'The file could not be made',
+        description: isApiError(error) ? error.body.message : undefined,
+      });
     } finally {
       setBusy(null);
     }
@@ -51,7 +55,8 @@ export default function RunDetailPage() {
           <HStack as="span" gap="3" wrap="wrap">
             <RunStatusBadge status={r.status} />
             <span>
-              {r.method.name}, version {r.versionNumber} · {MODEL_LABELS[r.model] ?? r.model} · {r.author.name} · {formatDateTime(r.createdAt)}
+              {r.method.name}, version {r.versionNumber} · {MODEL_LABELS[r.model] ?? r.model} · {r.author.name} ·{' '}
+              {formatDateTime(r.createdAt)}
             </span>
           </HStack>
         }
@@ -82,7 +87,13 @@ export default function RunDetailPage() {
         }
       />
       <Stack gap="6">
-        <RunResultView status={r.status} result={r.result} rejectionReasons={r.rejectionReasons} data={r.data} units={{ x: r.method.xUnit, y: r.method.yUnit }} />
+        <RunResultView
+          status={r.status}
+          result={r.result}
+          rejectionReasons={r.rejectionReasons}
+          data={r.data}
+          units={{ x: r.method.xUnit, y: r.method.yUnit }}
+        />
         <Text fontSize="xs" color="fg.muted">
           Saved runs do not change: a correction is a new run. Data SHA-256 {r.dataHash} · engine {r.engineVersion} ·{' '}
           <RouterLink to={paths.runControlChart.getHref(r.methodVersionId)}>slope control chart of this version</RouterLink>

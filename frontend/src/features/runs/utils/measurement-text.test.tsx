@@ -34,7 +34,14 @@ describe('measurements typed or pasted into a run', () => {
   });
 
   it('keeps the standards a one-point or two-point line does not use, marked with the reason', () => {
-    const values = { ...emptyRunForm, methodVersionId: 'v', title: 'T', standards: '1\t0.15\n10\t1.5\n50\t7.6', checks: 'C\t10\t1.5', unknowns: 'U\t1\t1' };
+    const values = {
+      ...emptyRunForm,
+      methodVersionId: 'v',
+      title: 'T',
+      standards: '1\t0.15\n10\t1.5\n50\t7.6',
+      checks: 'C\t10\t1.5',
+      unknowns: 'U\t1\t1',
+    };
     const onePoint = buildRunInput({ ...values, model: 'one-point', calibrant: '10' }, { model: 'one-point', allowed: true });
     expect(onePoint?.data.standards.map((s) => Boolean(s.excluded))).toEqual([true, false, true]);
     const twoPoint = buildRunInput({ ...values, model: 'two-point' }, { model: 'two-point', allowed: true });

@@ -26,12 +26,19 @@ function splitLines(text: string): { cells: string[]; line: number }[] {
 
 /** A number typed or pasted with a decimal point or a decimal comma; null when it is not one. */
 export function readNumber(text: string): number | null {
-  const plain = text.replace(/[\s\u00a0\u202f]/g, '').replace(/\u2212/g, '-').replace(/^(-?\d*),(\d+)$/, '$1.$2');
+  const plain = text
+    .replace(/[\s\u00a0\u202f]/g, '')
+    .replace(/\u2212/g, '-')
+    .replace(/^(-?\d*),(\d+)$/, '$1.$2');
   if (!/^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(plain)) return null;
   return Number(plain);
 }
 
-function readTable<T>(text: string, minCells: number, read: (cells: string[], fail: (message: string) => null) => T | null): ParsedTable<T> {
+function readTable<T>(
+  text: string,
+  minCells: number,
+  read: (cells: string[], fail: (message: string) => null) => T | null,
+): ParsedTable<T> {
   const rows: T[] = [];
   const errors: string[] = [];
   splitLines(text).forEach(({ cells, line }, index) => {
@@ -41,7 +48,8 @@ function readTable<T>(text: string, minCells: number, read: (cells: string[], fa
       return null;
     };
     // A first line whose numbers are words is a header row.
-    if (index === 0 && readNumber(cells[minCells - 1] ?? '') === null && cells.slice(0, minCells).every((c) => readNumber(c) === null)) return;
+    if (index === 0 && readNumber(cells[minCells - 1] ?? '') === null && cells.slice(0, minCells).every((c) => readNumber(c) === null))
+      return;
     const row = cells.length < minCells ? fail(`needs at least ${minCells} values`) : read(cells, fail);
     if (row) rows.push(row);
     else errors.push(`Line ${line}: ${message ?? 'could not be read'}.`);
