@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, calibrationData, createStudy, databaseState, dataSourceOf, evaluated, userId } from './support/review-fixtures.js';
+import { bearer, calibrationData, createStudy, databaseState, dataSourceOf, evaluated, openDatabaseFile, userId } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 
@@ -218,6 +218,12 @@ describe('review and sign-off', () => {
       expect(mails[0].text).toMatch(/does not replace/);
       const notices = await t.http().get('/api/notifications').set(as('quality')).expect(200);
       expect(notices.body.items[0]).toMatchObject({ kind: 'study.approved' });
+      const db = openDatabaseFile(t, { readonly: true });
+      try {
+        expect(db.prepare('SELECT COUNT(*) AS n FROM validation_reports WHERE study_id = ?').get(study.id)).toEqual({ n: 1 });
+      } finally {
+        db.close();
+      }
     });
 
     it('should keep an approved study locked against further transitions (409)', async () => {

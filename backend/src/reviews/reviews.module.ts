@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuthModule } from '../auth/auth.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { NotificationsModule } from '../notifications/notifications.module.js';
+import { ReportsModule } from '../reports/reports.module.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { UsersModule } from '../users/users.module.js';
 import { CommentsService } from './comments.service.js';
@@ -14,7 +15,7 @@ import { StudyHistoryService } from './study-history.service.js';
 import { StudySignature } from './study-signature.entity.js';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([ValidationStudy, StudySignature, StudyComment]), AuthModule, UsersModule, MailModule, NotificationsModule],
+  imports: [TypeOrmModule.forFeature([ValidationStudy, StudySignature, StudyComment]), AuthModule, UsersModule, MailModule, NotificationsModule, ReportsModule],
   controllers: [StudyReviewController, ReviewQueueController],
   providers: [ReviewsService, CommentsService, StudyHistoryService, ReviewNoticesService],
   exports: [ReviewsService],

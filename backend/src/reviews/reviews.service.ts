@@ -1,4 +1,4 @@
-import { ConflictException, ForbiddenException, Injectable, NotFoundException, UnauthorizedException } from '@nestjs/common';
+import { ConflictException, ForbiddenException, Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { DataSource, In, Repository, type EntityManager } from 'typeorm';
 import { Role, type SignatureMeaning, type StudyStatus } from '@meritline/shared';
@@ -7,6 +7,7 @@ import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
 import { writeTransaction } from '../methods/write-transaction.js';
+import { ReportsService } from '../reports/reports.service.js';
 import type { StudyDto } from '../studies/dto/study.dto.js';
 import { toStudyDto } from '../studies/studies.service.js';
 import { evaluateStudyData } from '../studies/study-evaluation.js';
@@ -35,6 +36,8 @@ interface Transition {
 
 @Injectable()
 export class ReviewsService {
+  private readonly logger = new Logger(ReviewsService.name);
+
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     @InjectRepository(ValidationStudy) private readonly studies: Repository<ValidationStudy>,
@@ -42,6 +45,7 @@ export class ReviewsService {
     private readonly auth: AuthService,
     private readonly audit: AuditService,
     private readonly notices: ReviewNoticesService,
+    private readonly reports: ReportsService,
   ) {}
 
   async findStudy(id: string): Promise<ValidationStudy> {
@@ -208,6 +212,7 @@ export class ReviewsService {
       return manager.getRepository(ValidationStudy).findOneByOrFail({ id: study.id });
     });
     await deliver();
+    if (updated.status === 'approved') await this.issueReport(study.id, actor);
     const all = await this.signaturesOf(study.id);
     return {
       id: updated.id,
@@ -218,6 +223,15 @@ export class ReviewsService {
       approvedAt: updated.approvedAt?.toISOString() ?? null,
       signature: signed ? (toSignatureDtos(all, updated).find((s) => s.id === signed?.id) ?? null) : null,
     };
+  }
+
+  /** The approval stands even if the report fails; the report page issues it again on first download. */
+  private async issueReport(studyId: string, actor: AuthUser) {
+    try {
+      await this.reports.issueForStudy(studyId, actor);
+    } catch (error) {
+      this.logger.error(`The signed report of study ${studyId} could not be issued: ${(error as Error).stack ?? String(error)}`);
+    }
   }
 
   private async sign(manager: EntityManager, study: ValidationStudy, actor: AuthUser, signature: NonNullable<Transition['signature']>, comment: string | null): Promise<StudySignature> {
