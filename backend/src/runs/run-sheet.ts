@@ -1,6 +1,7 @@
 import {
   colors,
   createPdfComposer,
+  formatDate,
   formatDateTime,
   formatNumber,
   formatPercent,
@@ -93,7 +94,7 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
     subject: `${method.name}, version ${run.versionNumber}`,
     // pdfkit reads every information entry when it builds the file ID: none may be left undefined.
     keywords: `routine run, ${run.model} calibration, ${method.analyte}`,
-    header: { left: `${laboratoryName} · Run sheet`, right: `${method.name} · version ${run.versionNumber}` },
+    header: { left: `${laboratoryName} · Run sheet`, right: `Created ${formatDate(run.createdAt)}` },
     footer: `Run ${run.id} · data SHA-256 ${run.dataHash.slice(0, 16)}… · engine ${run.engineVersion} · not signed`,
     watermark: rejected ? 'REJECTED: NOT REPORTABLE' : null,
   });
@@ -101,7 +102,7 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
   pdf.label('Routine run');
   pdf.heading(run.title);
   pdf.keyValues([
-    ['Method', `${method.name} (${method.analyte} in ${method.matrix}), version ${run.versionNumber}`],
+    ['Method', `${method.name}, version ${run.versionNumber}`],
     ['Calibration', `${MODEL_NAMES[run.model] ?? run.model}${result.weighting !== 'none' ? `, weighting ${result.weighting}` : ''}`],
     ['Analyst', run.author.name],
     ['Created', formatDateTime(run.createdAt)],
@@ -197,8 +198,12 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
     [`Slope (${yUnit} per ${xUnit})`, formatNumber(calibration.slope, 5)],
     [`Intercept (${yUnit})`, formatNumber(calibration.intercept, 4)],
     ...(calibration.curvature !== null ? [['Curvature', formatNumber(calibration.curvature, 4)] as [string, string]] : []),
-    ['R²', formatNumber(calibration.r2, 5)],
-    [`Residual SD (${yUnit})`, formatNumber(calibration.sYX, 3)],
+    ...(calibration.sYX !== null
+      ? ([
+          ['R²', formatNumber(calibration.r2, 5)],
+          [`Residual SD (${yUnit})`, formatNumber(calibration.sYX, 3)],
+        ] as [string, string][])
+      : []),
   ]);
   const layers = runPlotLayers(run);
   const highest = Math.max(...layers.flatMap((l) => (l.type === 'line' || l.type === 'points' ? l.points.map((p) => p.y) : [])));
