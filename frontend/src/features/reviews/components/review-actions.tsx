@@ -1,12 +1,12 @@
 import { Button, HStack } from '@chakra-ui/react';
 import { hasAnyRole, Role } from '@meritline/shared';
 import { useNavigate } from 'react-router';
+import { ReportDownloadButton } from '@/components/report-download-button';
 import { toaster } from '@/components/ui/toaster';
 import type { SessionUser } from '@/features/auth/use-session';
 import { paths } from '@/lib/config/paths';
 import { useCopyStudy } from '../api/copy-study';
 import type { Signature, StudyView } from '../api/review-types';
-import { ReportLink } from './report-link';
 import { ReturnDialog } from './return-dialog';
 import { SignDialog } from './sign-dialog';
 import { MEANINGS } from './signature-meanings';
@@ -56,7 +56,7 @@ export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
     }
   }
   if (study.status === 'approved') {
-    actions.push(<ReportLink key="report" studyId={study.id} title={study.title} />);
+    actions.push(<ReportDownloadButton key="report" studyId={study.id} status={study.status} variant="outline" />);
     if (user.roles.includes(Role.Analyst)) {
       actions.push(
         <Button
