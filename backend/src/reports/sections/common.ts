@@ -31,7 +31,11 @@ export function confidenceWords(result: EvaluationResult): string {
 
 /** The engine's own words for why a section has no numbers. */
 export function notEvaluated(pdf: PdfComposer, result: EvaluationResult | null, sections: string[]): void {
-  const reasons = (result?.warnings ?? []).filter((w) => sections.includes(w.section)).map((w) => w.message);
+  if (!result) {
+    pdf.paragraph('Not evaluated: the study data cannot be evaluated yet (the reasons are listed in the summary).', { color: colors.muted });
+    return;
+  }
+  const reasons = result.warnings.filter((w) => sections.includes(w.section)).map((w) => w.message);
   const text = reasons.length ? `Not evaluated: ${[...new Set(reasons)].join('; ')}.` : 'Not evaluated: the study has no inputs for this part.';
   pdf.paragraph(text, { color: colors.muted });
 }

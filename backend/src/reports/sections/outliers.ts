@@ -36,7 +36,7 @@ function reasonOf(entry: Exclusion): string {
 
 function exclusions(pdf: PdfComposer, content: ReportContent): void {
   pdf.heading('5.2  Excluded points', 2);
-  const excluded = content.study.result?.calibration?.excluded ?? [];
+  const excluded = (content.study.data.standards ?? []).flatMap((p, index) => (p.excluded ? [{ index, x: p.x, y: p.y, reason: p.excluded.reason }] : []));
   const recordOf = (index: number) =>
     [...content.exclusions].reverse().find((entry) => {
       const point = pointOf(JSON.stringify(entry.changes ?? {}));

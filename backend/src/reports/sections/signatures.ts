@@ -24,16 +24,29 @@ export function signaturesSection(pdf: PdfComposer, content: ReportContent): voi
     'Electronic signatures recorded in Meritline: who signed, in which role, with which meaning, when, and the start of the SHA-256 fingerprint ' +
       'of the study data and results as signed.',
   );
+  // Each submission opens with the author's signature; a returned study is signed again from the start.
+  let round = 0;
+  const rounds = content.signatures.map((s) => (s.meaning === 'authored' || round === 0 ? ++round : round));
+  const resubmitted = round > 1;
   pdf.table({
     columns: [
+      ...(resubmitted ? [{ header: 'Submission', width: 0.9, align: 'right' as const }] : []),
       { header: 'Signed by', width: 1.2 },
       { header: 'Role', width: 1 },
       { header: 'Meaning', width: 2.1 },
       { header: 'Signed', width: 1.55 },
       { header: 'Fingerprint (start)', width: 1.25 },
     ],
-    rows: content.signatures.map((s) => [s.signerName, ROLE_LABELS[s.signerRole] ?? s.signerRole, MEANING_WORDS[s.meaning] ?? s.meaning, formatDateTime(s.signedAt), s.contentHash.slice(0, 12)]),
+    rows: content.signatures.map((s, i) => [
+      ...(resubmitted ? [String(rounds[i])] : []),
+      s.signerName,
+      ROLE_LABELS[s.signerRole] ?? s.signerRole,
+      MEANING_WORDS[s.meaning] ?? s.meaning,
+      formatDateTime(s.signedAt),
+      s.contentHash.slice(0, 12),
+    ]),
     empty: 'No electronic signature yet.',
+    note: resubmitted ? `The study was returned and submitted again; the signatures of submission ${round} cover the data in this report.` : undefined,
   });
   const withComment = content.signatures.filter((s) => s.comment);
   if (withComment.length) pdf.bullets(withComment.map((s) => `${s.signerName} (${formatDateTime(s.signedAt)}): ${s.comment}`), { size: 8.5 });
