@@ -14,7 +14,7 @@ export interface SignatureDto {
   comment: string | null;
   /** The content this signature covers still hashes to `contentHash`. */
   valid: boolean;
-  /** Signed before a later resubmission: checked against the content signed then, not the current data. */
+  /** Part of a submission that was returned or resubmitted: checked against the content signed then, not the current data. */
   superseded: boolean;
 }
 

@@ -32,7 +32,7 @@ describe('electronic signature checks', () => {
   it('should check current signatures against the stored study and earlier ones against what their round signed', () => {
     const signatures = [signature('authored', v1), signature('authored', v2), signature('reviewed-and-approved', v2)];
     expect(currentRound(signatures).map((s) => s.meaning)).toEqual(['authored', 'reviewed-and-approved']);
-    expect(toSignatureDtos(signatures, v2).map((s) => [s.valid, s.superseded])).toEqual([
+    expect(toSignatureDtos(signatures, { ...v2, status: 'submitted' }).map((s) => [s.valid, s.superseded])).toEqual([
       [true, true],
       [true, false],
       [true, false],
@@ -41,6 +41,11 @@ describe('electronic signature checks', () => {
 
   it('should show a signature as broken once the content it covers changes', () => {
     const signatures = [signature('authored', v1), signature('reviewed-and-approved', v1)];
-    expect(toSignatureDtos(signatures, v2).map((s) => s.valid)).toEqual([false, false]);
+    expect(toSignatureDtos(signatures, { ...v2, status: 'approved' }).map((s) => s.valid)).toEqual([false, false]);
+  });
+
+  it('should keep the signature of a returned submission intact while the author changes the data', () => {
+    const signatures = [signature('authored', v1)];
+    expect(toSignatureDtos(signatures, { ...v2, status: 'returned' }).map((s) => [s.valid, s.superseded])).toEqual([[true, true]]);
   });
 });

@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { canonicalJson } from '@meritline/shared';
+import { canonicalJson, type StudyStatus } from '@meritline/shared';
 import type { StudySignature } from './study-signature.entity.js';
 import type { SignatureDto } from './reviews.types.js';
 
@@ -28,14 +28,19 @@ export function currentRound(signatures: readonly StudySignature[]): StudySignat
   return signatureRounds(signatures).at(-1) ?? [];
 }
 
-/** Current signatures are checked against the study as stored now; superseded ones against the content their round signed. */
-export function toSignatureDtos(signatures: readonly StudySignature[], current: SignedContent): SignatureDto[] {
+/**
+ * Signatures of the open submission (the study is submitted or approved) are checked against the study
+ * as stored now; those of a submission that was returned, or followed by another, against the content
+ * their submission signed, because the data are meant to change after a return.
+ */
+export function toSignatureDtos(signatures: readonly StudySignature[], study: SignedContent & { status: StudyStatus }): SignatureDto[] {
   const rounds = signatureRounds(signatures);
+  const open = study.status === 'submitted' || study.status === 'approved';
   return rounds.flatMap((round, index) => {
-    const superseded = index < rounds.length - 1;
+    const superseded = index < rounds.length - 1 || !open;
     const opening = round[0];
     const content: SignedContent | null = !superseded
-      ? current
+      ? study
       : opening.dataSnapshot
         ? { data: opening.dataSnapshot, result: opening.resultSnapshot }
         : null;
