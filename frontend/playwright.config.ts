@@ -5,7 +5,7 @@ import { defineConfig } from '@playwright/test';
 
 process.env.PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD ??= '1';
 
-const PORT = 4310;
+const PORT = Number(process.env.E2E_PORT ?? 4310);
 const BASE_URL = `http://127.0.0.1:${PORT}`;
 
 // The config is read again by each worker; the variable keeps one fresh database per run.
@@ -43,7 +43,8 @@ export default defineConfig({
   },
   webServer: {
     // The backend serves the built frontend, as in production; build first so the tests see the current code.
-    command: 'npx vite build --logLevel warn && node ../backend/dist/main.js',
+    // `npm test` has just built everything and sets E2E_SKIP_BUILD.
+    command: process.env.E2E_SKIP_BUILD ? 'node ../backend/dist/main.js' : 'npx vite build --logLevel warn && node ../backend/dist/main.js',
     url: `${BASE_URL}/api/health`,
     reuseExistingServer: false,
     timeout: 120_000,

@@ -35,7 +35,7 @@ function runStep(step) {
   }
   return new Promise((resolve) => {
     const started = Date.now();
-    const env = { ...process.env, FORCE_COLOR: '0', PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1', ...(postgres ? { TEST_POSTGRES_URL: postgres.url } : {}) };
+    const env = { ...process.env, FORCE_COLOR: '0', PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1', E2E_SKIP_BUILD: '1', ...(postgres ? { TEST_POSTGRES_URL: postgres.url } : {}) };
     const child = spawn(step.cmd[0], step.cmd.slice(1), { cwd: root, env });
     let output = '';
     child.stdout.on('data', (chunk) => { output += chunk; process.stdout.write(chunk); });
