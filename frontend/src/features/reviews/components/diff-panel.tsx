@@ -1,4 +1,6 @@
 import { Badge, Box, Heading, Stack, Table, Text } from '@chakra-ui/react';
+import type { StudyInput } from '@meritline/shared';
+import { formatNumber } from '@/components/study-results';
 import { formatDateTime } from '@/lib/format';
 import type { StudyDiff } from '../api/review-types';
 
@@ -28,19 +30,27 @@ function show(value: unknown): string {
   return String(value);
 }
 
-const rowLabel = (key: string) => (key.startsWith('#') ? `Row ${key.slice(1)}` : key);
+/** A row by position, with the standard's concentration where that tells the reader which one it is. */
+function rowLabeller(data: StudyInput, unit: string | undefined) {
+  return (section: string, key: string) => {
+    if (!key.startsWith('#')) return key;
+    const standard = section === 'standards' ? data.standards?.[Number(key.slice(1)) - 1] : undefined;
+    return standard ? `Row ${key.slice(1)} (${formatNumber(standard.x, 4)}${unit ? ` ${unit}` : ''})` : `Row ${key.slice(1)}`;
+  };
+}
 
 /** What the author changed between the last two submissions. */
-export function DiffPanel({ diff }: { diff: StudyDiff | null }) {
+export function DiffPanel({ diff, data, unit }: { diff: StudyDiff | null; data: StudyInput; unit?: string }) {
+  const rowLabel = rowLabeller(data, unit);
   if (!diff) return <Text color="fg.muted">This study has been submitted once; there is nothing to compare yet.</Text>;
   const rows = [
     ...diff.settings.map((s) => ({ where: 'Settings', what: FIELD_NAMES[s.field] ?? s.field, kind: 'changed', from: show(s.from), to: show(s.to) })),
     ...diff.sections.flatMap((section) => {
       const where = SECTION_NAMES[section.section] ?? section.section;
       return [
-        ...section.changed.map((c) => ({ where, what: `${rowLabel(c.key)}: ${FIELD_NAMES[c.field] ?? c.field}`, kind: 'changed', from: show(c.from), to: show(c.to) })),
-        ...section.added.map((a) => ({ where, what: rowLabel(a.key), kind: 'added', from: '—', to: show(a.row) })),
-        ...section.removed.map((r) => ({ where, what: rowLabel(r.key), kind: 'removed', from: show(r.row), to: '—' })),
+        ...section.changed.map((c) => ({ where, what: `${rowLabel(section.section, c.key)}: ${FIELD_NAMES[c.field] ?? c.field}`, kind: 'changed', from: show(c.from), to: show(c.to) })),
+        ...section.added.map((a) => ({ where, what: rowLabel(section.section, a.key), kind: 'added', from: '—', to: show(a.row) })),
+        ...section.removed.map((r) => ({ where, what: rowLabel(section.section, r.key), kind: 'removed', from: show(r.row), to: '—' })),
       ];
     }),
   ];

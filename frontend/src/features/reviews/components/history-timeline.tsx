@@ -3,7 +3,7 @@ import { formatDateTime } from '@/lib/format';
 import { STATUS_LABELS, type HistoryItem } from '../api/review-types';
 
 const KIND_COLOURS: Record<HistoryItem['kind'], string> = { status: 'brand', signature: 'green', comment: 'orange', record: 'gray' };
-const KIND_LABELS: Record<HistoryItem['kind'], string> = { status: 'Status', signature: 'Signature', comment: 'Comment', record: 'Change' };
+const KIND_LABELS: Record<HistoryItem['kind'], string> = { status: 'Status', signature: 'Signature', comment: 'Comment', record: 'Record' };
 
 function statusChange(item: HistoryItem): string | null {
   const change = item.changes?.status;

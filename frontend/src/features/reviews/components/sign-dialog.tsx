@@ -56,9 +56,9 @@ export function SignDialog({ studyId, lockVersion, action, meaning, title, trigg
                 initialValues={initialValues}
                 validationSchema={signSchema}
                 onSubmit={async (values) => {
-                  await sign.mutateAsync({ values, lockVersion });
+                  const result = await sign.mutateAsync({ values, lockVersion });
                   setOpen(false);
-                  toaster.create({ type: 'success', title: successTitle });
+                  toaster.create({ type: 'success', title: result.stage === 'release' ? 'Approved; now awaiting release by a quality manager' : successTitle });
                   onSigned?.();
                 }}
                 submitLabel={submitLabel}

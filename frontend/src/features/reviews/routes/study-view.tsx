@@ -110,7 +110,7 @@ export default function StudyViewPage() {
             <Tabs.Content value="signatures">{signatures.data && <SignaturesPanel signatures={signatures.data} />}</Tabs.Content>
             <Tabs.Content value="history">{history.data && <HistoryTimeline items={history.data} />}</Tabs.Content>
             <Tabs.Content value="changes">
-              <DiffPanel diff={diff.data ?? null} />
+              <DiffPanel diff={diff.data ?? null} data={s.data} unit={unitsOf(s).x} />
             </Tabs.Content>
           </Box>
         </Tabs.Root>
