@@ -203,7 +203,10 @@ describe('review and sign-off', () => {
       const missing = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: '' }).expect(422);
       expect(missing.body.errors[0]).toMatchObject({ field: 'password', message: 'Enter your password to sign.' });
       await t.http().post(`/api/studies/${study.id}/approve`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(403);
+      await t.http().post(`/api/studies/${study.id}/approve`).send({ password: DEMO_PASSWORD }).expect(401);
       await t.http().post(`/api/studies/${UNKNOWN_ID}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(404);
+      const stale = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD, lockVersion: 1 }).expect(409);
+      expect(stale.body.message).toMatch(/changed since you opened it/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
 
@@ -231,6 +234,9 @@ describe('review and sign-off', () => {
       await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(409);
       await t.http().post(`/api/studies/${study.id}/return`).set(as('quality')).send({ comment: 'Reopen' }).expect(409);
       await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(409);
+      const current = await t.http().get(`/api/studies/${study.id}`).set(as('analyst')).expect(200);
+      const edit = await t.http().patch(`/api/studies/${study.id}`).set(as('analyst')).send({ title: 'Changed afterwards', lockVersion: current.body.lockVersion }).expect(409);
+      expect(edit.body.message).toMatch(/approved/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
 
@@ -392,6 +398,8 @@ describe('review and sign-off', () => {
       await t.http().post(`/api/studies/${study.id}/comments`).set(as('admin')).send({ section: 'blanks', body: 'Hi' }).expect(403);
       await t.http().post(`/api/studies/${UNKNOWN_ID}/comments`).set(as('reviewer')).send({ section: 'blanks', body: 'Hi' }).expect(404);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('reviewer')).send({ resolved: true }).expect(404);
+      await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).send({ resolved: true }).expect(401);
+      await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('admin')).send({ resolved: true }).expect(403);
       expect(databaseState(t, study.id)).toEqual(before);
     });
   });
