@@ -1,6 +1,6 @@
 import { Button, HStack } from '@chakra-ui/react';
 import { hasAnyRole, Role } from '@meritline/shared';
-import { useNavigate } from 'react-router';
+import { Link as RouterLink, useNavigate } from 'react-router';
 import { ReportDownloadButton } from '@/components/report-download-button';
 import { toaster } from '@/components/ui/toaster';
 import type { SessionUser } from '@/features/auth/use-session';
@@ -27,6 +27,13 @@ export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
   const firstApproval = study.status === 'submitted' ? round.find((s) => s.meaning === 'reviewed-and-approved') : undefined;
 
   const actions = [];
+  if ((study.status === 'draft' || study.status === 'returned') && user.roles.includes(Role.Analyst)) {
+    actions.push(
+      <Button key="edit" variant="outline" asChild>
+        <RouterLink to={paths.studyEdit.getHref(study.id)}>{study.status === 'returned' ? 'Make the changes' : 'Edit the study'}</RouterLink>
+      </Button>,
+    );
+  }
   if (isAuthor && (study.status === 'draft' || study.status === 'returned') && study.result) {
     actions.push(
       <SignDialog
@@ -66,7 +73,7 @@ export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
           onClick={async () => {
             const created = await copy.mutateAsync();
             toaster.create({ type: 'success', title: 'New draft started', description: created.title });
-            void navigate(paths.studyView.getHref(created.id));
+            void navigate(paths.studyEdit.getHref(created.id));
           }}
         >
           Start a new study from this one
