@@ -19,7 +19,7 @@ async function tokenFor(request: APIRequestContext, email: string): Promise<stri
 }
 
 /** A complete draft for the demo analyst: a new study started from an approved one of the seeded laboratory. */
-async function completeDraft(request: APIRequestContext): Promise<{ id: string; title: string }> {
+async function completeDraft(request: APIRequestContext): Promise<{ id: string; title: string; methodVersion: { settings: { requiresQualityRelease: boolean } } }> {
   const headers = { Authorization: `Bearer ${await tokenFor(request, 'analyst@meritline.test')}` };
   const approved = await (await request.get('/api/studies?status=approved', { headers })).json();
   const source = approved.items.find((study: { methodVersion: { status: string } }) => study.methodVersion.status !== 'retired');
@@ -28,7 +28,7 @@ async function completeDraft(request: APIRequestContext): Promise<{ id: string; 
   return copy.json();
 }
 
-test('an analyst submits, a reviewer returns, the analyst corrects and resubmits, the reviewer approves', async ({ page, request }) => {
+test('an analyst submits, a reviewer returns, the analyst corrects and resubmits, the reviewer approves (and a quality manager releases where required)', async ({ page, request }) => {
   const study = await completeDraft(request);
   const studyPage = `/studies/${study.id}`;
   const status = page.getByTestId('study-status');
@@ -97,12 +97,25 @@ test('an analyst submits, a reviewer returns, the analyst corrects and resubmits
   await shot(page, '7-approve-dialog');
   await page.getByRole('dialog').getByLabel('Your password').fill(DEMO_PASSWORD);
   await page.getByRole('dialog').getByRole('button', { name: 'Sign and approve' }).click();
+  const releaseRequired = study.methodVersion.settings.requiresQualityRelease;
+  if (releaseRequired) {
+    // This method version asks a quality manager to release what the reviewer approved.
+    await expect(status).toHaveText('Awaiting release');
+    await shot(page, '8-awaiting-release');
+    await signOut(page);
+    await signInAs(page, 'quality@meritline.test');
+    await page.goto(studyPage);
+    await page.getByRole('button', { name: 'Release' }).click();
+    await expect(page.getByRole('dialog').getByText('you release it')).toBeVisible();
+    await page.getByRole('dialog').getByLabel('Your password').fill(DEMO_PASSWORD);
+    await page.getByRole('dialog').getByRole('button', { name: 'Sign and release' }).click();
+  }
   await expect(status).toHaveText('Approved');
   await page.getByRole('tab', { name: 'Signatures' }).click();
-  await expect(page.getByTestId('signature')).toHaveCount(3);
+  await expect(page.getByTestId('signature')).toHaveCount(releaseRequired ? 4 : 3);
   await expect(page.getByTestId('broken-signature-warning')).toHaveCount(0);
-  await shot(page, '8-approved-signatures');
+  await shot(page, '9-approved-signatures');
   await page.getByRole('tab', { name: 'History' }).click();
   await expect(page.getByText('Returned to the author for changes')).toBeVisible();
-  await shot(page, '9-history');
+  await shot(page, '10-history');
 });
