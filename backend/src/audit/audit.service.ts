@@ -4,6 +4,7 @@ import { createHash } from 'node:crypto';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson } from '@meritline/shared';
+import { writeTransaction } from '../methods/write-transaction.js';
 import { AuditEntry, type FieldChanges } from './audit-entry.entity.js';
 
 export const GENESIS_HASH = '0'.repeat(64);
@@ -41,10 +42,10 @@ export class AuditService {
   constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
 
   /** Pass the caller's transaction manager so the entry commits or rolls back with the change it records. */
-  async record(record: AuditRecord, manager: EntityManager = this.dataSource.manager): Promise<AuditEntry> {
+  async record(record: AuditRecord, manager?: EntityManager): Promise<AuditEntry> {
     for (let attempt = 0; ; attempt++) {
       try {
-        return await this.append(record, manager);
+        return await (manager ? this.append(record, manager) : writeTransaction(this.dataSource, (m) => this.append(record, m)));
       } catch (error) {
         if (attempt >= 5 || !/unique|duplicate|constraint/i.test((error as Error).message)) throw error;
         this.logger.warn('Audit sequence taken by a concurrent writer; retrying.');

@@ -42,8 +42,7 @@ export class AuthService {
       throw new UnauthorizedException(BAD_CREDENTIALS);
     }
     user.lastSignInAt = new Date();
-    await this.usersService.save(user);
-    await this.audit.record({ actor: user, action: 'auth.signed-in', entity: 'user', entityId: user.id, reason: `from ${address}` });
+    await this.usersService.saveWithAudit(user, { actor: user, action: 'auth.signed-in', reason: `from ${address}` });
     return this.session(user);
   }
 
@@ -59,15 +58,13 @@ export class AuthService {
       throw unprocessable([{ field: 'currentPassword', code: 'incorrect', message: 'The current password is not correct.' }]);
     }
     user.passwordHash = await bcrypt.hash(dto.newPassword, BCRYPT_ROUNDS);
-    await this.usersService.save(user);
-    await this.audit.record({ actor, action: 'auth.password-changed', entity: 'user', entityId: user.id });
+    await this.usersService.saveWithAudit(user, { actor, action: 'auth.password-changed' });
   }
 
   async acceptInvitation(dto: AcceptInvitationDto): Promise<LoginResponse> {
     const passwordHash = await bcrypt.hash(dto.password, BCRYPT_ROUNDS);
     const user = await this.usersService.acceptInvitation(dto.token, dto.name.trim(), passwordHash);
     if (!user) throw new BadRequestException('This invitation link is not valid or has expired. Ask an administrator for a new one.');
-    await this.audit.record({ actor: user, action: 'auth.invitation-accepted', entity: 'user', entityId: user.id });
     return this.session(user);
   }
 

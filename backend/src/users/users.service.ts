@@ -1,12 +1,13 @@
 import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
-import { InjectRepository } from '@nestjs/typeorm';
+import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { createHash, randomBytes } from 'node:crypto';
-import { Repository } from 'typeorm';
+import { DataSource, Repository } from 'typeorm';
 import { Role, type UserDto } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
-import { AuditService } from '../audit/audit.service.js';
+import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { MailService } from '../mail/mail.service.js';
+import { writeTransaction } from '../methods/write-transaction.js';
 import type { CreateInvitationDto } from './dto/create-invitation.dto.js';
 import type { UpdateUserDto } from './dto/update-user.dto.js';
 import { User } from './user.entity.js';
@@ -33,6 +34,7 @@ export function toUserDto(user: User): UserDto {
 @Injectable()
 export class UsersService {
   constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
     @InjectRepository(User) private readonly users: Repository<User>,
     private readonly mail: MailService,
     private readonly audit: AuditService,
@@ -61,16 +63,20 @@ export class UsersService {
       throw new ConflictException({ statusCode: 409, message: 'A user with this e-mail already exists.', errors: [{ field: 'email', code: 'exists', message: 'A user with this e-mail already exists.' }] });
     }
     const token = randomBytes(32).toString('base64url');
-    const user = await this.users.save(
-      this.users.create({
-        ...dto,
-        passwordHash: null,
-        active: true,
-        invitationTokenHash: hashToken(token),
-        invitationExpiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
-      }),
-    );
-    await this.audit.record({ actor, action: 'user.invited', entity: 'user', entityId: user.id, changes: { email: { from: null, to: user.email }, roles: { from: null, to: user.roles } } });
+    const user = await writeTransaction(this.dataSource, async (manager) => {
+      const saved = await manager.getRepository(User).save(
+        this.users.create({
+          ...dto,
+          passwordHash: null,
+          active: true,
+          invitationTokenHash: hashToken(token),
+          invitationExpiresAt: new Date(Date.now() + INVITATION_DAYS * 86_400_000),
+        }),
+      );
+      const changes = { email: { from: null, to: saved.email }, roles: { from: null, to: saved.roles } };
+      await this.audit.record({ actor, action: 'user.invited', entity: 'user', entityId: saved.id, changes }, manager);
+      return saved;
+    });
     await this.mail.sendInvitation(user, token, actor.name);
     return user;
   }
@@ -85,19 +91,32 @@ export class UsersService {
       if (dto[key] !== undefined && JSON.stringify(dto[key]) !== JSON.stringify(user[key])) changes[key] = { from: user[key], to: dto[key] };
     }
     Object.assign(user, dto);
-    const saved = await this.users.save(user);
-    if (Object.keys(changes).length) await this.audit.record({ actor, action: 'user.updated', entity: 'user', entityId: id, changes });
-    return saved;
+    return writeTransaction(this.dataSource, async (manager) => {
+      const saved = await manager.getRepository(User).save(user);
+      if (Object.keys(changes).length) await this.audit.record({ actor, action: 'user.updated', entity: 'user', entityId: id, changes }, manager);
+      return saved;
+    });
   }
 
-  async acceptInvitation(token: string, name: string, passwordHash: string): Promise<User | null> {
-    const user = await this.users.findOneBy({ invitationTokenHash: hashToken(token) });
-    if (!user || !user.active || !user.invitationExpiresAt || user.invitationExpiresAt < new Date()) return null;
-    Object.assign(user, { name, passwordHash, invitationTokenHash: null, invitationExpiresAt: null });
-    return this.users.save(user);
+  /** Sets the password of an invited user and records it; null when the link is unknown, used or expired. */
+  acceptInvitation(token: string, name: string, passwordHash: string): Promise<User | null> {
+    return writeTransaction(this.dataSource, async (manager) => {
+      const repo = manager.getRepository(User);
+      const user = await repo.findOneBy({ invitationTokenHash: hashToken(token) });
+      if (!user || !user.active || !user.invitationExpiresAt || user.invitationExpiresAt < new Date()) return null;
+      Object.assign(user, { name, passwordHash, invitationTokenHash: null, invitationExpiresAt: null });
+      const saved = await repo.save(user);
+      await this.audit.record({ actor: saved, action: 'auth.invitation-accepted', entity: 'user', entityId: saved.id }, manager);
+      return saved;
+    });
   }
 
-  save(user: User): Promise<User> {
-    return this.users.save(user);
+  /** Saves a change to the user together with its audit entry. */
+  saveWithAudit(user: User, record: Omit<AuditRecord, 'entity' | 'entityId'>): Promise<User> {
+    return writeTransaction(this.dataSource, async (manager) => {
+      const saved = await manager.getRepository(User).save(user);
+      await this.audit.record({ ...record, entity: 'user', entityId: user.id }, manager);
+      return saved;
+    });
   }
 }
