@@ -5,7 +5,8 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ensureSystemPackages, log } from './setup.mjs';
 
-const PORT = 55432;
+// A random port keeps parallel runs (and a cluster left over from an interrupted run) apart.
+const PORT = 55000 + Math.floor(Math.random() * 4000);
 
 function pgBin(name) {
   const base = '/usr/lib/postgresql';
