@@ -55,7 +55,14 @@ export function ModelPicker({
       >
         <SimpleGrid columns={{ base: 1, md: 2, xl: 4 }} gap="3">
           {choices.map((choice) => (
-            <RadioCard.Item key={choice.model} value={choice.model} disabled={!choice.allowed} alignItems="stretch">
+            <RadioCard.Item
+              key={choice.model}
+              value={choice.model}
+              disabled={!choice.allowed}
+              alignItems="stretch"
+              // The reason must stay readable on a card that cannot be chosen.
+              _disabled={{ opacity: 1, bg: 'bg.muted', cursor: 'not-allowed', color: 'fg.muted' }}
+            >
               <RadioCard.ItemHiddenInput />
               <RadioCard.ItemControl>
                 <RadioCard.ItemContent gap="1.5">
