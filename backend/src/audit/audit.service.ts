@@ -4,7 +4,7 @@ import { createHash } from 'node:crypto';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson } from '@meritline/shared';
-import { writeTransaction } from '../methods/write-transaction.js';
+import { writeTransaction } from '../database/write-transaction.js';
 import { AuditEntry, type FieldChanges } from './audit-entry.entity.js';
 
 export const GENESIS_HASH = '0'.repeat(64);

@@ -16,7 +16,7 @@ import type { MethodVersionSettingsDto } from './dto/method-version-settings.dto
 import type { UpdateMethodVersionDto } from './dto/update-method-version.dto.js';
 import { MethodVersion, type CriteriaSet } from './method-version.entity.js';
 import { Method } from './method.entity.js';
-import { writeTransaction } from './write-transaction.js';
+import { writeTransaction } from '../database/write-transaction.js';
 
 const ALLOWED_TRANSITIONS: Record<MethodVersionStatus, MethodVersionStatus[]> = { draft: ['active'], active: ['retired'], retired: [] };
 const TRANSITION_REFUSALS: Record<MethodVersionStatus, string> = {

@@ -8,7 +8,7 @@ import type { CreateCommentDto } from './dto/create-comment.dto.js';
 import type { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
 import type { CommentDto } from './reviews.types.js';
-import { writeTransaction } from '../methods/write-transaction.js';
+import { writeTransaction } from '../database/write-transaction.js';
 import { StudyComment } from './study-comment.entity.js';
 
 export function toCommentDto(comment: StudyComment): CommentDto {

@@ -6,7 +6,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
-import { writeTransaction } from '../methods/write-transaction.js';
+import { writeTransaction } from '../database/write-transaction.js';
 import { ReportsService } from '../reports/reports.service.js';
 import type { StudyDto } from '../studies/dto/study.dto.js';
 import { toStudyDto } from '../studies/studies.service.js';

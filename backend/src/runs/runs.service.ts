@@ -8,7 +8,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { unprocessable } from '../common/validation.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
-import { writeTransaction } from '../methods/write-transaction.js';
+import { writeTransaction } from '../database/write-transaction.js';
 import { Method } from '../methods/method.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { User } from '../users/user.entity.js';

@@ -9,7 +9,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
 import type { CriterionDto } from '../methods/dto/criterion.dto.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
-import { writeTransaction } from '../methods/write-transaction.js';
+import { writeTransaction } from '../database/write-transaction.js';
 import type { CreateStudyDto } from './dto/create-study.dto.js';
 import type { ImportStudyDto } from './dto/import-study.dto.js';
 import type { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';

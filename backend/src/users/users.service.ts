@@ -7,7 +7,7 @@ import type { FieldChanges } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { MailService } from '../mail/mail.service.js';
-import { writeTransaction } from '../methods/write-transaction.js';
+import { writeTransaction } from '../database/write-transaction.js';
 import type { CreateInvitationDto } from './dto/create-invitation.dto.js';
 import type { UpdateUserDto } from './dto/update-user.dto.js';
 import { User } from './user.entity.js';

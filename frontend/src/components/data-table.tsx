@@ -105,6 +105,9 @@ export function DataTable<TData extends RowData>({
                       key={header.id}
                       textAlign={align}
                       textStyle="sectionLabel"
+                      // Headers carry units (mg/L, µS·min) whose case is meaningful.
+                      textTransform="none"
+                      letterSpacing="0.04em"
                       color="fg.muted"
                       py="3"
                       aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : canSort ? 'none' : undefined}

@@ -3,20 +3,11 @@ import type { StudyStatus } from '@meritline/shared';
 import { useState } from 'react';
 import { toaster } from '@/components/ui/toaster';
 import { api, isApiError } from '@/lib/api-client';
+import { saveFile } from '@/lib/save-file';
 
 export interface ReportDownloadButtonProps extends Omit<ButtonProps, 'onClick' | 'children'> {
   studyId: string;
   status: StudyStatus;
-}
-
-function save(pdf: Blob, fileName: string) {
-  const url = URL.createObjectURL(pdf);
-  const link = Object.assign(document.createElement('a'), { href: url, download: fileName });
-  document.body.append(link);
-  link.click();
-  link.remove();
-  // Revoking at once can cancel the download in some browsers.
-  setTimeout(() => URL.revokeObjectURL(url), 10_000);
 }
 
 /** The signed report of an approved study, or an unsigned draft preview before approval, fetched with the session token and saved. */
@@ -28,7 +19,7 @@ export function ReportDownloadButton({ studyId, status, ...buttonProps }: Report
     setLoading(true);
     try {
       const pdf = await api.download(`/studies/${encodeURIComponent(studyId)}/report`);
-      save(pdf, `meritline-study-${studyId.slice(0, 8)}${approved ? '' : '-draft'}.pdf`);
+      saveFile(pdf, `meritline-study-${studyId.slice(0, 8)}${approved ? '' : '-draft'}.pdf`);
     } catch (error) {
       toaster.create({
         type: 'error',

@@ -1,4 +1,5 @@
 import { api } from '@/lib/api-client';
+import { saveFile } from '@/lib/save-file';
 
 export type RunFileKind = 'csv' | 'xlsx' | 'pdf';
 
@@ -10,11 +11,5 @@ const PATHS: Record<RunFileKind, (runId: string) => string> = {
 
 /** Fetches an export of a saved run with the session token and hands it to the browser as a download. */
 export async function downloadRunFile(runId: string, kind: RunFileKind, fileStem: string): Promise<void> {
-  const blob = await api.download(PATHS[kind](runId));
-  const url = URL.createObjectURL(blob);
-  const link = Object.assign(document.createElement('a'), { href: url, download: `${fileStem}.${kind}` });
-  document.body.append(link);
-  link.click();
-  link.remove();
-  URL.revokeObjectURL(url);
+  saveFile(await api.download(PATHS[kind](runId)), `${fileStem}.${kind}`);
 }
