@@ -81,11 +81,6 @@ describe('pasting into a grid', () => {
     const existing = [newRow({ x: '0.5', y: '0.06' }), newRow({ x: '1', y: '' })];
     const { rows, pasted } = pasteIntoRows(existing, standards, '0,1218\n0,2431\n0,4862', { row: 1, column: 1 });
     expect(pasted).toBe(3);
-    expect(rows.map((row) => row.cells)).toEqual([
-      { x: '0.5', y: '0.06' },
-      { x: '1', y: '0,1218' },
-      { y: '0,2431' },
-      { y: '0,4862' },
-    ]);
+    expect(rows.map((row) => row.cells)).toEqual([{ x: '0.5', y: '0.06' }, { x: '1', y: '0,1218' }, { y: '0,2431' }, { y: '0,4862' }]);
   });
 });

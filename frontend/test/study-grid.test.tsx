@@ -69,7 +69,11 @@ describe('numeric validation of grid cells', () => {
 describe('what the grid sends', () => {
   it('never sends a cell that is not a number; decimal commas become numbers', () => {
     const draft = dataToDraft({ standards: [] });
-    draft.sheets.standards = [newRow({ x: '0,5', y: '0,0612' }), newRow({ x: '1', y: 'n.a.' }), newRow({ x: '2', y: '0.2431' }, { reason: 'bubble in the cell' })];
+    draft.sheets.standards = [
+      newRow({ x: '0,5', y: '0,0612' }),
+      newRow({ x: '1', y: 'n.a.' }),
+      newRow({ x: '2', y: '0.2431' }, { reason: 'bubble in the cell' }),
+    ];
     draft.sheets.lowSpikes = [newRow({ spiked: '0,21', blank: 'ND' }), newRow({ spiked: '0.18', blank: '0,02' })];
     draft.sheets.unknowns = [newRow({ id: 'W-014', y: '0.412', dilution: '2' }), newRow({ id: 'W-014', y: '0,415' })];
 

@@ -3,7 +3,7 @@ import type { CalibrationLevel, EvaluationResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';
 import { FiguresTable, type FigureRow } from './figures-table';
-import { formatInterval, formatNumber, formatP, formatPercent, MODEL_LABELS, slopeUnit, WEIGHTING_LABELS, withUnit } from './format';
+import { formatInterval, formatNumber, formatPercent, MODEL_LABELS, pText, slopeUnit, WEIGHTING_LABELS, withUnit } from './format';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
 import type { StudyUnits } from './types';
 
@@ -78,7 +78,7 @@ export function linearityRows(result: EvaluationResult, units: StudyUnits, judge
     rows.push({
       id: 'lackOfFit',
       label: 'Lack-of-fit test',
-      value: `p = ${formatP(lackOfFit.p)}`,
+      value: pText(lackOfFit.p),
       detail: `F = ${formatNumber(lackOfFit.F, 4)} (critical ${formatNumber(lackOfFit.critical, 4)}; df ${lackOfFit.dfLackOfFit}, ${lackOfFit.dfPureError}) · ${significance(
         lackOfFit.significant,
         'significant: the line misses the level means by more than the replicates scatter',
@@ -91,7 +91,7 @@ export function linearityRows(result: EvaluationResult, units: StudyUnits, judge
     rows.push({
       id: 'mandel',
       label: 'Mandel test, straight line against quadratic',
-      value: `p = ${formatP(mandel.p)}`,
+      value: pText(mandel.p),
       detail: `F = ${formatNumber(mandel.F, 4)} (critical at 99 %: ${formatNumber(mandel.critical, 4)}; df ${mandel.df[0]}, ${mandel.df[1]}) · ${significance(
         mandel.significant,
         'significant: the quadratic fits better',
@@ -105,7 +105,7 @@ export function linearityRows(result: EvaluationResult, units: StudyUnits, judge
       {
         id: 'interceptTest',
         label: 'Intercept test, is the intercept zero?',
-        value: `p = ${formatP(interceptTest.p)}`,
+        value: pText(interceptTest.p),
         detail: `t = ${formatNumber(interceptTest.t, 4)}, df ${interceptTest.df} · ${significance(
           interceptTest.significant,
           'the intercept differs from zero',
@@ -136,7 +136,7 @@ export function linearityRows(result: EvaluationResult, units: StudyUnits, judge
       {
         id: 'homoscedasticity',
         label: `Variance check, level ${formatNumber(homoscedasticity.xHigh)} against ${formatNumber(homoscedasticity.xLow)}`,
-        value: `p = ${formatP(homoscedasticity.p)}`,
+        value: pText(homoscedasticity.p),
         detail: `F = ${formatNumber(homoscedasticity.F, 4)} (critical at 99 %: ${formatNumber(homoscedasticity.critical, 4)}) · ${significance(
           homoscedasticity.significant,
           'the variances differ',
@@ -159,12 +159,34 @@ export function linearityRows(result: EvaluationResult, units: StudyUnits, judge
   return rows;
 }
 
-export function CalibrationTable({ result, units, judged }: { result: EvaluationResult; units: StudyUnits; judged: readonly JudgedCriterion[] }) {
+export function CalibrationTable({
+  result,
+  units,
+  judged,
+}: {
+  result: EvaluationResult;
+  units: StudyUnits;
+  judged: readonly JudgedCriterion[];
+}) {
   return <FiguresTable label="Calibration line" rows={calibrationRows(result, units, judged)} />;
 }
 
-export function LinearityTable({ result, units, judged }: { result: EvaluationResult; units: StudyUnits; judged: readonly JudgedCriterion[] }) {
-  return <FiguresTable label="Linearity and intercept tests" rows={linearityRows(result, units, judged)} emptyTitle="No test applies to this model and data" />;
+export function LinearityTable({
+  result,
+  units,
+  judged,
+}: {
+  result: EvaluationResult;
+  units: StudyUnits;
+  judged: readonly JudgedCriterion[];
+}) {
+  return (
+    <FiguresTable
+      label="Linearity and intercept tests"
+      rows={linearityRows(result, units, judged)}
+      emptyTitle="No test applies to this model and data"
+    />
+  );
 }
 
 interface LevelRow extends CalibrationLevel {
@@ -172,14 +194,23 @@ interface LevelRow extends CalibrationLevel {
 }
 
 const levelColumn = dataTableColumns<LevelRow>();
-const levelColumns = levelColumn.columns([
+const levelFigureColumns = [
   levelColumn.accessor('x', { header: 'Level', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 5) }),
   levelColumn.accessor('n', { header: 'Replicates', meta: { align: 'end' } }),
   levelColumn.accessor('yMean', { header: 'Mean response', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 5) }),
   levelColumn.accessor('ySd', { header: 'SD of response', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 3) }),
-  levelColumn.accessor('xBackMean', { header: 'Back-calculated', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 5) }),
+  levelColumn.accessor('xBackMean', {
+    header: 'Back-calculated',
+    meta: { align: 'end' },
+    cell: (info) => formatNumber(info.getValue(), 5),
+  }),
   levelColumn.accessor('rePct', { header: 'Deviation', meta: { align: 'end' }, cell: (info) => formatPercent(info.getValue(), 3) }),
   levelColumn.accessor('rsdPct', { header: 'RSD', meta: { align: 'end' }, cell: (info) => formatPercent(info.getValue(), 3) }),
+];
+const levelColumns = levelColumn.columns(levelFigureColumns);
+/** With criteria that apply level by level, each level's outcome too. */
+const levelColumnsWithCriteria = levelColumn.columns([
+  ...levelFigureColumns,
   levelColumn.accessor('inRange', {
     header: 'Level criteria',
     cell: (info) => (info.getValue() === null ? <Text color="fg.subtle">—</Text> : <CriterionMark pass={info.getValue()} />),
@@ -194,7 +225,7 @@ export function LevelsTable({ result, units }: { result: EvaluationResult; units
   return (
     <DataTable
       label={`Standard levels${units.x ? ` (${units.x})` : ''}`}
-      columns={levelColumns}
+      columns={rangeLevels.length > 0 ? levelColumnsWithCriteria : levelColumns}
       data={rows}
       getRowId={(row) => String(row.x)}
       emptyTitle="No standard levels"

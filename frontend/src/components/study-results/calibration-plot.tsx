@@ -55,7 +55,11 @@ function fittedCurve(result: EvaluationResult): Curve | null {
 }
 
 /** Traces and layout of the calibration plot; pure, so tests and reports can use it without a browser. */
-export function calibrationFigure(data: StudyInput, result: EvaluationResult, units: StudyUnits): { traces: Data[]; layout: Partial<Layout> } {
+export function calibrationFigure(
+  data: StudyInput,
+  result: EvaluationResult,
+  units: StudyUnits,
+): { traces: Data[]; layout: Partial<Layout> } {
   const standards = (data.standards ?? []).map((s, index) => ({ ...s, index }));
   const used = standards.filter((s) => !s.excluded);
   const excluded = standards.filter((s) => s.excluded);
@@ -76,13 +80,32 @@ export function calibrationFigure(data: StudyInput, result: EvaluationResult, un
   const band = (name: string, [low, high]: [number[], number[]], fillcolor: string) => {
     traces.push(
       { type: 'scatter', mode: 'lines', x: curve!.x, y: low, line: { width: 0 }, hoverinfo: 'skip', showlegend: false, legendgroup: name },
-      { type: 'scatter', mode: 'lines', x: curve!.x, y: high, line: { width: 0 }, fill: 'tonexty', fillcolor, name, hoverinfo: 'skip', legendgroup: name },
+      {
+        type: 'scatter',
+        mode: 'lines',
+        x: curve!.x,
+        y: high,
+        line: { width: 0 },
+        fill: 'tonexty',
+        fillcolor,
+        name,
+        hoverinfo: 'skip',
+        legendgroup: name,
+      },
     );
   };
   if (curve?.prediction) band(`Prediction band, ${confidencePct}`, curve.prediction, PLOT_COLOURS.prediction);
   if (curve?.confidence) band(`Confidence band, ${confidencePct}`, curve.confidence, PLOT_COLOURS.confidence);
   if (curve) {
-    traces.push({ type: 'scatter', mode: 'lines', x: curve.x, y: curve.fit, name: 'Fitted calibration', line: { color: PLOT_COLOURS.line, width: 2 }, hoverinfo: 'skip' });
+    traces.push({
+      type: 'scatter',
+      mode: 'lines',
+      x: curve.x,
+      y: curve.fit,
+      name: 'Fitted calibration',
+      line: { color: PLOT_COLOURS.line, width: 2 },
+      hoverinfo: 'skip',
+    });
   }
   traces.push({
     type: 'scatter',
@@ -103,7 +126,8 @@ export function calibrationFigure(data: StudyInput, result: EvaluationResult, un
       y: excluded.map((s) => s.y),
       customdata: excluded.map((s) => [s.index, s.index + 1, s.excluded?.reason ?? '']) as unknown as number[],
       marker: { color: PLOT_COLOURS.excluded, size: 10, symbol: 'circle-open', line: { width: 2 } },
-      hovertemplate: 'Standard row %{customdata[1]}, excluded: %{customdata[2]}<br>x = %{x}<br>y = %{y}<br>Click to include again<extra></extra>',
+      hovertemplate:
+        'Standard row %{customdata[1]}, excluded: %{customdata[2]}<br>x = %{x}<br>y = %{y}<br>Click to include again<extra></extra>',
     });
   }
   if (unknowns.length > 0) {
@@ -149,17 +173,19 @@ export interface CalibrationPlotProps extends StudyResultsProps {
   /** Called with the position of a standard in `data.standards` when its point is clicked. */
   onPointClick?: (standardIndex: number) => void;
   height?: number;
+  /** A small plot without legend, for side panels (say in words what the marks mean beside it). */
+  compact?: boolean;
 }
 
 /** Standards, fitted line, confidence and prediction bands, excluded points hollow, samples read off the line. */
-export function CalibrationPlot({ data, result, units, onPointClick, height = 440 }: CalibrationPlotProps) {
+export function CalibrationPlot({ data, result, units, onPointClick, height = 440, compact = false }: CalibrationPlotProps) {
   const { traces, layout } = calibrationFigure(data, result, units);
   const n = (data.standards ?? []).length;
   return (
     <LazyPlot
       label={`Calibration plot: ${n} standards, concentration against response, with the fitted line and its bands`}
       data={traces}
-      layout={layout}
+      layout={compact ? { ...layout, showlegend: false, margin: { l: 56, r: 8, t: 8, b: 48 } } : layout}
       height={height}
       onPointClick={
         onPointClick

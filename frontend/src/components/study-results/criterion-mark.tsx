@@ -17,7 +17,14 @@ export function CriterionMark({ pass, missingValue = false }: CriterionMarkProps
         ? ([missingValue ? 'Fails: not computed' : 'Does not meet', 'red.fg', FailsIcon] as const)
         : (['Not judged', 'fg.muted', NotJudgedIcon] as const);
   return (
-    <HStack as="span" gap="1.5" color={color} fontWeight={pass === null ? '400' : '600'} whiteSpace="nowrap" data-outcome={pass === null ? 'none' : pass ? 'pass' : 'fail'}>
+    <HStack
+      as="span"
+      gap="1.5"
+      color={color}
+      fontWeight={pass === null ? '400' : '600'}
+      whiteSpace="nowrap"
+      data-outcome={pass === null ? 'none' : pass ? 'pass' : 'fail'}
+    >
       <Icon />
       <Text as="span">{label}</Text>
     </HStack>

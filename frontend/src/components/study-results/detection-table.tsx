@@ -22,7 +22,7 @@ const columns = column.columns([
   column.accessor('name', {
     header: 'Approach',
     cell: (info) => (
-      <Text fontWeight="500">
+      <Text fontWeight="500" whiteSpace="normal" minW="10rem" maxW="16rem">
         {info.getValue()}
         {info.row.original.flagBasis && (
           <Text as="span" display="block" fontSize="xs" color="fg.muted" fontWeight="400">
@@ -35,7 +35,14 @@ const columns = column.columns([
   column.accessor('critical', { header: 'Critical value', meta: { align: 'end' } }),
   column.accessor('detection', { header: 'Detection limit', meta: { align: 'end' } }),
   column.accessor('quantitation', { header: 'Quantitation limit', meta: { align: 'end' } }),
-  column.accessor('basis', { header: 'Basis', cell: (info) => <Text color="fg.muted">{info.getValue()}</Text> }),
+  column.accessor('basis', {
+    header: 'Basis',
+    cell: (info) => (
+      <Text color="fg.muted" fontSize="sm" whiteSpace="normal" minW="16rem" maxW="28rem">
+        {info.getValue()}
+      </Text>
+    ),
+  }),
   column.display({ id: 'criterion', header: 'Criterion', cell: (info) => <CriterionCell criteria={info.row.original.criteria} /> }),
   column.display({ id: 'outcome', header: 'Outcome', cell: (info) => <OutcomeCell criteria={info.row.original.criteria} /> }),
 ]);
@@ -112,7 +119,15 @@ export function detectionRows(result: EvaluationResult, units: StudyUnits, judge
 }
 
 /** Every detection approach the data allows, side by side, in concentration units. */
-export function DetectionTable({ result, units, judged }: { result: EvaluationResult; units: StudyUnits; judged: readonly JudgedCriterion[] }) {
+export function DetectionTable({
+  result,
+  units,
+  judged,
+}: {
+  result: EvaluationResult;
+  units: StudyUnits;
+  judged: readonly JudgedCriterion[];
+}) {
   return (
     <DataTable
       label="Detection and quantitation limits"

@@ -1,5 +1,5 @@
 import { Heading, HStack, Stack, Text } from '@chakra-ui/react';
-import type { EvaluationResult } from '@meritline/shared';
+import type { EvaluationResult, EvaluationWarning } from '@meritline/shared';
 import type { ReactNode } from 'react';
 import { NoteIcon } from './icons';
 
@@ -17,6 +17,23 @@ export interface FigureSectionProps {
 
 const sentence = (text: string) => text.charAt(0).toUpperCase() + text.slice(1).replace(/([^.])$/, '$1.');
 
+const APPROACH_WORDS: [RegExp, string][] = [
+  [/\bsdResidual\b/g, 'the residual-SD limits'],
+  [/\bsdIntercept\b/g, 'the intercept-SD limits'],
+  [/\biso11843\b/g, 'ISO 11843-2'],
+  [/\bhubauxVos\b/g, 'Hubaux–Vos'],
+];
+
+/** The engine's notes in the words of the screen; the few that name result fields are reworded. */
+export function plainWarning(warning: EvaluationWarning): string {
+  if (warning.section === 'range' && warning.code === 'no_criteria') {
+    return 'The method version states no criterion that applies level by level (back-calculated deviation, RSD or recovery at each level), so no working range is derived.';
+  }
+  if (warning.section === 'range' && warning.code === 'no_level_passes')
+    return 'The level-by-level criteria hold at no level, so there is no working range.';
+  return sentence(APPROACH_WORDS.reduce((text, [pattern, words]) => text.replace(pattern, words), warning.message));
+}
+
 export function FigureSection({ id, title, description, sections, result, available, children }: FigureSectionProps) {
   const notes = result.warnings.filter((w) => sections.includes(w.section));
   return (
@@ -33,7 +50,7 @@ export function FigureSection({ id, title, description, sections, result, availa
       </Stack>
       {available ? children : notes.length === 0 && <NotComputed text="Not computed: the study holds no data for this part." />}
       {notes.map((note, i) => (
-        <NotComputed key={i} text={sentence(note.message)} />
+        <NotComputed key={i} text={plainWarning(note)} />
       ))}
     </Stack>
   );

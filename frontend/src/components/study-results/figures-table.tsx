@@ -18,8 +18,12 @@ const column = dataTableColumns<FigureRow>();
 export function CriterionCell({ criteria }: { criteria: readonly JudgedCriterion[] }) {
   if (criteria.length === 0) {
     return (
-      <Text as="span" color="fg.subtle">
-        —<Text as="span" srOnly>No criterion</Text>
+      // Positioned, so that the hidden words stay inside the table's scroll area.
+      <Text as="span" color="fg.subtle" position="relative">
+        —
+        <Text as="span" srOnly>
+          No criterion
+        </Text>
       </Text>
     );
   }
@@ -52,7 +56,14 @@ export function OutcomeCell({ criteria }: { criteria: readonly JudgedCriterion[]
 }
 
 const figureColumns = column.columns([
-  column.accessor('label', { header: 'Figure', cell: (info) => <Text fontWeight="500">{info.getValue()}</Text> }),
+  column.accessor('label', {
+    header: 'Figure',
+    cell: (info) => (
+      <Text fontWeight="500" whiteSpace="normal" minW="10rem" maxW="18rem">
+        {info.getValue()}
+      </Text>
+    ),
+  }),
   column.accessor('value', {
     header: 'Value',
     meta: { align: 'end' },
@@ -62,7 +73,14 @@ const figureColumns = column.columns([
       </Text>
     ),
   }),
-  column.accessor('detail', { header: 'Detail', cell: (info) => <Text color="fg.muted">{info.getValue() ?? ''}</Text> }),
+  column.accessor('detail', {
+    header: 'Detail',
+    cell: (info) => (
+      <Text color="fg.muted" whiteSpace="normal" minW="14rem" maxW="26rem" fontSize="sm">
+        {info.getValue() ?? ''}
+      </Text>
+    ),
+  }),
   column.display({ id: 'criterion', header: 'Criterion', cell: (info) => <CriterionCell criteria={info.row.original.criteria} /> }),
   column.display({ id: 'outcome', header: 'Outcome', cell: (info) => <OutcomeCell criteria={info.row.original.criteria} /> }),
 ]);

@@ -1,7 +1,19 @@
 import type { CriterionOp } from '@meritline/shared';
 import type { CriterionDefinition } from './types';
 
-const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
+const SUPERSCRIPT: Record<string, string> = {
+  '-': '⁻',
+  '0': '⁰',
+  '1': '¹',
+  '2': '²',
+  '3': '³',
+  '4': '⁴',
+  '5': '⁵',
+  '6': '⁶',
+  '7': '⁷',
+  '8': '⁸',
+  '9': '⁹',
+};
 
 /** A number to `digits` significant figures; very large or small values as a × 10ⁿ. */
 export function formatNumber(value: number | null | undefined, digits = 4): string {
@@ -13,7 +25,10 @@ export function formatNumber(value: number | null | undefined, digits = 4): stri
     const power = String(Number(exponent)).replace(/./g, (c) => SUPERSCRIPT[c] ?? c);
     return `${mantissa.replace(/\.?0+$/, '')} × 10${power}`;
   }
-  return String(Number(value.toPrecision(digits)));
+  // 0.999995 to 4 figures would read "1": add figures until a non-integer stays a non-integer.
+  let shown = digits;
+  while (shown < 12 && !Number.isInteger(value) && Number.isInteger(Number(value.toPrecision(shown)))) shown++;
+  return String(Number(value.toPrecision(shown)));
 }
 
 export function formatPercent(value: number | null | undefined, digits = 4): string {
@@ -23,6 +38,12 @@ export function formatPercent(value: number | null | undefined, digits = 4): str
 export function formatP(p: number | null | undefined): string {
   if (p === null || p === undefined || !Number.isFinite(p)) return '—';
   return p < 0.001 ? '< 0.001' : p.toFixed(3);
+}
+
+/** "p = 0.042" or "p < 0.001". */
+export function pText(p: number | null | undefined): string {
+  const text = formatP(p);
+  return text.startsWith('<') ? `p ${text}` : `p = ${text}`;
 }
 
 export function formatInterval(interval: readonly [number, number] | null | undefined, digits = 4): string {
@@ -94,7 +115,7 @@ export const FIGURE_LABELS: Record<string, string> = {
 };
 
 /** Figures whose values are percentages, for the unit beside the requirement. */
-const PERCENT_FIGURE = /(Pct|rsdR|rsdI)$/;
+const PERCENT_FIGURE = /Pct|(^|\.)(rsdR|rsdI|predictedRsd)$/;
 
 /** `recovery.byLevel.low.meanPct` → "Mean recovery at level low"; known paths get their own words. */
 export function figureLabel(figure: string): string {

@@ -22,7 +22,9 @@ export function judgeCriteria(criteria: readonly CriterionDefinition[], result: 
     return outcomes.map((o) => ({ ...o, name: criterionName(o), unit: figureUnit(o.figure) }));
   }
   return criteria.map((criterion) => {
-    const at = outcomes.findIndex((o) => sameFigure(o.figure, criterion.figure) && o.op === criterion.op && sameThreshold(o.threshold, criterion.value));
+    const at = outcomes.findIndex(
+      (o) => sameFigure(o.figure, criterion.figure) && o.op === criterion.op && sameThreshold(o.threshold, criterion.value),
+    );
     const outcome = at >= 0 ? outcomes.splice(at, 1)[0] : undefined;
     return {
       figure: criterion.figure,

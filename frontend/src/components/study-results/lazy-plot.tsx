@@ -3,7 +3,13 @@ import type { Config, Data, Layout } from 'plotly.js-dist-min';
 import { lazy, Suspense } from 'react';
 import { useColorMode } from '@/components/ui/color-mode';
 
-const PlotlyChart = lazy(() => import('./plotly-chart'));
+const loadPlotly = () => import('./plotly-chart');
+const PlotlyChart = lazy(loadPlotly);
+
+/** Starts fetching Plotly in the background, e.g. when a screen that will plot opens. */
+export function preloadPlotly() {
+  void loadPlotly();
+}
 
 export interface PlotPoint {
   customdata?: unknown;
@@ -34,11 +40,12 @@ export function LazyPlot({ label, data, layout, height, onPointClick }: LazyPlot
   const fullLayout: Partial<Layout> = {
     height,
     autosize: true,
-    margin: { l: 64, r: 16, t: 16, b: 56 },
+    margin: { l: 64, r: 16, t: 8, b: 56 },
     paper_bgcolor: 'rgba(0,0,0,0)',
     plot_bgcolor: 'rgba(0,0,0,0)',
     font: { family: "'IBM Plex Sans', system-ui, sans-serif", size: 13, color: ink },
-    legend: { orientation: 'h', x: 0, y: -0.2, yanchor: 'top' },
+    // Above the plot: below it, the legend would collide with the x-axis title.
+    legend: { orientation: 'h', x: 0, xanchor: 'left', y: 1.02, yanchor: 'bottom', font: { size: 12 } },
     hovermode: 'closest',
     ...layout,
     xaxis: { ...axis, ...layout.xaxis },

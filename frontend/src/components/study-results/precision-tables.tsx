@@ -38,7 +38,13 @@ export function precisionRows(result: EvaluationResult, units: StudyUnits, judge
   const at = (figure: string) => criteriaForFigure(judged, figure);
   const x = (v: number | null) => withUnit(formatNumber(v, 4), units.x);
   const rows: FigureRow[] = [
-    { id: 'grandMean', label: 'Grand mean', value: x(p.grandMean), detail: `${p.N} results in ${p.k} series`, criteria: at('precision.grandMean') },
+    {
+      id: 'grandMean',
+      label: 'Grand mean',
+      value: x(p.grandMean),
+      detail: `${p.N} results in ${p.k} series`,
+      criteria: at('precision.grandMean'),
+    },
     { id: 'sR', label: 'Repeatability SD s_r', value: x(p.sR), criteria: at('precision.sR') },
     { id: 'rsdR', label: 'Repeatability RSD', value: formatPercent(p.rsdR, 3), criteria: at('precision.rsdR') },
     {
@@ -77,7 +83,15 @@ export function precisionRows(result: EvaluationResult, units: StudyUnits, judge
   return rows;
 }
 
-export function PrecisionFiguresTable({ result, units, judged }: { result: EvaluationResult; units: StudyUnits; judged: readonly JudgedCriterion[] }) {
+export function PrecisionFiguresTable({
+  result,
+  units,
+  judged,
+}: {
+  result: EvaluationResult;
+  units: StudyUnits;
+  judged: readonly JudgedCriterion[];
+}) {
   return <FiguresTable label="Precision" rows={precisionRows(result, units, judged)} />;
 }
 

@@ -2,7 +2,7 @@ import { Text } from '@chakra-ui/react';
 import type { EvaluationResult, RecoveryGroup, RecoveryItemResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
-import { formatInterval, formatNumber, formatP, formatPercent } from './format';
+import { formatInterval, formatNumber, formatPercent, pText } from './format';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
 
 interface RecoveryRow extends RecoveryGroup {
@@ -17,7 +17,10 @@ const columns = column.columns([
   column.accessor('n', { header: 'Spikes', meta: { align: 'end' } }),
   column.accessor('meanPct', { header: 'Mean recovery', meta: { align: 'end' }, cell: (info) => formatPercent(info.getValue(), 4) }),
   column.accessor('rsdPct', { header: 'RSD', meta: { align: 'end' }, cell: (info) => formatPercent(info.getValue(), 3) }),
-  column.accessor('ci', { header: 'Confidence interval', cell: (info) => (info.getValue() ? `${formatInterval(info.getValue(), 4)} %` : '—') }),
+  column.accessor('ci', {
+    header: 'Confidence interval',
+    cell: (info) => (info.getValue() ? `${formatInterval(info.getValue(), 4)} %` : '—'),
+  }),
   column.display({
     id: 'bias',
     header: 'Differs from 100 %?',
@@ -29,7 +32,7 @@ const columns = column.columns([
           {g.significant ? 'Yes' : 'No'}
           <Text as="span" color="fg.muted" fontSize="sm">
             {' '}
-            (t = {formatNumber(g.t, 3)}, p = {formatP(g.p)})
+            (t = {formatNumber(g.t, 3)}, {pText(g.p)})
           </Text>
         </Text>
       );

@@ -12,7 +12,15 @@ export function ResidualPlot({ result, units, height = 320 }: Pick<StudyResultsP
   const low = Math.min(0, ...xs);
   const high = Math.max(...xs, 0);
   const traces: Data[] = [
-    { type: 'scatter', mode: 'lines', x: [low, high], y: [0, 0], line: { color: PLOT_COLOURS.line, width: 1.5 }, name: 'Zero', hoverinfo: 'skip' },
+    {
+      type: 'scatter',
+      mode: 'lines',
+      x: [low, high],
+      y: [0, 0],
+      line: { color: PLOT_COLOURS.line, width: 1.5 },
+      name: 'Zero',
+      hoverinfo: 'skip',
+    },
   ];
   if (c.sYX !== null && c.weighting === 'none') {
     const band = 2 * c.sYX;

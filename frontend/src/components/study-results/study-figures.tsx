@@ -13,10 +13,18 @@ import { WorkingRange } from './working-range';
 /** Every figure of merit the engine computed, each beside its criterion and outcome. Read-only. */
 export function StudyFigures({ result, units, criteria }: StudyResultsProps) {
   const judged = judgeCriteria(criteria, result);
-  const hasLinearityTests = Boolean(result.lackOfFit || result.mandel || result.interceptTest || result.throughOrigin || result.homoscedasticity);
+  const hasLinearityTests = Boolean(
+    result.lackOfFit || result.mandel || result.interceptTest || result.throughOrigin || result.homoscedasticity,
+  );
   return (
     <Stack gap="10">
-      <FigureSection id="fig-calibration" title="Calibration line" sections={['calibration']} result={result} available={Boolean(result.calibration)}>
+      <FigureSection
+        id="fig-calibration"
+        title="Calibration line"
+        sections={['calibration']}
+        result={result}
+        available={Boolean(result.calibration)}
+      >
         <CalibrationTable result={result} units={units} judged={judged} />
       </FigureSection>
       <FigureSection

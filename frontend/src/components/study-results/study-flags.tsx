@@ -1,6 +1,6 @@
 import { Alert, Stack } from '@chakra-ui/react';
 import type { EvaluationResult, UnknownFlag } from '@meritline/shared';
-import { formatNumber, formatP, WEIGHTING_LABELS, withUnit } from './format';
+import { formatNumber, pText, WEIGHTING_LABELS, withUnit } from './format';
 import { OUTLIER_TESTS } from './outliers-table';
 import type { StudyResultsProps } from './types';
 
@@ -27,9 +27,7 @@ export function studyFlags(result: EvaluationResult, units: StudyResultsProps['u
       id: 'curvature',
       kind: 'warning',
       title: 'Curvature',
-      text: `A quadratic curve fits the standards significantly better than a straight line (Mandel test, F = ${formatNumber(mandel.F, 3)}, p = ${formatP(
-        mandel.p,
-      )}). Consider the quadratic model or a narrower working range.`,
+      text: `A quadratic curve fits the standards significantly better than a straight line (Mandel test, F = ${formatNumber(mandel.F, 3)}, ${pText(mandel.p)}). Consider the quadratic model or a narrower working range.`,
     });
   }
   if (lackOfFit?.significant) {
@@ -37,9 +35,7 @@ export function studyFlags(result: EvaluationResult, units: StudyResultsProps['u
       id: 'lack-of-fit',
       kind: 'warning',
       title: 'Lack of fit',
-      text: `The level means lie further from the line than the replicates scatter (F = ${formatNumber(lackOfFit.F, 3)}, p = ${formatP(
-        lackOfFit.p,
-      )}). The chosen model does not describe the response well over this range.`,
+      text: `The level means lie further from the line than the replicates scatter (F = ${formatNumber(lackOfFit.F, 3)}, ${pText(lackOfFit.p)}). The chosen model does not describe the response well over this range.`,
     });
   }
   if (homoscedasticity?.significant) {
@@ -52,7 +48,7 @@ export function studyFlags(result: EvaluationResult, units: StudyResultsProps['u
       text: `The responses scatter more at ${formatNumber(homoscedasticity.xHigh)} than at ${formatNumber(homoscedasticity.xLow)} (F = ${formatNumber(
         homoscedasticity.F,
         3,
-      )}, p = ${formatP(homoscedasticity.p)}). Weighting ${WEIGHTING_LABELS[recommended] ?? recommended} gives the smallest back-calculated deviations${
+      )}, ${pText(homoscedasticity.p)}). Weighting ${WEIGHTING_LABELS[recommended] ?? recommended} gives the smallest back-calculated deviations${
         inUse ? ' and is the weighting in use.' : `; the study uses ${WEIGHTING_LABELS[result.weighting] ?? result.weighting}.`
       }`,
     });
@@ -62,7 +58,7 @@ export function studyFlags(result: EvaluationResult, units: StudyResultsProps['u
       id: 'intercept',
       kind: 'warning',
       title: 'Intercept not zero',
-      text: `The intercept differs from zero (p = ${formatP(interceptTest.p)}, ${formatNumber(interceptTest.interceptPctOfTopResponse, 3)} % of the top response). A calibration without an intercept biases results, most at the low end.`,
+      text: `The intercept differs from zero (${pText(interceptTest.p)}, ${formatNumber(interceptTest.interceptPctOfTopResponse, 3)} % of the top response). A calibration without an intercept biases results, most at the low end.`,
     });
   }
   const suspects = new Map<string, { set: string; value: number; tests: string[] }>();
@@ -87,7 +83,7 @@ export function studyFlags(result: EvaluationResult, units: StudyResultsProps['u
       id: 'recovery-bias',
       kind: 'info',
       title: 'Recovery differs from 100 %',
-      text: `The mean recovery of ${formatNumber(overall.meanPct, 4)} % differs significantly from 100 % (p = ${formatP(overall.p)}): the method has a bias.`,
+      text: `The mean recovery of ${formatNumber(overall.meanPct, 4)} % differs significantly from 100 % (${pText(overall.p)}): the method has a bias.`,
     });
   }
   for (const unknown of result.unknowns ?? []) {
@@ -109,7 +105,9 @@ export function StudyFlags({ result, units }: Pick<StudyResultsProps, 'result' |
     return (
       <Alert.Root status="success" variant="subtle">
         <Alert.Indicator />
-        <Alert.Title>Nothing to point out: the tests that the data allow found no curvature, lack of fit, unequal variances or outliers.</Alert.Title>
+        <Alert.Title>
+          Nothing to point out: the tests that the data allow found no curvature, lack of fit, unequal variances or outliers.
+        </Alert.Title>
       </Alert.Root>
     );
   }

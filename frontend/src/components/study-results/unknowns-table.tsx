@@ -17,7 +17,14 @@ const columns = column.columns([
   column.accessor('dilution', { header: 'Dilution', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
   column.accessor('x0', { header: 'Result', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
   column.accessor('ci', { header: 'Confidence interval', cell: (info) => formatInterval(info.getValue(), 4) }),
-  column.accessor('flags', { header: 'Flags', cell: (info) => info.getValue().map((f) => FLAG_WORDS[f] ?? f).join('; ') || '—' }),
+  column.accessor('flags', {
+    header: 'Flags',
+    cell: (info) =>
+      info
+        .getValue()
+        .map((f) => FLAG_WORDS[f] ?? f)
+        .join('; ') || '—',
+  }),
 ]);
 
 /** Samples read off the calibration, dilution applied. */

@@ -46,7 +46,12 @@ export function verdictHeadline(judged: readonly JudgedCriterion[], pass: boolea
 export function VerdictSummary({ result, criteria }: Pick<StudyResultsProps, 'result' | 'criteria'>) {
   const judged = judgeCriteria(criteria, result);
   const pass = judged.length === 0 ? null : judged.every((j) => j.pass === true);
-  const [Icon, color, bg] = pass === true ? [MeetsIcon, 'green.fg', 'green.subtle'] : pass === false ? [FailsIcon, 'red.fg', 'red.subtle'] : [NotJudgedIcon, 'fg.muted', 'bg.muted'];
+  const [Icon, color, bg] =
+    pass === true
+      ? [MeetsIcon, 'green.fg', 'green.subtle']
+      : pass === false
+        ? [FailsIcon, 'red.fg', 'red.subtle']
+        : [NotJudgedIcon, 'fg.muted', 'bg.muted'];
   return (
     <Stack gap="4" data-testid="verdict-summary">
       <HStack gap="3" p="4" borderRadius="l3" bg={bg} color={color} borderWidth="1px" borderColor="border" role="status">
@@ -61,7 +66,12 @@ export function VerdictSummary({ result, criteria }: Pick<StudyResultsProps, 're
         </Stack>
       </HStack>
       {judged.length > 0 && (
-        <DataTable label="Acceptance criteria" columns={columns} data={judged.map((j, i) => ({ ...j, id: `${i}` }))} getRowId={(row) => row.id} />
+        <DataTable
+          label="Acceptance criteria"
+          columns={columns}
+          data={judged.map((j, i) => ({ ...j, id: `${i}` }))}
+          getRowId={(row) => row.id}
+        />
       )}
     </Stack>
   );

@@ -32,8 +32,9 @@ export function WorkingRange({ result, units }: { result: EvaluationResult; unit
   return (
     <Stack gap="3">
       <Text>
-        From <strong>{withUnit(formatNumber(range.low, 5), units.x)}</strong> to <strong>{withUnit(formatNumber(range.high, 5), units.x)}</strong>, judged
-        on the {range.basis === 'standards' ? 'calibration standards' : 'recovery levels'}.
+        From <strong>{withUnit(formatNumber(range.low, 5), units.x)}</strong> to{' '}
+        <strong>{withUnit(formatNumber(range.high, 5), units.x)}</strong>, judged on the{' '}
+        {range.basis === 'standards' ? 'calibration standards' : 'recovery levels'}.
       </Text>
       <DataTable label="Working range by level" columns={columns} data={range.levels} getRowId={(row) => String(row.x)} />
     </Stack>

@@ -31,7 +31,8 @@ export function versionBody(values: VersionFormValues) {
 export function useCreateVersion(methodId: string) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (values: VersionFormValues) => api.post<MethodVersionDto>(`/methods/${encodeURIComponent(methodId)}/versions`, versionBody(values)),
+    mutationFn: (values: VersionFormValues) =>
+      api.post<MethodVersionDto>(`/methods/${encodeURIComponent(methodId)}/versions`, versionBody(values)),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: methodsQueries.all }),
     meta: { inlineErrors: true },
   });

@@ -10,7 +10,10 @@ export function useUpdateVersion(version: Pick<MethodVersionDto, 'id' | 'lockVer
   const queryClient = useQueryClient();
   return useMutation({
     mutationFn: (values: VersionFormValues) =>
-      api.patch<MethodVersionDto>(`/method-versions/${encodeURIComponent(version.id)}`, { lockVersion: version.lockVersion, ...versionBody(values) }),
+      api.patch<MethodVersionDto>(`/method-versions/${encodeURIComponent(version.id)}`, {
+        lockVersion: version.lockVersion,
+        ...versionBody(values),
+      }),
     onSettled: () => queryClient.invalidateQueries({ queryKey: methodsQueries.all }),
     meta: { inlineErrors: true },
   });

@@ -26,7 +26,10 @@ const numberText = (required: string) =>
 export const criterionRowSchema = yup.object({
   figure: yup.string().trim().required('Name the figure, e.g. calibration.r2.'),
   label: yup.string().trim().max(200, 'Use at most 200 characters.').default(''),
-  op: yup.mixed<CriterionOp>().oneOf([...CRITERION_OPS], 'Choose a comparison.').required('Choose a comparison.'),
+  op: yup
+    .mixed<CriterionOp>()
+    .oneOf([...CRITERION_OPS], 'Choose a comparison.')
+    .required('Choose a comparison.'),
   value: numberText('Enter a number.'),
   high: yup
     .string()

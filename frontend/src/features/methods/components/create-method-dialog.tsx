@@ -12,9 +12,28 @@ import { criteriaTemplatesQueries } from '../api/criteria-templates-queries';
 import type { CriteriaTemplateDto } from '../api/types';
 import { CriteriaList } from './criteria-list';
 
-export const TECHNIQUES = ['UV-Vis absorbance', 'fluorescence', 'ion chromatography', 'HPLC-UV', 'LC-MS/MS', 'GC-MS', 'flame AAS', 'ICP-OES', 'potentiometry'];
+export const TECHNIQUES = [
+  'UV-Vis absorbance',
+  'fluorescence',
+  'ion chromatography',
+  'HPLC-UV',
+  'LC-MS/MS',
+  'GC-MS',
+  'flame AAS',
+  'ICP-OES',
+  'potentiometry',
+];
 
-const initialValues: CreateMethodValues = { name: '', analyte: '', matrix: '', technique: '', xUnit: '', yUnit: '', purpose: '', changeSummary: '' };
+const initialValues: CreateMethodValues = {
+  name: '',
+  analyte: '',
+  matrix: '',
+  technique: '',
+  xUnit: '',
+  yUnit: '',
+  purpose: '',
+  changeSummary: '',
+};
 
 function TemplatePreview({ templates }: { templates: readonly CriteriaTemplateDto[] }) {
   const { values } = useFormikContext<CreateMethodValues>();
@@ -57,7 +76,8 @@ export function CreateMethodDialog({ proposal }: { proposal: boolean }) {
             </Dialog.Header>
             <Dialog.Body pb="6">
               <Dialog.Description mb="5" color="fg.muted">
-                The method starts with version 1 as a draft. Its acceptance criteria come from the set you choose and can be edited while the version is a draft.
+                The method starts with version 1 as a draft. Its acceptance criteria come from the set you choose and can be edited while
+                the version is a draft.
               </Dialog.Description>
               <Form
                 initialValues={initialValues}

@@ -66,7 +66,11 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                   </Field.Root>
                   <Field.Root invalid={Boolean(errorAt(i, 'label'))}>
                     <Field.Label>Name shown to people</Field.Label>
-                    <Input value={row.label} placeholder="Optional" onChange={(e) => void setFieldValue(`${prefix}.label`, e.target.value)} />
+                    <Input
+                      value={row.label}
+                      placeholder="Optional"
+                      onChange={(e) => void setFieldValue(`${prefix}.label`, e.target.value)}
+                    />
                     {errorAt(i, 'label') && <Field.ErrorText>{errorAt(i, 'label')}</Field.ErrorText>}
                   </Field.Root>
                   <Field.Root>
@@ -107,7 +111,13 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                     <Box display={{ base: 'none', md: 'block' }} />
                   )}
                   <HStack pt={{ base: '0', md: '6' }}>
-                    <IconButton size="sm" variant="ghost" colorPalette="red" aria-label={`Remove criterion ${i + 1}`} onClick={() => remove(i)}>
+                    <IconButton
+                      size="sm"
+                      variant="ghost"
+                      colorPalette="red"
+                      aria-label={`Remove criterion ${i + 1}`}
+                      onClick={() => remove(i)}
+                    >
                       ×
                     </IconButton>
                   </HStack>

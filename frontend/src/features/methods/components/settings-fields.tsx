@@ -19,7 +19,11 @@ export function SettingsFields() {
       />
       <FormField name="settings.requiresQualityRelease" label="Release">
         {(field, helpers) => (
-          <Checkbox.Root checked={Boolean(field.value)} onCheckedChange={(e) => void helpers.setValue(e.checked === true)} alignItems="flex-start">
+          <Checkbox.Root
+            checked={Boolean(field.value)}
+            onCheckedChange={(e) => void helpers.setValue(e.checked === true)}
+            alignItems="flex-start"
+          >
             <Checkbox.HiddenInput />
             <Checkbox.Control mt="0.5" />
             <Checkbox.Label fontWeight="400">A quality manager releases each study after the reviewer approves it</Checkbox.Label>

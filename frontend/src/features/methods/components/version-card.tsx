@@ -41,7 +41,9 @@ export function VersionCard({ method, version, canManage }: VersionCardProps) {
           </Stack>
           {canManage && (
             <HStack gap="2" wrap="wrap">
-              {version.status === 'draft' && <VersionFormDialog method={method} mode="edit" version={version} triggerLabel="Edit criteria and settings" />}
+              {version.status === 'draft' && (
+                <VersionFormDialog method={method} mode="edit" version={version} triggerLabel="Edit criteria and settings" />
+              )}
               <VersionStatusAction version={version} />
             </HStack>
           )}
@@ -64,7 +66,9 @@ export function VersionCard({ method, version, canManage }: VersionCardProps) {
           </DataList.Item>
           <DataList.Item>
             <DataList.ItemLabel>Release of studies</DataList.ItemLabel>
-            <DataList.ItemValue>{settings.requiresQualityRelease ? 'A quality manager releases after review' : 'Approval by the reviewer is enough'}</DataList.ItemValue>
+            <DataList.ItemValue>
+              {settings.requiresQualityRelease ? 'A quality manager releases after review' : 'Approval by the reviewer is enough'}
+            </DataList.ItemValue>
           </DataList.Item>
         </DataList.Root>
         <CriteriaList criteria={version.criteria} label={`Acceptance criteria of version ${version.number}`} />

@@ -87,16 +87,15 @@ export function VersionFormDialog({ method, mode, version, triggerLabel, proposa
                 }
               >
                 <FormField name="changeSummary" label="What changes, and why" required>
-                  {(field) => (
-                    <Textarea {...field} value={String(field.value ?? '')} rows={2} autoresize />
-                  )}
+                  {(field) => <Textarea {...field} value={String(field.value ?? '')} rows={2} autoresize />}
                 </FormField>
                 <Stack gap="2">
                   <Heading as="h3" size="sm">
                     Acceptance criteria
                   </Heading>
                   <Text fontSize="sm" color="fg.muted">
-                    Each criterion names a figure of the study result and the limit it must meet. The verdict of a study passes only when every criterion holds.
+                    Each criterion names a figure of the study result and the limit it must meet. The verdict of a study passes only when
+                    every criterion holds.
                   </Text>
                   <CriteriaEditor />
                 </Stack>

@@ -10,7 +10,8 @@ const ACTIONS: Partial<Record<MethodVersionStatus, { to: MethodVersionStatus; la
   draft: {
     to: 'active',
     label: 'Activate',
-    explain: 'New studies and routine batches will use this version. Its criteria and settings can no longer be edited; a change needs a new version.',
+    explain:
+      'New studies and routine batches will use this version. Its criteria and settings can no longer be edited; a change needs a new version.',
   },
   active: {
     to: 'retired',
@@ -35,7 +36,11 @@ export function VersionStatusAction({ version }: { version: MethodVersionDto }) 
       onError: (error) => {
         setOpen(false);
         if (isApiError(error) && error.status === 409) {
-          toaster.create({ type: 'warning', title: 'Not changed', description: 'Someone else changed this version first. The page now shows the current state.' });
+          toaster.create({
+            type: 'warning',
+            title: 'Not changed',
+            description: 'Someone else changed this version first. The page now shows the current state.',
+          });
         }
       },
     });

@@ -17,7 +17,8 @@ export default function MethodDetailPage() {
   const { canManage, canPropose } = useMethodPermissions();
 
   if (method.isPending) return <PageSpinner label="Loading the method" />;
-  if (method.isError) return <QueryError error={method.error} title="The method could not be loaded" onRetry={() => void method.refetch()} />;
+  if (method.isError)
+    return <QueryError error={method.error} title="The method could not be loaded" onRetry={() => void method.refetch()} />;
 
   const m = method.data;
   const versions = [...m.versions].sort((a, b) => b.number - a.number);
@@ -34,7 +35,15 @@ export default function MethodDetailPage() {
         description={`${m.analyte} in ${m.matrix}, by ${m.technique}.`}
         actions={
           canPropose &&
-          latest && <VersionFormDialog method={m} mode="new" version={latest} triggerLabel={canManage ? 'New version' : 'Propose a new version'} proposal={!canManage} />
+          latest && (
+            <VersionFormDialog
+              method={m}
+              mode="new"
+              version={latest}
+              triggerLabel={canManage ? 'New version' : 'Propose a new version'}
+              proposal={!canManage}
+            />
+          )
         }
       />
       <Stack gap="8">

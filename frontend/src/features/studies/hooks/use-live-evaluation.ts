@@ -16,7 +16,16 @@ function evaluate(data: Record<string, unknown>): Pick<LiveEvaluation, 'result' 
     return { result: evaluateStudy(data), errors: [] };
   } catch (error) {
     if (error instanceof StudyValidationError) return { result: null, errors: error.errors };
-    return { result: null, errors: [{ field: 'study', code: 'engine_failure', message: 'The figures could not be computed in the browser; the server result below still applies.' }] };
+    return {
+      result: null,
+      errors: [
+        {
+          field: 'study',
+          code: 'engine_failure',
+          message: 'The figures could not be computed in the browser; the server result below still applies.',
+        },
+      ],
+    };
   }
 }
 

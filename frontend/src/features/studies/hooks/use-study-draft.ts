@@ -31,7 +31,11 @@ interface Payload {
   data: string;
 }
 
-const payloadOf = (draft: StudyDraft): Payload => ({ title: draft.title.trim(), meta: canonicalJson(draft.meta), data: canonicalJson(draftToData(draft.data)) });
+const payloadOf = (draft: StudyDraft): Payload => ({
+  title: draft.title.trim(),
+  meta: canonicalJson(draft.meta),
+  data: canonicalJson(draftToData(draft.data)),
+});
 
 /** Only draft and returned studies change; submitted and approved ones are on record. */
 export const isEditable = (study: Pick<StudyDto, 'status'>) => study.status === 'draft' || study.status === 'returned';

@@ -49,7 +49,11 @@ function ChooseMethod({ methods }: { methods: readonly MethodChoice[] }) {
 }
 
 function DateField({ name, label }: { name: 'startedOn' | 'finishedOn'; label: string }) {
-  return <FormField name={name} label={label}>{(field) => <Input {...field} value={String(field.value ?? '')} type="date" />}</FormField>;
+  return (
+    <FormField name={name} label={label}>
+      {(field) => <Input {...field} value={String(field.value ?? '')} type="date" />}
+    </FormField>
+  );
 }
 
 export default function NewStudyPage() {
@@ -78,9 +82,7 @@ export default function NewStudyPage() {
         ) : methods.isPending ? (
           <Skeleton height="40" />
         ) : methods.data.length === 0 ? (
-          <Text>
-            There is no method yet. A quality manager sets methods up on the Methods page; analysts may propose one there.
-          </Text>
+          <Text>There is no method yet. A quality manager sets methods up on the Methods page; analysts may propose one there.</Text>
         ) : (
           <Form
             initialValues={initialValues}

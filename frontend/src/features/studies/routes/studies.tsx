@@ -58,7 +58,15 @@ export default function ValidationStudiesPage() {
 
   const onFilters = useCallback(
     (filters: StudyFilters) =>
-      update({ status: filters.status, methodId: filters.methodId, mine: filters.mine ? 'true' : undefined, from: filters.from, to: filters.to, q: filters.q, page: undefined }),
+      update({
+        status: filters.status,
+        methodId: filters.methodId,
+        mine: filters.mine ? 'true' : undefined,
+        from: filters.from,
+        to: filters.to,
+        q: filters.q,
+        page: undefined,
+      }),
     [update],
   );
 
@@ -72,7 +80,14 @@ export default function ValidationStudiesPage() {
   const total = studies.data?.total ?? 0;
   const first = total === 0 ? 0 : (params.page - 1) * PAGE_SIZE + 1;
   const last = Math.min(params.page * PAGE_SIZE, total);
-  const filters: StudyFilters = { status: params.status, methodId: params.methodId, mine: params.mine ?? false, from: params.from, to: params.to, q: params.q };
+  const filters: StudyFilters = {
+    status: params.status,
+    methodId: params.methodId,
+    mine: params.mine ?? false,
+    from: params.from,
+    to: params.to,
+    q: params.q,
+  };
 
   return (
     <>

@@ -1,8 +1,10 @@
 import { Alert, Button, Field, HStack, Input, Link, Stack } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
+import { useEffect } from 'react';
 import { Link as RouterLink, useParams, useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
+import { preloadPlotly } from '@/components/study-results';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { studiesQueries } from '../api/studies-queries';
@@ -22,7 +24,8 @@ import { useLiveEvaluation } from '../hooks/use-live-evaluation';
 import { useStudyDraft, type StudyDraftController } from '../hooks/use-study-draft';
 import { countSkippedRows } from '../utils/study-sheets';
 
-const rowsNote = (count: number, skipped: number) => (count === 0 ? 'No rows yet' : `${count} row${count === 1 ? '' : 's'}${skipped ? `, ${skipped} to correct` : ''}`);
+const rowsNote = (count: number, skipped: number) =>
+  count === 0 ? 'No rows yet' : `${count} row${count === 1 ? '' : 's'}${skipped ? `, ${skipped} to correct` : ''}`;
 
 function stepNotes(controller: StudyDraftController, verdict: boolean | null | undefined): Record<number, string> {
   const { sheets } = controller.draft.data;
@@ -45,7 +48,8 @@ function SaveProblems({ controller }: { controller: StudyDraftController }) {
         <Alert.Content>
           <Alert.Title>Someone else saved this study while you were editing</Alert.Title>
           <Alert.Description>
-            Your latest changes are not saved, so that theirs are not overwritten. Reload to see the study as it is now, then make your changes again.
+            Your latest changes are not saved, so that theirs are not overwritten. Reload to see the study as it is now, then make your
+            changes again.
           </Alert.Description>
         </Alert.Content>
         <Button size="sm" alignSelf="center" onClick={() => void reload()}>
@@ -80,6 +84,8 @@ function StudyWizard({ study, step }: { study: StudyDto; step: number }) {
   const units = { x: server.method.xUnit, y: server.method.yUnit };
   const props: DataStepProps = { controller, live, units, criteria: server.methodVersion.criteria };
   const current = WIZARD_STEPS[step - 1];
+  // Plotly is large: fetch it while the analyst is still typing, so the first plot appears at once.
+  useEffect(preloadPlotly, []);
 
   return (
     <>
@@ -103,8 +109,8 @@ function StudyWizard({ study, step }: { study: StudyDto; step: number }) {
           <Alert.Root status="info">
             <Alert.Indicator />
             <Alert.Description>
-              This study is {server.status === 'approved' ? 'approved' : 'submitted for review'} and can no longer be changed. What you see is the record;
-              its signatures and comments are on the{' '}
+              This study is {server.status === 'approved' ? 'approved' : 'submitted for review'} and can no longer be changed. What you see
+              is the record; its signatures and comments are on the{' '}
               <Link asChild color="brand.fg">
                 <RouterLink to={paths.studyView.getHref(server.id)}>review page</RouterLink>
               </Link>

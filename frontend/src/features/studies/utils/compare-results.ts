@@ -12,13 +12,18 @@ const KEY_FIGURES: { figure: string; name: string }[] = [
   { figure: 'precision.rsdI', name: 'intermediate precision RSD' },
 ];
 
-const close = (a: number | null, b: number | null) => (a === null || b === null ? a === b : Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b)));
+const close = (a: number | null, b: number | null) =>
+  a === null || b === null ? a === b : Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
 
 /** Names of the key figures and verdicts on which two results differ; empty when they agree. */
 export function resultDifferences(browser: EvaluationResult | null, server: EvaluationResult | null): string[] {
   if (!browser || !server) return browser === server ? [] : ['the whole result'];
-  const differences = KEY_FIGURES.filter(({ figure }) => !close(figureValue(browser, figure), figureValue(server, figure))).map(({ name }) => name);
-  const verdicts = browser.verdict.criteria.length === server.verdict.criteria.length && browser.verdict.criteria.every((c, i) => c.pass === server.verdict.criteria[i].pass);
+  const differences = KEY_FIGURES.filter(({ figure }) => !close(figureValue(browser, figure), figureValue(server, figure))).map(
+    ({ name }) => name,
+  );
+  const verdicts =
+    browser.verdict.criteria.length === server.verdict.criteria.length &&
+    browser.verdict.criteria.every((c, i) => c.pass === server.verdict.criteria[i].pass);
   if (!verdicts || browser.verdict.pass !== server.verdict.pass) differences.push('verdict');
   return differences;
 }

@@ -8,7 +8,12 @@ export const isTablePaste = (text: string) => /[\t\r\n]/.test(text.replace(/(\r\
  * Writes pasted text into the grid from a cell on, as a spreadsheet does: cells to the right
  * and below are overwritten, rows are added as needed. With a header, columns go by name instead.
  */
-export function pasteIntoRows(rows: readonly GridRow[], columns: readonly GridColumn[], text: string, at: { row: number; column: number }): { rows: GridRow[]; pasted: number } {
+export function pasteIntoRows(
+  rows: readonly GridRow[],
+  columns: readonly GridColumn[],
+  text: string,
+  at: { row: number; column: number },
+): { rows: GridRow[]; pasted: number } {
   const table = parsePastedTable(text);
   if (table.rows.length === 0) return { rows: [...rows], pasted: 0 };
   const width = Math.max(...table.rows.map((r) => r.length));
@@ -30,7 +35,10 @@ export function pasteIntoRows(rows: readonly GridRow[], columns: readonly GridCo
 }
 
 /** Rows from a whole pasted table, columns matched by header names or by position. */
-export function rowsFromPaste(columns: readonly GridColumn[], text: string): { rows: GridRow[]; header: string[] | null; targets: (string | null)[] } {
+export function rowsFromPaste(
+  columns: readonly GridColumn[],
+  text: string,
+): { rows: GridRow[]; header: string[] | null; targets: (string | null)[] } {
   const table = parsePastedTable(text);
   const width = table.rows.length > 0 ? Math.max(...table.rows.map((r) => r.length)) : 0;
   const targets = matchColumns(table.header, width, columns);

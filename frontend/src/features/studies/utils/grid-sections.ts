@@ -40,34 +40,103 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
   switch (section) {
     case 'standards':
       return [
-        { key: 'x', label: 'Concentration', unit: units.x, kind: 'number', required: true, aliases: ['x', 'conc', 'concentration', 'nominal', 'level', 'amount', 'standard', 'std'] },
+        {
+          key: 'x',
+          label: 'Concentration',
+          unit: units.x,
+          kind: 'number',
+          required: true,
+          aliases: ['x', 'conc', 'concentration', 'nominal', 'level', 'amount', 'standard', 'std'],
+        },
         { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: RESPONSE },
       ];
     case 'unknowns':
       return [
         { key: 'id', label: 'Sample', kind: 'text', required: true, aliases: ['id', 'sample', 'sample id', 'name', 'label'] },
         { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: RESPONSE },
-        { key: 'dilution', label: 'Dilution factor', kind: 'positive', placeholder: '1', aliases: ['dilution', 'dilution factor', 'df', 'dil'] },
+        {
+          key: 'dilution',
+          label: 'Dilution factor',
+          kind: 'positive',
+          placeholder: '1',
+          aliases: ['dilution', 'dilution factor', 'df', 'dil'],
+        },
       ];
     case 'blanks':
-      return [{ key: 'value', label: 'Blank response', unit: units.y, kind: 'number', required: true, aliases: ['value', 'blank', 'blanks', ...RESPONSE] }];
+      return [
+        {
+          key: 'value',
+          label: 'Blank response',
+          unit: units.y,
+          kind: 'number',
+          required: true,
+          aliases: ['value', 'blank', 'blanks', ...RESPONSE],
+        },
+      ];
     case 'lowSpikes':
       return [
-        { key: 'spiked', label: 'Low-level spike result', unit: units.x, kind: 'number', aliases: ['spiked', 'spike', 'spiked result', 'low spike'] },
-        { key: 'blank', label: 'Method blank result', unit: units.x, kind: 'numberOrNotDetected', placeholder: 'ND', aliases: ['blank', 'blanks', 'method blank'] },
+        {
+          key: 'spiked',
+          label: 'Low-level spike result',
+          unit: units.x,
+          kind: 'number',
+          aliases: ['spiked', 'spike', 'spiked result', 'low spike'],
+        },
+        {
+          key: 'blank',
+          label: 'Method blank result',
+          unit: units.x,
+          kind: 'numberOrNotDetected',
+          placeholder: 'ND',
+          aliases: ['blank', 'blanks', 'method blank'],
+        },
       ];
     case 'recovery':
       return [
         { key: 'id', label: 'Spike', kind: 'text', placeholder: 'R1', aliases: ['id', 'sample', 'sample id', 'name', 'replicate'] },
         { key: 'level', label: 'Level', kind: 'text', placeholder: 'low', aliases: ['level', 'spike level', 'fortification level'] },
-        { key: 'added', label: 'Added', unit: units.x, kind: 'positive', required: true, aliases: ['added', 'spike', 'spiked', 'amount added', 'nominal'] },
-        { key: 'found', label: 'Found', unit: units.x, kind: 'number', required: true, aliases: ['found', 'measured', 'result', 'determined'] },
-        { key: 'native', label: 'Native (before spiking)', unit: units.x, kind: 'number', placeholder: '0', aliases: ['native', 'background', 'unspiked'] },
+        {
+          key: 'added',
+          label: 'Added',
+          unit: units.x,
+          kind: 'positive',
+          required: true,
+          aliases: ['added', 'spike', 'spiked', 'amount added', 'nominal'],
+        },
+        {
+          key: 'found',
+          label: 'Found',
+          unit: units.x,
+          kind: 'number',
+          required: true,
+          aliases: ['found', 'measured', 'result', 'determined'],
+        },
+        {
+          key: 'native',
+          label: 'Native (before spiking)',
+          unit: units.x,
+          kind: 'number',
+          placeholder: '0',
+          aliases: ['native', 'background', 'unspiked'],
+        },
       ];
     case 'precision':
       return [
-        { key: 'group', label: 'Series (day, analyst, instrument)', kind: 'text', required: true, aliases: ['group', 'series', 'day', 'run', 'batch', 'analyst'] },
-        { key: 'value', label: 'Result', unit: units.x, kind: 'number', required: true, aliases: ['value', 'result', 'found', 'measured', 'concentration'] },
+        {
+          key: 'group',
+          label: 'Series (day, analyst, instrument)',
+          kind: 'text',
+          required: true,
+          aliases: ['group', 'series', 'day', 'run', 'batch', 'analyst'],
+        },
+        {
+          key: 'value',
+          label: 'Result',
+          unit: units.x,
+          kind: 'number',
+          required: true,
+          aliases: ['value', 'result', 'found', 'measured', 'concentration'],
+        },
       ];
   }
 }
@@ -81,7 +150,8 @@ export function cellProblem(column: GridColumn, text: string | undefined): strin
   if (column.kind === 'text') return null;
   if (column.kind === 'numberOrNotDetected' && isNotDetected(value)) return null;
   const number = parseDecimal(value);
-  if (number === null) return column.kind === 'numberOrNotDetected' ? `“${value}” is not a number; write ND if not detected` : `“${value}” is not a number`;
+  if (number === null)
+    return column.kind === 'numberOrNotDetected' ? `“${value}” is not a number; write ND if not detected` : `“${value}” is not a number`;
   if (column.kind === 'positive' && number <= 0) return 'Must be above zero';
   return null;
 }

@@ -67,12 +67,16 @@ export function dataToDraft(data: Record<string, unknown>): DataDraft {
 /** Rows that are complete and hold numbers where numbers belong; the others stay in the grid, marked, and are not sent. */
 export function usableRows(section: ImportSection, rows: readonly GridRow[], units: SectionUnits = {}): GridRow[] {
   const columns = sectionColumns(section, units);
-  return rows.filter((row) => columns.some((c) => (row.cells[c.key] ?? '').trim() !== '') && Object.keys(rowProblems(row, columns)).length === 0);
+  return rows.filter(
+    (row) => columns.some((c) => (row.cells[c.key] ?? '').trim() !== '') && Object.keys(rowProblems(row, columns)).length === 0,
+  );
 }
 
 export function countSkippedRows(section: ImportSection, rows: readonly GridRow[]): number {
   const columns = sectionColumns(section, {});
-  return rows.filter((row) => columns.some((c) => (row.cells[c.key] ?? '').trim() !== '') && Object.keys(rowProblems(row, columns)).length > 0).length;
+  return rows.filter(
+    (row) => columns.some((c) => (row.cells[c.key] ?? '').trim() !== '') && Object.keys(rowProblems(row, columns)).length > 0,
+  ).length;
 }
 
 const num = (value: string | undefined) => parseDecimal(value ?? '') as number;
@@ -125,7 +129,10 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
   }));
   if (recovery.length > 0) data.recovery = recovery;
 
-  const precision = usableRows('precision', sheets.precision).map((row) => ({ group: row.cells.group.trim(), value: num(row.cells.value) }));
+  const precision = usableRows('precision', sheets.precision).map((row) => ({
+    group: row.cells.group.trim(),
+    value: num(row.cells.value),
+  }));
   if (precision.length > 0) data.precision = precision;
 
   const massFraction = parseDecimal(settings.massFraction);

@@ -1,5 +1,5 @@
 import { Box, chakra, IconButton, Table, Text } from '@chakra-ui/react';
-import { useRef, useState, type ClipboardEvent, type KeyboardEvent, type ReactNode } from 'react';
+import { Fragment, useRef, useState, type ClipboardEvent, type KeyboardEvent, type ReactNode } from 'react';
 import { pasteIntoRows, isTablePaste } from '../../utils/grid-paste';
 import { isBlankRow, newRowId, rowProblems, type GridColumn, type GridRow } from '../../utils/grid-sections';
 
@@ -118,7 +118,11 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
               ))}
               {!readOnly && (
                 <Table.ColumnHeader width="1%" py="2.5">
-                  <Text srOnly>Row actions</Text>
+                  <Text as="span" position="relative">
+                    <Text as="span" srOnly>
+                      Row actions
+                    </Text>
+                  </Text>
                 </Table.ColumnHeader>
               )}
             </Table.Row>
@@ -128,51 +132,67 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
               const problems = rowProblems(row, columns);
               const spare = !readOnly && r === rows.length;
               return (
-                <Table.Row key={row.id} bg={row.excluded ? 'bg.muted' : undefined} data-excluded={row.excluded ? 'true' : undefined}>
-                  <Table.Cell textAlign="end" color="fg.muted" fontSize="xs" verticalAlign="top" pt="3">
-                    {spare ? '+' : r + 1}
-                  </Table.Cell>
-                  {columns.map((column, c) => {
-                    const problem = problems[column.key];
-                    const errorId = `${row.id}-${column.key}-problem`;
-                    return (
-                      <Table.Cell key={column.key} verticalAlign="top" py="1" px="1">
-                        <CellInput
-                          data-cell={`${r}:${c}`}
-                          aria-label={`${column.label}, row ${r + 1}`}
-                          aria-invalid={problem ? true : undefined}
-                          aria-describedby={problem ? errorId : undefined}
-                          value={row.cells[column.key] ?? ''}
-                          placeholder={spare && c === 0 ? 'Type or paste here' : column.placeholder}
-                          readOnly={readOnly}
-                          inputMode={column.kind === 'text' ? 'text' : 'decimal'}
-                          autoComplete="off"
-                          textDecoration={row.excluded ? 'line-through' : undefined}
-                          onChange={(e) => setCell(r, column.key, e.target.value)}
-                          onKeyDown={(e) => onKeyDown(e, r, c)}
-                          onPaste={(e) => onPaste(e, r, c)}
-                        />
-                        {problem && (
-                          <Text id={errorId} fontSize="xs" color="fg.error" px="2" pt="0.5">
-                            {problem}
-                          </Text>
+                <Fragment key={row.id}>
+                  <Table.Row bg={row.excluded ? 'bg.muted' : undefined} data-excluded={row.excluded ? 'true' : undefined}>
+                    <Table.Cell textAlign="end" color="fg.muted" fontSize="xs" verticalAlign="top" pt="3">
+                      {spare ? '+' : r + 1}
+                    </Table.Cell>
+                    {columns.map((column, c) => {
+                      const problem = problems[column.key];
+                      const errorId = `${row.id}-${column.key}-problem`;
+                      return (
+                        <Table.Cell key={column.key} verticalAlign="top" py="1" px="1">
+                          <CellInput
+                            data-cell={`${r}:${c}`}
+                            aria-label={`${column.label}, row ${r + 1}`}
+                            aria-invalid={problem ? true : undefined}
+                            aria-describedby={problem ? errorId : undefined}
+                            value={row.cells[column.key] ?? ''}
+                            placeholder={spare ? (c === 0 ? 'Type or paste here' : undefined) : column.placeholder}
+                            readOnly={readOnly}
+                            inputMode={column.kind === 'text' ? 'text' : 'decimal'}
+                            autoComplete="off"
+                            textDecoration={row.excluded ? 'line-through' : undefined}
+                            onChange={(e) => setCell(r, column.key, e.target.value)}
+                            onKeyDown={(e) => onKeyDown(e, r, c)}
+                            onPaste={(e) => onPaste(e, r, c)}
+                          />
+                          {problem && (
+                            <Text id={errorId} fontSize="xs" color="fg.error" px="2" pt="0.5">
+                              {problem}
+                            </Text>
+                          )}
+                        </Table.Cell>
+                      );
+                    })}
+                    {!readOnly && (
+                      <Table.Cell verticalAlign="top" py="1" whiteSpace="nowrap">
+                        {!spare && (
+                          <Box display="flex" gap="1" alignItems="center" justifyContent="flex-end">
+                            {rowActions?.(row, r)}
+                            <IconButton
+                              size="xs"
+                              variant="ghost"
+                              aria-label={`Remove row ${r + 1}`}
+                              title="Remove the row"
+                              onClick={() => removeRow(r)}
+                            >
+                              ×
+                            </IconButton>
+                          </Box>
                         )}
                       </Table.Cell>
-                    );
-                  })}
-                  {!readOnly && (
-                    <Table.Cell verticalAlign="top" py="1" whiteSpace="nowrap">
-                      {!spare && (
-                        <Box display="flex" gap="1" alignItems="center" justifyContent="flex-end">
-                          {rowActions?.(row, r)}
-                          <IconButton size="xs" variant="ghost" aria-label={`Remove row ${r + 1}`} title="Remove the row" onClick={() => removeRow(r)}>
-                            ×
-                          </IconButton>
-                        </Box>
-                      )}
-                    </Table.Cell>
+                    )}
+                  </Table.Row>
+                  {row.excluded && (
+                    <Table.Row bg="bg.muted">
+                      <Table.Cell />
+                      <Table.Cell colSpan={columns.length + (readOnly ? 0 : 1)} pt="0" pb="2" px="3" fontSize="xs" color="fg.muted">
+                        Excluded: {row.excluded.reason}
+                      </Table.Cell>
+                    </Table.Row>
                   )}
-                </Table.Row>
+                </Fragment>
               );
             })}
           </Table.Body>

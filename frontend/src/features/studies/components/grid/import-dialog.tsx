@@ -1,4 +1,19 @@
-import { Alert, Button, CloseButton, Dialog, Field, HStack, List, NativeSelect, Portal, SimpleGrid, Spinner, Stack, Table, Text } from '@chakra-ui/react';
+import {
+  Alert,
+  Button,
+  CloseButton,
+  Dialog,
+  Field,
+  HStack,
+  List,
+  NativeSelect,
+  Portal,
+  SimpleGrid,
+  Spinner,
+  Stack,
+  Table,
+  Text,
+} from '@chakra-ui/react';
 import { useState } from 'react';
 import { isApiError } from '@/lib/api-client';
 import { useApplyImport, usePreviewImport } from '../../api/import-study-file';
@@ -62,7 +77,10 @@ function previewTable(section: ImportSection, rows: unknown[]): { headers: strin
     const length = Math.max(spikes.spiked?.length ?? 0, spikes.blanks?.length ?? 0);
     return {
       headers: ['Spiked', 'Blank'],
-      body: Array.from({ length }, (_, i) => [cellText(spikes.spiked?.[i]), i < (spikes.blanks?.length ?? 0) ? cellText(spikes.blanks?.[i]) : '']),
+      body: Array.from({ length }, (_, i) => [
+        cellText(spikes.spiked?.[i]),
+        i < (spikes.blanks?.length ?? 0) ? cellText(spikes.blanks?.[i]) : '',
+      ]),
     };
   }
   if (rows.every((row) => typeof row === 'number')) return { headers: ['Value'], body: rows.map((row) => [cellText(row)]) };
@@ -126,7 +144,8 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
       setOpen(false);
       reset();
     } catch (error) {
-      if (isApiError(error) && error.status === 409) setApplyError('Someone else saved this study meanwhile; nothing was imported. Reload the study, then import again.');
+      if (isApiError(error) && error.status === 409)
+        setApplyError('Someone else saved this study meanwhile; nothing was imported. Reload the study, then import again.');
       else if (isApiError(error)) setApplyError([error.body.message, ...(error.body.errors ?? []).map((e) => e.message)].join(' '));
       else setApplyError('The file could not be imported. Try again.');
     }
@@ -161,8 +180,9 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
             <Dialog.Body>
               <Stack gap="5">
                 <Text fontSize="sm" color="fg.muted">
-                  A CSV file (separated by commas, semicolons or tabs) or an Excel workbook (.xlsx, first sheet), with a first row naming the columns. Meritline
-                  reads the file and shows what it found before anything changes. Importing replaces the {sectionName} of this study.
+                  A CSV file (separated by commas, semicolons or tabs) or an Excel workbook (.xlsx, first sheet), with a first row naming
+                  the columns. Meritline reads the file and shows what it found before anything changes. Importing replaces the{' '}
+                  {sectionName} of this study.
                 </Text>
                 <Field.Root>
                   <Field.Label>File</Field.Label>
@@ -184,7 +204,9 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
                     <Alert.Indicator />
                     <Alert.Content>
                       <Alert.Title>{previewError.body.message}</Alert.Title>
-                      {previewError.body.errors?.map((e, i) => <Alert.Description key={i}>{e.message}</Alert.Description>)}
+                      {previewError.body.errors?.map((e, i) => (
+                        <Alert.Description key={i}>{e.message}</Alert.Description>
+                      ))}
                     </Alert.Content>
                   </Alert.Root>
                 )}
@@ -222,7 +244,8 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
                         <Alert.Indicator />
                         <Alert.Content>
                           <Alert.Title>
-                            The file cannot be imported as it is ({data.errors.length} problem{data.errors.length === 1 ? '' : 's'}). Correct the mapping above or the file.
+                            The file cannot be imported as it is ({data.errors.length} problem{data.errors.length === 1 ? '' : 's'}).
+                            Correct the mapping above or the file.
                           </Alert.Title>
                           <List.Root as="ul" ps="4" fontSize="sm">
                             {data.errors.map((e, i) => (
@@ -274,7 +297,11 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
               <Dialog.ActionTrigger asChild>
                 <Button variant="outline">Cancel</Button>
               </Dialog.ActionTrigger>
-              <Button onClick={() => void importRows()} disabled={!data || data.errors.length > 0 || preview.isPending} loading={apply.isPending}>
+              <Button
+                onClick={() => void importRows()}
+                disabled={!data || data.errors.length > 0 || preview.isPending}
+                loading={apply.isPending}
+              >
                 Import {count > 0 ? `${count} row${count === 1 ? '' : 's'}` : ''}
               </Button>
             </Dialog.Footer>

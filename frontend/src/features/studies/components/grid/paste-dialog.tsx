@@ -43,8 +43,8 @@ export function PasteDialog({ sectionName, columns, hasRows, onPaste, disabled }
             <Dialog.Body>
               <Stack gap="4">
                 <Text color="fg.muted" fontSize="sm">
-                  Copy the cells in your spreadsheet and paste them below. Columns in order: {columns.map((c) => c.label).join(', ')}; or a first row naming
-                  them. Decimal commas are fine.
+                  Copy the cells in your spreadsheet and paste them below. Columns in order: {columns.map((c) => c.label).join(', ')}; or a
+                  first row naming them. Decimal commas are fine.
                 </Text>
                 <Field.Root>
                   <Field.Label>Cells to paste</Field.Label>
@@ -60,8 +60,10 @@ export function PasteDialog({ sectionName, columns, hasRows, onPaste, disabled }
                 {parsed.rows.length > 0 && (
                   <Stack gap="2" aria-live="polite">
                     <Text fontSize="sm">
-                      {parsed.rows.length} row{parsed.rows.length === 1 ? '' : 's'} read{parsed.header ? ', first row taken as the column names' : ''}.
-                      {problems > 0 && ` ${problems} with a cell that is not a number or is missing: it will be marked in the grid and not used until corrected.`}
+                      {parsed.rows.length} row{parsed.rows.length === 1 ? '' : 's'} read
+                      {parsed.header ? ', first row taken as the column names' : ''}.
+                      {problems > 0 &&
+                        ` ${problems} with a cell that is not a number or is missing: it will be marked in the grid and not used until corrected.`}
                     </Text>
                     <Table.ScrollArea borderWidth="1px" borderColor="border" borderRadius="l2" maxH="48">
                       <Table.Root size="sm" aria-label="Rows to paste">

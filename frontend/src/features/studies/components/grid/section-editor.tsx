@@ -24,7 +24,18 @@ export interface SectionEditorProps {
 }
 
 /** One section of the study as a grid, with paste, file upload and a template to start from. */
-export function SectionEditor({ studyId, section, sectionName, units, rows, onRowsChange, readOnly, prepareImport, onImported, rowActions }: SectionEditorProps) {
+export function SectionEditor({
+  studyId,
+  section,
+  sectionName,
+  units,
+  rows,
+  onRowsChange,
+  readOnly,
+  prepareImport,
+  onImported,
+  rowActions,
+}: SectionEditorProps) {
   const columns = sectionColumns(section, units);
   const filled = rows.filter((row) => !isBlankRow(row, columns));
   const withProblems = filled.filter((row) => Object.keys(rowProblems(row, columns)).length > 0).length;
@@ -32,7 +43,11 @@ export function SectionEditor({ studyId, section, sectionName, units, rows, onRo
 
   const downloadTemplate = () =>
     downloadImportTemplate(section).catch((error: unknown) =>
-      toaster.create({ type: 'error', title: 'The template could not be downloaded', description: isApiError(error) ? error.body.message : undefined }),
+      toaster.create({
+        type: 'error',
+        title: 'The template could not be downloaded',
+        description: isApiError(error) ? error.body.message : undefined,
+      }),
     );
 
   return (
@@ -45,12 +60,26 @@ export function SectionEditor({ studyId, section, sectionName, units, rows, onRo
           disabled={readOnly}
           onPaste={(pasted, mode) => onRowsChange(mode === 'append' ? [...filled, ...pasted] : pasted)}
         />
-        <ImportDialog studyId={studyId} section={section} sectionName={sectionName} prepare={prepareImport} onImported={onImported} disabled={readOnly} />
+        <ImportDialog
+          studyId={studyId}
+          section={section}
+          sectionName={sectionName}
+          prepare={prepareImport}
+          onImported={onImported}
+          disabled={readOnly}
+        />
         <Button size="sm" variant="ghost" onClick={() => void downloadTemplate()}>
           Download a CSV template
         </Button>
       </HStack>
-      <DataGrid label={sectionName.charAt(0).toUpperCase() + sectionName.slice(1)} columns={columns} rows={rows} onRowsChange={onRowsChange} readOnly={readOnly} rowActions={rowActions} />
+      <DataGrid
+        label={sectionName.charAt(0).toUpperCase() + sectionName.slice(1)}
+        columns={columns}
+        rows={rows}
+        onRowsChange={onRowsChange}
+        readOnly={readOnly}
+        rowActions={rowActions}
+      />
       <Text fontSize="sm" color={withProblems > 0 ? 'fg.error' : 'fg.muted'} aria-live="polite">
         {filled.length} row{filled.length === 1 ? '' : 's'}
         {excluded > 0 && `, ${excluded} excluded`}

@@ -64,7 +64,10 @@ export function studiesColumns(sort: ServerSort) {
         </Stack>
       ),
     }),
-    column.accessor('status', { header: () => <SortHeader label="Status" by="status" sort={sort} />, cell: (info) => <StudyStatusBadge status={info.getValue()} /> }),
+    column.accessor('status', {
+      header: () => <SortHeader label="Status" by="status" sort={sort} />,
+      cell: (info) => <StudyStatusBadge status={info.getValue()} />,
+    }),
     column.accessor('verdictPass', {
       header: 'Verdict',
       cell: (info) => <CriterionMark pass={info.getValue()} />,
@@ -82,7 +85,13 @@ export function studiesColumns(sort: ServerSort) {
     }),
     column.display({
       id: 'open',
-      header: () => <Text srOnly>Open</Text>,
+      header: () => (
+        <Text as="span" position="relative">
+          <Text as="span" srOnly>
+            Open
+          </Text>
+        </Text>
+      ),
       meta: { align: 'end' },
       cell: (info) => {
         const study = info.row.original;

@@ -30,7 +30,17 @@ export function StudiesFilters({ filters, methods, onChange }: StudiesFiltersPro
 
   const active = Boolean(filters.status || filters.methodId || filters.mine || filters.from || filters.to || filters.q);
   return (
-    <Wrap gap="4" align="flex-end" borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p="4" role="search" aria-label="Filter the studies">
+    <Wrap
+      gap="4"
+      align="flex-end"
+      borderWidth="1px"
+      borderColor="border"
+      borderRadius="l3"
+      bg="bg.panel"
+      p="4"
+      role="search"
+      aria-label="Filter the studies"
+    >
       <Field.Root maxW="18rem">
         <Field.Label>Title contains</Field.Label>
         <Input value={q} onChange={(e) => setQ(e.target.value)} placeholder="e.g. nitrate" type="search" />
@@ -38,7 +48,10 @@ export function StudiesFilters({ filters, methods, onChange }: StudiesFiltersPro
       <Field.Root maxW="14rem">
         <Field.Label>Status</Field.Label>
         <NativeSelect.Root>
-          <NativeSelect.Field value={filters.status ?? ''} onChange={(e) => onChange({ ...filters, status: (e.target.value || undefined) as StudyStatus | undefined })}>
+          <NativeSelect.Field
+            value={filters.status ?? ''}
+            onChange={(e) => onChange({ ...filters, status: (e.target.value || undefined) as StudyStatus | undefined })}
+          >
             <option value="">Any status</option>
             {Object.entries(STUDY_STATUS_WORDS).map(([status, words]) => (
               <option key={status} value={status}>
@@ -52,7 +65,10 @@ export function StudiesFilters({ filters, methods, onChange }: StudiesFiltersPro
       <Field.Root maxW="20rem">
         <Field.Label>Method</Field.Label>
         <NativeSelect.Root>
-          <NativeSelect.Field value={filters.methodId ?? ''} onChange={(e) => onChange({ ...filters, methodId: e.target.value || undefined })}>
+          <NativeSelect.Field
+            value={filters.methodId ?? ''}
+            onChange={(e) => onChange({ ...filters, methodId: e.target.value || undefined })}
+          >
             <option value="">Any method</option>
             {methods.map((m) => (
               <option key={m.id} value={m.id}>

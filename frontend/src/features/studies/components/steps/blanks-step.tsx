@@ -10,7 +10,7 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
   const d = live.result?.detection;
   const x = (v: number | null | undefined) => `${formatNumber(v, 4)} ${units.x}`;
   return (
-    <Grid templateColumns={{ base: '1fr', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
       <Stack gap="10">
         <Stack gap="3">
           <Heading as="h2" size="lg">
@@ -34,8 +34,8 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
             Low-level spikes and method blanks for the MDL (optional)
           </Heading>
           <Text color="fg.muted">
-            Results in concentration units, as for 40 CFR 136 App. B: at least seven spiked samples near the expected limit, and method blank results. Write ND for a
-            blank without a numerical result.
+            Results in concentration units, as for 40 CFR 136 App. B: at least seven spiked samples near the expected limit, and method
+            blank results. Write ND for a blank without a numerical result.
           </Text>
           <SectionEditor
             studyId={server.id}
@@ -53,9 +53,13 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
       <LivePanel title="Detection limits as you type" live={live}>
         {d ? (
           <Stack gap="0">
-            {d.sdResidual && <FigureLine label="LOD / LOQ from the residual SD" value={`${x(d.sdResidual.lod)} / ${x(d.sdResidual.loq)}`} />}
+            {d.sdResidual && (
+              <FigureLine label="LOD / LOQ from the residual SD" value={`${x(d.sdResidual.lod)} / ${x(d.sdResidual.loq)}`} />
+            )}
             {d.blankSd && <FigureLine label="LOD / LOQ from the blank SD" value={`${x(d.blankSd.lod)} / ${x(d.blankSd.loq)}`} />}
-            {d.iso11843 && <FigureLine label="ISO 11843-2 critical / detectable" value={`${x(d.iso11843.criticalX)} / ${x(d.iso11843.detectableX)}`} />}
+            {d.iso11843 && (
+              <FigureLine label="ISO 11843-2 critical / detectable" value={`${x(d.iso11843.criticalX)} / ${x(d.iso11843.detectableX)}`} />
+            )}
             {d.epaMdl && <FigureLine label="Method detection limit" value={x(d.epaMdl.mdl)} />}
           </Stack>
         ) : (

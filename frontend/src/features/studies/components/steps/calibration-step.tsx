@@ -24,14 +24,15 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
   };
 
   return (
-    <Grid templateColumns={{ base: '1fr', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
       <Stack gap="10">
         <Stack gap="3">
           <Heading as="h2" size="lg">
             Calibration standards
           </Heading>
           <Text color="fg.muted">
-            One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same concentration.
+            One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same
+            concentration.
           </Text>
           <SectionEditor
             studyId={server.id}
@@ -50,7 +51,9 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
           <Heading as="h2" size="md">
             Samples read off the line (optional)
           </Heading>
-          <Text color="fg.muted">One row per reading; rows with the same sample name are replicates of that sample. The dilution factor multiplies the result.</Text>
+          <Text color="fg.muted">
+            One row per reading; rows with the same sample name are replicates of that sample. The dilution factor multiplies the result.
+          </Text>
           <SectionEditor
             studyId={server.id}
             section="unknowns"
@@ -67,7 +70,15 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
       <LivePanel title="Calibration as you type" live={live}>
         {live.result && c && (
           <>
-            <CalibrationPlot data={live.data} result={live.result} units={units} criteria={criteria} height={320} onPointClick={editable ? onPointClick : undefined} />
+            <CalibrationPlot
+              data={live.data}
+              result={live.result}
+              units={units}
+              criteria={criteria}
+              height={300}
+              compact
+              onPointClick={editable ? onPointClick : undefined}
+            />
             <Stack gap="0">
               <FigureLine label="Model" value={MODEL_LABELS[c.model] ?? c.model} />
               <FigureLine label="Standards used" value={`${c.n}${c.excluded.length ? ` (${c.excluded.length} excluded)` : ''}`} />
@@ -77,7 +88,8 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
               <FigureLine label="s(y/x)" value={formatNumber(c.sYX, 4)} />
             </Stack>
             <Text fontSize="xs" color="fg.muted">
-              Click a point to exclude it, with a reason, or to include it again. All figures and the verdict are on the Results step.
+              Filled circles: standards used; hollow: excluded; diamonds: samples. Click a point to exclude it, with a reason, or to include
+              it again. All figures and the verdict are on the Results step.
             </Text>
           </>
         )}

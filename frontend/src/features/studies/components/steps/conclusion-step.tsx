@@ -33,16 +33,18 @@ export function ConclusionStep({ controller, live, criteria }: DataStepProps) {
         <Field.HelperText>
           Saved with the study and shown to the reviewer. {conclusion.length} of {MAX_CONCLUSION} characters.
         </Field.HelperText>
-        {conclusion.length > MAX_CONCLUSION && <Field.ErrorText>Shorten the conclusion to at most {MAX_CONCLUSION} characters.</Field.ErrorText>}
+        {conclusion.length > MAX_CONCLUSION && (
+          <Field.ErrorText>Shorten the conclusion to at most {MAX_CONCLUSION} characters.</Field.ErrorText>
+        )}
       </Field.Root>
       <Alert.Root status="warning" variant="subtle">
         <Alert.Indicator />
         <Alert.Content>
           <Alert.Title>Before results are used</Alert.Title>
           <Alert.Description>
-            Meritline computes the figures of merit from the data entered, by the formulas of the standards it names. A study supports, and does not replace,
-            your laboratory's procedures, a qualified second person's review and the regulations that apply to the results, above all where they bear on public
-            health, such as drinking water, or on the release of products.
+            Meritline computes the figures of merit from the data entered, by the formulas of the standards it names. A study supports, and
+            does not replace, your laboratory's procedures, a qualified second person's review and the regulations that apply to the
+            results, above all where they bear on public health, such as drinking water, or on the release of products.
           </Alert.Description>
         </Alert.Content>
       </Alert.Root>

@@ -1,11 +1,14 @@
-import { Badge, Button, CloseButton, Dialog, Field, HStack, Portal, Text, Textarea } from '@chakra-ui/react';
-import { useState } from 'react';
+import { Button, CloseButton, Dialog, Field, Portal, Text, Textarea } from '@chakra-ui/react';
+import { useRef, useState } from 'react';
 import { toaster } from '@/components/ui/toaster';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
 import type { GridRow } from '../../utils/grid-sections';
 
-export const setSheet = (controller: StudyDraftController, section: keyof StudyDraftController['draft']['data']['sheets'], rows: GridRow[]) =>
-  controller.change((d) => ({ ...d, data: { ...d.data, sheets: { ...d.data.sheets, [section]: rows } } }));
+export const setSheet = (
+  controller: StudyDraftController,
+  section: keyof StudyDraftController['draft']['data']['sheets'],
+  rows: GridRow[],
+) => controller.change((d) => ({ ...d, data: { ...d.data, sheets: { ...d.data.sheets, [section]: rows } } }));
 
 const describe = (row: GridRow) => `x = ${row.cells.x ?? '?'}, y = ${row.cells.y ?? '?'}`;
 
@@ -17,6 +20,7 @@ export function useStandardExclusion(controller: StudyDraftController) {
   const [target, setTarget] = useState<GridRow | null>(null);
   const [reason, setReason] = useState('');
   const [touched, setTouched] = useState(false);
+  const reasonInput = useRef<HTMLTextAreaElement>(null);
   const rows = controller.draft.data.sheets.standards;
 
   const setExcluded = (rowId: string, excluded: { reason: string } | undefined) =>
@@ -53,7 +57,7 @@ export function useStandardExclusion(controller: StudyDraftController) {
   };
 
   const dialog = (
-    <Dialog.Root open={target !== null} onOpenChange={(e) => !e.open && setTarget(null)} initialFocusEl={() => document.getElementById('exclusion-reason')}>
+    <Dialog.Root open={target !== null} onOpenChange={(e) => !e.open && setTarget(null)} initialFocusEl={() => reasonInput.current}>
       <Portal>
         <Dialog.Backdrop />
         <Dialog.Positioner>
@@ -63,15 +67,15 @@ export function useStandardExclusion(controller: StudyDraftController) {
             </Dialog.Header>
             <Dialog.Body>
               <Text mb="4" color="fg.muted">
-                The point stays in the study, shown hollow, and is left out of every figure. Exclude only for an assignable cause, such as a bubble in the cell
-                or a failed injection; the reason goes on record and can be read by the reviewer.
+                The point stays in the study, shown hollow, and is left out of every figure. Exclude only for an assignable cause, such as a
+                bubble in the cell or a failed injection; the reason goes on record and can be read by the reviewer.
               </Text>
               <Field.Root invalid={touched && invalid} required>
                 <Field.Label>
                   Reason
                   <Field.RequiredIndicator />
                 </Field.Label>
-                <Textarea id="exclusion-reason" value={reason} onChange={(e) => setReason(e.target.value)} rows={2} />
+                <Textarea ref={reasonInput} value={reason} onChange={(e) => setReason(e.target.value)} rows={2} />
                 {touched && invalid && <Field.ErrorText>Say why the point is excluded (at least 3 characters).</Field.ErrorText>}
               </Field.Root>
             </Dialog.Body>
@@ -90,23 +94,11 @@ export function useStandardExclusion(controller: StudyDraftController) {
     </Dialog.Root>
   );
 
-  const rowActions = (row: GridRow) =>
-    row.excluded ? (
-      <HStack gap="1">
-        <Badge colorPalette="gray" variant="outline" maxW="14rem" title={row.excluded.reason}>
-          <Text as="span" truncate>
-            Excluded: {row.excluded.reason}
-          </Text>
-        </Badge>
-        <Button size="xs" variant="ghost" onClick={() => toggle(row.id)} disabled={!controller.editable}>
-          Include
-        </Button>
-      </HStack>
-    ) : (
-      <Button size="xs" variant="ghost" onClick={() => toggle(row.id)} disabled={!controller.editable}>
-        Exclude…
-      </Button>
-    );
+  const rowActions = (row: GridRow) => (
+    <Button size="xs" variant="ghost" onClick={() => toggle(row.id)} disabled={!controller.editable}>
+      {row.excluded ? 'Include again' : 'Exclude…'}
+    </Button>
+  );
 
   return { toggle, dialog, rowActions };
 }

@@ -7,7 +7,17 @@ const sentence = (text: string) => text.charAt(0).toUpperCase() + text.slice(1).
 /** A side panel whose figures follow the grid as it is typed, computed in the browser. */
 export function LivePanel({ title, live, children }: { title: string; live: LiveEvaluation; children: ReactNode }) {
   return (
-    <Box as="aside" aria-label={title} borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p="4" position={{ xl: 'sticky' }} top={{ xl: '24' }}>
+    <Box
+      as="aside"
+      aria-label={title}
+      borderWidth="1px"
+      borderColor="border"
+      borderRadius="l3"
+      bg="bg.panel"
+      p="4"
+      position={{ xl: 'sticky' }}
+      top={{ xl: '24' }}
+    >
       <Stack gap="3">
         <HStack justify="space-between">
           <Heading as="h2" size="sm">

@@ -11,18 +11,25 @@ export function PrecisionStep({ controller, live, units }: DataStepProps) {
   const p = live.result?.precision;
   const massFraction = draft.data.settings.massFraction;
   const parsed = parseDecimal(massFraction);
-  const massFractionProblem = massFraction.trim() === '' ? null : parsed === null ? 'Not a number' : parsed <= 0 || parsed > 1 ? 'A mass fraction lies above 0 and at most 1' : null;
+  const massFractionProblem =
+    massFraction.trim() === ''
+      ? null
+      : parsed === null
+        ? 'Not a number'
+        : parsed <= 0 || parsed > 1
+          ? 'A mass fraction lies above 0 and at most 1'
+          : null;
 
   return (
-    <Grid templateColumns={{ base: '1fr', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
       <Stack gap="6">
         <Stack gap="3">
           <Heading as="h2" size="lg">
             Precision
           </Heading>
           <Text color="fg.muted">
-            Results of the same sample measured repeatedly, grouped in series (days, analysts or instruments). Repeatability comes from the scatter within a series,
-            intermediate precision adds the scatter between series.
+            Results of the same sample measured repeatedly, grouped in series (days, analysts or instruments). Repeatability comes from the
+            scatter within a series, intermediate precision adds the scatter between series.
           </Text>
           <SectionEditor
             studyId={server.id}

@@ -9,14 +9,14 @@ export function RecoveryStep({ controller, live, units }: DataStepProps) {
   const { draft, server, editable, prepareImport, adopt } = controller;
   const r = live.result?.recovery;
   return (
-    <Grid templateColumns={{ base: '1fr', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
       <Stack gap="3">
         <Heading as="h2" size="lg">
           Recovery
         </Heading>
         <Text color="fg.muted">
-          One row per spiked sample: the amount added, the amount found and, for a sample that already contained the analyte, the native amount. Group spikes by
-          level (low, mid, high) to see recovery per level.
+          One row per spiked sample: the amount added, the amount found and, for a sample that already contained the analyte, the native
+          amount. Group spikes by level (low, mid, high) to see recovery per level.
         </Text>
         <SectionEditor
           studyId={server.id}
@@ -34,9 +34,16 @@ export function RecoveryStep({ controller, live, units }: DataStepProps) {
         {r ? (
           <Stack gap="0">
             {r.byLevel.map((g) => (
-              <FigureLine key={g.level ?? '-'} label={`Level ${g.level ?? '(none)'} · ${g.n} spikes`} value={`${formatPercent(g.meanPct)} (RSD ${formatPercent(g.rsdPct, 3)})`} />
+              <FigureLine
+                key={g.level ?? '-'}
+                label={`Level ${g.level ?? '(none)'} · ${g.n} spikes`}
+                value={`${formatPercent(g.meanPct)} (RSD ${formatPercent(g.rsdPct, 3)})`}
+              />
             ))}
-            <FigureLine label={`All levels · ${r.overall.n} spikes`} value={`${formatPercent(r.overall.meanPct)} (RSD ${formatPercent(r.overall.rsdPct, 3)})`} />
+            <FigureLine
+              label={`All levels · ${r.overall.n} spikes`}
+              value={`${formatPercent(r.overall.meanPct)} (RSD ${formatPercent(r.overall.rsdPct, 3)})`}
+            />
           </Stack>
         ) : (
           <Text fontSize="sm" color="fg.muted">

@@ -1,7 +1,17 @@
 import { Alert, Box, Button, Field, Grid, Heading, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
 import { ENGINE_VERSION, MODELS, type CalibrationModel, type Weighting } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { CalibrationPlot, formatNumber, formatPercent, MODEL_LABELS, ResidualPlot, StudyFigures, StudyFlags, VerdictSummary, WEIGHTING_LABELS } from '@/components/study-results';
+import {
+  CalibrationPlot,
+  formatNumber,
+  formatPercent,
+  MODEL_LABELS,
+  ResidualPlot,
+  StudyFigures,
+  StudyFlags,
+  VerdictSummary,
+  WEIGHTING_LABELS,
+} from '@/components/study-results';
 import type { LiveEvaluation } from '../../hooks/use-live-evaluation';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
 import { resultDifferences } from '../../utils/compare-results';
@@ -45,7 +55,13 @@ const standardColumns = column.columns([
   }),
   column.display({
     id: 'action',
-    header: () => <Text srOnly>Action</Text>,
+    header: () => (
+      <Text as="span" position="relative">
+        <Text as="span" srOnly>
+          Action
+        </Text>
+      </Text>
+    ),
     meta: { align: 'end' },
     cell: (info) =>
       info.row.original.canToggle && (
@@ -72,7 +88,8 @@ function ServerCheck({ controller, live }: { controller: StudyDraftController; l
       <Alert.Root status="info" variant="subtle" size="sm">
         <Alert.Indicator />
         <Alert.Description>
-          The server has no result for the saved data yet{server.resultErrors?.length ? `: ${server.resultErrors.map((e) => e.message).join('; ')}` : '.'}
+          The server has no result for the saved data yet
+          {server.resultErrors?.length ? `: ${server.resultErrors.map((e) => e.message).join('; ')}` : '.'}
         </Alert.Description>
       </Alert.Root>
     );
@@ -83,8 +100,8 @@ function ServerCheck({ controller, live }: { controller: StudyDraftController; l
       <Alert.Root status="warning" variant="subtle" size="sm" data-testid="server-differs">
         <Alert.Indicator />
         <Alert.Description>
-          The server's result for the saved data differs from the browser's in: {differences.join(', ')}. The server's result is the one on record (engine{' '}
-          {server.engineVersion}; this browser runs {ENGINE_VERSION}). Reload the page to see it.
+          The server's result for the saved data differs from the browser's in: {differences.join(', ')}. The server's result is the one on
+          record (engine {server.engineVersion}; this browser runs {ENGINE_VERSION}). Reload the page to see it.
         </Alert.Description>
       </Alert.Root>
     );
@@ -194,12 +211,18 @@ export function ResultsStep({ controller, live, units, criteria }: DataStepProps
             </Heading>
             <StudyFlags result={result} units={units} />
           </Stack>
-          <Grid templateColumns={{ base: '1fr', xl: '3fr 2fr' }} gap="6">
+          <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(0, 2fr)' }} gap="6">
             <Stack gap="2">
               <Heading as="h2" size="lg">
                 Calibration
               </Heading>
-              <CalibrationPlot data={live.data} result={result} units={units} criteria={criteria} onPointClick={editable ? onPointClick : undefined} />
+              <CalibrationPlot
+                data={live.data}
+                result={result}
+                units={units}
+                criteria={criteria}
+                onPointClick={editable ? onPointClick : undefined}
+              />
             </Stack>
             <Stack gap="2">
               <Heading as="h2" size="lg">
@@ -215,7 +238,13 @@ export function ResultsStep({ controller, live, units, criteria }: DataStepProps
             <Text color="fg.muted" fontSize="sm">
               Exclude a standard here or by clicking its point in the plot; a reason is required and the exclusion can be undone.
             </Text>
-            <DataTable label="Standards and their back-calculated concentrations" columns={standardColumns} data={standardRows} getRowId={(row) => row.id} pageSize={20} />
+            <DataTable
+              label="Standards and their back-calculated concentrations"
+              columns={standardColumns}
+              data={standardRows}
+              getRowId={(row) => row.id}
+              pageSize={20}
+            />
           </Stack>
           <Stack gap="3">
             <Heading as="h2" size="lg">

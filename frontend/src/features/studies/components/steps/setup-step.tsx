@@ -79,7 +79,9 @@ export function SetupStep({ controller }: { controller: StudyDraftController }) 
               <DataList.ItemValue>
                 <HStack gap="2">
                   <Text>Version {methodVersion.number}</Text>
-                  <Badge colorPalette={methodVersion.status === 'active' ? 'brand' : methodVersion.status === 'draft' ? 'accent' : 'gray'}>{methodVersion.status}</Badge>
+                  <Badge colorPalette={methodVersion.status === 'active' ? 'brand' : methodVersion.status === 'draft' ? 'accent' : 'gray'}>
+                    {methodVersion.status}
+                  </Badge>
                 </HStack>
               </DataList.ItemValue>
             </DataList.Item>

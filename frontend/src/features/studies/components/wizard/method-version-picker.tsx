@@ -18,7 +18,17 @@ export function defaultVersion(method: MethodChoice | undefined): string {
   return (versions.find((v) => v.status === 'active') ?? versions.find((v) => v.status === 'draft'))?.id ?? '';
 }
 
-export function MethodSelect({ methods, value, onChange, invalid }: { methods: readonly MethodChoice[]; value: string; onChange: (methodId: string) => void; invalid?: boolean }) {
+export function MethodSelect({
+  methods,
+  value,
+  onChange,
+  invalid,
+}: {
+  methods: readonly MethodChoice[];
+  value: string;
+  onChange: (methodId: string) => void;
+  invalid?: boolean;
+}) {
   return (
     <NativeSelect.Root invalid={invalid}>
       <NativeSelect.Field value={value} onChange={(e) => onChange(e.target.value)} aria-label="Method">
@@ -34,7 +44,15 @@ export function MethodSelect({ methods, value, onChange, invalid }: { methods: r
   );
 }
 
-export function VersionPicker({ method, value, onChange }: { method: MethodChoice | undefined; value: string; onChange: (versionId: string) => void }) {
+export function VersionPicker({
+  method,
+  value,
+  onChange,
+}: {
+  method: MethodChoice | undefined;
+  value: string;
+  onChange: (versionId: string) => void;
+}) {
   if (!method) return <Text color="fg.muted">Choose a method first.</Text>;
   const versions = [...method.versions].sort((a, b) => b.number - a.number);
   return (
@@ -71,7 +89,12 @@ export function VersionPicker({ method, value, onChange }: { method: MethodChoic
                     </Text>
                   </HStack>
                   <Box as="span" display="block" fontSize="sm" color={disabled ? 'fg.muted' : 'fg'} mt="1">
-                    {disabled ? `Not selectable: ${words.note.toLowerCase()}` : words.note} {v.changeSummary && <Text as="span" color="fg.muted">{v.changeSummary}</Text>}
+                    {disabled ? `Not selectable: ${words.note.toLowerCase()}` : words.note}{' '}
+                    {v.changeSummary && (
+                      <Text as="span" color="fg.muted">
+                        {v.changeSummary}
+                      </Text>
+                    )}
                   </Box>
                 </RadioGroup.ItemText>
               </RadioGroup.Item>

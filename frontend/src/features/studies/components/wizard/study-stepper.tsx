@@ -15,8 +15,8 @@ export interface StudyStepperProps {
 /** The seven steps of a study; any step can be opened at any time, the draft saves itself. */
 export function StudyStepper({ studyId, current, notes }: StudyStepperProps) {
   return (
-    <Box as="nav" aria-label="Study steps" overflowX="auto" mb="8">
-      <Flex as="ol" gap="1" minW="max-content" listStyleType="none" borderBottomWidth="1px" borderColor="border">
+    <Box as="nav" aria-label="Study steps" mb="8">
+      <Flex as="ol" gap="1" wrap="wrap" listStyleType="none" borderBottomWidth="1px" borderColor="border">
         {WIZARD_STEPS.map((step) => {
           const active = step.number === current;
           return (
