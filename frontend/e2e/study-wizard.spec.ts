@@ -203,6 +203,8 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await page.getByLabel('Title contains').fill('Tartrazine by UV-Vis');
   const row = page.getByRole('table', { name: 'Validation studies' }).getByRole('row', { name: new RegExp(TITLE) });
   await expect(row).toContainText('Draft');
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await page.screenshot({ path: 'test-output/screenshots/studies-list.png', fullPage: true });
   await row.getByRole('link', { name: `Resume ${TITLE}` }).click();
   await expect(
     page.getByRole('table', { name: 'Calibration standards' }).getByText('Excluded: Bubble in the cell, seen after the reading'),

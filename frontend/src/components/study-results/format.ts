@@ -129,8 +129,17 @@ export function figureLabel(figure: string): string {
   return path;
 }
 
-export function figureUnit(figure: string): string | undefined {
-  return PERCENT_FIGURE.test(figure) ? '%' : undefined;
+/** Figures in concentration (x) and response (y) units; the rest are ratios, statistics or counts. */
+const X_FIGURE =
+  /^(detection\.[^.]+\.(lod|loq|mdl|mdlSpiked|mdlBlank|criticalX|detectableX|responseLodX|responseLoqX)|precision\.(sR|sI|sBetween|grandMean)|range\.(low|high)|unknowns\..+\.x0)$/;
+const Y_FIGURE = /^(calibration\.(intercept|sYX|seIntercept)|detection\.[^.]+\.(criticalResponse|responseLod|responseLoq))$/;
+
+export function figureUnit(figure: string, units: { x?: string; y?: string } = {}): string | undefined {
+  const path = figure.replace(/\[(\w+)\]/g, '.$1');
+  if (PERCENT_FIGURE.test(path)) return '%';
+  if (X_FIGURE.test(path)) return units.x;
+  if (Y_FIGURE.test(path)) return units.y;
+  return undefined;
 }
 
 export function criterionName(criterion: Pick<CriterionDefinition, 'figure' | 'label'>): string {

@@ -18,8 +18,9 @@ const sameThreshold = (a: number | [number, number], b: number | [number, number
 /** Pairs each criterion of the method with the engine's outcome for it (the verdict keeps the criteria's order). */
 export function judgeCriteria(criteria: readonly CriterionDefinition[], result: EvaluationResult | null): JudgedCriterion[] {
   const outcomes = [...(result?.verdict.criteria ?? [])];
+  const units = result?.units ?? {};
   if (criteria.length === 0) {
-    return outcomes.map((o) => ({ ...o, name: criterionName(o), unit: figureUnit(o.figure) }));
+    return outcomes.map((o) => ({ ...o, name: criterionName(o), unit: figureUnit(o.figure, units) }));
   }
   return criteria.map((criterion) => {
     const at = outcomes.findIndex(
@@ -31,7 +32,7 @@ export function judgeCriteria(criteria: readonly CriterionDefinition[], result: 
       op: criterion.op,
       threshold: criterion.value,
       name: criterionName(criterion),
-      unit: figureUnit(criterion.figure),
+      unit: figureUnit(criterion.figure, units),
       value: outcome ? outcome.value : null,
       pass: outcome ? outcome.pass : null,
     };

@@ -44,7 +44,7 @@ function TemplatePreview({ templates }: { templates: readonly CriteriaTemplateDt
       <Text fontSize="sm" color="fg.muted">
         {template.description}
       </Text>
-      <CriteriaList criteria={template.criteria} label={`Criteria of ${template.name}`} />
+      <CriteriaList criteria={template.criteria} label={`Criteria of ${template.name}`} units={{ x: values.xUnit, y: values.yUnit }} />
       {template.note && (
         <Alert.Root status="info" variant="subtle">
           <Alert.Indicator />

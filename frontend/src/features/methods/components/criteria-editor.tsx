@@ -47,8 +47,8 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
             const prefix = `${name}.${i}`;
             return (
               <Box key={i} borderWidth="1px" borderColor="border" borderRadius="l2" p="3" role="group" aria-label={`Criterion ${i + 1}`}>
-                <Grid templateColumns={{ base: '1fr', md: '2fr 2fr 1.4fr 1fr 1fr auto' }} gap="3" alignItems="start">
-                  <Field.Root invalid={Boolean(errorAt(i, 'figure'))}>
+                <Grid templateColumns={{ base: 'minmax(0, 1fr)', md: 'repeat(8, minmax(0, 1fr))' }} gap="3" alignItems="start">
+                  <Field.Root invalid={Boolean(errorAt(i, 'figure'))} gridColumn={{ md: 'span 4' }}>
                     <Field.Label>Figure</Field.Label>
                     <Input
                       list={listId}
@@ -64,7 +64,7 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                       row.figure && <Field.HelperText>{figureLabel(row.figure)}</Field.HelperText>
                     )}
                   </Field.Root>
-                  <Field.Root invalid={Boolean(errorAt(i, 'label'))}>
+                  <Field.Root invalid={Boolean(errorAt(i, 'label'))} gridColumn={{ md: 'span 4' }}>
                     <Field.Label>Name shown to people</Field.Label>
                     <Input
                       value={row.label}
@@ -73,7 +73,7 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                     />
                     {errorAt(i, 'label') && <Field.ErrorText>{errorAt(i, 'label')}</Field.ErrorText>}
                   </Field.Root>
-                  <Field.Root>
+                  <Field.Root gridColumn={{ md: 'span 3' }}>
                     <Field.Label>Comparison</Field.Label>
                     <NativeSelect.Root>
                       <NativeSelect.Field value={row.op} onChange={(e) => void setFieldValue(`${prefix}.op`, e.target.value)}>
@@ -86,7 +86,7 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                       <NativeSelect.Indicator />
                     </NativeSelect.Root>
                   </Field.Root>
-                  <Field.Root invalid={Boolean(errorAt(i, 'value'))}>
+                  <Field.Root invalid={Boolean(errorAt(i, 'value'))} gridColumn={{ md: 'span 2' }}>
                     <Field.Label>{row.op === 'between' ? 'From' : 'Limit'}</Field.Label>
                     <Input
                       inputMode="decimal"
@@ -97,7 +97,7 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                     {errorAt(i, 'value') && <Field.ErrorText>{errorAt(i, 'value')}</Field.ErrorText>}
                   </Field.Root>
                   {row.op === 'between' ? (
-                    <Field.Root invalid={Boolean(errorAt(i, 'high'))}>
+                    <Field.Root invalid={Boolean(errorAt(i, 'high'))} gridColumn={{ md: 'span 2' }}>
                       <Field.Label>To</Field.Label>
                       <Input
                         inputMode="decimal"
@@ -108,9 +108,9 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                       {errorAt(i, 'high') && <Field.ErrorText>{errorAt(i, 'high')}</Field.ErrorText>}
                     </Field.Root>
                   ) : (
-                    <Box display={{ base: 'none', md: 'block' }} />
+                    <Box display={{ base: 'none', md: 'block' }} gridColumn={{ md: 'span 2' }} />
                   )}
-                  <HStack pt={{ base: '0', md: '6' }}>
+                  <HStack pt={{ base: '0', md: '6' }} justify="flex-end">
                     <IconButton
                       size="sm"
                       variant="ghost"

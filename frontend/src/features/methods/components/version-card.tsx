@@ -9,11 +9,14 @@ import { VersionStatusBadge, versionStatusHint } from './version-status-badge';
 export interface VersionCardProps {
   method: MethodDto;
   version: MethodVersionDto;
-  /** Quality managers and administrators edit drafts and change status. */
+  /** Quality managers and administrators change the status. */
   canManage: boolean;
+  /** Who may edit this version while it is a draft. */
+  canEdit: boolean;
 }
 
-export function VersionCard({ method, version, canManage }: VersionCardProps) {
+export function VersionCard({ method, version, canManage, canEdit }: VersionCardProps) {
+  const active = method.versions.find((v) => v.status === 'active' && v.id !== version.id);
   const { settings } = version;
   return (
     <Box
@@ -39,14 +42,12 @@ export function VersionCard({ method, version, canManage }: VersionCardProps) {
               {versionStatusHint(version.status)} Created {formatDateTime(version.createdAt)} by {version.createdBy.name}.
             </Text>
           </Stack>
-          {canManage && (
-            <HStack gap="2" wrap="wrap">
-              {version.status === 'draft' && (
-                <VersionFormDialog method={method} mode="edit" version={version} triggerLabel="Edit criteria and settings" />
-              )}
-              <VersionStatusAction version={version} />
-            </HStack>
-          )}
+          <HStack gap="2" wrap="wrap">
+            {canEdit && version.status === 'draft' && (
+              <VersionFormDialog method={method} mode="edit" version={version} triggerLabel="Edit criteria and settings" />
+            )}
+            {canManage && <VersionStatusAction version={version} replaces={active?.number} />}
+          </HStack>
         </HStack>
         <Text whiteSpace="pre-wrap">{version.changeSummary}</Text>
         <DataList.Root orientation="horizontal" size="sm" variant="subtle">
@@ -71,7 +72,11 @@ export function VersionCard({ method, version, canManage }: VersionCardProps) {
             </DataList.ItemValue>
           </DataList.Item>
         </DataList.Root>
-        <CriteriaList criteria={version.criteria} label={`Acceptance criteria of version ${version.number}`} />
+        <CriteriaList
+          criteria={version.criteria}
+          label={`Acceptance criteria of version ${version.number}`}
+          units={{ x: method.xUnit, y: method.yUnit }}
+        />
       </Stack>
     </Box>
   );

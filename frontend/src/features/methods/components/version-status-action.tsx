@@ -21,7 +21,13 @@ const ACTIONS: Partial<Record<MethodVersionStatus, { to: MethodVersionStatus; la
 };
 
 /** Moves a version on: draft → active, active → retired (quality managers and administrators). */
-export function VersionStatusAction({ version }: { version: MethodVersionDto }) {
+export function VersionStatusAction({
+  version,
+  replaces,
+}: {
+  version: MethodVersionDto;
+  /** The number of the version now active, which activation retires. */ replaces?: number;
+}) {
   const [open, setOpen] = useState(false);
   const changeStatus = useChangeVersionStatus(version);
   const action = ACTIONS[version.status];
@@ -63,6 +69,9 @@ export function VersionStatusAction({ version }: { version: MethodVersionDto }) 
             </Dialog.Header>
             <Dialog.Body>
               <Text>{action.explain}</Text>
+              {action.to === 'active' && replaces !== undefined && (
+                <Text mt="3">Version {replaces}, active until now, will be retired.</Text>
+              )}
             </Dialog.Body>
             <Dialog.Footer>
               <Dialog.ActionTrigger asChild>

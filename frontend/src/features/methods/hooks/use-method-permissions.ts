@@ -7,5 +7,7 @@ export function useMethodPermissions() {
   const roles = user?.roles ?? [];
   const canManage = hasAnyRole(roles, [Role.QualityManager, Role.Admin]);
   const canPropose = canManage || hasAnyRole(roles, [Role.Analyst]);
-  return { canManage, canPropose };
+  /** Analysts may still edit the drafts they proposed themselves. */
+  const canEditDraft = (createdById: string) => canManage || (canPropose && createdById === user?.id);
+  return { canManage, canPropose, canEditDraft };
 }

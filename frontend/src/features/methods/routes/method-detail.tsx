@@ -14,7 +14,7 @@ import { VersionFormDialog } from '../components/version-form-dialog';
 export default function MethodDetailPage() {
   const { methodId = '' } = useParams();
   const method = useQuery(methodsQueries.detail(methodId));
-  const { canManage, canPropose } = useMethodPermissions();
+  const { canManage, canPropose, canEditDraft } = useMethodPermissions();
 
   if (method.isPending) return <PageSpinner label="Loading the method" />;
   if (method.isError)
@@ -85,7 +85,7 @@ export default function MethodDetailPage() {
             </Text>
           </HStack>
           {versions.map((version) => (
-            <VersionCard key={version.id} method={m} version={version} canManage={canManage} />
+            <VersionCard key={version.id} method={m} version={version} canManage={canManage} canEdit={canEditDraft(version.createdBy.id)} />
           ))}
         </Stack>
       </Stack>

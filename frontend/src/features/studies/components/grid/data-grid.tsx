@@ -92,7 +92,7 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
 
   return (
     <Box ref={gridRef} borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" overflow="hidden">
-      <Table.ScrollArea maxH="32rem" overflowY="auto">
+      <Table.ScrollArea maxH="36rem" overflowY="auto">
         <Table.Root size="sm" aria-label={label} stickyHeader>
           <Table.Header>
             <Table.Row bg="bg.subtle">
