@@ -2,10 +2,12 @@ import { Badge, Box, DataList, Field, Heading, HStack, Input, Link, SimpleGrid, 
 import { useState } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { ValidationError } from 'yup';
+import { useSession } from '@/features/auth/use-session';
 import { paths } from '@/lib/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { studyDetailsSchema, type StudyDetailsValues } from '../../api/study-details-rules';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
+import { DeleteDraft } from './delete-draft';
 
 function problemsOf(values: StudyDetailsValues): Partial<Record<keyof StudyDetailsValues, string>> {
   try {
@@ -20,6 +22,7 @@ function problemsOf(values: StudyDetailsValues): Partial<Record<keyof StudyDetai
 /** Step 1 of an existing study: what it validates (fixed) and its bench facts (saved as typed, once valid). */
 export function SetupStep({ controller }: { controller: StudyDraftController }) {
   const { draft, server, editable, change } = controller;
+  const { user } = useSession();
   const [values, setValues] = useState<StudyDetailsValues>(() => ({
     title: draft.title,
     instrument: draft.meta.instrument ?? '',
@@ -80,7 +83,7 @@ export function SetupStep({ controller }: { controller: StudyDraftController }) 
                 <HStack gap="2">
                   <Text>Version {methodVersion.number}</Text>
                   <Badge colorPalette={methodVersion.status === 'active' ? 'brand' : methodVersion.status === 'draft' ? 'accent' : 'gray'}>
-                    {methodVersion.status}
+                    {{ draft: 'Draft', active: 'Active', retired: 'Retired' }[methodVersion.status]}
                   </Badge>
                 </HStack>
               </DataList.ItemValue>
@@ -117,6 +120,7 @@ export function SetupStep({ controller }: { controller: StudyDraftController }) 
           {field('finishedOn', 'Finished on', 'date')}
         </SimpleGrid>
       </Stack>
+      {server.status === 'draft' && server.author.id === user?.id && <DeleteDraft study={server} />}
     </Stack>
   );
 }
