@@ -86,7 +86,7 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await expect(page.getByRole('table', { name: 'Validation studies' })).toBeVisible();
 
   // Step 1: the method and version; a retired version would be shown, not selectable.
-  await page.getByRole('link', { name: 'New study' }).click();
+  await page.getByRole('link', { name: 'New study', exact: true }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'New validation study' })).toBeVisible();
   const method = page.getByLabel('Method', { exact: true });
   await method.selectOption({ label: NITRATE });
