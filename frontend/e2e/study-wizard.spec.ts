@@ -69,8 +69,14 @@ async function shot(page: Page, step: number) {
   await page.screenshot({ path: `test-output/screenshots/wizard-step-${step}.png`, fullPage: true });
 }
 const saveStatus = (page: Page) => page.getByTestId('save-status');
-const step = (page: Page, name: string) =>
-  page.getByRole('navigation', { name: 'Study steps' }).getByRole('link', { name: new RegExp(name) });
+/** Opens a step and waits until it is on screen (the old step stays visible while the new one renders). */
+async function openStep(page: Page, name: string, number: number) {
+  await page
+    .getByRole('navigation', { name: 'Study steps' })
+    .getByRole('link', { name: new RegExp(name) })
+    .click();
+  await expect(page.getByText(`Validation study · step ${number} of 7: ${name}`)).toBeVisible();
+}
 
 async function pasteInto(page: Page, text: string, rows: number) {
   await page.getByRole('button', { name: 'Paste from a spreadsheet' }).first().click();
@@ -131,7 +137,7 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await shot(page, 2);
 
   // Step 3: blanks uploaded as CSV, previewed and mapped by the server, then imported.
-  await step(page, 'Blanks and low-level spikes').click();
+  await openStep(page, 'Blanks and low-level spikes', 3);
   const folder = join(tmpdir(), `meritline-wizard-${Date.now()}`);
   mkdirSync(folder, { recursive: true });
   const csv = join(folder, 'blanks-uv2.csv');
@@ -150,18 +156,18 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await shot(page, 3);
 
   // Steps 4 and 5: recovery and precision, pasted.
-  await step(page, 'Recovery').click();
+  await openStep(page, 'Recovery', 4);
   await pasteInto(page, RECOVERY, 9);
   await expect(page.getByRole('complementary', { name: 'Recovery as you type' })).toContainText('All levels · 9 spikes');
   await shot(page, 4);
-  await step(page, 'Precision').click();
+  await openStep(page, 'Precision', 5);
   await pasteInto(page, PRECISION, 9);
   await expect(page.getByRole('complementary', { name: 'Precision as you type' })).toContainText('3 / 9');
   await expect(saveStatus(page)).toContainText('Saved', { timeout: 20_000 });
   await shot(page, 5);
 
   // Step 6: every figure, the plots, the verdict; the server confirms the browser's figures.
-  await step(page, 'Results').click();
+  await openStep(page, 'Results', 6);
   await expect(page.getByTestId('verdict-summary')).toContainText('acceptance criteria');
   await expect(
     page
@@ -190,7 +196,7 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await shot(page, 6);
 
   // Step 7: the conclusion, with the caution; the draft saves itself.
-  await step(page, 'Conclusion').click();
+  await openStep(page, 'Conclusion', 7);
   await page
     .getByLabel('Your conclusion')
     .fill('Linear from 1 to 12 mg/L after excluding one reading with a bubble; recovery and precision meet the assay criteria.');
@@ -209,6 +215,6 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await expect(
     page.getByRole('table', { name: 'Calibration standards' }).getByText('Excluded: Bubble in the cell, seen after the reading'),
   ).toBeVisible();
-  await step(page, 'Conclusion').click();
+  await openStep(page, 'Conclusion', 7);
   await expect(page.getByLabel('Your conclusion')).toHaveValue(/Linear from 1 to 12 mg\/L/);
 });
