@@ -12,7 +12,7 @@ export const methodsColumns = column.columns([
     header: 'Method',
     sortFn: 'text',
     cell: (info) => (
-      <Stack gap="0">
+      <Stack gap="0" whiteSpace="normal" minW="14rem">
         <Link asChild fontWeight="600" color="brand.fg">
           <RouterLink to={paths.methodDetail.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
         </Link>
@@ -22,7 +22,15 @@ export const methodsColumns = column.columns([
       </Stack>
     ),
   }),
-  column.accessor('technique', { header: 'Technique', sortFn: 'text' }),
+  column.accessor('technique', {
+    header: 'Technique',
+    sortFn: 'text',
+    cell: (info) => (
+      <Text whiteSpace="normal" minW="12rem" maxW="22rem">
+        {info.getValue()}
+      </Text>
+    ),
+  }),
   column.accessor((m) => `${m.xUnit} / ${m.yUnit}`, { id: 'units', header: 'Units (x / y)', enableSorting: false }),
   column.accessor((m) => Math.max(0, ...m.versions.map((v) => v.number)), {
     id: 'versions',

@@ -1,4 +1,4 @@
-import { Button, chakra, Link, Stack, Text } from '@chakra-ui/react';
+import { Button, chakra, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from '@/components/study-results';
@@ -43,6 +43,7 @@ function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: S
 }
 
 const column = dataTableColumns<StudySummary>();
+const dateOnly = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
 
 const isEditable = (study: StudySummary) => study.status === 'draft' || study.status === 'returned';
 /** Drafts open in the wizard; submitted and approved studies on their read-only review page. */
@@ -54,12 +55,12 @@ export function studiesColumns(sort: ServerSort) {
     column.accessor('title', {
       header: () => <SortHeader label="Title" by="title" sort={sort} />,
       cell: (info) => (
-        <Stack gap="0">
+        <Stack gap="0" whiteSpace="normal" minW="16rem">
           <Link asChild fontWeight="600" color="brand.fg">
             <RouterLink to={studyHref(info.row.original)}>{info.getValue()}</RouterLink>
           </Link>
           <Text fontSize="sm" color="fg.muted">
-            {info.row.original.method.name}, version {info.row.original.methodVersion.number}
+            {info.row.original.method.name}, version {info.row.original.methodVersion.number} · {info.row.original.author.name}
           </Text>
         </Stack>
       ),
@@ -72,16 +73,22 @@ export function studiesColumns(sort: ServerSort) {
       header: 'Verdict',
       cell: (info) => <CriterionMark pass={info.getValue()} />,
     }),
-    column.accessor((s) => s.author.name, { id: 'author', header: 'Author' }),
-    column.accessor('createdAt', {
-      header: () => <SortHeader label="Created" by="createdAt" sort={sort} />,
-      meta: { align: 'end' },
-      cell: (info) => formatDateTime(info.getValue()),
-    }),
     column.accessor('updatedAt', {
-      header: () => <SortHeader label="Last change" by="updatedAt" sort={sort} />,
+      header: () => (
+        <HStack gap="3" justify="flex-end">
+          <SortHeader label="Last change" by="updatedAt" sort={sort} />
+          <SortHeader label="Created" by="createdAt" sort={sort} />
+        </HStack>
+      ),
       meta: { align: 'end' },
-      cell: (info) => formatDateTime(info.getValue()),
+      cell: (info) => (
+        <Stack gap="0" align="flex-end">
+          <Text whiteSpace="nowrap">{formatDateTime(info.getValue())}</Text>
+          <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
+            created {dateOnly.format(new Date(info.row.original.createdAt))}
+          </Text>
+        </Stack>
+      ),
     }),
     column.display({
       id: 'open',
