@@ -1,5 +1,6 @@
 export * from './roles.js';
 export * from './api-types.js';
+export * from './review-types.js';
 export { ENGINE_VERSION } from './version.js';
 export { parseStudy } from './validate.js';
 export { evaluateStudy } from './evaluate.js';

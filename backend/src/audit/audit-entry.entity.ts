@@ -1,6 +1,7 @@
 import { Column, Entity, PrimaryColumn } from 'typeorm';
+import type { FieldChanges } from '@meritline/shared';
 
-export type FieldChanges = Record<string, { from: unknown; to: unknown }>;
+export type { FieldChanges };
 
 /** Append-only; each row's hash covers the previous row's hash, so any edit breaks the chain. */
 @Entity('audit_entries')

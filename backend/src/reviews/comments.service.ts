@@ -7,7 +7,7 @@ import { unprocessable } from '../common/validation.js';
 import type { CreateCommentDto } from './dto/create-comment.dto.js';
 import type { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
-import type { CommentDto } from './reviews.types.js';
+import type { CommentDto } from '@meritline/shared';
 import { writeTransaction } from '../database/write-transaction.js';
 import { StudyComment } from './study-comment.entity.js';
 

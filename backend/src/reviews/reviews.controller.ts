@@ -10,7 +10,7 @@ import { ReturnStudyDto } from './dto/return-study.dto.js';
 import { SignStudyDto } from './dto/sign-study.dto.js';
 import { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
-import type { CommentDto, HistoryItemDto, QueueItemDto, SignatureDto, StudyDiffDto, TransitionResultDto } from './reviews.types.js';
+import type { CommentDto, HistoryItemDto, QueueItemDto, SignatureDto, StudyDiffDto, TransitionResultDto } from '@meritline/shared';
 import { StudyHistoryService } from './study-history.service.js';
 
 const STUDY_READERS = [Role.Analyst, Role.Reviewer, Role.QualityManager];

@@ -15,7 +15,7 @@ import { ValidationStudy } from '../studies/validation-study.entity.js';
 import type { ReturnStudyDto } from './dto/return-study.dto.js';
 import type { SignStudyDto } from './dto/sign-study.dto.js';
 import { ReviewNoticesService, type ReviewEvent } from './review-notices.service.js';
-import type { QueueItemDto, ReviewStage, SignatureDto, TransitionResultDto } from './reviews.types.js';
+import type { QueueItemDto, ReviewStage, SignatureDto, TransitionResultDto } from '@meritline/shared';
 import { contentHash, currentRound, toSignatureDtos } from './signatures.js';
 import { StudySignature } from './study-signature.entity.js';
 

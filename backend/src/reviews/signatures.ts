@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { canonicalJson, type StudyStatus } from '@meritline/shared';
 import type { StudySignature } from './study-signature.entity.js';
-import type { SignatureDto } from './reviews.types.js';
+import type { SignatureDto } from '@meritline/shared';
 
 export interface SignedContent {
   data: Record<string, unknown>;

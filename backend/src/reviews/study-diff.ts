@@ -1,5 +1,5 @@
 import { canonicalJson } from '@meritline/shared';
-import type { RowChange, SectionDiff, StudyDiffDto } from './reviews.types.js';
+import type { RowChange, SectionDiff, StudyDiffDto } from '@meritline/shared';
 
 type Data = Record<string, unknown>;
 

@@ -3,7 +3,7 @@ import type { SignatureMeaning } from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { CommentsService } from './comments.service.js';
 import { ReviewsService } from './reviews.service.js';
-import type { HistoryItemDto, StudyDiffDto } from './reviews.types.js';
+import type { HistoryItemDto, StudyDiffDto } from '@meritline/shared';
 import { toSignatureDtos } from './signatures.js';
 import { diffStudyData } from './study-diff.js';
 

@@ -1,7 +1,7 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import type { StudySection } from '@meritline/shared';
 import { IsIn, IsOptional, IsString, IsUUID, Matches, MaxLength } from 'class-validator';
-import { STUDY_SECTIONS } from '../reviews.types.js';
+import { STUDY_SECTIONS } from '@meritline/shared';
 
 export class CreateCommentDto {
   @ApiProperty({ enum: STUDY_SECTIONS })

@@ -1,7 +1,11 @@
-import type { Role, SignatureMeaning, StudySection, StudyStatus } from '@meritline/shared';
-import type { FieldChanges } from '../audit/audit-entry.entity.js';
+import type { Role } from './roles.js';
+import type { SignatureMeaning, StudySection, StudyStatus } from './api-types.js';
+
+/** Review and sign-off answers of the API, shared by the server and the browser. */
 
 export const STUDY_SECTIONS: readonly StudySection[] = ['setup', 'standards', 'blanks', 'recovery', 'precision', 'results', 'conclusion'];
+
+export type FieldChanges = Record<string, { from: unknown; to: unknown }>;
 
 export interface SignatureDto {
   id: string;
