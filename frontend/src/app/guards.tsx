@@ -4,7 +4,7 @@ import { Navigate, Outlet, useLocation, useNavigation } from 'react-router';
 import { NotAllowed } from '@/components/not-allowed';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
-import { useSession } from '@/features/auth/use-session';
+import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { sessionEndedByUser } from '@/lib/session-token';
 import { AppShell } from './layout/app-shell';

@@ -17,7 +17,7 @@ import type { Role } from '@meritline/shared';
 import { useState, type ReactNode } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
 import { ColorModeButton } from '@/components/ui/color-mode';
-import type { SessionUser } from '@/features/auth/use-session';
+import type { SessionUser } from '@/lib/auth';
 import { NotificationsBell } from '@/features/notifications/components/notifications-bell';
 import { paths } from '@/lib/config/paths';
 import { formatRoles } from '@/lib/format';

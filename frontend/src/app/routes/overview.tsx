@@ -2,7 +2,7 @@ import { Alert, Box, Card, Heading, LinkBox, LinkOverlay, SimpleGrid, Stack, Tex
 import { Role, ROLE_LABELS } from '@meritline/shared';
 import { Link } from 'react-router';
 import { PageHeader } from '@/components/page-header';
-import { useSession } from '@/features/auth/use-session';
+import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { navigationFor } from '../layout/navigation';
 

@@ -2,7 +2,7 @@ import type { LoginResponse } from '@meritline/shared';
 import { useMutation } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
-import { useStartSession } from '../use-session';
+import { useStartSession } from '@/lib/auth';
 import { newPasswordField, PASSWORD_MIN_LENGTH } from './password-rules';
 
 export const acceptInvitationSchema = yup.object({

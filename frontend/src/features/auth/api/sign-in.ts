@@ -2,7 +2,7 @@ import type { LoginResponse } from '@meritline/shared';
 import { useMutation } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
-import { useStartSession } from '../use-session';
+import { useStartSession } from '@/lib/auth';
 
 export const signInSchema = yup.object({
   email: yup.string().trim().required('Enter your e-mail address.').email('Enter a valid e-mail address.'),

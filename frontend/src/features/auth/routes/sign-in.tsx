@@ -4,7 +4,7 @@ import { FormField } from '@/components/form/form-field';
 import { paths, safeRedirectTarget } from '@/lib/config/paths';
 import { signInSchema, useSignIn, type SignInValues } from '../api/sign-in';
 import { AuthLayout } from '../components/auth-layout';
-import { useSession } from '../use-session';
+import { useSession } from '@/lib/auth';
 
 const initialValues: SignInValues = { email: '', password: '' };
 

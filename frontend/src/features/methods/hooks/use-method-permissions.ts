@@ -1,5 +1,5 @@
 import { hasAnyRole, Role } from '@meritline/shared';
-import { useSession } from '@/features/auth/use-session';
+import { useSession } from '@/lib/auth';
 
 /** Quality managers and administrators decide on methods; analysts may propose drafts. */
 export function useMethodPermissions() {

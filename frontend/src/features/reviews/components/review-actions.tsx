@@ -3,7 +3,7 @@ import { hasAnyRole, Role } from '@meritline/shared';
 import { Link as RouterLink, useNavigate } from 'react-router';
 import { ReportDownloadButton } from '@/components/report-download-button';
 import { toaster } from '@/components/ui/toaster';
-import type { SessionUser } from '@/features/auth/use-session';
+import type { SessionUser } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { useCopyStudy } from '../api/copy-study';
 import type { Signature, StudyView } from '../api/review-types';

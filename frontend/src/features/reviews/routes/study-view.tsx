@@ -6,7 +6,7 @@ import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
 import { CalibrationPlot, ResidualPlot, StudyFigures, VerdictSummary } from '@/components/study-results';
-import { useSession } from '@/features/auth/use-session';
+import { useSession } from '@/lib/auth';
 import { formatDateTime } from '@/lib/format';
 import { studyReviewQueries } from '../api/review-queries';
 import { STATUS_LABELS, type HistoryItem, type StudyView } from '../api/review-types';

@@ -1,7 +1,7 @@
 import type { Role, UserDto } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
-import { authQueries } from '@/features/auth/api/auth-queries';
+import { authQueries } from '@/lib/auth';
 import { api } from '@/lib/api-client';
 import { nameField, rolesField } from './role-rules';
 import { usersQueries } from './users-queries';

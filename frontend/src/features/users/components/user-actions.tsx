@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
 import { toaster } from '@/components/ui/toaster';
-import { useSession } from '@/features/auth/use-session';
+import { useSession } from '@/lib/auth';
 import { editUserSchema, useUpdateUser, type EditUserValues } from '../api/update-user';
 import { RoleCheckboxes } from './role-checkboxes';
 

@@ -2,7 +2,7 @@ import { Badge, Box, DataList, Field, Heading, HStack, Input, Link, SimpleGrid, 
 import { useState } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { ValidationError } from 'yup';
-import { useSession } from '@/features/auth/use-session';
+import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { studyDetailsSchema, type StudyDetailsValues } from '../../api/study-details-rules';

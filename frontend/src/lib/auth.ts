@@ -1,10 +1,20 @@
 import type { LoginResponse } from '@meritline/shared';
-import { useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useCallback } from 'react';
 import { clearSessionToken, setSessionToken, useSessionToken } from '@/lib/session-token';
-import { authQueries, type SessionUser } from './api/auth-queries';
+import { api } from '@/lib/api-client';
 
-export type { SessionUser };
+export type SessionUser = LoginResponse['user'];
+
+export const authQueries = {
+  all: ['auth'] as const,
+  currentUser: () =>
+    queryOptions({
+      queryKey: [...authQueries.all, 'current-user'],
+      queryFn: ({ signal }) => api.get<SessionUser>('/auth/me', { signal }),
+      staleTime: 5 * 60_000,
+    }),
+};
 
 export interface Session {
   /** The bearer token; null when signed out. */
