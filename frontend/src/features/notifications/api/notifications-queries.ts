@@ -1,5 +1,6 @@
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { notificationKeys } from '@/lib/query-keys';
 
 export interface NotificationItem {
   id: string;
@@ -16,10 +17,10 @@ export interface NotificationList {
 }
 
 export const notificationsQueries = {
-  all: ['notifications'] as const,
+  ...notificationKeys,
   list: () =>
     queryOptions({
-      queryKey: [...notificationsQueries.all, 'list'],
+      queryKey: notificationKeys.lists(),
       queryFn: ({ signal }) => api.get<NotificationList>('/notifications', { signal }),
       refetchInterval: 60_000,
     }),

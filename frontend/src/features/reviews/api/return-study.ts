@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
-import { notificationKeys } from './notification-keys';
+import { notificationKeys } from '@/lib/query-keys';
 import { reviewQueueQueries, studyReviewQueries } from './review-queries';
 import type { TransitionResult } from './review-types';
 

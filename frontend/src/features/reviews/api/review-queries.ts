@@ -1,13 +1,13 @@
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { reviewQueueKeys, studyKeys } from '@/lib/query-keys';
 import type { HistoryItem, QueueItem, Signature, StudyComment, StudyDiff, StudyView } from './review-types';
 
-/** Keys start with ['studies', id] so a change made anywhere to a study refreshes its review data too. */
 export const studyReviewQueries = {
-  all: ['studies'] as const,
-  study: (id: string) => [...studyReviewQueries.all, id] as const,
+  ...studyKeys,
+  study: studyKeys.detail,
   detail: (id: string) =>
-    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'detail'], queryFn: ({ signal }) => api.get<StudyView>(`/studies/${encodeURIComponent(id)}`, { signal }) }),
+    queryOptions({ queryKey: [...studyKeys.detail(id), 'view'], queryFn: ({ signal }) => api.get<StudyView>(`/studies/${encodeURIComponent(id)}`, { signal }) }),
   signatures: (id: string) =>
     queryOptions({ queryKey: [...studyReviewQueries.study(id), 'signatures'], queryFn: ({ signal }) => api.get<Signature[]>(`/studies/${encodeURIComponent(id)}/signatures`, { signal }) }),
   history: (id: string) =>
@@ -23,6 +23,6 @@ export const studyReviewQueries = {
 };
 
 export const reviewQueueQueries = {
-  all: ['review-queue'] as const,
-  list: () => queryOptions({ queryKey: [...reviewQueueQueries.all, 'list'], queryFn: ({ signal }) => api.get<QueueItem[]>('/reviews/queue', { signal }) }),
+  ...reviewQueueKeys,
+  list: () => queryOptions({ queryKey: reviewQueueKeys.lists(), queryFn: ({ signal }) => api.get<QueueItem[]>('/reviews/queue', { signal }) }),
 };

@@ -24,7 +24,7 @@ export function useCreateStudy() {
       }),
     onSuccess: (study) => {
       queryClient.setQueryData(studiesQueries.detail(study.id).queryKey, study);
-      return queryClient.invalidateQueries({ queryKey: [...studiesQueries.all, 'list'] });
+      return queryClient.invalidateQueries({ queryKey: studiesQueries.lists() });
     },
     meta: { inlineErrors: true },
   });

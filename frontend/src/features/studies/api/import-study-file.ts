@@ -39,7 +39,7 @@ export function useApplyImport(studyId: string) {
       ),
     onSuccess: (study) => {
       queryClient.setQueryData(studiesQueries.detail(studyId).queryKey, study);
-      return queryClient.invalidateQueries({ queryKey: [...studiesQueries.all, 'list'] });
+      return queryClient.invalidateQueries({ queryKey: studiesQueries.lists() });
     },
     meta: { inlineErrors: true },
   });

@@ -1,5 +1,6 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { studyKeys } from '@/lib/query-keys';
 import type { StudyDto, StudyListParams, StudyPage } from './types';
 
 function listSearch(params: StudyListParams): string {
@@ -12,16 +13,16 @@ function listSearch(params: StudyListParams): string {
 }
 
 export const studiesQueries = {
-  all: ['studies'] as const,
+  ...studyKeys,
   list: (params: StudyListParams) =>
     queryOptions({
-      queryKey: [...studiesQueries.all, 'list', params],
+      queryKey: studyKeys.list(params),
       queryFn: ({ signal }) => api.get<StudyPage>(`/studies?${listSearch(params)}`, { signal }),
       placeholderData: keepPreviousData,
     }),
   detail: (id: string) =>
     queryOptions({
-      queryKey: [...studiesQueries.all, 'detail', id],
+      queryKey: studyKeys.detail(id),
       queryFn: ({ signal }) => api.get<StudyDto>(`/studies/${encodeURIComponent(id)}`, { signal }),
       // The wizard holds its own draft; a background refetch must not overwrite what is being typed.
       staleTime: Infinity,

@@ -19,7 +19,7 @@ export function useUpdateStudy(id: string) {
     mutationFn: (changes: StudyChanges) => api.patch<StudyDto>(`/studies/${encodeURIComponent(id)}`, changes),
     onSuccess: (study) => {
       queryClient.setQueryData(studiesQueries.detail(id).queryKey, study);
-      return queryClient.invalidateQueries({ queryKey: [...studiesQueries.all, 'list'] });
+      return queryClient.invalidateQueries({ queryKey: studiesQueries.lists() });
     },
     meta: { inlineErrors: true },
   });
