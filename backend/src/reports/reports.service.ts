@@ -9,6 +9,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
+import { writeTransaction } from '../database/write-transaction.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { formatDateTime } from './pdf/index.js';
 import type { ReportContent } from './report-content.js';
@@ -83,7 +84,7 @@ export class ReportsService {
       signedAt,
     });
     try {
-      await this.dataSource.transaction(async (manager) => {
+      await writeTransaction(this.dataSource, async (manager) => {
         await manager.getRepository(ValidationReport).insert(report);
         await this.audit.record(
           {

@@ -6,6 +6,7 @@ import { seedDemoReviews } from './demo-reviews.seed.js';
 import { seedDemoRuns } from './demo-runs.seed.js';
 import { seedDemoStudies } from './demo-studies.seed.js';
 import { seedDemoUsers } from './demo-users.seed.js';
+import { writeTransaction } from '../write-transaction.js';
 
 export type DemoSeeder = (manager: EntityManager) => Promise<void>;
 
@@ -21,7 +22,7 @@ export class DemoSeedService implements OnApplicationBootstrap {
   async onApplicationBootstrap() {
     if (process.env.SEED_DEMO === 'false') return;
     if ((await this.dataSource.getRepository(User).count()) > 0) return;
-    await this.dataSource.transaction(async (manager) => {
+    await writeTransaction(this.dataSource, async (manager) => {
       for (const seed of seeders) await seed(manager);
     });
     this.logger.log('Empty database: demo data seeded (demo accounts use the password "meritline-demo").');
