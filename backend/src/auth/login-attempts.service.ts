@@ -10,7 +10,7 @@ export class LoginAttemptsService {
 
   private keys(email: string, address: string) {
     return [
-      { key: `account:${email.trim().toLowerCase()}`, limit: this.config.throttle.perAccount },
+      { key: this.accountKey(email), limit: this.config.throttle.perAccount },
       { key: `address:${address}`, limit: this.config.throttle.perAddress },
     ];
   }
@@ -36,7 +36,41 @@ export class LoginAttemptsService {
     }
   }
 
-  recordFailure(email: string, address: string, now = Date.now()) {
+  /** True when this failure is the one that locks the account. */
+  recordFailure(email: string, address: string, now = Date.now()): boolean {
     for (const { key } of this.keys(email, address)) this.failures.set(key, [...this.recent(key, now), now]);
+    return this.recent(this.accountKey(email), now).length === this.config.throttle.perAccount;
+  }
+
+  /** Wrong passwords re-entered to sign count per account, apart from sign-in, with the same limit and window. */
+  assertSigningAllowed(userId: string, now = Date.now()) {
+    const recent = this.recent(`signing:${userId}`, now);
+    if (recent.length >= this.config.throttle.perAccount) {
+      const retryAfterS = Math.ceil((recent[0] + this.config.throttle.windowMs - now) / 1000);
+      throw new HttpException(
+        {
+          statusCode: 429,
+          message: `Signing is locked after repeated wrong passwords. Try again in ${Math.ceil(retryAfterS / 60)} minute(s), or use the unlock link sent to your e-mail address.`,
+        },
+        HttpStatus.TOO_MANY_REQUESTS,
+      );
+    }
+  }
+
+  /** True when this failure is the one that locks signing. */
+  recordSigningFailure(userId: string, now = Date.now()): boolean {
+    const key = `signing:${userId}`;
+    this.failures.set(key, [...this.recent(key, now), now]);
+    return this.recent(key, now).length === this.config.throttle.perAccount;
+  }
+
+  /** Lifts the account's sign-in and signing locks (not the per-address one, which guards against guessing across accounts). */
+  clearAccount(email: string, userId: string) {
+    this.failures.delete(this.accountKey(email));
+    this.failures.delete(`signing:${userId}`);
+  }
+
+  private accountKey(email: string) {
+    return `account:${email.trim().toLowerCase()}`;
   }
 }

@@ -8,6 +8,8 @@ import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { Run } from '../runs/run.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
+import { AppSetting } from '../auth/app-setting.entity.js';
+import { UserSession } from '../auth/user-session.entity.js';
 import { User } from '../users/user.entity.js';
 
-export const entities = [User, OutboxMessage, AuditEntry, Method, MethodVersion, ValidationStudy, StudySignature, StudyComment, Notification, ValidationReport, Run];
+export const entities = [User, OutboxMessage, AuditEntry, Method, MethodVersion, ValidationStudy, StudySignature, StudyComment, Notification, ValidationReport, Run, UserSession, AppSetting];

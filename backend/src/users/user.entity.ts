@@ -27,6 +27,22 @@ export class User {
   @Column({ name: 'invitation_expires_at', type: Date, nullable: true })
   invitationExpiresAt: Date | null;
 
+  /** Raised on password change, reset and deactivation: tokens signed with an older value are refused. */
+  @Column({ name: 'token_version', type: 'integer', default: 0 })
+  tokenVersion: number;
+
+  @Column({ name: 'password_reset_token_hash', type: 'varchar', length: 64, nullable: true })
+  passwordResetTokenHash: string | null;
+
+  @Column({ name: 'password_reset_expires_at', type: Date, nullable: true })
+  passwordResetExpiresAt: Date | null;
+
+  @Column({ name: 'unlock_token_hash', type: 'varchar', length: 64, nullable: true })
+  unlockTokenHash: string | null;
+
+  @Column({ name: 'unlock_expires_at', type: Date, nullable: true })
+  unlockExpiresAt: Date | null;
+
   @CreateDateColumn({ name: 'created_at' })
   createdAt: Date;
 

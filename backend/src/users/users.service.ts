@@ -1,10 +1,11 @@
 import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { createHash, randomBytes } from 'node:crypto';
-import { DataSource, Repository } from 'typeorm';
+import { DataSource, IsNull, Repository } from 'typeorm';
 import { Role, type UserDto } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
+import { UserSession } from '../auth/user-session.entity.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { MailService } from '../mail/mail.service.js';
 import { writeTransaction } from '../database/write-transaction.js';
@@ -60,7 +61,11 @@ export class UsersService {
 
   async invite(dto: CreateInvitationDto, actor: AuthUser): Promise<User> {
     if (await this.findByEmail(dto.email)) {
-      throw new ConflictException({ statusCode: 409, message: 'A user with this e-mail already exists.', errors: [{ field: 'email', code: 'exists', message: 'A user with this e-mail already exists.' }] });
+      throw new ConflictException({
+        statusCode: 409,
+        message: 'A user with this e-mail already exists.',
+        errors: [{ field: 'email', code: 'exists', message: 'A user with this e-mail already exists.' }],
+      });
     }
     const token = randomBytes(32).toString('base64url');
     const user = await writeTransaction(this.dataSource, async (manager) => {
@@ -88,12 +93,21 @@ export class UsersService {
     }
     const changes: FieldChanges = {};
     for (const key of ['name', 'roles', 'active'] as const) {
-      if (dto[key] !== undefined && JSON.stringify(dto[key]) !== JSON.stringify(user[key])) changes[key] = { from: user[key], to: dto[key] };
+      if (dto[key] !== undefined && JSON.stringify(dto[key]) !== JSON.stringify(user[key]))
+        changes[key] = { from: user[key], to: dto[key] };
     }
+    const deactivating = dto.active === false && user.active;
     Object.assign(user, dto);
+    // A new token version keeps tokens issued before the deactivation refused after a reactivation.
+    if (deactivating) user.tokenVersion += 1;
     return writeTransaction(this.dataSource, async (manager) => {
       const saved = await manager.getRepository(User).save(user);
-      if (Object.keys(changes).length) await this.audit.record({ actor, action: 'user.updated', entity: 'user', entityId: id, changes }, manager);
+      if (deactivating)
+        await manager
+          .getRepository(UserSession)
+          .update({ userId: id, endedAt: IsNull() }, { endedAt: new Date(), endReason: 'deactivated' });
+      if (Object.keys(changes).length)
+        await this.audit.record({ actor, action: 'user.updated', entity: 'user', entityId: id, changes }, manager);
       return saved;
     });
   }
@@ -109,6 +123,11 @@ export class UsersService {
       await this.audit.record({ actor: saved, action: 'auth.invitation-accepted', entity: 'user', entityId: saved.id }, manager);
       return saved;
     });
+  }
+
+  /** The user holding a one-time link (password reset or unlock), whatever its expiry. */
+  findByLinkToken(kind: 'passwordResetTokenHash' | 'unlockTokenHash' | 'invitationTokenHash', token: string): Promise<User | null> {
+    return this.users.findOneBy({ [kind]: hashToken(token) });
   }
 
   /** Saves a change to the user together with its audit entry. */

@@ -1,6 +1,6 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { IsString, MaxLength, MinLength } from 'class-validator';
-import { PASSWORD_MIN_LENGTH } from './change-password.dto.js';
+import { PASSWORD_MAX_LENGTH, PASSWORD_MESSAGES, PASSWORD_MIN_LENGTH } from '@meritline/shared';
 
 export class AcceptInvitationDto {
   @ApiProperty()
@@ -17,7 +17,7 @@ export class AcceptInvitationDto {
 
   @ApiProperty({ minLength: PASSWORD_MIN_LENGTH })
   @IsString()
-  @MinLength(PASSWORD_MIN_LENGTH, { message: `Use at least ${PASSWORD_MIN_LENGTH} characters.` })
-  @MaxLength(200)
+  @MinLength(PASSWORD_MIN_LENGTH, { message: PASSWORD_MESSAGES['too-short'] })
+  @MaxLength(PASSWORD_MAX_LENGTH)
   password: string;
 }

@@ -1,7 +1,6 @@
 import { ApiProperty } from '@nestjs/swagger';
 import { IsString, MaxLength, MinLength } from 'class-validator';
-
-export const PASSWORD_MIN_LENGTH = 10;
+import { PASSWORD_MAX_LENGTH, PASSWORD_MESSAGES, PASSWORD_MIN_LENGTH } from '@meritline/shared';
 
 export class ChangePasswordDto {
   @ApiProperty()
@@ -12,7 +11,7 @@ export class ChangePasswordDto {
 
   @ApiProperty({ minLength: PASSWORD_MIN_LENGTH })
   @IsString()
-  @MinLength(PASSWORD_MIN_LENGTH, { message: `Use at least ${PASSWORD_MIN_LENGTH} characters.` })
-  @MaxLength(200)
+  @MinLength(PASSWORD_MIN_LENGTH, { message: PASSWORD_MESSAGES['too-short'] })
+  @MaxLength(PASSWORD_MAX_LENGTH)
   newPassword: string;
 }
