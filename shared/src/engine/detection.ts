@@ -26,7 +26,11 @@ function unweightedLine(fit: CalibrationFit, warn: Warn): RegressionCore | null 
   const which = fit.weighting === 'none' ? 'iso11843 and hubauxVos use' : 'sdResidual, iso11843 and hubauxVos use';
   const basis = fit.weighting === 'none' ? fit.model : `${fit.weighting}-weighted ${fit.model}`;
   warn('detection', 'unweighted_line', `${which} the unweighted straight line over the same standards, not the ${basis} fit`);
-  return fitLine(xs, fit.points.map((p) => p.y), xs.map(() => 1));
+  return fitLine(
+    xs,
+    fit.points.map((p) => p.y),
+    xs.map(() => 1),
+  );
 }
 
 function sdResidual(fit: CalibrationFit, line: RegressionCore | null): LimitPair | null {
@@ -60,8 +64,10 @@ function blankSd(fit: CalibrationFit, blanks: readonly number[] | undefined, war
   const { a, b } = lowEndLine(fit);
   const slope = Math.abs(b);
   const yB = mean(blanks);
-  const responseLod = yB + 3 * sB;
-  const responseLoq = yB + 10 * sB;
+  // A falling response detects the analyte below the blank, not above it.
+  const direction = Math.sign(b);
+  const responseLod = yB + direction * 3 * sB;
+  const responseLoq = yB + direction * 10 * sB;
   return {
     n: blanks.length,
     mean: yB,
@@ -127,7 +133,8 @@ export function epaMdl(lowSpikes: LowSpikes | undefined, warn: Warn): EpaMdlResu
   const blanks = lowSpikes.blanks ?? [];
   let mdlSpiked: number | null = null;
   if (spiked.length >= 2) {
-    if (spiked.length < 7) warn('detection', 'too_few_spikes', `the MDL procedure asks for at least 7 spiked samples (${spiked.length} given)`);
+    if (spiked.length < 7)
+      warn('detection', 'too_few_spikes', `the MDL procedure asks for at least 7 spiked samples (${spiked.length} given)`);
     mdlSpiked = studentQuantile(0.99, spiked.length - 1) * (sd(spiked) ?? 0);
   } else if (spiked.length > 0) {
     warn('detection', 'too_few_spikes', 'MDL_s needs at least 2 spiked samples');
@@ -190,9 +197,7 @@ export function detection(
   };
   const named = criteria
     .map((c) => c.figure.split('.'))
-    .find((parts) => parts[0] === 'detection' && APPROACHES.includes(parts[1] as DetectionApproach))?.[1] as
-    | DetectionApproach
-    | undefined;
+    .find((parts) => parts[0] === 'detection' && APPROACHES.includes(parts[1] as DetectionApproach))?.[1] as DetectionApproach | undefined;
   result.flagBasis = [named, ...APPROACHES].find((a) => a !== undefined && result[a] !== null) ?? null;
   if (result.flagBasis === null) {
     warn('detection', 'no_inputs', 'no detection limit could be computed from the inputs given');
