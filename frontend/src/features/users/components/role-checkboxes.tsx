@@ -1,5 +1,6 @@
 import { Checkbox, CheckboxGroup, Stack, Text } from '@chakra-ui/react';
 import { ALL_ROLES, Role, ROLE_LABELS } from '@meritline/shared';
+import { useId } from 'react';
 
 const ROLE_HINTS: Record<Role, string> = {
   [Role.Analyst]: 'Runs validation studies and routine batches.',
@@ -15,11 +16,18 @@ export interface RoleCheckboxesProps {
 }
 
 export function RoleCheckboxes({ value, onChange, onBlur }: RoleCheckboxesProps) {
+  // Inside a form field every checkbox would take the field's one input id, so a click on any label toggles the first.
+  const idPrefix = useId();
   return (
     <CheckboxGroup value={[...value]} onValueChange={(roles) => onChange(roles as Role[])} onBlur={onBlur}>
       <Stack gap="3">
         {ALL_ROLES.map((role) => (
-          <Checkbox.Root key={role} value={role} alignItems="flex-start">
+          <Checkbox.Root
+            key={role}
+            value={role}
+            alignItems="flex-start"
+            ids={{ hiddenInput: `${idPrefix}-${role}-input`, label: `${idPrefix}-${role}-label` }}
+          >
             <Checkbox.HiddenInput />
             <Checkbox.Control mt="0.5" />
             <Checkbox.Label>
