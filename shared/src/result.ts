@@ -149,8 +149,13 @@ export interface HomoscedasticityResult {
   p: number;
   critical: number;
   significant: boolean;
+  /** The weighting with the smallest Σ|%RE| when the variance test is significant, else none. */
   recommendedWeighting: CandidateWeighting;
+  /** The weighting with the smallest Σ|%RE|, whatever the variance test says. */
+  smallestSumAbsRe: CandidateWeighting | null;
   sumAbsRePct: Record<CandidateWeighting, number | null>;
+  /** The recommendation in words: what it rests on and how close the candidates were. */
+  advice: string;
 }
 
 export type UnknownFlag = 'belowRange' | 'aboveRange' | 'belowLod' | 'belowLoq';

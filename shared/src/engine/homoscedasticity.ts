@@ -24,11 +24,7 @@ function sumAbsReOrNull(standards: readonly StandardPoint[], fit: CalibrationFit
  * practice), and the weighting with the smallest Σ|%RE| of the back-calculated standards
  * (common practice in bioanalysis).
  */
-export function homoscedasticity(
-  fit: CalibrationFit,
-  standards: readonly StandardPoint[],
-  warn: Warn,
-): HomoscedasticityResult | null {
+export function homoscedasticity(fit: CalibrationFit, standards: readonly StandardPoint[], warn: Warn): HomoscedasticityResult | null {
   if (fit.model !== 'linear' && fit.model !== 'quadratic') {
     warn('homoscedasticity', 'not_applicable', `no weighting check for a ${fit.model} calibration`);
     return null;
@@ -58,21 +54,63 @@ export function homoscedasticity(
           ? sumAbsReOrNull(standards, fit, weighting)
           : null;
   }
-  let recommendedWeighting: CandidateWeighting = 'none';
+  let smallest: CandidateWeighting | null = null;
   for (const weighting of CANDIDATE_WEIGHTINGS) {
     const value = sumAbsRePct[weighting];
-    const best = sumAbsRePct[recommendedWeighting];
-    if (value !== null && best !== null && value < best) recommendedWeighting = weighting;
+    if (value !== null && (smallest === null || value < (sumAbsRePct[smallest] as number))) smallest = weighting;
   }
+  const significant = F > critical;
+  const p = fUpper(F, df[0], df[1]);
+  // Weighting is justified by unequal variances, not by a smaller Σ|%RE| alone.
+  const recommendedWeighting: CandidateWeighting = significant && smallest !== null ? smallest : 'none';
   return {
     xLow,
     xHigh,
     F,
     df,
-    p: fUpper(F, df[0], df[1]),
+    p,
     critical,
-    significant: F > critical,
+    significant,
     recommendedWeighting,
+    smallestSumAbsRe: smallest,
     sumAbsRePct,
+    advice: weightingAdvice(significant, F, critical, smallest, sumAbsRePct),
   };
+}
+
+const WORDS: Record<CandidateWeighting, string> = { none: 'no weighting', '1/x': 'weighting 1/x', '1/x2': 'weighting 1/x²' };
+
+function figure(value: number, digits = 4): string {
+  return Number(value.toPrecision(digits)).toString();
+}
+
+function weightingAdvice(
+  significant: boolean,
+  F: number,
+  critical: number,
+  smallest: CandidateWeighting | null,
+  sums: Record<CandidateWeighting, number | null>,
+): string {
+  const test = `F = ${figure(F)} ${significant ? 'exceeds' : 'does not exceed'} the 99 % decision level ${figure(critical)}`;
+  const ranked = CANDIDATE_WEIGHTINGS.filter((w) => sums[w] !== null).sort((a, b) => (sums[a] as number) - (sums[b] as number));
+  const listing = ranked.map((w) => `${WORDS[w]} ${figure(sums[w] as number, 3)} %`).join(', ');
+  if (significant) {
+    return smallest === null
+      ? `The variances differ (${test}), but no candidate weighting could be fitted to compare Σ|%RE|.`
+      : `The variances differ (${test}): weighting is justified, and ${WORDS[smallest]} gives the smallest Σ|%RE| of the back-calculated standards (${listing}).`;
+  }
+  const head = `The variance test does not show unequal variances (${test}), so no weighting is recommended.`;
+  if (smallest === null || smallest === 'none' || ranked.length < 2) {
+    return `${head} Σ|%RE| of the back-calculated standards: ${listing || 'not computable'}.`;
+  }
+  const best = sums[smallest] as number;
+  const unweighted = sums.none;
+  const gap =
+    unweighted === null
+      ? ''
+      : ` against ${figure(unweighted, 3)} % unweighted (${figure(unweighted - best, 2)} percentage points, ${figure((100 * (unweighted - best)) / unweighted, 2)} % smaller)`;
+  return (
+    `${head} ${WORDS[smallest][0].toUpperCase()}${WORDS[smallest].slice(1)} gives the smallest Σ|%RE| of the back-calculated standards, ` +
+    `${figure(best, 3)} %${gap}; choosing it rests on that sum alone (${listing}).`
+  );
 }
