@@ -24,10 +24,16 @@ export interface LazyPlotProps {
   onPointClick?: (point: PlotPoint) => void;
 }
 
+// Laboratory data stays in the app: no logo link, no cloud button, nothing fetched from Plotly's servers.
+// (Plotly 4 has no showLink or showEditInChartStudio any more; showSendToCloud is on by default.)
 const CONFIG: Partial<Config> = {
   displaylogo: false,
+  showSendToCloud: false,
+  plotlyServerURL: '',
+  topojsonURL: '/topojson/',
+  typesetMath: false,
   responsive: true,
-  modeBarButtonsToRemove: ['lasso2d', 'select2d', 'autoScale2d'],
+  modeBarButtonsToRemove: ['lasso2d', 'select2d', 'autoScale2d', 'sendChartToCloud'],
   toImageButtonOptions: { format: 'png', scale: 2 },
 };
 
