@@ -114,14 +114,18 @@ describe('methods, versions and criteria templates', () => {
       });
       expect(Object.keys(nitrate.versions[1]).sort()).toEqual(
         [
+          'activationJustification',
           'approvedStudyCount',
+          'changeKind',
           'changeSummary',
+          'coverage',
           'createdAt',
           'createdBy',
           'criteria',
           'id',
           'lockVersion',
           'number',
+          'revalidationScope',
           'settings',
           'status',
           'studyCount',
@@ -215,7 +219,12 @@ describe('methods, versions and criteria templates', () => {
         changeSummary: 'Proposal for the new client.',
         createdBy: { name: 'Alma Ruiz' },
       });
-      expect(res.body.versions[0].settings).toEqual({ requiresQualityRelease: true, checkTolerancePct: 5, onePointMaxInterceptPct: 5 });
+      expect(res.body.versions[0].settings).toEqual({
+        requiresQualityRelease: true,
+        checkTolerancePct: 5,
+        onePointMaxInterceptPct: 5,
+        recoveryEquivalenceMarginPct: 5,
+      });
     });
 
     it('should answer missing and malformed fields with 422 and one message per field, saving nothing', async () => {
@@ -306,7 +315,7 @@ describe('methods, versions and criteria templates', () => {
         .http()
         .post(`/api/methods/${methodId}/versions`)
         .set(headers)
-        .send({ changeSummary: 'Second column in series.' })
+        .send({ changeSummary: 'Second column in series.', changeKind: 'column-or-consumable' })
         .expect(201);
       expect(res.body).toMatchObject({
         number: 2,
@@ -320,7 +329,7 @@ describe('methods, versions and criteria templates', () => {
         .http()
         .post(`/api/methods/${methodId}/versions`)
         .set(await auth(DEMO.analyst))
-        .send({ changeSummary: 'Analyst proposal.', criteria })
+        .send({ changeSummary: 'Analyst proposal.', changeKind: 'criteria', criteria })
         .expect(201);
       expect(third.body).toMatchObject({ number: 3, status: 'draft', criteria, createdBy: { name: 'Alma Ruiz' } });
       expect((await t.http().get(`/api/method-versions/${firstVersionId}`).set(headers)).body).toEqual(first);
@@ -333,19 +342,22 @@ describe('methods, versions and criteria templates', () => {
         .set(await auth(DEMO.quality))
         .send({})
         .expect(422);
-      expect(missing.body.errors).toEqual([expect.objectContaining({ field: 'changeSummary' })]);
+      expect(missing.body.errors).toEqual([
+        expect.objectContaining({ field: 'changeSummary' }),
+        expect.objectContaining({ field: 'changeKind' }),
+      ]);
       await t
         .http()
         .post(`/api/methods/${methodId}/versions`)
         .set(await auth(DEMO.reviewer))
-        .send({ changeSummary: 'x' })
+        .send({ changeSummary: 'x', changeKind: 'other' })
         .expect(403);
-      await t.http().post(`/api/methods/${methodId}/versions`).send({ changeSummary: 'x' }).expect(401);
+      await t.http().post(`/api/methods/${methodId}/versions`).send({ changeSummary: 'x', changeKind: 'other' }).expect(401);
       await t
         .http()
         .post(`/api/methods/${UNKNOWN_ID}/versions`)
         .set(await auth(DEMO.quality))
-        .send({ changeSummary: 'x' })
+        .send({ changeSummary: 'x', changeKind: 'other' })
         .expect(404);
       expect(rows('SELECT number FROM method_versions WHERE method_id = ? ORDER BY number', methodId).map((r) => r.number)).toEqual([
         1, 2, 3,

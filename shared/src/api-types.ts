@@ -51,4 +51,6 @@ export interface MethodVersionSettings {
   checkTolerancePct: number;
   /** One-point calibration is allowed only when |intercept| is at most this % of the top response. */
   onePointMaxInterceptPct: number;
+  /** Mean recoveries of two versions within this many percentage points count as equivalent (default 5). */
+  recoveryEquivalenceMarginPct?: number;
 }

@@ -16,6 +16,8 @@ export interface SignatureDto {
   signedAt: string;
   contentHash: string;
   comment: string | null;
+  /** Why the signer approved although the study does not meet all its criteria. */
+  justification?: string | null;
   /** The content this signature covers still hashes to `contentHash`. */
   valid: boolean;
   /** Part of a submission that was returned or resubmitted: checked against the content signed then, not the current data. */

@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, Unique, VersionColumn } from 'typeorm';
-import type { MethodVersionSettings, MethodVersionStatus } from '@meritline/shared';
+import type { MethodChangeKind, MethodVersionSettings, MethodVersionStatus, RevalidationFamily } from '@meritline/shared';
 import { Method } from './method.entity.js';
 
 /** Study criteria in the engine's format: { figure, op, value, level? }. */
@@ -23,6 +23,18 @@ export class MethodVersion {
 
   @Column({ name: 'change_summary', type: 'text' })
   changeSummary: string;
+
+  /** Null for the first version of a method. */
+  @Column({ name: 'change_kind', type: 'varchar', length: 30, nullable: true })
+  changeKind: MethodChangeKind | null;
+
+  /** Families of figures a study of this version must show again before it is activated. */
+  @Column({ name: 'revalidation_scope', type: 'simple-json', nullable: true })
+  revalidationScope: RevalidationFamily[] | null;
+
+  /** Set when a quality manager activated the version without a study covering its scope. */
+  @Column({ name: 'activation_justification', type: 'text', nullable: true })
+  activationJustification: string | null;
 
   @Column({ type: 'varchar', length: 10 })
   status: MethodVersionStatus;

@@ -198,7 +198,7 @@ export class ReportsService {
         submittedAt: study.submittedAt,
         approvedAt: study.approvedAt,
       },
-      signatures: signatures.map((s) => ({ signerName: s.signerName, signerRole: s.signerRole, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash, comment: s.comment })),
+      signatures: signatures.map((s) => ({ signerName: s.signerName, signerRole: s.signerRole, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash, comment: s.comment, justification: s.justification })),
       comments: comments.map((c) => ({ id: c.id, threadId: c.threadId, section: c.section, authorName: c.authorName, body: c.body, resolved: c.resolved, createdAt: c.createdAt })),
       exclusions: exclusions.map((e) => ({ at: e.at, actorName: e.actorName, action: e.action, changes: e.changes, reason: e.reason })),
     };

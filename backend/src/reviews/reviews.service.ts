@@ -1,7 +1,7 @@
 import { ConflictException, ForbiddenException, Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { DataSource, In, Repository, type EntityManager } from 'typeorm';
-import { Role, type SignatureMeaning, type StudyStatus } from '@meritline/shared';
+import { MIN_JUSTIFICATION_LENGTH, Role, type SignatureMeaning, type StudyStatus } from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -16,7 +16,7 @@ import type { ReturnStudyDto } from './dto/return-study.dto.js';
 import type { SignStudyDto } from './dto/sign-study.dto.js';
 import { ReviewNoticesService, type ReviewEvent } from './review-notices.service.js';
 import type { QueueItemDto, ReviewStage, SignatureDto, TransitionResultDto } from '@meritline/shared';
-import { contentHash, currentRound, toSignatureDtos } from './signatures.js';
+import { contentHash, currentRound, failsCriteria, toSignatureDtos } from './signatures.js';
 import { StudySignature } from './study-signature.entity.js';
 
 const STATUS_WORDS: Record<StudyStatus, string> = { draft: 'a draft', submitted: 'submitted', returned: 'returned', approved: 'approved' };
@@ -30,7 +30,7 @@ interface Transition {
   action: string;
   reason: string | null;
   set?: Partial<Pick<ValidationStudy, 'submittedAt' | 'approvedAt'>>;
-  signature?: { meaning: SignatureMeaning; role: Role; at: Date };
+  signature?: { meaning: SignatureMeaning; role: Role; at: Date; justification?: string | null };
   event: ReviewEvent;
 }
 
@@ -95,11 +95,12 @@ export class ReviewsService {
     const firstApproval = currentRound(await this.signaturesOf(study.id)).find((s) => s.meaning === 'reviewed-and-approved');
     const releaseRequired = study.methodVersion.settings?.requiresQualityRelease === true;
     const reason = dto.comment?.trim() || null;
+    const justification = this.justificationFor(study, dto.justification);
     const at = new Date();
     if (!firstApproval) {
       await this.verifyPassword(study, actor, dto.password, 'reviewed-and-approved');
       const role = actor.roles.includes(Role.Reviewer) ? Role.Reviewer : Role.QualityManager;
-      const signature = { meaning: 'reviewed-and-approved' as const, role, at };
+      const signature = { meaning: 'reviewed-and-approved' as const, role, at, justification };
       return releaseRequired
         ? this.apply({ study, actor, to: 'submitted', action: 'study.review-approved', reason, signature, event: 'release-pending' })
         : this.apply({ study, actor, to: 'approved', action: 'study.approved', reason, set: { approvedAt: at }, signature, event: 'approved' });
@@ -107,7 +108,7 @@ export class ReviewsService {
     if (!actor.roles.includes(Role.QualityManager)) throw new ForbiddenException('This study has been reviewed and now awaits release by a quality manager.');
     if (firstApproval.signerId === actor.id) throw new ForbiddenException('You approved this study as its reviewer; a different quality manager must release it.');
     await this.verifyPassword(study, actor, dto.password, 'released');
-    return this.apply({ study, actor, to: 'approved', action: 'study.released', reason, set: { approvedAt: at }, signature: { meaning: 'released', role: Role.QualityManager, at }, event: 'approved' });
+    return this.apply({ study, actor, to: 'approved', action: 'study.released', reason, set: { approvedAt: at }, signature: { meaning: 'released', role: Role.QualityManager, at, justification }, event: 'approved' });
   }
 
   /** A new draft with the same data on the same method version, evaluated by the current engine. */
@@ -176,6 +177,15 @@ export class ReviewsService {
 
   signaturesOf(studyId: string): Promise<StudySignature[]> {
     return this.signatures.find({ where: { studyId }, order: { signedAt: 'ASC' } });
+  }
+
+  /** A study that does not meet all its criteria is approved only with a written reason; one that does needs none. */
+  private justificationFor(study: ValidationStudy, given: string | undefined): string | null {
+    if (!failsCriteria(study.result)) return given?.trim() || null;
+    const text = given?.trim() ?? '';
+    if (text.length >= MIN_JUSTIFICATION_LENGTH) return text;
+    const message = `This study does not meet all its acceptance criteria: write why it may be approved all the same (at least ${MIN_JUSTIFICATION_LENGTH} characters).`;
+    throw unprocessable([{ field: 'justification', code: text ? 'too_short' : 'required', message }], message);
   }
 
   private assertFresh(study: ValidationStudy, lockVersion: number | undefined) {
@@ -247,6 +257,7 @@ export class ReviewsService {
         signedAt: signature.at,
         contentHash: contentHash(study),
         comment,
+        justification: signature.justification ?? null,
         dataSnapshot: authored ? study.data : null,
         resultSnapshot: authored ? study.result : null,
       }),
@@ -257,7 +268,12 @@ export class ReviewsService {
         action: `signature.${signature.meaning}`,
         entity: 'study-signature',
         entityId: saved.id,
-        changes: { studyId: { from: null, to: study.id }, signerRole: { from: null, to: signature.role }, contentHash: { from: null, to: saved.contentHash } },
+        changes: {
+          studyId: { from: null, to: study.id },
+          signerRole: { from: null, to: signature.role },
+          contentHash: { from: null, to: saved.contentHash },
+          ...(saved.justification ? { justification: { from: null, to: saved.justification } } : {}),
+        },
         reason: comment,
       },
       manager,

@@ -24,6 +24,17 @@ export function signatureRounds(signatures: readonly StudySignature[]): StudySig
   return rounds;
 }
 
+/** The signature that made the study approved: the release where one was required, else the reviewer's approval. */
+export function approvingSignature(signatures: readonly StudySignature[]): StudySignature | null {
+  const round = currentRound(signatures);
+  return round.find((s) => s.meaning === 'released') ?? round.find((s) => s.meaning === 'reviewed-and-approved') ?? null;
+}
+
+/** True when at least one acceptance criterion failed (a study naming no criteria has none that failed). */
+export function failsCriteria(result: Record<string, unknown> | null): boolean {
+  return (result as { verdict?: { pass?: boolean | null } } | null)?.verdict?.pass === false;
+}
+
 export function currentRound(signatures: readonly StudySignature[]): StudySignature[] {
   return signatureRounds(signatures).at(-1) ?? [];
 }
@@ -54,6 +65,7 @@ export function toSignatureDtos(signatures: readonly StudySignature[], study: Si
       signedAt: signature.signedAt.toISOString(),
       contentHash: signature.contentHash,
       comment: signature.comment,
+      justification: signature.justification ?? null,
       valid: hash === signature.contentHash,
       superseded,
     }));

@@ -37,6 +37,10 @@ export class StudySignature {
   @Column({ type: 'text', nullable: true })
   comment: string | null;
 
+  /** Why the signer approved although the study does not meet all its criteria. */
+  @Column({ type: 'text', nullable: true })
+  justification: string | null;
+
   /** The study data as signed, kept for the diff between submissions. */
   @Column({ name: 'data_snapshot', type: 'simple-json', nullable: true })
   dataSnapshot: Record<string, unknown> | null;

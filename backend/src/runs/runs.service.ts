@@ -10,6 +10,8 @@ import { unprocessable } from '../common/validation.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { writeTransaction } from '../database/write-transaction.js';
 import { Method } from '../methods/method.entity.js';
+import { approvingSignature, failsCriteria } from '../reviews/signatures.js';
+import { StudySignature } from '../reviews/study-signature.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { User } from '../users/user.entity.js';
 import { modelChoices, validationBasis } from './calibration-choices.js';
@@ -139,10 +141,12 @@ function versionLabel(version: MethodVersion): string {
   return `Version ${version.number} of ${version.method.name}`;
 }
 
-function unusableReason(version: MethodVersion, hasApproved: boolean, hasCalibration = true): string | null {
+function unusableReason(version: MethodVersion, hasApproved: boolean, hasCalibration = true, fitForUse = true): string | null {
   if (version.status !== 'active')
     return `${versionLabel(version)} is ${version.status === 'draft' ? 'a draft' : 'retired'}: routine runs need an active version.`;
   if (!hasApproved) return `${versionLabel(version)} has no approved validation study, so it is not validated for routine runs.`;
+  if (!fitForUse)
+    return `The latest approved validation study of ${versionLabel(version).toLowerCase()} does not meet all its acceptance criteria and was approved without a written justification, so the version is not validated for routine runs.`;
   if (!hasCalibration)
     return `The approved validation study of ${versionLabel(version).toLowerCase()} has no calibration to compare a run with.`;
   return null;
@@ -168,8 +172,22 @@ export class RunsService {
     return this.studies.findOne({ where: { methodVersionId, status: 'approved' }, order: { approvedAt: 'DESC', createdAt: 'DESC' } });
   }
 
+  /** The study meets all its criteria, or whoever approved it wrote why it is fit for use all the same. */
+  private async fitForUse(studies: Pick<ValidationStudy, 'id' | 'result'>[]): Promise<Set<string>> {
+    const fit = new Set(studies.filter((study) => !failsCriteria(study.result)).map((study) => study.id));
+    const others = studies.filter((study) => !fit.has(study.id)).map((study) => study.id);
+    if (others.length) {
+      const signatures = await this.dataSource.getRepository(StudySignature).find({ where: { studyId: In(others) } });
+      for (const id of others) {
+        if (approvingSignature(signatures.filter((s) => s.studyId === id))?.justification) fit.add(id);
+      }
+    }
+    return fit;
+  }
+
   private async optionsFor(version: MethodVersion): Promise<RunOptions> {
     const study = await this.approvedStudy(version.id);
+    const fit = study ? (await this.fitForUse([study])).has(study.id) : false;
     const basis = study?.result
       ? validationBasis({
           id: study.id,
@@ -178,7 +196,7 @@ export class RunsService {
           result: study.result as unknown as EvaluationResult,
         })
       : null;
-    const reason = unusableReason(version, study !== null, basis !== null);
+    const reason = unusableReason(version, study !== null, basis !== null, fit);
     const { settings } = version;
     return {
       methodVersionId: version.id,
@@ -208,12 +226,19 @@ export class RunsService {
 
   async methodChoices(): Promise<MethodChoice[]> {
     const versions = await this.versions.find({ relations: { method: true }, order: { number: 'ASC' } });
-    const approved = await this.studies.find({ where: { status: 'approved' }, select: { id: true, methodVersionId: true } });
-    const validated = new Set(approved.map((s) => s.methodVersionId));
+    const approved = await this.studies.find({
+      where: { status: 'approved' },
+      select: { id: true, methodVersionId: true, result: true, approvedAt: true, createdAt: true },
+      order: { approvedAt: 'DESC', createdAt: 'DESC' },
+    });
+    const latest = new Map<string, (typeof approved)[number]>();
+    for (const study of approved) if (!latest.has(study.methodVersionId)) latest.set(study.methodVersionId, study);
+    const fit = await this.fitForUse([...latest.values()]);
     const byMethod = new Map<string, MethodChoice>();
     for (const version of versions) {
       const entry = byMethod.get(version.methodId) ?? { ...toMethodSummary(version.method), versions: [] };
-      const reason = unusableReason(version, validated.has(version.id));
+      const study = latest.get(version.id);
+      const reason = unusableReason(version, study !== undefined, true, study !== undefined && fit.has(study.id));
       entry.versions.push({ id: version.id, number: version.number, status: version.status, usable: reason === null, reason });
       byMethod.set(version.methodId, entry);
     }

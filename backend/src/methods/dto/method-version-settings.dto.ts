@@ -1,5 +1,5 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { IsBoolean, IsNumber, IsOptional, Max, Min } from 'class-validator';
+import { IsBoolean, IsNumber, IsOptional, IsPositive, Max, Min } from 'class-validator';
 
 /** Settings of a method version; fields left out keep their current (or the template's) value. */
 export class MethodVersionSettingsDto {
@@ -21,4 +21,17 @@ export class MethodVersionSettingsDto {
   @Min(0)
   @Max(100)
   onePointMaxInterceptPct?: number;
+
+  @ApiPropertyOptional({
+    description: 'Mean recoveries of two versions within this many percentage points count as equivalent (default 5).',
+    example: 5,
+  })
+  @IsOptional()
+  @IsNumber(
+    { allowNaN: false, allowInfinity: false },
+    { message: 'Give the recovery equivalence margin as a number of percentage points.' },
+  )
+  @IsPositive({ message: 'The recovery equivalence margin must be more than 0 percentage points.' })
+  @Max(50)
+  recoveryEquivalenceMarginPct?: number;
 }

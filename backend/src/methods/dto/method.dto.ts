@@ -1,5 +1,11 @@
 import { ApiProperty } from '@nestjs/swagger';
-import type { MethodVersionStatus } from '@meritline/shared';
+import {
+  METHOD_CHANGE_KINDS,
+  REVALIDATION_FAMILIES,
+  type MethodChangeKind,
+  type MethodVersionStatus,
+  type RevalidationFamily,
+} from '@meritline/shared';
 import { CriterionDto } from './criterion.dto.js';
 import { VERSION_STATUSES } from './update-method-version.dto.js';
 
@@ -12,6 +18,20 @@ export class MethodVersionSettingsViewDto {
   @ApiProperty() requiresQualityRelease: boolean;
   @ApiProperty() checkTolerancePct: number;
   @ApiProperty() onePointMaxInterceptPct: number;
+  @ApiProperty({ required: false, description: 'Percentage points within which mean recoveries count as equivalent (5 unless set).' })
+  recoveryEquivalenceMarginPct?: number;
+}
+
+export class RevalidationCoverageDto {
+  @ApiProperty({ description: 'An approved study of this version shows every family in scope again (always true for an empty scope).' })
+  covered: boolean;
+  @ApiProperty({
+    enum: REVALIDATION_FAMILIES,
+    isArray: true,
+    description: 'Families in scope that no approved study of this version shows.',
+  })
+  missing: RevalidationFamily[];
+  @ApiProperty({ nullable: true, type: String, description: 'The approved study that covers the scope.' }) studyId: string | null;
 }
 
 export class MethodVersionDto {
@@ -19,6 +39,12 @@ export class MethodVersionDto {
   @ApiProperty() number: number;
   @ApiProperty({ enum: VERSION_STATUSES }) status: MethodVersionStatus;
   @ApiProperty() changeSummary: string;
+  @ApiProperty({ enum: METHOD_CHANGE_KINDS, nullable: true, description: 'Null for the first version of a method.' })
+  changeKind: MethodChangeKind | null;
+  @ApiProperty({ enum: REVALIDATION_FAMILIES, isArray: true }) revalidationScope: RevalidationFamily[];
+  @ApiProperty({ type: RevalidationCoverageDto }) coverage: RevalidationCoverageDto;
+  @ApiProperty({ nullable: true, type: String, description: 'Why a quality manager activated the version without a covering study.' })
+  activationJustification: string | null;
   @ApiProperty({ type: [CriterionDto] }) criteria: CriterionDto[];
   @ApiProperty({ type: MethodVersionSettingsViewDto }) settings: MethodVersionSettingsViewDto;
   @ApiProperty() lockVersion: number;

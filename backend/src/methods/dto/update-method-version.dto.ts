@@ -1,5 +1,6 @@
 import { ApiProperty, ApiPropertyOptional, PartialType } from '@nestjs/swagger';
-import { IsIn, IsInt, IsOptional, Min } from 'class-validator';
+import { IsIn, IsInt, IsOptional, IsString, MaxLength, Min } from 'class-validator';
+import { MIN_JUSTIFICATION_LENGTH } from '@meritline/shared';
 import type { MethodVersionStatus } from '@meritline/shared';
 import { CreateMethodVersionDto } from './create-method-version.dto.js';
 
@@ -15,4 +16,18 @@ export class UpdateMethodVersionDto extends PartialType(CreateMethodVersionDto) 
   @IsOptional()
   @IsIn(VERSION_STATUSES, { message: `The status must be one of ${VERSION_STATUSES.join(', ')}.` })
   status?: MethodVersionStatus;
+
+  @ApiPropertyOptional({
+    description: `Quality managers only: activate although no approved study covers the revalidation scope, saying why (at least ${MIN_JUSTIFICATION_LENGTH} characters); needs \`password\`.`,
+  })
+  @IsOptional()
+  @IsString()
+  @MaxLength(4000)
+  activationJustification?: string;
+
+  @ApiPropertyOptional({ description: 'The quality manager re-enters their password to sign an activation with justification.' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(200)
+  password?: string;
 }

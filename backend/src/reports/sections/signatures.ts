@@ -50,6 +50,14 @@ export function signaturesSection(pdf: PdfComposer, content: ReportContent): voi
   });
   const withComment = content.signatures.filter((s) => s.comment);
   if (withComment.length) pdf.bullets(withComment.map((s) => `${s.signerName} (${formatDateTime(s.signedAt)}): ${s.comment}`), { size: 8.5 });
+  const justified = content.signatures.filter((s) => s.justification);
+  if (justified.length) {
+    pdf.heading('Approved although not all criteria are met', 3);
+    pdf.bullets(
+      justified.map((s) => `${s.signerName} (${formatDateTime(s.signedAt)}), justification: ${s.justification}`),
+      { size: 8.5 },
+    );
+  }
 
   pdf.heading('Review comments', 3);
   if (!content.comments.length) {

@@ -1,4 +1,5 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { MIN_JUSTIFICATION_LENGTH } from '@meritline/shared';
 import { IsInt, IsNotEmpty, IsOptional, IsString, MaxLength, Min } from 'class-validator';
 
 export class SignStudyDto {
@@ -13,6 +14,15 @@ export class SignStudyDto {
   @IsString()
   @MaxLength(2000)
   comment?: string;
+
+  @ApiPropertyOptional({
+    maxLength: 4000,
+    description: `Required to approve a study that does not meet all its criteria: why it is fit for use all the same (at least ${MIN_JUSTIFICATION_LENGTH} characters).`,
+  })
+  @IsOptional()
+  @IsString()
+  @MaxLength(4000)
+  justification?: string;
 
   @ApiPropertyOptional({ description: 'The lock version the signer saw; a newer one answers 409.' })
   @IsOptional()
