@@ -11,7 +11,9 @@ import { MethodVersion } from '../src/methods/method-version.entity.js';
 import { Method } from '../src/methods/method.entity.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 import { User } from '../src/users/user.entity.js';
-import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
+import { runCsv } from '../src/runs/run-export.js';
+import { RunsService } from '../src/runs/runs.service.js';
+import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const OUTPUT = fileURLToPath(new URL('../test-output', import.meta.url));
 
@@ -658,6 +660,19 @@ describe('routine runs', () => {
       const list = await t.http().get('/api/runs').query({ methodVersionId: versions.fluorescence }).set(auth(analyst)).expect(200);
       runId = list.body.items.find((r: { status: string }) => r.status === 'accepted').id;
       rejectedId = list.body.items.find((r: { status: string }) => r.status === 'rejected').id;
+      // Results leave Meritline only from a run a second person released.
+      const submitted = await t
+        .http()
+        .post(`/api/runs/${runId}/submit`)
+        .set(auth(analyst))
+        .send({ password: DEMO_PASSWORD, version: 1 })
+        .expect(200);
+      await t
+        .http()
+        .post(`/api/runs/${runId}/release`)
+        .set(auth(reviewer))
+        .send({ password: DEMO_PASSWORD, version: submitted.body.lockVersion })
+        .expect(200);
     });
 
     it('should export the results as CSV with units in the headers and one row per unknown', async () => {
@@ -669,7 +684,10 @@ describe('routine runs', () => {
       expect(parsed.meta.fields).toContain('Concentration (pg/ml)');
       expect(parsed.data[0]).toMatchObject({ Sample: 'S-1', Replicates: '4', Reported: '6.21 ± 0.36 pg/ml', Reportable: 'yes' });
       expect(parsed.data[1]).toMatchObject({ Sample: 'S-2', Reported: '< 2.2 pg/ml', Flags: 'below LOD; below LOQ' });
-      const rejected = await t.http().get(`/api/runs/${rejectedId}/export?format=csv`).set(auth(analyst)).expect(200);
+      // A rejected run is never released, so its export is refused; the CSV it would give still marks every row not reportable.
+      const refusedExport = await t.http().get(`/api/runs/${rejectedId}/export?format=csv`).set(auth(analyst)).expect(409);
+      expect(refusedExport.body.message).toMatch(/released/);
+      const rejected = { text: runCsv(await t.app.get(RunsService).findOne(rejectedId)) };
       const rows = Papa.parse<Record<string, string>>(rejected.text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true }).data;
       expect(rows.every((r) => r.Reportable === 'no: run rejected')).toBe(true);
     });

@@ -1,6 +1,7 @@
 export * from './roles.js';
 export * from './api-types.js';
 export * from './review-types.js';
+export * from './run-status.js';
 export * from './method-change.js';
 export * from './catalogue/index.js';
 export * from './password-policy.js';

@@ -7,9 +7,10 @@ import { ValidationReport } from '../reports/validation-report.entity.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { Run } from '../runs/run.entity.js';
+import { RunSignature } from '../runs/run-signature.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
 import { User } from '../users/user.entity.js';
 
-export const entities = [User, OutboxMessage, AuditEntry, Method, MethodVersion, ValidationStudy, StudySignature, StudyComment, Notification, ValidationReport, Run, UserSession, AppSetting];
+export const entities = [User, OutboxMessage, AuditEntry, Method, MethodVersion, ValidationStudy, StudySignature, StudyComment, Notification, ValidationReport, Run, RunSignature, UserSession, AppSetting];

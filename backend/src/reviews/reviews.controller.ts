@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
 import { Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -7,11 +7,13 @@ import type { StudyDto } from '../studies/dto/study.dto.js';
 import { CommentsService } from './comments.service.js';
 import { CreateCommentDto } from './dto/create-comment.dto.js';
 import { ReturnStudyDto } from './dto/return-study.dto.js';
+import { ReviewQueueQueryDto } from './dto/review-queue.query.dto.js';
 import { SignStudyDto } from './dto/sign-study.dto.js';
 import { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
-import type { CommentDto, HistoryItemDto, QueueItemDto, SignatureDto, StudyDiffDto, TransitionResultDto } from '@meritline/shared';
+import type { CommentDto, HistoryItemDto, QueueItemDto, ReviewQueueEntryDto, SignatureDto, StudyDiffDto, TransitionResultDto } from '@meritline/shared';
 import { StudyHistoryService } from './study-history.service.js';
+import { RunReleaseService } from '../runs/run-release.service.js';
 
 const STUDY_READERS = [Role.Analyst, Role.Reviewer, Role.QualityManager];
 
@@ -98,11 +100,18 @@ export class StudyReviewController {
 @ApiBearerAuth()
 @Controller('reviews')
 export class ReviewQueueController {
-  constructor(private readonly reviewsService: ReviewsService) {}
+  constructor(
+    private readonly reviewsService: ReviewsService,
+    private readonly runRelease: RunReleaseService,
+  ) {}
 
+  /** Studies and runs awaiting the caller, each with its kind; studies first, each kind oldest first. */
   @Get('queue')
   @Roles(Role.Reviewer, Role.QualityManager)
-  queue(@CurrentUser() user: AuthUser): Promise<QueueItemDto[]> {
-    return this.reviewsService.queueFor(user);
+  async queue(@Query() query: ReviewQueueQueryDto, @CurrentUser() user: AuthUser): Promise<ReviewQueueEntryDto[]> {
+    const studies: ReviewQueueEntryDto[] =
+      query.kind === 'run' ? [] : (await this.reviewsService.queueFor(user)).map((item: QueueItemDto) => ({ kind: 'study' as const, ...item }));
+    const runs = query.kind === 'study' ? [] : await this.runRelease.queueFor(user);
+    return [...studies, ...runs];
   }
 }

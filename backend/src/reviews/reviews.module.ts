@@ -4,6 +4,7 @@ import { AuthModule } from '../auth/auth.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { NotificationsModule } from '../notifications/notifications.module.js';
 import { ReportsModule } from '../reports/reports.module.js';
+import { RunsModule } from '../runs/runs.module.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { UsersModule } from '../users/users.module.js';
 import { CommentsService } from './comments.service.js';
@@ -15,7 +16,7 @@ import { StudyHistoryService } from './study-history.service.js';
 import { StudySignature } from './study-signature.entity.js';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([ValidationStudy, StudySignature, StudyComment]), AuthModule, UsersModule, MailModule, NotificationsModule, ReportsModule],
+  imports: [TypeOrmModule.forFeature([ValidationStudy, StudySignature, StudyComment]), AuthModule, UsersModule, MailModule, NotificationsModule, ReportsModule, RunsModule],
   controllers: [StudyReviewController, ReviewQueueController],
   providers: [ReviewsService, CommentsService, StudyHistoryService, ReviewNoticesService],
   exports: [ReviewsService],

@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
-import type { RunStatus } from '@meritline/shared';
+import type { RunReviewStatus, RunStatus } from '@meritline/shared';
 import { MethodVersion } from '../methods/method-version.entity.js';
 
 /** A routine batch: the run's calibration, check standards and unknowns. */
@@ -44,4 +44,28 @@ export class Run {
 
   @CreateDateColumn({ name: 'created_at' })
   createdAt: Date;
+
+  @Column({ name: 'review_status', type: 'varchar', length: 12, default: 'calculated' })
+  reviewStatus: RunReviewStatus;
+
+  @Column({ name: 'lock_version', type: 'integer', default: 1 })
+  lockVersion: number;
+
+  @Column({ name: 'submitted_at', type: Date, nullable: true })
+  submittedAt: Date | null;
+
+  @Column({ name: 'released_at', type: Date, nullable: true })
+  releasedAt: Date | null;
+
+  @Column({ name: 'return_comment', type: 'text', nullable: true })
+  returnComment: string | null;
+
+  @Column({ name: 'supersedes_id', type: 'uuid', nullable: true })
+  supersedesId: string | null;
+
+  @Column({ name: 'superseded_by_id', type: 'uuid', nullable: true })
+  supersededById: string | null;
+
+  @Column({ name: 'supersede_reason', type: 'text', nullable: true })
+  supersedeReason: string | null;
 }

@@ -1,12 +1,14 @@
 import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
-import { Role } from '@meritline/shared';
+import { Role, type RunReviewDto } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { CreateRunDto } from './dto/create-run.dto.js';
 import { ExportRunQueryDto } from './dto/export-run.query.dto.js';
 import { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
+import { ReturnRunDto, SignRunDto, SupersedeRunDto } from './dto/run-signing.dto.js';
+import { RunReleaseService } from './run-release.service.js';
 import { RunsService, type MethodChoice, type RunDto, type RunFile, type RunPage, type RunPreview } from './runs.service.js';
 
 function send(res: Response, file: RunFile): StreamableFile {
@@ -19,7 +21,10 @@ function send(res: Response, file: RunFile): StreamableFile {
 @Roles(Role.Analyst, Role.Reviewer, Role.QualityManager)
 @Controller('runs')
 export class RunsController {
-  constructor(private readonly runsService: RunsService) {}
+  constructor(
+    private readonly runsService: RunsService,
+    private readonly release: RunReleaseService,
+  ) {}
 
   @Get()
   list(@Query() query: ListRunsQueryDto): Promise<RunPage> {
@@ -58,7 +63,44 @@ export class RunsController {
     @Query() query: ExportRunQueryDto,
     @Res({ passthrough: true }) res: Response,
   ): Promise<StreamableFile> {
+    await this.release.assertReportable(id);
     return send(res, await this.runsService.exportFile(id, query.format));
+  }
+
+  /** Where the run stands in its release, with its signatures. */
+  @Get(':id/review')
+  review(@Param('id', ParseUUIDPipe) id: string): Promise<RunReviewDto> {
+    return this.release.review(id);
+  }
+
+  /** The analyst signs the run as performed and submits it for release. */
+  @Post(':id/submit')
+  @Roles(Role.Analyst)
+  @HttpCode(200)
+  submit(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignRunDto, @CurrentUser() actor: AuthUser): Promise<RunReviewDto> {
+    return this.release.submit(id, dto, actor);
+  }
+
+  /** A second person signs the run as reviewed and released. */
+  @Post(':id/release')
+  @Roles(Role.Reviewer)
+  @HttpCode(200)
+  releaseRun(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignRunDto, @CurrentUser() actor: AuthUser): Promise<RunReviewDto> {
+    return this.release.release(id, dto, actor);
+  }
+
+  @Post(':id/return')
+  @Roles(Role.Reviewer)
+  @HttpCode(200)
+  returnRun(@Param('id', ParseUUIDPipe) id: string, @Body() dto: ReturnRunDto, @CurrentUser() actor: AuthUser): Promise<RunReviewDto> {
+    return this.release.returnToAnalyst(id, dto, actor);
+  }
+
+  /** A correction run replacing a released one. */
+  @Post(':id/supersede')
+  @Roles(Role.Analyst)
+  supersede(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SupersedeRunDto, @CurrentUser() actor: AuthUser): Promise<RunDto> {
+    return this.release.supersede(id, dto, actor);
   }
 
   @Get(':id/sheet')

@@ -1,16 +1,29 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuthModule } from '../auth/auth.module.js';
+import { MailModule } from '../mail/mail.module.js';
+import { NotificationsModule } from '../notifications/notifications.module.js';
+import { UsersModule } from '../users/users.module.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { User } from '../users/user.entity.js';
 import { MethodVersionRunsController } from './method-version-runs.controller.js';
+import { RunReleaseService } from './run-release.service.js';
+import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
 import { RunsController } from './runs.controller.js';
 import { RunsService } from './runs.service.js';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Run, MethodVersion, ValidationStudy, User])],
+  imports: [
+    TypeOrmModule.forFeature([Run, RunSignature, MethodVersion, ValidationStudy, User]),
+    AuthModule,
+    UsersModule,
+    MailModule,
+    NotificationsModule,
+  ],
   controllers: [RunsController, MethodVersionRunsController],
-  providers: [RunsService],
+  providers: [RunsService, RunReleaseService],
+  exports: [RunReleaseService],
 })
 export class RunsModule {}
