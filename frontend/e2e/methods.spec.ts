@@ -31,7 +31,7 @@ test('a quality manager creates a method, edits the criteria of a draft, activat
   await create.getByLabel('Concentration unit (x)').fill('mg/L');
   await create.getByLabel('Response unit (y)').fill('µS·min');
   await create.getByLabel('Starting acceptance criteria').selectOption({ label: 'Environmental trace analysis (water)' });
-  await expect(create.getByRole('table', { name: /^Criteria of/ })).toContainText('Mean spike recovery 80–120 %');
+  await expect(create.getByRole('table', { name: /^Criteria of/ })).toContainText('Mean recovery, all levelsRecoveryfrom 80 to 120 %');
   await shot(page, 'new-method');
   await create.getByRole('button', { name: 'Create the method' }).click();
 
@@ -45,21 +45,22 @@ test('a quality manager creates a method, edits the criteria of a draft, activat
   const r2 = edit.getByRole('group', { name: 'Criterion 1' });
   await expect(r2.getByLabel('Figure')).toHaveValue('calibration.r2');
   await r2.getByLabel('Limit').fill('0,998');
-  await r2.getByLabel('Name shown to people').fill('Coefficient of determination r² at least 0.998');
+  await expect(r2.getByTestId('criterion-1-words')).toHaveText('Coefficient of determination R² at least 0.998');
   await edit.getByRole('button', { name: 'Add a criterion' }).click();
   const mdl = edit.getByRole('group', { name: 'Criterion 4' });
-  await mdl.getByLabel('Figure').fill('detection.epaMdl.mdl');
+  await mdl.getByLabel('Figure').selectOption({ label: 'Method detection limit (40 CFR 136)' });
   await mdl.getByLabel('Comparison').selectOption({ label: 'at most' });
   await mdl.getByLabel('Limit').fill('0.5');
-  await mdl.getByLabel('Name shown to people').fill('Method detection limit at most 0.5 mg/L');
   await edit.getByLabel('Check standard tolerance (± %)').fill('8');
   await shot(page, 'edit-criteria');
   await edit.getByRole('button', { name: 'Save the draft' }).click();
   await expect(edit).toBeHidden();
   const criteria = first.getByRole('table', { name: 'Acceptance criteria of version 1' });
-  await expect(criteria).toContainText('Coefficient of determination r² at least 0.998');
+  await expect(criteria).toContainText('Coefficient of determination R²');
   await expect(criteria).toContainText('at least 0.998');
-  await expect(criteria).toContainText('Method detection limit at most 0.5 mg/L');
+  await expect(criteria).toContainText('Method detection limit (40 CFR 136)');
+  await expect(criteria).toContainText('at most 0.5 mg/L');
+  await expect(criteria).not.toContainText('calibration.r2');
   await expect(first).toContainText('± 8 %');
 
   // Activate version 1: it can no longer be edited.

@@ -1,4 +1,10 @@
-import type { CriterionOp } from '@meritline/shared';
+import {
+  figureLabel as catalogueFigureLabel,
+  figureUnit as catalogueFigureUnit,
+  findFigure,
+  FIGURES,
+  type CriterionOp,
+} from '@meritline/shared';
 import type { CriterionDefinition } from './types';
 
 const SUPERSCRIPT: Record<string, string> = {
@@ -73,61 +79,14 @@ export function describeRequirement(op: CriterionOp, threshold: number | [number
   return `${words} ${formatNumber(threshold as number, 6)}${suffix}`;
 }
 
-/** Figures a criterion commonly names, with their words; any other dotted path into the result works too. */
-export const FIGURE_LABELS: Record<string, string> = {
-  'calibration.slope': 'Slope',
-  'calibration.intercept': 'Intercept',
-  'calibration.r': 'Correlation coefficient r',
-  'calibration.r2': 'Coefficient of determination R²',
-  'calibration.adjR2': 'Adjusted R²',
-  'calibration.sYX': 'Residual standard deviation s(y/x)',
-  'calibration.n': 'Standards used',
-  'lackOfFit.p': 'Lack-of-fit test, p-value',
-  'lackOfFit.F': 'Lack-of-fit test, F',
-  'mandel.p': 'Mandel test, p-value',
-  'mandel.F': 'Mandel test, F',
-  'interceptTest.p': 'Intercept test, p-value',
-  'interceptTest.interceptPctOfTopResponse': 'Intercept as % of the top response',
-  'homoscedasticity.p': 'Variance check, p-value',
-  'homoscedasticity.F': 'Variance check, F',
-  'detection.sdResidual.lod': 'LOD from the residual SD',
-  'detection.sdResidual.loq': 'LOQ from the residual SD',
-  'detection.sdIntercept.lod': 'LOD from the SD of the intercept',
-  'detection.sdIntercept.loq': 'LOQ from the SD of the intercept',
-  'detection.blankSd.lod': 'LOD from the blank SD',
-  'detection.blankSd.loq': 'LOQ from the blank SD',
-  'detection.iso11843.criticalX': 'Critical value x_c (ISO 11843-2)',
-  'detection.iso11843.detectableX': 'Minimum detectable value x_d (ISO 11843-2)',
-  'detection.hubauxVos.criticalX': 'Decision limit (Hubaux–Vos)',
-  'detection.hubauxVos.detectableX': 'Detection limit (Hubaux–Vos)',
-  'detection.epaMdl.mdl': 'Method detection limit (40 CFR 136)',
-  'recovery.overall.meanPct': 'Mean recovery, all levels',
-  'recovery.overall.rsdPct': 'Recovery RSD, all levels',
-  'precision.rsdR': 'Repeatability RSD',
-  'precision.rsdI': 'Intermediate precision RSD',
-  'precision.sR': 'Repeatability SD s_r',
-  'precision.sI': 'Intermediate precision SD',
-  'precision.horwitz.horRat': 'HorRat',
-  'precision.horwitz.horRatRepeatability': 'HorRat (repeatability)',
-  'range.rePct': 'Back-calculated deviation at every level',
-  'range.rsdPct': 'RSD at every level',
-  'range.recoveryPct': 'Mean recovery at every level',
-};
+/** Figures a criterion commonly names, with their words (the catalogue in shared). */
+export const FIGURE_LABELS: Record<string, string> = Object.fromEntries(FIGURES.map((figure) => [figure.key, figure.label]));
 
 /** Figures whose values are percentages, for the unit beside the requirement. */
 const PERCENT_FIGURE = /Pct|(^|\.)(rsdR|rsdI|predictedRsd)$/;
 
-/** `recovery.byLevel.low.meanPct` → "Mean recovery at level low"; known paths get their own words. */
-export function figureLabel(figure: string): string {
-  const path = figure.replace(/\[(\w+)\]/g, '.$1');
-  if (FIGURE_LABELS[path]) return FIGURE_LABELS[path];
-  const byLevel = /^recovery\.byLevel\.([^.]+)\.(meanPct|rsdPct|sdPct)$/.exec(path);
-  if (byLevel) {
-    const what = byLevel[2] === 'meanPct' ? 'Mean recovery' : byLevel[2] === 'rsdPct' ? 'Recovery RSD' : 'Recovery SD';
-    return `${what} at level ${byLevel[1]}`;
-  }
-  return path;
-}
+/** `recovery.byLevel.low.meanPct` → "Mean recovery at level low"; never a code path. */
+export const figureLabel = catalogueFigureLabel;
 
 /** Figures in concentration (x) and response (y) units; the rest are ratios, statistics or counts. */
 const X_FIGURE =
@@ -135,6 +94,7 @@ const X_FIGURE =
 const Y_FIGURE = /^(calibration\.(intercept|sYX|seIntercept)|detection\.[^.]+\.(criticalResponse|responseLod|responseLoq))$/;
 
 export function figureUnit(figure: string, units: { x?: string; y?: string } = {}): string | undefined {
+  if (findFigure(figure)) return catalogueFigureUnit(figure, units);
   const path = figure.replace(/\[(\w+)\]/g, '.$1');
   if (PERCENT_FIGURE.test(path)) return '%';
   if (X_FIGURE.test(path)) return units.x;
@@ -143,6 +103,8 @@ export function figureUnit(figure: string, units: { x?: string; y?: string } = {
 }
 
 export function criterionName(criterion: Pick<CriterionDefinition, 'figure' | 'label'>): string {
+  // A known figure is named by the catalogue, so a hand-written label cannot contradict the limit beside it.
+  if (findFigure(criterion.figure)) return figureLabel(criterion.figure);
   return criterion.label?.trim() || figureLabel(criterion.figure);
 }
 

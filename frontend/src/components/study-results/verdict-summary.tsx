@@ -1,4 +1,5 @@
 import { Box, HStack, Stack, Text } from '@chakra-ui/react';
+import { findFigure } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';
 import { describeRequirement, formatNumber, withUnit } from './format';
@@ -13,8 +14,8 @@ const columns = column.columns([
     cell: (info) => (
       <Stack gap="0">
         <Text fontWeight="500">{info.getValue()}</Text>
-        <Text fontSize="xs" color="fg.muted" fontFamily="mono">
-          {info.row.original.figure}
+        <Text fontSize="xs" color="fg.muted">
+          {findFigure(info.row.original.figure)?.section ?? 'Other figure'}
         </Text>
       </Stack>
     ),

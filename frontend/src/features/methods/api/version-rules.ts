@@ -1,6 +1,6 @@
-import { CRITERION_OPS, type CriterionOp, type MethodVersionSettings } from '@meritline/shared';
+import { CRITERION_OPS, describeCriterion, type CriterionOp, type MethodVersionSettings } from '@meritline/shared';
 import * as yup from 'yup';
-import type { CriterionDefinition } from '@/components/study-results';
+import { figureLabel, type CriterionDefinition } from '@/components/study-results';
 
 /** A criterion as the form edits it: `value` is the lower limit of a `between`, `high` its upper. */
 export interface CriterionRow {
@@ -24,7 +24,7 @@ const numberText = (required: string) =>
     .test('number', 'Enter a number.', (text) => text === undefined || Number.isFinite(toNumber(text)));
 
 export const criterionRowSchema = yup.object({
-  figure: yup.string().trim().required('Name the figure, e.g. calibration.r2.'),
+  figure: yup.string().trim().required('Choose a figure.'),
   label: yup.string().trim().max(200, 'Use at most 200 characters.').default(''),
   op: yup
     .mixed<CriterionOp>()
@@ -83,7 +83,18 @@ export function fromCriterionRows(rows: readonly CriterionRow[]): CriterionDefin
     figure: row.figure.trim(),
     op: row.op,
     value: row.op === 'between' ? [toNumber(row.value), toNumber(row.high)] : toNumber(row.value),
-    ...(row.label.trim() ? { label: row.label.trim() } : {}),
+    // The words are written from the figure, comparison and limit, so they cannot contradict the limit.
+    label: criterionRowInWords(row),
     ...(row.level !== undefined ? { level: row.level } : {}),
   }));
+}
+
+/** "Repeatability RSD at most 2 %", or the figure alone while the limit is not a number yet. */
+export function criterionRowInWords(row: CriterionRow): string {
+  const low = toNumber(row.value);
+  const high = toNumber(row.high);
+  const complete =
+    Number.isFinite(low) && row.value.trim() !== '' && (row.op !== 'between' || (Number.isFinite(high) && row.high.trim() !== ''));
+  if (!complete) return figureLabel(row.figure);
+  return describeCriterion({ figure: row.figure, op: row.op, value: row.op === 'between' ? [low, high] : low });
 }

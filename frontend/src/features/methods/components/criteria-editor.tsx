@@ -1,9 +1,8 @@
 import { Box, Button, Field, Grid, HStack, IconButton, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
-import { CRITERION_OPS, type CriterionOp } from '@meritline/shared';
+import { CRITERION_OPS, figuresBySection, findFigure, type CriterionOp } from '@meritline/shared';
 import { FieldArray, getIn, useFormikContext } from 'formik';
-import { useId } from 'react';
-import { FIGURE_LABELS, figureLabel } from '@/components/study-results';
-import type { CriterionRow } from '../api/version-rules';
+import { figureLabel } from '@/components/study-results';
+import { criterionRowInWords as rowInWords, type CriterionRow } from '../api/version-rules';
 
 const OP_LABELS: Record<CriterionOp, string> = {
   '>=': 'at least',
@@ -16,11 +15,10 @@ const OP_LABELS: Record<CriterionOp, string> = {
 
 const NEW_ROW: CriterionRow = { figure: '', label: '', op: '>=', value: '', high: '' };
 
-/** The acceptance criteria of a version as editable rows: figure, comparison, limit(s) and a name for people. */
+/** The acceptance criteria of a version as editable rows: a figure from the catalogue, a comparison and limit(s); the words follow from them. */
 export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
   const { values, errors, touched, submitCount, setFieldValue, setFieldTouched } = useFormikContext<Record<string, unknown>>();
   const rows = (getIn(values, name) as CriterionRow[]) ?? [];
-  const listId = useId();
   const errorAt = (i: number, key: keyof CriterionRow): string | undefined => {
     const error = getIn(errors, `${name}.${i}.${key}`);
     const shown = submitCount > 0 || getIn(touched, `${name}.${i}.${key}`);
@@ -31,13 +29,6 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
     <FieldArray name={name}>
       {({ push, remove }) => (
         <Stack gap="3">
-          <datalist id={listId}>
-            {Object.entries(FIGURE_LABELS).map(([figure, label]) => (
-              <option key={figure} value={figure}>
-                {label}
-              </option>
-            ))}
-          </datalist>
           {rows.length === 0 && (
             <Text color="fg.muted" fontSize="sm">
               No criteria yet. Studies on this version will show every figure but no verdict.
@@ -48,30 +39,34 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
             return (
               <Box key={i} borderWidth="1px" borderColor="border" borderRadius="l2" p="3" role="group" aria-label={`Criterion ${i + 1}`}>
                 <Grid templateColumns={{ base: 'minmax(0, 1fr)', md: 'repeat(8, minmax(0, 1fr))' }} gap="3" alignItems="start">
-                  <Field.Root invalid={Boolean(errorAt(i, 'figure'))} gridColumn={{ md: 'span 4' }}>
+                  <Field.Root invalid={Boolean(errorAt(i, 'figure'))} gridColumn={{ md: 'span 8' }}>
                     <Field.Label>Figure</Field.Label>
-                    <Input
-                      list={listId}
-                      value={row.figure}
-                      placeholder="calibration.r2"
-                      fontFamily="mono"
-                      onChange={(e) => void setFieldValue(`${prefix}.figure`, e.target.value)}
-                      onBlur={() => void setFieldTouched(`${prefix}.figure`, true)}
-                    />
+                    <NativeSelect.Root>
+                      <NativeSelect.Field
+                        value={row.figure}
+                        onChange={(e) => void setFieldValue(`${prefix}.figure`, e.target.value)}
+                        onBlur={() => void setFieldTouched(`${prefix}.figure`, true)}
+                      >
+                        <option value="">Choose a figure…</option>
+                        {row.figure && !findFigure(row.figure) && <option value={row.figure}>{figureLabel(row.figure)}</option>}
+                        {figuresBySection().map(({ section, figures }) => (
+                          <optgroup key={section} label={section}>
+                            {figures.map((figure) => (
+                              <option key={figure.key} value={figure.key}>
+                                {figure.label}
+                                {figure.unit === 'percent' ? ' (%)' : ''}
+                              </option>
+                            ))}
+                          </optgroup>
+                        ))}
+                      </NativeSelect.Field>
+                      <NativeSelect.Indicator />
+                    </NativeSelect.Root>
                     {errorAt(i, 'figure') ? (
                       <Field.ErrorText>{errorAt(i, 'figure')}</Field.ErrorText>
                     ) : (
-                      row.figure && <Field.HelperText>{figureLabel(row.figure)}</Field.HelperText>
+                      row.figure && <Field.HelperText data-testid={`criterion-${i + 1}-words`}>{rowInWords(row)}</Field.HelperText>
                     )}
-                  </Field.Root>
-                  <Field.Root invalid={Boolean(errorAt(i, 'label'))} gridColumn={{ md: 'span 4' }}>
-                    <Field.Label>Name shown to people</Field.Label>
-                    <Input
-                      value={row.label}
-                      placeholder="Optional"
-                      onChange={(e) => void setFieldValue(`${prefix}.label`, e.target.value)}
-                    />
-                    {errorAt(i, 'label') && <Field.ErrorText>{errorAt(i, 'label')}</Field.ErrorText>}
                   </Field.Root>
                   <Field.Root gridColumn={{ md: 'span 3' }}>
                     <Field.Label>Comparison</Field.Label>

@@ -1,4 +1,5 @@
 import { Stack, Text } from '@chakra-ui/react';
+import { findFigure } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { criterionName, describeRequirement, figureUnit, type CriterionDefinition } from '@/components/study-results';
 
@@ -10,8 +11,8 @@ const columns = column.columns([
     cell: (info) => (
       <Stack gap="0">
         <Text fontWeight="500">{criterionName(info.row.original)}</Text>
-        <Text fontSize="xs" color="fg.muted" fontFamily="mono">
-          {info.row.original.figure}
+        <Text fontSize="xs" color="fg.muted">
+          {findFigure(info.row.original.figure)?.section ?? 'Other figure'}
         </Text>
       </Stack>
     ),
