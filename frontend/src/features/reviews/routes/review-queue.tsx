@@ -1,5 +1,6 @@
-import { Badge, Link, Stack, Text } from '@chakra-ui/react';
+import { Badge, Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
@@ -9,16 +10,32 @@ import { formatDateTime } from '@/lib/format';
 import { reviewQueueQueries } from '../api/review-queries';
 import type { QueueItem } from '../api/review-types';
 
-const column = dataTableColumns<QueueItem>();
+/** The queue lists validation studies and routine runs; each item says which. */
+type QueueEntry = QueueItem & { kind?: 'study' | 'run' };
+type KindFilter = 'all' | 'study' | 'run';
+const KIND_FILTERS: { value: KindFilter; label: string }[] = [
+  { value: 'all', label: 'Everything' },
+  { value: 'study', label: 'Validation studies' },
+  { value: 'run', label: 'Routine runs' },
+];
+
+const column = dataTableColumns<QueueEntry>();
 const columns = column.columns([
   column.accessor('title', {
-    header: 'Study',
+    header: 'Item',
     cell: (info) => (
       <Link asChild fontWeight="600" color="brand.fg">
-        <RouterLink to={paths.studyView.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
+        <RouterLink
+          to={
+            info.row.original.kind === 'run' ? paths.runDetail.getHref(info.row.original.id) : paths.studyView.getHref(info.row.original.id)
+          }
+        >
+          {info.getValue()}
+        </RouterLink>
       </Link>
     ),
   }),
+  column.accessor('kind', { header: 'Kind', cell: (info) => (info.getValue() === 'run' ? 'Routine run' : 'Validation study') }),
   column.accessor('methodName', {
     header: 'Method',
     cell: (info) => (
@@ -35,32 +52,53 @@ const columns = column.columns([
   column.accessor('stage', {
     header: 'Waiting for',
     cell: (info) =>
-      info.getValue() === 'release' ? <Badge colorPalette="purple">Quality release</Badge> : <Badge colorPalette="orange">Review</Badge>,
+      info.row.original.kind === 'run' ? (
+        <Badge colorPalette="orange">Review and release</Badge>
+      ) : info.getValue() === 'release' ? (
+        <Badge colorPalette="purple">Quality release</Badge>
+      ) : (
+        <Badge colorPalette="orange">Review</Badge>
+      ),
   }),
 ]);
 
 export default function ReviewQueuePage() {
   const queue = useQuery(reviewQueueQueries.list());
+  const [kind, setKind] = useState<KindFilter>('all');
+  const items = (queue.data as QueueEntry[] | undefined)?.filter((item) => kind === 'all' || (item.kind ?? 'study') === kind);
   return (
     <>
       <PageHeader
         section="Second person review"
         title="Review queue"
-        description="Studies submitted by analysts and waiting for your check, oldest first. Studies you wrote or edited are not listed: a second person must review them."
+        description="Studies and routine runs submitted by analysts and waiting for your check, oldest first. What you wrote, edited or performed is not listed: a second person must review it."
       />
       <Stack gap="4">
+        <HStack gap="2" role="group" aria-label="Show">
+          {KIND_FILTERS.map((filter) => (
+            <Button
+              key={filter.value}
+              size="sm"
+              variant={kind === filter.value ? 'solid' : 'outline'}
+              aria-pressed={kind === filter.value}
+              onClick={() => setKind(filter.value)}
+            >
+              {filter.label}
+            </Button>
+          ))}
+        </HStack>
         {queue.isError ? (
           <QueryError error={queue.error} onRetry={() => void queue.refetch()} />
         ) : (
           <DataTable
-            label="Studies awaiting review"
+            label="Items awaiting review"
             columns={columns}
-            data={queue.data}
+            data={items}
             getRowId={(item) => item.id}
             isLoading={queue.isPending}
             pageSize={25}
             emptyTitle="Nothing waits for you"
-            emptyDescription="Submitted studies appear here; you are notified when one arrives."
+            emptyDescription="Submitted studies and runs appear here; you are notified when one arrives."
           />
         )}
         <Text fontSize="sm" color="fg.muted">

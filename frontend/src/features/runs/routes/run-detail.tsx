@@ -12,6 +12,7 @@ import { paths } from '@/lib/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { downloadRunFile, type RunFileKind } from '../api/run-files';
 import { runsQueries } from '../api/runs-queries';
+import { RunReleaseActions, RunReleasePanel, RunReviewBadge, useRunReview } from '../components/run-release-panel';
 import { RunResultView } from '../components/run-result-view';
 import { RunStatusBadge } from '../components/run-status-badge';
 
@@ -24,6 +25,7 @@ const FILES: { kind: RunFileKind; label: string }[] = [
 export default function RunDetailPage() {
   const { runId = '' } = useParams();
   const run = useQuery(runsQueries.detail(runId));
+  const review = useRunReview(runId);
   const [busy, setBusy] = useState<RunFileKind | null>(null);
 
   if (run.isPending) return <PageSpinner label="Loading the run" />;
@@ -54,6 +56,7 @@ export default function RunDetailPage() {
         description={
           <HStack as="span" gap="3" wrap="wrap">
             <RunStatusBadge status={r.status} />
+            {review.data && <RunReviewBadge status={review.data.reviewStatus} />}
             <span>
               {r.method.name}, version {r.versionNumber} · {MODEL_LABELS[r.model] ?? r.model} · {r.author.name} ·{' '}
               {formatDateTime(r.createdAt)}
@@ -61,7 +64,8 @@ export default function RunDetailPage() {
           </HStack>
         }
         actions={
-          <HStack gap="3">
+          <HStack gap="3" wrap="wrap">
+            {review.data && <RunReleaseActions runId={r.id} review={review.data} />}
             <Menu.Root>
               <Menu.Trigger asChild>
                 <Button variant="outline" loading={busy !== null}>
@@ -87,6 +91,7 @@ export default function RunDetailPage() {
         }
       />
       <Stack gap="6">
+        {review.data && <RunReleasePanel review={review.data} />}
         <RunResultView
           status={r.status}
           result={r.result}
