@@ -197,6 +197,14 @@ describe('validation reports', () => {
       expect(text).toContain(`Residual SD of the calibration, ICH Q2(R2) — 0.740 2.24`);
     });
 
+    it('should print the criteria as evaluated in words, never as paths into the result', () => {
+      const text = pdftotext(reportFile);
+      const printed = text.slice(text.indexOf('Acceptance criteria as evaluated'));
+      expect(printed).toContain('Acceptance criteria as evaluated');
+      expect(printed).toMatch(/Coefficient of determination R² at least 0\.99/);
+      expect(printed).not.toMatch(/calibration\.r2|recovery\.overall|abs<=|>= 0/);
+    });
+
     it('should carry every section, the signatures, the review comment, the data hash on every page and the caution', () => {
       const text = pdftotext(reportFile);
       for (const heading of ['1 Summary', '2 Calibration', '3 Detection and quantitation limits', '4 Recovery and precision', '5 Outliers and exclusions', '6 Statistical methods and references', '7 Electronic signatures and review', '8 Caution']) {
