@@ -113,6 +113,14 @@ describe('method lifecycle', () => {
         .set(await auth(DEMO.analyst))
         .expect(200);
       expect(signatures.body).toEqual([expect.objectContaining({ justification: JUSTIFICATION })]);
+      const history = await t
+        .http()
+        .get(`/api/studies/${study.id}/history`)
+        .set(await auth(DEMO.analyst))
+        .expect(200);
+      expect(history.body).toEqual(
+        expect.arrayContaining([expect.objectContaining({ action: 'study.approved', detail: `Justification: ${JUSTIFICATION}` })]),
+      );
       const [entry] = rows(
         `SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'signature.reviewed-and-approved'`,
         res.body.signature.id,

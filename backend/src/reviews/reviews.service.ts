@@ -216,7 +216,9 @@ export class ReviewsService {
         .where('id = :id AND lock_version = :lockVersion', { id: study.id, lockVersion: study.lockVersion })
         .execute();
       if (result.affected !== 1) throw new ConflictException('Someone else acted on this study at the same moment; reload it to see its current state.');
-      await this.audit.record({ actor, action, entity: 'study', entityId: study.id, changes: { status: { from: study.status, to } }, reason }, manager);
+      const justification = signature?.justification ? `Justification: ${signature.justification}` : null;
+      const detail = [reason, justification].filter(Boolean).join(' ') || null;
+      await this.audit.record({ actor, action, entity: 'study', entityId: study.id, changes: { status: { from: study.status, to } }, reason: detail }, manager);
       if (signature) signed = await this.sign(manager, study, actor, signature, reason);
       deliver = await this.notices.prepare(transition.event, study, actor, reason, manager);
       return manager.getRepository(ValidationStudy).findOneByOrFail({ id: study.id });
