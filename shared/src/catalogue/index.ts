@@ -1,1 +1,2 @@
 export * from './figures.js';
+export * from './format.js';
