@@ -151,7 +151,7 @@ export function calibrationFigure(
       {
         type: 'scatter',
         mode: 'markers',
-        name: 'Samples read off the line',
+        name: 'Samples read off the line (undiluted reading)',
         x: unknowns.map((u) => u.xRead),
         y: unknowns.map((u) => u.yMean),
         text: unknowns.map((u) => u.id),

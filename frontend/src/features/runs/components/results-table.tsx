@@ -1,4 +1,5 @@
 import { Badge, Stack, Text } from '@chakra-ui/react';
+import { roundToInterval } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { formatNumber } from '@/components/study-results';
@@ -30,16 +31,22 @@ function columnsFor(xUnit: string, yUnit: string, confidencePct: number) {
         </Stack>
       ),
     }),
+    column.accessor('x0Undiluted', {
+      header: headerWithUnit('Read off the line, undiluted', xUnit),
+      meta: { align: 'end' },
+      cell: (info) => <Text whiteSpace="nowrap">{formatNumber(info.getValue(), 4)}</Text>,
+    }),
     column.accessor('x0', {
-      header: headerWithUnit('Read off the line', xUnit),
+      header: headerWithUnit('Result, dilution corrected', xUnit),
       meta: { align: 'end' },
       cell: (info) => {
         const ci = info.row.original.ci;
+        const rounded = ci ? roundToInterval(info.getValue(), (ci[1] - ci[0]) / 2) : null;
         return (
           <Stack gap="0" align="flex-end">
-            <Text whiteSpace="nowrap">{formatNumber(info.getValue(), 4)}</Text>
+            <Text whiteSpace="nowrap">{rounded ? `${rounded.value} ± ${rounded.halfWidth}` : formatNumber(info.getValue(), 3)}</Text>
             <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
-              {ci ? `${confidencePct} %: ${formatNumber(ci[0], 4)} to ${formatNumber(ci[1], 4)}` : 'no interval'}
+              {rounded ? `calibration confidence interval, ${confidencePct} %` : 'no interval'}
             </Text>
           </Stack>
         );

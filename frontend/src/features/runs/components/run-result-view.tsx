@@ -1,6 +1,6 @@
 import { Alert, Box, DataList, Heading, List, Stack, Text } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
-import type { RunStatus } from '@meritline/shared';
+import { formatR2, type RunStatus } from '@meritline/shared';
 import { formatNumber } from '@/components/study-results';
 import type { RunData, RunResult } from '../api/types';
 import { ChecksTable } from './checks-table';
@@ -90,7 +90,7 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
             <DataList.Item>
               <DataList.ItemLabel>R² and residual SD</DataList.ItemLabel>
               <DataList.ItemValue>
-                {formatNumber(calibration.r2, 5)}; {formatNumber(calibration.sYX, 3)} {units.y}
+                {formatR2(calibration.r2)}; {formatNumber(calibration.sYX, 3)} {units.y}
               </DataList.ItemValue>
             </DataList.Item>
           )}

@@ -1,0 +1,38 @@
+import { screen, within } from '@testing-library/react';
+import { ResultsTable } from '@/features/runs/components/results-table';
+import type { RunUnknown } from '@/features/runs/api/types';
+import { renderWithProviders } from './render';
+
+// Invented sample, diluted 1:10: the line reads 32.254 mg/L; the result is ten times that.
+const sample = {
+  id: 'W-2901',
+  m: 2,
+  yMean: 4.915,
+  dilution: 10,
+  x0: 322.5437,
+  x0Undiluted: 32.25437,
+  ci: [319.4148, 325.6726],
+  flags: [],
+  reported: '322.5 ± 3.1 mg/L',
+  remarks: [],
+  suggestedDilution: null,
+  reportable: true,
+} as unknown as RunUnknown;
+
+describe('run results', () => {
+  it('shows the undiluted reading and the dilution-corrected result in columns of their own, rounded to the interval it names', async () => {
+    renderWithProviders(<ResultsTable unknowns={[sample]} xUnit="mg/L" yUnit="µS·min" confidence={0.95} />);
+    const table = await screen.findByRole('table', { name: 'Sample results' });
+    const headers = within(table)
+      .getAllByRole('columnheader')
+      .map((h) => h.textContent);
+    expect(headers.some((h) => /Read off the line, undiluted/.test(h ?? ''))).toBe(true);
+    expect(headers.some((h) => /Result, dilution corrected/.test(h ?? ''))).toBe(true);
+    const row = within(table).getByRole('row', { name: /W-2901/ });
+    expect(row).toHaveTextContent('32.25');
+    // JCGM 100:2008 7.2.6: the half-width 3.129 to two significant digits, the result to the same place.
+    expect(row).toHaveTextContent('322.5 ± 3.1');
+    expect(row).not.toHaveTextContent('322.54');
+    expect(row).toHaveTextContent('calibration confidence interval, 95 %');
+  });
+});
