@@ -49,7 +49,7 @@ describe('method lifecycle', () => {
     const study = await createStudy(t, { author: DEMO.analyst, status });
     await dataSourceOf(t)
       .getRepository(ValidationStudy)
-      .update({ id: study.id }, { ...evaluated(failingData()), approvedAt: status === 'approved' ? new Date() : null });
+      .save({ ...study, ...evaluated(failingData()), approvedAt: status === 'approved' ? new Date() : null });
     return dataSourceOf(t).getRepository(ValidationStudy).findOneByOrFail({ id: study.id });
   }
 

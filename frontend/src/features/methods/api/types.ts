@@ -1,4 +1,4 @@
-import type { MethodVersionSettings, MethodVersionStatus } from '@meritline/shared';
+import type { MethodChangeKind, MethodVersionSettings, MethodVersionStatus, RevalidationFamily } from '@meritline/shared';
 import type { CriterionDefinition } from '@/components/study-results';
 
 export interface MethodVersionDto {
@@ -6,6 +6,12 @@ export interface MethodVersionDto {
   number: number;
   status: MethodVersionStatus;
   changeSummary: string;
+  /** Null for the first version of a method. */
+  changeKind: MethodChangeKind | null;
+  revalidationScope: RevalidationFamily[];
+  /** Whether an approved study of this version shows every family in scope again, and which it lacks. */
+  coverage: { covered: boolean; missing: RevalidationFamily[]; studyId: string | null };
+  activationJustification: string | null;
   criteria: CriterionDefinition[];
   settings: MethodVersionSettings;
   lockVersion: number;

@@ -19,11 +19,25 @@ export function useUpdateVersion(version: Pick<MethodVersionDto, 'id' | 'lockVer
   });
 }
 
+/** A quality manager's activation without a covering study: a written reason signed with the re-entered password. */
+export interface ActivationSignature {
+  activationJustification: string;
+  password: string;
+}
+
 export function useChangeVersionStatus(version: Pick<MethodVersionDto, 'id' | 'lockVersion'>) {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (status: MethodVersionStatus) =>
-      api.patch<MethodVersionDto>(`/method-versions/${encodeURIComponent(version.id)}`, { lockVersion: version.lockVersion, status }),
+    mutationFn: ({ status, signature }: { status: MethodVersionStatus; signature?: ActivationSignature }) =>
+      api.patch<MethodVersionDto>(
+        `/method-versions/${encodeURIComponent(version.id)}`,
+        {
+          lockVersion: version.lockVersion,
+          status,
+          ...signature,
+        },
+        signature ? { passwordCheck: true } : undefined,
+      ),
     onSettled: () => queryClient.invalidateQueries({ queryKey: methodsQueries.all }),
   });
 }

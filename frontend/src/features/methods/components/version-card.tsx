@@ -1,4 +1,5 @@
 import { Box, DataList, Heading, HStack, Stack, Text } from '@chakra-ui/react';
+import { DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT, METHOD_CHANGE_KIND_LABELS, REVALIDATION_FAMILY_LABELS } from '@meritline/shared';
 import { formatDateTime } from '@/lib/format';
 import type { MethodDto, MethodVersionDto } from '../api/types';
 import { CriteriaList } from './criteria-list';
@@ -51,6 +52,33 @@ export function VersionCard({ method, version, canManage, canEdit }: VersionCard
         </HStack>
         <Text whiteSpace="pre-wrap">{version.changeSummary}</Text>
         <DataList.Root orientation="horizontal" size="sm" variant="subtle">
+          {version.changeKind && (
+            <>
+              <DataList.Item>
+                <DataList.ItemLabel>Kind of change</DataList.ItemLabel>
+                <DataList.ItemValue>{METHOD_CHANGE_KIND_LABELS[version.changeKind]}</DataList.ItemValue>
+              </DataList.Item>
+              <DataList.Item>
+                <DataList.ItemLabel>Figures to show again</DataList.ItemLabel>
+                <DataList.ItemValue>
+                  {version.revalidationScope.length
+                    ? version.revalidationScope.map((family) => REVALIDATION_FAMILY_LABELS[family]).join(', ')
+                    : 'None'}
+                  {version.status === 'draft' &&
+                    version.revalidationScope.length > 0 &&
+                    (version.coverage.covered
+                      ? ' (shown by an approved study)'
+                      : ` (missing: ${version.coverage.missing.map((family) => REVALIDATION_FAMILY_LABELS[family].toLowerCase()).join(', ')})`)}
+                </DataList.ItemValue>
+              </DataList.Item>
+            </>
+          )}
+          {version.activationJustification && (
+            <DataList.Item>
+              <DataList.ItemLabel>Activated with justification</DataList.ItemLabel>
+              <DataList.ItemValue>{version.activationJustification}</DataList.ItemValue>
+            </DataList.Item>
+          )}
           <DataList.Item>
             <DataList.ItemLabel>Validation studies</DataList.ItemLabel>
             <DataList.ItemValue>
@@ -64,6 +92,12 @@ export function VersionCard({ method, version, canManage, canEdit }: VersionCard
           <DataList.Item>
             <DataList.ItemLabel>One-point calibration</DataList.ItemLabel>
             <DataList.ItemValue>allowed up to an intercept of {settings.onePointMaxInterceptPct} % of the top response</DataList.ItemValue>
+          </DataList.Item>
+          <DataList.Item>
+            <DataList.ItemLabel>Recovery equivalence margin</DataList.ItemLabel>
+            <DataList.ItemValue>
+              ± {settings.recoveryEquivalenceMarginPct ?? DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT} percentage points
+            </DataList.ItemValue>
           </DataList.Item>
           <DataList.Item>
             <DataList.ItemLabel>Release of studies</DataList.ItemLabel>

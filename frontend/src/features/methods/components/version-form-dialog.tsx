@@ -4,10 +4,12 @@ import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
-import { useCreateVersion, versionFormSchema, type VersionFormValues } from '../api/create-version';
+import { DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT } from '@meritline/shared';
+import { newVersionFormSchema, useCreateVersion, versionFormSchema, type VersionFormValues } from '../api/create-version';
 import type { MethodDto, MethodVersionDto } from '../api/types';
 import { useUpdateVersion } from '../api/update-version';
 import { toCriterionRows } from '../api/version-rules';
+import { ChangeControlFields } from './change-control-fields';
 import { CriteriaEditor } from './criteria-editor';
 import { SettingsFields } from './settings-fields';
 
@@ -28,9 +30,17 @@ export function VersionFormDialog({ method, mode, version, triggerLabel, proposa
   const nextNumber = Math.max(...method.versions.map((v) => v.number)) + 1;
   const initialValues: VersionFormValues = {
     changeSummary: mode === 'edit' ? version.changeSummary : '',
+    changeKind: mode === 'edit' ? (version.changeKind ?? '') : 'other',
+    revalidationScope: mode === 'edit' ? (version.revalidationScope ?? []) : [],
     criteria: toCriterionRows(version.criteria),
-    settings: { ...version.settings },
+    settings: {
+      requiresQualityRelease: version.settings.requiresQualityRelease,
+      checkTolerancePct: version.settings.checkTolerancePct,
+      onePointMaxInterceptPct: version.settings.onePointMaxInterceptPct,
+    },
+    recoveryEquivalenceMarginPct: version.settings.recoveryEquivalenceMarginPct ?? DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT,
   };
+  const recordsChange = mode === 'new' || version.changeKind !== null;
   const title = mode === 'edit' ? `Edit draft version ${version.number}` : `${proposal ? 'Propose' : 'Create'} version ${nextNumber}`;
 
   const submit = async (values: VersionFormValues) => {
@@ -77,7 +87,7 @@ export function VersionFormDialog({ method, mode, version, triggerLabel, proposa
               </Dialog.Description>
               <Form
                 initialValues={initialValues}
-                validationSchema={versionFormSchema}
+                validationSchema={mode === 'new' ? newVersionFormSchema : versionFormSchema}
                 onSubmit={submit}
                 submitLabel={mode === 'edit' ? 'Save the draft' : 'Create the draft'}
                 secondaryAction={
@@ -89,6 +99,7 @@ export function VersionFormDialog({ method, mode, version, triggerLabel, proposa
                 <FormField name="changeSummary" label="What changes, and why" required>
                   {(field) => <Textarea {...field} value={String(field.value ?? '')} rows={2} autoresize />}
                 </FormField>
+                <ChangeControlFields recordsChange={recordsChange} />
                 <Stack gap="2">
                   <Heading as="h3" size="sm">
                     Acceptance criteria

@@ -1,10 +1,11 @@
-import { Button, CloseButton, Dialog, Portal, Text } from '@chakra-ui/react';
-import type { MethodVersionStatus } from '@meritline/shared';
-import { useState } from 'react';
+import { Alert, Button, CloseButton, Dialog, Field, Input, List, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
+import { MIN_JUSTIFICATION_LENGTH, REVALIDATION_FAMILY_LABELS, Role, type MethodVersionStatus } from '@meritline/shared';
+import { useId, useState } from 'react';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
+import { useSession } from '@/lib/auth';
 import type { MethodVersionDto } from '../api/types';
-import { useChangeVersionStatus } from '../api/update-version';
+import { useChangeVersionStatus, type ActivationSignature } from '../api/update-version';
 
 const ACTIONS: Partial<Record<MethodVersionStatus, { to: MethodVersionStatus; label: string; explain: string }>> = {
   draft: {
@@ -29,32 +30,64 @@ export function VersionStatusAction({
   /** The number of the version now active, which activation retires. */ replaces?: number;
 }) {
   const [open, setOpen] = useState(false);
+  const [justification, setJustification] = useState('');
+  const [password, setPassword] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const ids = useId();
+  const { user } = useSession();
   const changeStatus = useChangeVersionStatus(version);
   const action = ACTIONS[version.status];
   if (!action) return null;
 
-  const confirm = () =>
-    changeStatus.mutate(action.to, {
-      onSuccess: () => {
-        setOpen(false);
-        toaster.create({ type: 'success', title: `Version ${version.number} is now ${action.to}` });
-      },
-      onError: (error) => {
-        setOpen(false);
-        if (isApiError(error) && error.status === 409) {
+  const activating = action.to === 'active';
+  const uncovered = activating && version.coverage && !version.coverage.covered;
+  const isQualityManager = user?.roles.includes(Role.QualityManager) ?? false;
+  const justificationShort = justification.trim().length < MIN_JUSTIFICATION_LENGTH;
+
+  const confirm = (signature?: ActivationSignature) =>
+    changeStatus.mutate(
+      { status: action.to, signature },
+      {
+        onSuccess: () => {
+          setOpen(false);
           toaster.create({
-            type: 'warning',
-            title: 'Not changed',
-            description: 'Someone else changed this version first. The page now shows the current state.',
+            type: 'success',
+            title: `Version ${version.number} is now ${action.to}${signature ? ', with your signed justification' : ''}`,
           });
-        }
+        },
+        onError: (error) => {
+          if (isApiError(error) && error.status === 401) {
+            setProblem('Password not correct; the version was not activated.');
+            return;
+          }
+          if (isApiError(error) && error.status === 422) {
+            setProblem(error.message);
+            return;
+          }
+          setOpen(false);
+          if (isApiError(error) && error.status === 409) {
+            toaster.create({
+              type: 'warning',
+              title: 'Not changed',
+              description: 'Someone else changed this version first. The page now shows the current state.',
+            });
+          }
+        },
       },
-    });
+    );
 
   return (
-    <Dialog.Root open={open} onOpenChange={(e) => setOpen(e.open)} role="alertdialog">
+    <Dialog.Root
+      open={open}
+      onOpenChange={(e) => {
+        setOpen(e.open);
+        setProblem(null);
+        setPassword('');
+      }}
+      role="alertdialog"
+    >
       <Dialog.Trigger asChild>
-        <Button size="sm" variant={action.to === 'active' ? 'solid' : 'outline'} colorPalette={action.to === 'retired' ? 'red' : undefined}>
+        <Button size="sm" variant={activating ? 'solid' : 'outline'} colorPalette={action.to === 'retired' ? 'red' : undefined}>
           {action.label} version {version.number}
         </Button>
       </Dialog.Trigger>
@@ -68,18 +101,90 @@ export function VersionStatusAction({
               </Dialog.Title>
             </Dialog.Header>
             <Dialog.Body>
-              <Text>{action.explain}</Text>
-              {action.to === 'active' && replaces !== undefined && (
-                <Text mt="3">Version {replaces}, active until now, will be retired.</Text>
-              )}
+              <Stack gap="3">
+                <Text>{action.explain}</Text>
+                {activating && replaces !== undefined && <Text>Version {replaces}, active until now, will be retired.</Text>}
+                {uncovered && (
+                  <Alert.Root status="warning" variant="subtle">
+                    <Alert.Indicator />
+                    <Alert.Content>
+                      <Alert.Title>Not yet shown again</Alert.Title>
+                      <Alert.Description>
+                        No approved study of this version shows these figures again, as the change requires:
+                        <List.Root ms="5" mt="1">
+                          {version.coverage.missing.map((family) => (
+                            <List.Item key={family}>{REVALIDATION_FAMILY_LABELS[family]}</List.Item>
+                          ))}
+                        </List.Root>
+                        {isQualityManager
+                          ? 'You may activate it all the same with a written justification, signed with your password.'
+                          : 'Approve a study covering them first; only a quality manager may activate without one, with a signed justification.'}
+                      </Alert.Description>
+                    </Alert.Content>
+                  </Alert.Root>
+                )}
+                {uncovered && isQualityManager && (
+                  <>
+                    <Field.Root required invalid={justification.length > 0 && justificationShort}>
+                      <Field.Label htmlFor={`${ids}-justification`}>
+                        Justification for activating without coverage
+                        <Field.RequiredIndicator />
+                      </Field.Label>
+                      <Textarea
+                        id={`${ids}-justification`}
+                        value={justification}
+                        onChange={(e) => setJustification(e.target.value)}
+                        rows={3}
+                      />
+                      <Field.HelperText>At least {MIN_JUSTIFICATION_LENGTH} characters; kept in the audit trail.</Field.HelperText>
+                    </Field.Root>
+                    <Field.Root required>
+                      <Field.Label htmlFor={`${ids}-password`}>
+                        Your password
+                        <Field.RequiredIndicator />
+                      </Field.Label>
+                      <Input
+                        id={`${ids}-password`}
+                        type="password"
+                        autoComplete="current-password"
+                        value={password}
+                        onChange={(e) => setPassword(e.target.value)}
+                      />
+                      <Field.HelperText>Your signature means: activated with justification.</Field.HelperText>
+                    </Field.Root>
+                  </>
+                )}
+                {problem && (
+                  <Alert.Root status="error" variant="subtle">
+                    <Alert.Indicator />
+                    <Alert.Description>{problem}</Alert.Description>
+                  </Alert.Root>
+                )}
+              </Stack>
             </Dialog.Body>
             <Dialog.Footer>
               <Dialog.ActionTrigger asChild>
                 <Button variant="outline">Cancel</Button>
               </Dialog.ActionTrigger>
-              <Button onClick={confirm} loading={changeStatus.isPending} colorPalette={action.to === 'retired' ? 'red' : undefined}>
-                {action.label}
-              </Button>
+              {uncovered ? (
+                isQualityManager && (
+                  <Button
+                    onClick={() => confirm({ activationJustification: justification.trim(), password })}
+                    loading={changeStatus.isPending}
+                    disabled={justificationShort || !password}
+                  >
+                    Sign and activate with justification
+                  </Button>
+                )
+              ) : (
+                <Button
+                  onClick={() => confirm()}
+                  loading={changeStatus.isPending}
+                  colorPalette={action.to === 'retired' ? 'red' : undefined}
+                >
+                  {action.label}
+                </Button>
+              )}
             </Dialog.Footer>
             <Dialog.CloseTrigger asChild>
               <CloseButton size="sm" />

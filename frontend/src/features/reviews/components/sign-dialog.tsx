@@ -1,10 +1,14 @@
 import { Alert, Button, CloseButton, Dialog, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
+import { MIN_JUSTIFICATION_LENGTH } from '@meritline/shared';
+import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
+import * as yup from 'yup';
 import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
 import { toaster } from '@/components/ui/toaster';
+import { studyReviewQueries } from '../api/review-queries';
 import { signSchema, useSignStudy, type SignValues, type SigningAction } from '../api/sign-study';
-import { APPROVAL_CAUTION } from './approval-caution';
+import { APPROVAL_CAUTION, FAILED_VERDICT_CAUTION } from './approval-caution';
 
 export interface SignDialogProps {
   studyId: string;
@@ -19,12 +23,23 @@ export interface SignDialogProps {
   onSigned?: () => void;
 }
 
-const initialValues: SignValues = { password: '', comment: '' };
+const initialValues: SignValues = { password: '', comment: '', justification: '' };
+
+const justifiedSignSchema = signSchema.shape({
+  justification: yup
+    .string()
+    .trim()
+    .required('Write why the study may be approved although it does not meet all its criteria.')
+    .min(MIN_JUSTIFICATION_LENGTH, `Write at least ${MIN_JUSTIFICATION_LENGTH} characters.`)
+    .max(4000, 'Keep the justification under 4000 characters.'),
+});
 
 /** An electronic signature: the meaning in words, the password re-entered, an optional comment. */
 export function SignDialog({ studyId, lockVersion, action, meaning, title, triggerLabel, submitLabel, successTitle, onSigned }: SignDialogProps) {
   const [open, setOpen] = useState(false);
   const sign = useSignStudy(studyId, action);
+  const study = useQuery({ ...studyReviewQueries.detail(studyId), enabled: open && action === 'approve' });
+  const needsJustification = action === 'approve' && study.data?.result?.verdict.pass === false;
 
   return (
     <Dialog.Root open={open} onOpenChange={(event) => setOpen(event.open)} size="md">
@@ -51,10 +66,20 @@ export function SignDialog({ studyId, lockVersion, action, meaning, title, trigg
                   Your name, role, the time (UTC) and a fingerprint of the study’s data and results are recorded with the signature.
                   {action === 'approve' && ` ${APPROVAL_CAUTION}`}
                 </Text>
+                {needsJustification && (
+                  <Alert.Root status="warning" variant="subtle">
+                    <Alert.Indicator />
+                    <Alert.Content>
+                      <Alert.Title>This study does not meet all its acceptance criteria</Alert.Title>
+                      <Alert.Description>{FAILED_VERDICT_CAUTION}</Alert.Description>
+                    </Alert.Content>
+                  </Alert.Root>
+                )}
               </Stack>
               <Form
+                key={needsJustification ? 'justified' : 'plain'}
                 initialValues={initialValues}
-                validationSchema={signSchema}
+                validationSchema={needsJustification ? justifiedSignSchema : signSchema}
                 onSubmit={async (values) => {
                   const result = await sign.mutateAsync({ values, lockVersion });
                   setOpen(false);
@@ -69,6 +94,16 @@ export function SignDialog({ studyId, lockVersion, action, meaning, title, trigg
                 }
               >
                 <FormField name="password" label="Your password" type="password" autoComplete="current-password" required helperText="Re-enter the password you sign in with." />
+                {needsJustification && (
+                  <FormField
+                    name="justification"
+                    label="Justification for approving although criteria are not met"
+                    required
+                    helperText="Printed with your signature in the report and kept in the review history."
+                  >
+                    {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={4} />}
+                  </FormField>
+                )}
                 <FormField name="comment" label="Comment (optional)">
                   {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={3} />}
                 </FormField>
