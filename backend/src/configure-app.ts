@@ -1,5 +1,6 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import { jsonBodyGuard } from './common/json-body-guard.js';
 import { validationPipe } from './common/validation.js';
 
 export const JSON_BODY_LIMIT = '5mb';
@@ -9,6 +10,7 @@ export function configureApp(app: NestExpressApplication) {
   app.setGlobalPrefix('api');
   app.useGlobalPipes(validationPipe);
   app.useBodyParser('json', { limit: JSON_BODY_LIMIT });
+  app.use(jsonBodyGuard);
   app.set('trust proxy', 'loopback');
   app.enableShutdownHooks();
   const document = SwaggerModule.createDocument(

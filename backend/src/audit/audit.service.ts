@@ -18,7 +18,13 @@ export interface AuditRecord {
   reason?: string | null;
 }
 
-export type AuditVerification = { ok: true; rows: number } | { ok: false; rows: number; brokenAt: number; reason: string };
+export interface AuditBreak {
+  seq: number;
+  reason: string;
+}
+
+export type AuditVerification =
+  { ok: true; rows: number } | { ok: false; rows: number; brokenAt: number; reason: string; broken: AuditBreak[] };
 
 export function auditHash(entry: Omit<AuditEntry, 'hash'>): string {
   const content = canonicalJson({
@@ -32,7 +38,9 @@ export function auditHash(entry: Omit<AuditEntry, 'hash'>): string {
     changes: entry.changes,
     reason: entry.reason,
   });
-  return createHash('sha256').update(entry.prevHash + content).digest('hex');
+  return createHash('sha256')
+    .update(entry.prevHash + content)
+    .digest('hex');
 }
 
 @Injectable()
@@ -81,8 +89,10 @@ export class AuditService {
     });
   }
 
+  /** Walks the whole chain and reports every broken entry, not only the first. */
   async verify(): Promise<AuditVerification> {
     const repo = this.dataSource.getRepository(AuditEntry);
+    const broken: AuditBreak[] = [];
     let prevHash = GENESIS_HASH;
     let expectedSeq = 1;
     let rows = 0;
@@ -91,13 +101,15 @@ export class AuditService {
       const entries = await repo.find({ order: { seq: 'ASC' }, skip: offset, take: batch });
       for (const entry of entries) {
         rows++;
-        if (entry.seq !== expectedSeq) return { ok: false, rows, brokenAt: entry.seq, reason: `entry ${expectedSeq} is missing` };
-        if (entry.prevHash !== prevHash) return { ok: false, rows, brokenAt: entry.seq, reason: 'link to the previous entry does not match' };
-        if (auditHash(entry) !== entry.hash) return { ok: false, rows, brokenAt: entry.seq, reason: 'content does not match its hash' };
+        if (entry.seq !== expectedSeq) broken.push({ seq: entry.seq, reason: `entry ${expectedSeq} is missing` });
+        else if (entry.prevHash !== prevHash) broken.push({ seq: entry.seq, reason: 'link to the previous entry does not match' });
+        if (auditHash(entry) !== entry.hash) broken.push({ seq: entry.seq, reason: 'content does not match its hash' });
         prevHash = entry.hash;
-        expectedSeq++;
+        expectedSeq = entry.seq + 1;
       }
-      if (entries.length < batch) return { ok: true, rows };
+      if (entries.length < batch) break;
     }
+    if (!broken.length) return { ok: true, rows };
+    return { ok: false, rows, brokenAt: broken[0].seq, reason: broken[0].reason, broken };
   }
 }

@@ -5,7 +5,14 @@ import { migrations } from './migrations/index.js';
 import { AuditEntrySubscriber } from '../audit/audit-entry.subscriber.js';
 
 export function typeormOptions(database: DatabaseConfig): DataSourceOptions {
-  const common = { entities, migrations, subscribers: [AuditEntrySubscriber], migrationsRun: true, synchronize: false, logging: ['error' as const] };
+  const common = {
+    entities,
+    migrations,
+    subscribers: [AuditEntrySubscriber],
+    migrationsRun: true,
+    synchronize: false,
+    logging: ['error' as const],
+  };
   if (database.type === 'postgres') return { ...common, type: 'postgres', url: database.url, uuidExtension: 'pgcrypto' };
   return {
     ...common,
@@ -15,6 +22,8 @@ export function typeormOptions(database: DatabaseConfig): DataSourceOptions {
     prepareDatabase: (db: { pragma(sql: string): unknown }) => {
       db.pragma('foreign_keys = ON');
       db.pragma('busy_timeout = 5000');
+      // A committed audit entry must survive a power cut, not only a crash of the process.
+      db.pragma('synchronous = FULL');
     },
   };
 }

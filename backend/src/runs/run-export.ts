@@ -1,5 +1,5 @@
 import ExcelJS from 'exceljs';
-import Papa from 'papaparse';
+import { toCsv } from '../common/csv.js';
 import type { RunDto } from './runs.service.js';
 import type { RunUnknown } from './run-types.js';
 
@@ -50,8 +50,7 @@ export function resultRows(run: RunDto): Record<string, string | number | null>[
 }
 
 export function runCsv(run: RunDto): string {
-  // The byte-order mark lets spreadsheet programs read ± and µ as UTF-8.
-  return `\uFEFF${Papa.unparse(resultRows(run), { newline: '\r\n' })}\r\n`;
+  return toCsv(resultRows(run));
 }
 
 function addTable(sheet: ExcelJS.Worksheet, rows: Record<string, string | number | boolean | null>[]): void {

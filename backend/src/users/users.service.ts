@@ -91,6 +91,9 @@ export class UsersService {
     if (id === actor.id && (dto.active === false || (dto.roles && !dto.roles.includes(Role.Admin)))) {
       throw new ForbiddenException('You cannot deactivate yourself or remove your own administrator role.');
     }
+    if (id === actor.id && dto.roles && JSON.stringify([...dto.roles].sort()) !== JSON.stringify([...user.roles].sort())) {
+      throw new ForbiddenException('Another administrator must change the roles of your own account.');
+    }
     const changes: FieldChanges = {};
     for (const key of ['name', 'roles', 'active'] as const) {
       if (dto[key] !== undefined && JSON.stringify(dto[key]) !== JSON.stringify(user[key]))

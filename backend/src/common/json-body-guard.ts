@@ -1,0 +1,71 @@
+import type { NextFunction, Request, Response } from 'express';
+import type { FieldError } from '@meritline/shared';
+
+export const MAX_JSON_DEPTH = 64;
+
+const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+
+const childPath = (parent: string, key: string | number) =>
+  typeof key === 'number' ? `${parent}[${key}]` : parent ? `${parent}.${key}` : key;
+
+/**
+ * Checks a parsed JSON body before any route sees it: no nesting beyond MAX_JSON_DEPTH, no number beyond the
+ * range of a double, no unpaired UTF-16 surrogate (it cannot be stored as UTF-8, so what is read back would
+ * differ from what was hashed). Strings are normalised to NFC so equal text is stored and hashed the same way.
+ */
+export function checkJsonBody(body: unknown): { value: unknown; error: FieldError | null } {
+  let error: FieldError | null = null;
+  const visit = (value: unknown, path: string, depth: number): unknown => {
+    if (error) return value;
+    if (typeof value === 'string') {
+      if (LONE_SURROGATE.test(value)) {
+        error = {
+          field: path || 'body',
+          code: 'unpairedSurrogate',
+          message: 'The text contains an invalid character (an unpaired UTF-16 surrogate).',
+        };
+        return value;
+      }
+      return value.normalize('NFC');
+    }
+    if (typeof value === 'number') {
+      if (!Number.isFinite(value))
+        error = { field: path || 'body', code: 'numberOutOfRange', message: 'The number is too large to be represented.' };
+      return value;
+    }
+    if (value === null || typeof value !== 'object') return value;
+    if (depth >= MAX_JSON_DEPTH) {
+      error = {
+        field: path || 'body',
+        code: 'tooDeep',
+        message: `The request nests objects or lists more than ${MAX_JSON_DEPTH} levels deep.`,
+      };
+      return value;
+    }
+    if (Array.isArray(value)) {
+      for (let i = 0; i < value.length && !error; i++) value[i] = visit(value[i], childPath(path, i), depth + 1);
+      return value;
+    }
+    const record = value as Record<string, unknown>;
+    const out: Record<string, unknown> = {};
+    for (const key of Object.keys(record)) {
+      if (error) break;
+      const name = visit(key, childPath(path, key), depth + 1) as string;
+      out[name] = visit(record[key], childPath(path, name), depth + 1);
+    }
+    return out;
+  };
+  const value = visit(body, '', 0);
+  return { value, error };
+}
+
+export function jsonBodyGuard(req: Request, res: Response, next: NextFunction): void {
+  if (req.body === undefined || req.body === null || typeof req.body !== 'object') return next();
+  const { value, error } = checkJsonBody(req.body);
+  if (error) {
+    res.status(422).json({ statusCode: 422, message: 'The request has invalid fields.', errors: [error] });
+    return;
+  }
+  req.body = value;
+  next();
+}

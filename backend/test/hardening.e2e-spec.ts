@@ -1,0 +1,117 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { toCsv } from '../src/common/csv.js';
+import { bearer, createStudy, dataSourceOf, openDatabaseFile } from './support/review-fixtures.js';
+import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
+
+describe('hardening against hostile input', () => {
+  let t: TestApp;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  const raw = (path: string, body: string, token?: string) => {
+    const req = t.http().post(path).set('Content-Type', 'application/json');
+    if (token) req.set('Authorization', `Bearer ${token}`);
+    return req.send(body);
+  };
+
+  it('should refuse an unpaired surrogate in a login e-mail with 422 and the field, writing nothing to the audit trail', async () => {
+    const before = (await dataSourceOf(t).query('SELECT COUNT(*) AS n FROM audit_entries'))[0].n;
+    const res = await raw('/api/auth/login', '{"email":"\\ud800x","password":"x"}').expect(422);
+    expect(res.body.errors[0]).toMatchObject({ field: 'email', code: 'unpairedSurrogate' });
+    expect((await dataSourceOf(t).query('SELECT COUNT(*) AS n FROM audit_entries'))[0].n).toBe(before);
+  });
+
+  it('should refuse an unpaired surrogate deep in a body and name its path', async () => {
+    const token = await t.tokenFor(DEMO.analyst);
+    const res = await raw('/api/studies', '{"name":"x","data":{"rows":[{"a":1},{"b":"ok \\udc00 done"}]}}', token).expect(422);
+    expect(res.body.errors[0].field).toBe('data.rows[1].b');
+  });
+
+  it('should keep a properly paired surrogate (an emoji) and accept it', async () => {
+    const res = await raw('/api/auth/login', JSON.stringify({ email: 'nobody😀@meritline.test', password: 'x' }));
+    expect(res.status).toBe(401);
+  });
+
+  it('should refuse numbers beyond the range of a double with 422 and the field', async () => {
+    const token = await t.tokenFor(DEMO.analyst);
+    for (const literal of ['1e309', '9'.repeat(400)]) {
+      const res = await raw('/api/studies', `{"name":"x","data":{"levels":[${literal}]}}`, token).expect(422);
+      expect(res.body.errors[0]).toMatchObject({ field: 'data.levels[0]', code: 'numberOutOfRange' });
+    }
+    const study = await createStudy(t, { author: DEMO.analyst });
+    const res = await t
+      .http()
+      .patch(`/api/studies/${study.id}`)
+      .set('Authorization', `Bearer ${token}`)
+      .set('Content-Type', 'application/json')
+      .send('{"data":{"x":-1e309}}')
+      .expect(422);
+    expect(res.body.errors[0].field).toBe('data.x');
+  });
+
+  it('should refuse JSON nested 3,000 levels deep with 422 instead of failing', async () => {
+    const token = await t.tokenFor(DEMO.analyst);
+    const deep = '['.repeat(3000) + ']'.repeat(3000);
+    for (const path of ['/api/studies', '/api/auth/login']) {
+      const res = await raw(path, `{"data":${deep}}`, token).expect(422);
+      expect(res.body.errors[0].code).toBe('tooDeep');
+    }
+  });
+
+  it('should normalise text to NFC so what is stored is what was hashed', async () => {
+    const admin = bearer(await t.tokenFor(DEMO.admin));
+    const decomposed = 'Jose\u0301 Nun\u0303ez';
+    const res = await t
+      .http()
+      .post('/api/users/invitations')
+      .set(admin)
+      .send({ email: 'nfc@meritline.test', name: decomposed, roles: ['analyst'] });
+    expect(res.status).toBeLessThan(300);
+    expect(res.body.name).toBe(decomposed.normalize('NFC'));
+  });
+
+  it('should not let an administrator change the roles of its own account', async () => {
+    const admin = bearer(await t.tokenFor(DEMO.admin));
+    const users = (await t.http().get('/api/users').set(admin).expect(200)).body as { id: string; email: string; roles: string[] }[];
+    const self = users.find((u) => u.email === DEMO.admin)!;
+    const res = await t
+      .http()
+      .patch(`/api/users/${self.id}`)
+      .set(admin)
+      .send({ roles: [...self.roles, 'reviewer', 'quality_manager'] })
+      .expect(403);
+    expect(res.body.message).toMatch(/another administrator/i);
+  });
+
+  it('should run SQLite with synchronous=FULL (2) under WAL', async () => {
+    const [row] = await dataSourceOf(t).query('PRAGMA synchronous');
+    expect(row.synchronous).toBe(2);
+  });
+
+  it('should report every audit entry edited in the database file, not only the first', async () => {
+    const db = openDatabaseFile(t);
+    try {
+      const count = (db.prepare('SELECT COUNT(*) AS n FROM audit_entries').get() as { n: number }).n;
+      expect(count).toBeGreaterThanOrEqual(3);
+      db.prepare("UPDATE audit_entries SET reason = 'x' WHERE seq IN (1, 3)").run();
+    } finally {
+      db.close();
+    }
+    const quality = bearer(await t.tokenFor(DEMO.quality));
+    const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
+    expect(res.body).toMatchObject({ ok: false, brokenAt: 1 });
+    expect(res.body.broken.map((b: { seq: number }) => b.seq)).toEqual([1, 3]);
+  });
+});
+
+describe('CSV cells that a spreadsheet would run as a formula', () => {
+  // OWASP "CSV Injection" guidance: prefix cells starting with = + - @ tab or CR with a single quote.
+  it('should prefix such text cells with a single quote and leave numbers alone', () => {
+    const csv = toCsv([{ a: '=HYPERLINK("x")', b: '+1', c: '-2', d: '@SUM(A1)', e: '\tx', f: '\rx', g: -0.5, h: 'plain' }]);
+    const line = csv.replace(/^\uFEFF/, '').split('\r\n')[1];
+    expect(line).toBe(`"'=HYPERLINK(""x"")","'+1","'-2","'@SUM(A1)","'\tx","'\rx",-0.5,plain`);
+  });
+});
