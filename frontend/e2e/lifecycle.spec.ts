@@ -1,5 +1,5 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test';
-import { DEMO_PASSWORD, signIn } from './support';
+import { DEMO_PASSWORD, mainNavigation, signIn } from './support';
 
 const expect = baseExpect.configure({ timeout: 30_000 });
 test.setTimeout(240_000);
@@ -34,7 +34,8 @@ test('a quality manager records a change with its revalidation scope and activat
   await request.patch(`/api/method-versions/${first.id}`, { headers, data: { lockVersion: first.lockVersion, status: 'active' } });
 
   await signIn(page, 'quality@meritline.test');
-  await page.goto(`/methods/${method.id}`);
+  await mainNavigation(page).getByRole('link', { name: 'Methods' }).click();
+  await page.getByRole('table', { name: 'Methods' }).getByRole('link', { name: METHOD }).click();
   await expect(page.getByRole('heading', { level: 1, name: METHOD })).toBeVisible();
 
   await page.getByRole('button', { name: 'New version' }).click();
