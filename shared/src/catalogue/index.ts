@@ -1,2 +1,3 @@
 export * from './figures.js';
 export * from './format.js';
+export * from './statuses.js';

@@ -1,15 +1,17 @@
+import { STUDY_STATUS_LABELS } from '@meritline/shared';
 import { colors, formatDate, formatDateTime, NOT_AVAILABLE, type PdfComposer } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 
 const STATUS_WORDS: Record<ReportContent['study']['status'], string> = {
   draft: 'Draft (being prepared)',
-  submitted: 'Submitted for review',
+  submitted: STUDY_STATUS_LABELS.submitted,
   returned: 'Returned to the analyst for changes',
   approved: 'Approved',
 };
 
 function performed(meta: ReportContent['study']['meta']): string {
-  if (meta.startedOn && meta.finishedOn && meta.startedOn !== meta.finishedOn) return `${formatDate(meta.startedOn)} to ${formatDate(meta.finishedOn)}`;
+  if (meta.startedOn && meta.finishedOn && meta.startedOn !== meta.finishedOn)
+    return `${formatDate(meta.startedOn)} to ${formatDate(meta.finishedOn)}`;
   return formatDate(meta.startedOn ?? meta.finishedOn);
 }
 
@@ -43,13 +45,21 @@ export function coverPage(pdf: PdfComposer, content: ReportContent): void {
   if (!study.result) {
     pdf.callout('Not evaluated', ['The study data could not be evaluated yet; see the statistics sections for the reasons.'], 'warning');
   } else if (!verdict || verdict.pass === null) {
-    pdf.callout('No acceptance criteria', ['The method version names no acceptance criteria: the figures are reported without a pass or fail verdict.'], 'neutral');
+    pdf.callout(
+      'No acceptance criteria',
+      ['The method version names no acceptance criteria: the figures are reported without a pass or fail verdict.'],
+      'neutral',
+    );
   } else {
     const failed = verdict.criteria.filter((c) => !c.pass).length;
     const total = verdict.criteria.length;
     pdf.callout(
       verdict.pass ? 'Overall: Pass' : 'Overall: Fail',
-      [verdict.pass ? `All ${total} acceptance criteria are met.` : `${failed} of ${total} acceptance criteria are not met (see the summary).`],
+      [
+        verdict.pass
+          ? `All ${total} acceptance criteria are met.`
+          : `${failed} of ${total} acceptance criteria are not met (see the summary).`,
+      ],
       verdict.pass ? 'pass' : 'fail',
     );
   }

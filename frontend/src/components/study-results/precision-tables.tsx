@@ -45,7 +45,7 @@ export function precisionRows(result: EvaluationResult, units: StudyUnits, judge
       detail: `${p.N} results in ${p.k} series`,
       criteria: at('precision.grandMean'),
     },
-    { id: 'sR', label: 'Repeatability SD s_r', value: x(p.sR), criteria: at('precision.sR') },
+    { id: 'sR', label: 'Repeatability SD', value: x(p.sR), criteria: at('precision.sR') },
     { id: 'rsdR', label: 'Repeatability RSD', value: formatPercent(p.rsdR, 3), criteria: at('precision.rsdR') },
     {
       id: 'sBetween',

@@ -74,7 +74,7 @@ export function studyFlags(result: EvaluationResult, units: StudyResultsProps['u
       id: `outlier-${key}`,
       kind: 'warning',
       title: 'Possible outlier',
-      text: `${formatNumber(suspect.value, 5)} in ${suspect.set} (${suspect.tests.join('; ')}). Nothing has been removed: check the record and exclude the value, with its reason, only for an assignable cause.`,
+      text: `${formatNumber(suspect.value, 5)} in ${suspect.set}, flagged by ${suspect.tests.join(' and by ')}. Nothing has been removed: check the record and exclude the value, with its reason, only for an assignable cause.`,
     });
   }
   const overall = result.recovery?.overall;

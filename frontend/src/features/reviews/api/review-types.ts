@@ -1,4 +1,14 @@
-import type { EvaluationResult, FieldError, MethodVersionSettings, SignatureMeaning, StudyInput, StudySection, StudyStatus, TransitionResultDto } from '@meritline/shared';
+import type {
+  EvaluationResult,
+  FieldError,
+  MethodVersionSettings,
+  SignatureMeaning,
+  StudyInput,
+  StudySection,
+  StudyStatus,
+  TransitionResultDto,
+} from '@meritline/shared';
+import { STUDY_STATUS_LABELS } from '@meritline/shared';
 import type { CriterionDefinition } from '@/components/study-results';
 
 /** The study as GET /studies/:id gives it: only what the read-only view uses. */
@@ -7,7 +17,13 @@ export interface StudyView {
   title: string;
   status: StudyStatus;
   method: { id: string; name: string; analyte: string; matrix: string; technique: string; xUnit: string; yUnit: string };
-  methodVersion: { id: string; number: number; status: 'draft' | 'active' | 'retired'; criteria: CriterionDefinition[]; settings: MethodVersionSettings };
+  methodVersion: {
+    id: string;
+    number: number;
+    status: 'draft' | 'active' | 'retired';
+    criteria: CriterionDefinition[];
+    settings: MethodVersionSettings;
+  };
   data: StudyInput;
   result: EvaluationResult | null;
   resultErrors: FieldError[] | null;
@@ -41,12 +57,7 @@ export const SECTION_LABELS: Record<StudySection, string> = {
   conclusion: 'Conclusion',
 };
 
-export const STATUS_LABELS: Record<StudyStatus, string> = {
-  draft: 'Draft',
-  submitted: 'Awaiting review',
-  returned: 'Returned for changes',
-  approved: 'Approved',
-};
+export const STATUS_LABELS: Record<StudyStatus, string> = STUDY_STATUS_LABELS;
 
 export const MEANING_LABELS: Record<SignatureMeaning, string> = {
   authored: 'Author: submitted for review',

@@ -1,11 +1,11 @@
 import { Badge } from '@chakra-ui/react';
-import type { StudyStatus } from '@meritline/shared';
+import { STUDY_STATUS_LABELS, type StudyStatus } from '@meritline/shared';
 
 export const STUDY_STATUS_WORDS: Record<StudyStatus, { label: string; palette: string; variant: 'subtle' | 'solid' | 'outline' }> = {
-  draft: { label: 'Draft', palette: 'gray', variant: 'outline' },
-  submitted: { label: 'Submitted for review', palette: 'accent', variant: 'subtle' },
-  returned: { label: 'Returned for changes', palette: 'red', variant: 'subtle' },
-  approved: { label: 'Approved', palette: 'brand', variant: 'solid' },
+  draft: { label: STUDY_STATUS_LABELS.draft, palette: 'gray', variant: 'outline' },
+  submitted: { label: STUDY_STATUS_LABELS.submitted, palette: 'accent', variant: 'subtle' },
+  returned: { label: STUDY_STATUS_LABELS.returned, palette: 'red', variant: 'subtle' },
+  approved: { label: STUDY_STATUS_LABELS.approved, palette: 'brand', variant: 'solid' },
 };
 
 export function StudyStatusBadge({ status }: { status: StudyStatus }) {
