@@ -33,7 +33,6 @@ export const routes: RouteObject[] = [
               { path: paths.studyEdit.path, lazy: page(() => import('@/features/studies/routes/study-wizard')) },
               { path: paths.runs.path, lazy: page(() => import('@/features/runs/routes/routine-batches')) },
               { path: paths.runNew.path, lazy: page(() => import('@/features/runs/routes/new-run')) },
-              { path: paths.runDetail.path, lazy: page(() => import('@/features/runs/routes/run-detail')) },
             ],
           },
           {
@@ -42,7 +41,11 @@ export const routes: RouteObject[] = [
           },
           {
             element: <RequireRole roles={[Role.Analyst, Role.Reviewer, Role.QualityManager]} />,
-            children: [{ path: paths.runControlChart.path, lazy: page(() => import('@/features/runs/routes/control-chart')) }],
+            // Reviewers open runs from the review queue to release them.
+            children: [
+              { path: paths.runControlChart.path, lazy: page(() => import('@/features/runs/routes/control-chart')) },
+              { path: paths.runDetail.path, lazy: page(() => import('@/features/runs/routes/run-detail')) },
+            ],
           },
           {
             element: <RequireRole roles={[Role.Analyst, Role.Reviewer, Role.QualityManager]} />,
