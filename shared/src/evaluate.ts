@@ -9,6 +9,7 @@ import { outliers } from './engine/outliers.js';
 import { precision } from './engine/precision.js';
 import { recovery } from './engine/recovery.js';
 import { collectWarnings, type Warn } from './engine/warnings.js';
+import { uncertaintySections } from './evaluate-uncertainty.js';
 import type { CheckResult, EvaluationResult, UnknownResult } from './result.js';
 import type { Study } from './study.js';
 import { parseStudy } from './validate.js';
@@ -97,6 +98,7 @@ export function evaluateStudy(input: unknown): EvaluationResult {
   };
   result.range = workingRange(result, criteria, study.recovery, warn);
   result.verdict = verdict(result, criteria);
+  Object.assign(result, uncertaintySections(study, result, warn));
   guardFinite({ ...result, warnings: [] }, '', warn);
   return result;
 }

@@ -1,3 +1,4 @@
+import type { AccuracyProfileResult, TruenessResult, UncertaintyResult } from './uncertainty-types.js';
 import type { CalibrationModel, CandidateWeighting, CriterionOp, Units, Weighting } from './study.js';
 
 export type Interval = [number, number];
@@ -362,4 +363,8 @@ export interface EvaluationResult {
   range: RangeResult | null;
   verdict: Verdict;
   warnings: EvaluationWarning[];
+  /** Present only when the study has accuracy, reference-material or uncertainty sections. */
+  uncertainty?: UncertaintyResult;
+  accuracyProfile?: AccuracyProfileResult;
+  trueness?: TruenessResult;
 }

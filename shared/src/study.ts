@@ -1,3 +1,5 @@
+import type { AccuracyItem, AccuracyProfileOptions, ReferenceMaterialInput, UncertaintyStudyOptions } from './uncertainty-types.js';
+
 export const MODELS = ['linear', 'linear-through-origin', 'quadratic', 'one-point', 'two-point'] as const;
 export type CalibrationModel = (typeof MODELS)[number];
 
@@ -92,6 +94,10 @@ export interface Study {
   /** Analyte mass fraction (1 mg/kg = 1e-6) for the Horwitz prediction. */
   massFraction?: number;
   criteria?: Criterion[];
+  accuracy?: AccuracyItem[];
+  referenceMaterial?: ReferenceMaterialInput;
+  uncertainty?: UncertaintyStudyOptions;
+  accuracyProfile?: AccuracyProfileOptions;
 }
 
 /** What a caller may send: everything with a default may be left out. */

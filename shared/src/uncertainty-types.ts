@@ -164,3 +164,10 @@ export interface AccuracyProfileResult {
   validFrom: number | null;
   validTo: number | null;
 }
+
+export interface UncertaintyStudyOptions {
+  coverageFactor?: number;
+  relativeAbove?: number;
+  /** Relative standard uncertainty (%) of the nominal or spiked values, for u(bias); default 0. */
+  uReferencePct?: number;
+}

@@ -15,11 +15,14 @@ import {
   type Units,
 } from './study.js';
 
+import { parseUncertaintySections, UNCERTAINTY_KEYS } from './validate-uncertainty.js';
+
 type Json = Record<string, unknown>;
 
 const TOP_LEVEL_KEYS = new Set([
   'units', 'model', 'weighting', 'confidence', 'alpha', 'standards', 'twoPoint', 'blanks',
   'unknowns', 'checks', 'recovery', 'precision', 'lowSpikes', 'massFraction', 'criteria',
+  ...UNCERTAINTY_KEYS,
 ]);
 
 class Collector {
@@ -334,6 +337,7 @@ export function parseStudy(input: unknown): Study {
     if (v !== undefined && v > 1) c.add('massFraction', 'out_of_range', 'massFraction is a fraction: at most 1 (1 mg/kg = 1e-6)');
     else if (v !== undefined) study.massFraction = v;
   }
+  parseUncertaintySections(c, input, study);
   if (c.errors.length === 0) checkModelRequirements(c, study);
   if (c.errors.length > 0) throw new StudyValidationError(c.errors);
   return study;

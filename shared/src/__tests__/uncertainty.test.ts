@@ -3,6 +3,7 @@ import { accuracyProfile, accuracyProfileErrors, betaExpectationInterval } from 
 import { preparationErrors, preparationUncertainty, toleranceToStandard } from '../engine/preparation.js';
 import { biasUncertainty, combineTopDown, topDownUncertainty, truenessVersusReference } from '../engine/uncertainty.js';
 import type { AccuracyItem, PreparationInput } from '../uncertainty-types.js';
+import { evaluateStudy } from '../evaluate.js';
 import { validationErrors } from './helpers.js';
 
 // Invented numbers: a 1 g/L stock diluted twice.
@@ -160,6 +161,44 @@ describe('accuracy profile', () => {
     );
     expect(fields.map((e) => e.code)).toEqual(
       expect.arrayContaining(['out_of_range', 'not_positive', 'too_few_levels', 'too_few_series', 'too_few_replicates']),
+    );
+  });
+});
+
+describe('uncertainty sections of a study', () => {
+  const accuracy = design([1, 10, 100], 3, 3, (x, s, r) => x * (1 + 0.01 * Math.sin(1 + 3 * s + r) + 0.005 * s));
+
+  it('adds the accuracy profile, trueness and top-down uncertainty to the evaluation', () => {
+    const result = evaluateStudy({
+      accuracy,
+      accuracyProfile: { beta: 0.9, lambda: 10 },
+      referenceMaterial: { certified: 10, uCertified: 0.1, results: [10.1, 9.9, 10.05] },
+      uncertainty: { relativeAbove: 5 },
+    });
+    expect(result.accuracyProfile!.levels).toHaveLength(3);
+    expect(result.accuracyProfile!.beta).toBe(0.9);
+    expect(result.trueness!.significant).toBe(false);
+    expect(result.uncertainty!.byLevel.map((l) => l.expressedAs)).toEqual(['absolute', 'relative', 'relative']);
+    expect(result.uncertainty!.byLevel[0].uRw).toBeCloseTo(result.accuracyProfile!.levels[0].sI, 14);
+  });
+
+  it('leaves the result unchanged for a study without these sections', () => {
+    const result = evaluateStudy({ precision: [1, 2, 3, 4].map((value) => ({ group: String(value % 2), value })) });
+    expect(result).not.toHaveProperty('uncertainty');
+    expect(result).not.toHaveProperty('accuracyProfile');
+  });
+
+  it('gives field errors for a bad design, β and λ', () => {
+    const two = design([1, 10, 100], 1, 1, (x) => x);
+    const codes = validationErrors(() => evaluateStudy({ accuracy: two })).map((e) => e.code);
+    expect(codes).toEqual(expect.arrayContaining(['too_few_series', 'too_few_replicates']));
+    const fields = validationErrors(() => evaluateStudy({ accuracy, accuracyProfile: { beta: 1.5, lambda: -1 } })).map((e) => e.field);
+    expect(fields).toEqual(expect.arrayContaining(['accuracyProfile.beta', 'accuracyProfile.lambda']));
+    const rm = validationErrors(() => evaluateStudy({ referenceMaterial: { certified: 0, uCertified: -1, results: [1] } })).map(
+      (e) => e.field,
+    );
+    expect(rm).toEqual(
+      expect.arrayContaining(['referenceMaterial.certified', 'referenceMaterial.uCertified', 'referenceMaterial.results']),
     );
   });
 });
