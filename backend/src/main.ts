@@ -7,7 +7,8 @@ import { ConfigError, loadAppConfig } from './config/app.config.js';
 import { configureApp } from './configure-app.js';
 
 try {
-  loadAppConfig();
+  // The demo seeder reads SEED_DEMO; production never gets demo accounts.
+  if (!loadAppConfig().seedDemo) process.env.SEED_DEMO = 'false';
 } catch (error) {
   if (error instanceof ConfigError) {
     console.error(`Meritline cannot start: ${error.message}`);

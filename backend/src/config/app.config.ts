@@ -3,9 +3,7 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { registerAs, type ConfigType } from '@nestjs/config';
 
-export type DatabaseConfig =
-  | { type: 'sqlite'; path: string }
-  | { type: 'postgres'; url: string };
+export type DatabaseConfig = { type: 'sqlite'; path: string } | { type: 'postgres'; url: string };
 
 export interface AppConfig {
   env: 'development' | 'production' | 'test';
@@ -16,9 +14,13 @@ export interface AppConfig {
   jwtExpiresIn: string;
   publicUrl: string;
   laboratoryName: string;
-  mail: { from: string; smtpUrl: string | null };
+  mail: { from: string; smtpUrl: string | null; disabled: boolean };
   signing: { p12Path: string | null; p12Passphrase: string };
   throttle: { perAccount: number; perAddress: number; windowMs: number };
+  /** The OpenAPI documentation at /api/docs; off in production unless API_DOCS=true. */
+  apiDocs: boolean;
+  /** Demo accounts and studies on an empty database; never in production. */
+  seedDemo: boolean;
 }
 
 export class ConfigError extends Error {}
@@ -61,6 +63,12 @@ export function loadAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     jwtSecret = readOrCreateSecret(join(dataDir, 'jwt-secret'));
   }
   if (nodeEnv === 'production' && jwtSecret.length < 32) throw new ConfigError('JWT_SECRET must be at least 32 characters');
+  const mailDisabled = env.MAIL_DISABLED === 'true';
+  if (nodeEnv === 'production') {
+    if (!env.SIGNING_P12_PATH) throw new ConfigError('SIGNING_P12_PATH (the laboratory signing certificate) must be set in production');
+    if (!env.SMTP_URL && !mailDisabled)
+      throw new ConfigError('SMTP_URL must be set in production (or MAIL_DISABLED=true to run without e-mail)');
+  }
 
   return {
     env: nodeEnv,
@@ -71,13 +79,15 @@ export function loadAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     jwtExpiresIn: env.JWT_EXPIRES_IN ?? '8h',
     publicUrl: (env.PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/$/, ''),
     laboratoryName: env.LAB_NAME ?? 'Riverbend Water & Food Testing Laboratory',
-    mail: { from: env.MAIL_FROM ?? 'Meritline <no-reply@meritline.test>', smtpUrl: env.SMTP_URL || null },
+    mail: { from: env.MAIL_FROM ?? 'Meritline <no-reply@meritline.test>', smtpUrl: env.SMTP_URL || null, disabled: mailDisabled },
     signing: { p12Path: env.SIGNING_P12_PATH || null, p12Passphrase: env.SIGNING_P12_PASSPHRASE ?? '' },
     throttle: {
       perAccount: positiveInt('LOGIN_FAILURES_PER_ACCOUNT', 5, env),
       perAddress: positiveInt('LOGIN_FAILURES_PER_ADDRESS', 20, env),
       windowMs: positiveInt('LOGIN_FAILURE_WINDOW_MS', 15 * 60_000, env),
     },
+    apiDocs: env.API_DOCS === undefined || env.API_DOCS === '' ? nodeEnv !== 'production' : env.API_DOCS === 'true',
+    seedDemo: nodeEnv !== 'production' && env.SEED_DEMO !== 'false',
   };
 }
 
