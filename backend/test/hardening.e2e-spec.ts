@@ -115,3 +115,111 @@ describe('CSV cells that a spreadsheet would run as a formula', () => {
     expect(line).toBe(`"'=HYPERLINK(""x"")","'+1","'-2","'@SUM(A1)","'\tx","'\rx",-0.5,plain`);
   });
 });
+
+describe('who may take part in a study discussion', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  it('should refuse comments from users who are neither an author nor a reviewer, and any change after approval', async () => {
+    const reviewer = bearer(await t.tokenFor(DEMO.reviewer));
+    const outsider = bearer(await t.tokenFor(DEMO.analyst2));
+    const author = bearer(await t.tokenFor(DEMO.analyst));
+    const open = await createStudy(t, { author: DEMO.analyst, status: 'submitted' });
+    const comment = await t
+      .http()
+      .post(`/api/studies/${open.id}/comments`)
+      .set(reviewer)
+      .send({ section: 'standards', body: 'Check level 3.' })
+      .expect(201);
+    await t
+      .http()
+      .post(`/api/studies/${open.id}/comments`)
+      .set(author)
+      .send({ section: 'standards', threadId: comment.body.id, body: 'Done.' })
+      .expect(201);
+    const denied = await t
+      .http()
+      .post(`/api/studies/${open.id}/comments`)
+      .set(outsider)
+      .send({ section: 'standards', body: 'Hi' })
+      .expect(403);
+    expect(denied.body.message).toMatch(/authors of this study/);
+    await t.http().patch(`/api/studies/${open.id}/comments/${comment.body.id}`).set(outsider).send({ resolved: true }).expect(403);
+    await t.http().patch(`/api/studies/${open.id}/comments/${comment.body.id}`).set(author).send({ resolved: true }).expect(200);
+
+    const approved = await createStudy(t, { author: DEMO.analyst, status: 'approved' });
+    const closed = await t
+      .http()
+      .post(`/api/studies/${approved.id}/comments`)
+      .set(reviewer)
+      .send({ section: 'standards', body: 'Late.' })
+      .expect(409);
+    expect(closed.body.message).toMatch(/approved/);
+  });
+});
+
+describe('security headers', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  // OWASP Secure Headers Project recommendations (common practice).
+  it('should send a strict content security policy, nosniff, a referrer policy and no X-Powered-By', async () => {
+    const res = await t.http().get('/api/health');
+    const csp = res.headers['content-security-policy'] as string;
+    expect(csp).toContain("script-src 'self'");
+    expect(csp).not.toMatch(/script-src[^;]*unsafe-inline/);
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(res.headers['x-content-type-options']).toBe('nosniff');
+    expect(res.headers['referrer-policy']).toBe('no-referrer');
+    expect(res.headers['x-powered-by']).toBeUndefined();
+    expect(res.headers['strict-transport-security']).toBeUndefined();
+  });
+
+  it('should send HSTS only when the request came over TLS through the trusted proxy', async () => {
+    const res = await t.http().get('/api/health').set('X-Forwarded-Proto', 'https');
+    expect(res.headers['strict-transport-security']).toMatch(/max-age=31536000/);
+  });
+});
+
+describe('null for optional fields', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  it('should answer 422 with the field for null in a user update, changing nothing', async () => {
+    const admin = bearer(await t.tokenFor(DEMO.admin));
+    const users = (await t.http().get('/api/users').set(admin).expect(200)).body as { id: string; email: string; name: string }[];
+    const other = users.find((u) => u.email === DEMO.analyst2)!;
+    for (const field of ['name', 'roles', 'active']) {
+      const res = await t
+        .http()
+        .patch(`/api/users/${other.id}`)
+        .set(admin)
+        .send({ [field]: null })
+        .expect(422);
+      expect(res.body.errors[0].field).toBe(field);
+    }
+    const after = (await t.http().get('/api/users').set(admin).expect(200)).body as { id: string; name: string }[];
+    expect(after.find((u) => u.id === other.id)!.name).toBe(other.name);
+  });
+
+  it('should refuse an unpaired surrogate in an invitation e-mail with 422', async () => {
+    const admin = await t.tokenFor(DEMO.admin);
+    const res = await t
+      .http()
+      .post('/api/users/invitations')
+      .set('Authorization', `Bearer ${admin}`)
+      .set('Content-Type', 'application/json')
+      .send('{"email":"a\\ud800@meritline.test","name":"A","roles":["analyst"]}')
+      .expect(422);
+    expect(res.body.errors[0].field).toBe('email');
+  });
+});

@@ -1,4 +1,4 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import { AuditService } from '../audit/audit.service.js';
@@ -7,9 +7,10 @@ import { unprocessable } from '../common/validation.js';
 import type { CreateCommentDto } from './dto/create-comment.dto.js';
 import type { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
-import type { CommentDto } from '@meritline/shared';
+import { Role, type CommentDto } from '@meritline/shared';
 import { writeTransaction } from '../database/write-transaction.js';
 import { StudyComment } from './study-comment.entity.js';
+import type { ValidationStudy } from '../studies/validation-study.entity.js';
 
 export function toCommentDto(comment: StudyComment): CommentDto {
   return {
@@ -41,21 +42,51 @@ export class CommentsService {
     return this.dataSource.getRepository(StudyComment).find({ where: { studyId }, order: { createdAt: 'ASC' } });
   }
 
+  /** Only the study's authors and its reviewers or quality managers take part in the discussion, and only until approval. */
+  private async studyOpenFor(studyId: string, actor: AuthUser): Promise<ValidationStudy> {
+    const study = await this.reviews.findStudy(studyId);
+    const isAuthor = study.authorId === actor.id || (study.editorIds ?? []).includes(actor.id);
+    const isReviewer = actor.roles.includes(Role.Reviewer) || actor.roles.includes(Role.QualityManager);
+    if (!isAuthor && !isReviewer)
+      throw new ForbiddenException('Only the authors of this study and its reviewers or quality managers can comment on it.');
+    if (study.status === 'approved')
+      throw new ConflictException('The study is approved: its comments can no longer be added, resolved or reopened.');
+    return study;
+  }
+
   async create(studyId: string, dto: CreateCommentDto, actor: AuthUser): Promise<CommentDto> {
-    await this.reviews.findStudy(studyId);
+    await this.studyOpenFor(studyId, actor);
     let section = dto.section;
     if (dto.threadId) {
       const thread = await this.dataSource.getRepository(StudyComment).findOneBy({ id: dto.threadId, studyId });
       if (!thread || thread.threadId) {
-        throw unprocessable([{ field: 'threadId', code: 'unknown_thread', message: 'There is no comment thread with this id on this study.' }]);
+        throw unprocessable([
+          { field: 'threadId', code: 'unknown_thread', message: 'There is no comment thread with this id on this study.' },
+        ]);
       }
       section = thread.section;
     }
     return writeTransaction(this.dataSource, async (manager) => {
       const repo = manager.getRepository(StudyComment);
-      const comment = await repo.save(repo.create({ studyId, section, threadId: dto.threadId ?? null, authorId: actor.id, authorName: actor.name, body: dto.body.trim(), resolved: false }));
+      const comment = await repo.save(
+        repo.create({
+          studyId,
+          section,
+          threadId: dto.threadId ?? null,
+          authorId: actor.id,
+          authorName: actor.name,
+          body: dto.body.trim(),
+          resolved: false,
+        }),
+      );
       await this.audit.record(
-        { actor, action: 'study-comment.created', entity: 'study-comment', entityId: comment.id, changes: { studyId: { from: null, to: studyId }, section: { from: null, to: section }, body: { from: null, to: comment.body } } },
+        {
+          actor,
+          action: 'study-comment.created',
+          entity: 'study-comment',
+          entityId: comment.id,
+          changes: { studyId: { from: null, to: studyId }, section: { from: null, to: section }, body: { from: null, to: comment.body } },
+        },
         manager,
       );
       return toCommentDto(comment);
@@ -63,7 +94,7 @@ export class CommentsService {
   }
 
   async setResolved(studyId: string, commentId: string, dto: UpdateCommentDto, actor: AuthUser): Promise<CommentDto> {
-    await this.reviews.findStudy(studyId);
+    await this.studyOpenFor(studyId, actor);
     return writeTransaction(this.dataSource, async (manager) => {
       const repo = manager.getRepository(StudyComment);
       const comment = await repo.findOneBy({ id: commentId, studyId });
@@ -71,7 +102,13 @@ export class CommentsService {
       if (comment.resolved === dto.resolved) return toCommentDto(comment);
       await repo.update({ id: comment.id }, { resolved: dto.resolved });
       await this.audit.record(
-        { actor, action: dto.resolved ? 'study-comment.resolved' : 'study-comment.reopened', entity: 'study-comment', entityId: comment.id, changes: { resolved: { from: comment.resolved, to: dto.resolved } } },
+        {
+          actor,
+          action: dto.resolved ? 'study-comment.resolved' : 'study-comment.reopened',
+          entity: 'study-comment',
+          entityId: comment.id,
+          changes: { resolved: { from: comment.resolved, to: dto.resolved } },
+        },
         manager,
       );
       return toCommentDto({ ...comment, resolved: dto.resolved });
