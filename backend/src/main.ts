@@ -20,4 +20,15 @@ try {
 const app = configureApp(await NestFactory.create<NestExpressApplication>(AppModule, { bodyParser: false }));
 const port = loadAppConfig().port;
 await app.listen(port);
+// enableShutdownHooks closes the server (no new connections, in-flight requests finish) and the database on SIGTERM;
+// a request that hangs must not keep the process alive past this bound.
+const SHUTDOWN_GRACE_MS = 10_000;
+for (const signal of ['SIGTERM', 'SIGINT'] as const) {
+  process.once(signal, () => {
+    setTimeout(() => {
+      new Logger('Meritline').warn(`Requests still running after ${SHUTDOWN_GRACE_MS / 1000} s; stopping anyway.`);
+      process.exit(1);
+    }, SHUTDOWN_GRACE_MS).unref();
+  });
+}
 new Logger('Meritline').log(`Serving on http://localhost:${port} (API under /api, documentation at /api/docs)`);
