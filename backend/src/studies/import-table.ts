@@ -93,8 +93,17 @@ function cellValue(value: unknown): Cell {
   if (typeof value === 'boolean') return String(value);
   if (value instanceof Date) return value.toISOString();
   if (typeof value === 'object') {
-    const v = value as { result?: unknown; richText?: { text: string }[]; text?: unknown; error?: string };
-    if ('result' in v) return cellValue(v.result);
+    const v = value as {
+      result?: unknown;
+      richText?: { text: string }[];
+      text?: unknown;
+      error?: string;
+      formula?: string;
+      sharedFormula?: string;
+    };
+    if ('result' in v && v.result !== undefined) return cellValue(v.result);
+    if (v.formula || v.sharedFormula)
+      return `formula =${v.formula ?? v.sharedFormula} with no saved result (open the workbook in a spreadsheet program and save it so the values are stored)`;
     if (v.richText) return v.richText.map((part) => part.text).join('');
     if ('text' in v) return cellValue(v.text);
     if (v.error) return v.error;
@@ -110,7 +119,10 @@ async function readXlsx(buffer: Buffer): Promise<ImportTable> {
     throw unsupported('a ZIP archive that is not a readable Excel workbook');
   }
   const sheet = workbook.worksheets[0];
-  if (!sheet) throw emptyFile();
+  if (!sheet) {
+    const message = 'This ZIP archive holds no Excel worksheet. Upload the workbook (.xlsx) itself or a CSV file.';
+    throw new UnprocessableEntityException({ statusCode: 422, message, errors: [{ field: 'file', code: 'no_worksheet', message }] });
+  }
   const lines: TableRow[] = [];
   sheet.eachRow({ includeEmpty: false }, (row, rowNumber) => {
     if (lines.length > MAX_IMPORT_ROWS + 1) return;
