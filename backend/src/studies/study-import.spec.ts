@@ -120,6 +120,26 @@ describe('mapping headers to study fields', () => {
     expect(normaliseHeader('Rep.2')).toBe('rep 2');
   });
 
+  it('should read the headers the study grid shows, "Spike" being the spiked sample and not the amount added', () => {
+    expect(resolveMapping('recovery', ['Spike', 'Level', 'Added (mg/L)', 'Found (mg/L)', 'Native (mg/L)'])).toMatchObject({
+      mapping: { id: 'Spike', level: 'Level', added: 'Added (mg/L)', found: 'Found (mg/L)', native: 'Native (mg/L)' },
+      errors: [],
+    });
+    expect(resolveMapping('lowSpikes', ['Low-level spike result (mg/L)', 'Blank result (mg/L)']).mapping).toEqual({
+      spiked: 'Low-level spike result (mg/L)',
+      blank: 'Blank result (mg/L)',
+    });
+  });
+
+  it.each(IMPORT_SECTIONS.map((section) => [section]))('should map every header of the %s template back to its own field', (section) => {
+    const header = importTemplate(section as ImportSection)
+      .split('\r\n')[0]
+      .split(',');
+    const { mapping, errors } = resolveMapping(section as ImportSection, header);
+    expect(errors).toEqual([]);
+    expect(mapping).toEqual(Object.fromEntries(header.map((h) => [h, h])));
+  });
+
   it('should map common header words case-insensitively, and a header that begins with one', () => {
     expect(resolveMapping('standards', ['CONCENTRATION mg/L', 'Signal']).mapping).toEqual({ x: 'CONCENTRATION mg/L', y: 'Signal' });
     expect(resolveMapping('standards', ['Level', 'Height']).mapping).toEqual({ x: 'Level', y: 'Height' });

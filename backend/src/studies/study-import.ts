@@ -1,4 +1,12 @@
-import type { FieldError, LowSpikes, PrecisionResult, RecoveryItem, StandardPoint, UnknownSample } from '@meritline/shared';
+import {
+  headerAliases,
+  type FieldError,
+  type LowSpikes,
+  type PrecisionResult,
+  type RecoveryItem,
+  type StandardPoint,
+  type UnknownSample,
+} from '@meritline/shared';
 import { MAX_IMPORT_ROWS, type Cell, type ImportTable, type TableRow } from './import-table.js';
 
 export const IMPORT_SECTIONS = ['standards', 'blanks', 'recovery', 'precision', 'unknowns', 'lowSpikes'] as const;
@@ -30,24 +38,6 @@ interface ImportField {
   aliases: string[];
 }
 
-const RESPONSE_ALIASES = [
-  'y',
-  'response',
-  'signal',
-  'area',
-  'peak area',
-  'height',
-  'peak height',
-  'absorbance',
-  'abs',
-  'intensity',
-  'counts',
-  'ratio',
-  'area ratio',
-  'peak area ratio',
-  'response ratio',
-];
-
 const field = (key: string, label: string, kind: FieldKind, required: boolean, aliases: string[]): ImportField => ({
   key,
   label,
@@ -58,40 +48,30 @@ const field = (key: string, label: string, kind: FieldKind, required: boolean, a
 
 const SECTION_FIELDS: Record<ImportSection, ImportField[]> = {
   standards: [
-    field('x', 'concentration', 'number', true, [
-      'x',
-      'conc',
-      'concentration',
-      'nominal',
-      'level',
-      'amount',
-      'standard',
-      'std',
-      'calibrator',
-    ]),
-    field('y', 'response', 'number', true, RESPONSE_ALIASES),
-    field('id', 'identifier', 'text', false, ['id', 'name', 'label', 'sample', 'sample id', 'vial']),
+    field('x', 'concentration', 'number', true, headerAliases('standards', 'x')),
+    field('y', 'response', 'number', true, headerAliases('standards', 'y')),
+    field('id', 'identifier', 'text', false, headerAliases('standards', 'id')),
   ],
-  blanks: [field('value', 'blank response', 'number', true, ['value', 'blank', 'blanks', 'blank response', ...RESPONSE_ALIASES])],
+  blanks: [field('value', 'blank response', 'number', true, headerAliases('blanks', 'value'))],
   recovery: [
-    field('id', 'identifier', 'text', false, ['id', 'sample', 'sample id', 'name', 'replicate']),
-    field('level', 'spike level', 'text', false, ['level', 'spike level', 'fortification level']),
-    field('added', 'amount added', 'number', true, ['added', 'spike', 'spiked', 'amount added', 'spike added', 'fortified', 'nominal']),
-    field('found', 'amount found', 'number', true, ['found', 'measured', 'result', 'determined', 'amount found']),
-    field('native', 'native amount', 'number', false, ['native', 'background', 'unspiked', 'endogenous']),
+    field('id', 'identifier', 'text', false, headerAliases('recovery', 'id')),
+    field('level', 'spike level', 'text', false, headerAliases('recovery', 'level')),
+    field('added', 'amount added', 'number', true, headerAliases('recovery', 'added')),
+    field('found', 'amount found', 'number', true, headerAliases('recovery', 'found')),
+    field('native', 'native amount', 'number', false, headerAliases('recovery', 'native')),
   ],
   precision: [
-    field('group', 'series', 'text', true, ['group', 'series', 'day', 'run', 'batch', 'analyst', 'instrument']),
-    field('value', 'result', 'number', true, ['value', 'result', 'found', 'measured', 'concentration', 'conc', 'x']),
+    field('group', 'series', 'text', true, headerAliases('precision', 'group')),
+    field('value', 'result', 'number', true, headerAliases('precision', 'value')),
   ],
   unknowns: [
-    field('id', 'sample', 'text', true, ['id', 'sample', 'sample id', 'name', 'label']),
-    field('y', 'response', 'number', false, RESPONSE_ALIASES),
-    field('dilution', 'dilution factor', 'number', false, ['dilution', 'dilution factor', 'df', 'dil']),
+    field('id', 'sample', 'text', true, headerAliases('unknowns', 'id')),
+    field('y', 'response', 'number', false, headerAliases('unknowns', 'y')),
+    field('dilution', 'dilution factor', 'number', false, headerAliases('unknowns', 'dilution')),
   ],
   lowSpikes: [
-    field('spiked', 'spiked result', 'number', false, ['spiked', 'spike', 'spiked result', 'spiked sample', 'low spike']),
-    field('blank', 'blank result', 'number-or-not-detected', false, ['blank', 'blanks', 'method blank', 'blank result']),
+    field('spiked', 'spiked result', 'number', false, headerAliases('lowSpikes', 'spiked')),
+    field('blank', 'blank result', 'number-or-not-detected', false, headerAliases('lowSpikes', 'blank')),
   ],
 };
 

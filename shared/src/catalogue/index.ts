@@ -1,3 +1,4 @@
 export * from './figures.js';
 export * from './format.js';
 export * from './statuses.js';
+export * from './sections.js';

@@ -1,3 +1,4 @@
+import { headerAliases } from '@meritline/shared';
 import type { ImportSection } from '../api/types';
 import { isNotDetected, parseDecimal } from './parse-number';
 
@@ -28,8 +29,6 @@ export function newRow(cells: Record<string, string> = {}, excluded?: { reason: 
   return { id: newRowId(), cells, ...(excluded ? { excluded } : {}) };
 }
 
-const RESPONSE = ['y', 'response', 'signal', 'area', 'peak area', 'height', 'absorbance', 'abs', 'intensity', 'counts', 'reading'];
-
 export interface SectionUnits {
   x?: string;
   y?: string;
@@ -46,20 +45,20 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           unit: units.x,
           kind: 'number',
           required: true,
-          aliases: ['x', 'conc', 'concentration', 'nominal', 'level', 'amount', 'standard', 'std'],
+          aliases: headerAliases('standards', 'x'),
         },
-        { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: RESPONSE },
+        { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: headerAliases('standards', 'y') },
       ];
     case 'unknowns':
       return [
-        { key: 'id', label: 'Sample', kind: 'text', required: true, aliases: ['id', 'sample', 'sample id', 'name', 'label'] },
-        { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: RESPONSE },
+        { key: 'id', label: 'Sample', kind: 'text', required: true, aliases: headerAliases('unknowns', 'id') },
+        { key: 'y', label: 'Response', unit: units.y, kind: 'number', required: true, aliases: headerAliases('unknowns', 'y') },
         {
           key: 'dilution',
           label: 'Dilution factor',
           kind: 'positive',
           placeholder: '1',
-          aliases: ['dilution', 'dilution factor', 'df', 'dil'],
+          aliases: headerAliases('unknowns', 'dilution'),
         },
       ];
     case 'blanks':
@@ -70,7 +69,7 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           unit: units.y,
           kind: 'number',
           required: true,
-          aliases: ['value', 'blank', 'blanks', ...RESPONSE],
+          aliases: headerAliases('blanks', 'value'),
         },
       ];
     case 'lowSpikes':
@@ -80,7 +79,7 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           label: 'Low-level spike result',
           unit: units.x,
           kind: 'number',
-          aliases: ['spiked', 'spike', 'spiked result', 'low spike'],
+          aliases: headerAliases('lowSpikes', 'spiked'),
         },
         {
           key: 'blank',
@@ -88,20 +87,20 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           unit: units.x,
           kind: 'numberOrNotDetected',
           placeholder: 'ND',
-          aliases: ['blank', 'blanks', 'method blank'],
+          aliases: headerAliases('lowSpikes', 'blank'),
         },
       ];
     case 'recovery':
       return [
-        { key: 'id', label: 'Spike', kind: 'text', placeholder: 'R1', aliases: ['id', 'sample', 'sample id', 'name', 'replicate'] },
-        { key: 'level', label: 'Level', kind: 'text', placeholder: 'low', aliases: ['level', 'spike level', 'fortification level'] },
+        { key: 'id', label: 'Spike', kind: 'text', placeholder: 'R1', aliases: headerAliases('recovery', 'id') },
+        { key: 'level', label: 'Level', kind: 'text', placeholder: 'low', aliases: headerAliases('recovery', 'level') },
         {
           key: 'added',
           label: 'Added',
           unit: units.x,
           kind: 'positive',
           required: true,
-          aliases: ['added', 'spike', 'spiked', 'amount added', 'nominal'],
+          aliases: headerAliases('recovery', 'added'),
         },
         {
           key: 'found',
@@ -109,7 +108,7 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           unit: units.x,
           kind: 'number',
           required: true,
-          aliases: ['found', 'measured', 'result', 'determined'],
+          aliases: headerAliases('recovery', 'found'),
         },
         {
           key: 'native',
@@ -117,7 +116,7 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           unit: units.x,
           kind: 'number',
           placeholder: '0',
-          aliases: ['native', 'background', 'unspiked'],
+          aliases: headerAliases('recovery', 'native'),
         },
       ];
     case 'precision':
@@ -127,7 +126,7 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           label: 'Series (day, analyst, instrument)',
           kind: 'text',
           required: true,
-          aliases: ['group', 'series', 'day', 'run', 'batch', 'analyst'],
+          aliases: headerAliases('precision', 'group'),
         },
         {
           key: 'value',
@@ -135,7 +134,7 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           unit: units.x,
           kind: 'number',
           required: true,
-          aliases: ['value', 'result', 'found', 'measured', 'concentration'],
+          aliases: headerAliases('precision', 'value'),
         },
       ];
   }
