@@ -38,7 +38,8 @@ const justifiedSignSchema = signSchema.shape({
 export function SignDialog({ studyId, lockVersion, action, meaning, title, triggerLabel, submitLabel, successTitle, onSigned }: SignDialogProps) {
   const [open, setOpen] = useState(false);
   const sign = useSignStudy(studyId, action);
-  const study = useQuery({ ...studyReviewQueries.detail(studyId), enabled: open && action === 'approve' });
+  // The study page has loaded the study already; read it from the cache rather than ask again.
+  const study = useQuery({ ...studyReviewQueries.detail(studyId), enabled: false });
   const needsJustification = action === 'approve' && study.data?.result?.verdict.pass === false;
 
   return (
