@@ -101,10 +101,15 @@ export function CreateMethodDialog({ proposal }: { proposal: boolean }) {
                   <FormField name="analyte" label="Analyte" required />
                   <FormField name="matrix" label="Matrix" required placeholder="drinking water" />
                 </SimpleGrid>
-                <FormField name="technique" label="Technique" required helperText="Choose a suggestion or type your own.">
+                <FormField
+                  name="technique"
+                  label="Technique"
+                  required
+                  helperText="Choose a suggestion or type your own, up to 80 characters."
+                >
                   {(field) => (
                     <>
-                      <Input {...field} value={String(field.value ?? '')} list={techniqueList} autoComplete="off" />
+                      <Input {...field} value={String(field.value ?? '')} list={techniqueList} autoComplete="off" maxLength={80} />
                       <datalist id={techniqueList}>
                         {TECHNIQUES.map((t) => (
                           <option key={t} value={t} />
