@@ -1,4 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { AuditService, auditHash } from '../src/audit/audit.service.js';
+import { AuditEntry as AuditEntryEntity } from '../src/audit/audit-entry.entity.js';
 import { toCsv } from '../src/common/csv.js';
 import { bearer, createStudy, dataSourceOf, openDatabaseFile } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
@@ -221,5 +223,58 @@ describe('null for optional fields', () => {
       .send('{"email":"a\\ud800@meritline.test","name":"A","roles":["analyst"]}')
       .expect(422);
     expect(res.body.errors[0].field).toBe('email');
+  });
+});
+
+describe('the audit chain anchored by signed checkpoints', () => {
+  let t: TestApp;
+  let quality: Record<string, string>;
+  beforeAll(async () => {
+    t = await createTestApp();
+    quality = bearer(await t.tokenFor(DEMO.quality));
+  });
+  afterAll(() => t.close());
+
+  // What someone with write access to the database file would do: edit a row and recompute every hash after it.
+  const rechain = async (fromSeq: number, edit: string) => {
+    let db = openDatabaseFile(t);
+    db.prepare(edit).run();
+    db.close();
+    const entries = await dataSourceOf(t)
+      .getRepository(AuditEntryEntity)
+      .find({ order: { seq: 'ASC' } });
+    db = openDatabaseFile(t);
+    try {
+      let prev = entries[fromSeq - 2].hash;
+      for (const entry of entries.slice(fromSeq - 1)) {
+        const hash = auditHash({ ...entry, prevHash: prev });
+        db.prepare('UPDATE audit_entries SET prev_hash = ?, hash = ? WHERE seq = ?').run(prev, hash, entry.seq);
+        prev = hash;
+      }
+    } finally {
+      db.close();
+    }
+  };
+
+  it('should detect a row edited with the chain recomputed, against the checkpoint', async () => {
+    const checkpoint = await t.app.get(AuditService).checkpoint();
+    expect(checkpoint!.rows).toBeGreaterThan(3);
+    await rechain(2, "UPDATE audit_entries SET reason = 'rewritten' WHERE seq = 2");
+    const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
+    expect(res.body.ok).toBe(false);
+    expect(res.body.broken.map((b: { reason: string }) => b.reason).join(' ')).toMatch(/differs from the signed checkpoint/);
+  });
+
+  it('should detect the last rows deleted, against the checkpoint', async () => {
+    const db = openDatabaseFile(t);
+    try {
+      const { n } = db.prepare('SELECT MAX(seq) AS n FROM audit_entries').get() as { n: number };
+      db.prepare('DELETE FROM audit_entries WHERE seq > ?').run(n - 2);
+    } finally {
+      db.close();
+    }
+    const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
+    expect(res.body.ok).toBe(false);
+    expect(res.body.broken.map((b: { reason: string }) => b.reason).join(' ')).toMatch(/entries removed/);
   });
 });

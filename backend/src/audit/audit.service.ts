@@ -1,6 +1,9 @@
-import { Injectable, Logger } from '@nestjs/common';
+import { Inject, Injectable, Optional, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { createHash } from 'node:crypto';
+import { createHash, createHmac, timingSafeEqual } from 'node:crypto';
+import { appendFileSync, existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson } from '@meritline/shared';
@@ -43,14 +46,93 @@ export function auditHash(entry: Omit<AuditEntry, 'hash'>): string {
     .digest('hex');
 }
 
-@Injectable()
-export class AuditService {
-  private readonly logger = new Logger(AuditService.name);
+export interface AuditCheckpoint {
+  at: string;
+  rows: number;
+  head: string;
+  mac: string;
+}
 
-  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+const DAY_MS = 24 * 60 * 60_000;
+
+@Injectable()
+export class AuditService implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger(AuditService.name);
+  private timer: NodeJS.Timeout | null = null;
+
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    // Absent when the demo seeder builds its own instance: it then writes no checkpoints.
+    @Optional() @Inject(appConfig.KEY) private readonly config?: AppConfigType,
+  ) {}
+
+  onApplicationBootstrap() {
+    if (!this.config) return;
+    this.timer = setInterval(
+      () => void this.checkpoint().catch((e: Error) => this.logger.error(`Audit checkpoint failed: ${e.message}`)),
+      DAY_MS,
+    );
+    this.timer.unref();
+  }
+
+  onApplicationShutdown() {
+    if (this.timer) clearInterval(this.timer);
+  }
+
+  private get checkpointFile() {
+    return this.config ? join(this.config.dataDir, 'audit-checkpoints.jsonl') : null;
+  }
+
+  private mac(at: string, rows: number, head: string) {
+    return createHmac('sha256', this.config?.auditHmacKey ?? '')
+      .update(`${at}|${rows}|${head}`)
+      .digest('hex');
+  }
+
+  /**
+   * Writes the head hash and row count, keyed with a secret outside the database, to a file in the data folder.
+   * Queued behind the write in progress, so it records committed rows only. Verification then detects removed
+   * entries and any rewrite of the entries before the checkpoint, even with their hashes recomputed.
+   */
+  checkpoint(): Promise<AuditCheckpoint | null> {
+    const file = this.checkpointFile;
+    if (!file) return Promise.resolve(null);
+    return writeTransaction(this.dataSource, async (manager) => {
+      const [last] = await manager.getRepository(AuditEntry).find({ order: { seq: 'DESC' }, take: 1 });
+      const at = new Date().toISOString();
+      const rows = last?.seq ?? 0;
+      const head = last?.hash ?? GENESIS_HASH;
+      const checkpoint = { at, rows, head, mac: this.mac(at, rows, head) };
+      appendFileSync(file, `${JSON.stringify(checkpoint)}\n`, { mode: 0o600 });
+      return checkpoint;
+    });
+  }
+
+  private readCheckpoints(): { checkpoints: AuditCheckpoint[]; forged: number } {
+    const file = this.checkpointFile;
+    if (!file || !existsSync(file)) return { checkpoints: [], forged: 0 };
+    const checkpoints: AuditCheckpoint[] = [];
+    let forged = 0;
+    for (const line of readFileSync(file, 'utf8').split('\n')) {
+      if (!line.trim()) continue;
+      try {
+        const c = JSON.parse(line) as AuditCheckpoint;
+        const expected = Buffer.from(this.mac(c.at, c.rows, c.head), 'hex');
+        const given = Buffer.from(String(c.mac), 'hex');
+        if (given.length === expected.length && timingSafeEqual(given, expected)) checkpoints.push(c);
+        else forged++;
+      } catch {
+        forged++;
+      }
+    }
+    return { checkpoints, forged };
+  }
 
   /** Pass the caller's transaction manager so the entry commits or rolls back with the change it records. */
   async record(record: AuditRecord, manager?: EntityManager): Promise<AuditEntry> {
+    if (record.action === 'study.approved' && this.config) {
+      void this.checkpoint().catch((e: Error) => this.logger.error(`Audit checkpoint failed: ${e.message}`));
+    }
     for (let attempt = 0; ; attempt++) {
       try {
         return await (manager ? this.append(record, manager) : writeTransaction(this.dataSource, (m) => this.append(record, m)));
@@ -96,11 +178,19 @@ export class AuditService {
     let prevHash = GENESIS_HASH;
     let expectedSeq = 1;
     let rows = 0;
+    const { checkpoints, forged } = this.readCheckpoints();
+    if (forged) broken.push({ seq: 0, reason: `${forged} checkpoint(s) in the checkpoint file do not carry a valid signature` });
+    const heads = new Map<number, AuditCheckpoint>();
+    for (const c of checkpoints) heads.set(c.rows, c);
     const batch = 1000;
     for (let offset = 0; ; offset += batch) {
       const entries = await repo.find({ order: { seq: 'ASC' }, skip: offset, take: batch });
       for (const entry of entries) {
         rows++;
+        const anchored = heads.get(entry.seq);
+        if (anchored && anchored.head !== entry.hash) {
+          broken.push({ seq: entry.seq, reason: `the chain up to this entry differs from the signed checkpoint of ${anchored.at}` });
+        }
         if (entry.seq !== expectedSeq) broken.push({ seq: entry.seq, reason: `entry ${expectedSeq} is missing` });
         else if (entry.prevHash !== prevHash) broken.push({ seq: entry.seq, reason: 'link to the previous entry does not match' });
         if (auditHash(entry) !== entry.hash) broken.push({ seq: entry.seq, reason: 'content does not match its hash' });
@@ -108,6 +198,13 @@ export class AuditService {
         expectedSeq = entry.seq + 1;
       }
       if (entries.length < batch) break;
+    }
+    const latest = checkpoints.reduce<AuditCheckpoint | null>((max, c) => (!max || c.rows > max.rows ? c : max), null);
+    if (latest && latest.rows > expectedSeq - 1) {
+      broken.push({
+        seq: expectedSeq,
+        reason: `entries removed: the signed checkpoint of ${latest.at} counted ${latest.rows} entries, ${expectedSeq - 1} remain`,
+      });
     }
     if (!broken.length) return { ok: true, rows };
     return { ok: false, rows, brokenAt: broken[0].seq, reason: broken[0].reason, broken };

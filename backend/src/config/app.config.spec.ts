@@ -9,6 +9,7 @@ const production = {
   NODE_ENV: 'production',
   DATABASE_URL: `sqlite:${join(dir, 'db.sqlite')}`,
   JWT_SECRET: 'x'.repeat(40),
+  AUDIT_HMAC_KEY: 'k'.repeat(40),
   SIGNING_P12_PATH: '/etc/meritline/lab.p12',
   SMTP_URL: 'smtp://mail.example:25',
 };
@@ -19,6 +20,10 @@ describe('loadAppConfig in production', () => {
     expect(config.seedDemo).toBe(false);
     expect(config.apiDocs).toBe(false);
     expect(loadAppConfig({ ...production, API_DOCS: 'true' }).apiDocs).toBe(true);
+  });
+
+  it('should refuse to start without a key for the audit checkpoints', () => {
+    expect(() => loadAppConfig({ ...production, AUDIT_HMAC_KEY: '' })).toThrow(/AUDIT_HMAC_KEY/);
   });
 
   it('should refuse to start without a signing certificate', () => {

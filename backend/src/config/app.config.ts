@@ -11,6 +11,8 @@ export interface AppConfig {
   dataDir: string;
   database: DatabaseConfig;
   jwtSecret: string;
+  /** Signs the audit checkpoints; kept outside the database so whoever can edit the database cannot forge them. */
+  auditHmacKey: string;
   jwtExpiresIn: string;
   publicUrl: string;
   laboratoryName: string;
@@ -63,6 +65,9 @@ export function loadAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     jwtSecret = readOrCreateSecret(join(dataDir, 'jwt-secret'));
   }
   if (nodeEnv === 'production' && jwtSecret.length < 32) throw new ConfigError('JWT_SECRET must be at least 32 characters');
+  if (nodeEnv === 'production' && (env.AUDIT_HMAC_KEY ?? '').length < 32)
+    throw new ConfigError('AUDIT_HMAC_KEY must be set in production (at least 32 characters)');
+  const auditHmacKey = env.AUDIT_HMAC_KEY || readOrCreateSecret(join(dataDir, 'audit-hmac-key'));
   const mailDisabled = env.MAIL_DISABLED === 'true';
   if (nodeEnv === 'production') {
     if (!env.SIGNING_P12_PATH) throw new ConfigError('SIGNING_P12_PATH (the laboratory signing certificate) must be set in production');
@@ -76,6 +81,7 @@ export function loadAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     dataDir,
     database,
     jwtSecret,
+    auditHmacKey,
     jwtExpiresIn: env.JWT_EXPIRES_IN ?? '8h',
     publicUrl: (env.PUBLIC_URL ?? `http://localhost:${port}`).replace(/\/$/, ''),
     laboratoryName: env.LAB_NAME ?? 'Riverbend Water & Food Testing Laboratory',
