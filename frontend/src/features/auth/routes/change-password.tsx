@@ -3,6 +3,7 @@ import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
 import { PageHeader } from '@/components/page-header';
 import { toaster } from '@/components/ui/toaster';
+import { clearSessionToken } from '@/lib/session-token';
 import { PASSWORD_MIN_LENGTH } from '../api/password-rules';
 import { changePasswordSchema, useChangePassword, type ChangePasswordValues } from '../api/change-password';
 
@@ -13,14 +14,19 @@ export default function ChangePasswordPage() {
 
   return (
     <>
-      <PageHeader section="Your account" title="Change password" description="You stay signed in on this device after the change." />
+      <PageHeader
+        section="Your account"
+        title="Change password"
+        description="After the change every session of your account ends, this one included: sign in again with the new password."
+      />
       <Box maxW="md" bg="bg.panel" borderWidth="1px" borderColor="border" borderRadius="l3" p={{ base: '5', md: '8' }}>
         <Form
           initialValues={initialValues}
           validationSchema={changePasswordSchema}
           onSubmit={async (values) => {
             await changePassword.mutateAsync(values);
-            toaster.create({ type: 'success', title: 'Password changed' });
+            toaster.create({ type: 'success', title: 'Password changed', description: 'Sign in again with the new password.' });
+            clearSessionToken({ byUser: true });
           }}
           submitLabel="Change password"
           resetOnSuccess
