@@ -303,18 +303,18 @@ describe('validation reports', () => {
 });
 
 describe('signing certificates in production', () => {
-  const production = { NODE_ENV: 'production', JWT_SECRET: 'a-production-secret-of-at-least-32-characters' };
+  const production = {
+    NODE_ENV: 'production',
+    JWT_SECRET: 'a-production-secret-of-at-least-32-characters',
+    AUDIT_HMAC_KEY: 'an-audit-chain-key-of-at-least-32-characters',
+    MAIL_DISABLED: 'true',
+  };
 
-  it('should refuse to issue a report when no laboratory certificate is configured, and store nothing', async () => {
-    const t = await createTestApp(production);
+  it('should refuse to start without a laboratory certificate, so that no approval waits on a report that cannot be signed', async () => {
     try {
-      const ds = t.app.get(DataSource);
-      const seeded = await ds.getRepository(ValidationStudy).findOneByOrFail({ title: DEMO_APPROVED_TITLE });
-      const res = await t.http().get(`/api/studies/${seeded.id}/report`).set('Authorization', `Bearer ${await t.tokenFor(DEMO.reviewer)}`).expect(503);
-      expect(res.body.message).toMatch(/cannot be signed.*SIGNING_P12_PATH/);
-      expect(await ds.getRepository(ValidationReport).count()).toBe(0);
+      await expect(createTestApp(production)).rejects.toThrow(/SIGNING_P12_PATH/);
     } finally {
-      await t.close();
+      for (const key of Object.keys(production)) delete process.env[key];
     }
   });
 
