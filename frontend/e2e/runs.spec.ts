@@ -1,6 +1,22 @@
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test, type APIRequestContext, type Page } from '@playwright/test';
 import { readFileSync } from 'node:fs';
-import { mainNavigation, signIn } from './support';
+import { DEMO_PASSWORD, mainNavigation, signIn } from './support';
+
+/** Results leave the laboratory only from a released run: the analyst submits it and the demo reviewer releases it. */
+async function release(request: APIRequestContext, runId: string) {
+  const sign = async (email: string, action: 'submit' | 'release') => {
+    const login = await request.post('/api/auth/login', { data: { email, password: DEMO_PASSWORD } });
+    const headers = { Authorization: `Bearer ${(await login.json()).accessToken}` };
+    const review = await (await request.get(`/api/runs/${runId}/review`, { headers })).json();
+    const answer = await request.post(`/api/runs/${runId}/${action}`, {
+      headers,
+      data: { password: DEMO_PASSWORD, version: review.lockVersion },
+    });
+    expect(answer.status(), await answer.text()).toBeLessThan(300);
+  };
+  await sign('analyst@meritline.test', 'submit');
+  await sign('reviewer@meritline.test', 'release');
+}
 
 const NITRATE = 'Nitrate in drinking water by ion chromatography';
 /** The whole page in one frame: a tall viewport instead of a stitched full-page capture, which repeats the fixed shell. */
@@ -33,7 +49,7 @@ const plot = (page: Page) => page.getByRole('group', { name: /^Run calibration/ 
 // Plotly is a large chunk loaded on first use: allow it time on a busy machine.
 const PLOT_TIMEOUT = { timeout: 45_000 };
 
-test('an analyst calibrates a run with two points, then with one point, and exports the results', async ({ page }) => {
+test('an analyst calibrates a run with two points, then with one point, and exports the results', async ({ page, request }) => {
   test.slow();
   await signIn(page, 'analyst@meritline.test');
   await mainNavigation(page).getByRole('link', { name: 'Routine batches' }).click();
@@ -81,6 +97,8 @@ test('an analyst calibrates a run with two points, then with one point, and expo
   await expect(page.getByRole('heading', { name: 'What the one-point line costs' })).toBeVisible();
   await shot(page, 'detail-one-point');
 
+  await release(request, page.url().split('/').pop()!);
+  await page.reload();
   await page.getByRole('button', { name: 'Export' }).click();
   const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('menuitem', { name: 'Results as CSV' }).click()]);
   const csv = readFileSync((await download.path())!, 'utf8');
