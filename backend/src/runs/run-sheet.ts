@@ -1,3 +1,4 @@
+import type { DetectionApproach } from '@meritline/shared';
 import {
   colors,
   createPdfComposer,
@@ -9,9 +10,10 @@ import {
   type PlotLayer,
   type PlotPoint,
 } from '../reports/pdf/index.js';
+import { APPROACH_LABELS } from '../reports/report-figures.js';
 import { RUN_CAUTION } from './run-export.js';
 import type { RunDto } from './runs.service.js';
-import type { RunResult } from './run-types.js';
+import type { RunResult, ValidationBasis } from './run-types.js';
 
 const MODEL_NAMES: Record<string, string> = {
   'one-point': 'One-point (line through the origin)',
@@ -19,6 +21,19 @@ const MODEL_NAMES: Record<string, string> = {
   linear: 'Straight-line regression',
   quadratic: 'Quadratic regression',
 };
+
+/** LOD and LOQ of the measured solution, each with the approach it comes from, in words. */
+export function limitsText(validation: ValidationBasis, xUnit: string): string {
+  const { lod, loq, lodBasis, loqBasis } = validation;
+  const words = (basis: DetectionApproach | null) => (basis ? APPROACH_LABELS[basis] : 'not computed');
+  if (lodBasis === loqBasis) {
+    return `${withUnit(formatNumber(lod, 3), xUnit)} / ${withUnit(formatNumber(loq, 3), xUnit)} (measured solution; both from: ${words(lodBasis)})`;
+  }
+  return (
+    `LOD ${withUnit(formatNumber(lod, 3), xUnit)} (${words(lodBasis)}); ` +
+    `LOQ ${withUnit(formatNumber(loq, 3), xUnit)} (${words(loqBasis)}); measured solution`
+  );
+}
 
 /** The response the run's calibration predicts at x (bracketing: the segment that covers x). */
 export function responseAt(result: RunResult, x: number): number {
@@ -109,7 +124,7 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
     ['Validation study', validation.studyTitle],
     [
       'LOD / LOQ',
-      `${withUnit(formatNumber(validation.lod, 3), xUnit)} / ${withUnit(formatNumber(validation.loq, 3), xUnit)} (measured solution, ${validation.lodBasis ?? 'n/a'})`,
+      limitsText(validation, xUnit),
     ],
     [
       'Validated range',
