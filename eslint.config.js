@@ -19,7 +19,9 @@ const boundaries = [
     files: [`frontend/src/features/${feature}/**/*.{ts,tsx}`],
     rules: restrict([
       {
-        group: features.filter((other) => other !== feature).flatMap((other) => [`@/features/${other}`, `@/features/${other}/**`, `**/features/${other}/**`]),
+        group: features
+          .filter((other) => other !== feature)
+          .flatMap((other) => [`@/features/${other}`, `@/features/${other}/**`, `**/features/${other}/**`]),
         message: 'No imports across features: move what both need to src/components, src/lib or @meritline/shared.',
       },
       { group: ['@/app', '@/app/**', '**/src/app/**'], message: 'A feature does not import the app shell.' },
@@ -27,16 +29,37 @@ const boundaries = [
   })),
   {
     files: ['frontend/src/components/**/*.{ts,tsx}', 'frontend/src/lib/**/*.{ts,tsx}'],
-    rules: restrict([{ group: ['@/features/**', '@/app/**', '**/features/**', '**/src/app/**'], message: 'Shared frontend code never imports a feature or the app.' }]),
+    rules: restrict([
+      {
+        group: ['@/features/**', '@/app/**', '**/features/**', '**/src/app/**'],
+        message: 'Shared frontend code never imports a feature or the app.',
+      },
+    ]),
   },
   {
     files: ['shared/src/**/*.ts'],
-    rules: restrict([{ group: ['**/backend/**', '**/frontend/**', '@meritline/backend', '@meritline/frontend'], message: 'The shared package never imports the backend or the frontend.' }]),
+    rules: restrict([
+      {
+        group: ['**/backend/**', '**/frontend/**', '@meritline/backend', '@meritline/frontend'],
+        message: 'The shared package never imports the backend or the frontend.',
+      },
+    ]),
   },
 ];
 
 export default tseslint.config(
-  { ignores: ['**/dist/**', '**/node_modules/**', '**/test-output/**', '**/playwright-report/**', 'data/**', '**/*.js', '**/*.mjs', '**/*.cjs'] },
+  {
+    ignores: [
+      '**/dist/**',
+      '**/node_modules/**',
+      '**/test-output/**',
+      '**/playwright-report/**',
+      'data/**',
+      '**/*.js',
+      '**/*.mjs',
+      '**/*.cjs',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
@@ -66,7 +89,9 @@ export default tseslint.config(
     settings: {
       'import-x/extensions': ['.ts', '.tsx'],
       'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
-      'import-x/resolver-next': [createTypeScriptImportResolver({ project: ['shared/tsconfig.json', 'backend/tsconfig.json', 'frontend/tsconfig.json'] })],
+      'import-x/resolver-next': [
+        createTypeScriptImportResolver({ project: ['shared/tsconfig.json', 'backend/tsconfig.json', 'frontend/tsconfig.json'] }),
+      ],
     },
     rules: { 'import-x/no-cycle': ['error', { ignoreExternal: true }] },
   },

@@ -16,7 +16,9 @@ function pgBin(name) {
 
 function asPostgres(command) {
   const asRoot = process.getuid?.() === 0;
-  const result = asRoot ? spawnSync('su', ['postgres', '-c', command], { encoding: 'utf8' }) : spawnSync('sh', ['-c', command], { encoding: 'utf8' });
+  const result = asRoot
+    ? spawnSync('su', ['postgres', '-c', command], { encoding: 'utf8' })
+    : spawnSync('sh', ['-c', command], { encoding: 'utf8' });
   if (result.status !== 0) throw new Error(`${command}: ${result.stderr || result.stdout}`);
 }
 
@@ -29,7 +31,9 @@ export function startPostgres() {
   chmodSync(dir, 0o777);
   const data = join(dir, 'data');
   asPostgres(`${pgBin('initdb')} -D ${data} -A trust -U postgres --no-sync > /dev/null`);
-  asPostgres(`${pgBin('pg_ctl')} -D ${data} -o "-c listen_addresses=127.0.0.1 -p ${PORT} -k ${dir} -c fsync=off" -l ${dir}/server.log -w start > /dev/null`);
+  asPostgres(
+    `${pgBin('pg_ctl')} -D ${data} -o "-c listen_addresses=127.0.0.1 -p ${PORT} -k ${dir} -c fsync=off" -l ${dir}/server.log -w start > /dev/null`,
+  );
   log(`PostgreSQL test cluster on 127.0.0.1:${PORT}`);
   return {
     url: `postgres://postgres@127.0.0.1:${PORT}/postgres`,

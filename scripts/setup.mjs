@@ -18,7 +18,9 @@ export function run(command, args, options = {}) {
 }
 
 function lockHash() {
-  return createHash('sha256').update(readFileSync(join(root, 'package-lock.json'))).digest('hex');
+  return createHash('sha256')
+    .update(readFileSync(join(root, 'package-lock.json')))
+    .digest('hex');
 }
 
 /** `npm ci` when node_modules is absent or was installed from another lockfile. */
@@ -40,7 +42,9 @@ export function ensureSystemPackages(packages) {
   if (!needed.length) return;
   const isRoot = process.getuid?.() === 0;
   if (!isRoot || missing('apt-get')) {
-    throw new Error(`Missing system packages: ${needed.join(', ')}. Install them (Debian: apt-get install ${needed.join(' ')}) and run again.`);
+    throw new Error(
+      `Missing system packages: ${needed.join(', ')}. Install them (Debian: apt-get install ${needed.join(' ')}) and run again.`,
+    );
   }
   log(`Installing Debian packages: ${needed.join(', ')}…`);
   run('apt-get', ['update', '-qq']);
@@ -54,7 +58,9 @@ export function build() {
 
 export function gitRevision() {
   try {
-    return execSync('git rev-parse --short HEAD', { cwd: root, stdio: ['ignore', 'pipe', 'ignore'] }).toString().trim();
+    return execSync('git rev-parse --short HEAD', { cwd: root, stdio: ['ignore', 'pipe', 'ignore'] })
+      .toString()
+      .trim();
   } catch {
     return 'unknown';
   }

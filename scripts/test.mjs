@@ -20,7 +20,12 @@ const strip = (text) => text.replace(/\x1b\[[0-9;]*m/g, '');
 function countTests(output) {
   const text = strip(output);
   const vitest = [...text.matchAll(/^\s*Tests\s+(.*)$/gm)].at(-1)?.[1];
-  const source = vitest ?? text.split('\n').filter((line) => /^\s*\d+ (passed|failed|flaky)/.test(line)).join(' ');
+  const source =
+    vitest ??
+    text
+      .split('\n')
+      .filter((line) => /^\s*\d+ (passed|failed|flaky)/.test(line))
+      .join(' ');
   const get = (word) => Number(new RegExp(`(\\d+) ${word}`).exec(source)?.[1] ?? 0);
   return { passed: get('passed'), failed: get('failed') };
 }
@@ -35,11 +40,23 @@ function runStep(step) {
   }
   return new Promise((resolve) => {
     const started = Date.now();
-    const env = { ...process.env, FORCE_COLOR: '0', PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1', E2E_SKIP_BUILD: '1', ...(postgres ? { TEST_POSTGRES_URL: postgres.url } : {}) };
+    const env = {
+      ...process.env,
+      FORCE_COLOR: '0',
+      PLAYWRIGHT_SKIP_BROWSER_DOWNLOAD: '1',
+      E2E_SKIP_BUILD: '1',
+      ...(postgres ? { TEST_POSTGRES_URL: postgres.url } : {}),
+    };
     const child = spawn(step.cmd[0], step.cmd.slice(1), { cwd: root, env });
     let output = '';
-    child.stdout.on('data', (chunk) => { output += chunk; process.stdout.write(chunk); });
-    child.stderr.on('data', (chunk) => { output += chunk; process.stderr.write(chunk); });
+    child.stdout.on('data', (chunk) => {
+      output += chunk;
+      process.stdout.write(chunk);
+    });
+    child.stderr.on('data', (chunk) => {
+      output += chunk;
+      process.stderr.write(chunk);
+    });
     child.on('close', (code) => {
       postgres?.stop();
       resolve({ ...step, ok: code === 0, seconds: (Date.now() - started) / 1000, ...countTests(output) });

@@ -18,19 +18,32 @@ describe('the audit trail and signature integrity', () => {
     studyId = study.id;
     await t.http().post(`/api/studies/${study.id}/submit`).set(analyst).send({ password: 'wrong-password' }).expect(401);
     await t.http().post(`/api/studies/${study.id}/submit`).set(analyst).send({ password: DEMO_PASSWORD }).expect(200);
-    await t.http().post(`/api/studies/${study.id}/comments`).set(reviewer).send({ section: 'standards', body: 'Residuals look even across the range.' }).expect(201);
+    await t
+      .http()
+      .post(`/api/studies/${study.id}/comments`)
+      .set(reviewer)
+      .send({ section: 'standards', body: 'Residuals look even across the range.' })
+      .expect(201);
     await t.http().post(`/api/studies/${study.id}/approve`).set(reviewer).send({ password: DEMO_PASSWORD }).expect(200);
   });
   afterAll(() => t.close());
 
   it('should refuse the chain check to anonymous callers (401) and analysts (403)', async () => {
     await t.http().get('/api/audit/verify').expect(401);
-    await t.http().get('/api/audit/verify').set(bearer(await t.tokenFor(DEMO.analyst))).expect(403);
+    await t
+      .http()
+      .get('/api/audit/verify')
+      .set(bearer(await t.tokenFor(DEMO.analyst)))
+      .expect(403);
   });
 
   it('should record each step of the review with the actor, the status change and the failed signature', async () => {
     const study = await t.http().get(`/api/audit?entity=study&id=${studyId}`).set(quality).expect(200);
-    expect(study.body.map((e: { action: string }) => e.action).reverse()).toEqual(['signature.failed', 'study.submitted', 'study.approved']);
+    expect(study.body.map((e: { action: string }) => e.action).reverse()).toEqual([
+      'signature.failed',
+      'study.submitted',
+      'study.approved',
+    ]);
     expect(study.body[0]).toMatchObject({ actorName: 'Priya Nair', changes: { status: { from: 'submitted', to: 'approved' } } });
     const signatures = await t.http().get('/api/audit?entity=study-signature').set(quality).expect(200);
     const ofStudy = signatures.body.filter((e: { changes: { studyId: { to: string } } }) => e.changes.studyId.to === studyId);
@@ -70,7 +83,9 @@ describe('the audit trail and signature integrity', () => {
     const after = await t.http().get(`/api/studies/${studyId}/signatures`).set(quality).expect(200);
     expect(after.body.map((s: { valid: boolean }) => s.valid)).toEqual([false, false]);
     const history = await t.http().get(`/api/studies/${studyId}/history`).set(quality).expect(200);
-    expect(history.body.filter((item: { kind: string }) => item.kind === 'signature').map((item: { valid: boolean }) => item.valid)).toEqual([false, false]);
+    expect(
+      history.body.filter((item: { kind: string }) => item.kind === 'signature').map((item: { valid: boolean }) => item.valid),
+    ).toEqual([false, false]);
   });
 
   it('should report the chain broken at the row edited directly in the database file', async () => {
@@ -99,11 +114,17 @@ describe('the demo review trail', () => {
     const reviewed = studies.filter((study) => study.status !== 'draft');
     expect(reviewed.length).toBeGreaterThan(0);
     for (const study of reviewed) {
-      const signatures = (await t.http().get(`/api/studies/${study.id}/signatures`).set(quality).expect(200)).body as { meaning: string; valid: boolean }[];
+      const signatures = (await t.http().get(`/api/studies/${study.id}/signatures`).set(quality).expect(200)).body as {
+        meaning: string;
+        valid: boolean;
+      }[];
       expect(signatures[0].meaning).toBe('authored');
       expect(signatures.every((signature) => signature.valid)).toBe(true);
       if (study.status === 'approved') expect(signatures.map((signature) => signature.meaning)).toContain('reviewed-and-approved');
-      const history = (await t.http().get(`/api/studies/${study.id}/history`).set(quality).expect(200)).body as { kind: string; action: string }[];
+      const history = (await t.http().get(`/api/studies/${study.id}/history`).set(quality).expect(200)).body as {
+        kind: string;
+        action: string;
+      }[];
       expect(history.filter((item) => item.kind === 'status').map((item) => item.action)[0]).toBe('study.submitted');
       if (study.status === 'returned') expect(history.map((item) => item.action)).toContain('study.returned');
     }

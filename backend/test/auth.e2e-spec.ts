@@ -30,7 +30,8 @@ describe('sign-in and roles', () => {
 
   it('should throttle an account after repeated failures, even for the right password, and not slow successful sign-ins', async () => {
     for (let i = 0; i < 5; i++) await t.http().post('/api/auth/login').send({ email: DEMO.quality, password: DEMO_PASSWORD }).expect(200);
-    for (let i = 0; i < 3; i++) await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: 'wrong-password' }).expect(401);
+    for (let i = 0; i < 3; i++)
+      await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: 'wrong-password' }).expect(401);
     const blocked = await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: DEMO_PASSWORD }).expect(429);
     expect(blocked.body.message).toMatch(/too many failed sign-in attempts/i);
     await t.http().post('/api/auth/login').send({ email: DEMO.quality, password: DEMO_PASSWORD }).expect(200);
@@ -43,7 +44,12 @@ describe('sign-in and roles', () => {
       const token = await t.tokenFor(email);
       await t.http().get('/api/users').set('Authorization', `Bearer ${token}`).expect(403);
       await t.http().get('/api/outbox').set('Authorization', `Bearer ${token}`).expect(403);
-      await t.http().post('/api/users/invitations').set('Authorization', `Bearer ${token}`).send({ email: 'x@y.test', name: 'X', roles: ['analyst'] }).expect(403);
+      await t
+        .http()
+        .post('/api/users/invitations')
+        .set('Authorization', `Bearer ${token}`)
+        .send({ email: 'x@y.test', name: 'X', roles: ['analyst'] })
+        .expect(403);
     }
     const admin = await t.tokenFor(DEMO.admin);
     const users = await t.http().get('/api/users').set('Authorization', `Bearer ${admin}`).expect(200);
@@ -57,8 +63,12 @@ describe('sign-in and roles', () => {
 
   it('should e-mail an invitation whose one-time link sets a password and signs the new user in', async () => {
     const admin = await t.tokenFor(DEMO.admin);
-    const invited = await t.http().post('/api/users/invitations').set('Authorization', `Bearer ${admin}`)
-      .send({ email: 'Dana.Fischer@meritline.test', name: 'Dana Fischer', roles: ['analyst', 'reviewer'] }).expect(201);
+    const invited = await t
+      .http()
+      .post('/api/users/invitations')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ email: 'Dana.Fischer@meritline.test', name: 'Dana Fischer', roles: ['analyst', 'reviewer'] })
+      .expect(201);
     expect(invited.body).toMatchObject({ email: 'dana.fischer@meritline.test', invitationPending: true, roles: ['analyst', 'reviewer'] });
 
     const outbox = await t.http().get('/api/outbox').set('Authorization', `Bearer ${admin}`).expect(200);
@@ -68,7 +78,11 @@ describe('sign-in and roles', () => {
     expect(token).toBeTruthy();
 
     await t.http().post('/api/auth/login').send({ email: 'dana.fischer@meritline.test', password: 'a-good-password-1' }).expect(401);
-    const accepted = await t.http().post('/api/auth/accept-invitation').send({ token, name: 'Dana Fischer', password: 'a-good-password-1' }).expect(200);
+    const accepted = await t
+      .http()
+      .post('/api/auth/accept-invitation')
+      .send({ token, name: 'Dana Fischer', password: 'a-good-password-1' })
+      .expect(200);
     expect(accepted.body.user.roles).toEqual(['analyst', 'reviewer']);
     await t.http().post('/api/auth/login').send({ email: 'dana.fischer@meritline.test', password: 'a-good-password-1' }).expect(200);
     await t.http().post('/api/auth/accept-invitation').send({ token, name: 'Again', password: 'another-password-2' }).expect(400);
@@ -76,8 +90,12 @@ describe('sign-in and roles', () => {
 
   it('should refuse a second invitation to the same e-mail with a field message', async () => {
     const admin = await t.tokenFor(DEMO.admin);
-    const res = await t.http().post('/api/users/invitations').set('Authorization', `Bearer ${admin}`)
-      .send({ email: DEMO.analyst, name: 'Twin', roles: ['analyst'] }).expect(409);
+    const res = await t
+      .http()
+      .post('/api/users/invitations')
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ email: DEMO.analyst, name: 'Twin', roles: ['analyst'] })
+      .expect(409);
     expect(res.body.errors[0].field).toBe('email');
   });
 
@@ -85,7 +103,12 @@ describe('sign-in and roles', () => {
     const admin = await t.tokenFor(DEMO.admin);
     const users = await t.http().get('/api/users').set('Authorization', `Bearer ${admin}`).expect(200);
     const dana = users.body.find((u: { email: string }) => u.email === 'dana.fischer@meritline.test');
-    const updated = await t.http().patch(`/api/users/${dana.id}`).set('Authorization', `Bearer ${admin}`).send({ roles: ['reviewer'] }).expect(200);
+    const updated = await t
+      .http()
+      .patch(`/api/users/${dana.id}`)
+      .set('Authorization', `Bearer ${admin}`)
+      .send({ roles: ['reviewer'] })
+      .expect(200);
     expect(updated.body.roles).toEqual(['reviewer']);
     await t.http().patch(`/api/users/${dana.id}`).set('Authorization', `Bearer ${admin}`).send({ active: false }).expect(200);
     await t.http().post('/api/auth/login').send({ email: 'dana.fischer@meritline.test', password: 'a-good-password-1' }).expect(401);
@@ -95,9 +118,24 @@ describe('sign-in and roles', () => {
 
   it('should let every user change their own password after re-entering the current one', async () => {
     const token = await t.tokenFor(DEMO.reviewer);
-    await t.http().post('/api/auth/change-password').set('Authorization', `Bearer ${token}`).send({ currentPassword: 'wrong', newPassword: 'a-new-password-9' }).expect(422);
-    await t.http().post('/api/auth/change-password').set('Authorization', `Bearer ${token}`).send({ currentPassword: DEMO_PASSWORD, newPassword: 'short' }).expect(422);
-    await t.http().post('/api/auth/change-password').set('Authorization', `Bearer ${token}`).send({ currentPassword: DEMO_PASSWORD, newPassword: 'a-new-password-9' }).expect(204);
+    await t
+      .http()
+      .post('/api/auth/change-password')
+      .set('Authorization', `Bearer ${token}`)
+      .send({ currentPassword: 'wrong', newPassword: 'a-new-password-9' })
+      .expect(422);
+    await t
+      .http()
+      .post('/api/auth/change-password')
+      .set('Authorization', `Bearer ${token}`)
+      .send({ currentPassword: DEMO_PASSWORD, newPassword: 'short' })
+      .expect(422);
+    await t
+      .http()
+      .post('/api/auth/change-password')
+      .set('Authorization', `Bearer ${token}`)
+      .send({ currentPassword: DEMO_PASSWORD, newPassword: 'a-new-password-9' })
+      .expect(204);
     await t.http().post('/api/auth/login').send({ email: DEMO.reviewer, password: 'a-new-password-9' }).expect(200);
   });
 
@@ -135,13 +173,32 @@ describe('bad input on the foundation routes', () => {
   it('should answer wrong types, unknown roles, unknown fields and over-long strings with 422', async () => {
     const admin = await t.tokenFor(DEMO.admin);
     const auth = { Authorization: `Bearer ${admin}` };
-    const wrongTypes = await t.http().post('/api/auth/login').send({ email: 42, password: ['x'] }).expect(422);
+    const wrongTypes = await t
+      .http()
+      .post('/api/auth/login')
+      .send({ email: 42, password: ['x'] })
+      .expect(422);
     expect(wrongTypes.body.errors).toHaveLength(2);
-    const badRole = await t.http().post('/api/users/invitations').set(auth).send({ email: 'r@meritline.test', name: 'R', roles: ['superuser'] }).expect(422);
+    const badRole = await t
+      .http()
+      .post('/api/users/invitations')
+      .set(auth)
+      .send({ email: 'r@meritline.test', name: 'R', roles: ['superuser'] })
+      .expect(422);
     expect(badRole.body.errors[0]).toMatchObject({ field: 'roles' });
-    const tooLong = await t.http().post('/api/users/invitations').set(auth).send({ email: 'l@meritline.test', name: 'x'.repeat(500), roles: ['analyst'] }).expect(422);
+    const tooLong = await t
+      .http()
+      .post('/api/users/invitations')
+      .set(auth)
+      .send({ email: 'l@meritline.test', name: 'x'.repeat(500), roles: ['analyst'] })
+      .expect(422);
     expect(tooLong.body.errors[0]).toMatchObject({ field: 'name', code: 'maxLength' });
-    await t.http().post('/api/users/invitations').set(auth).send({ email: 'u@meritline.test', name: 'U', roles: ['analyst'], admin: true }).expect(422);
+    await t
+      .http()
+      .post('/api/users/invitations')
+      .set(auth)
+      .send({ email: 'u@meritline.test', name: 'U', roles: ['analyst'], admin: true })
+      .expect(422);
     await t.http().patch('/api/users/not-a-uuid').set(auth).send({ active: false }).expect(400);
     await t.http().patch('/api/users/00000000-0000-4000-8000-000000000000').set(auth).send({ active: false }).expect(404);
     const users = await t.http().get('/api/users').set(auth).expect(200);
@@ -149,7 +206,11 @@ describe('bad input on the foundation routes', () => {
   });
 
   it('should answer an over-size body with 413', async () => {
-    await t.http().post('/api/auth/login').send({ email: 'a@b.c', password: 'x'.repeat(6 * 1024 * 1024) }).expect(413);
+    await t
+      .http()
+      .post('/api/auth/login')
+      .send({ email: 'a@b.c', password: 'x'.repeat(6 * 1024 * 1024) })
+      .expect(413);
   });
 
   it('should answer unknown API routes with a JSON 404', async () => {

@@ -19,7 +19,13 @@ describe('in-app notifications', () => {
   let quality: Record<string, string>;
   let studyId: string;
 
-  const unreadOf = (auth: Record<string, string>) => t.http().get('/api/notifications').set(auth).expect(200).then((res) => res.body.unread as number);
+  const unreadOf = (auth: Record<string, string>) =>
+    t
+      .http()
+      .get('/api/notifications')
+      .set(auth)
+      .expect(200)
+      .then((res) => res.body.unread as number);
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -42,7 +48,13 @@ describe('in-app notifications', () => {
     await t.http().post(`/api/studies/${studyId}/submit`).set(analyst).send({ password: DEMO_PASSWORD }).expect(200);
     const forReviewer = await t.http().get('/api/notifications').set(reviewer).expect(200);
     expect(forReviewer.body.unread).toBe(reviewerUnread + 1);
-    expect(forReviewer.body.items[0]).toMatchObject({ kind: 'study.submitted', message: expect.stringContaining('Alma Ruiz submitted'), link: `/studies/${studyId}`, readAt: null, createdAt: expect.any(String) });
+    expect(forReviewer.body.items[0]).toMatchObject({
+      kind: 'study.submitted',
+      message: expect.stringContaining('Alma Ruiz submitted'),
+      link: `/studies/${studyId}`,
+      readAt: null,
+      createdAt: expect.any(String),
+    });
     expect(await unreadOf(analyst)).toBe(analystUnread);
 
     await t.http().post(`/api/studies/${studyId}/approve`).set(reviewer).send({ password: DEMO_PASSWORD }).expect(200);

@@ -47,11 +47,13 @@ const pdfsig = (file: string) => {
   return `${run.stdout}${run.stderr}`;
 };
 const pdftotext = (file: string, page?: number) =>
-  execFileSync('pdftotext', [...(page ? ['-f', String(page), '-l', String(page)] : []), file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+  execFileSync('pdftotext', [...(page ? ['-f', String(page), '-l', String(page)] : []), file, '-'], { encoding: 'utf8' }).replace(
+    /\s+/g,
+    ' ',
+  );
 const pageCount = (file: string) => Number(/Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [file], { encoding: 'utf8' }))?.[1]);
 
 afterAll(() => rmSync(scratch, { recursive: true, force: true }));
-
 
 /** The textbook data do not meet every criterion of the method version, so approving them needs a written reason. */
 const JUSTIFICATION = 'Textbook calibration used to check the report layout, not for routine use.';
@@ -60,28 +62,50 @@ describe('validation reports', () => {
   let ds: DataSource;
   const token: Record<keyof typeof DEMO, string> = { analyst: '', analyst2: '', reviewer: '', quality: '', admin: '' };
   const as = (who: keyof typeof DEMO) => ({ Authorization: `Bearer ${token[who]}` });
-  const download = (studyId: string, who: keyof typeof DEMO = 'analyst') => t.http().get(`/api/studies/${studyId}/report`).set(as(who)).buffer(true).parse(binary);
-  const verify = (bytes: Buffer, name = 'report.pdf') => t.http().post('/api/reports/verify').attach('file', bytes, { filename: name, contentType: 'application/pdf' });
+  const download = (studyId: string, who: keyof typeof DEMO = 'analyst') =>
+    t.http().get(`/api/studies/${studyId}/report`).set(as(who)).buffer(true).parse(binary);
+  const verify = (bytes: Buffer, name = 'report.pdf') =>
+    t.http().post('/api/reports/verify').attach('file', bytes, { filename: name, contentType: 'application/pdf' });
   const reportCount = () => ds.getRepository(ValidationReport).count();
 
   /** A study on a seeded method version, created, submitted and approved through the API. */
   const approvedStudy = async (): Promise<any> => {
     const methods = (await t.http().get('/api/methods').set(as('analyst')).expect(200)).body as any[];
     const version = methods.flatMap((m) => m.versions.map((v: any) => ({ ...v, method: m }))).find((v) => v.status === 'active');
-    const created = await t.http()
+    const created = await t
+      .http()
       .post('/api/studies')
       .set(as('analyst'))
       .send({
         methodVersionId: version.id,
         title: 'Fluorescein calibration check (textbook data)',
-        data: { units: { x: 'pg/mL', y: 'intensity' }, standards: miller.data.x.map((x: number, i: number) => ({ x, y: miller.data.y[i] })) },
-        meta: { instrument: 'FL-1 spectrofluorimeter', startedOn: '2026-11-02', finishedOn: '2026-11-03', conclusion: 'Linear over 0 to 12 pg/mL.' },
+        data: {
+          units: { x: 'pg/mL', y: 'intensity' },
+          standards: miller.data.x.map((x: number, i: number) => ({ x, y: miller.data.y[i] })),
+        },
+        meta: {
+          instrument: 'FL-1 spectrofluorimeter',
+          startedOn: '2026-11-02',
+          finishedOn: '2026-11-03',
+          conclusion: 'Linear over 0 to 12 pg/mL.',
+        },
       })
       .expect(201);
     const id = created.body.id as string;
     await t.http().post(`/api/studies/${id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
-    let approved = await t.http().post(`/api/studies/${id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD, comment: 'Checked against the bench sheets.', justification: JUSTIFICATION }).expect(200);
-    if (approved.body.status !== 'approved') approved = await t.http().post(`/api/studies/${id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD, justification: JUSTIFICATION }).expect(200);
+    let approved = await t
+      .http()
+      .post(`/api/studies/${id}/approve`)
+      .set(as('reviewer'))
+      .send({ password: DEMO_PASSWORD, comment: 'Checked against the bench sheets.', justification: JUSTIFICATION })
+      .expect(200);
+    if (approved.body.status !== 'approved')
+      approved = await t
+        .http()
+        .post(`/api/studies/${id}/approve`)
+        .set(as('quality'))
+        .send({ password: DEMO_PASSWORD, justification: JUSTIFICATION })
+        .expect(200);
     expect(approved.body.status).toBe('approved');
     return (await t.http().get(`/api/studies/${id}`).set(as('analyst')).expect(200)).body;
   };
@@ -104,7 +128,11 @@ describe('validation reports', () => {
     it('should store one signed report against the method version, with its SHA-256, size and an audit entry', async () => {
       expect(first.headers['content-type']).toBe('application/pdf');
       const stored = await ds.getRepository(ValidationReport).findOneByOrFail({ studyId: study.id });
-      expect(stored).toMatchObject({ methodVersionId: study.methodVersionId, sizeBytes: first.body.length, sha256: createHash('sha256').update(first.body).digest('hex') });
+      expect(stored).toMatchObject({
+        methodVersionId: study.methodVersionId,
+        sizeBytes: first.body.length,
+        sha256: createHash('sha256').update(first.body).digest('hex'),
+      });
       expect(Buffer.compare(stored.pdf, first.body)).toBe(0);
       const fileName = `meritline-${study.method.name.toLowerCase().replace(/[^a-z0-9]+/g, '-')}-v${study.methodVersion.number}-${stored.id.slice(0, 8)}.pdf`;
       expect(first.headers['content-disposition']).toBe(`attachment; filename="${fileName}"`);
@@ -210,7 +238,16 @@ describe('validation reports', () => {
 
     it('should carry every section, the signatures, the review comment, the data hash on every page and the caution', () => {
       const text = pdftotext(reportFile);
-      for (const heading of ['1 Summary', '2 Calibration', '3 Detection and quantitation limits', '4 Recovery and precision', '5 Outliers and exclusions', '6 Statistical methods and references', '7 Electronic signatures and review', '8 Caution']) {
+      for (const heading of [
+        '1 Summary',
+        '2 Calibration',
+        '3 Detection and quantitation limits',
+        '4 Recovery and precision',
+        '5 Outliers and exclusions',
+        '6 Statistical methods and references',
+        '7 Electronic signatures and review',
+        '8 Caution',
+      ]) {
         expect(text).toContain(heading);
       }
       expect(text).toContain('Lack-of-fit test: not evaluated');
@@ -235,9 +272,14 @@ describe('validation reports', () => {
     });
 
     it('should render page 1 and the calibration page as images for a visual check', () => {
-      const calibrationPage = Array.from({ length: pageCount(reportFile) }, (_, i) => i + 1).find((page) => pdftotext(reportFile, page).includes('Figure 1. Calibration'))!;
+      const calibrationPage = Array.from({ length: pageCount(reportFile) }, (_, i) => i + 1).find((page) =>
+        pdftotext(reportFile, page).includes('Figure 1. Calibration'),
+      )!;
       mkdirSync(OUTPUT, { recursive: true });
-      for (const [page, name] of [[1, 'report-page-1'], [calibrationPage, 'report-page-calibration']] as const) {
+      for (const [page, name] of [
+        [1, 'report-page-1'],
+        [calibrationPage, 'report-page-calibration'],
+      ] as const) {
         const prefix = join(scratch, name);
         execFileSync('pdftoppm', ['-png', '-r', '60', '-f', String(page), '-l', String(page), '-singlefile', reportFile, prefix]);
         copyFileSync(`${prefix}.png`, join(OUTPUT, `${name}.png`));
@@ -325,7 +367,13 @@ describe('signing certificates in production', () => {
     const t = await createTestApp({ ...production, SIGNING_P12_PATH: p12Path, SIGNING_P12_PASSPHRASE: 'configured-passphrase' });
     try {
       const seeded = await t.app.get(DataSource).getRepository(ValidationStudy).findOneByOrFail({ title: DEMO_APPROVED_TITLE });
-      const res = await t.http().get(`/api/studies/${seeded.id}/report`).set('Authorization', `Bearer ${await t.tokenFor(DEMO.reviewer)}`).buffer(true).parse(binary).expect(200);
+      const res = await t
+        .http()
+        .get(`/api/studies/${seeded.id}/report`)
+        .set('Authorization', `Bearer ${await t.tokenFor(DEMO.reviewer)}`)
+        .buffer(true)
+        .parse(binary)
+        .expect(200);
       const out = pdfsig(saved('configured.pdf', res.body));
       expect(out).toContain('Signer Certificate Common Name: Riverbend Configured Signer');
       expect(out).toContain('Signature is Valid.');

@@ -1,5 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, calibrationData, createStudy, databaseState, dataSourceOf, evaluated, openDatabaseFile, userId } from './support/review-fixtures.js';
+import {
+  bearer,
+  calibrationData,
+  createStudy,
+  databaseState,
+  dataSourceOf,
+  evaluated,
+  openDatabaseFile,
+  userId,
+} from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 
@@ -27,7 +36,9 @@ describe('review and sign-off', () => {
   const changeData = async (studyId: string, mutate: (data: ReturnType<typeof calibrationData>) => void) => {
     const data = calibrationData();
     mutate(data);
-    await dataSourceOf(t).getRepository(ValidationStudy).update({ id: studyId }, { ...evaluated(data), lockVersion: () => 'lock_version + 1' } as never);
+    await dataSourceOf(t)
+      .getRepository(ValidationStudy)
+      .update({ id: studyId }, { ...evaluated(data), lockVersion: () => 'lock_version + 1' } as never);
   };
 
   beforeAll(async () => {
@@ -42,7 +53,12 @@ describe('review and sign-off', () => {
       const before = databaseState(t, study.id);
       await t.http().post(`/api/studies/${study.id}/submit`).send({ password: DEMO_PASSWORD }).expect(401);
       await t.http().post(`/api/studies/${study.id}/submit`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(403);
-      const other = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst2')).send({ password: DEMO_PASSWORD }).expect(403);
+      const other = await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst2'))
+        .send({ password: DEMO_PASSWORD })
+        .expect(403);
       expect(other.body.message).toMatch(/only the author/i);
       await t.http().post(`/api/studies/${UNKNOWN_ID}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(404);
       await t.http().post('/api/studies/not-a-uuid/submit').set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(400);
@@ -52,9 +68,19 @@ describe('review and sign-off', () => {
     it('should answer missing or malformed fields with 422 and one message per field', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = databaseState(t, study.id);
-      const res = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ comment: 'x'.repeat(2001), lockVersion: 0 }).expect(422);
+      const res = await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ comment: 'x'.repeat(2001), lockVersion: 0 })
+        .expect(422);
       expect(res.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['comment', 'lockVersion', 'password']);
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD, approve: true }).expect(422);
+      await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ password: DEMO_PASSWORD, approve: true })
+        .expect(422);
       expect(databaseState(t, study.id)).toEqual(before);
     });
 
@@ -69,7 +95,12 @@ describe('review and sign-off', () => {
     it('should refuse a wrong password with 401, sign nothing and record the failed signature', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = databaseState(t, study.id);
-      const res = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: 'not-my-password' }).expect(401);
+      const res = await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ password: 'not-my-password' })
+        .expect(401);
       expect(res.body.message).toBe('Password not correct; nothing was signed.');
       expect(databaseState(t, study.id)).toEqual(before);
       const audit = await t.http().get(`/api/audit?entity=study&id=${study.id}`).set(as('quality')).expect(200);
@@ -80,7 +111,12 @@ describe('review and sign-off', () => {
     it('should refuse a stale lock version with 409', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = databaseState(t, study.id);
-      const res = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 }).expect(409);
+      const res = await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 })
+        .expect(409);
       expect(res.body.message).toMatch(/changed since you opened it/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -89,9 +125,19 @@ describe('review and sign-off', () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       let res: { body: Record<string, unknown> } = { body: {} };
       const mails = await newMail(async () => {
-        res = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD, comment: 'Ready for review.', lockVersion: study.lockVersion }).expect(200);
+        res = await t
+          .http()
+          .post(`/api/studies/${study.id}/submit`)
+          .set(as('analyst'))
+          .send({ password: DEMO_PASSWORD, comment: 'Ready for review.', lockVersion: study.lockVersion })
+          .expect(200);
       });
-      expect(res.body).toMatchObject({ status: 'submitted', stage: 'review', lockVersion: study.lockVersion + 1, signature: { meaning: 'authored', signerName: 'Alma Ruiz', signerRole: 'analyst', valid: true, comment: 'Ready for review.' } });
+      expect(res.body).toMatchObject({
+        status: 'submitted',
+        stage: 'review',
+        lockVersion: study.lockVersion + 1,
+        signature: { meaning: 'authored', signerName: 'Alma Ruiz', signerRole: 'analyst', valid: true, comment: 'Ready for review.' },
+      });
       expect(recipients(mails)).toEqual([DEMO.quality, DEMO.reviewer]);
       expect(mails[0].subject).toBe(`Study awaiting review: ${study.title}`);
       expect(mails[0].text).toContain(`/studies/${study.id}`);
@@ -111,7 +157,12 @@ describe('review and sign-off', () => {
 
     it('should refuse to approve or return a draft with 409', async () => {
       const before = databaseState(t, study.id);
-      const approve = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(409);
+      const approve = await t
+        .http()
+        .post(`/api/studies/${study.id}/approve`)
+        .set(as('reviewer'))
+        .send({ password: DEMO_PASSWORD })
+        .expect(409);
       expect(approve.body.message).toMatch(/a draft; only a submitted study can be approved/);
       await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment: 'Not yet.' }).expect(409);
       expect(databaseState(t, study.id)).toEqual(before);
@@ -140,7 +191,11 @@ describe('review and sign-off', () => {
       const notices = await t.http().get('/api/notifications').set(as('analyst')).expect(200);
       expect(notices.body.items[0]).toMatchObject({ kind: 'study.returned', message: expect.stringContaining(comment) });
       const audit = await t.http().get(`/api/audit?entity=study&id=${study.id}`).set(as('quality')).expect(200);
-      expect(audit.body[0]).toMatchObject({ action: 'study.returned', changes: { status: { from: 'submitted', to: 'returned' } }, reason: comment });
+      expect(audit.body[0]).toMatchObject({
+        action: 'study.returned',
+        changes: { status: { from: 'submitted', to: 'returned' } },
+        reason: comment,
+      });
     });
 
     it('should accept the corrected study again and show the difference between the two submissions', async () => {
@@ -151,7 +206,12 @@ describe('review and sign-off', () => {
       });
       const diffBefore = await t.http().get(`/api/studies/${study.id}/diff`).set(as('reviewer')).expect(200);
       expect(diffBefore.body).toEqual({});
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD, comment: 'Re-measured the top standard.' }).expect(200);
+      await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ password: DEMO_PASSWORD, comment: 'Re-measured the top standard.' })
+        .expect(200);
       const diff = await t.http().get(`/api/studies/${study.id}/diff`).set(as('reviewer')).expect(200);
       expect(diff.body.settings).toEqual([{ field: 'weighting', from: 'none', to: '1/x' }]);
       const standards = diff.body.sections.find((s: { section: string }) => s.section === 'standards');
@@ -163,7 +223,9 @@ describe('review and sign-off', () => {
       );
       expect(standards.added).toEqual([]);
       const signatures = await t.http().get(`/api/studies/${study.id}/signatures`).set(as('reviewer')).expect(200);
-      expect(signatures.body.map((s: { meaning: string; valid: boolean; superseded: boolean }) => [s.meaning, s.valid, s.superseded])).toEqual([
+      expect(
+        signatures.body.map((s: { meaning: string; valid: boolean; superseded: boolean }) => [s.meaning, s.valid, s.superseded]),
+      ).toEqual([
         ['authored', true, true],
         ['authored', true, false],
       ]);
@@ -172,8 +234,14 @@ describe('review and sign-off', () => {
     it('should refuse the approval of a study by its author whatever roles the author holds (403)', async () => {
       const admin = as('admin');
       const analyst2Id = await userId(t, DEMO.analyst2);
-      await t.http().patch(`/api/users/${analyst2Id}`).set(admin).send({ roles: ['analyst', 'reviewer'] }).expect(200);
-      const both = (await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: DEMO_PASSWORD }).expect(200)).body.accessToken;
+      await t
+        .http()
+        .patch(`/api/users/${analyst2Id}`)
+        .set(admin)
+        .send({ roles: ['analyst', 'reviewer'] })
+        .expect(200);
+      const both = (await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: DEMO_PASSWORD }).expect(200)).body
+        .accessToken;
       const own = await createStudy(t, { author: DEMO.analyst2 });
       await t.http().post(`/api/studies/${own.id}/submit`).set(bearer(both)).send({ password: DEMO_PASSWORD }).expect(200);
       const before = databaseState(t, own.id);
@@ -183,7 +251,12 @@ describe('review and sign-off', () => {
       const queue = await t.http().get('/api/reviews/queue').set(bearer(both)).expect(200);
       expect(queue.body.map((q: { id: string }) => q.id)).not.toContain(own.id);
       expect(databaseState(t, own.id)).toEqual(before);
-      await t.http().patch(`/api/users/${analyst2Id}`).set(admin).send({ roles: ['analyst'] }).expect(200);
+      await t
+        .http()
+        .patch(`/api/users/${analyst2Id}`)
+        .set(admin)
+        .send({ roles: ['analyst'] })
+        .expect(200);
     });
 
     it('should refuse the approval of a study by someone who edited its data (403)', async () => {
@@ -205,7 +278,12 @@ describe('review and sign-off', () => {
       await t.http().post(`/api/studies/${study.id}/approve`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(403);
       await t.http().post(`/api/studies/${study.id}/approve`).send({ password: DEMO_PASSWORD }).expect(401);
       await t.http().post(`/api/studies/${UNKNOWN_ID}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(404);
-      const stale = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD, lockVersion: 1 }).expect(409);
+      const stale = await t
+        .http()
+        .post(`/api/studies/${study.id}/approve`)
+        .set(as('reviewer'))
+        .send({ password: DEMO_PASSWORD, lockVersion: 1 })
+        .expect(409);
       expect(stale.body.message).toMatch(/changed since you opened it/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -213,9 +291,19 @@ describe('review and sign-off', () => {
     it('should approve with a reviewer signature and e-mail the author and the quality managers', async () => {
       let res: { body: Record<string, unknown> } = { body: {} };
       const mails = await newMail(async () => {
-        res = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD, comment: 'Checked all sections.' }).expect(200);
+        res = await t
+          .http()
+          .post(`/api/studies/${study.id}/approve`)
+          .set(as('reviewer'))
+          .send({ password: DEMO_PASSWORD, comment: 'Checked all sections.' })
+          .expect(200);
       });
-      expect(res.body).toMatchObject({ status: 'approved', stage: null, approvedAt: expect.any(String), signature: { meaning: 'reviewed-and-approved', signerName: 'Priya Nair', signerRole: 'reviewer', valid: true } });
+      expect(res.body).toMatchObject({
+        status: 'approved',
+        stage: null,
+        approvedAt: expect.any(String),
+        signature: { meaning: 'reviewed-and-approved', signerName: 'Priya Nair', signerRole: 'reviewer', valid: true },
+      });
       expect(recipients(mails)).toEqual([DEMO.analyst, DEMO.quality]);
       expect(mails[0].subject).toBe(`Study approved: ${study.title}`);
       expect(mails[0].text).toMatch(/does not replace/);
@@ -235,18 +323,34 @@ describe('review and sign-off', () => {
       await t.http().post(`/api/studies/${study.id}/return`).set(as('quality')).send({ comment: 'Reopen' }).expect(409);
       await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(409);
       const current = await t.http().get(`/api/studies/${study.id}`).set(as('analyst')).expect(200);
-      const edit = await t.http().patch(`/api/studies/${study.id}`).set(as('analyst')).send({ title: 'Changed afterwards', lockVersion: current.body.lockVersion }).expect(409);
+      const edit = await t
+        .http()
+        .patch(`/api/studies/${study.id}`)
+        .set(as('analyst'))
+        .send({ title: 'Changed afterwards', lockVersion: current.body.lockVersion })
+        .expect(409);
       expect(edit.body.message).toMatch(/approved/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
 
     it('should tell the whole story in the history, oldest first', async () => {
-      await t.http().post(`/api/studies/${study.id}/comments`).set(as('reviewer')).send({ section: 'standards', body: 'Top standard now fine.' }).expect(409);
+      await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('reviewer'))
+        .send({ section: 'standards', body: 'Top standard now fine.' })
+        .expect(409);
       const res = await t.http().get(`/api/studies/${study.id}/history`).set(as('analyst')).expect(200);
       const timeline = res.body as { at: string; kind: string; action: string; valid?: boolean }[];
       expect(timeline.map((item) => item.at)).toEqual([...timeline.map((item) => item.at)].sort());
       const actions = timeline.map((item) => item.action);
-      for (const action of ['study.submitted', 'signature.authored', 'study.returned', 'study.approved', 'signature.reviewed-and-approved']) {
+      for (const action of [
+        'study.submitted',
+        'signature.authored',
+        'study.returned',
+        'study.approved',
+        'signature.reviewed-and-approved',
+      ]) {
         expect(actions).toContain(action);
       }
       expect(actions.indexOf('study.returned')).toBeLessThan(actions.lastIndexOf('study.submitted'));
@@ -277,16 +381,33 @@ describe('review and sign-off', () => {
       const reviewerQueue = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
       expect(reviewerQueue.body.map((q: { id: string }) => q.id)).not.toContain(study.id);
       const qualityQueue = await t.http().get('/api/reviews/queue').set(as('quality')).expect(200);
-      expect(qualityQueue.body.find((q: { id: string }) => q.id === study.id)).toMatchObject({ stage: 'release', authorName: 'Alma Ruiz', methodVersionNumber: 1 });
+      expect(qualityQueue.body.find((q: { id: string }) => q.id === study.id)).toMatchObject({
+        stage: 'release',
+        authorName: 'Alma Ruiz',
+        methodVersionNumber: 1,
+      });
 
       const before = databaseState(t, study.id);
-      const again = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(403);
+      const again = await t
+        .http()
+        .post(`/api/studies/${study.id}/approve`)
+        .set(as('reviewer'))
+        .send({ password: DEMO_PASSWORD })
+        .expect(403);
       expect(again.body.message).toMatch(/awaits release by a quality manager/);
       expect(databaseState(t, study.id)).toEqual(before);
 
       const released = await newMail(async () => {
-        const res = await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(200);
-        expect(res.body).toMatchObject({ status: 'approved', signature: { meaning: 'released', signerRole: 'quality_manager', signerName: 'Jonas Lindqvist' } });
+        const res = await t
+          .http()
+          .post(`/api/studies/${study.id}/approve`)
+          .set(as('quality'))
+          .send({ password: DEMO_PASSWORD })
+          .expect(200);
+        expect(res.body).toMatchObject({
+          status: 'approved',
+          signature: { meaning: 'released', signerRole: 'quality_manager', signerName: 'Jonas Lindqvist' },
+        });
       });
       expect(recipients(released)).toEqual([DEMO.analyst]);
       const signatures = await t.http().get(`/api/studies/${study.id}/signatures`).set(as('analyst')).expect(200);
@@ -296,7 +417,12 @@ describe('review and sign-off', () => {
     it('should refuse a release by the quality manager who gave the first approval (403)', async () => {
       const study = await createStudy(t, { author: DEMO.analyst, requiresQualityRelease: true });
       await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
-      const first = await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(200);
+      const first = await t
+        .http()
+        .post(`/api/studies/${study.id}/approve`)
+        .set(as('quality'))
+        .send({ password: DEMO_PASSWORD })
+        .expect(200);
       expect(first.body.signature.signerRole).toBe('reviewer');
       const before = databaseState(t, study.id);
       const res = await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(403);
@@ -329,7 +455,12 @@ describe('review and sign-off', () => {
       const res = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
       const ids = res.body.map((q: { id: string }) => q.id);
       expect(ids.indexOf(older.id)).toBeLessThan(ids.indexOf(newer.id));
-      expect(res.body.find((q: { id: string }) => q.id === newer.id)).toMatchObject({ stage: 'review', authorName: 'Tomasz Weber', methodName: expect.stringMatching(/^Nitrate/), submittedAt: expect.any(String) });
+      expect(res.body.find((q: { id: string }) => q.id === newer.id)).toMatchObject({
+        stage: 'review',
+        authorName: 'Tomasz Weber',
+        methodName: expect.stringMatching(/^Nitrate/),
+        submittedAt: expect.any(String),
+      });
       const dates = res.body.map((q: { submittedAt: string }) => q.submittedAt);
       expect(dates).toEqual([...dates].sort());
       await t.http().get('/api/reviews/queue').set(as('analyst')).expect(403);
@@ -341,7 +472,15 @@ describe('review and sign-off', () => {
     it('should copy the data and method version into a new draft authored by the caller', async () => {
       const study = await createStudy(t, { author: DEMO.analyst, status: 'approved' });
       const res = await t.http().post(`/api/studies/${study.id}/copy`).set(as('analyst2')).expect(201);
-      expect(res.body).toMatchObject({ status: 'draft', copiedFromId: study.id, methodVersionId: study.methodVersionId, author: { id: await userId(t, DEMO.analyst2), name: 'Tomasz Weber' }, data: study.data, submittedAt: null, result: expect.any(Object) });
+      expect(res.body).toMatchObject({
+        status: 'draft',
+        copiedFromId: study.id,
+        methodVersionId: study.methodVersionId,
+        author: { id: await userId(t, DEMO.analyst2), name: 'Tomasz Weber' },
+        data: study.data,
+        submittedAt: null,
+        result: expect.any(Object),
+      });
       const audit = await t.http().get(`/api/audit?entity=study&id=${res.body.id}`).set(as('quality')).expect(200);
       expect(audit.body[0]).toMatchObject({ action: 'study.created', changes: { copiedFromId: { from: null, to: study.id } } });
     });
@@ -366,11 +505,26 @@ describe('review and sign-off', () => {
     });
 
     it('should pin comments to a section, thread replies under them and resolve the thread', async () => {
-      const first = await t.http().post(`/api/studies/${study.id}/comments`).set(as('reviewer')).send({ section: 'blanks', body: 'Only four blanks: is that the plan?' }).expect(201);
+      const first = await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('reviewer'))
+        .send({ section: 'blanks', body: 'Only four blanks: is that the plan?' })
+        .expect(201);
       expect(first.body).toMatchObject({ section: 'blanks', threadId: null, authorName: 'Priya Nair', resolved: false });
-      const reply = await t.http().post(`/api/studies/${study.id}/comments`).set(as('analyst')).send({ section: 'results', body: 'Yes, per the method version.', threadId: first.body.id }).expect(201);
+      const reply = await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('analyst'))
+        .send({ section: 'results', body: 'Yes, per the method version.', threadId: first.body.id })
+        .expect(201);
       expect(reply.body).toMatchObject({ section: 'blanks', threadId: first.body.id });
-      const resolved = await t.http().patch(`/api/studies/${study.id}/comments/${first.body.id}`).set(as('reviewer')).send({ resolved: true }).expect(200);
+      const resolved = await t
+        .http()
+        .patch(`/api/studies/${study.id}/comments/${first.body.id}`)
+        .set(as('reviewer'))
+        .send({ resolved: true })
+        .expect(200);
       expect(resolved.body.resolved).toBe(true);
       const list = await t.http().get(`/api/studies/${study.id}/comments`).set(as('analyst')).expect(200);
       expect(list.body.map((c: { id: string; resolved: boolean }) => [c.id, c.resolved])).toEqual([
@@ -383,11 +537,26 @@ describe('review and sign-off', () => {
 
     it('should refuse bad comments with 422 field messages and change nothing', async () => {
       const before = databaseState(t, study.id);
-      const bad = await t.http().post(`/api/studies/${study.id}/comments`).set(as('reviewer')).send({ section: 'appendix', body: ' ' }).expect(422);
+      const bad = await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('reviewer'))
+        .send({ section: 'appendix', body: ' ' })
+        .expect(422);
       expect(bad.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['body', 'section']);
-      const thread = await t.http().post(`/api/studies/${study.id}/comments`).set(as('reviewer')).send({ section: 'blanks', body: 'Reply', threadId: UNKNOWN_ID }).expect(422);
+      const thread = await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('reviewer'))
+        .send({ section: 'blanks', body: 'Reply', threadId: UNKNOWN_ID })
+        .expect(422);
       expect(thread.body.errors[0]).toMatchObject({ field: 'threadId', code: 'unknown_thread' });
-      await t.http().post(`/api/studies/${study.id}/comments`).set(as('reviewer')).send({ section: 'blanks', body: 'x'.repeat(4001) }).expect(422);
+      await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('reviewer'))
+        .send({ section: 'blanks', body: 'x'.repeat(4001) })
+        .expect(422);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('reviewer')).send({ resolved: 'yes' }).expect(422);
       expect(databaseState(t, study.id)).toEqual(before);
     });

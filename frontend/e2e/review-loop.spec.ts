@@ -19,7 +19,9 @@ async function tokenFor(request: APIRequestContext, email: string): Promise<stri
 }
 
 /** A complete draft for the demo analyst: a new study started from an approved one of the seeded laboratory. */
-async function completeDraft(request: APIRequestContext): Promise<{ id: string; title: string; methodVersion: { settings: { requiresQualityRelease: boolean } } }> {
+async function completeDraft(
+  request: APIRequestContext,
+): Promise<{ id: string; title: string; methodVersion: { settings: { requiresQualityRelease: boolean } } }> {
   const headers = { Authorization: `Bearer ${await tokenFor(request, 'analyst@meritline.test')}` };
   const approved = await (await request.get('/api/studies?status=approved', { headers })).json();
   const source = approved.items.find((study: { methodVersion: { status: string } }) => study.methodVersion.status !== 'retired');
@@ -28,7 +30,10 @@ async function completeDraft(request: APIRequestContext): Promise<{ id: string; 
   return copy.json();
 }
 
-test('an analyst submits, a reviewer returns, the analyst corrects and resubmits, the reviewer approves (and a quality manager releases where required)', async ({ page, request }) => {
+test('an analyst submits, a reviewer returns, the analyst corrects and resubmits, the reviewer approves (and a quality manager releases where required)', async ({
+  page,
+  request,
+}) => {
   const study = await completeDraft(request);
   const studyPage = `/studies/${study.id}`;
   const status = page.getByTestId('study-status');
@@ -71,7 +76,9 @@ test('an analyst submits, a reviewer returns, the analyst corrects and resubmits
   // The analyst corrects the data (with a reason) and resubmits.
   const headers = { Authorization: `Bearer ${await tokenFor(request, 'analyst@meritline.test')}` };
   const current = await (await request.get(`/api/studies/${study.id}`, { headers })).json();
-  const standards = current.data.standards.map((point: { y: number }, i: number, all: unknown[]) => (i === all.length - 1 ? { ...point, y: Number((point.y * 0.995).toPrecision(6)) } : point));
+  const standards = current.data.standards.map((point: { y: number }, i: number, all: unknown[]) =>
+    i === all.length - 1 ? { ...point, y: Number((point.y * 0.995).toPrecision(6)) } : point,
+  );
   const patched = await request.patch(`/api/studies/${study.id}`, {
     headers,
     data: { data: { ...current.data, standards }, lockVersion: current.lockVersion, reason: 'Top standard re-injected after the review.' },

@@ -6,8 +6,7 @@ import { createSystem, defaultConfig, defineConfig } from '@chakra-ui/react';
 
 type Scale = Record<'50' | '100' | '200' | '300' | '400' | '500' | '600' | '700' | '800' | '900' | '950', string>;
 
-const toTokens = (scale: Scale) =>
-  Object.fromEntries(Object.entries(scale).map(([step, value]) => [step, { value }]));
+const toTokens = (scale: Scale) => Object.fromEntries(Object.entries(scale).map(([step, value]) => [step, { value }]));
 
 const spruce: Scale = {
   '50': '#eef6f5',

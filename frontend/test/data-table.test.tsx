@@ -21,7 +21,10 @@ const standards: Standard[] = [
   { id: 's2', level: 'Level 2', response: 2071 },
 ];
 
-const bodyRows = () => within(screen.getByRole('table', { name: 'Standards' })).getAllByRole('row').slice(1);
+const bodyRows = () =>
+  within(screen.getByRole('table', { name: 'Standards' }))
+    .getAllByRole('row')
+    .slice(1);
 const firstCells = () => bodyRows().map((row) => within(row).getAllByRole('cell')[0]?.textContent);
 
 describe('DataTable', () => {
@@ -38,7 +41,14 @@ describe('DataTable', () => {
 
   it('pages through the rows in the browser', async () => {
     const { user } = renderWithProviders(
-      <DataTable label="Standards" columns={columns} data={standards} pageSize={2} sortable initialSorting={[{ id: 'level', desc: false }]} />,
+      <DataTable
+        label="Standards"
+        columns={columns}
+        data={standards}
+        pageSize={2}
+        sortable
+        initialSorting={[{ id: 'level', desc: false }]}
+      />,
     );
 
     expect(firstCells()).toEqual(['Level 1', 'Level 2']);

@@ -26,7 +26,14 @@ describe('electronic signatures on the review page', () => {
   it('shows each signature with its meaning, signer, role and UTC time, and flags a broken one', () => {
     const signatures = [
       signature({}),
-      signature({ id: 'sig-2', signerName: 'Priya Nair', signerRole: 'reviewer' as Signature['signerRole'], meaning: 'reviewed-and-approved', signedAt: '2026-11-21T14:02:00.000Z', valid: false }),
+      signature({
+        id: 'sig-2',
+        signerName: 'Priya Nair',
+        signerRole: 'reviewer' as Signature['signerRole'],
+        meaning: 'reviewed-and-approved',
+        signedAt: '2026-11-21T14:02:00.000Z',
+        valid: false,
+      }),
     ];
     renderWithProviders(
       <>
@@ -51,10 +58,22 @@ describe('electronic signatures on the review page', () => {
   it('states what approving means, shows a refused password in the dialog and keeps the user signed in', async () => {
     setSessionToken('reviewer-token');
     const calls = stubApi({
-      [`POST /api/studies/${STUDY}/approve`]: { status: 401, body: { statusCode: 401, message: 'Password not correct; nothing was signed.' } },
+      [`POST /api/studies/${STUDY}/approve`]: {
+        status: 401,
+        body: { statusCode: 401, message: 'Password not correct; nothing was signed.' },
+      },
     });
     const { user } = renderWithProviders(
-      <SignDialog studyId={STUDY} lockVersion={4} action="approve" meaning={MEANINGS.reviewed} title="Approve the study" triggerLabel="Approve" submitLabel="Sign and approve" successTitle="Approved" />,
+      <SignDialog
+        studyId={STUDY}
+        lockVersion={4}
+        action="approve"
+        meaning={MEANINGS.reviewed}
+        title="Approve the study"
+        triggerLabel="Approve"
+        submitLabel="Sign and approve"
+        successTitle="Approved"
+      />,
     );
     await user.click(screen.getByRole('button', { name: 'Approve' }));
     const dialog = await screen.findByRole('dialog');

@@ -36,7 +36,9 @@ describe('verify a report page', () => {
 
   it('explains an invalid copy and what it means', async () => {
     stubApi({
-      'POST /api/reports/verify': { body: { valid: false, reason: 'This file names report 3f2a9c1e, but its content differs from the report as issued.' } },
+      'POST /api/reports/verify': {
+        body: { valid: false, reason: 'This file names report 3f2a9c1e, but its content differs from the report as issued.' },
+      },
     });
     const { user } = renderRoutes(routes, '/verify');
 

@@ -47,7 +47,17 @@ const studies: [string, unknown][] = [
     },
   ],
   ['NIST StRD SiRstv', { precision: sirstv.data.group.map((g: number, i: number) => ({ group: String(g), value: sirstv.data.value[i] })) }],
-  ['spike recovery', { recovery: recovery.c_spiked.map((found: number, i: number) => ({ id: `R${i}`, added: recovery.c_added, found, native: recovery.c_unspiked })) }],
+  [
+    'spike recovery',
+    {
+      recovery: recovery.c_spiked.map((found: number, i: number) => ({
+        id: `R${i}`,
+        added: recovery.c_added,
+        found,
+        native: recovery.c_unspiked,
+      })),
+    },
+  ],
 ];
 
 describe.concurrent('CLI: node shared/dist/cli.js <study>', () => {
@@ -62,11 +72,20 @@ describe.concurrent('CLI: node shared/dist/cli.js <study>', () => {
     const csv = ['x;y', ...miller.data.x.map((x: number, i: number) => `${x};${String(miller.data.y[i]).replace('.', ',')}`)].join('\n');
     const out = await run(write('fluorescence.csv', csv));
     expect(out.status).toBe(0);
-    expect(JSON.parse(out.stdout)).toEqual(JSON.parse(JSON.stringify(evaluateStudy({ standards: standards(miller.data.x, miller.data.y) }))));
+    expect(JSON.parse(out.stdout)).toEqual(
+      JSON.parse(JSON.stringify(evaluateStudy({ standards: standards(miller.data.x, miller.data.y) }))),
+    );
   });
 
   it('bad input: exit 2 with the field named on stderr', async () => {
-    const out = await run(write('bad.json', { standards: [{ x: 1, y: 2 }, { x: 'two', y: 3 }] }));
+    const out = await run(
+      write('bad.json', {
+        standards: [
+          { x: 1, y: 2 },
+          { x: 'two', y: 3 },
+        ],
+      }),
+    );
     expect(out.status).toBe(2);
     expect(out.stdout).toBe('');
     expect(out.stderr).toContain('standards[1].x');

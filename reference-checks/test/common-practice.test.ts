@@ -38,7 +38,7 @@ describe('Facts of the trade (common practice)', () => {
     }
   });
 
-  it('with a response at zero they agree only at the standard and differ by the intercept\'s share elsewhere', () => {
+  it("with a response at zero they agree only at the standard and differ by the intercept's share elsewhere", () => {
     const a = 2;
     const xs = 10;
     const ys = 52;

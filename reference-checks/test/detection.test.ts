@@ -94,7 +94,7 @@ describe('EPA MDL, 40 CFR 136 App. B Rev. 2 (rules from memory; synthetic exampl
   });
 
   it('more than 100 blanks, some non-numeric: the result at rank round(0.99 n_b)', () => {
-    const ex = epa['example_E_more_than_100_blanks (regulation\'s own illustration, from memory)'];
+    const ex = epa["example_E_more_than_100_blanks (regulation's own illustration, from memory)"];
     const top: number[] = ex.highest_ranked_results_ranks_160_to_164;
     const blanks: (number | null)[] = [...Array(ex.n_blanks - top.length - 20).fill(0.5), ...Array(20).fill(null), ...top];
     const r = mdlOf([], blanks);

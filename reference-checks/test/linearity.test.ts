@@ -16,7 +16,12 @@ describe('Lack-of-fit F on the Pontius load-cell data (NIST/SEMATECH e-Handbook 
     expect(lof.dfPureError).toBe(20);
     // e-Handbook printout agrees with exact arithmetic to about 6 digits only (reference file).
     expectRel(lof.F, pontius.published.lack_of_fit_F, 1e-5, 'F printed');
-    expectRel(lof.critical, pontius.published.F_crit_0_05_18_20 ?? pontius.published['F_crit_0.05_18_20'], 5e-3, 'F(0.95; 18, 20) printed 2.15');
+    expectRel(
+      lof.critical,
+      pontius.published.F_crit_0_05_18_20 ?? pontius.published['F_crit_0.05_18_20'],
+      5e-3,
+      'F(0.95; 18, 20) printed 2.15',
+    );
     expect(lof.significant).toBe(true);
     expectRel(lof.p, pontius.recomputed_linear.p_value, 1e-6, 'p');
   });
@@ -45,8 +50,18 @@ describe('Lack-of-fit F on the Pontius load-cell data (NIST/SEMATECH e-Handbook 
 describe("Mandel's fitting test (ISO 8466-1 / DIN 38402-51; values recomputed in the reference file)", () => {
   const series = [
     ['Pontius load cell', pontius.data.x_load, pontius.data.y_deflection, pontius.mandel],
-    ['fluorescence, 7 standards', ref.fluorescence_7_standards.data.x, ref.fluorescence_7_standards.data.y, ref.fluorescence_7_standards.mandel],
-    ['fluorescence, 11 standards', ref.fluorescence_11_standards_extended.data.x, ref.fluorescence_11_standards_extended.data.y, ref.fluorescence_11_standards_extended.mandel],
+    [
+      'fluorescence, 7 standards',
+      ref.fluorescence_7_standards.data.x,
+      ref.fluorescence_7_standards.data.y,
+      ref.fluorescence_7_standards.mandel,
+    ],
+    [
+      'fluorescence, 11 standards',
+      ref.fluorescence_11_standards_extended.data.x,
+      ref.fluorescence_11_standards_extended.data.y,
+      ref.fluorescence_11_standards_extended.mandel,
+    ],
   ] as const;
 
   it.each(series)('%s', (_name, x, y, expected) => {

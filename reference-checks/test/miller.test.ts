@@ -51,7 +51,12 @@ describe('Miller & Miller fluorescence calibration (recomputed values)', () => {
       expectRel(band.predictionHalfWidth, at['prediction_band_halfwidth_95 (single new y)'], TIGHT, `prediction at ${at.x}`);
     }
     expect(cal.bands).toHaveLength(101);
-    expectRel(cal.bands![50].confidenceHalfWidth, computed.bands_at_x[3]['confidence_band_halfwidth_95 (mean response)'], TIGHT, 'band grid at x = 6');
+    expectRel(
+      cal.bands![50].confidenceHalfWidth,
+      computed.bands_at_x[3]['confidence_band_halfwidth_95 (mean response)'],
+      TIGHT,
+      'band grid at x = 6',
+    );
   });
 
   it('x0, s_x0 and the 95 % interval for m = 1, 3 and 4 readings', () => {
@@ -65,7 +70,7 @@ describe('Miller & Miller fluorescence calibration (recomputed values)', () => {
     });
   });
 
-  it('detection limits: ICH Q2 3.3σ/S and 10σ/S with σ = s_y/x or s_a; the book\'s 3 s_y/x / b', () => {
+  it("detection limits: ICH Q2 3.3σ/S and 10σ/S with σ = s_y/x or s_a; the book's 3 s_y/x / b", () => {
     const d = result.detection!;
     expectRel(d.sdResidual!.lod, computed['ICH_DL 3.3 s_y/x / b'], TIGHT, 'DL (s_y/x)');
     expectRel(d.sdResidual!.loq, computed['ICH_QL 10 s_y/x / b'], TIGHT, 'QL (s_y/x)');

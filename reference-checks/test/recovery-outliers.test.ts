@@ -8,7 +8,13 @@ describe('Recovery (recovery_examples.json: synthetic numbers, recomputed with s
   it('spike recovery: %R, mean, SD, 95 % interval and t-test against 100 %', () => {
     const ex = ref.spike_recovery;
     const recovery = evaluateStudy({
-      recovery: ex.c_spiked.map((found: number, i: number) => ({ id: `S${i + 1}`, level: 'mid', added: ex.c_added, found, native: ex.c_unspiked })),
+      recovery: ex.c_spiked.map((found: number, i: number) => ({
+        id: `S${i + 1}`,
+        level: 'mid',
+        added: ex.c_added,
+        found,
+        native: ex.c_unspiked,
+      })),
     }).recovery!;
     recovery.items.forEach((item, i) => expectRel(item.pct, ex.recoveries_pct[i], 1e-12, `item ${i + 1}`));
     const g = recovery.overall;

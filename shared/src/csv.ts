@@ -2,7 +2,10 @@ import { StudyValidationError, type StudyFieldError } from './errors.js';
 import type { StandardPoint } from './study.js';
 
 function parseNumber(text: string, decimalComma: boolean): number {
-  const cleaned = text.trim().replace(/^"(.*)"$/, '$1').trim();
+  const cleaned = text
+    .trim()
+    .replace(/^"(.*)"$/, '$1')
+    .trim();
   if (cleaned === '') return NaN;
   const normalised = decimalComma ? cleaned.replace(',', '.') : cleaned;
   return /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/.test(normalised) ? Number(normalised) : NaN;
@@ -34,8 +37,10 @@ export function parseStandardsCsv(text: string): StandardPoint[] {
       errors.push({ field: `line ${i + 1}`, code: 'too_few_columns', message: `line ${i + 1} needs two values, x and y` });
       return;
     }
-    if (!Number.isFinite(x)) errors.push({ field: `line ${i + 1}.x`, code: 'not_number', message: `line ${i + 1}: x "${cells[0].trim()}" is not a number` });
-    if (!Number.isFinite(y)) errors.push({ field: `line ${i + 1}.y`, code: 'not_number', message: `line ${i + 1}: y "${cells[1].trim()}" is not a number` });
+    if (!Number.isFinite(x))
+      errors.push({ field: `line ${i + 1}.x`, code: 'not_number', message: `line ${i + 1}: x "${cells[0].trim()}" is not a number` });
+    if (!Number.isFinite(y))
+      errors.push({ field: `line ${i + 1}.y`, code: 'not_number', message: `line ${i + 1}: y "${cells[1].trim()}" is not a number` });
     if (Number.isFinite(x) && Number.isFinite(y)) standards.push({ x, y });
   });
   if (errors.length === 0 && standards.length === 0) {

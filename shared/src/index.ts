@@ -16,7 +16,14 @@ export { predictUnknown, type Prediction } from './engine/inverse.js';
 export { horwitzRsd } from './engine/precision.js';
 export type * from './uncertainty-types.js';
 export { preparationUncertainty, preparationErrors, toleranceToStandard } from './engine/preparation.js';
-export { topDownUncertainty, biasUncertainty, crmBiasUncertainty, combineTopDown, rmsBias, truenessVersusReference } from './engine/uncertainty.js';
+export {
+  topDownUncertainty,
+  biasUncertainty,
+  crmBiasUncertainty,
+  combineTopDown,
+  rmsBias,
+  truenessVersusReference,
+} from './engine/uncertainty.js';
 export { accuracyProfile, accuracyProfileErrors, betaExpectationInterval, type ToleranceInterval } from './engine/accuracy-profile.js';
 export { grubbsCritical, cochranCritical, grubbsStatistic, dixonStatistic, DIXON_R10_95 } from './engine/outliers.js';
 export { figureValue } from './engine/criteria.js';

@@ -20,8 +20,21 @@ import { parseUncertaintySections, UNCERTAINTY_KEYS } from './validate-uncertain
 type Json = Record<string, unknown>;
 
 const TOP_LEVEL_KEYS = new Set([
-  'units', 'model', 'weighting', 'confidence', 'alpha', 'standards', 'twoPoint', 'blanks',
-  'unknowns', 'checks', 'recovery', 'precision', 'lowSpikes', 'massFraction', 'criteria',
+  'units',
+  'model',
+  'weighting',
+  'confidence',
+  'alpha',
+  'standards',
+  'twoPoint',
+  'blanks',
+  'unknowns',
+  'checks',
+  'recovery',
+  'precision',
+  'lowSpikes',
+  'massFraction',
+  'criteria',
   ...UNCERTAINTY_KEYS,
 ]);
 

@@ -21,7 +21,9 @@ function noise(seed: number): () => number {
 export function typicalStudy(): StudyInput {
   const n = noise(20261201);
   const levels = [0.5, 1, 2, 5, 10, 20, 50];
-  const standards = levels.flatMap((x) => [0, 1, 2].map(() => ({ x, y: Number((4.1 + 212.7 * x * (1 + 0.02 * n()) + 3 * n()).toFixed(2)) })));
+  const standards = levels.flatMap((x) =>
+    [0, 1, 2].map(() => ({ x, y: Number((4.1 + 212.7 * x * (1 + 0.02 * n()) + 3 * n()).toFixed(2)) })),
+  );
   standards[10] = { ...standards[10], excluded: { reason: 'injection error noted in the instrument log' } } as (typeof standards)[number];
   return {
     units: { x: 'µg/L', y: 'peak area' },
@@ -35,8 +37,13 @@ export function typicalStudy(): StudyInput {
         return { id: `S${i * 3 + k}`, level, added, found: Number((added * (0.99 + 0.06 * n())).toFixed(3)) };
       }),
     ),
-    precision: ['day 1', 'day 2', 'day 3'].flatMap((group, d) => Array.from({ length: 5 }, () => ({ group, value: Number((10 + 0.1 * d + 0.2 * n()).toFixed(3)) }))),
-    lowSpikes: { spiked: Array.from({ length: 7 }, () => Number((0.2 + 0.05 * n()).toFixed(3))), blanks: [0.01, 0.02, null, 0.015, 0.01, 0.02, 0.012] },
+    precision: ['day 1', 'day 2', 'day 3'].flatMap((group, d) =>
+      Array.from({ length: 5 }, () => ({ group, value: Number((10 + 0.1 * d + 0.2 * n()).toFixed(3)) })),
+    ),
+    lowSpikes: {
+      spiked: Array.from({ length: 7 }, () => Number((0.2 + 0.05 * n()).toFixed(3))),
+      blanks: [0.01, 0.02, null, 0.015, 0.01, 0.02, 0.012],
+    },
     massFraction: 1e-8,
     unknowns: [{ id: 'RW-0412', y: [1480.2, 1492.6] }],
     criteria: [
@@ -57,7 +64,14 @@ export function typicalReportContent(reportId: string | null = '3f2a9c1e-7b44-4d
     verifyUrl: 'http://localhost:3000/verify',
     reportId,
     issuedAt: at('2026-11-20T09:15:00Z'),
-    method: { name: 'Nitrate in drinking water by ion chromatography', analyte: 'Nitrate', matrix: 'Drinking water', technique: 'Ion chromatography', xUnit: 'µg/L', yUnit: 'peak area' },
+    method: {
+      name: 'Nitrate in drinking water by ion chromatography',
+      analyte: 'Nitrate',
+      matrix: 'Drinking water',
+      technique: 'Ion chromatography',
+      xUnit: 'µg/L',
+      yUnit: 'peak area',
+    },
     version: { number: 2, changeSummary: 'New guard column; calibration extended to 50 µg/L', criteria: [] },
     study: {
       id: '9b0c6d52-1e7f-4a3b-8c2d-5f6e7a8b9c01',
@@ -68,21 +82,62 @@ export function typicalReportContent(reportId: string | null = '3f2a9c1e-7b44-4d
       resultErrors: null,
       engineVersion: ENGINE_VERSION,
       dataHash: createHash('sha256').update(canonicalJson(data)).digest('hex'),
-      meta: { instrument: 'IC-2 (conductivity detector)', startedOn: '2026-11-09', finishedOn: '2026-11-13', conclusion: 'Fit for the monitoring programme between 0.5 and 50 µg/L.' },
+      meta: {
+        instrument: 'IC-2 (conductivity detector)',
+        startedOn: '2026-11-09',
+        finishedOn: '2026-11-13',
+        conclusion: 'Fit for the monitoring programme between 0.5 and 50 µg/L.',
+      },
       createdAt: at('2026-11-09T08:00:00Z'),
       submittedAt: at('2026-11-16T15:40:00Z'),
       approvedAt: reportId ? at('2026-11-20T09:14:00Z') : null,
     },
     signatures: [
-      { signerName: 'Alma Ruiz', signerRole: Role.Analyst, meaning: 'authored', signedAt: at('2026-11-16T15:40:00Z'), contentHash: 'a1'.repeat(32), comment: null },
-      { signerName: 'Priya Nair', signerRole: Role.Reviewer, meaning: 'reviewed-and-approved', signedAt: at('2026-11-20T09:14:00Z'), contentHash: 'a1'.repeat(32), comment: 'Recovery at the low level checked against the bench sheets.' },
+      {
+        signerName: 'Alma Ruiz',
+        signerRole: Role.Analyst,
+        meaning: 'authored',
+        signedAt: at('2026-11-16T15:40:00Z'),
+        contentHash: 'a1'.repeat(32),
+        comment: null,
+      },
+      {
+        signerName: 'Priya Nair',
+        signerRole: Role.Reviewer,
+        meaning: 'reviewed-and-approved',
+        signedAt: at('2026-11-20T09:14:00Z'),
+        contentHash: 'a1'.repeat(32),
+        comment: 'Recovery at the low level checked against the bench sheets.',
+      },
     ],
     comments: [
-      { id: 'c1', threadId: null, section: 'standards', authorName: 'Priya Nair', body: 'Why is standard 11 excluded?', resolved: true, createdAt: at('2026-11-17T10:02:00Z') },
-      { id: 'c2', threadId: 'c1', section: 'standards', authorName: 'Alma Ruiz', body: 'The instrument log shows an injection error for that vial.', resolved: false, createdAt: at('2026-11-17T11:30:00Z') },
+      {
+        id: 'c1',
+        threadId: null,
+        section: 'standards',
+        authorName: 'Priya Nair',
+        body: 'Why is standard 11 excluded?',
+        resolved: true,
+        createdAt: at('2026-11-17T10:02:00Z'),
+      },
+      {
+        id: 'c2',
+        threadId: 'c1',
+        section: 'standards',
+        authorName: 'Alma Ruiz',
+        body: 'The instrument log shows an injection error for that vial.',
+        resolved: false,
+        createdAt: at('2026-11-17T11:30:00Z'),
+      },
     ],
     exclusions: [
-      { at: at('2026-11-13T16:05:00Z'), actorName: 'Alma Ruiz', action: 'study.point-excluded', changes: { 'standards[10].excluded': { from: null, to: { reason: 'injection error noted in the instrument log' } } }, reason: 'injection error noted in the instrument log' },
+      {
+        at: at('2026-11-13T16:05:00Z'),
+        actorName: 'Alma Ruiz',
+        action: 'study.point-excluded',
+        changes: { 'standards[10].excluded': { from: null, to: { reason: 'injection error noted in the instrument log' } } },
+        reason: 'injection error noted in the instrument log',
+      },
     ],
   };
 }
@@ -110,7 +165,13 @@ async function main() {
     const pdf = await renderValidationReport(content);
     const rendered = performance.now();
     const renderCpu = cpuMs(cpu);
-    const signed = await signPdf(pdf, p12, passphrase, { reason: 'bench', name: 'bench', location: 'bench', contactInfo: 'bench', signingTime: new Date() });
+    const signed = await signPdf(pdf, p12, passphrase, {
+      reason: 'bench',
+      name: 'bench',
+      location: 'bench',
+      contactInfo: 'bench',
+      signingTime: new Date(),
+    });
     return { signed, render: rendered - started, total: performance.now() - started, renderCpu, totalCpu: cpuMs(cpu) };
   };
   const cold = await issue();
@@ -127,12 +188,20 @@ async function main() {
   mkdirSync(out, { recursive: true });
   writeFileSync(`${out}report-bench.pdf`, last);
   const kb = (bytes: number) => (bytes / 1024).toFixed(1);
-  print(`Validation report, typical study (7 levels x 3 replicates, 10 blanks, 9 spikes, 15 precision results), ${runs} runs after 3 warm-up runs`);
+  print(
+    `Validation report, typical study (7 levels x 3 replicates, 10 blanks, 9 spikes, 15 precision results), ${runs} runs after 3 warm-up runs`,
+  );
   const ms = (pick: (s: (typeof samples)[number]) => number) => `${median(samples.map(pick)).toFixed(0)} ms`;
   print(`  render (pdfkit):        median ${ms((s) => s.render)} wall clock, ${ms((s) => s.renderCpu)} CPU`);
-  print(`  render + sign (PKCS#7): median ${ms((s) => s.total)} wall clock, ${ms((s) => s.totalCpu)} CPU; slowest ${Math.max(...samples.map((s) => s.total)).toFixed(0)} ms`);
-  print(`  first report in a fresh process (fonts parsed, code compiled): ${cold.total.toFixed(0)} ms wall clock, ${cold.totalCpu.toFixed(0)} ms CPU`);
-  print(`  machine: ${cpus().length} cores, load average ${loadavg()[0].toFixed(1)} (other processes share the cores; CPU time is the fairer figure then)`);
+  print(
+    `  render + sign (PKCS#7): median ${ms((s) => s.total)} wall clock, ${ms((s) => s.totalCpu)} CPU; slowest ${Math.max(...samples.map((s) => s.total)).toFixed(0)} ms`,
+  );
+  print(
+    `  first report in a fresh process (fonts parsed, code compiled): ${cold.total.toFixed(0)} ms wall clock, ${cold.totalCpu.toFixed(0)} ms CPU`,
+  );
+  print(
+    `  machine: ${cpus().length} cores, load average ${loadavg()[0].toFixed(1)} (other processes share the cores; CPU time is the fairer figure then)`,
+  );
   print(`  signed report size:     ${kb(last.length)} KB; draft preview ${kb(draft.length)} KB`);
   print(`  written to ${out}report-bench.pdf`);
 }

@@ -13,4 +13,19 @@ import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
 import { User } from '../users/user.entity.js';
 
-export const entities = [User, OutboxMessage, AuditEntry, Method, MethodVersion, ValidationStudy, StudySignature, StudyComment, Notification, ValidationReport, Run, RunSignature, UserSession, AppSetting];
+export const entities = [
+  User,
+  OutboxMessage,
+  AuditEntry,
+  Method,
+  MethodVersion,
+  ValidationStudy,
+  StudySignature,
+  StudyComment,
+  Notification,
+  ValidationReport,
+  Run,
+  RunSignature,
+  UserSession,
+  AppSetting,
+];

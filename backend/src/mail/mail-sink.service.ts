@@ -41,7 +41,10 @@ export class MailSinkService implements OnModuleInit, OnModuleDestroy {
               }),
             ),
           )
-          .then(() => callback(), (error: Error) => callback(error));
+          .then(
+            () => callback(),
+            (error: Error) => callback(error),
+          );
       },
     });
     await new Promise<void>((resolve) => this.server!.listen(0, '127.0.0.1', resolve));

@@ -16,6 +16,13 @@ export class OutboxController {
   @Get()
   async findAll(): Promise<OutboxMessageDto[]> {
     const messages = await this.outbox.find({ order: { receivedAt: 'DESC' }, take: 500 });
-    return messages.map((m) => ({ id: m.id, from: m.from, to: m.to, subject: m.subject, text: m.text, receivedAt: m.receivedAt.toISOString() }));
+    return messages.map((m) => ({
+      id: m.id,
+      from: m.from,
+      to: m.to,
+      subject: m.subject,
+      text: m.text,
+      receivedAt: m.receivedAt.toISOString(),
+    }));
   }
 }

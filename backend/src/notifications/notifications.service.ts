@@ -30,7 +30,9 @@ export class NotificationsService {
     const message = notice.message.length > MESSAGE_LENGTH ? `${notice.message.slice(0, MESSAGE_LENGTH - 1)}…` : notice.message;
     // Stamped here, to the millisecond, so notices of one second still list newest first.
     const createdAt = new Date();
-    await repo.save(recipients.map((userId) => repo.create({ userId, kind: notice.kind, message, link: notice.link, readAt: null, createdAt })));
+    await repo.save(
+      recipients.map((userId) => repo.create({ userId, kind: notice.kind, message, link: notice.link, readAt: null, createdAt })),
+    );
   }
 
   async listFor(userId: string): Promise<NotificationListDto> {

@@ -29,8 +29,30 @@ export interface ReportContent {
     submittedAt: Date | null;
     approvedAt: Date | null;
   };
-  signatures: { signerName: string; signerRole: Role; meaning: SignatureMeaning; signedAt: Date; contentHash: string; comment: string | null; justification?: string | null }[];
-  comments: { id: string; threadId: string | null; section: string; authorName: string; body: string; resolved: boolean; createdAt: Date }[];
+  signatures: {
+    signerName: string;
+    signerRole: Role;
+    meaning: SignatureMeaning;
+    signedAt: Date;
+    contentHash: string;
+    comment: string | null;
+    justification?: string | null;
+  }[];
+  comments: {
+    id: string;
+    threadId: string | null;
+    section: string;
+    authorName: string;
+    body: string;
+    resolved: boolean;
+    createdAt: Date;
+  }[];
   /** Audit entries that excluded (or restored) points of this study. */
-  exclusions: { at: Date; actorName: string; action: string; changes: Record<string, { from: unknown; to: unknown }> | null; reason: string | null }[];
+  exclusions: {
+    at: Date;
+    actorName: string;
+    action: string;
+    changes: Record<string, { from: unknown; to: unknown }> | null;
+    reason: string | null;
+  }[];
 }

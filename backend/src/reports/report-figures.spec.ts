@@ -6,8 +6,16 @@ const units = { x: 'µg/L', y: 'peak area' };
 describe('figures in words', () => {
   it('should name result paths with their units', () => {
     expect(describeFigure('calibration.r2', units)).toEqual({ label: 'Coefficient of determination R²', unit: null, kind: 'correlation' });
-    expect(describeFigure('detection.blankSd.lod', units)).toEqual({ label: 'LOD (SD of blank responses, ICH Q2(R2))', unit: 'µg/L', kind: 'plain' });
-    expect(describeFigure('recovery.byLevel.low.meanPct', units)).toMatchObject({ label: 'Mean recovery, level low', unit: '%', kind: 'percent' });
+    expect(describeFigure('detection.blankSd.lod', units)).toEqual({
+      label: 'LOD (SD of blank responses, ICH Q2(R2))',
+      unit: 'µg/L',
+      kind: 'plain',
+    });
+    expect(describeFigure('recovery.byLevel.low.meanPct', units)).toMatchObject({
+      label: 'Mean recovery, level low',
+      unit: '%',
+      kind: 'percent',
+    });
     expect(describeFigure('precision.rsdR', units)).toMatchObject({ unit: '%', kind: 'percent' });
     expect(describeFigure('calibration.slope', units).unit).toBe('peak area per µg/L');
     expect(describeFigure('mandel.p', units).kind).toBe('p');

@@ -56,7 +56,17 @@ const DETECTION_KEYS: Record<string, string> = {
   responseLoqX: 'LOQ from mean blank + 10 SD',
 };
 
-const X_UNIT_DETECTION = new Set(['lod', 'loq', 'criticalX', 'detectableX', 'mdl', 'mdlSpiked', 'mdlBlank', 'responseLodX', 'responseLoqX']);
+const X_UNIT_DETECTION = new Set([
+  'lod',
+  'loq',
+  'criticalX',
+  'detectableX',
+  'mdl',
+  'mdlSpiked',
+  'mdlBlank',
+  'responseLodX',
+  'responseLoqX',
+]);
 
 export type FigureKind = 'percent' | 'p' | 'correlation' | 'plain';
 
@@ -71,10 +81,17 @@ export function describeFigure(figure: string, units: Units): FigureDescription 
   const path = figure.replace(/\[(\w+)\]/g, '.$1');
   const parts = path.split('.');
   const leaf = parts.at(-1) ?? path;
-  const kind: FigureKind = /Pct$|^rsd/.test(leaf) ? 'percent' : leaf === 'p' ? 'p' : ['r', 'r2', 'adjR2'].includes(leaf) ? 'correlation' : 'plain';
+  const kind: FigureKind = /Pct$|^rsd/.test(leaf)
+    ? 'percent'
+    : leaf === 'p'
+      ? 'p'
+      : ['r', 'r2', 'adjR2'].includes(leaf)
+        ? 'correlation'
+        : 'plain';
   const unitFor = (): string | null => {
     if (kind === 'percent') return '%';
-    if (parts[0] === 'detection') return X_UNIT_DETECTION.has(leaf) ? (units.x ?? null) : leaf === 'criticalResponse' ? (units.y ?? null) : null;
+    if (parts[0] === 'detection')
+      return X_UNIT_DETECTION.has(leaf) ? (units.x ?? null) : leaf === 'criticalResponse' ? (units.y ?? null) : null;
     if (path === 'calibration.slope' || path === 'calibration.seSlope') return units.x && units.y ? `${units.y} per ${units.x}` : null;
     if (['calibration.intercept', 'calibration.seIntercept', 'calibration.sYX'].includes(path)) return units.y ?? null;
     if (parts[0] === 'precision' && ['sR', 'sI', 'sBetween', 'grandMean'].includes(leaf)) return units.x ?? null;
@@ -127,7 +144,13 @@ export function holds(value: number, op: CriterionOp, threshold: number | [numbe
  * The value with enough digits that the printed number agrees with the outcome: a reader never
  * sees 0.99500 reported as failing "at least 0.995".
  */
-export function formatAgainstCriterion(value: number | null, kind: FigureKind, op: CriterionOp, threshold: number | [number, number], pass: boolean): string {
+export function formatAgainstCriterion(
+  value: number | null,
+  kind: FigureKind,
+  op: CriterionOp,
+  threshold: number | [number, number],
+  pass: boolean,
+): string {
   if (value === null || kind === 'p') return formatFigure(value, kind);
   for (let digits = kind === 'correlation' ? 6 : kind === 'percent' ? 3 : 4; digits <= 12; digits++) {
     const text = formatFigure(value, kind, digits);

@@ -1,4 +1,16 @@
-import { BadRequestException, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Res, StreamableFile, UploadedFile, UseInterceptors } from '@nestjs/common';
+import {
+  BadRequestException,
+  Controller,
+  Get,
+  HttpCode,
+  Param,
+  ParseUUIDPipe,
+  Post,
+  Res,
+  StreamableFile,
+  UploadedFile,
+  UseInterceptors,
+} from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
 import { Throttle } from '@nestjs/throttler';
@@ -18,11 +30,22 @@ export class ReportsController {
   @Get('studies/:id/report')
   @ApiBearerAuth()
   @ApiProduces('application/pdf')
-  @ApiOkResponse({ description: 'The signed report of an approved study (always the same bytes), or an unsigned draft preview.', schema: { type: 'string', format: 'binary' } })
-  async download(@Param('id', ParseUUIDPipe) id: string, @CurrentUser() user: AuthUser, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+  @ApiOkResponse({
+    description: 'The signed report of an approved study (always the same bytes), or an unsigned draft preview.',
+    schema: { type: 'string', format: 'binary' },
+  })
+  async download(
+    @Param('id', ParseUUIDPipe) id: string,
+    @CurrentUser() user: AuthUser,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<StreamableFile> {
     const file = await this.reports.reportFile(id, user);
     res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(file.pdf, { type: 'application/pdf', disposition: `attachment; filename="${file.fileName}"`, length: file.pdf.length });
+    return new StreamableFile(file.pdf, {
+      type: 'application/pdf',
+      disposition: `attachment; filename="${file.fileName}"`,
+      length: file.pdf.length,
+    });
   }
 
   @Public()
@@ -31,7 +54,13 @@ export class ReportsController {
   @Throttle({ default: { limit: 30, ttl: 60_000 } })
   @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_VERIFY_UPLOAD_BYTES, files: 1 } }))
   @ApiConsumes('multipart/form-data')
-  @ApiBody({ schema: { type: 'object', required: ['file'], properties: { file: { type: 'string', format: 'binary', description: 'The PDF to check (at most 20 MB).' } } } })
+  @ApiBody({
+    schema: {
+      type: 'object',
+      required: ['file'],
+      properties: { file: { type: 'string', format: 'binary', description: 'The PDF to check (at most 20 MB).' } },
+    },
+  })
   @ApiOkResponse({ type: ReportVerificationDto })
   verify(@UploadedFile() file: Express.Multer.File | undefined): Promise<ReportVerification> {
     if (!file) throw new BadRequestException('Attach the PDF to check as the form field "file".');

@@ -30,7 +30,16 @@ export interface ReportFile {
 }
 
 export type ReportVerification =
-  | { valid: true; studyId: string; studyTitle: string; reportId: string; methodName: string; methodVersion: number; signedAt: string; sha256: string }
+  | {
+      valid: true;
+      studyId: string;
+      studyTitle: string;
+      reportId: string;
+      methodName: string;
+      methodVersion: number;
+      signedAt: string;
+      sha256: string;
+    }
   | { valid: false; reason: string };
 
 /** The report id a PDF names in its information dictionary, written directly or as a reference to a string object. */
@@ -117,10 +126,18 @@ export class ReportsService {
     const study = await this.findStudy(studyId);
     if (study.status === 'approved') {
       const report = await this.issueForStudy(studyId, actor);
-      return { fileName: reportFileName(study.methodVersion.method.name, study.methodVersion.number, report.id, study.id), pdf: report.pdf, signed: true };
+      return {
+        fileName: reportFileName(study.methodVersion.method.name, study.methodVersion.number, report.id, study.id),
+        pdf: report.pdf,
+        signed: true,
+      };
     }
     const content = await this.contentOf(study, null, new Date());
-    return { fileName: reportFileName(content.method.name, content.version.number, null, study.id), pdf: await renderValidationReport(content), signed: false };
+    return {
+      fileName: reportFileName(content.method.name, content.version.number, null, study.id),
+      pdf: await renderValidationReport(content),
+      signed: false,
+    };
   }
 
   /** Is this file, byte for byte, a report this installation issued? */
@@ -129,7 +146,10 @@ export class ReportsService {
       return { valid: false, reason: 'The file is not a PDF document, so it cannot be a Meritline report.' };
     }
     const reports = this.dataSource.getRepository(ValidationReport);
-    const report = await reports.findOne({ where: { sha256: sha256(file) }, select: { id: true, studyId: true, sha256: true, signedAt: true } });
+    const report = await reports.findOne({
+      where: { sha256: sha256(file) },
+      select: { id: true, studyId: true, sha256: true, signedAt: true },
+    });
     if (report) {
       const study = await this.findStudy(report.studyId);
       return {
@@ -155,7 +175,8 @@ export class ReportsService {
     }
     return {
       valid: false,
-      reason: 'This PDF does not match any report issued by this laboratory’s Meritline. It may have been changed after signing, or it was not issued here.',
+      reason:
+        'This PDF does not match any report issued by this laboratory’s Meritline. It may have been changed after signing, or it was not issued here.',
     };
   }
 
@@ -164,7 +185,9 @@ export class ReportsService {
   }
 
   private async findStudy(studyId: string): Promise<ValidationStudy> {
-    const study = await this.dataSource.getRepository(ValidationStudy).findOne({ where: { id: studyId }, relations: { methodVersion: { method: true } } });
+    const study = await this.dataSource
+      .getRepository(ValidationStudy)
+      .findOne({ where: { id: studyId }, relations: { methodVersion: { method: true } } });
     if (!study) throw new NotFoundException('Study not found.');
     return study;
   }
@@ -182,7 +205,14 @@ export class ReportsService {
       verifyUrl: `${this.config.publicUrl}/verify`,
       reportId,
       issuedAt,
-      method: { name: method.name, analyte: method.analyte, matrix: method.matrix, technique: method.technique, xUnit: method.xUnit, yUnit: method.yUnit },
+      method: {
+        name: method.name,
+        analyte: method.analyte,
+        matrix: method.matrix,
+        technique: method.technique,
+        xUnit: method.xUnit,
+        yUnit: method.yUnit,
+      },
       version: { number: version.number, changeSummary: version.changeSummary, criteria: version.criteria },
       study: {
         id: study.id,
@@ -198,8 +228,24 @@ export class ReportsService {
         submittedAt: study.submittedAt,
         approvedAt: study.approvedAt,
       },
-      signatures: signatures.map((s) => ({ signerName: s.signerName, signerRole: s.signerRole, meaning: s.meaning, signedAt: s.signedAt, contentHash: s.contentHash, comment: s.comment, justification: s.justification })),
-      comments: comments.map((c) => ({ id: c.id, threadId: c.threadId, section: c.section, authorName: c.authorName, body: c.body, resolved: c.resolved, createdAt: c.createdAt })),
+      signatures: signatures.map((s) => ({
+        signerName: s.signerName,
+        signerRole: s.signerRole,
+        meaning: s.meaning,
+        signedAt: s.signedAt,
+        contentHash: s.contentHash,
+        comment: s.comment,
+        justification: s.justification,
+      })),
+      comments: comments.map((c) => ({
+        id: c.id,
+        threadId: c.threadId,
+        section: c.section,
+        authorName: c.authorName,
+        body: c.body,
+        resolved: c.resolved,
+        createdAt: c.createdAt,
+      })),
       exclusions: exclusions.map((e) => ({ at: e.at, actorName: e.actorName, action: e.action, changes: e.changes, reason: e.reason })),
     };
   }

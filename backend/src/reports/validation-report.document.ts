@@ -40,7 +40,10 @@ export async function renderValidationReport(content: ReportContent): Promise<Bu
     author: content.laboratoryName,
     subject: `Validation study "${study.title}" (${study.id})`,
     keywords: `method validation, ${method.analyte}, ${method.matrix}, ${method.technique}`,
-    header: { left: `${method.name} · version ${version.number}`, right: reportId ? `Report ${reportId}` : `${DRAFT_WATERMARK} · no report id` },
+    header: {
+      left: `${method.name} · version ${version.number}`,
+      right: reportId ? `Report ${reportId}` : `${DRAFT_WATERMARK} · no report id`,
+    },
     footer: `Data SHA-256 ${study.dataHash}`,
     watermark: reportId ? null : DRAFT_WATERMARK,
     info: reportId ? { [REPORT_ID_INFO_KEY]: reportId } : {},

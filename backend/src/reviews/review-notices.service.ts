@@ -16,7 +16,8 @@ interface PendingMail {
   lines: string[];
 }
 
-const CAUTION = 'Approval in Meritline supports, and does not replace, the laboratory’s own procedures, qualified review and the regulations that apply.';
+const CAUTION =
+  'Approval in Meritline supports, and does not replace, the laboratory’s own procedures, qualified review and the regulations that apply.';
 
 /**
  * The in-app notices go in with the transition's transaction; the e-mails go out after it commits,
@@ -30,7 +31,13 @@ export class ReviewNoticesService {
     private readonly notifications: NotificationsService,
   ) {}
 
-  async prepare(event: ReviewEvent, study: ValidationStudy, actor: AuthUser, comment: string | null, manager: EntityManager): Promise<() => Promise<void>> {
+  async prepare(
+    event: ReviewEvent,
+    study: ValidationStudy,
+    actor: AuthUser,
+    comment: string | null,
+    manager: EntityManager,
+  ): Promise<() => Promise<void>> {
     const path = `/studies/${study.id}`;
     const link = this.mail.link(path);
     const title = `“${study.title}”`;
@@ -40,24 +47,54 @@ export class ReviewNoticesService {
 
     switch (event) {
       case 'submitted': {
-        recipients = (await this.users.findActiveWithRole(Role.Reviewer)).filter((user) => user.id !== study.authorId && !study.editorIds.includes(user.id));
+        recipients = (await this.users.findActiveWithRole(Role.Reviewer)).filter(
+          (user) => user.id !== study.authorId && !study.editorIds.includes(user.id),
+        );
         message = `${actor.name} submitted ${title} for review.`;
         for (const to of recipients) {
-          mails.push({ to, subject: `Study awaiting review: ${study.title}`, lines: [`${actor.name} submitted the validation study ${title} for review and signed it as its author.`, '', `Open it to review: ${link}`] });
+          mails.push({
+            to,
+            subject: `Study awaiting review: ${study.title}`,
+            lines: [
+              `${actor.name} submitted the validation study ${title} for review and signed it as its author.`,
+              '',
+              `Open it to review: ${link}`,
+            ],
+          });
         }
         break;
       }
       case 'returned': {
         recipients = [await this.users.findById(study.authorId)];
         message = `${actor.name} returned ${title}: ${comment ?? ''}`;
-        mails.push({ to: recipients[0], subject: `Study returned for changes: ${study.title}`, lines: [`${actor.name} returned the validation study ${title} to you with this comment:`, '', indent(comment ?? ''), '', `Open it to make the changes and resubmit: ${link}`] });
+        mails.push({
+          to: recipients[0],
+          subject: `Study returned for changes: ${study.title}`,
+          lines: [
+            `${actor.name} returned the validation study ${title} to you with this comment:`,
+            '',
+            indent(comment ?? ''),
+            '',
+            `Open it to make the changes and resubmit: ${link}`,
+          ],
+        });
         break;
       }
       case 'release-pending': {
-        recipients = (await this.users.findActiveWithRole(Role.QualityManager)).filter((user) => ![study.authorId, actor.id, ...study.editorIds].includes(user.id));
+        recipients = (await this.users.findActiveWithRole(Role.QualityManager)).filter(
+          (user) => ![study.authorId, actor.id, ...study.editorIds].includes(user.id),
+        );
         message = `${actor.name} approved ${title}; it awaits release by a quality manager.`;
         for (const to of recipients) {
-          mails.push({ to, subject: `Study awaiting release: ${study.title}`, lines: [`${actor.name} reviewed and approved the validation study ${title}. The method version requires a release by a quality manager before the study counts as approved.`, '', `Open it to release: ${link}`] });
+          mails.push({
+            to,
+            subject: `Study awaiting release: ${study.title}`,
+            lines: [
+              `${actor.name} reviewed and approved the validation study ${title}. The method version requires a release by a quality manager before the study counts as approved.`,
+              '',
+              `Open it to release: ${link}`,
+            ],
+          });
         }
         break;
       }
@@ -67,13 +104,27 @@ export class ReviewNoticesService {
         recipients = [author, ...managers.filter((user) => user.id !== actor.id)];
         message = `${title} is approved (signed by ${actor.name}).`;
         for (const to of recipients) {
-          mails.push({ to, subject: `Study approved: ${study.title}`, lines: [`The validation study ${title} is approved; the last signature is by ${actor.name}.`, '', `Open it: ${link}`, '', CAUTION] });
+          mails.push({
+            to,
+            subject: `Study approved: ${study.title}`,
+            lines: [
+              `The validation study ${title} is approved; the last signature is by ${actor.name}.`,
+              '',
+              `Open it: ${link}`,
+              '',
+              CAUTION,
+            ],
+          });
         }
         break;
       }
     }
 
-    await this.notifications.notify(recipients.map((user) => user.id), { kind: `study.${event}`, message, link: path }, manager);
+    await this.notifications.notify(
+      recipients.map((user) => user.id),
+      { kind: `study.${event}`, message, link: path },
+      manager,
+    );
     return async () => {
       for (const { to, subject, lines } of mails) {
         await this.mail.send({ to: [to.email], subject, text: [`Hello ${to.name},`, '', ...lines, '', '— Meritline'].join('\n') });

@@ -11,7 +11,15 @@ import { ReviewQueueQueryDto } from './dto/review-queue.query.dto.js';
 import { SignStudyDto } from './dto/sign-study.dto.js';
 import { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
-import type { CommentDto, HistoryItemDto, QueueItemDto, ReviewQueueEntryDto, SignatureDto, StudyDiffDto, TransitionResultDto } from '@meritline/shared';
+import type {
+  CommentDto,
+  HistoryItemDto,
+  QueueItemDto,
+  ReviewQueueEntryDto,
+  SignatureDto,
+  StudyDiffDto,
+  TransitionResultDto,
+} from '@meritline/shared';
 import { StudyHistoryService } from './study-history.service.js';
 import { RunReleaseService } from '../runs/run-release.service.js';
 
@@ -37,7 +45,11 @@ export class StudyReviewController {
   @Post('return')
   @HttpCode(200)
   @Roles(Role.Reviewer, Role.QualityManager)
-  returnToAuthor(@Param('id', ParseUUIDPipe) id: string, @Body() dto: ReturnStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
+  returnToAuthor(
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body() dto: ReturnStudyDto,
+    @CurrentUser() user: AuthUser,
+  ): Promise<TransitionResultDto> {
     return this.reviewsService.returnToAuthor(id, dto, user);
   }
 
@@ -110,7 +122,9 @@ export class ReviewQueueController {
   @Roles(Role.Reviewer, Role.QualityManager)
   async queue(@Query() query: ReviewQueueQueryDto, @CurrentUser() user: AuthUser): Promise<ReviewQueueEntryDto[]> {
     const studies: ReviewQueueEntryDto[] =
-      query.kind === 'run' ? [] : (await this.reviewsService.queueFor(user)).map((item: QueueItemDto) => ({ kind: 'study' as const, ...item }));
+      query.kind === 'run'
+        ? []
+        : (await this.reviewsService.queueFor(user)).map((item: QueueItemDto) => ({ kind: 'study' as const, ...item }));
     const runs = query.kind === 'study' ? [] : await this.runRelease.queueFor(user);
     return [...studies, ...runs];
   }

@@ -16,7 +16,15 @@ import { StudyHistoryService } from './study-history.service.js';
 import { StudySignature } from './study-signature.entity.js';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([ValidationStudy, StudySignature, StudyComment]), AuthModule, UsersModule, MailModule, NotificationsModule, ReportsModule, RunsModule],
+  imports: [
+    TypeOrmModule.forFeature([ValidationStudy, StudySignature, StudyComment]),
+    AuthModule,
+    UsersModule,
+    MailModule,
+    NotificationsModule,
+    ReportsModule,
+    RunsModule,
+  ],
   controllers: [StudyReviewController, ReviewQueueController],
   providers: [ReviewsService, CommentsService, StudyHistoryService, ReviewNoticesService],
   exports: [ReviewsService],

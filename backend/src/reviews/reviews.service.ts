@@ -67,19 +67,31 @@ export class ReviewsService {
       throw new ConflictException(`This study is ${STATUS_WORDS[study.status]}; only a draft or a returned study can be submitted.`);
     }
     if (!study.result) {
-      const errors = study.resultErrors?.length ? study.resultErrors : [{ field: 'data', code: 'no_result', message: 'The results have not been computed yet.' }];
+      const errors = study.resultErrors?.length
+        ? study.resultErrors
+        : [{ field: 'data', code: 'no_result', message: 'The results have not been computed yet.' }];
       throw unprocessable(errors, 'The results cannot be computed from the data yet, so the study cannot be submitted.');
     }
     await this.verifyPassword(study, actor, dto.password, 'authored');
     const at = new Date();
-    return this.apply({ study, actor, to: 'submitted', action: 'study.submitted', reason: dto.comment?.trim() || null, set: { submittedAt: at }, signature: { meaning: 'authored', role: Role.Analyst, at }, event: 'submitted' });
+    return this.apply({
+      study,
+      actor,
+      to: 'submitted',
+      action: 'study.submitted',
+      reason: dto.comment?.trim() || null,
+      set: { submittedAt: at },
+      signature: { meaning: 'authored', role: Role.Analyst, at },
+      event: 'submitted',
+    });
   }
 
   async returnToAuthor(studyId: string, dto: ReturnStudyDto, actor: AuthUser): Promise<TransitionResultDto> {
     const study = await this.findStudy(studyId);
     if (study.authorId === actor.id) throw new ForbiddenException('You wrote this study; another reviewer must check it.');
     this.assertFresh(study, dto.lockVersion);
-    if (study.status !== 'submitted') throw new ConflictException(`This study is ${STATUS_WORDS[study.status]}; only a submitted study can be returned.`);
+    if (study.status !== 'submitted')
+      throw new ConflictException(`This study is ${STATUS_WORDS[study.status]}; only a submitted study can be returned.`);
     return this.apply({ study, actor, to: 'returned', action: 'study.returned', reason: dto.comment.trim(), event: 'returned' });
   }
 
@@ -90,7 +102,8 @@ export class ReviewsService {
       throw new ForbiddenException('You authored or edited this study, so you cannot approve it: a second person must review it.');
     }
     this.assertFresh(study, dto.lockVersion);
-    if (study.status !== 'submitted') throw new ConflictException(`This study is ${STATUS_WORDS[study.status]}; only a submitted study can be approved.`);
+    if (study.status !== 'submitted')
+      throw new ConflictException(`This study is ${STATUS_WORDS[study.status]}; only a submitted study can be approved.`);
 
     const firstApproval = currentRound(await this.signaturesOf(study.id)).find((s) => s.meaning === 'reviewed-and-approved');
     const releaseRequired = study.methodVersion.settings?.requiresQualityRelease === true;
@@ -103,12 +116,32 @@ export class ReviewsService {
       const signature = { meaning: 'reviewed-and-approved' as const, role, at, justification };
       return releaseRequired
         ? this.apply({ study, actor, to: 'submitted', action: 'study.review-approved', reason, signature, event: 'release-pending' })
-        : this.apply({ study, actor, to: 'approved', action: 'study.approved', reason, set: { approvedAt: at }, signature, event: 'approved' });
+        : this.apply({
+            study,
+            actor,
+            to: 'approved',
+            action: 'study.approved',
+            reason,
+            set: { approvedAt: at },
+            signature,
+            event: 'approved',
+          });
     }
-    if (!actor.roles.includes(Role.QualityManager)) throw new ForbiddenException('This study has been reviewed and now awaits release by a quality manager.');
-    if (firstApproval.signerId === actor.id) throw new ForbiddenException('You approved this study as its reviewer; a different quality manager must release it.');
+    if (!actor.roles.includes(Role.QualityManager))
+      throw new ForbiddenException('This study has been reviewed and now awaits release by a quality manager.');
+    if (firstApproval.signerId === actor.id)
+      throw new ForbiddenException('You approved this study as its reviewer; a different quality manager must release it.');
     await this.verifyPassword(study, actor, dto.password, 'released');
-    return this.apply({ study, actor, to: 'approved', action: 'study.released', reason, set: { approvedAt: at }, signature: { meaning: 'released', role: Role.QualityManager, at, justification }, event: 'approved' });
+    return this.apply({
+      study,
+      actor,
+      to: 'approved',
+      action: 'study.released',
+      reason,
+      set: { approvedAt: at },
+      signature: { meaning: 'released', role: Role.QualityManager, at, justification },
+      event: 'approved',
+    });
   }
 
   /** A new draft with the same data on the same method version, evaluated by the current engine. */
@@ -116,7 +149,13 @@ export class ReviewsService {
     const source = await this.findStudy(studyId);
     if (source.methodVersion.status === 'retired') {
       throw unprocessable(
-        [{ field: 'methodVersionId', code: 'retired', message: `Version ${source.methodVersion.number} of ${source.methodVersion.method.name} is retired; start a new study on the method's current version.` }],
+        [
+          {
+            field: 'methodVersionId',
+            code: 'retired',
+            message: `Version ${source.methodVersion.number} of ${source.methodVersion.method.name} is retired; start a new study on the method's current version.`,
+          },
+        ],
         'A study cannot be started on a retired method version.',
       );
     }
@@ -138,7 +177,14 @@ export class ReviewsService {
         }),
       );
       await this.audit.record(
-        { actor, action: 'study.created', entity: 'study', entityId: copy.id, changes: { status: { from: null, to: 'draft' }, copiedFromId: { from: null, to: source.id } }, reason: `Started from the study “${source.title}”.` },
+        {
+          actor,
+          action: 'study.created',
+          entity: 'study',
+          entityId: copy.id,
+          changes: { status: { from: null, to: 'draft' }, copiedFromId: { from: null, to: source.id } },
+          reason: `Started from the study “${source.title}”.`,
+        },
         manager,
       );
       return copy.id;
@@ -148,12 +194,18 @@ export class ReviewsService {
 
   /** Submitted studies the caller may act on, oldest first. */
   async queueFor(user: AuthUser): Promise<QueueItemDto[]> {
-    const submitted = await this.studies.find({ where: { status: 'submitted' }, relations: { methodVersion: { method: true }, author: true }, order: { submittedAt: 'ASC' } });
+    const submitted = await this.studies.find({
+      where: { status: 'submitted' },
+      relations: { methodVersion: { method: true }, author: true },
+      order: { submittedAt: 'ASC' },
+    });
     const signatures = submitted.length ? await this.signatures.find({ where: { studyId: In(submitted.map((s) => s.id)) } }) : [];
     const isManager = user.roles.includes(Role.QualityManager);
     return submitted.flatMap((study): QueueItemDto[] => {
       if (study.authorId === user.id || study.editorIds.includes(user.id)) return [];
-      const firstApproval = currentRound(signatures.filter((s) => s.studyId === study.id)).find((s) => s.meaning === 'reviewed-and-approved');
+      const firstApproval = currentRound(signatures.filter((s) => s.studyId === study.id)).find(
+        (s) => s.meaning === 'reviewed-and-approved',
+      );
       const stage: ReviewStage = firstApproval ? 'release' : 'review';
       if (stage === 'release' && (!isManager || firstApproval?.signerId === user.id)) return [];
       return [
@@ -196,7 +248,14 @@ export class ReviewsService {
 
   private async verifyPassword(study: ValidationStudy, actor: AuthUser, password: string, meaning: SignatureMeaning) {
     if (await this.auth.verifyPassword(actor.id, password)) return;
-    await this.audit.record({ actor, action: 'signature.failed', entity: 'study', entityId: study.id, changes: { meaning: { from: null, to: meaning } }, reason: 'Password not correct.' });
+    await this.audit.record({
+      actor,
+      action: 'signature.failed',
+      entity: 'study',
+      entityId: study.id,
+      changes: { meaning: { from: null, to: meaning } },
+      reason: 'Password not correct.',
+    });
     throw new UnauthorizedException(WRONG_PASSWORD);
   }
 
@@ -215,10 +274,14 @@ export class ReviewsService {
         .set({ status: to, ...transition.set, lockVersion: () => 'lock_version + 1' })
         .where('id = :id AND lock_version = :lockVersion', { id: study.id, lockVersion: study.lockVersion })
         .execute();
-      if (result.affected !== 1) throw new ConflictException('Someone else acted on this study at the same moment; reload it to see its current state.');
+      if (result.affected !== 1)
+        throw new ConflictException('Someone else acted on this study at the same moment; reload it to see its current state.');
       const justification = signature?.justification ? `Justification: ${signature.justification}` : null;
       const detail = [reason, justification].filter(Boolean).join(' ') || null;
-      await this.audit.record({ actor, action, entity: 'study', entityId: study.id, changes: { status: { from: study.status, to } }, reason: detail }, manager);
+      await this.audit.record(
+        { actor, action, entity: 'study', entityId: study.id, changes: { status: { from: study.status, to } }, reason: detail },
+        manager,
+      );
       if (signature) signed = await this.sign(manager, study, actor, signature, reason);
       deliver = await this.notices.prepare(transition.event, study, actor, reason, manager);
       return manager.getRepository(ValidationStudy).findOneByOrFail({ id: study.id });
@@ -229,7 +292,8 @@ export class ReviewsService {
     return {
       id: updated.id,
       status: updated.status,
-      stage: updated.status !== 'submitted' ? null : currentRound(all).some((s) => s.meaning === 'reviewed-and-approved') ? 'release' : 'review',
+      stage:
+        updated.status !== 'submitted' ? null : currentRound(all).some((s) => s.meaning === 'reviewed-and-approved') ? 'release' : 'review',
       lockVersion: updated.lockVersion,
       submittedAt: updated.submittedAt?.toISOString() ?? null,
       approvedAt: updated.approvedAt?.toISOString() ?? null,
@@ -246,7 +310,13 @@ export class ReviewsService {
     }
   }
 
-  private async sign(manager: EntityManager, study: ValidationStudy, actor: AuthUser, signature: NonNullable<Transition['signature']>, comment: string | null): Promise<StudySignature> {
+  private async sign(
+    manager: EntityManager,
+    study: ValidationStudy,
+    actor: AuthUser,
+    signature: NonNullable<Transition['signature']>,
+    comment: string | null,
+  ): Promise<StudySignature> {
     const repo = manager.getRepository(StudySignature);
     const authored = signature.meaning === 'authored';
     const saved = await repo.save(

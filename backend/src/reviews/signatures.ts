@@ -10,7 +10,9 @@ export interface SignedContent {
 
 /** SHA-256 of the canonical JSON (RFC 8785 scheme) of what a signer vouches for. */
 export function contentHash(content: SignedContent): string {
-  return createHash('sha256').update(canonicalJson({ data: content.data, result: content.result })).digest('hex');
+  return createHash('sha256')
+    .update(canonicalJson({ data: content.data, result: content.result }))
+    .digest('hex');
 }
 
 /** Signatures grouped by submission: each round opens with an `authored` signature. Oldest first. */

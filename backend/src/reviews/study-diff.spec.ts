@@ -14,12 +14,25 @@ const before = {
 
 describe('diffStudyData', () => {
   it('should report nothing for identical data, whatever the key order', () => {
-    const reordered = { lowSpikes: { spiked: [0.2, 0.21] }, recovery: [{ found: 0.98, added: 1, id: 'R1' }], standards: before.standards, weighting: 'none', model: 'linear' };
+    const reordered = {
+      lowSpikes: { spiked: [0.2, 0.21] },
+      recovery: [{ found: 0.98, added: 1, id: 'R1' }],
+      standards: before.standards,
+      weighting: 'none',
+      model: 'linear',
+    };
     expect(diffStudyData(before, reordered)).toEqual({ settings: [], sections: [] });
   });
 
   it('should list changed settings and changed fields of rows matched by position', () => {
-    const after = { ...before, weighting: '1/x', standards: [{ x: 1, y: 0.12, excluded: { reason: 'bubble' } }, { x: 2, y: 0.25 }] };
+    const after = {
+      ...before,
+      weighting: '1/x',
+      standards: [
+        { x: 1, y: 0.12, excluded: { reason: 'bubble' } },
+        { x: 2, y: 0.25 },
+      ],
+    };
     const diff = diffStudyData(before, after);
     expect(diff.settings).toEqual([{ field: 'weighting', from: 'none', to: '1/x' }]);
     expect(diff.sections).toEqual([
@@ -36,7 +49,14 @@ describe('diffStudyData', () => {
   });
 
   it('should match rows that carry an id by that id and report added and removed rows', () => {
-    const after = { ...before, recovery: [{ id: 'R2', added: 1, found: 1.01 }, { id: 'R1', added: 1, found: 0.98 }], lowSpikes: { spiked: [0.2] } };
+    const after = {
+      ...before,
+      recovery: [
+        { id: 'R2', added: 1, found: 1.01 },
+        { id: 'R1', added: 1, found: 0.98 },
+      ],
+      lowSpikes: { spiked: [0.2] },
+    };
     const diff = diffStudyData(before, after);
     expect(diff.sections).toEqual([
       { section: 'recovery', added: [{ key: 'R2', row: { id: 'R2', added: 1, found: 1.01 } }], removed: [], changed: [] },

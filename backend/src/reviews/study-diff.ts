@@ -27,7 +27,9 @@ function keyed(rows: unknown[]): Map<string, unknown> {
 function rowChanges(key: string, before: unknown, after: unknown): RowChange[] {
   if (!isRecord(before) || !isRecord(after)) return same(before, after) ? [] : [{ key, field: 'value', from: before, to: after }];
   const fields = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort();
-  return fields.filter((field) => !same(before[field], after[field])).map((field) => ({ key, field, from: before[field] ?? null, to: after[field] ?? null }));
+  return fields
+    .filter((field) => !same(before[field], after[field]))
+    .map((field) => ({ key, field, from: before[field] ?? null, to: after[field] ?? null }));
 }
 
 function diffRows(section: string, beforeRows: unknown[], afterRows: unknown[]): SectionDiff | null {
@@ -56,7 +58,11 @@ function sectionsOf(data: Data): Map<string, unknown[]> {
 
 /** What changed in the study data between two submissions: settings, then added, removed and changed rows per section. */
 export function diffStudyData(before: Data, after: Data): Pick<StudyDiffDto, 'settings' | 'sections'> {
-  const settings = SETTINGS.filter((field) => !same(before[field], after[field])).map((field) => ({ field, from: before[field] ?? null, to: after[field] ?? null }));
+  const settings = SETTINGS.filter((field) => !same(before[field], after[field])).map((field) => ({
+    field,
+    from: before[field] ?? null,
+    to: after[field] ?? null,
+  }));
   const beforeSections = sectionsOf(before);
   const afterSections = sectionsOf(after);
   const names = [...new Set([...beforeSections.keys(), ...afterSections.keys()])];

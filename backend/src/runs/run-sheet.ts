@@ -122,10 +122,7 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
     ['Analyst', run.author.name],
     ['Created', formatDateTime(run.createdAt)],
     ['Validation study', validation.studyTitle],
-    [
-      'LOD / LOQ',
-      limitsText(validation, xUnit),
-    ],
+    ['LOD / LOQ', limitsText(validation, xUnit)],
     [
       'Validated range',
       validation.validatedRange

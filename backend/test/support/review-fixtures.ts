@@ -10,7 +10,11 @@ import type { TestApp } from './test-app.js';
 
 /** better-sqlite3 ships no types; the tests need only these calls to reach the file behind the API. */
 export interface SqliteFile {
-  prepare(sql: string): { get(...params: unknown[]): unknown; all(...params: unknown[]): unknown[]; run(...params: unknown[]): { changes: number } };
+  prepare(sql: string): {
+    get(...params: unknown[]): unknown;
+    all(...params: unknown[]): unknown[];
+    run(...params: unknown[]): { changes: number };
+  };
   close(): void;
 }
 const Database = createRequire(import.meta.url)('better-sqlite3') as new (path: string, options?: { readonly?: boolean }) => SqliteFile;
@@ -67,7 +71,16 @@ export async function createStudy(t: TestApp, options: StudyFixtureOptions): Pro
   const ds = dataSourceOf(t);
   const authorId = await userId(t, options.author);
   const method = await ds.getRepository(Method).save(
-    ds.getRepository(Method).create({ name: `Nitrate in drinking water ${randomUUID().slice(0, 8)}`, analyte: 'Nitrate', matrix: 'Drinking water', technique: 'UV-Vis', xUnit: 'mg/L', yUnit: 'AU', purpose: 'assay', createdById: authorId }),
+    ds.getRepository(Method).create({
+      name: `Nitrate in drinking water ${randomUUID().slice(0, 8)}`,
+      analyte: 'Nitrate',
+      matrix: 'Drinking water',
+      technique: 'UV-Vis',
+      xUnit: 'mg/L',
+      yUnit: 'AU',
+      purpose: 'assay',
+      createdById: authorId,
+    }),
   );
   const version = await ds.getRepository(MethodVersion).save(
     ds.getRepository(MethodVersion).create({
@@ -89,7 +102,10 @@ export async function createStudy(t: TestApp, options: StudyFixtureOptions): Pro
       status: options.status ?? 'draft',
       ...content,
       ...(options.withoutResult
-        ? { result: null, resultErrors: [{ field: 'standards', code: 'too_few', message: 'Enter at least 3 standards for a straight-line calibration.' }] }
+        ? {
+            result: null,
+            resultErrors: [{ field: 'standards', code: 'too_few', message: 'Enter at least 3 standards for a straight-line calibration.' }],
+          }
         : {}),
       meta: { instrument: 'UV-1 bench spectrophotometer' },
       authorId,
@@ -107,7 +123,9 @@ export function databaseState(t: TestApp, studyId: string) {
   try {
     const count = (table: string) => (db.prepare(`SELECT COUNT(*) AS n FROM ${table}`).get() as { n: number }).n;
     return {
-      study: db.prepare('SELECT status, lock_version, data, result, submitted_at, approved_at FROM validation_studies WHERE id = ?').get(studyId),
+      study: db
+        .prepare('SELECT status, lock_version, data, result, submitted_at, approved_at FROM validation_studies WHERE id = ?')
+        .get(studyId),
       signatures: count('study_signatures'),
       comments: count('study_comments'),
       notifications: count('notifications'),

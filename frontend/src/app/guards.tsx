@@ -23,7 +23,11 @@ export function ProtectedRoute() {
   if (!session.user) {
     return (
       <Box p="8" maxW="2xl" mx="auto">
-        <QueryError error={session.error ?? new Error('No user')} title="Your account could not be loaded" onRetry={() => window.location.reload()} />
+        <QueryError
+          error={session.error ?? new Error('No user')}
+          title="Your account could not be loaded"
+          onRetry={() => window.location.reload()}
+        />
       </Box>
     );
   }

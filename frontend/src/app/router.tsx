@@ -30,7 +30,7 @@ export const routes: RouteObject[] = [
             children: [
               { path: paths.studies.path, lazy: page(() => import('@/features/studies/routes/studies')) },
               { path: paths.studyNew.path, lazy: page(() => import('@/features/studies/routes/new-study')) },
-              { path: paths.studyEdit.path, lazy: page(() => import('@/features/studies/routes/study-wizard')) },
+              { path: paths.studyEdit.path, lazy: page(() => import('./routes/study-wizard')) },
               { path: paths.runs.path, lazy: page(() => import('@/features/runs/routes/routine-batches')) },
               { path: paths.runNew.path, lazy: page(() => import('@/features/runs/routes/new-run')) },
             ],
@@ -61,9 +61,7 @@ export const routes: RouteObject[] = [
           },
           {
             element: <RequireRole roles={[Role.QualityManager]} />,
-            children: [
-              { path: paths.methodComparison.path, lazy: page(() => import('@/features/methods/routes/version-comparison')) },
-            ],
+            children: [{ path: paths.methodComparison.path, lazy: page(() => import('@/features/methods/routes/version-comparison')) }],
           },
           {
             element: <RequireRole roles={[Role.Admin]} />,

@@ -113,7 +113,10 @@ export function DataTable<TData extends RowData>({
                       aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : canSort ? 'none' : undefined}
                     >
                       {header.isPlaceholder ? null : canSort ? (
-                        <SortButton onClick={header.column.getToggleSortingHandler()} justifyContent={align === 'end' ? 'flex-end' : 'flex-start'}>
+                        <SortButton
+                          onClick={header.column.getToggleSortingHandler()}
+                          justifyContent={align === 'end' ? 'flex-end' : 'flex-start'}
+                        >
                           <table.FlexRender header={header} />
                           <Text as="span" aria-hidden="true" color={sorted ? 'brand.fg' : 'fg.subtle'}>
                             {sorted === 'asc' ? '↑' : sorted === 'desc' ? '↓' : '↕'}

@@ -20,8 +20,8 @@ export function NotAllowed({ requiredRoles, userRoles }: NotAllowedProps) {
           This page is for the role {formatRoles(requiredRoles).replace(/, ([^,]*)$/, ' or $1')}
         </Heading>
         <Text color="fg.muted">
-          Your account holds the role{userRoles.length === 1 ? '' : 's'} {formatRoles(userRoles) || 'none'}. If your work needs
-          this page, ask an administrator to add the role to your account.
+          Your account holds the role{userRoles.length === 1 ? '' : 's'} {formatRoles(userRoles) || 'none'}. If your work needs this page,
+          ask an administrator to add the role to your account.
         </Text>
         <Button asChild variant="outline">
           <Link to={paths.home.getHref()}>Go to the overview</Link>

@@ -32,7 +32,13 @@ export function ReportDownloadButton({ studyId, status, ...buttonProps }: Report
   };
 
   return (
-    <Button variant={approved ? 'solid' : 'outline'} loading={loading} loadingText={approved ? 'Preparing the report' : 'Preparing the preview'} onClick={() => void download()} {...buttonProps}>
+    <Button
+      variant={approved ? 'solid' : 'outline'}
+      loading={loading}
+      loadingText={approved ? 'Preparing the report' : 'Preparing the preview'}
+      onClick={() => void download()}
+      {...buttonProps}
+    >
       {approved ? 'Download signed report' : 'Preview draft report'}
     </Button>
   );

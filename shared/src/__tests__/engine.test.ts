@@ -7,8 +7,22 @@ import { ENGINE_VERSION } from '../version.js';
 import { nonFinitePaths, points, typicalStudy } from './helpers.js';
 
 const TOP_LEVEL = [
-  'engineVersion', 'model', 'weighting', 'calibration', 'lackOfFit', 'mandel', 'interceptTest', 'throughOrigin',
-  'homoscedasticity', 'unknowns', 'detection', 'recovery', 'precision', 'outliers', 'range', 'verdict',
+  'engineVersion',
+  'model',
+  'weighting',
+  'calibration',
+  'lackOfFit',
+  'mandel',
+  'interceptTest',
+  'throughOrigin',
+  'homoscedasticity',
+  'unknowns',
+  'detection',
+  'recovery',
+  'precision',
+  'outliers',
+  'range',
+  'verdict',
 ];
 
 describe('evaluateStudy on a full study', () => {
@@ -58,7 +72,13 @@ describe('sections null with a warning when their inputs are absent', () => {
   });
 
   it('no standards: no calibration, but precision still evaluated', () => {
-    const r = evaluateStudy({ precision: [{ group: 'a', value: 1 }, { group: 'a', value: 1.2 }, { group: 'b', value: 1.1 }] });
+    const r = evaluateStudy({
+      precision: [
+        { group: 'a', value: 1 },
+        { group: 'a', value: 1.2 },
+        { group: 'b', value: 1.1 },
+      ],
+    });
     expect(r.calibration).toBeNull();
     expect(r.precision).not.toBeNull();
     expect(r.warnings.some((w) => w.section === 'calibration')).toBe(true);
@@ -96,7 +116,7 @@ describe('models', () => {
     expect(r.detection!.sdResidual).toEqual(plain.detection!.sdResidual);
   });
 
-  it('quadratic: inverse prediction takes the root inside the standards\' range', () => {
+  it("quadratic: inverse prediction takes the root inside the standards' range", () => {
     const standards = points([0, 1, 2, 3, 4, 5], [0.02, 1.9, 3.6, 5.05, 6.3, 7.3]);
     const fit = fitCalibration(standards, { model: 'quadratic' });
     for (const x of [0.5, 2.5, 4.5]) {
@@ -118,7 +138,7 @@ describe('models', () => {
   it('check standards: found and recovery', () => {
     const r = evaluateStudy({ standards: points([0, 5, 10], [0, 5, 10]), checks: [{ id: 'CCV', nominal: 5, y: [5.1, 4.9, 5.05] }] });
     expect(r.checks![0].found).toBeCloseTo((5.1 + 4.9 + 5.05) / 3, 12);
-    expect(r.checks![0].recoveryPct).toBeCloseTo(100 * r.checks![0].found / 5, 12);
+    expect(r.checks![0].recoveryPct).toBeCloseTo((100 * r.checks![0].found) / 5, 12);
   });
 
   it('homoscedasticity recommends a weighting from the smallest Σ|%RE|', () => {

@@ -66,7 +66,10 @@ describe('properties of the calibration', () => {
       fc.property(design, fc.double({ min: 1e-3, max: 1e3, noNaN: true }), (standards, k) => {
         const withSd = standards.map((s) => ({ ...s, sd: 0.01 + 0.02 * s.x }));
         const a = fitCalibration(withSd, { weighting: '1/s2' });
-        const b = fitCalibration(withSd.map((s) => ({ ...s, sd: s.sd * k })), { weighting: '1/s2' });
+        const b = fitCalibration(
+          withSd.map((s) => ({ ...s, sd: s.sd * k })),
+          { weighting: '1/s2' },
+        );
         expect(close(a.calibration.slope, b.calibration.slope)).toBe(true);
         expect(close(a.calibration.intercept, b.calibration.intercept)).toBe(true);
         const y = a.predict(standards[1].x);

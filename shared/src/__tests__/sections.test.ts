@@ -62,7 +62,14 @@ describe('detection flags and basis', () => {
   });
 
   it('one-point calibration: only blank-based limits and the MDL', () => {
-    const r = evaluateStudy({ model: 'one-point', standards: [{ x: 5, y: 2.5 }, { x: 5, y: 2.52 }], blanks: [0.01, 0.013, 0.008] });
+    const r = evaluateStudy({
+      model: 'one-point',
+      standards: [
+        { x: 5, y: 2.5 },
+        { x: 5, y: 2.52 },
+      ],
+      blanks: [0.01, 0.013, 0.008],
+    });
     expect(r.detection!.sdResidual).toBeNull();
     expect(r.detection!.iso11843).toBeNull();
     expect(r.detection!.blankSd!.slope).toBeCloseTo(2.51 / 5, 14);
@@ -71,7 +78,13 @@ describe('detection flags and basis', () => {
 
 describe('unknowns', () => {
   it('range flags, dilution and the interval', () => {
-    const r = evaluateStudy({ standards: replicated, unknowns: [{ id: 'hi', y: [9.5], dilution: 10 }, { id: 'lo', y: [0.5, 0.52] }] });
+    const r = evaluateStudy({
+      standards: replicated,
+      unknowns: [
+        { id: 'hi', y: [9.5], dilution: 10 },
+        { id: 'lo', y: [0.5, 0.52] },
+      ],
+    });
     const [hi, lo] = r.unknowns!;
     expect(hi.flags).toContain('aboveRange');
     expect(hi.x0).toBeGreaterThan(80);
@@ -103,7 +116,12 @@ describe('precision', () => {
   });
 
   it('no replicate at all: null with a warning', () => {
-    const r = evaluateStudy({ precision: [{ group: 'a', value: 1 }, { group: 'b', value: 2 }] });
+    const r = evaluateStudy({
+      precision: [
+        { group: 'a', value: 1 },
+        { group: 'b', value: 2 },
+      ],
+    });
     expect(r.precision).toBeNull();
     expect(r.warnings.some((w) => w.section === 'precision' && w.code === 'too_few')).toBe(true);
   });

@@ -55,7 +55,10 @@ describe('parseStudy: structure, types and finiteness', () => {
           { id: 'A', y: [1] },
           { id: 'A', y: [2], dilution: 0 },
         ],
-        criteria: [{ figure: 'calibration.r2', op: '~', value: 1 }, { figure: 'x', op: 'between', value: [3, 1] }],
+        criteria: [
+          { figure: 'calibration.r2', op: '~', value: 1 },
+          { figure: 'x', op: 'between', value: [3, 1] },
+        ],
       }),
     );
     expect(errors.map((e) => [e.field, e.code])).toEqual(
@@ -81,7 +84,10 @@ describe('parseStudy: structure, types and finiteness', () => {
 
 describe('model requirements', () => {
   it('fewer than 3 standards for regression statistics', () => {
-    expect(validationErrors(() => parseStudy({ standards: points([1, 2], [1, 2]) }))[0]).toMatchObject({ field: 'standards', code: 'too_few' });
+    expect(validationErrors(() => parseStudy({ standards: points([1, 2], [1, 2]) }))[0]).toMatchObject({
+      field: 'standards',
+      code: 'too_few',
+    });
     expect(validationErrors(() => parseStudy({ standards: [] }))[0]).toMatchObject({ code: 'too_few' });
   });
 
@@ -96,7 +102,9 @@ describe('model requirements', () => {
 
   it('quadratic needs 4 standards at 3 distinct x', () => {
     expect(validationErrors(() => parseStudy({ model: 'quadratic', standards: points([1, 2, 3], [1, 4, 9]) }))[0].code).toBe('too_few');
-    expect(validationErrors(() => parseStudy({ model: 'quadratic', standards: points([1, 1, 2, 2], [1, 1, 4, 4]) }))[0].code).toBe('too_few_levels');
+    expect(validationErrors(() => parseStudy({ model: 'quadratic', standards: points([1, 1, 2, 2], [1, 1, 4, 4]) }))[0].code).toBe(
+      'too_few_levels',
+    );
   });
 
   it('x <= 0 with 1/x or 1/x2 weighting, weighting with an unweightable model', () => {
@@ -107,7 +115,9 @@ describe('model requirements', () => {
   });
 
   it('1/s2 weighting needs the SD of every standard', () => {
-    const errors = validationErrors(() => parseStudy({ weighting: '1/s2', standards: [...line.slice(0, 3).map((p) => ({ ...p, sd: 0.1 })), line[3]] }));
+    const errors = validationErrors(() =>
+      parseStudy({ weighting: '1/s2', standards: [...line.slice(0, 3).map((p) => ({ ...p, sd: 0.1 })), line[3]] }),
+    );
     expect(errors[0]).toMatchObject({ field: 'standards[3].sd', code: 'required' });
   });
 
@@ -118,12 +128,17 @@ describe('model requirements', () => {
 
   it('two-point: both standards at the same x, or three levels without bracketing', () => {
     expect(validationErrors(() => parseStudy({ model: 'two-point', standards: points([3, 3], [1, 2]) }))[0].code).toBe('all_x_equal');
-    expect(validationErrors(() => parseStudy({ model: 'two-point', standards: points([1, 2, 3], [1, 2, 3]) }))[0].code).toBe('too_many_levels');
+    expect(validationErrors(() => parseStudy({ model: 'two-point', standards: points([1, 2, 3], [1, 2, 3]) }))[0].code).toBe(
+      'too_many_levels',
+    );
     expect(() => parseStudy({ model: 'two-point', twoPoint: { bracketing: true }, standards: points([1, 2, 3], [1, 2, 3]) })).not.toThrow();
   });
 
   it('unknowns without standards', () => {
-    expect(validationErrors(() => parseStudy({ unknowns: [{ id: 'A', y: [1] }] }))[0]).toMatchObject({ field: 'standards', code: 'required' });
+    expect(validationErrors(() => parseStudy({ unknowns: [{ id: 'A', y: [1] }] }))[0]).toMatchObject({
+      field: 'standards',
+      code: 'required',
+    });
   });
 });
 
@@ -134,14 +149,25 @@ describe('errors found while fitting', () => {
     expect(validationErrors(() => evaluateStudy({ model: 'two-point', standards: points([1, 2], [3, 3]) }))[0].code).toBe('zero_slope');
   });
 
-  it('an unknown response outside the quadratic\'s invertible range', () => {
+  it("an unknown response outside the quadratic's invertible range", () => {
     const standards = points([0, 1, 2, 3, 4], [0, 3.9, 6.1, 7.4, 8.0]);
-    const errors = validationErrors(() => evaluateStudy({ model: 'quadratic', standards, unknowns: [{ id: 'A', y: [1] }, { id: 'B', y: [20] }] }));
+    const errors = validationErrors(() =>
+      evaluateStudy({
+        model: 'quadratic',
+        standards,
+        unknowns: [
+          { id: 'A', y: [1] },
+          { id: 'B', y: [20] },
+        ],
+      }),
+    );
     expect(errors[0]).toMatchObject({ field: 'unknowns[1].y', code: 'not_invertible' });
   });
 
   it('a bracketing two-point calibration whose responses do not rise steadily', () => {
-    const errors = validationErrors(() => fitCalibration(points([0, 1, 2], [0, 2, 1]), { model: 'two-point', twoPoint: { bracketing: true } }));
+    const errors = validationErrors(() =>
+      fitCalibration(points([0, 1, 2], [0, 2, 1]), { model: 'two-point', twoPoint: { bracketing: true } }),
+    );
     expect(errors[0].code).toBe('not_monotonic');
   });
 

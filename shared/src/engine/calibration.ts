@@ -69,10 +69,7 @@ function sdProfile(points: readonly FitPoint[]): (at: number) => number {
  * Weights 1/x, 1/x² or 1/s² normalised so that they sum to n; the same scale gives w(x)
  * anywhere (for 1/s², s(x) is interpolated between the standard levels).
  */
-function makeWeights(
-  points: readonly FitPoint[],
-  weighting: Weighting,
-): { w: ArrayLike<number>; weightAt: (at: number) => number } {
+function makeWeights(points: readonly FitPoint[], weighting: Weighting): { w: ArrayLike<number>; weightAt: (at: number) => number } {
   if (weighting === 'none') return { w: new Float64Array(points.length).fill(1), weightAt: () => 1 };
   let rawAt: (at: number) => number;
   if (weighting === '1/s2') {
@@ -200,13 +197,7 @@ function levelSummaries(backCalculated: BackCalculatedPoint[]): CalibrationLevel
     });
 }
 
-function band(
-  core: RegressionCore,
-  t: number,
-  x: number,
-  predict: (x: number) => number,
-  weightAt: (x: number) => number,
-): BandPoint {
+function band(core: RegressionCore, t: number, x: number, predict: (x: number) => number, weightAt: (x: number) => number): BandPoint {
   const leverage = core.leverage(x);
   return {
     x,
@@ -332,7 +323,18 @@ function regressionCurve(
 
 type Statistics = Omit<
   CalibrationResult,
-  'model' | 'weighting' | 'n' | 'slope' | 'intercept' | 'xMin' | 'xMax' | 'residuals' | 'backCalculated' | 'levels' | 'segments' | 'excluded'
+  | 'model'
+  | 'weighting'
+  | 'n'
+  | 'slope'
+  | 'intercept'
+  | 'xMin'
+  | 'xMax'
+  | 'residuals'
+  | 'backCalculated'
+  | 'levels'
+  | 'segments'
+  | 'excluded'
 >;
 
 function regressionStatistics(

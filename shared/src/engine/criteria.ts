@@ -13,7 +13,10 @@ const RECOVERY_LEVEL_FIGURE = 'range.recoveryPct';
  */
 export function figureValue(root: unknown, figure: string): number | null {
   let current: unknown = root;
-  for (const part of figure.replace(/\[(\w+)\]/g, '.$1').split('.').filter(Boolean)) {
+  for (const part of figure
+    .replace(/\[(\w+)\]/g, '.$1')
+    .split('.')
+    .filter(Boolean)) {
     if (Array.isArray(current)) {
       const byIndex = /^\d+$/.test(part) ? current[Number(part)] : undefined;
       current =
@@ -81,7 +84,10 @@ function levelRows(result: EvaluationResult, recovery: readonly RecoveryItem[] |
       .filter((l) => l.x !== 0)
       .map((l) => ({ x: l.x, values: { 'range.rePct': l.rePct, 'range.rsdPct': l.rsdPct }, pass: false }));
   }
-  const added = groupBy((recovery ?? []).filter((r) => r.level !== undefined), (r) => r.level as string);
+  const added = groupBy(
+    (recovery ?? []).filter((r) => r.level !== undefined),
+    (r) => r.level as string,
+  );
   return (result.recovery?.byLevel ?? [])
     .map((g) => ({
       x: mean((added.get(g.level as string) ?? []).map((r) => r.added)),
@@ -100,7 +106,8 @@ export function workingRange(
 ): RangeResult | null {
   const standardCriteria = criteria.filter((c) => STANDARD_LEVEL_FIGURES.includes(c.figure));
   const recoveryCriteria = criteria.filter((c) => c.figure === RECOVERY_LEVEL_FIGURE);
-  const basis: RangeResult['basis'] | null = standardCriteria.length > 0 ? 'standards' : recoveryCriteria.length > 0 && result.recovery ? 'recovery' : null;
+  const basis: RangeResult['basis'] | null =
+    standardCriteria.length > 0 ? 'standards' : recoveryCriteria.length > 0 && result.recovery ? 'recovery' : null;
   if (basis === null) {
     warn('range', 'no_criteria', 'no per-level criterion (range.rePct, range.rsdPct or range.recoveryPct) in the study');
     return null;

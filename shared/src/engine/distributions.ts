@@ -9,9 +9,8 @@ const { jStat } = jstat;
  */
 
 const LANCZOS = [
-  0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313,
-  -176.61502916214059, 12.507343278686905, -0.13857109526572012, 9.9843695780195716e-6,
-  1.5056327351493116e-7,
+  0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313, -176.61502916214059, 12.507343278686905,
+  -0.13857109526572012, 9.9843695780195716e-6, 1.5056327351493116e-7,
 ];
 const HALF_LOG_2PI = 0.5 * Math.log(2 * Math.PI);
 
@@ -88,12 +87,7 @@ export function studentCdf(t: number, df: number): number {
 }
 
 export function studentPdf(t: number, df: number): number {
-  return Math.exp(
-    logGamma((df + 1) / 2) -
-      logGamma(df / 2) -
-      0.5 * Math.log(df * Math.PI) -
-      ((df + 1) / 2) * Math.log1p((t * t) / df),
-  );
+  return Math.exp(logGamma((df + 1) / 2) - logGamma(df / 2) - 0.5 * Math.log(df * Math.PI) - ((df + 1) / 2) * Math.log1p((t * t) / df));
 }
 
 /** Two-sided p-value of a t statistic. */
@@ -116,14 +110,7 @@ function cached(key: string, compute: () => number): number {
  * Solves upper(x) = q for a decreasing upper-tail function by Newton steps from a guess,
  * falling back to bisection on [lo, hi] when a step leaves the bracket.
  */
-function solveUpper(
-  upper: (x: number) => number,
-  pdf: (x: number) => number,
-  q: number,
-  guess: number,
-  lo: number,
-  hi: number,
-): number {
+function solveUpper(upper: (x: number) => number, pdf: (x: number) => number, q: number, guess: number, lo: number, hi: number): number {
   let x = Number.isFinite(guess) && guess > lo && guess < hi ? guess : (lo + hi) / 2;
   let low = lo;
   let high = hi;
@@ -176,10 +163,7 @@ export function fCdf(f: number, d1: number, d2: number): number {
 export function fPdf(f: number, d1: number, d2: number): number {
   if (f <= 0) return 0;
   return Math.exp(
-    (d1 / 2) * Math.log(d1 / d2) +
-      (d1 / 2 - 1) * Math.log(f) -
-      ((d1 + d2) / 2) * Math.log1p((d1 * f) / d2) -
-      logBeta(d1 / 2, d2 / 2),
+    (d1 / 2) * Math.log(d1 / d2) + (d1 / 2 - 1) * Math.log(f) - ((d1 + d2) / 2) * Math.log1p((d1 * f) / d2) - logBeta(d1 / 2, d2 / 2),
   );
 }
 

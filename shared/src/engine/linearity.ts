@@ -67,7 +67,7 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
   const line = fitLine(xs, ys, weights);
   const quad = fitQuadratic(xs, ys, weights);
   if (quad.ssResidual === 0) {
-    warn('mandel', 'exact_fit', 'the quadratic passes exactly through the standards; Mandel\'s F is undefined');
+    warn('mandel', 'exact_fit', "the quadratic passes exactly through the standards; Mandel's F is undefined");
     return null;
   }
   const F = Math.max(0, line.ssResidual - quad.ssResidual) / (quad.ssResidual / (n - 3));

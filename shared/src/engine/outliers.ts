@@ -9,7 +9,14 @@ const ALPHA = 0.05;
 
 /** Dixon r10 critical values at 95 %, n = 3..10 (Rorabacher, Anal. Chem. 63 (1991) 139). */
 export const DIXON_R10_95: Readonly<Record<number, number>> = {
-  3: 0.97, 4: 0.829, 5: 0.71, 6: 0.625, 7: 0.568, 8: 0.526, 9: 0.493, 10: 0.466,
+  3: 0.97,
+  4: 0.829,
+  5: 0.71,
+  6: 0.625,
+  7: 0.568,
+  8: 0.526,
+  9: 0.493,
+  10: 0.466,
 };
 
 /** Two-sided Grubbs critical value (Grubbs 1969; ISO 5725-2 Table 5 is these values rounded). */
@@ -68,7 +75,15 @@ function testSet(set: ValueSet, flags: OutlierFlag[]): void {
   const dCrit = DIXON_R10_95[n];
   if (dCrit !== undefined) {
     const { Q, position: at } = dixonStatistic(set.values);
-    flags.push({ set: set.name, test: 'dixon', statistic: Q, critical: dCrit, index: set.indices[at], value: set.values[at], outlier: Q > dCrit });
+    flags.push({
+      set: set.name,
+      test: 'dixon',
+      statistic: Q,
+      critical: dCrit,
+      index: set.indices[at],
+      value: set.values[at],
+      outlier: Q > dCrit,
+    });
   }
 }
 
@@ -108,20 +123,34 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
     sets.push({ name: `standards x=${x}`, values: points.map((p) => p.y), indices: points.map((p) => p.index) });
   }
   if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
-  const series = [...groupBy(
-    (study.precision ?? []).map((p, index) => ({ ...p, index })),
-    (p) => p.group,
-  ).entries()];
+  const series = [
+    ...groupBy(
+      (study.precision ?? []).map((p, index) => ({ ...p, index })),
+      (p) => p.group,
+    ).entries(),
+  ];
   for (const [group, items] of series) {
     sets.push({ name: `precision ${group}`, values: items.map((i) => i.value), indices: items.map((i) => i.index) });
   }
   if (series.length >= 3) {
-    sets.push({ name: 'precision series means', values: series.map(([, items]) => mean(items.map((i) => i.value))), indices: series.map((_, i) => i) });
+    sets.push({
+      name: 'precision series means',
+      values: series.map(([, items]) => mean(items.map((i) => i.value))),
+      indices: series.map((_, i) => i),
+    });
   }
   for (const set of sets) testSet(set, flags);
 
-  cochran('standard levels', levels.map(([, points], index) => ({ values: points.map((p) => p.y), index })), flags);
-  cochran('precision series', series.map(([, items], index) => ({ values: items.map((i) => i.value), index })), flags);
+  cochran(
+    'standard levels',
+    levels.map(([, points], index) => ({ values: points.map((p) => p.y), index })),
+    flags,
+  );
+  cochran(
+    'precision series',
+    series.map(([, items], index) => ({ values: items.map((i) => i.value), index })),
+    flags,
+  );
 
   const standardized = fit?.calibration.standardizedResiduals;
   if (fit && standardized && standardized.length > 0) {

@@ -40,8 +40,25 @@ export function recovery(items: readonly RecoveryItem[] | undefined, confidence:
     level: item.level ?? null,
     pct: (100 * (item.found - (item.native ?? 0))) / item.added,
   }));
-  const byLevel = [...groupBy(results.filter((r) => r.level !== null), (r) => r.level).entries()].map(([level, group]) =>
-    summarise(level, group.map((r) => r.pct), confidence),
+  const byLevel = [
+    ...groupBy(
+      results.filter((r) => r.level !== null),
+      (r) => r.level,
+    ).entries(),
+  ].map(([level, group]) =>
+    summarise(
+      level,
+      group.map((r) => r.pct),
+      confidence,
+    ),
   );
-  return { items: results, byLevel, overall: summarise(null, results.map((r) => r.pct), confidence) };
+  return {
+    items: results,
+    byLevel,
+    overall: summarise(
+      null,
+      results.map((r) => r.pct),
+      confidence,
+    ),
+  };
 }

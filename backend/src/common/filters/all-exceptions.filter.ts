@@ -38,7 +38,10 @@ export class AllExceptionsFilter implements ExceptionFilter {
     const { status, statusCode, type } = (exception ?? {}) as { status?: number; statusCode?: number; type?: string };
     const code = status ?? statusCode;
     if (typeof code === 'number' && code >= 400 && code < 500) {
-      const message = type === 'entity.parse.failed' ? `The request body is not valid JSON: ${(exception as Error).message}` : (exception as Error).message;
+      const message =
+        type === 'entity.parse.failed'
+          ? `The request body is not valid JSON: ${(exception as Error).message}`
+          : (exception as Error).message;
       return { statusCode: code, message };
     }
     return { statusCode: HttpStatus.INTERNAL_SERVER_ERROR, message: 'Internal server error' };

@@ -173,7 +173,16 @@ export class MethodsStudiesRuns1764626600000 implements MigrationInterface {
   }
 
   async down(queryRunner: QueryRunner): Promise<void> {
-    for (const table of ['runs', 'validation_reports', 'notifications', 'study_comments', 'study_signatures', 'validation_studies', 'method_versions', 'methods']) {
+    for (const table of [
+      'runs',
+      'validation_reports',
+      'notifications',
+      'study_comments',
+      'study_signatures',
+      'validation_studies',
+      'method_versions',
+      'methods',
+    ]) {
       await queryRunner.dropTable(table);
     }
   }

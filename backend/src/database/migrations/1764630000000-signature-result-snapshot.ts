@@ -6,7 +6,10 @@ export class SignatureResultSnapshot1764630000000 implements MigrationInterface 
   name = 'SignatureResultSnapshot1764630000000';
 
   async up(queryRunner: QueryRunner): Promise<void> {
-    await queryRunner.addColumn('study_signatures', new TableColumn({ name: 'result_snapshot', type: columnTypes(queryRunner).text, isNullable: true }));
+    await queryRunner.addColumn(
+      'study_signatures',
+      new TableColumn({ name: 'result_snapshot', type: columnTypes(queryRunner).text, isNullable: true }),
+    );
   }
 
   async down(queryRunner: QueryRunner): Promise<void> {

@@ -6,4 +6,12 @@ import { SessionsAndPasswordReset1764640000000 } from './1764640000000-sessions-
 import { MethodChangeControl1764650000000 } from './1764650000000-method-change-control.js';
 import { RunRelease1764660000000 } from './1764660000000-run-release.js';
 
-export const migrations = [UsersAndOutbox1764626400000, AuditTrail1764626500000, MethodsStudiesRuns1764626600000, SignatureResultSnapshot1764630000000, SessionsAndPasswordReset1764640000000, MethodChangeControl1764650000000, RunRelease1764660000000];
+export const migrations = [
+  UsersAndOutbox1764626400000,
+  AuditTrail1764626500000,
+  MethodsStudiesRuns1764626600000,
+  SignatureResultSnapshot1764630000000,
+  SessionsAndPasswordReset1764640000000,
+  MethodChangeControl1764650000000,
+  RunRelease1764660000000,
+];

@@ -8,7 +8,8 @@ import { StudySignature } from '../../reviews/study-signature.entity.js';
 import { ValidationStudy } from '../../studies/validation-study.entity.js';
 import { User } from '../../users/user.entity.js';
 
-const RETURN_COMMENT = 'The lowest standard sits well off the line and pulls the intercept. Re-inject it or exclude it with a reason, then resubmit.';
+const RETURN_COMMENT =
+  'The lowest standard sits well off the line and pulls the intercept. Re-inject it or exclude it with a reason, then resubmit.';
 
 /**
  * The review trail of the seeded submitted, returned and approved studies: signatures over their
@@ -39,7 +40,11 @@ export async function seedDemoReviews(manager: EntityManager) {
       await trail.notify([author.id], 'study.returned', `${reviewer.name} returned “${study.title}”: ${RETURN_COMMENT}`);
     }
     if (study.status === 'approved') {
-      const thread = await trail.comment(reviewer, 'recovery', 'Recovery at the low level is at the edge of the range; the method version accepts it.');
+      const thread = await trail.comment(
+        reviewer,
+        'recovery',
+        'Recovery at the low level is at the edge of the range; the method version accepts it.',
+      );
       await trail.resolve(reviewer, thread);
       await trail.sign(reviewer, Role.Reviewer, 'reviewed-and-approved', 'All sections checked against the method version.');
       if (study.methodVersion.settings?.requiresQualityRelease) {
@@ -92,7 +97,11 @@ class Trail {
         action: `signature.${meaning}`,
         entity: 'study-signature',
         entityId: signature.id,
-        changes: { studyId: { from: null, to: this.study.id }, signerRole: { from: null, to: role }, contentHash: { from: null, to: signature.contentHash } },
+        changes: {
+          studyId: { from: null, to: this.study.id },
+          signerRole: { from: null, to: role },
+          contentHash: { from: null, to: signature.contentHash },
+        },
         reason: comment,
       },
       this.manager,
@@ -100,16 +109,27 @@ class Trail {
   }
 
   async move(actor: User, from: StudyStatus, to: StudyStatus, action: string, reason: string | null = null) {
-    const entry = await this.audit.record({ actor, action, entity: 'study', entityId: this.study.id, changes: { status: { from, to } }, reason }, this.manager);
+    const entry = await this.audit.record(
+      { actor, action, entity: 'study', entityId: this.study.id, changes: { status: { from, to } }, reason },
+      this.manager,
+    );
     if (to === 'submitted' && from !== 'submitted') this.submittedAt = entry.at;
     if (to === 'approved') this.approvedAt = entry.at;
   }
 
   async comment(author: User, section: StudySection, body: string, threadId: string | null = null): Promise<StudyComment> {
     const repo = this.manager.getRepository(StudyComment);
-    const comment = await repo.save(repo.create({ studyId: this.study.id, section, threadId, authorId: author.id, authorName: author.name, body, resolved: false }));
+    const comment = await repo.save(
+      repo.create({ studyId: this.study.id, section, threadId, authorId: author.id, authorName: author.name, body, resolved: false }),
+    );
     await this.audit.record(
-      { actor: author, action: 'study-comment.created', entity: 'study-comment', entityId: comment.id, changes: { studyId: { from: null, to: this.study.id }, section: { from: null, to: section }, body: { from: null, to: body } } },
+      {
+        actor: author,
+        action: 'study-comment.created',
+        entity: 'study-comment',
+        entityId: comment.id,
+        changes: { studyId: { from: null, to: this.study.id }, section: { from: null, to: section }, body: { from: null, to: body } },
+      },
       this.manager,
     );
     return comment;
@@ -117,11 +137,24 @@ class Trail {
 
   async resolve(actor: User, comment: StudyComment) {
     await this.manager.getRepository(StudyComment).update({ id: comment.id }, { resolved: true });
-    await this.audit.record({ actor, action: 'study-comment.resolved', entity: 'study-comment', entityId: comment.id, changes: { resolved: { from: false, to: true } } }, this.manager);
+    await this.audit.record(
+      {
+        actor,
+        action: 'study-comment.resolved',
+        entity: 'study-comment',
+        entityId: comment.id,
+        changes: { resolved: { from: false, to: true } },
+      },
+      this.manager,
+    );
   }
 
   async notify(userIds: string[], kind: string, message: string) {
     const repo = this.manager.getRepository(Notification);
-    await repo.save(userIds.map((userId) => repo.create({ userId, kind, message: message.slice(0, 300), link: `/studies/${this.study.id}`, readAt: null })));
+    await repo.save(
+      userIds.map((userId) =>
+        repo.create({ userId, kind, message: message.slice(0, 300), link: `/studies/${this.study.id}`, readAt: null }),
+      ),
+    );
   }
 }

@@ -12,7 +12,10 @@ describe('fonts', () => {
     const sfnt = woffToSfnt(woff);
     const tables = sfnt.readUInt16BE(4);
     expect(tables).toBe(woff.readUInt16BE(12));
-    const records = Array.from({ length: tables }, (_, i) => ({ tag: sfnt.toString('latin1', 12 + i * 16, 16 + i * 16), offset: sfnt.readUInt32BE(20 + i * 16) }));
+    const records = Array.from({ length: tables }, (_, i) => ({
+      tag: sfnt.toString('latin1', 12 + i * 16, 16 + i * 16),
+      offset: sfnt.readUInt32BE(20 + i * 16),
+    }));
     const head = records.find((r) => r.tag === 'head')!;
     // OpenType specification, 'head' table: magicNumber 0x5F0F3CF5 at byte 12.
     expect(sfnt.readUInt32BE(head.offset + 12)).toBe(0x5f0f3cf5);

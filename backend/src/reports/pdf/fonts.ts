@@ -65,7 +65,11 @@ export function fontName(weight: FontWeight, subset: Subset = 'latin'): string {
   return `plex-${weight}-${subset}`;
 }
 
-const FONTS = new Map(SUBSETS.flatMap((subset) => (Object.keys(WEIGHT_FILES) as FontWeight[]).map((weight) => [fontName(weight, subset), { subset, weight }] as const)));
+const FONTS = new Map(
+  SUBSETS.flatMap((subset) =>
+    (Object.keys(WEIGHT_FILES) as FontWeight[]).map((weight) => [fontName(weight, subset), { subset, weight }] as const),
+  ),
+);
 const registered = new WeakMap<PDFKit.PDFDocument, Set<string>>();
 
 /** Makes `name` the current font; a subset is parsed the first time any document needs it and embedded only where used. */

@@ -1,5 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { formatDate, formatDateTime, formatEstimate, formatLevel, formatNumber, formatPercent, formatPValue, NOT_AVAILABLE, pText } from './format.js';
+import {
+  formatDate,
+  formatDateTime,
+  formatEstimate,
+  formatLevel,
+  formatNumber,
+  formatPercent,
+  formatPValue,
+  NOT_AVAILABLE,
+  pText,
+} from './format.js';
 
 describe('number formatting', () => {
   it('should round an estimate to its standard uncertainty given to two significant digits', () => {

@@ -73,7 +73,10 @@ export function formatEstimate(value: Num, uncertainty: Num): { value: string; u
   return { value: fixed(value, decimals), uncertainty: fixed(uncertainty, decimals), decimals };
 }
 
-export function formatInterval(interval: readonly [number, number] | null | undefined, format: (value: number) => string = formatNumber): string {
+export function formatInterval(
+  interval: readonly [number, number] | null | undefined,
+  format: (value: number) => string = formatNumber,
+): string {
   if (!interval || !isNumber(interval[0]) || !isNumber(interval[1])) return NOT_AVAILABLE;
   return `${format(interval[0])} to ${format(interval[1])}`;
 }

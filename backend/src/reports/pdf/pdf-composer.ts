@@ -110,7 +110,13 @@ export class PdfComposer {
   textAt(text: string, x: number, y: number, width: number, style: TextStyle = {}, lineBreak = true): this {
     this.style(style);
     const runs = fontRuns(text, style.weight ?? 'regular');
-    const base = { width, align: runs.length > 1 ? 'left' : style.align, lineGap: style.lineGap ?? 1.5, characterSpacing: style.characterSpacing, lineBreak };
+    const base = {
+      width,
+      align: runs.length > 1 ? 'left' : style.align,
+      lineGap: style.lineGap ?? 1.5,
+      characterSpacing: style.characterSpacing,
+      lineBreak,
+    };
     runs.forEach((run, i) => {
       selectFont(this.doc, run.font);
       const options = { ...base, continued: i < runs.length - 1 };
@@ -149,7 +155,12 @@ export class PdfComposer {
     this.textAt(text, this.left, top, this.width, { size, weight: 'semibold', color: colors.spruce });
     this.doc.y = top + height + (level === 1 ? 4 : 3);
     if (level === 1) {
-      this.doc.moveTo(this.left, this.doc.y).lineTo(this.left + this.width, this.doc.y).lineWidth(0.8).strokeColor(colors.spruce).stroke();
+      this.doc
+        .moveTo(this.left, this.doc.y)
+        .lineTo(this.left + this.width, this.doc.y)
+        .lineWidth(0.8)
+        .strokeColor(colors.spruce)
+        .stroke();
       this.doc.y += 8;
     }
     return this;
@@ -265,10 +276,20 @@ export class PdfComposer {
     const tiny = { size: sizes.tiny, color: colors.muted };
     this.textAt(header.left, this.left, headerY, half + 60, { ...tiny, weight: 'semibold' }, false);
     this.textAt(header.right, this.left + half + 60, headerY, half - 60, { ...tiny, align: 'right' }, false);
-    this.doc.moveTo(this.left, headerY + 12).lineTo(this.left + this.width, headerY + 12).lineWidth(0.5).strokeColor(colors.rule).stroke();
+    this.doc
+      .moveTo(this.left, headerY + 12)
+      .lineTo(this.left + this.width, headerY + 12)
+      .lineWidth(0.5)
+      .strokeColor(colors.rule)
+      .stroke();
 
     const footerY = A4.height - 38;
-    this.doc.moveTo(this.left, footerY - 6).lineTo(this.left + this.width, footerY - 6).lineWidth(0.5).strokeColor(colors.rule).stroke();
+    this.doc
+      .moveTo(this.left, footerY - 6)
+      .lineTo(this.left + this.width, footerY - 6)
+      .lineWidth(0.5)
+      .strokeColor(colors.rule)
+      .stroke();
     this.textAt(footer, this.left, footerY, this.width - 70, tiny, false);
     this.textAt(`page ${page} of ${pages}`, this.left + this.width - 70, footerY, 70, { ...tiny, align: 'right' }, false);
 
@@ -278,7 +299,14 @@ export class PdfComposer {
       this.doc.save();
       this.doc.rotate(-52, { origin: [centre.x, centre.y] });
       this.doc.fillOpacity(0.13);
-      this.textAt(watermark, centre.x - 400, centre.y - size / 2, 800, { size, weight: 'semibold', color: colors.watermark, align: 'center' }, false);
+      this.textAt(
+        watermark,
+        centre.x - 400,
+        centre.y - size / 2,
+        800,
+        { size, weight: 'semibold', color: colors.watermark, align: 'center' },
+        false,
+      );
       this.doc.restore();
     }
     this.doc.page.margins = saved;

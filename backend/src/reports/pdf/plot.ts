@@ -8,7 +8,14 @@ export interface PlotPoint {
 }
 
 export type PlotLayer =
-  | { type: 'band'; label?: string; points: { x: number; low: number; high: number }[]; color?: string; opacity?: number; outline?: boolean }
+  | {
+      type: 'band';
+      label?: string;
+      points: { x: number; low: number; high: number }[];
+      color?: string;
+      opacity?: number;
+      outline?: boolean;
+    }
   | { type: 'line'; label?: string; points: PlotPoint[]; color?: string; width?: number; dashed?: boolean }
   | { type: 'points'; label?: string; points: PlotPoint[]; color?: string; hollow?: boolean; radius?: number }
   | { type: 'hline'; label?: string; y: number; color?: string; dashed?: boolean };
@@ -138,7 +145,10 @@ export function drawPlot(pdf: PdfComposer, spec: PlotSpec): void {
         }
       }
     } else if (layer.type === 'line' && layer.points.length > 1) {
-      doc.save().lineWidth(layer.width ?? 1.1).strokeColor(color);
+      doc
+        .save()
+        .lineWidth(layer.width ?? 1.1)
+        .strokeColor(color);
       if (layer.dashed) doc.dash(3, { space: 2.5 });
       doc.moveTo(px(layer.points[0].x), py(layer.points[0].y));
       layer.points.slice(1).forEach((p) => doc.lineTo(px(p.x), py(p.y)));
@@ -190,13 +200,25 @@ export function drawPlot(pdf: PdfComposer, spec: PlotSpec): void {
     const y = bottom + 30 + 12 * item.row;
     const color = layer.color ?? colors.spruce;
     doc.save();
-    if (layer.type === 'band') doc.fillOpacity(layer.opacity ?? 0.25).rect(x, y + 1, 14, 7).fill(color);
-    else if (layer.type === 'points' && layer.hollow) doc.lineWidth(1).circle(x + 7, y + 4.5, 2.4).fillAndStroke('#ffffff', color);
+    if (layer.type === 'band')
+      doc
+        .fillOpacity(layer.opacity ?? 0.25)
+        .rect(x, y + 1, 14, 7)
+        .fill(color);
+    else if (layer.type === 'points' && layer.hollow)
+      doc
+        .lineWidth(1)
+        .circle(x + 7, y + 4.5, 2.4)
+        .fillAndStroke('#ffffff', color);
     else if (layer.type === 'points') doc.circle(x + 7, y + 4.5, 2.4).fill(color);
     else {
       doc.lineWidth(1.1).strokeColor(color);
       if (layer.dashed) doc.dash(3, { space: 2 });
-      doc.moveTo(x, y + 4.5).lineTo(x + 14, y + 4.5).stroke().undash();
+      doc
+        .moveTo(x, y + 4.5)
+        .lineTo(x + 14, y + 4.5)
+        .stroke()
+        .undash();
     }
     doc.restore();
     pdf.textAt(layer.label!, x + 18, y + 1, item.labelWidth, tick, false);

@@ -39,21 +39,42 @@ export function drawTable(pdf: PdfComposer, spec: TableSpec): void {
   const rows: TableRow[] = spec.rows.map((row) => (Array.isArray(row) ? { cells: row } : row));
   if (!rows.length && spec.empty) rows.push({ cells: [spec.empty, ...spec.columns.slice(1).map(() => '')] });
 
-  const cellHeight = (text: string, i: number, bold: boolean) => pdf.heightOf(text, widths[i] - 2 * PAD_X, { size, weight: bold ? 'semibold' : 'regular', lineGap: 1 });
+  const cellHeight = (text: string, i: number, bold: boolean) =>
+    pdf.heightOf(text, widths[i] - 2 * PAD_X, { size, weight: bold ? 'semibold' : 'regular', lineGap: 1 });
   const rowHeight = (cells: string[], bold: boolean) => Math.max(...cells.map((text, i) => cellHeight(text ?? '', i, bold))) + 2 * PAD_Y;
-  const headerHeight = rowHeight(spec.columns.map((c) => c.header), true);
+  const headerHeight = rowHeight(
+    spec.columns.map((c) => c.header),
+    true,
+  );
 
   const drawCells = (cells: string[], top: number, bold: boolean, color: string = colors.text) => {
     let x = pdf.left;
     cells.forEach((text, i) => {
-      pdf.textAt(text ?? '', x + PAD_X, top + PAD_Y, widths[i] - 2 * PAD_X, { size, weight: bold ? 'semibold' : 'regular', color, align: spec.columns[i].align ?? 'left', lineGap: 1 });
+      pdf.textAt(text ?? '', x + PAD_X, top + PAD_Y, widths[i] - 2 * PAD_X, {
+        size,
+        weight: bold ? 'semibold' : 'regular',
+        color,
+        align: spec.columns[i].align ?? 'left',
+        lineGap: 1,
+      });
       x += widths[i];
     });
   };
-  const rule = (y: number, color: string, width: number) => pdf.doc.moveTo(pdf.left, y).lineTo(pdf.left + pdf.width, y).lineWidth(width).strokeColor(color).stroke();
+  const rule = (y: number, color: string, width: number) =>
+    pdf.doc
+      .moveTo(pdf.left, y)
+      .lineTo(pdf.left + pdf.width, y)
+      .lineWidth(width)
+      .strokeColor(color)
+      .stroke();
   const drawHeader = () => {
     const top = pdf.y;
-    drawCells(spec.columns.map((c) => c.header), top, true, colors.spruce);
+    drawCells(
+      spec.columns.map((c) => c.header),
+      top,
+      true,
+      colors.spruce,
+    );
     rule(top + headerHeight, colors.ruleStrong, 0.7);
     pdf.y = top + headerHeight;
   };

@@ -34,7 +34,8 @@ function signed(text: string): string {
 function equation(c: CalibrationResult): string {
   const b = formatEstimate(c.slope, c.seSlope).value;
   const a = formatEstimate(c.intercept, c.seIntercept).value;
-  if (c.model === 'quadratic' && c.curvature !== null) return `y = ${formatEstimate(c.curvature, c.seCurvature).value} · x² ${signed(b)} · x ${signed(a)}`;
+  if (c.model === 'quadratic' && c.curvature !== null)
+    return `y = ${formatEstimate(c.curvature, c.seCurvature).value} · x² ${signed(b)} · x ${signed(a)}`;
   if (c.model === 'linear-through-origin' || c.model === 'one-point') return `y = ${b} · x`;
   return `y = ${b} · x ${signed(a)}`;
 }
@@ -70,17 +71,27 @@ function modelParagraph(pdf: PdfComposer, result: EvaluationResult, c: Calibrati
 function coefficients(pdf: PdfComposer, result: EvaluationResult, c: CalibrationResult, x: string, y: string): void {
   pdf.heading('Calibration function', 3);
   pdf.paragraph(equation(c), { size: 11, weight: 'semibold', gap: 2 });
-  pdf.paragraph(`y: response in ${y}; x: concentration in ${x}. Coefficients are rounded to their standard errors (two significant digits).`, {
-    size: 8,
-    color: colors.muted,
-  });
+  pdf.paragraph(
+    `y: response in ${y}; x: concentration in ${x}. Coefficients are rounded to their standard errors (two significant digits).`,
+    {
+      size: 8,
+      color: colors.muted,
+    },
+  );
   const row = (term: string, value: number | null, se: number | null, ci: [number, number] | null, unit: string) => {
     const estimate = formatEstimate(value, se);
     const decimals = estimate.decimals;
-    return [term, estimate.value, estimate.uncertainty, formatInterval(ci, (v) => (decimals === null ? formatNumber(v, 5) : formatFixed(v, decimals))), unit];
+    return [
+      term,
+      estimate.value,
+      estimate.uncertainty,
+      formatInterval(ci, (v) => (decimals === null ? formatNumber(v, 5) : formatFixed(v, decimals))),
+      unit,
+    ];
   };
   const rows: string[][] = [row('Slope b', c.slope, c.seSlope, c.ciSlope, `${y} per ${x}`)];
-  if (c.model !== 'linear-through-origin' && c.model !== 'one-point') rows.push(row('Intercept a', c.intercept, c.seIntercept, c.ciIntercept, y));
+  if (c.model !== 'linear-through-origin' && c.model !== 'one-point')
+    rows.push(row('Intercept a', c.intercept, c.seIntercept, c.ciIntercept, y));
   if (c.model === 'quadratic') rows.push(row('Curvature c (x²)', c.curvature, c.seCurvature, c.ciCurvature, `${y} per (${x})²`));
   pdf.table({
     columns: [
@@ -109,14 +120,44 @@ function anovaTable(pdf: PdfComposer, result: EvaluationResult, c: CalibrationRe
   const a = c.anova;
   const lof = result.lackOfFit;
   const rows: TableRow[] = [
-    { cells: ['Regression', formatInteger(a.dfRegression), formatNumber(a.ssRegression, 5), formatNumber(a.msRegression, 5), formatNumber(a.F, 4), formatPValue(a.p)] },
+    {
+      cells: [
+        'Regression',
+        formatInteger(a.dfRegression),
+        formatNumber(a.ssRegression, 5),
+        formatNumber(a.msRegression, 5),
+        formatNumber(a.F, 4),
+        formatPValue(a.p),
+      ],
+    },
     { cells: ['Residual', formatInteger(a.dfResidual), formatNumber(a.ssResidual, 5), formatNumber(a.msResidual, 5), '', ''] },
   ];
   if (lof) {
-    rows.push({ cells: ['   Lack of fit', formatInteger(lof.dfLackOfFit), formatNumber(lof.ssLackOfFit, 5), formatNumber(lof.ssLackOfFit / lof.dfLackOfFit, 5), formatNumber(lof.F, 4), formatPValue(lof.p)] });
-    rows.push({ cells: ['   Pure error', formatInteger(lof.dfPureError), formatNumber(lof.ssPureError, 5), formatNumber(lof.ssPureError / lof.dfPureError, 5), '', ''] });
+    rows.push({
+      cells: [
+        '   Lack of fit',
+        formatInteger(lof.dfLackOfFit),
+        formatNumber(lof.ssLackOfFit, 5),
+        formatNumber(lof.ssLackOfFit / lof.dfLackOfFit, 5),
+        formatNumber(lof.F, 4),
+        formatPValue(lof.p),
+      ],
+    });
+    rows.push({
+      cells: [
+        '   Pure error',
+        formatInteger(lof.dfPureError),
+        formatNumber(lof.ssPureError, 5),
+        formatNumber(lof.ssPureError / lof.dfPureError, 5),
+        '',
+        '',
+      ],
+    });
   }
-  rows.push({ cells: ['Total', formatInteger(a.dfRegression + a.dfResidual), formatNumber(a.ssRegression + a.ssResidual, 5), '', '', ''], bold: true });
+  rows.push({
+    cells: ['Total', formatInteger(a.dfRegression + a.dfResidual), formatNumber(a.ssRegression + a.ssResidual, 5), '', '', ''],
+    bold: true,
+  });
   pdf.table({
     caption: 'Analysis of variance of the regression',
     columns: [
@@ -143,17 +184,23 @@ function linearityInWords(pdf: PdfComposer, result: EvaluationResult, x: string,
           : 'The level means deviate from the fitted function no more than the replicates scatter: no evidence that the model is inadequate.'),
     );
   } else {
-    lines.push(`Lack-of-fit test: not evaluated (${result.warnings.find((w) => w.section === 'lackOfFit')?.message ?? 'no replicated levels'}).`);
+    lines.push(
+      `Lack-of-fit test: not evaluated (${result.warnings.find((w) => w.section === 'lackOfFit')?.message ?? 'no replicated levels'}).`,
+    );
   }
   const m = result.mandel;
   if (m) {
     lines.push(
       `Mandel's fitting test (ISO 8466-1): F = ${formatNumber(m.F, 3)} with ${m.df[0]} and ${m.df[1]} degrees of freedom, ${pText(m.p)}; decision level F(99 %) = ${formatNumber(m.critical, 3)}. ` +
         `Residual SD of the straight line ${formatNumber(m.sYXLinear)} ${y}, of the quadratic ${formatNumber(m.sYXQuadratic)} ${y}. ` +
-        (m.significant ? 'The quadratic fits significantly better: the response is curved over this range.' : 'The quadratic does not fit significantly better than the straight line.'),
+        (m.significant
+          ? 'The quadratic fits significantly better: the response is curved over this range.'
+          : 'The quadratic does not fit significantly better than the straight line.'),
     );
   } else {
-    lines.push(`Mandel's fitting test: not evaluated (${result.warnings.find((w) => w.section === 'mandel')?.message ?? 'not applicable'}).`);
+    lines.push(
+      `Mandel's fitting test: not evaluated (${result.warnings.find((w) => w.section === 'mandel')?.message ?? 'not applicable'}).`,
+    );
   }
   const it = result.interceptTest;
   if (it) {
@@ -168,7 +215,9 @@ function linearityInWords(pdf: PdfComposer, result: EvaluationResult, x: string,
     lines.push(
       `Line forced through the origin, for comparison: slope ${formatNumber(o.slope, 5)} (standard error ${formatNumber(o.seSlope, 2)}), s(y/x) ${formatNumber(o.sYX)} ${y}, ` +
         `uncentred R² ${formatFixed(o.r2, 5)}.` +
-        (o.biasAt.length ? ` For the unknowns it would change the result by ${o.biasAt.map((b) => `${b.id}: ${formatNumber(b.bias, 3)} ${x}`).join('; ')}.` : ''),
+        (o.biasAt.length
+          ? ` For the unknowns it would change the result by ${o.biasAt.map((b) => `${b.id}: ${formatNumber(b.bias, 3)} ${x}`).join('; ')}.`
+          : ''),
     );
   }
   pdf.bullets(lines);
@@ -187,15 +236,46 @@ function plots(pdf: PdfComposer, result: EvaluationResult, c: CalibrationResult,
   const level = confidenceWords(result);
   const layers: PlotLayer[] = [];
   if (c.bands?.length) {
-    layers.push({ type: 'band', label: `${level} prediction band`, color: colors.spruceLight, opacity: 0.45, points: c.bands.map((b) => ({ x: b.x, low: b.fit - b.predictionHalfWidth, high: b.fit + b.predictionHalfWidth })) });
-    layers.push({ type: 'band', label: `${level} confidence band`, color: colors.spruceMid, opacity: 0.35, points: c.bands.map((b) => ({ x: b.x, low: b.fit - b.confidenceHalfWidth, high: b.fit + b.confidenceHalfWidth })) });
+    layers.push({
+      type: 'band',
+      label: `${level} prediction band`,
+      color: colors.spruceLight,
+      opacity: 0.45,
+      points: c.bands.map((b) => ({ x: b.x, low: b.fit - b.predictionHalfWidth, high: b.fit + b.predictionHalfWidth })),
+    });
+    layers.push({
+      type: 'band',
+      label: `${level} confidence band`,
+      color: colors.spruceMid,
+      opacity: 0.35,
+      points: c.bands.map((b) => ({ x: b.x, low: b.fit - b.confidenceHalfWidth, high: b.fit + b.confidenceHalfWidth })),
+    });
     layers.push({ type: 'line', label: 'Fitted function', color: colors.spruce, points: c.bands.map((b) => ({ x: b.x, y: b.fit })) });
   } else {
     layers.push({ type: 'line', label: 'Fitted function', color: colors.spruce, points: fittedCurve(c) });
   }
-  layers.push({ type: 'points', label: 'Standards in the fit', color: colors.text, points: c.backCalculated.map((p) => ({ x: p.x, y: p.y })) });
-  if (c.excluded.length) layers.push({ type: 'points', label: 'Excluded standards (not in the fit)', color: colors.fail, hollow: true, radius: 2.8, points: c.excluded.map((p) => ({ x: p.x, y: p.y })) });
-  pdf.plot({ caption: 'Figure 1. Calibration', height: 250, x: { label: `Concentration (${x})`, includeZero: true }, y: { label: `Response (${y})`, includeZero: true }, layers });
+  layers.push({
+    type: 'points',
+    label: 'Standards in the fit',
+    color: colors.text,
+    points: c.backCalculated.map((p) => ({ x: p.x, y: p.y })),
+  });
+  if (c.excluded.length)
+    layers.push({
+      type: 'points',
+      label: 'Excluded standards (not in the fit)',
+      color: colors.fail,
+      hollow: true,
+      radius: 2.8,
+      points: c.excluded.map((p) => ({ x: p.x, y: p.y })),
+    });
+  pdf.plot({
+    caption: 'Figure 1. Calibration',
+    height: 250,
+    x: { label: `Concentration (${x})`, includeZero: true },
+    y: { label: `Response (${y})`, includeZero: true },
+    layers,
+  });
 
   const standardized = c.standardizedResiduals;
   const residuals = standardized ?? c.residuals;
@@ -205,7 +285,12 @@ function plots(pdf: PdfComposer, result: EvaluationResult, c: CalibrationResult,
     residualLayers.push({ type: 'hline', label: '±2 (about 95 % of residuals fall inside)', y: 2, color: colors.warning, dashed: true });
     residualLayers.push({ type: 'hline', y: -2, color: colors.warning, dashed: true });
   }
-  residualLayers.push({ type: 'points', label: standardized ? 'Standardised residual' : `Residual (${y})`, color: colors.spruce, points: c.backCalculated.map((p, i) => ({ x: p.x, y: residuals[i] })) });
+  residualLayers.push({
+    type: 'points',
+    label: standardized ? 'Standardised residual' : `Residual (${y})`,
+    color: colors.spruce,
+    points: c.backCalculated.map((p, i) => ({ x: p.x, y: residuals[i] })),
+  });
   const peak = Math.max(2.5, ...residuals.map(Math.abs));
   pdf.plot({
     caption: 'Figure 2. Residuals',
@@ -228,7 +313,15 @@ function levelTables(pdf: PdfComposer, c: CalibrationResult, x: string, y: strin
       { header: 'Mean %RE', width: 0.9, align: 'right' },
       { header: 'RSD %', width: 0.8, align: 'right' },
     ],
-    rows: c.levels.map((l) => [formatLevel(l.x), String(l.n), formatNumber(l.yMean, 5), formatNumber(l.ySd, 3), formatNumber(l.xBackMean, 4), formatFixed(l.rePct, 2), formatFixed(l.rsdPct, 2)]),
+    rows: c.levels.map((l) => [
+      formatLevel(l.x),
+      String(l.n),
+      formatNumber(l.yMean, 5),
+      formatNumber(l.ySd, 3),
+      formatNumber(l.xBackMean, 4),
+      formatFixed(l.rePct, 2),
+      formatFixed(l.rsdPct, 2),
+    ]),
   });
   pdf.table({
     caption: 'Back-calculated standards',
@@ -239,7 +332,13 @@ function levelTables(pdf: PdfComposer, c: CalibrationResult, x: string, y: strin
       { header: `Back-calculated x (${x})`, width: 1.5, align: 'right' },
       { header: '%RE', width: 0.8, align: 'right' },
     ],
-    rows: c.backCalculated.map((p) => [String(p.index + 1), formatLevel(p.x), formatNumber(p.y, 5), formatNumber(p.xBack, 4), formatFixed(p.rePct, 2)]),
+    rows: c.backCalculated.map((p) => [
+      String(p.index + 1),
+      formatLevel(p.x),
+      formatNumber(p.y, 5),
+      formatNumber(p.xBack, 4),
+      formatFixed(p.rePct, 2),
+    ]),
     note: '%RE = 100 (back-calculated x - x) / x; not defined at x = 0. Standards are numbered in the order of the study data.',
   });
 }
@@ -261,7 +360,15 @@ function samples(pdf: PdfComposer, result: EvaluationResult, x: string, y: strin
       rows: unknowns.map((u) => {
         const estimate = formatEstimate(u.x0, u.sX0);
         const format = (v: number) => (estimate.decimals === null ? formatNumber(v) : formatFixed(v, estimate.decimals));
-        return [u.id, String(u.m), formatNumber(u.yMean, 5), formatLevel(u.dilution), estimate.value, formatInterval(u.ci, format), u.flags.map((f) => FLAG_WORDS[f]).join('; ') || 'none'];
+        return [
+          u.id,
+          String(u.m),
+          formatNumber(u.yMean, 5),
+          formatLevel(u.dilution),
+          estimate.value,
+          formatInterval(u.ci, format),
+          u.flags.map((f) => FLAG_WORDS[f]).join('; ') || 'none',
+        ];
       }),
     });
   }
@@ -269,7 +376,12 @@ function samples(pdf: PdfComposer, result: EvaluationResult, x: string, y: strin
   if (checks.length) {
     pdf.table({
       caption: 'Check standards',
-      columns: [{ header: 'Check', width: 1.4 }, { header: `Nominal (${x})`, align: 'right' }, { header: `Found (${x})`, align: 'right' }, { header: 'Recovery %', align: 'right' }],
+      columns: [
+        { header: 'Check', width: 1.4 },
+        { header: `Nominal (${x})`, align: 'right' },
+        { header: `Found (${x})`, align: 'right' },
+        { header: 'Recovery %', align: 'right' },
+      ],
       rows: checks.map((c) => [c.id, formatLevel(c.nominal), formatNumber(c.found), formatPercent(c.recoveryPct)]),
     });
   }
@@ -279,7 +391,11 @@ function samples(pdf: PdfComposer, result: EvaluationResult, x: string, y: strin
     const names: Record<string, string> = { 'range.rePct': 'Mean %RE', 'range.rsdPct': 'RSD %', 'range.recoveryPct': 'Mean recovery %' };
     pdf.table({
       caption: `Working range: ${formatLevel(range.low)} to ${formatLevel(range.high)} ${x}`,
-      columns: [{ header: `Level (${x})`, align: 'right' }, ...figures.map((f) => ({ header: names[f] ?? f, align: 'right' as const })), { header: 'Per-level criteria', align: 'center' }],
+      columns: [
+        { header: `Level (${x})`, align: 'right' },
+        ...figures.map((f) => ({ header: names[f] ?? f, align: 'right' as const })),
+        { header: 'Per-level criteria', align: 'center' },
+      ],
       rows: range.levels.map((l) => [formatLevel(l.x), ...figures.map((f) => formatFixed(l.values[f], 2)), criterionOutcomeLabel(l.pass)]),
       note: `The working range is the longest run of adjacent levels at which every per-level criterion is met (basis: ${range.basis === 'standards' ? 'back-calculated standards' : 'recovery by level'}).`,
     });
@@ -303,5 +419,14 @@ export function calibrationSection(pdf: PdfComposer, content: ReportContent): vo
   plots(pdf, result, c, x, y);
   levelTables(pdf, c, x, y);
   samples(pdf, result, x, y);
-  sectionWarnings(pdf, result, ['calibration', 'lackOfFit', 'mandel', 'interceptTest', 'throughOrigin', 'homoscedasticity', 'unknowns', 'range']);
+  sectionWarnings(pdf, result, [
+    'calibration',
+    'lackOfFit',
+    'mandel',
+    'interceptTest',
+    'throughOrigin',
+    'homoscedasticity',
+    'unknowns',
+    'range',
+  ]);
 }

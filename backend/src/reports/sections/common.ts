@@ -32,18 +32,23 @@ export function confidenceWords(result: EvaluationResult): string {
 /** The engine's own words for why a section has no numbers. */
 export function notEvaluated(pdf: PdfComposer, result: EvaluationResult | null, sections: string[]): void {
   if (!result) {
-    pdf.paragraph('Not evaluated: the study data cannot be evaluated yet (the reasons are listed in the summary).', { color: colors.muted });
+    pdf.paragraph('Not evaluated: the study data cannot be evaluated yet (the reasons are listed in the summary).', {
+      color: colors.muted,
+    });
     return;
   }
   const reasons = result.warnings.filter((w) => sections.includes(w.section)).map((w) => w.message);
-  const text = reasons.length ? `Not evaluated: ${[...new Set(reasons)].join('; ')}.` : 'Not evaluated: the study has no inputs for this part.';
+  const text = reasons.length
+    ? `Not evaluated: ${[...new Set(reasons)].join('; ')}.`
+    : 'Not evaluated: the study has no inputs for this part.';
   pdf.paragraph(text, { color: colors.muted });
 }
 
 /** Engine warnings for a section, printed under its figures. */
 export function sectionWarnings(pdf: PdfComposer, result: EvaluationResult, sections: string[]): void {
   const warnings = result.warnings.filter((w) => sections.includes(w.section) && w.code !== 'no_inputs');
-  if (warnings.length) pdf.paragraph(`Engine notes: ${[...new Set(warnings.map((w) => w.message))].join('; ')}.`, { size: sizes.small, color: colors.muted });
+  if (warnings.length)
+    pdf.paragraph(`Engine notes: ${[...new Set(warnings.map((w) => w.message))].join('; ')}.`, { size: sizes.small, color: colors.muted });
 }
 
 export function plural(count: number, one: string, many = `${one}s`): string {

@@ -10,7 +10,8 @@ const STATUS_WORDS: Record<ReportContent['study']['status'], string> = {
 };
 
 function performed(meta: ReportContent['study']['meta']): string {
-  if (meta.startedOn && meta.finishedOn && meta.startedOn !== meta.finishedOn) return `${formatDate(meta.startedOn)} to ${formatDate(meta.finishedOn)}`;
+  if (meta.startedOn && meta.finishedOn && meta.startedOn !== meta.finishedOn)
+    return `${formatDate(meta.startedOn)} to ${formatDate(meta.finishedOn)}`;
   return formatDate(meta.startedOn ?? meta.finishedOn);
 }
 
@@ -44,13 +45,21 @@ export function coverPage(pdf: PdfComposer, content: ReportContent): void {
   if (!study.result) {
     pdf.callout('Not evaluated', ['The study data could not be evaluated yet; see the statistics sections for the reasons.'], 'warning');
   } else if (!verdict || verdict.pass === null) {
-    pdf.callout('No acceptance criteria', ['The method version names no acceptance criteria: the figures are reported without a pass or fail verdict.'], 'neutral');
+    pdf.callout(
+      'No acceptance criteria',
+      ['The method version names no acceptance criteria: the figures are reported without a pass or fail verdict.'],
+      'neutral',
+    );
   } else {
     const failed = verdict.criteria.filter((c) => !c.pass).length;
     const total = verdict.criteria.length;
     pdf.callout(
       verdict.pass ? 'Overall: Pass' : 'Overall: Fail',
-      [verdict.pass ? `All ${total} acceptance criteria are met.` : `${failed} of ${total} acceptance criteria are not met (see the summary).`],
+      [
+        verdict.pass
+          ? `All ${total} acceptance criteria are met.`
+          : `${failed} of ${total} acceptance criteria are not met (see the summary).`,
+      ],
       verdict.pass ? 'pass' : 'fail',
     );
   }

@@ -19,7 +19,10 @@ export function reportedLimits(result: EvaluationResult): ReportedLimits | null 
   return limits && limits.lod !== null ? { approach, lod: limits.lod, loq: limits.loq } : null;
 }
 
-function limitsOf(detection: DetectionResult, approach: DetectionApproach): { critical: number | null; lod: number | null; loq: number | null } | null {
+function limitsOf(
+  detection: DetectionResult,
+  approach: DetectionApproach,
+): { critical: number | null; lod: number | null; loq: number | null } | null {
   switch (approach) {
     case 'sdResidual':
     case 'sdIntercept':
@@ -86,10 +89,21 @@ export function detectionSection(pdf: PdfComposer, content: ReportContent): void
 
   const details: [string, string][] = [];
   const { sdResidual, sdIntercept, blankSd, iso11843, hubauxVos, epaMdl } = detection;
-  if (sdResidual) details.push(['Residual SD', `σ = ${withUnit(formatNumber(sdResidual.sigma), y)}, slope ${formatNumber(sdResidual.slope, 5)}; LOD = 3.3 σ / slope, LOQ = 10 σ / slope`]);
-  if (sdIntercept) details.push(['SD of the intercept', `σ = ${withUnit(formatNumber(sdIntercept.sigma), y)}, slope ${formatNumber(sdIntercept.slope, 5)}`]);
+  if (sdResidual)
+    details.push([
+      'Residual SD',
+      `σ = ${withUnit(formatNumber(sdResidual.sigma), y)}, slope ${formatNumber(sdResidual.slope, 5)}; LOD = 3.3 σ / slope, LOQ = 10 σ / slope`,
+    ]);
+  if (sdIntercept)
+    details.push([
+      'SD of the intercept',
+      `σ = ${withUnit(formatNumber(sdIntercept.sigma), y)}, slope ${formatNumber(sdIntercept.slope, 5)}`,
+    ]);
   if (blankSd) {
-    details.push(['Blanks', `n = ${blankSd.n}, mean ${withUnit(formatNumber(blankSd.mean), y)}, SD ${withUnit(formatNumber(blankSd.sigma), y)}`]);
+    details.push([
+      'Blanks',
+      `n = ${blankSd.n}, mean ${withUnit(formatNumber(blankSd.mean), y)}, SD ${withUnit(formatNumber(blankSd.sigma), y)}`,
+    ]);
     details.push([
       'Mean blank + 3 SD / + 10 SD',
       `responses ${formatNumber(blankSd.responseLod)} / ${formatNumber(blankSd.responseLoq)} ${y}, i.e. ${formatNumber(blankSd.responseLodX, 3)} / ${formatNumber(blankSd.responseLoqX, 3)} ${x} (IUPAC, common practice)`,
@@ -101,9 +115,15 @@ export function detectionSection(pdf: PdfComposer, content: ReportContent): void
       `K = ${iso11843.K} reading, ν = ${iso11843.df}, α = β = ${result.alpha}; critical response ${withUnit(formatNumber(iso11843.criticalResponse), y)}; δ = ${formatNumber(iso11843.delta)}`,
     ]);
   }
-  if (hubauxVos) details.push(['Hubaux and Vos', `ν = ${hubauxVos.df}; critical response ${withUnit(formatNumber(hubauxVos.criticalResponse), y)}`]);
+  if (hubauxVos)
+    details.push(['Hubaux and Vos', `ν = ${hubauxVos.df}; critical response ${withUnit(formatNumber(hubauxVos.criticalResponse), y)}`]);
   if (epaMdl) {
-    const rule = { 'none-numeric': 'no numerical blank results', highest: 'highest blank result', rank: 'blank result at the 99th-percentile rank', 'mean-plus-t-sd': 'mean + t(0.99) SD of the blanks' };
+    const rule = {
+      'none-numeric': 'no numerical blank results',
+      highest: 'highest blank result',
+      rank: 'blank result at the 99th-percentile rank',
+      'mean-plus-t-sd': 'mean + t(0.99) SD of the blanks',
+    };
     details.push([
       'MDL (40 CFR 136 App. B)',
       `${epaMdl.nSpiked} spiked samples: MDL_s = ${withUnit(formatNumber(epaMdl.mdlSpiked, 3), x)}; ${epaMdl.nBlanks} method blanks: MDL_b = ${withUnit(formatNumber(epaMdl.mdlBlank, 3), x)}` +
@@ -116,7 +136,9 @@ export function detectionSection(pdf: PdfComposer, content: ReportContent): void
   }
   const unknownsBelow = (result.unknowns ?? []).filter((u) => u.flags.includes('belowLod') || u.flags.includes('belowLoq'));
   if (unknownsBelow.length) {
-    pdf.paragraph(`${unknownsBelow.length} unknown sample(s) fall below the reported LOD or LOQ (see the calibration section).`, { size: 8.5 });
+    pdf.paragraph(`${unknownsBelow.length} unknown sample(s) fall below the reported LOD or LOQ (see the calibration section).`, {
+      size: 8.5,
+    });
   }
   sectionWarnings(pdf, result, ['detection']);
 }

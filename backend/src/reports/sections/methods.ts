@@ -12,14 +12,14 @@ const FORMULAS: [topic: string, lines: string[]][] = [
       'Intervals: estimate ± t((1 + C)/2; df) × standard error, with C the confidence level of the study.',
       'Weighted fits: weights 1/x or 1/x², scaled to sum to n, in every sum above. Quadratic fits: y = a + b x + c x² by least squares, df = n - 3.',
       'Bands at x: confidence half-width t s(y/x) sqrt(1/n + (x - xm)²/Sxx); prediction half-width (one new reading) t s(y/x) sqrt(1 + 1/n + (x - xm)²/Sxx).',
-      'Back-calculated standards x\' = (y - a) / b and %RE = 100 (x\' - x) / x. Standardised residual e / s(y/x).',
+      "Back-calculated standards x' = (y - a) / b and %RE = 100 (x' - x) / x. Standardised residual e / s(y/x).",
     ],
   ],
   [
     'Linearity and weighting',
     [
       'Lack of fit: F = (SS_lof / df_lof) / (SS_pe / df_pe), with pure error from the replicates at each level (Draper and Smith).',
-      'Mandel\'s test: F = ((n - 2) s1² - (n - 3) s2²) / s2² with 1 and n - 3 degrees of freedom, decision at 99 % (ISO 8466-1; DIN 38402-51).',
+      "Mandel's test: F = ((n - 2) s1² - (n - 3) s2²) / s2² with 1 and n - 3 degrees of freedom, decision at 99 % (ISO 8466-1; DIN 38402-51).",
       'Intercept: t = a / s_a with n - 2 degrees of freedom. Variance check: F = s²(highest level) / s²(lowest level), one-sided at 99 %; the weighting with the smallest sum of |%RE| is recommended (common practice).',
     ],
   ],
@@ -65,7 +65,7 @@ const REFERENCES = [
 export function methodsSection(pdf: PdfComposer, content: ReportContent, attachmentSha256: string): void {
   pdf.heading('6  Statistical methods and references');
   pdf.paragraph(
-    'All figures come from the Meritline statistics engine. Standard deviations use the n - 1 divisor; t and F are quantiles of Student\'s t and Fisher\'s F distributions.',
+    "All figures come from the Meritline statistics engine. Standard deviations use the n - 1 divisor; t and F are quantiles of Student's t and Fisher's F distributions.",
   );
   for (const [topic, lines] of FORMULAS) {
     pdf.heading(topic, 3);
@@ -85,5 +85,8 @@ export function methodsSection(pdf: PdfComposer, content: ReportContent, attachm
     ],
     'neutral',
   );
-  pdf.paragraph('Canonical JSON: keys sorted, no spaces, numbers in their shortest round-trip form (the scheme of RFC 8785).', { size: sizes.small, color: colors.muted });
+  pdf.paragraph('Canonical JSON: keys sorted, no spaces, numbers in their shortest round-trip form (the scheme of RFC 8785).', {
+    size: sizes.small,
+    color: colors.muted,
+  });
 }

@@ -10,7 +10,13 @@ const TEST_WORDS: Record<OutlierFlag['test'], string> = {
   standardizedResidual: 'Standardised residual',
 };
 
-const SET_WORDS: Record<string, string> = { standards: 'standard', blanks: 'blank', recovery: 'spiked sample', precision: 'precision result', unknowns: 'sample' };
+const SET_WORDS: Record<string, string> = {
+  standards: 'standard',
+  blanks: 'blank',
+  recovery: 'spiked sample',
+  precision: 'precision result',
+  unknowns: 'sample',
+};
 
 type Exclusion = ReportContent['exclusions'][number];
 
@@ -36,7 +42,9 @@ function reasonOf(entry: Exclusion): string {
 
 function exclusions(pdf: PdfComposer, content: ReportContent): void {
   pdf.heading('5.2  Excluded points', 2);
-  const excluded = (content.study.data.standards ?? []).flatMap((p, index) => (p.excluded ? [{ index, x: p.x, y: p.y, reason: p.excluded.reason }] : []));
+  const excluded = (content.study.data.standards ?? []).flatMap((p, index) =>
+    p.excluded ? [{ index, x: p.x, y: p.y, reason: p.excluded.reason }] : [],
+  );
   const recordOf = (index: number) =>
     [...content.exclusions].reverse().find((entry) => {
       const point = pointOf(JSON.stringify(entry.changes ?? {}));
@@ -56,7 +64,14 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
       ],
       rows: excluded.map((p) => {
         const record = recordOf(p.index);
-        return [String(p.index + 1), formatLevel(p.x), formatNumber(p.y, 5), p.reason, record?.actorName ?? 'not in the audit trail', record ? formatDateTime(record.at) : NOT_AVAILABLE];
+        return [
+          String(p.index + 1),
+          formatLevel(p.x),
+          formatNumber(p.y, 5),
+          p.reason,
+          record?.actorName ?? 'not in the audit trail',
+          record ? formatDateTime(record.at) : NOT_AVAILABLE,
+        ];
       }),
       note: 'Excluded points stay in the study data and in the plots (hollow markers) but enter no computation.',
     });
@@ -64,7 +79,12 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
   if (content.exclusions.length) {
     pdf.table({
       caption: 'Exclusion history from the audit trail',
-      columns: [{ header: 'When', width: 1.5 }, { header: 'By', width: 1.2 }, { header: 'Change', width: 1.6 }, { header: 'Reason', width: 2.7 }],
+      columns: [
+        { header: 'When', width: 1.5 },
+        { header: 'By', width: 1.2 },
+        { header: 'Change', width: 1.6 },
+        { header: 'Reason', width: 2.7 },
+      ],
       rows: content.exclusions.map((entry) => [formatDateTime(entry.at), entry.actorName, describeChange(entry), reasonOf(entry)]),
     });
   }
@@ -84,7 +104,14 @@ export function outliersSection(pdf: PdfComposer, content: ReportContent): void 
         'Tests only flag: no value was removed because of a test. Points are excluded only by a person, with a reason (section 5.2).',
     );
     const rows: TableRow[] = flags.map((f) => ({
-      cells: [f.set, TEST_WORDS[f.test] ?? f.test, formatNumber(f.value, 5), formatNumber(f.statistic, 3), formatNumber(f.critical, 3), f.outlier ? 'Outlier' : 'No outlier'],
+      cells: [
+        f.set,
+        TEST_WORDS[f.test] ?? f.test,
+        formatNumber(f.value, 5),
+        formatNumber(f.statistic, 3),
+        formatNumber(f.critical, 3),
+        f.outlier ? 'Outlier' : 'No outlier',
+      ],
       bold: f.outlier,
       shaded: f.outlier,
     }));

@@ -1,5 +1,16 @@
 import type { EvaluationResult, RecoveryGroup } from '@meritline/shared';
-import { formatFixed, formatInteger, formatInterval, formatNumber, formatPercent, formatPValue, NOT_AVAILABLE, withUnit, type PdfComposer, type TableRow } from '../pdf/index.js';
+import {
+  formatFixed,
+  formatInteger,
+  formatInterval,
+  formatNumber,
+  formatPercent,
+  formatPValue,
+  NOT_AVAILABLE,
+  withUnit,
+  type PdfComposer,
+  type TableRow,
+} from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { confidenceWords, notEvaluated, sectionWarnings, xUnit } from './common.js';
 
@@ -39,7 +50,14 @@ function recovery(pdf: PdfComposer, content: ReportContent, result: EvaluationRe
     ],
     rows: r.items.map((item, i) => {
       const input = items.find((candidate) => candidate.id === item.id) ?? items[i];
-      return [item.id, item.level ?? NOT_AVAILABLE, input ? String(input.added) : NOT_AVAILABLE, input ? String(input.native ?? 0) : NOT_AVAILABLE, input ? String(input.found) : NOT_AVAILABLE, formatPercent(item.pct)];
+      return [
+        item.id,
+        item.level ?? NOT_AVAILABLE,
+        input ? String(input.added) : NOT_AVAILABLE,
+        input ? String(input.native ?? 0) : NOT_AVAILABLE,
+        input ? String(input.found) : NOT_AVAILABLE,
+        formatPercent(item.pct),
+      ];
     }),
     note: 'Recovery % = 100 (found - native) / added.',
   });
@@ -74,12 +92,26 @@ function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationR
   const x = xUnit(content);
   pdf.table({
     caption: 'Series',
-    columns: [{ header: 'Series', width: 1.6 }, { header: 'n', width: 0.5, align: 'right' }, { header: `Mean (${x})`, align: 'right' }, { header: `SD (${x})`, align: 'right' }],
+    columns: [
+      { header: 'Series', width: 1.6 },
+      { header: 'n', width: 0.5, align: 'right' },
+      { header: `Mean (${x})`, align: 'right' },
+      { header: `SD (${x})`, align: 'right' },
+    ],
     rows: p.series.map((s) => [s.group, String(s.n), formatNumber(s.mean, 5), formatNumber(s.sd, 3)]),
   });
   const total = (p.ssBetween ?? 0) + p.ssWithin;
   const rows: TableRow[] = [
-    { cells: ['Between series', formatInteger(p.dfBetween), formatNumber(p.ssBetween, 4), formatNumber(p.msBetween, 4), formatNumber(p.F, 4), formatPValue(p.p)] },
+    {
+      cells: [
+        'Between series',
+        formatInteger(p.dfBetween),
+        formatNumber(p.ssBetween, 4),
+        formatNumber(p.msBetween, 4),
+        formatNumber(p.F, 4),
+        formatPValue(p.p),
+      ],
+    },
     { cells: ['Within series', formatInteger(p.dfWithin), formatNumber(p.ssWithin, 4), formatNumber(p.msWithin, 4), '', ''] },
     { cells: ['Total', formatInteger(p.N - 1), formatNumber(total, 4), '', '', ''], bold: true },
   ];
@@ -96,10 +128,19 @@ function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationR
     rows,
   });
   const pairs: [string, string][] = [
-    ['Results', `N = ${p.N} in k = ${p.k} series; grand mean ${withUnit(formatNumber(p.grandMean, 5), x)}${p.n0 === null ? '' : `; n0 = ${formatNumber(p.n0, 3)}`}`],
-    ['Repeatability', `s_r = ${withUnit(formatNumber(p.sR, 3), x)}, RSD_r = ${p.rsdR === null ? NOT_AVAILABLE : `${formatPercent(p.rsdR)} %`}`],
+    [
+      'Results',
+      `N = ${p.N} in k = ${p.k} series; grand mean ${withUnit(formatNumber(p.grandMean, 5), x)}${p.n0 === null ? '' : `; n0 = ${formatNumber(p.n0, 3)}`}`,
+    ],
+    [
+      'Repeatability',
+      `s_r = ${withUnit(formatNumber(p.sR, 3), x)}, RSD_r = ${p.rsdR === null ? NOT_AVAILABLE : `${formatPercent(p.rsdR)} %`}`,
+    ],
     ['Between-series SD', p.sBetween === null ? NOT_AVAILABLE : withUnit(formatNumber(p.sBetween, 3), x)],
-    ['Intermediate precision', `s_I = ${withUnit(formatNumber(p.sI, 3), x)}, RSD_I = ${p.rsdI === null ? NOT_AVAILABLE : `${formatPercent(p.rsdI)} %`}`],
+    [
+      'Intermediate precision',
+      `s_I = ${withUnit(formatNumber(p.sI, 3), x)}, RSD_I = ${p.rsdI === null ? NOT_AVAILABLE : `${formatPercent(p.rsdI)} %`}`,
+    ],
   ];
   if (p.horwitz) {
     pairs.push([

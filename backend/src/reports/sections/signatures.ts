@@ -46,10 +46,16 @@ export function signaturesSection(pdf: PdfComposer, content: ReportContent): voi
       s.contentHash.slice(0, 12),
     ]),
     empty: 'No electronic signature yet.',
-    note: resubmitted ? `The study was returned and submitted again; the signatures of submission ${round} cover the data in this report.` : undefined,
+    note: resubmitted
+      ? `The study was returned and submitted again; the signatures of submission ${round} cover the data in this report.`
+      : undefined,
   });
   const withComment = content.signatures.filter((s) => s.comment);
-  if (withComment.length) pdf.bullets(withComment.map((s) => `${s.signerName} (${formatDateTime(s.signedAt)}): ${s.comment}`), { size: 8.5 });
+  if (withComment.length)
+    pdf.bullets(
+      withComment.map((s) => `${s.signerName} (${formatDateTime(s.signedAt)}): ${s.comment}`),
+      { size: 8.5 },
+    );
   const justified = content.signatures.filter((s) => s.justification);
   if (justified.length) {
     pdf.heading('Approved although not all criteria are met', 3);
@@ -91,7 +97,7 @@ export function cautionSection(pdf: PdfComposer, content: ReportContent): void {
     'This report supports decisions; it does not make them',
     [
       'The figures are computed from the data entered in the study. Whether the method is fit for its intended use, for example for drinking water, ' +
-        'food or products released to the market, remains the decision of qualified staff under the laboratory\'s procedures, its quality system ' +
+        "food or products released to the market, remains the decision of qualified staff under the laboratory's procedures, its quality system " +
         'and the regulations and accreditation requirements that apply to it.',
       'Statistical tests answer the questions they were built for at the stated confidence level; they do not replace scientific judgement, ' +
         'a review of the raw records or the checks your procedures require.',

@@ -35,7 +35,14 @@ export function studyDataAppendix(pdf: PdfComposer, content: ReportContent): voi
         { header: 'SD of y', width: 0.8, align: 'right' },
         { header: 'Excluded because', width: 2.6 },
       ],
-      rows: data.standards.map((s, i) => [String(i + 1), s.id ?? '', String(s.x), String(s.y), s.sd === undefined ? '' : String(s.sd), s.excluded?.reason ?? '']),
+      rows: data.standards.map((s, i) => [
+        String(i + 1),
+        s.id ?? '',
+        String(s.x),
+        String(s.y),
+        s.sd === undefined ? '' : String(s.sd),
+        s.excluded?.reason ?? '',
+      ]),
       fontSize: 8,
     });
   }
@@ -45,13 +52,20 @@ export function studyDataAppendix(pdf: PdfComposer, content: ReportContent): voi
     lines.push([`Low-level spikes (${x})`, list(data.lowSpikes.spiked)]);
     if (data.lowSpikes.blanks) lines.push([`Method blanks (${x})`, list(data.lowSpikes.blanks)]);
   }
-  for (const u of data.unknowns ?? []) lines.push([`Sample ${u.id} (${y})`, `${list(u.y)}${u.dilution && u.dilution !== 1 ? `; dilution ${u.dilution}` : ''}`]);
+  for (const u of data.unknowns ?? [])
+    lines.push([`Sample ${u.id} (${y})`, `${list(u.y)}${u.dilution && u.dilution !== 1 ? `; dilution ${u.dilution}` : ''}`]);
   for (const c of data.checks ?? []) lines.push([`Check ${c.id} (${y})`, `${list(c.y)}; nominal ${c.nominal} ${x}`]);
   if (lines.length) pdf.keyValues(lines, { labelWidth: 150, size: 8.5 });
   if (data.recovery?.length) {
     pdf.table({
       caption: 'Spiked samples',
-      columns: [{ header: 'Sample' }, { header: 'Level' }, { header: `Added (${x})`, align: 'right' }, { header: `Native (${x})`, align: 'right' }, { header: `Found (${x})`, align: 'right' }],
+      columns: [
+        { header: 'Sample' },
+        { header: 'Level' },
+        { header: `Added (${x})`, align: 'right' },
+        { header: `Native (${x})`, align: 'right' },
+        { header: `Found (${x})`, align: 'right' },
+      ],
       rows: data.recovery.map((r) => [r.id, r.level ?? '', String(r.added), String(r.native ?? 0), String(r.found)]),
       fontSize: 8,
     });
@@ -65,6 +79,9 @@ export function studyDataAppendix(pdf: PdfComposer, content: ReportContent): voi
   }
   if (data.criteria?.length) {
     pdf.heading('Acceptance criteria as evaluated', 3);
-    pdf.bullets(data.criteria.map((c) => describeCriterion(c, { x, y: yUnit(content) })), { size: 8.5 });
+    pdf.bullets(
+      data.criteria.map((c) => describeCriterion(c, { x, y: yUnit(content) })),
+      { size: 8.5 },
+    );
   }
 }

@@ -32,10 +32,18 @@ export function summarySection(pdf: PdfComposer, content: ReportContent): void {
       rows: result.verdict.criteria.map((c) => {
         const described = describeFigure(c.figure, units);
         // The lab's own label often repeats the threshold, which has its own column; it names figures we have no words for.
-        const label = described.label !== c.figure ? described.label : (content.version.criteria.find((v) => v.figure === c.figure && v.op === c.op)?.label ?? c.figure);
+        const label =
+          described.label !== c.figure
+            ? described.label
+            : (content.version.criteria.find((v) => v.figure === c.figure && v.op === c.op)?.label ?? c.figure);
         const value = formatAgainstCriterion(c.value, described.kind, c.op as CriterionOp, c.threshold, c.pass);
         return {
-          cells: [label, c.value === null ? 'not computed' : withUnit(value, described.unit), criterionInWords(c.op, c.threshold, described.unit), criterionOutcomeLabel(c.pass)],
+          cells: [
+            label,
+            c.value === null ? 'not computed' : withUnit(value, described.unit),
+            criterionInWords(c.op, c.threshold, described.unit),
+            criterionOutcomeLabel(c.pass),
+          ],
           bold: !c.pass,
         };
       }),
@@ -46,7 +54,10 @@ export function summarySection(pdf: PdfComposer, content: ReportContent): void {
   pdf.heading('Conclusion', 3);
   pdf.paragraph(conclusion(result));
   if (!result && content.study.resultErrors?.length) {
-    pdf.bullets(content.study.resultErrors.map((e) => `${e.field}: ${e.message}`), { size: 8.5 });
+    pdf.bullets(
+      content.study.resultErrors.map((e) => `${e.field}: ${e.message}`),
+      { size: 8.5 },
+    );
   }
   if (content.study.meta.conclusion) pdf.paragraph(`Conclusion stated in the study: ${content.study.meta.conclusion}`);
   pdf.space(4);
@@ -57,13 +68,21 @@ export function summarySection(pdf: PdfComposer, content: ReportContent): void {
   pdf.heading('Key figures', 3);
   pdf.keyValues(
     [
-      ['Calibration', calibration ? `${MODEL_WORDS[result.model]}, ${WEIGHTING_WORDS[result.weighting]}; ${calibration.n} standards from ${formatLevel(calibration.xMin)} to ${formatLevel(calibration.xMax)} ${units.x}` : NOT_AVAILABLE],
+      [
+        'Calibration',
+        calibration
+          ? `${MODEL_WORDS[result.model]}, ${WEIGHTING_WORDS[result.weighting]}; ${calibration.n} standards from ${formatLevel(calibration.xMin)} to ${formatLevel(calibration.xMax)} ${units.x}`
+          : NOT_AVAILABLE,
+      ],
       ['R²', calibration?.r2 == null ? NOT_AVAILABLE : formatNumber(calibration.r2, 5)],
       ['Working range', result.range ? `${formatLevel(result.range.low)} to ${formatLevel(result.range.high)} ${units.x}` : NOT_AVAILABLE],
       ['Reported LOD', limits ? withUnit(formatNumber(limits.lod, 3), units.x) : NOT_AVAILABLE],
       ['Reported LOQ', limits?.loq == null ? NOT_AVAILABLE : withUnit(formatNumber(limits.loq, 3), units.x)],
       ['Limits from', limits ? APPROACH_LABELS[limits.approach] : NOT_AVAILABLE],
-      ['Mean recovery', result.recovery ? `${formatPercent(result.recovery.overall.meanPct)} % (n = ${result.recovery.overall.n})` : NOT_AVAILABLE],
+      [
+        'Mean recovery',
+        result.recovery ? `${formatPercent(result.recovery.overall.meanPct)} % (n = ${result.recovery.overall.n})` : NOT_AVAILABLE,
+      ],
       ['Repeatability RSD', result.precision?.rsdR == null ? NOT_AVAILABLE : `${formatPercent(result.precision.rsdR)} %`],
       ['Intermediate precision RSD', result.precision?.rsdI == null ? NOT_AVAILABLE : `${formatPercent(result.precision.rsdI)} %`],
     ],

@@ -41,7 +41,9 @@ export class LabCertificateService implements OnModuleInit {
   /** Signs a finished PDF, or refuses with the reason when no usable certificate is configured. */
   async sign(pdf: Buffer, details: Omit<SignatureDetails, 'name'>): Promise<Buffer> {
     if (!this.certificate) {
-      throw new ServiceUnavailableException(`The report cannot be signed, so it was not issued: ${this.problem ?? 'no signing certificate'}.`);
+      throw new ServiceUnavailableException(
+        `The report cannot be signed, so it was not issued: ${this.problem ?? 'no signing certificate'}.`,
+      );
     }
     return signPdf(pdf, this.certificate.p12, this.certificate.passphrase, { ...details, name: this.certificate.commonName });
   }
@@ -56,10 +58,13 @@ export class LabCertificateService implements OnModuleInit {
     const passphrase = this.config.signing.p12Passphrase;
     try {
       const summary = readP12(p12, passphrase);
-      if (summary.notAfter < new Date()) this.logger.warn(`The signing certificate "${summary.commonName}" expired on ${summary.notAfter.toISOString()}.`);
+      if (summary.notAfter < new Date())
+        this.logger.warn(`The signing certificate "${summary.commonName}" expired on ${summary.notAfter.toISOString()}.`);
       return { p12, passphrase, commonName: summary.commonName, selfSigned: false };
     } catch (error) {
-      throw new Error(`the certificate file ${path} cannot be opened with SIGNING_P12_PASSPHRASE: ${(error as Error).message}`, { cause: error });
+      throw new Error(`the certificate file ${path} cannot be opened with SIGNING_P12_PASSPHRASE: ${(error as Error).message}`, {
+        cause: error,
+      });
     }
   }
 

@@ -29,7 +29,10 @@ export function createSelfSignedP12(laboratoryName: string, passphrase: string, 
     { name: 'subjectKeyIdentifier' },
   ]);
   cert.sign(key, forge.md.sha256.create());
-  const p12 = forge.pkcs12.toPkcs12Asn1(key, [cert], passphrase, { algorithm: '3des', friendlyName: laboratoryName.slice(0, MAX_COMMON_NAME) });
+  const p12 = forge.pkcs12.toPkcs12Asn1(key, [cert], passphrase, {
+    algorithm: '3des',
+    friendlyName: laboratoryName.slice(0, MAX_COMMON_NAME),
+  });
   return Buffer.from(forge.asn1.toDer(p12).getBytes(), 'binary');
 }
 

@@ -1,18 +1,4 @@
-import {
-  Avatar,
-  Box,
-  Button,
-  CloseButton,
-  Drawer,
-  Flex,
-  HStack,
-  IconButton,
-  Link,
-  Menu,
-  Portal,
-  Stack,
-  Text,
-} from '@chakra-ui/react';
+import { Avatar, Box, Button, CloseButton, Drawer, Flex, HStack, IconButton, Link, Menu, Portal, Stack, Text } from '@chakra-ui/react';
 import type { Role } from '@meritline/shared';
 import { useState, type ReactNode } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
@@ -147,7 +133,14 @@ function Wordmark({ onRail = false }: { onRail?: boolean }) {
         <HStack gap="2.5">
           <svg viewBox="0 0 32 32" width="26" height="26" aria-hidden="true">
             <rect width="32" height="32" rx="7" fill={onRail ? 'rgba(255,255,255,0.1)' : 'var(--chakra-colors-spruce-700)'} />
-            <path d="M7 23V9l9 9 9-9v14" fill="none" stroke="var(--chakra-colors-amber-400)" strokeWidth="3" strokeLinecap="round" strokeLinejoin="round" />
+            <path
+              d="M7 23V9l9 9 9-9v14"
+              fill="none"
+              stroke="var(--chakra-colors-amber-400)"
+              strokeWidth="3"
+              strokeLinecap="round"
+              strokeLinejoin="round"
+            />
           </svg>
           <Text as="span" fontWeight="700" fontSize="lg" letterSpacing="-0.01em">
             Meritline
@@ -206,7 +199,16 @@ function UserMenu({ user, onSignOut }: { user: SessionUser; onSignOut: () => voi
 
 function MenuIcon() {
   return (
-    <svg viewBox="0 0 24 24" width="1.2em" height="1.2em" fill="none" stroke="currentColor" strokeWidth="2" strokeLinecap="round" aria-hidden="true">
+    <svg
+      viewBox="0 0 24 24"
+      width="1.2em"
+      height="1.2em"
+      fill="none"
+      stroke="currentColor"
+      strokeWidth="2"
+      strokeLinecap="round"
+      aria-hidden="true"
+    >
       <path d="M4 7h16M4 12h16M4 17h16" />
     </svg>
   );

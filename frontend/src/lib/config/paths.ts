@@ -22,7 +22,8 @@ export const paths = {
   studyNew: { path: '/studies/new', getHref: () => '/studies/new' },
   studyEdit: {
     path: '/studies/:studyId/edit',
-    getHref: (studyId: string, step?: number) => withQuery(`/studies/${encodeURIComponent(studyId)}/edit`, { step: step ? String(step) : undefined }),
+    getHref: (studyId: string, step?: number) =>
+      withQuery(`/studies/${encodeURIComponent(studyId)}/edit`, { step: step ? String(step) : undefined }),
   },
   runs: { path: '/runs', getHref: () => '/runs' },
   runNew: { path: '/runs/new', getHref: (query: { versionId?: string; from?: string } = {}) => withQuery('/runs/new', query) },

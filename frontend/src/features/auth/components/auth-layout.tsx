@@ -28,7 +28,14 @@ export function AuthLayout({ title, intro, children }: AuthLayoutProps) {
         <HStack gap="3">
           <svg viewBox="0 0 32 32" width="34" height="34" aria-hidden="true">
             <rect width="32" height="32" rx="7" fill="rgba(255,255,255,0.1)" />
-            <path d="M7 23V9l9 9 9-9v14" fill="none" stroke="var(--chakra-colors-amber-400)" strokeWidth="3" strokeLinecap="round" strokeLinejoin="round" />
+            <path
+              d="M7 23V9l9 9 9-9v14"
+              fill="none"
+              stroke="var(--chakra-colors-amber-400)"
+              strokeWidth="3"
+              strokeLinecap="round"
+              strokeLinejoin="round"
+            />
           </svg>
           <Text fontWeight="700" fontSize="2xl" letterSpacing="-0.01em">
             Meritline

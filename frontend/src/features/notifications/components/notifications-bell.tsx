@@ -22,13 +22,40 @@ export function NotificationsBell() {
   };
 
   return (
-    <Popover.Root open={open} onOpenChange={(event) => setOpen(event.open)} positioning={{ placement: 'bottom-end' }} lazyMount unmountOnExit>
+    <Popover.Root
+      open={open}
+      onOpenChange={(event) => setOpen(event.open)}
+      positioning={{ placement: 'bottom-end' }}
+      lazyMount
+      unmountOnExit
+    >
       <Popover.Trigger asChild>
-        <IconButton variant="ghost" size="sm" aria-label={unread ? `Notifications: ${unread} unread` : 'Notifications'} position="relative" data-testid="notifications-bell">
+        <IconButton
+          variant="ghost"
+          size="sm"
+          aria-label={unread ? `Notifications: ${unread} unread` : 'Notifications'}
+          position="relative"
+          data-testid="notifications-bell"
+        >
           <BellIcon />
           {unread > 0 && (
             <Float placement="top-end" offset="1.5">
-              <Box as="span" display="inline-flex" alignItems="center" justifyContent="center" minW="18px" h="18px" px="1" borderRadius="full" bg="red.solid" color="white" fontSize="11px" fontWeight="700" lineHeight="1" data-testid="notifications-unread">
+              <Box
+                as="span"
+                display="inline-flex"
+                alignItems="center"
+                justifyContent="center"
+                minW="18px"
+                h="18px"
+                px="1"
+                borderRadius="full"
+                bg="red.solid"
+                color="white"
+                fontSize="11px"
+                fontWeight="700"
+                lineHeight="1"
+                data-testid="notifications-unread"
+              >
                 {unread > 99 ? '99+' : unread}
               </Box>
             </Float>
@@ -84,7 +111,17 @@ export function NotificationsBell() {
 
 function BellIcon() {
   return (
-    <svg viewBox="0 0 24 24" width="1.2em" height="1.2em" fill="none" stroke="currentColor" strokeWidth="2" strokeLinecap="round" strokeLinejoin="round" aria-hidden="true">
+    <svg
+      viewBox="0 0 24 24"
+      width="1.2em"
+      height="1.2em"
+      fill="none"
+      stroke="currentColor"
+      strokeWidth="2"
+      strokeLinecap="round"
+      strokeLinejoin="round"
+      aria-hidden="true"
+    >
       <path d="M6 8a6 6 0 1 1 12 0c0 7 3 9 3 9H3s3-2 3-9" />
       <path d="M10.3 21a1.94 1.94 0 0 0 3.4 0" />
     </svg>

@@ -3,7 +3,16 @@ import { api } from '@/lib/api-client';
 
 /** The server's answer: only a byte-identical copy of an issued report is valid. */
 export type ReportVerification =
-  | { valid: true; studyId: string; studyTitle: string; reportId: string; methodName: string; methodVersion: number; signedAt: string; sha256: string }
+  | {
+      valid: true;
+      studyId: string;
+      studyTitle: string;
+      reportId: string;
+      methodName: string;
+      methodVersion: number;
+      signedAt: string;
+      sha256: string;
+    }
   | { valid: false; reason: string };
 
 export const MAX_REPORT_BYTES = 20 * 1024 * 1024;

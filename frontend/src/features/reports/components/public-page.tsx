@@ -20,7 +20,14 @@ export function PublicPage({ title, children }: { title: string; children: React
             <HStack gap="3">
               <svg viewBox="0 0 32 32" width="28" height="28" aria-hidden="true">
                 <rect width="32" height="32" rx="7" fill="rgba(255,255,255,0.1)" />
-                <path d="M7 23V9l9 9 9-9v14" fill="none" stroke="var(--chakra-colors-amber-400)" strokeWidth="3" strokeLinecap="round" strokeLinejoin="round" />
+                <path
+                  d="M7 23V9l9 9 9-9v14"
+                  fill="none"
+                  stroke="var(--chakra-colors-amber-400)"
+                  strokeWidth="3"
+                  strokeLinecap="round"
+                  strokeLinejoin="round"
+                />
               </svg>
               <Text fontWeight="700" fontSize="lg" letterSpacing="-0.01em">
                 Meritline

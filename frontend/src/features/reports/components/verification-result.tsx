@@ -14,8 +14,8 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
             <Stack gap="2">
               <Text>{verification.reason}</Text>
               <Text>
-                What this means: do not rely on the figures in this file. Ask the laboratory for the original report, or download it again from
-                Meritline.
+                What this means: do not rely on the figures in this file. Ask the laboratory for the original report, or download it again
+                from Meritline.
               </Text>
             </Stack>
           </Alert.Description>
@@ -39,8 +39,8 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
         <Alert.Description>
           <Stack gap="4">
             <Text>
-              This file is, byte for byte, the validation report this laboratory issued and signed. Its digital signature can also be checked in any PDF
-              reader that shows signatures.
+              This file is, byte for byte, the validation report this laboratory issued and signed. Its digital signature can also be
+              checked in any PDF reader that shows signatures.
             </Text>
             <DataList.Root orientation="horizontal" size="sm">
               {rows.map(([label, value]) => (

@@ -40,8 +40,8 @@ export default function VerifyReportPage() {
             {TITLE}
           </Heading>
           <Text color="fg.muted" fontSize="md">
-            Check that a signed Meritline validation report is authentic and has not been changed since it was signed. The file is compared with the
-            reports this laboratory issued; it is not stored. No account is needed.
+            Check that a signed Meritline validation report is authentic and has not been changed since it was signed. The file is compared
+            with the reports this laboratory issued; it is not stored. No account is needed.
           </Text>
         </Stack>
 
@@ -53,11 +53,23 @@ export default function VerifyReportPage() {
           onFileReject={(details) => {
             const error = details.files[0]?.errors[0];
             setFileName(details.files[0]?.file.name ?? null);
-            setRejection(error === 'FILE_TOO_LARGE' ? 'The file is larger than 20 MB, so it cannot be a Meritline report.' : 'Choose a PDF file: a Meritline report is a PDF.');
+            setRejection(
+              error === 'FILE_TOO_LARGE'
+                ? 'The file is larger than 20 MB, so it cannot be a Meritline report.'
+                : 'Choose a PDF file: a Meritline report is a PDF.',
+            );
           }}
         >
           <FileUpload.HiddenInput aria-label="Report to verify (PDF)" />
-          <FileUpload.Dropzone w="full" minH="44" borderWidth="2px" borderStyle="dashed" borderColor="border.emphasized" bg="bg.panel" cursor="pointer">
+          <FileUpload.Dropzone
+            w="full"
+            minH="44"
+            borderWidth="2px"
+            borderStyle="dashed"
+            borderColor="border.emphasized"
+            bg="bg.panel"
+            cursor="pointer"
+          >
             <UploadIcon />
             <FileUpload.DropzoneContent>
               <Box fontWeight="600">Drop the report here, or click to choose it</Box>
@@ -77,15 +89,17 @@ export default function VerifyReportPage() {
           {!rejection && verify.isError && (
             <Alert.Root status="error" variant="surface">
               <Alert.Indicator />
-              <Alert.Title>{isApiError(verify.error) ? verify.error.body.message : 'The file could not be checked. Try again.'}</Alert.Title>
+              <Alert.Title>
+                {isApiError(verify.error) ? verify.error.body.message : 'The file could not be checked. Try again.'}
+              </Alert.Title>
             </Alert.Root>
           )}
           {!rejection && verify.isSuccess && fileName && <VerificationResult fileName={fileName} verification={verify.data} />}
         </Box>
 
         <Text fontSize="sm" color="fg.muted" maxW="3xl">
-          A valid answer says the file is exactly the report Meritline issued. It does not replace the laboratory’s procedures, qualified review or the
-          regulations that apply to the results.
+          A valid answer says the file is exactly the report Meritline issued. It does not replace the laboratory’s procedures, qualified
+          review or the regulations that apply to the results.
         </Text>
       </Stack>
     </PublicPage>

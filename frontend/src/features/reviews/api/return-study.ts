@@ -6,7 +6,11 @@ import { reviewQueueQueries, studyReviewQueries } from './review-queries';
 import type { TransitionResult } from './review-types';
 
 export const returnSchema = yup.object({
-  comment: yup.string().trim().required('Say what the author should change before resubmitting.').max(2000, 'Keep the comment under 2000 characters.'),
+  comment: yup
+    .string()
+    .trim()
+    .required('Say what the author should change before resubmitting.')
+    .max(2000, 'Keep the comment under 2000 characters.'),
 });
 
 export type ReturnValues = yup.InferType<typeof returnSchema>;

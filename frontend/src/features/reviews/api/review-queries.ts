@@ -7,11 +7,20 @@ export const studyReviewQueries = {
   ...studyKeys,
   study: studyKeys.detail,
   detail: (id: string) =>
-    queryOptions({ queryKey: [...studyKeys.detail(id), 'view'], queryFn: ({ signal }) => api.get<StudyView>(`/studies/${encodeURIComponent(id)}`, { signal }) }),
+    queryOptions({
+      queryKey: [...studyKeys.detail(id), 'view'],
+      queryFn: ({ signal }) => api.get<StudyView>(`/studies/${encodeURIComponent(id)}`, { signal }),
+    }),
   signatures: (id: string) =>
-    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'signatures'], queryFn: ({ signal }) => api.get<Signature[]>(`/studies/${encodeURIComponent(id)}/signatures`, { signal }) }),
+    queryOptions({
+      queryKey: [...studyReviewQueries.study(id), 'signatures'],
+      queryFn: ({ signal }) => api.get<Signature[]>(`/studies/${encodeURIComponent(id)}/signatures`, { signal }),
+    }),
   history: (id: string) =>
-    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'history'], queryFn: ({ signal }) => api.get<HistoryItem[]>(`/studies/${encodeURIComponent(id)}/history`, { signal }) }),
+    queryOptions({
+      queryKey: [...studyReviewQueries.study(id), 'history'],
+      queryFn: ({ signal }) => api.get<HistoryItem[]>(`/studies/${encodeURIComponent(id)}/history`, { signal }),
+    }),
   diff: (id: string) =>
     queryOptions({
       queryKey: [...studyReviewQueries.study(id), 'diff'],
@@ -19,10 +28,14 @@ export const studyReviewQueries = {
       queryFn: async ({ signal }) => (await api.get<StudyDiff | undefined>(`/studies/${encodeURIComponent(id)}/diff`, { signal })) ?? null,
     }),
   comments: (id: string) =>
-    queryOptions({ queryKey: [...studyReviewQueries.study(id), 'comments'], queryFn: ({ signal }) => api.get<StudyComment[]>(`/studies/${encodeURIComponent(id)}/comments`, { signal }) }),
+    queryOptions({
+      queryKey: [...studyReviewQueries.study(id), 'comments'],
+      queryFn: ({ signal }) => api.get<StudyComment[]>(`/studies/${encodeURIComponent(id)}/comments`, { signal }),
+    }),
 };
 
 export const reviewQueueQueries = {
   ...reviewQueueKeys,
-  list: () => queryOptions({ queryKey: reviewQueueKeys.lists(), queryFn: ({ signal }) => api.get<QueueItem[]>('/reviews/queue', { signal }) }),
+  list: () =>
+    queryOptions({ queryKey: reviewQueueKeys.lists(), queryFn: ({ signal }) => api.get<QueueItem[]>('/reviews/queue', { signal }) }),
 };

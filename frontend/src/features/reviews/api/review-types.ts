@@ -1,4 +1,13 @@
-import type { EvaluationResult, FieldError, MethodVersionSettings, SignatureMeaning, StudyInput, StudySection, StudyStatus, TransitionResultDto } from '@meritline/shared';
+import type {
+  EvaluationResult,
+  FieldError,
+  MethodVersionSettings,
+  SignatureMeaning,
+  StudyInput,
+  StudySection,
+  StudyStatus,
+  TransitionResultDto,
+} from '@meritline/shared';
 import { STUDY_STATUS_LABELS } from '@meritline/shared';
 import type { CriterionDefinition } from '@/components/study-results';
 
@@ -8,7 +17,13 @@ export interface StudyView {
   title: string;
   status: StudyStatus;
   method: { id: string; name: string; analyte: string; matrix: string; technique: string; xUnit: string; yUnit: string };
-  methodVersion: { id: string; number: number; status: 'draft' | 'active' | 'retired'; criteria: CriterionDefinition[]; settings: MethodVersionSettings };
+  methodVersion: {
+    id: string;
+    number: number;
+    status: 'draft' | 'active' | 'retired';
+    criteria: CriterionDefinition[];
+    settings: MethodVersionSettings;
+  };
   data: StudyInput;
   result: EvaluationResult | null;
   resultErrors: FieldError[] | null;

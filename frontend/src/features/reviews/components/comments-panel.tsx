@@ -90,7 +90,12 @@ function CommentThread({ studyId, thread }: { studyId: string; thread: Thread })
           <Button size="xs" variant="ghost" onClick={() => setReplying((value) => !value)}>
             Reply
           </Button>
-          <Button size="xs" variant="outline" loading={resolve.isPending} onClick={() => resolve.mutate({ commentId: root.id, resolved: !root.resolved })}>
+          <Button
+            size="xs"
+            variant="outline"
+            loading={resolve.isPending}
+            onClick={() => resolve.mutate({ commentId: root.id, resolved: !root.resolved })}
+          >
             {root.resolved ? 'Reopen' : 'Resolve'}
           </Button>
         </HStack>

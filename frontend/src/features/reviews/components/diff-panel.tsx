@@ -16,7 +16,17 @@ const SECTION_NAMES: Record<string, string> = {
   'lowSpikes.blanks': 'Method blanks (detection limit)',
 };
 
-const FIELD_NAMES: Record<string, string> = { x: 'Concentration', y: 'Response', excluded: 'Excluded', model: 'Calibration model', weighting: 'Weighting', confidence: 'Confidence level', alpha: 'False-positive rate (α)', units: 'Units', massFraction: 'Mass fraction' };
+const FIELD_NAMES: Record<string, string> = {
+  x: 'Concentration',
+  y: 'Response',
+  excluded: 'Excluded',
+  model: 'Calibration model',
+  weighting: 'Weighting',
+  confidence: 'Confidence level',
+  alpha: 'False-positive rate (α)',
+  units: 'Units',
+  massFraction: 'Mass fraction',
+};
 
 function show(value: unknown): string {
   if (value === null || value === undefined) return '—';
@@ -44,11 +54,23 @@ export function DiffPanel({ diff, data, unit }: { diff: StudyDiff | null; data: 
   const rowLabel = rowLabeller(data, unit);
   if (!diff) return <Text color="fg.muted">This study has been submitted once; there is nothing to compare yet.</Text>;
   const rows = [
-    ...diff.settings.map((s) => ({ where: 'Settings', what: FIELD_NAMES[s.field] ?? s.field, kind: 'changed', from: show(s.from), to: show(s.to) })),
+    ...diff.settings.map((s) => ({
+      where: 'Settings',
+      what: FIELD_NAMES[s.field] ?? s.field,
+      kind: 'changed',
+      from: show(s.from),
+      to: show(s.to),
+    })),
     ...diff.sections.flatMap((section) => {
       const where = SECTION_NAMES[section.section] ?? section.section;
       return [
-        ...section.changed.map((c) => ({ where, what: `${rowLabel(section.section, c.key)}: ${FIELD_NAMES[c.field] ?? c.field}`, kind: 'changed', from: show(c.from), to: show(c.to) })),
+        ...section.changed.map((c) => ({
+          where,
+          what: `${rowLabel(section.section, c.key)}: ${FIELD_NAMES[c.field] ?? c.field}`,
+          kind: 'changed',
+          from: show(c.from),
+          to: show(c.to),
+        })),
         ...section.added.map((a) => ({ where, what: rowLabel(section.section, a.key), kind: 'added', from: '—', to: show(a.row) })),
         ...section.removed.map((r) => ({ where, what: rowLabel(section.section, r.key), kind: 'removed', from: show(r.row), to: '—' })),
       ];

@@ -8,7 +8,8 @@ const KIND_LABELS: Record<HistoryItem['kind'], string> = { status: 'Status', sig
 function statusChange(item: HistoryItem): string | null {
   const change = item.changes?.status;
   if (!change) return null;
-  const label = (value: unknown) => (typeof value === 'string' && value in STATUS_LABELS ? STATUS_LABELS[value as keyof typeof STATUS_LABELS] : 'New');
+  const label = (value: unknown) =>
+    typeof value === 'string' && value in STATUS_LABELS ? STATUS_LABELS[value as keyof typeof STATUS_LABELS] : 'New';
   return change.from === change.to ? null : `${label(change.from)} → ${label(change.to)}`;
 }
 

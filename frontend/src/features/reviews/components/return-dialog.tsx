@@ -25,7 +25,8 @@ export function ReturnDialog({ studyId, lockVersion, authorName }: { studyId: st
             </Dialog.Header>
             <Dialog.Body pb="6">
               <Text mb="5" color="fg.muted">
-                The study goes back to its author for changes; nothing is signed. Your comment is e-mailed to the author and kept in the study’s history.
+                The study goes back to its author for changes; nothing is signed. Your comment is e-mailed to the author and kept in the
+                study’s history.
               </Text>
               <Form
                 initialValues={initialValues}

@@ -30,7 +30,9 @@ export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
   if ((study.status === 'draft' || study.status === 'returned') && user.roles.includes(Role.Analyst)) {
     actions.push(
       <Button key="edit" variant="outline" asChild>
-        <RouterLink to={paths.studyEdit.getHref(study.id)}>{study.status === 'returned' ? 'Make the changes' : 'Edit the study'}</RouterLink>
+        <RouterLink to={paths.studyEdit.getHref(study.id)}>
+          {study.status === 'returned' ? 'Make the changes' : 'Edit the study'}
+        </RouterLink>
       </Button>,
     );
   }
@@ -55,9 +57,29 @@ export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
       actions.push(<ReturnDialog key="return" studyId={study.id} lockVersion={study.lockVersion} authorName={study.author.name} />);
       actions.push(
         firstApproval ? (
-          <SignDialog key="release" studyId={study.id} lockVersion={study.lockVersion} action="approve" meaning={MEANINGS.released} title="Release the study" triggerLabel="Release" submitLabel="Sign and release" successTitle="Study released and approved" />
+          <SignDialog
+            key="release"
+            studyId={study.id}
+            lockVersion={study.lockVersion}
+            action="approve"
+            meaning={MEANINGS.released}
+            title="Release the study"
+            triggerLabel="Release"
+            submitLabel="Sign and release"
+            successTitle="Study released and approved"
+          />
         ) : (
-          <SignDialog key="approve" studyId={study.id} lockVersion={study.lockVersion} action="approve" meaning={MEANINGS.reviewed} title="Approve the study" triggerLabel="Approve" submitLabel="Sign and approve" successTitle="Study approved" />
+          <SignDialog
+            key="approve"
+            studyId={study.id}
+            lockVersion={study.lockVersion}
+            action="approve"
+            meaning={MEANINGS.reviewed}
+            title="Approve the study"
+            triggerLabel="Approve"
+            submitLabel="Sign and approve"
+            successTitle="Study approved"
+          />
         ),
       );
     }

@@ -35,7 +35,17 @@ const justifiedSignSchema = signSchema.shape({
 });
 
 /** An electronic signature: the meaning in words, the password re-entered, an optional comment. */
-export function SignDialog({ studyId, lockVersion, action, meaning, title, triggerLabel, submitLabel, successTitle, onSigned }: SignDialogProps) {
+export function SignDialog({
+  studyId,
+  lockVersion,
+  action,
+  meaning,
+  title,
+  triggerLabel,
+  submitLabel,
+  successTitle,
+  onSigned,
+}: SignDialogProps) {
   const [open, setOpen] = useState(false);
   const sign = useSignStudy(studyId, action);
   // The study page has loaded the study already; read it from the cache rather than ask again.
@@ -84,7 +94,10 @@ export function SignDialog({ studyId, lockVersion, action, meaning, title, trigg
                 onSubmit={async (values) => {
                   const result = await sign.mutateAsync({ values, lockVersion });
                   setOpen(false);
-                  toaster.create({ type: 'success', title: result.stage === 'release' ? 'Approved; now awaiting release by a quality manager' : successTitle });
+                  toaster.create({
+                    type: 'success',
+                    title: result.stage === 'release' ? 'Approved; now awaiting release by a quality manager' : successTitle,
+                  });
                   onSigned?.();
                 }}
                 submitLabel={submitLabel}
@@ -94,7 +107,14 @@ export function SignDialog({ studyId, lockVersion, action, meaning, title, trigg
                   </Dialog.ActionTrigger>
                 }
               >
-                <FormField name="password" label="Your password" type="password" autoComplete="current-password" required helperText="Re-enter the password you sign in with." />
+                <FormField
+                  name="password"
+                  label="Your password"
+                  type="password"
+                  autoComplete="current-password"
+                  required
+                  helperText="Re-enter the password you sign in with."
+                />
                 {needsJustification && (
                   <FormField
                     name="justification"

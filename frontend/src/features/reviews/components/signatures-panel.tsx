@@ -19,8 +19,8 @@ export function BrokenSignatureWarning({ signatures }: { signatures: readonly Si
       <Alert.Content>
         <Alert.Title>Broken signature{broken.length > 1 ? 's' : ''}: the study changed after it was signed</Alert.Title>
         <Alert.Description>
-          The data or results no longer match what {[...new Set(broken.map((s) => s.signerName))].join(' and ')} signed. Do not rely on this study; ask the quality manager to
-          investigate the audit trail.
+          The data or results no longer match what {[...new Set(broken.map((s) => s.signerName))].join(' and ')} signed. Do not rely on this
+          study; ask the quality manager to investigate the audit trail.
         </Alert.Description>
       </Alert.Content>
     </Alert.Root>

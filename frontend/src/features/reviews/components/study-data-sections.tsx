@@ -31,35 +31,61 @@ const withUnit = (name: string, unit: string | undefined) => (unit ? `${name} ($
 
 /** The data as entered, section by section, read-only. */
 export function StudyDataSections({ data, units }: { data: StudyInput; units: { x?: string; y?: string } }) {
-  const sections = useMemo(() => [
-    data.standards?.length &&
-      section(
-        'Calibration standards',
-        ['#', withUnit('Concentration', units.x), withUnit('Response', units.y), 'Excluded because'],
-        data.standards.map((s, i) => ({ id: `s${i}`, cells: [i + 1, s.x, s.y, s.excluded?.reason ?? ''] })),
-        [true, true, true, false],
-      ),
-    data.blanks?.length && section('Blanks', ['#', withUnit('Response', units.y)], data.blanks.map((b, i) => ({ id: `b${i}`, cells: [i + 1, b] })), [true, true]),
-    data.recovery?.length &&
-      section(
-        'Recovery',
-        ['Sample', 'Level', withUnit('Added', units.x), withUnit('Found', units.x), withUnit('Native', units.x)],
-        data.recovery.map((r, i) => ({ id: `r${i}`, cells: [r.id, r.level ?? '', r.added, r.found, r.native ?? 0] })),
-        [false, false, true, true, true],
-      ),
-    data.precision?.length &&
-      section('Precision', ['Series', withUnit('Result', units.x)], data.precision.map((p, i) => ({ id: `p${i}`, cells: [p.group, p.value] })), [false, true]),
-    data.unknowns?.length &&
-      section('Samples', ['Sample', withUnit('Responses', units.y), 'Dilution'], data.unknowns.map((u, i) => ({ id: `u${i}`, cells: [u.id, u.y.map((y) => formatNumber(y, 5)).join(', '), u.dilution ?? 1] })), [false, true, true]),
-    data.lowSpikes?.spiked.length &&
-      section('Low-level spikes (detection limit)', ['#', withUnit('Spiked result', units.x)], data.lowSpikes.spiked.map((v, i) => ({ id: `l${i}`, cells: [i + 1, v] })), [true, true]),
-  ].filter((s): s is ReturnType<typeof section> => Boolean(s)), [data, units.x, units.y]);
+  const sections = useMemo(
+    () =>
+      [
+        data.standards?.length &&
+          section(
+            'Calibration standards',
+            ['#', withUnit('Concentration', units.x), withUnit('Response', units.y), 'Excluded because'],
+            data.standards.map((s, i) => ({ id: `s${i}`, cells: [i + 1, s.x, s.y, s.excluded?.reason ?? ''] })),
+            [true, true, true, false],
+          ),
+        data.blanks?.length &&
+          section(
+            'Blanks',
+            ['#', withUnit('Response', units.y)],
+            data.blanks.map((b, i) => ({ id: `b${i}`, cells: [i + 1, b] })),
+            [true, true],
+          ),
+        data.recovery?.length &&
+          section(
+            'Recovery',
+            ['Sample', 'Level', withUnit('Added', units.x), withUnit('Found', units.x), withUnit('Native', units.x)],
+            data.recovery.map((r, i) => ({ id: `r${i}`, cells: [r.id, r.level ?? '', r.added, r.found, r.native ?? 0] })),
+            [false, false, true, true, true],
+          ),
+        data.precision?.length &&
+          section(
+            'Precision',
+            ['Series', withUnit('Result', units.x)],
+            data.precision.map((p, i) => ({ id: `p${i}`, cells: [p.group, p.value] })),
+            [false, true],
+          ),
+        data.unknowns?.length &&
+          section(
+            'Samples',
+            ['Sample', withUnit('Responses', units.y), 'Dilution'],
+            data.unknowns.map((u, i) => ({ id: `u${i}`, cells: [u.id, u.y.map((y) => formatNumber(y, 5)).join(', '), u.dilution ?? 1] })),
+            [false, true, true],
+          ),
+        data.lowSpikes?.spiked.length &&
+          section(
+            'Low-level spikes (detection limit)',
+            ['#', withUnit('Spiked result', units.x)],
+            data.lowSpikes.spiked.map((v, i) => ({ id: `l${i}`, cells: [i + 1, v] })),
+            [true, true],
+          ),
+      ].filter((s): s is ReturnType<typeof section> => Boolean(s)),
+    [data, units.x, units.y],
+  );
 
   return (
     <Stack gap="8">
       <Text>
-        Model: <strong>{MODEL_LABELS[data.model ?? 'linear'] ?? data.model}</strong> · Weighting: <strong>{WEIGHTING_LABELS[data.weighting ?? 'none'] ?? data.weighting}</strong> ·
-        Confidence level: <strong>{Math.round((data.confidence ?? 0.95) * 100)} %</strong>
+        Model: <strong>{MODEL_LABELS[data.model ?? 'linear'] ?? data.model}</strong> · Weighting:{' '}
+        <strong>{WEIGHTING_LABELS[data.weighting ?? 'none'] ?? data.weighting}</strong> · Confidence level:{' '}
+        <strong>{Math.round((data.confidence ?? 0.95) * 100)} %</strong>
       </Text>
       {sections.map((s) => (
         <Stack key={s.title} gap="3">

@@ -39,7 +39,8 @@ export default function StudyViewPage() {
   if (study.isError) return <QueryError error={study.error} title="The study could not be loaded" onRetry={() => void study.refetch()} />;
   if (study.isPending || !user) return <PageSpinner label="Loading the study" />;
   const s = study.data;
-  const awaitingRelease = s.status === 'submitted' && signatures.data?.some((sig) => sig.meaning === 'reviewed-and-approved' && !sig.superseded);
+  const awaitingRelease =
+    s.status === 'submitted' && signatures.data?.some((sig) => sig.meaning === 'reviewed-and-approved' && !sig.superseded);
   const returned = s.status === 'returned' ? lastReturn(history.data) : undefined;
   const open = openThreadCount(comments.data ?? []);
 
@@ -79,11 +80,18 @@ export default function StudyViewPage() {
           <Alert.Root status="info">
             <Alert.Indicator />
             <Alert.Content>
-              <Alert.Description>A reviewer approved this study. The method version requires a quality manager’s release before it counts as approved.</Alert.Description>
+              <Alert.Description>
+                A reviewer approved this study. The method version requires a quality manager’s release before it counts as approved.
+              </Alert.Description>
             </Alert.Content>
           </Alert.Root>
         )}
-        <Tabs.Root value={chosenTab ?? (diff.data ? 'changes' : 'results')} onValueChange={(event) => setChosenTab(event.value)} variant="line" lazyMount>
+        <Tabs.Root
+          value={chosenTab ?? (diff.data ? 'changes' : 'results')}
+          onValueChange={(event) => setChosenTab(event.value)}
+          variant="line"
+          lazyMount
+        >
           <Tabs.List flexWrap="wrap">
             <Tabs.Trigger value="results">Results</Tabs.Trigger>
             <Tabs.Trigger value="data">Data</Tabs.Trigger>
@@ -130,7 +138,9 @@ function ResultsTab({ study }: { study: StudyView }) {
         <Alert.Indicator />
         <Alert.Content>
           <Alert.Title>No results yet</Alert.Title>
-          <Alert.Description>{study.resultErrors?.map((error) => error.message).join(' ') ?? 'The data cannot be evaluated yet.'}</Alert.Description>
+          <Alert.Description>
+            {study.resultErrors?.map((error) => error.message).join(' ') ?? 'The data cannot be evaluated yet.'}
+          </Alert.Description>
         </Alert.Content>
       </Alert.Root>
     );

@@ -1,4 +1,5 @@
 import type { EvaluationResult, FieldError, MethodVersionSettings, MethodVersionStatus, StudyStatus } from '@meritline/shared';
+import type { ComponentType } from 'react';
 import type { CriterionDefinition } from '@/components/study-results';
 
 export interface StudyMeta {
@@ -49,6 +50,9 @@ export interface StudyDto {
   submittedAt: string | null;
   approvedAt: string | null;
 }
+
+/** The wizard's last step, supplied by the app (the review feature signs the submission). */
+export type SubmitSlot = ComponentType<{ study: StudyDto }>;
 
 export type StudySummary = Omit<StudyDto, 'data' | 'result'> & { verdictPass: boolean | null };
 

@@ -8,7 +8,7 @@ import { preloadPlotly } from '@/components/study-results';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { studiesQueries } from '../api/studies-queries';
-import type { StudyDto } from '../api/types';
+import type { StudyDto, SubmitSlot } from '../api/types';
 import { BlanksStep } from '../components/steps/blanks-step';
 import { CalibrationStep, type DataStepProps } from '../components/steps/calibration-step';
 import { ConclusionStep } from '../components/steps/conclusion-step';
@@ -77,7 +77,7 @@ function SaveProblems({ controller }: { controller: StudyDraftController }) {
   return null;
 }
 
-function StudyWizard({ study, step }: { study: StudyDto; step: number }) {
+function StudyWizard({ study, step, SubmitSlot }: { study: StudyDto; step: number; SubmitSlot: SubmitSlot }) {
   const controller = useStudyDraft(study);
   const live = useLiveEvaluation(controller.data);
   const { draft, server, state, editable, reason, setReason } = controller;
@@ -140,7 +140,7 @@ function StudyWizard({ study, step }: { study: StudyDto; step: number }) {
         {step === 4 && <RecoveryStep {...props} />}
         {step === 5 && <PrecisionStep {...props} />}
         {step === 6 && <ResultsStep {...props} />}
-        {step === 7 && <ConclusionStep {...props} />}
+        {step === 7 && <ConclusionStep {...props} SubmitSlot={SubmitSlot} />}
         <HStack justify="space-between" pt="6" borderTopWidth="1px" borderColor="border">
           {step > 1 ? (
             <Button asChild variant="outline">
@@ -160,7 +160,8 @@ function StudyWizard({ study, step }: { study: StudyDto; step: number }) {
   );
 }
 
-export default function StudyWizardPage() {
+/** The app composes the page with the review feature's submit step (features never import each other). */
+export function StudyWizardPage({ SubmitSlot }: { SubmitSlot: SubmitSlot }) {
   const { studyId = '' } = useParams();
   const [search] = useSearchParams();
   const study = useQuery(studiesQueries.detail(studyId));
@@ -168,5 +169,5 @@ export default function StudyWizardPage() {
 
   if (study.isPending) return <PageSpinner label="Opening the study" />;
   if (study.isError) return <QueryError error={study.error} title="The study could not be opened" onRetry={() => void study.refetch()} />;
-  return <StudyWizard key={study.data.id} study={study.data} step={step} />;
+  return <StudyWizard key={study.data.id} study={study.data} step={step} SubmitSlot={SubmitSlot} />;
 }

@@ -2,7 +2,12 @@ import { ALL_ROLES, type Role } from '@meritline/shared';
 import * as yup from 'yup';
 
 export const rolesField = yup
-  .array(yup.mixed<Role>().oneOf([...ALL_ROLES]).required())
+  .array(
+    yup
+      .mixed<Role>()
+      .oneOf([...ALL_ROLES])
+      .required(),
+  )
   .required()
   .min(1, 'Choose at least one role.');
 

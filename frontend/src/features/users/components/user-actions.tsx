@@ -69,8 +69,8 @@ function DeactivateDialog({ user, disabled }: { user: UserDto; disabled: boolean
             </Dialog.Header>
             <Dialog.Body>
               <Text>
-                {user.name} can no longer sign in. Their studies, reviews and signatures stay in the record. You can reactivate the
-                account later.
+                {user.name} can no longer sign in. Their studies, reviews and signatures stay in the record. You can reactivate the account
+                later.
               </Text>
             </Dialog.Body>
             <Dialog.Footer>

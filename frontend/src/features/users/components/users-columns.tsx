@@ -5,9 +5,23 @@ import { formatDateTime } from '@/lib/format';
 import { UserActions } from './user-actions';
 
 function UserStatus({ user }: { user: UserDto }) {
-  if (!user.active) return <Badge colorPalette="gray" variant="subtle">Deactivated</Badge>;
-  if (user.invitationPending) return <Badge colorPalette="accent" variant="subtle">Invitation sent</Badge>;
-  return <Badge colorPalette="brand" variant="subtle">Active</Badge>;
+  if (!user.active)
+    return (
+      <Badge colorPalette="gray" variant="subtle">
+        Deactivated
+      </Badge>
+    );
+  if (user.invitationPending)
+    return (
+      <Badge colorPalette="accent" variant="subtle">
+        Invitation sent
+      </Badge>
+    );
+  return (
+    <Badge colorPalette="brand" variant="subtle">
+      Active
+    </Badge>
+  );
 }
 
 const column = dataTableColumns<UserDto>();

@@ -23,16 +23,16 @@ export default function UsersPage() {
           <QueryError error={users.error} onRetry={() => void users.refetch()} />
         ) : (
           <DataTable
-          label="Users"
-          columns={usersColumns}
-          data={users.data}
-          getRowId={(user) => user.id}
-          isLoading={users.isPending}
-          sortable
-          initialSorting={[{ id: 'name', desc: false }]}
-          pageSize={25}
-          emptyTitle="No users yet"
-          emptyDescription="Invite the first colleague with the button above."
+            label="Users"
+            columns={usersColumns}
+            data={users.data}
+            getRowId={(user) => user.id}
+            isLoading={users.isPending}
+            sortable
+            initialSorting={[{ id: 'name', desc: false }]}
+            pageSize={25}
+            emptyTitle="No users yet"
+            emptyDescription="Invite the first colleague with the button above."
           />
         )}
       </Stack>

@@ -1,11 +1,11 @@
 import { Alert, Field, Heading, Stack, Text, Textarea } from '@chakra-ui/react';
 import { VerdictSummary } from '@/components/study-results';
-import StudySubmitSlot from '../study-submit-slot';
+import type { SubmitSlot } from '../../api/types';
 import type { DataStepProps } from './calibration-step';
 
 const MAX_CONCLUSION = 4000;
 
-export function ConclusionStep({ controller, live, criteria }: DataStepProps) {
+export function ConclusionStep({ controller, live, criteria, SubmitSlot }: DataStepProps & { SubmitSlot: SubmitSlot }) {
   const { draft, server, editable, change, state } = controller;
   const conclusion = draft.meta.conclusion ?? '';
   return (
@@ -49,7 +49,7 @@ export function ConclusionStep({ controller, live, criteria }: DataStepProps) {
         </Alert.Content>
       </Alert.Root>
       {state.kind === 'saved' || !editable ? (
-        <StudySubmitSlot study={server} />
+        <SubmitSlot study={server} />
       ) : (
         <Text color="fg.muted" role="status">
           Submitting becomes possible once every change is saved.

@@ -1,16 +1,16 @@
 import { Alert, HStack, Link, Text } from '@chakra-ui/react';
 import type { StudyStatus } from '@meritline/shared';
 import { Link as RouterLink, useNavigate } from 'react-router';
-import { SignDialog } from '@/features/reviews/components/sign-dialog';
-import { MEANINGS } from '@/features/reviews/components/signature-meanings';
 import { paths } from '@/lib/config/paths';
+import { SignDialog } from './sign-dialog';
+import { MEANINGS } from './signature-meanings';
 
 export interface StudySubmitSlotProps {
   study: { id: string; status: StudyStatus; lockVersion: number; result: unknown; resultErrors?: { message: string }[] | null };
 }
 
-/** The wizard's last step: sign and submit the study for review (the review feature's signature dialog). */
-export default function StudySubmitSlot({ study }: StudySubmitSlotProps) {
+/** The wizard's last step: sign and submit the study for review; the app hands it to the studies feature. */
+export function StudySubmitSlot({ study }: StudySubmitSlotProps) {
   const navigate = useNavigate();
   const view = paths.studyView.getHref(study.id);
 
@@ -30,7 +30,9 @@ export default function StudySubmitSlot({ study }: StudySubmitSlotProps) {
         <Alert.Indicator />
         <Alert.Content>
           <Alert.Title>Not ready to submit</Alert.Title>
-          <Alert.Description>{study.resultErrors?.map((error) => error.message).join(' ') || 'The results cannot be computed from the data yet.'}</Alert.Description>
+          <Alert.Description>
+            {study.resultErrors?.map((error) => error.message).join(' ') || 'The results cannot be computed from the data yet.'}
+          </Alert.Description>
         </Alert.Content>
       </Alert.Root>
     );
