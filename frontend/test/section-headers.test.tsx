@@ -1,5 +1,4 @@
-import { SECTION_HEADER_ALIASES } from '@meritline/shared';
-import type { ImportSection } from '@/features/studies/api/types';
+import { SECTION_HEADER_ALIASES, type ImportSection } from '@meritline/shared';
 import { sectionColumns } from '@/features/studies/utils/grid-sections';
 import { matchColumns } from '@/features/studies/utils/paste-parser';
 

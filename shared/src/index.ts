@@ -1,6 +1,5 @@
 export * from './roles.js';
-export * from './api-types.js';
-export * from './review-types.js';
+export * from './api/index.js';
 export * from './run-status.js';
 export * from './method-change.js';
 export * from './catalogue/index.js';

@@ -1,5 +1,8 @@
-import type { QueueItemDto } from './review-types.js';
+import type { QueueItemDto } from './api/reviews.js';
 import type { Role } from './roles.js';
+
+/** A run's check-standard verdict. */
+export type RunStatus = 'accepted' | 'rejected';
 
 /** Where a routine run stands in its second-person release (its check-standard verdict is separate: accepted or rejected). */
 export enum RunReviewStatus {

@@ -18,9 +18,8 @@ import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { ReportVerificationDto } from './dto/report-verification.dto.js';
-import { ReportsService, type ReportVerification } from './reports.service.js';
-
-export const MAX_VERIFY_UPLOAD_BYTES = 20 * 1024 * 1024;
+import { MAX_REPORT_BYTES, type ReportVerification } from '@meritline/shared';
+import { ReportsService } from './reports.service.js';
 
 @ApiTags('reports')
 @Controller()
@@ -52,7 +51,7 @@ export class ReportsController {
   @Post('reports/verify')
   @HttpCode(200)
   @Throttle({ default: { limit: 30, ttl: 60_000 } })
-  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_VERIFY_UPLOAD_BYTES, files: 1 } }))
+  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_REPORT_BYTES, files: 1 } }))
   @ApiConsumes('multipart/form-data')
   @ApiBody({
     schema: {

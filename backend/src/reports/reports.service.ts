@@ -1,3 +1,4 @@
+import type { ReportVerification } from '@meritline/shared';
 import { ConflictException, Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash, randomUUID } from 'node:crypto';
@@ -28,19 +29,6 @@ export interface ReportFile {
   /** False for a draft preview: unsigned and never stored. */
   signed: boolean;
 }
-
-export type ReportVerification =
-  | {
-      valid: true;
-      studyId: string;
-      studyTitle: string;
-      reportId: string;
-      methodName: string;
-      methodVersion: number;
-      signedAt: string;
-      sha256: string;
-    }
-  | { valid: false; reason: string };
 
 /** The report id a PDF names in its information dictionary, written directly or as a reference to a string object. */
 function claimedReportId(pdf: string): string | null {

@@ -36,7 +36,8 @@ import { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
 import { ImportPreviewDto, StudyDto, StudyPageDto } from './dto/study.dto.js';
 import { UpdateStudyDto } from './dto/update-study.dto.js';
 import { MAX_IMPORT_BYTES } from './import-table.js';
-import { IMPORT_SECTIONS, importTemplate, type ImportSection } from './study-import.js';
+import { IMPORT_SECTIONS, type ImportSection } from '@meritline/shared';
+import { importTemplate } from './study-import.js';
 import { StudiesService } from './studies.service.js';
 
 @ApiTags('studies')

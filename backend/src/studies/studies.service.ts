@@ -2,7 +2,7 @@ import { ConflictException, ForbiddenException, Injectable, NotFoundException } 
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
-import { canonicalJson, type FieldError } from '@meritline/shared';
+import { canonicalJson, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -18,8 +18,8 @@ import type { ImportPreviewDto, StudyDto, StudyPageDto, StudySummaryDto } from '
 import type { UpdateStudyDto } from './dto/update-study.dto.js';
 import { readImportTable } from './import-table.js';
 import { evaluateStudyData, withMethodDefaults, type StudyData } from './study-evaluation.js';
-import { importSection, type ImportSection } from './study-import.js';
-import { ValidationStudy, type StudyMeta } from './validation-study.entity.js';
+import { importSection } from './study-import.js';
+import { ValidationStudy } from './validation-study.entity.js';
 
 const LOCKED_STATUSES = ['submitted', 'approved'];
 const DAY_MS = 86_400_000;

@@ -2,7 +2,8 @@ import { UnsupportedMediaTypeException } from '@nestjs/common';
 import ExcelJS from 'exceljs';
 import { describe, expect, it } from 'vitest';
 import { MAX_IMPORT_ROWS, readImportTable } from './import-table.js';
-import { importSection, importTemplate, IMPORT_SECTIONS, normaliseHeader, resolveMapping, type ImportSection } from './study-import.js';
+import { IMPORT_SECTIONS, type ImportSection } from '@meritline/shared';
+import { importSection, importTemplate, normaliseHeader, resolveMapping } from './study-import.js';
 
 const csv = (text: string) => Buffer.from(text, 'utf8');
 const preview = async (buffer: Buffer, section: ImportSection, mapping?: Record<string, string | null>) =>

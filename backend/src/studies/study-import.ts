@@ -1,3 +1,4 @@
+import type { ImportPreviewDto, ImportSection } from '@meritline/shared';
 import {
   headerAliases,
   type FieldError,
@@ -9,24 +10,10 @@ import {
 } from '@meritline/shared';
 import { MAX_IMPORT_ROWS, type Cell, type ImportTable, type TableRow } from './import-table.js';
 
-export const IMPORT_SECTIONS = ['standards', 'blanks', 'recovery', 'precision', 'unknowns', 'lowSpikes'] as const;
-export type ImportSection = (typeof IMPORT_SECTIONS)[number];
-
 /** Target field → source column header. */
 export type ImportMapping = Record<string, string>;
 
 export type ImportedRows = StandardPoint[] | number[] | RecoveryItem[] | PrecisionResult[] | UnknownSample[] | LowSpikes[];
-
-export interface ImportPreview {
-  section: ImportSection;
-  columns: string[];
-  mapping: ImportMapping;
-  /** The section in the study format; lowSpikes is one object, so its rows hold exactly one. */
-  rows: ImportedRows;
-  errors: FieldError[];
-  /** Data rows read from the file. */
-  rowCount: number;
-}
 
 type FieldKind = 'number' | 'text' | 'number-or-not-detected';
 
@@ -287,7 +274,7 @@ function buildRows(
 }
 
 /** Maps the table's columns onto one study section and reads every row; all errors are reported, nothing is dropped. */
-export function importSection(table: ImportTable, section: ImportSection, requested?: Record<string, string | null>): ImportPreview {
+export function importSection(table: ImportTable, section: ImportSection, requested?: Record<string, string | null>): ImportPreviewDto {
   const { mapping, errors } = resolveMapping(section, table.columns, requested);
   const preview = { section, columns: table.columns, mapping, rowCount: table.rows.length };
   if (table.tooManyRows) {

@@ -1,14 +1,8 @@
+import type { StudyMeta } from '@meritline/shared';
 import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn, VersionColumn } from 'typeorm';
 import type { StudyStatus } from '@meritline/shared';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { User } from '../users/user.entity.js';
-
-export interface StudyMeta {
-  instrument?: string;
-  startedOn?: string;
-  finishedOn?: string;
-  conclusion?: string;
-}
 
 @Entity('validation_studies')
 export class ValidationStudy {

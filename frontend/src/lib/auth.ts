@@ -1,17 +1,15 @@
-import type { LoginResponse } from '@meritline/shared';
+import type { CurrentUser, LoginResponse } from '@meritline/shared';
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useCallback } from 'react';
 import { clearSessionToken, setSessionToken, useSessionToken } from '@/lib/session-token';
 import { api } from '@/lib/api-client';
-
-export type SessionUser = LoginResponse['user'];
 
 export const authQueries = {
   all: ['auth'] as const,
   currentUser: () =>
     queryOptions({
       queryKey: [...authQueries.all, 'current-user'],
-      queryFn: ({ signal }) => api.get<SessionUser>('/auth/me', { signal }),
+      queryFn: ({ signal }) => api.get<CurrentUser>('/auth/me', { signal }),
       staleTime: 5 * 60_000,
     }),
 };
@@ -20,7 +18,7 @@ export interface Session {
   /** The bearer token; null when signed out. */
   token: string | null;
   /** The signed-in user; undefined while it loads or when signed out. */
-  user: SessionUser | undefined;
+  user: CurrentUser | undefined;
   isLoading: boolean;
   /** Loading the user failed for a reason other than an expired session (that one signs out). */
   error: Error | null;

@@ -1,4 +1,4 @@
-import type { StudyStatus } from '../api-types.js';
+import type { StudyStatus } from '../api/studies.js';
 
 /** One word per study status, on every screen and in every document. */
 export const STUDY_STATUS_LABELS: Record<StudyStatus, string> = {

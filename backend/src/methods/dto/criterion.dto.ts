@@ -1,6 +1,6 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { IsIn, IsOptional, IsString, Matches, MaxLength, ValidateBy, type ValidationArguments } from 'class-validator';
-import { CRITERION_OPS, type CriterionOp } from '@meritline/shared';
+import { CRITERION_OPS, type CriterionDefinition, type CriterionOp } from '@meritline/shared';
 import { OptionalText } from './text.decorators.js';
 
 const RESULT_SECTIONS = [
@@ -28,7 +28,7 @@ function validThreshold(value: unknown, args: ValidationArguments): boolean {
 }
 
 /** One acceptance criterion in the engine's format; `level` and `label` describe it for people. */
-export class CriterionDto {
+export class CriterionDto implements CriterionDefinition {
   @ApiProperty({ example: 'calibration.r2', description: 'Dotted path into the evaluation result, e.g. recovery.overall.meanPct.' })
   @IsString()
   @MaxLength(120)

@@ -2,19 +2,27 @@ import { ApiProperty } from '@nestjs/swagger';
 import {
   METHOD_CHANGE_KINDS,
   REVALIDATION_FAMILIES,
+  type CriteriaTemplateDto as CriteriaTemplateContract,
   type MethodChangeKind,
+  type MethodDto as MethodContract,
+  type MethodSummaryDto as MethodSummaryContract,
+  type MethodVersionDetailDto as MethodVersionDetailContract,
+  type MethodVersionDto as MethodVersionContract,
+  type MethodVersionSettings,
   type MethodVersionStatus,
+  type RevalidationCoverage,
   type RevalidationFamily,
+  type UserRef,
 } from '@meritline/shared';
 import { CriterionDto } from './criterion.dto.js';
 import { VERSION_STATUSES } from './update-method-version.dto.js';
 
-export class UserRefDto {
+export class UserRefDto implements UserRef {
   @ApiProperty() id: string;
   @ApiProperty() name: string;
 }
 
-export class MethodVersionSettingsViewDto {
+export class MethodVersionSettingsViewDto implements MethodVersionSettings {
   @ApiProperty() requiresQualityRelease: boolean;
   @ApiProperty() checkTolerancePct: number;
   @ApiProperty() onePointMaxInterceptPct: number;
@@ -22,7 +30,7 @@ export class MethodVersionSettingsViewDto {
   recoveryEquivalenceMarginPct?: number;
 }
 
-export class RevalidationCoverageDto {
+export class RevalidationCoverageDto implements RevalidationCoverage {
   @ApiProperty({ description: 'An approved study of this version shows every family in scope again (always true for an empty scope).' })
   covered: boolean;
   @ApiProperty({
@@ -34,7 +42,7 @@ export class RevalidationCoverageDto {
   @ApiProperty({ nullable: true, type: String, description: 'The approved study that covers the scope.' }) studyId: string | null;
 }
 
-export class MethodVersionDto {
+export class MethodVersionDto implements MethodVersionContract {
   @ApiProperty() id: string;
   @ApiProperty() number: number;
   @ApiProperty({ enum: VERSION_STATUSES }) status: MethodVersionStatus;
@@ -54,7 +62,7 @@ export class MethodVersionDto {
   @ApiProperty({ description: 'Approved validation studies on this version.' }) approvedStudyCount: number;
 }
 
-export class MethodSummaryDto {
+export class MethodSummaryDto implements MethodSummaryContract {
   @ApiProperty() id: string;
   @ApiProperty() name: string;
   @ApiProperty() analyte: string;
@@ -65,16 +73,16 @@ export class MethodSummaryDto {
   @ApiProperty({ description: 'Key of the criteria template the method started from.' }) purpose: string;
 }
 
-export class MethodDto extends MethodSummaryDto {
+export class MethodDto extends MethodSummaryDto implements MethodContract {
   @ApiProperty({ format: 'date-time' }) createdAt: string;
   @ApiProperty({ type: [MethodVersionDto], description: 'Sorted by number.' }) versions: MethodVersionDto[];
 }
 
-export class MethodVersionDetailDto extends MethodVersionDto {
+export class MethodVersionDetailDto extends MethodVersionDto implements MethodVersionDetailContract {
   @ApiProperty({ type: MethodSummaryDto }) method: MethodSummaryDto;
 }
 
-export class CriteriaTemplateDto {
+export class CriteriaTemplateDto implements CriteriaTemplateContract {
   @ApiProperty({ example: 'assay' }) key: string;
   @ApiProperty({ example: 'Assay of a major component' }) name: string;
   @ApiProperty() description: string;

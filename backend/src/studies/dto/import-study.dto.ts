@@ -2,7 +2,7 @@ import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform, Type } from 'class-transformer';
 import { IsBoolean, IsIn, IsInt, IsOptional, IsString, MaxLength, Min, ValidateIf } from 'class-validator';
 import { OptionalText } from '../../methods/dto/text.decorators.js';
-import { IMPORT_SECTIONS, type ImportSection } from '../study-import.js';
+import { IMPORT_SECTIONS, type ImportSection } from '@meritline/shared';
 
 /** The text fields of the multipart import request (the file itself travels as `file`). */
 export class ImportStudyDto {

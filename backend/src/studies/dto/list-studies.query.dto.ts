@@ -1,11 +1,8 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform, Type } from 'class-transformer';
 import { IsBoolean, IsIn, IsInt, IsISO8601, IsOptional, IsUUID, Max, Min } from 'class-validator';
-import type { StudyStatus } from '@meritline/shared';
+import { STUDY_SORTS, STUDY_STATUSES, type StudySort, type StudyStatus } from '@meritline/shared';
 import { OptionalText } from '../../methods/dto/text.decorators.js';
-
-export const STUDY_STATUSES: StudyStatus[] = ['draft', 'submitted', 'returned', 'approved'];
-export const STUDY_SORTS = ['updatedAt', 'createdAt', 'title', 'status'] as const;
 
 export class ListStudiesQueryDto {
   @ApiPropertyOptional({ enum: STUDY_STATUSES })
@@ -51,7 +48,7 @@ export class ListStudiesQueryDto {
   @ApiPropertyOptional({ enum: STUDY_SORTS, default: 'updatedAt' })
   @IsOptional()
   @IsIn(STUDY_SORTS, { message: `Sort by one of ${STUDY_SORTS.join(', ')}.` })
-  sort?: (typeof STUDY_SORTS)[number];
+  sort?: StudySort;
 
   @ApiPropertyOptional({ enum: ['desc', 'asc'], default: 'desc' })
   @IsOptional()

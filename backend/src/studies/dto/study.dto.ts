@@ -1,18 +1,29 @@
 import { ApiProperty, OmitType } from '@nestjs/swagger';
-import type { MethodVersionStatus, StudyStatus } from '@meritline/shared';
 import { CriterionDto } from '../../methods/dto/criterion.dto.js';
 import { MethodVersionSettingsViewDto, UserRefDto } from '../../methods/dto/method.dto.js';
-import { IMPORT_SECTIONS, type ImportSection } from '../study-import.js';
-import { STUDY_STATUSES } from './list-studies.query.dto.js';
+import {
+  IMPORT_SECTIONS,
+  STUDY_STATUSES,
+  type FieldError,
+  type ImportPreviewDto as ImportPreviewContract,
+  type ImportSection,
+  type MethodVersionStatus,
+  type StudyDto as StudyContract,
+  type StudyMethod,
+  type StudyMethodVersion,
+  type StudyPageDto as StudyPageContract,
+  type StudyStatus,
+  type StudySummaryDto as StudySummaryContract,
+} from '@meritline/shared';
 import { StudyMetaDto } from './study-meta.dto.js';
 
-export class FieldErrorDto {
+export class FieldErrorDto implements FieldError {
   @ApiProperty({ example: 'standards[3].x' }) field: string;
   @ApiProperty({ example: 'not_finite' }) code: string;
   @ApiProperty() message: string;
 }
 
-export class StudyMethodDto {
+export class StudyMethodDto implements StudyMethod {
   @ApiProperty() id: string;
   @ApiProperty() name: string;
   @ApiProperty() analyte: string;
@@ -22,7 +33,7 @@ export class StudyMethodDto {
   @ApiProperty() yUnit: string;
 }
 
-export class StudyMethodVersionDto {
+export class StudyMethodVersionDto implements StudyMethodVersion {
   @ApiProperty() id: string;
   @ApiProperty() number: number;
   @ApiProperty({ enum: ['draft', 'active', 'retired'] }) status: MethodVersionStatus;
@@ -30,7 +41,7 @@ export class StudyMethodVersionDto {
   @ApiProperty({ type: MethodVersionSettingsViewDto }) settings: MethodVersionSettingsViewDto;
 }
 
-export class StudyDto {
+export class StudyDto implements Omit<StudyContract, 'result'> {
   @ApiProperty() id: string;
   @ApiProperty() title: string;
   @ApiProperty({ enum: STUDY_STATUSES }) status: StudyStatus;
@@ -61,19 +72,19 @@ export class StudyDto {
   @ApiProperty({ type: String, format: 'date-time', nullable: true }) approvedAt: string | null;
 }
 
-export class StudySummaryDto extends OmitType(StudyDto, ['data', 'result'] as const) {
+export class StudySummaryDto extends OmitType(StudyDto, ['data', 'result'] as const) implements StudySummaryContract {
   @ApiProperty({ type: Boolean, nullable: true, description: 'The verdict on the criteria; null without a result or criteria.' })
   verdictPass: boolean | null;
 }
 
-export class StudyPageDto {
+export class StudyPageDto implements StudyPageContract {
   @ApiProperty({ type: [StudySummaryDto] }) items: StudySummaryDto[];
   @ApiProperty() total: number;
   @ApiProperty() page: number;
   @ApiProperty() pageSize: number;
 }
 
-export class ImportPreviewDto {
+export class ImportPreviewDto implements ImportPreviewContract {
   @ApiProperty({ enum: IMPORT_SECTIONS }) section: ImportSection;
   @ApiProperty({ type: [String], description: 'Column headers of the file.' }) columns: string[];
   @ApiProperty({ type: 'object', additionalProperties: { type: 'string' }, description: 'Target field → column header, as used.' })

@@ -1,16 +1,15 @@
 import { Avatar, Box, Button, CloseButton, Drawer, Flex, HStack, IconButton, Link, Menu, Portal, Stack, Text } from '@chakra-ui/react';
-import type { Role } from '@meritline/shared';
+import type { Role, CurrentUser } from '@meritline/shared';
 import { useState, type ReactNode } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
 import { ColorModeButton } from '@/components/ui/color-mode';
-import type { SessionUser } from '@/lib/auth';
 import { NotificationsBell } from '@/features/notifications/components/notifications-bell';
 import { paths } from '@/lib/config/paths';
 import { formatRoles } from '@/lib/format';
 import { navigationFor } from './navigation';
 
 export interface AppShellProps {
-  user: SessionUser;
+  user: CurrentUser;
   onSignOut: () => void;
   children: ReactNode;
 }
@@ -151,7 +150,7 @@ function Wordmark({ onRail = false }: { onRail?: boolean }) {
   );
 }
 
-function UserMenu({ user, onSignOut }: { user: SessionUser; onSignOut: () => void }) {
+function UserMenu({ user, onSignOut }: { user: CurrentUser; onSignOut: () => void }) {
   return (
     <Menu.Root positioning={{ placement: 'bottom-end' }}>
       <Menu.Trigger asChild>

@@ -1,13 +1,6 @@
-import type { CriterionOp, EvaluationResult, StudyInput } from '@meritline/shared';
+import type { CriterionDefinition, EvaluationResult, StudyInput } from '@meritline/shared';
 
-/** An acceptance criterion as a method version states it; `label` names it for people. */
-export interface CriterionDefinition {
-  figure: string;
-  op: CriterionOp;
-  value: number | [number, number];
-  level?: string | number;
-  label?: string;
-}
+export type { CriterionDefinition };
 
 export interface StudyUnits {
   x?: string;

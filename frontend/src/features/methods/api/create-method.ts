@@ -1,9 +1,9 @@
+import type { MethodDto } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
 import type { CriterionDefinition } from '@/components/study-results';
 import { api } from '@/lib/api-client';
 import { methodsQueries } from './methods-queries';
-import type { MethodDto } from './types';
 
 const text = (label: string, max: number) => yup.string().trim().required(label).max(max, `Use at most ${max} characters.`);
 

@@ -1,9 +1,14 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { METHOD_CHANGE_KINDS, REVALIDATION_FAMILIES, type MethodChangeKind, type RevalidationFamily } from '@meritline/shared';
+import {
+  METHOD_CHANGE_KINDS,
+  REVALIDATION_FAMILIES,
+  type MethodChangeKind,
+  type RevalidationFamily,
+  type MethodVersionDto,
+} from '@meritline/shared';
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
 import { methodsQueries } from './methods-queries';
-import type { MethodVersionDto } from './types';
 import { changeSummaryField, criteriaField, fromCriterionRows, settingsSchema, type CriterionRow } from './version-rules';
 
 export const versionFormSchema = yup.object({

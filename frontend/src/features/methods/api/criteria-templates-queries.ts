@@ -1,6 +1,6 @@
+import type { CriteriaTemplateDto } from '@meritline/shared';
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { CriteriaTemplateDto } from './types';
 
 export const criteriaTemplatesQueries = {
   all: ['criteria-templates'] as const,

@@ -1,6 +1,6 @@
+import type { MethodDto } from '@meritline/shared';
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { MethodDto } from './types';
 
 export const methodsQueries = {
   all: ['methods'] as const,

@@ -1,9 +1,8 @@
-import type { MethodVersionStatus } from '@meritline/shared';
+import type { MethodVersionStatus, MethodVersionDto } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { versionBody, type VersionFormValues } from './create-version';
 import { methodsQueries } from './methods-queries';
-import type { MethodVersionDto } from './types';
 
 /** Edits a draft version's criteria and settings; the server answers 409 when someone saved first or the version is no longer a draft. */
 export function useUpdateVersion(version: Pick<MethodVersionDto, 'id' | 'lockVersion'>) {

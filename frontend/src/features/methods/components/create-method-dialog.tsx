@@ -1,3 +1,4 @@
+import type { CriteriaTemplateDto } from '@meritline/shared';
 import { Alert, Button, CloseButton, Dialog, Input, NativeSelect, Portal, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useFormikContext } from 'formik';
@@ -9,7 +10,6 @@ import { toaster } from '@/components/ui/toaster';
 import { paths } from '@/lib/config/paths';
 import { createMethodSchema, useCreateMethod, type CreateMethodValues } from '../api/create-method';
 import { criteriaTemplatesQueries } from '../api/criteria-templates-queries';
-import type { CriteriaTemplateDto } from '../api/types';
 import { CriteriaList } from './criteria-list';
 
 export const TECHNIQUES = [

@@ -1,8 +1,8 @@
+import type { MethodDto } from '@meritline/shared';
 import { Badge, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
 import { paths } from '@/lib/config/paths';
-import type { MethodDto } from '../api/types';
 import { VersionStatusBadge } from './version-status-badge';
 
 const column = dataTableColumns<MethodDto>();

@@ -1,7 +1,12 @@
 import { Box, DataList, Heading, HStack, Stack, Text } from '@chakra-ui/react';
-import { DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT, METHOD_CHANGE_KIND_LABELS, REVALIDATION_FAMILY_LABELS } from '@meritline/shared';
+import {
+  DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT,
+  METHOD_CHANGE_KIND_LABELS,
+  REVALIDATION_FAMILY_LABELS,
+  type MethodDto,
+  type MethodVersionDto,
+} from '@meritline/shared';
 import { formatDateTime } from '@/lib/format';
-import type { MethodDto, MethodVersionDto } from '../api/types';
 import { CriteriaList } from './criteria-list';
 import { VersionFormDialog } from './version-form-dialog';
 import { VersionStatusAction } from './version-status-action';

@@ -1,10 +1,15 @@
 import { Alert, Button, CloseButton, Dialog, Field, Input, List, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
-import { MIN_JUSTIFICATION_LENGTH, REVALIDATION_FAMILY_LABELS, Role, type MethodVersionStatus } from '@meritline/shared';
+import {
+  MIN_JUSTIFICATION_LENGTH,
+  REVALIDATION_FAMILY_LABELS,
+  Role,
+  type MethodVersionStatus,
+  type MethodVersionDto,
+} from '@meritline/shared';
 import { useId, useState } from 'react';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import { useSession } from '@/lib/auth';
-import type { MethodVersionDto } from '../api/types';
 import { useChangeVersionStatus, type ActivationSignature } from '../api/update-version';
 
 const ACTIONS: Partial<Record<MethodVersionStatus, { to: MethodVersionStatus; label: string; explain: string }>> = {

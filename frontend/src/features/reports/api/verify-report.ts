@@ -1,21 +1,6 @@
+import type { ReportVerification } from '@meritline/shared';
 import { useMutation } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-
-/** The server's answer: only a byte-identical copy of an issued report is valid. */
-export type ReportVerification =
-  | {
-      valid: true;
-      studyId: string;
-      studyTitle: string;
-      reportId: string;
-      methodName: string;
-      methodVersion: number;
-      signedAt: string;
-      sha256: string;
-    }
-  | { valid: false; reason: string };
-
-export const MAX_REPORT_BYTES = 20 * 1024 * 1024;
 
 export function verifyReport(file: File): Promise<ReportVerification> {
   const form = new FormData();

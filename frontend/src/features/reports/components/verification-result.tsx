@@ -1,6 +1,6 @@
+import type { ReportVerification } from '@meritline/shared';
 import { Alert, Code, DataList, Stack, Text } from '@chakra-ui/react';
 import { formatDateTime } from '@/lib/format';
-import type { ReportVerification } from '../api/verify-report';
 
 /** The answer in plain words: which report it is, or why the file cannot be trusted. */
 export function VerificationResult({ fileName, verification }: { fileName: string; verification: ReportVerification }) {

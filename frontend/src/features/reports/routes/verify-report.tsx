@@ -1,7 +1,8 @@
+import { MAX_REPORT_BYTES } from '@meritline/shared';
 import { Alert, Box, FileUpload, Heading, Icon, Stack, Text } from '@chakra-ui/react';
 import { useState } from 'react';
 import { isApiError } from '@/lib/api-client';
-import { MAX_REPORT_BYTES, useVerifyReport } from '../api/verify-report';
+import { useVerifyReport } from '../api/verify-report';
 import { PublicPage } from '../components/public-page';
 import { VerificationResult } from '../components/verification-result';
 

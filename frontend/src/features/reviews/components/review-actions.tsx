@@ -1,9 +1,8 @@
 import { Button, HStack } from '@chakra-ui/react';
-import { hasAnyRole, Role } from '@meritline/shared';
+import { hasAnyRole, Role, type CurrentUser } from '@meritline/shared';
 import { Link as RouterLink, useNavigate } from 'react-router';
 import { ReportDownloadButton } from '@/components/report-download-button';
 import { toaster } from '@/components/ui/toaster';
-import type { SessionUser } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { useCopyStudy } from '../api/copy-study';
 import type { Signature, StudyView } from '../api/review-types';
@@ -14,7 +13,7 @@ import { MEANINGS } from './signature-meanings';
 interface ReviewActionsProps {
   study: StudyView;
   signatures: readonly Signature[];
-  user: SessionUser;
+  user: CurrentUser;
 }
 
 /** The actions this user may take on this study now; the server enforces the same rules. */

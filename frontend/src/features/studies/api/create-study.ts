@@ -1,9 +1,9 @@
+import type { StudyDto } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
 import { studiesQueries } from './studies-queries';
 import { studyDetailsSchema } from './study-details-rules';
-import type { StudyDto } from './types';
 
 export const createStudySchema = studyDetailsSchema.shape({
   methodId: yup.string().required('Choose the method.'),

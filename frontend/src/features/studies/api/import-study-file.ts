@@ -1,7 +1,7 @@
+import type { ImportPreviewDto, ImportSection, StudyDto } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { studiesQueries } from './studies-queries';
-import type { ImportPreview, ImportSection, StudyDto } from './types';
 
 export interface ImportRequest {
   file: File;
@@ -23,7 +23,7 @@ function importForm({ file, section, mapping }: ImportRequest, extra: Record<str
 export function usePreviewImport(studyId: string) {
   return useMutation({
     mutationFn: (request: ImportRequest) =>
-      api.post<ImportPreview>(`/studies/${encodeURIComponent(studyId)}/imports`, importForm(request, { dryRun: 'true' })),
+      api.post<ImportPreviewDto>(`/studies/${encodeURIComponent(studyId)}/imports`, importForm(request, { dryRun: 'true' })),
     meta: { inlineErrors: true },
   });
 }

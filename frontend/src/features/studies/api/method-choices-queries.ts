@@ -1,6 +1,6 @@
+import type { MethodDto } from '@meritline/shared';
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { MethodChoice } from './types';
 
 /** Methods with their versions, to choose from when a study is set up or the list is filtered. */
 export const methodChoicesQueries = {
@@ -9,6 +9,6 @@ export const methodChoicesQueries = {
   list: () =>
     queryOptions({
       queryKey: [...methodChoicesQueries.all],
-      queryFn: ({ signal }) => api.get<MethodChoice[]>('/methods', { signal }),
+      queryFn: ({ signal }) => api.get<MethodDto[]>('/methods', { signal }),
     }),
 };

@@ -1,7 +1,8 @@
+import type { StudyDto, StudyPageDto } from '@meritline/shared';
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { studyKeys } from '@/lib/query-keys';
-import type { StudyDto, StudyListParams, StudyPage } from './types';
+import type { StudyListParams } from './types';
 
 function listSearch(params: StudyListParams): string {
   const search = new URLSearchParams();
@@ -17,7 +18,7 @@ export const studiesQueries = {
   list: (params: StudyListParams) =>
     queryOptions({
       queryKey: studyKeys.list(params),
-      queryFn: ({ signal }) => api.get<StudyPage>(`/studies?${listSearch(params)}`, { signal }),
+      queryFn: ({ signal }) => api.get<StudyPageDto>(`/studies?${listSearch(params)}`, { signal }),
       placeholderData: keepPreviousData,
     }),
   detail: (id: string) =>

@@ -1,7 +1,7 @@
+import type { StudyDto, StudyMeta } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { studiesQueries } from './studies-queries';
-import type { StudyDto, StudyMeta } from './types';
 
 export interface StudyChanges {
   lockVersion: number;

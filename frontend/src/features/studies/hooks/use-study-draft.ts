@@ -1,9 +1,8 @@
-import { canonicalJson } from '@meritline/shared';
+import { canonicalJson, type StudyDto, type StudyMeta } from '@meritline/shared';
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { isApiError } from '@/lib/api-client';
 import { studiesQueries } from '../api/studies-queries';
-import type { StudyDto, StudyMeta } from '../api/types';
 import { useUpdateStudy, type StudyChanges } from '../api/update-study';
 import { dataToDraft, draftToData, type DataDraft } from '../utils/study-sheets';
 

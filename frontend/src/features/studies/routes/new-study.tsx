@@ -1,3 +1,4 @@
+import type { MethodDto } from '@meritline/shared';
 import { Box, Field, Input, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { getIn, useFormikContext } from 'formik';
@@ -10,12 +11,11 @@ import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { createStudySchema, useCreateStudy, type CreateStudyValues } from '../api/create-study';
 import { methodChoicesQueries } from '../api/method-choices-queries';
-import type { MethodChoice } from '../api/types';
 import { defaultVersion, MethodSelect, VersionPicker } from '../components/wizard/method-version-picker';
 
 const isoToday = () => new Date().toISOString().slice(0, 10);
 
-function ChooseMethod({ methods }: { methods: readonly MethodChoice[] }) {
+function ChooseMethod({ methods }: { methods: readonly MethodDto[] }) {
   const { values, errors, submitCount, setFieldValue } = useFormikContext<CreateStudyValues>();
   const method = methods.find((m) => m.id === values.methodId);
   const versionError = submitCount > 0 ? (getIn(errors, 'methodVersionId') as string | undefined) : undefined;

@@ -1,5 +1,5 @@
 import { Button, HStack, Stack, Text } from '@chakra-ui/react';
-import type { StudyStatus } from '@meritline/shared';
+import { STUDY_SORTS, type StudySort, type StudyStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useCallback, useMemo } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
@@ -9,7 +9,7 @@ import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { methodChoicesQueries } from '../api/method-choices-queries';
 import { studiesQueries } from '../api/studies-queries';
-import { STUDY_SORTS, type StudyListParams, type StudySort } from '../api/types';
+import { type StudyListParams } from '../api/types';
 import { StudiesFilters, type StudyFilters } from '../components/list/studies-filters';
 import { studiesColumns } from '../components/list/studies-columns';
 

@@ -1,3 +1,4 @@
+import type { StudyDto } from '@meritline/shared';
 import { Alert, Button, Field, HStack, Input, Link, Stack } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useEffect } from 'react';
@@ -8,7 +9,7 @@ import { preloadPlotly } from '@/components/study-results';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { studiesQueries } from '../api/studies-queries';
-import type { StudyDto, SubmitSlot } from '../api/types';
+import type { SubmitSlot } from '../api/types';
 import { BlanksStep } from '../components/steps/blanks-step';
 import { CalibrationStep, type DataStepProps } from '../components/steps/calibration-step';
 import { ConclusionStep } from '../components/steps/conclusion-step';

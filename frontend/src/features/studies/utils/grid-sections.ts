@@ -1,5 +1,4 @@
-import { headerAliases } from '@meritline/shared';
-import type { ImportSection } from '../api/types';
+import { headerAliases, type ImportSection } from '@meritline/shared';
 import { isNotDetected, parseDecimal } from './parse-number';
 
 export type CellKind = 'number' | 'positive' | 'text' | 'numberOrNotDetected';

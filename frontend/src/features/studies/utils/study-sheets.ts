@@ -1,5 +1,4 @@
-import { MODELS, WEIGHTINGS, type CalibrationModel, type Weighting } from '@meritline/shared';
-import { IMPORT_SECTIONS, type ImportSection } from '../api/types';
+import { MODELS, WEIGHTINGS, type CalibrationModel, type Weighting, IMPORT_SECTIONS, type ImportSection } from '@meritline/shared';
 import { newRow, rowProblems, sectionColumns, type GridRow, type SectionUnits } from './grid-sections';
 import { isNotDetected, parseDecimal } from './parse-number';
 

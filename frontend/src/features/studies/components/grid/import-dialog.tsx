@@ -1,3 +1,4 @@
+import type { ImportPreviewDto, ImportSection, StudyDto } from '@meritline/shared';
 import {
   Alert,
   Button,
@@ -17,7 +18,6 @@ import {
 import { useState } from 'react';
 import { isApiError } from '@/lib/api-client';
 import { useApplyImport, usePreviewImport } from '../../api/import-study-file';
-import type { ImportPreview, ImportSection, StudyDto } from '../../api/types';
 
 interface ImportField {
   key: string;
@@ -55,7 +55,7 @@ const IMPORT_FIELDS: Record<ImportSection, ImportField[]> = {
   ],
 };
 
-function fieldsFor(section: ImportSection, preview: ImportPreview | undefined): ImportField[] {
+function fieldsFor(section: ImportSection, preview: ImportPreviewDto | undefined): ImportField[] {
   const known = IMPORT_FIELDS[section];
   const replicates = Object.keys(preview?.mapping ?? {})
     .filter((key) => !known.some((f) => f.key === key))

@@ -1,9 +1,9 @@
+import type { ImportSection, StudyDto } from '@meritline/shared';
 import { Button, HStack, Stack, Text } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import { downloadImportTemplate } from '../../api/import-study-file';
-import type { ImportSection, StudyDto } from '../../api/types';
 import { isBlankRow, rowProblems, sectionColumns, type GridRow, type SectionUnits } from '../../utils/grid-sections';
 import { DataGrid } from './data-grid';
 import { ImportDialog } from './import-dialog';

@@ -1,10 +1,10 @@
+import type { StudySort, StudySummaryDto } from '@meritline/shared';
 import { Button, chakra, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
 import { formatDateTime } from '@/lib/format';
-import type { StudySort, StudySummary } from '../../api/types';
 import { StudyStatusBadge } from '../study-status-badge';
 
 export interface ServerSort {
@@ -42,12 +42,13 @@ function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: S
   );
 }
 
-const column = dataTableColumns<StudySummary>();
+const column = dataTableColumns<StudySummaryDto>();
 const dateOnly = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
 
-const isEditable = (study: StudySummary) => study.status === 'draft' || study.status === 'returned';
+const isEditable = (study: StudySummaryDto) => study.status === 'draft' || study.status === 'returned';
 /** Drafts open in the wizard; submitted and approved studies on their read-only review page. */
-const studyHref = (study: StudySummary) => (isEditable(study) ? paths.studyEdit.getHref(study.id, 2) : paths.studyView.getHref(study.id));
+const studyHref = (study: StudySummaryDto) =>
+  isEditable(study) ? paths.studyEdit.getHref(study.id, 2) : paths.studyView.getHref(study.id);
 
 /** Columns of the studies list; the sortable headers ask the server to sort. */
 export function studiesColumns(sort: ServerSort) {

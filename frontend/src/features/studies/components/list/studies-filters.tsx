@@ -1,7 +1,6 @@
 import { Button, Checkbox, Field, HStack, Input, NativeSelect, Wrap } from '@chakra-ui/react';
-import type { StudyStatus } from '@meritline/shared';
+import type { StudyStatus, MethodDto } from '@meritline/shared';
 import { useEffect, useState } from 'react';
-import type { MethodChoice } from '../../api/types';
 import { STUDY_STATUS_WORDS } from '../study-status-badge';
 
 export interface StudyFilters {
@@ -15,7 +14,7 @@ export interface StudyFilters {
 
 export interface StudiesFiltersProps {
   filters: StudyFilters;
-  methods: readonly MethodChoice[];
+  methods: readonly MethodDto[];
   onChange: (filters: StudyFilters) => void;
 }
 

@@ -1,10 +1,10 @@
+import type { StudyDto } from '@meritline/shared';
 import { Button, CloseButton, Dialog, Portal, Text } from '@chakra-ui/react';
 import { useState } from 'react';
 import { useNavigate } from 'react-router';
 import { toaster } from '@/components/ui/toaster';
 import { paths } from '@/lib/config/paths';
 import { useDeleteStudy } from '../../api/delete-study';
-import type { StudyDto } from '../../api/types';
 
 /** Deletes a draft its author no longer needs; submitted and returned studies stay on record. */
 export function DeleteDraft({ study }: { study: StudyDto }) {

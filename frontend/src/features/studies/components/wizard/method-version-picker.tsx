@@ -1,8 +1,7 @@
 import { Badge, Box, HStack, Link, NativeSelect, RadioGroup, Stack, Text } from '@chakra-ui/react';
-import type { MethodVersionStatus } from '@meritline/shared';
+import type { MethodVersionStatus, MethodDto } from '@meritline/shared';
 import { Link as RouterLink } from 'react-router';
 import { paths } from '@/lib/config/paths';
-import type { MethodChoice } from '../../api/types';
 
 const VERSION_WORDS: Record<MethodVersionStatus, { label: string; note: string; palette: string }> = {
   active: { label: 'Active', note: 'In force for routine work.', palette: 'brand' },
@@ -13,7 +12,7 @@ const VERSION_WORDS: Record<MethodVersionStatus, { label: string; note: string; 
 export const selectableVersion = (status: MethodVersionStatus) => status === 'draft' || status === 'active';
 
 /** The version a new study should start on: the active one, else the newest draft. */
-export function defaultVersion(method: MethodChoice | undefined): string {
+export function defaultVersion(method: MethodDto | undefined): string {
   const versions = [...(method?.versions ?? [])].sort((a, b) => b.number - a.number);
   return (versions.find((v) => v.status === 'active') ?? versions.find((v) => v.status === 'draft'))?.id ?? '';
 }
@@ -24,7 +23,7 @@ export function MethodSelect({
   onChange,
   invalid,
 }: {
-  methods: readonly MethodChoice[];
+  methods: readonly MethodDto[];
   value: string;
   onChange: (methodId: string) => void;
   invalid?: boolean;
@@ -49,7 +48,7 @@ export function VersionPicker({
   value,
   onChange,
 }: {
-  method: MethodChoice | undefined;
+  method: MethodDto | undefined;
   value: string;
   onChange: (versionId: string) => void;
 }) {

@@ -1,9 +1,9 @@
-import type { Role } from './roles.js';
-import type { SignatureMeaning, StudySection, StudyStatus } from './api-types.js';
+import type { Role } from '../roles.js';
+import type { StudySection, StudyStatus } from './studies.js';
+
+export type SignatureMeaning = 'authored' | 'reviewed-and-approved' | 'released';
 
 /** Review and sign-off answers of the API, shared by the server and the browser. */
-
-export const STUDY_SECTIONS: readonly StudySection[] = ['setup', 'standards', 'blanks', 'recovery', 'precision', 'results', 'conclusion'];
 
 export type FieldChanges = Record<string, { from: unknown; to: unknown }>;
 

@@ -1,0 +1,16 @@
+/** The answer to an uploaded PDF: only a byte-identical copy of an issued report is valid. */
+export type ReportVerification =
+  | {
+      valid: true;
+      studyId: string;
+      studyTitle: string;
+      reportId: string;
+      methodName: string;
+      methodVersion: number;
+      signedAt: string;
+      sha256: string;
+    }
+  | { valid: false; reason: string };
+
+/** Largest PDF the verify route takes. */
+export const MAX_REPORT_BYTES = 20 * 1024 * 1024;
