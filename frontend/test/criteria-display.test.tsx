@@ -1,7 +1,7 @@
-import { evaluateStudy } from '@meritline/shared';
+import { evaluateStudy, formatNumber } from '@meritline/shared';
 import { screen, within } from '@testing-library/react';
 import { CalibrationTable } from '@/components/study-results/calibration-figures';
-import { describeRequirement, formatNumber } from '@/components/study-results/format';
+import { describeRequirement } from '@/components/study-results/format';
 import { judgeCriteria } from '@/components/study-results/judge-criteria';
 import { VerdictSummary } from '@/components/study-results/verdict-summary';
 import type { CriterionDefinition } from '@/components/study-results/types';

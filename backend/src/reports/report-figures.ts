@@ -1,5 +1,5 @@
 import type { CriterionOp, DetectionApproach, Units } from '@meritline/shared';
-import { formatFixed, formatNumber, formatPercent, formatPValue } from './pdf/index.js';
+import { formatFixed, formatNumber, formatPercentValue, formatPValue } from './pdf/index.js';
 
 export const APPROACH_LABELS: Record<DetectionApproach, string> = {
   sdResidual: 'Residual SD of the calibration, ICH Q2(R2)',
@@ -112,7 +112,7 @@ export function describeFigure(figure: string, units: Units): FigureDescription 
 export function formatFigure(value: number | null, kind: FigureKind, digits?: number): string {
   switch (kind) {
     case 'percent':
-      return digits ? formatNumber(value, digits) : formatPercent(value);
+      return digits ? formatNumber(value, digits) : formatPercentValue(value);
     case 'p':
       return formatPValue(value);
     case 'correlation':

@@ -5,7 +5,7 @@ import {
   formatDate,
   formatDateTime,
   formatNumber,
-  formatPercent,
+  formatPercentValue,
   withUnit,
   type PlotLayer,
   type PlotPoint,
@@ -184,7 +184,7 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
         formatNumber(b.onePoint, 4),
         formatNumber(b.regression, 4),
         formatNumber(b.bias, 3),
-        formatPercent(b.biasPct),
+        formatPercentValue(b.biasPct),
       ]),
     });
   }
@@ -199,7 +199,7 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
       { header: 'Outcome' },
     ],
     rows: result.checks.map((c) => ({
-      cells: [c.id, formatNumber(c.nominal, 4), formatNumber(c.found, 4), formatPercent(c.recoveryPct), c.pass ? 'pass' : 'FAIL'],
+      cells: [c.id, formatNumber(c.nominal, 4), formatNumber(c.found, 4), formatPercentValue(c.recoveryPct), c.pass ? 'pass' : 'FAIL'],
       bold: !c.pass,
     })),
     note: `Acceptance window: ${result.acceptance.low} to ${result.acceptance.high} % recovery.`,

@@ -89,8 +89,17 @@ function subsetOf(codePoint: number): Subset {
   return SUBSETS.find((subset) => ranges[subset].some(([from, to]) => codePoint >= from && codePoint <= to)) ?? 'latin';
 }
 
+const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
+
+/** The fonts lack most superscript digits: a power of ten such as 10⁻⁸ prints as 10^-8. */
+function plainPowers(text: string): string {
+  return text.replace(/10([⁻]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+)/g, (_match, power: string) =>
+    `10^${[...power].map((char) => (char === '⁻' ? '-' : String(SUPERSCRIPT_DIGITS.indexOf(char)))).join('')}`,
+  );
+}
+
 export function printable(text: string): string {
-  return [...text.normalize('NFC')].map((char) => SUBSTITUTES[char] ?? char).join('');
+  return [...plainPowers(text.normalize('NFC'))].map((char) => SUBSTITUTES[char] ?? char).join('');
 }
 
 export interface FontRun {

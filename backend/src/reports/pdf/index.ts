@@ -2,6 +2,7 @@ export { createPdfComposer, PdfComposer, type CalloutTone, type PdfComposerOptio
 export type { TableColumn, TableRow, TableSpec } from './table.js';
 export type { PlotAxis, PlotLayer, PlotPoint, PlotSpec } from './plot.js';
 export { niceTicks, type AxisTicks } from './ticks.js';
+// Reports format numbers by the same rules as the screens.
 export {
   formatDate,
   formatDateTime,
@@ -12,9 +13,10 @@ export {
   formatLevel,
   formatNumber,
   formatPercent,
+  formatPercentValue,
   formatPValue,
   pText,
   NOT_AVAILABLE,
   withUnit,
-} from './format.js';
+} from '@meritline/shared';
 export { colors, sizes } from './theme.js';

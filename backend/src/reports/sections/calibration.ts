@@ -9,13 +9,14 @@ import {
   formatLevel,
   formatNumber,
   formatPercent,
+  formatPercentValue,
   formatPValue,
   NOT_AVAILABLE,
-  pText,
-  withUnit,
   type PdfComposer,
   type PlotLayer,
+  pText,
   type TableRow,
+  withUnit,
 } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { confidenceWords, MODEL_WORDS, notEvaluated, plural, sectionWarnings, WEIGHTING_WORDS, xUnit, yUnit } from './common.js';
@@ -207,7 +208,7 @@ function linearityInWords(pdf: PdfComposer, result: EvaluationResult, x: string,
     lines.push(
       `Intercept: ${formatNumber(it.intercept)} ${y} (standard error ${formatNumber(it.seIntercept)}), t = ${formatNumber(it.t, 3)} with ${it.df} degrees of freedom, ${pText(it.p)}: ` +
         (it.significant ? 'significantly different from zero' : 'not significantly different from zero') +
-        `. The intercept is ${formatPercent(it.interceptPctOfTopResponse)} % of the response at the top standard.`,
+        `. The intercept is ${formatPercent(it.interceptPctOfTopResponse)} of the response at the top standard.`,
     );
   }
   const o = result.throughOrigin;
@@ -382,7 +383,7 @@ function samples(pdf: PdfComposer, result: EvaluationResult, x: string, y: strin
         { header: `Found (${x})`, align: 'right' },
         { header: 'Recovery %', align: 'right' },
       ],
-      rows: checks.map((c) => [c.id, formatLevel(c.nominal), formatNumber(c.found), formatPercent(c.recoveryPct)]),
+      rows: checks.map((c) => [c.id, formatLevel(c.nominal), formatNumber(c.found), formatPercentValue(c.recoveryPct)]),
     });
   }
   const range = result.range;

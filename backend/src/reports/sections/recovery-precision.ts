@@ -5,11 +5,12 @@ import {
   formatInterval,
   formatNumber,
   formatPercent,
+  formatPercentValue,
   formatPValue,
   NOT_AVAILABLE,
-  withUnit,
   type PdfComposer,
   type TableRow,
+  withUnit,
 } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { confidenceWords, notEvaluated, sectionWarnings, xUnit } from './common.js';
@@ -19,9 +20,9 @@ function groupRow(group: RecoveryGroup, label: string): string[] {
   return [
     label,
     String(group.n),
-    formatPercent(group.meanPct),
-    formatPercent(group.sdPct),
-    formatPercent(group.rsdPct),
+    formatPercentValue(group.meanPct),
+    formatPercentValue(group.sdPct),
+    formatPercentValue(group.rsdPct),
     formatInterval(group.ci, (v) => formatFixed(v, 1)),
     formatNumber(group.t, 3),
     formatPValue(group.p),
@@ -56,7 +57,7 @@ function recovery(pdf: PdfComposer, content: ReportContent, result: EvaluationRe
         input ? String(input.added) : NOT_AVAILABLE,
         input ? String(input.native ?? 0) : NOT_AVAILABLE,
         input ? String(input.found) : NOT_AVAILABLE,
-        formatPercent(item.pct),
+        formatPercentValue(item.pct),
       ];
     }),
     note: 'Recovery % = 100 (found - native) / added.',
@@ -132,20 +133,14 @@ function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationR
       'Results',
       `N = ${p.N} in k = ${p.k} series; grand mean ${withUnit(formatNumber(p.grandMean, 5), x)}${p.n0 === null ? '' : `; n0 = ${formatNumber(p.n0, 3)}`}`,
     ],
-    [
-      'Repeatability',
-      `s_r = ${withUnit(formatNumber(p.sR, 3), x)}, RSD_r = ${p.rsdR === null ? NOT_AVAILABLE : `${formatPercent(p.rsdR)} %`}`,
-    ],
+    ['Repeatability', `s_r = ${withUnit(formatNumber(p.sR, 3), x)}, RSD_r = ${formatPercent(p.rsdR)}`],
     ['Between-series SD', p.sBetween === null ? NOT_AVAILABLE : withUnit(formatNumber(p.sBetween, 3), x)],
-    [
-      'Intermediate precision',
-      `s_I = ${withUnit(formatNumber(p.sI, 3), x)}, RSD_I = ${p.rsdI === null ? NOT_AVAILABLE : `${formatPercent(p.rsdI)} %`}`,
-    ],
+    ['Intermediate precision', `s_I = ${withUnit(formatNumber(p.sI, 3), x)}, RSD_I = ${formatPercent(p.rsdI)}`],
   ];
   if (p.horwitz) {
     pairs.push([
       'Horwitz',
-      `mass fraction ${formatNumber(p.horwitz.massFraction, 3)}; predicted RSD_R = ${formatPercent(p.horwitz.predictedRsd)} % (2^(1 - 0.5 log10 C), Horwitz 1980); ` +
+      `mass fraction ${formatNumber(p.horwitz.massFraction, 3)}; predicted RSD_R = ${formatPercent(p.horwitz.predictedRsd)} (2^(1 - 0.5 log10 C), Horwitz 1980); ` +
         `HorRat = RSD_I / PRSD_R = ${formatFixed(p.horwitz.horRat, 2)}; repeatability HorRat = ${formatFixed(p.horwitz.horRatRepeatability, 2)}`,
     ]);
   } else {

@@ -81,10 +81,10 @@ export function summarySection(pdf: PdfComposer, content: ReportContent): void {
       ['Limits from', limits ? APPROACH_LABELS[limits.approach] : NOT_AVAILABLE],
       [
         'Mean recovery',
-        result.recovery ? `${formatPercent(result.recovery.overall.meanPct)} % (n = ${result.recovery.overall.n})` : NOT_AVAILABLE,
+        result.recovery ? `${formatPercent(result.recovery.overall.meanPct)} (n = ${result.recovery.overall.n})` : NOT_AVAILABLE,
       ],
-      ['Repeatability RSD', result.precision?.rsdR == null ? NOT_AVAILABLE : `${formatPercent(result.precision.rsdR)} %`],
-      ['Intermediate precision RSD', result.precision?.rsdI == null ? NOT_AVAILABLE : `${formatPercent(result.precision.rsdI)} %`],
+      ['Repeatability RSD', formatPercent(result.precision?.rsdR)],
+      ['Intermediate precision RSD', formatPercent(result.precision?.rsdI)],
     ],
     { labelWidth: 150 },
   );

@@ -1,9 +1,10 @@
+import { formatInterval, formatNumber, formatPercent, pText, withUnit } from '@meritline/shared';
 import { Text } from '@chakra-ui/react';
 import type { CalibrationLevel, EvaluationResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';
 import { FiguresTable, type FigureRow } from './figures-table';
-import { formatInterval, formatNumber, formatPercent, MODEL_LABELS, pText, slopeUnit, WEIGHTING_LABELS, withUnit } from './format';
+import { MODEL_LABELS, slopeUnit, WEIGHTING_LABELS } from './format';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
 import type { StudyUnits } from './types';
 

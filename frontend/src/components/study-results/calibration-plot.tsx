@@ -1,6 +1,6 @@
+import { formatNumber } from '@meritline/shared';
 import type { EvaluationResult, StudyInput } from '@meritline/shared';
 import type { Data, Layout } from 'plotly.js-dist-min';
-import { formatNumber } from './format';
 import { LazyPlot } from './lazy-plot';
 import type { StudyResultsProps, StudyUnits } from './types';
 

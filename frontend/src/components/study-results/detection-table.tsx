@@ -1,8 +1,8 @@
+import { formatNumber, withUnit } from '@meritline/shared';
 import { Text } from '@chakra-ui/react';
 import type { DetectionApproach, EvaluationResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
-import { formatNumber, withUnit } from './format';
 import { criteriaUnder, type JudgedCriterion } from './judge-criteria';
 import type { StudyUnits } from './types';
 

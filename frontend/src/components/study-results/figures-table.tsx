@@ -1,7 +1,8 @@
+import { formatNumber, withUnit } from '@meritline/shared';
 import { Stack, Text } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';
-import { describeRequirement, formatNumber, withUnit } from './format';
+import { describeRequirement } from './format';
 import type { JudgedCriterion } from './judge-criteria';
 
 export interface FigureRow {

@@ -1,4 +1,5 @@
 import {
+  formatLevel,
   figureLabel as catalogueFigureLabel,
   figureUnit as catalogueFigureUnit,
   findFigure,
@@ -6,59 +7,6 @@ import {
   type CriterionOp,
 } from '@meritline/shared';
 import type { CriterionDefinition } from './types';
-
-const SUPERSCRIPT: Record<string, string> = {
-  '-': '⁻',
-  '0': '⁰',
-  '1': '¹',
-  '2': '²',
-  '3': '³',
-  '4': '⁴',
-  '5': '⁵',
-  '6': '⁶',
-  '7': '⁷',
-  '8': '⁸',
-  '9': '⁹',
-};
-
-/** A number to `digits` significant figures; very large or small values as a × 10ⁿ. */
-export function formatNumber(value: number | null | undefined, digits = 4): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
-  if (value === 0) return '0';
-  const magnitude = Math.abs(value);
-  if (magnitude >= 1e6 || magnitude < 1e-4) {
-    const [mantissa, exponent] = value.toExponential(digits - 1).split('e');
-    const power = String(Number(exponent)).replace(/./g, (c) => SUPERSCRIPT[c] ?? c);
-    return `${mantissa.replace(/\.?0+$/, '')} × 10${power}`;
-  }
-  // 0.999995 to 4 figures would read "1": add figures until a non-integer stays a non-integer.
-  let shown = digits;
-  while (shown < 12 && !Number.isInteger(value) && Number.isInteger(Number(value.toPrecision(shown)))) shown++;
-  return String(Number(value.toPrecision(shown)));
-}
-
-export function formatPercent(value: number | null | undefined, digits = 4): string {
-  return value === null || value === undefined || !Number.isFinite(value) ? '—' : `${formatNumber(value, digits)} %`;
-}
-
-export function formatP(p: number | null | undefined): string {
-  if (p === null || p === undefined || !Number.isFinite(p)) return '—';
-  return p < 0.001 ? '< 0.001' : p.toFixed(3);
-}
-
-/** "p = 0.042" or "p < 0.001". */
-export function pText(p: number | null | undefined): string {
-  const text = formatP(p);
-  return text.startsWith('<') ? `p ${text}` : `p = ${text}`;
-}
-
-export function formatInterval(interval: readonly [number, number] | null | undefined, digits = 4): string {
-  return interval ? `${formatNumber(interval[0], digits)} to ${formatNumber(interval[1], digits)}` : '—';
-}
-
-export function withUnit(text: string, unit: string | undefined): string {
-  return unit && text !== '—' ? `${text} ${unit}` : text;
-}
 
 const OP_WORDS: Record<Exclude<CriterionOp, 'between'>, string> = {
   '>=': 'at least',
@@ -73,10 +21,10 @@ export function describeRequirement(op: CriterionOp, threshold: number | [number
   const suffix = unit ? ` ${unit}` : '';
   if (op === 'between') {
     const [low, high] = threshold as [number, number];
-    return `from ${formatNumber(low, 6)} to ${formatNumber(high, 6)}${suffix}`;
+    return `from ${formatLevel(low)} to ${formatLevel(high)}${suffix}`;
   }
   const words = OP_WORDS[op];
-  return `${words} ${formatNumber(threshold as number, 6)}${suffix}`;
+  return `${words} ${formatLevel(threshold as number)}${suffix}`;
 }
 
 /** Figures a criterion commonly names, with their words (the catalogue in shared). */

@@ -1,7 +1,7 @@
+import { formatNumber } from '@meritline/shared';
 import { HStack, Text } from '@chakra-ui/react';
 import type { EvaluationResult, OutlierFlag } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { formatNumber } from './format';
 import { FailsIcon, MeetsIcon } from './icons';
 
 export const OUTLIER_TESTS: Record<OutlierFlag['test'], string> = {

@@ -1,7 +1,7 @@
+import { formatNumber, formatPValue, formatPercent, withUnit } from '@meritline/shared';
 import type { EvaluationResult, PrecisionSeries } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { FiguresTable, type FigureRow } from './figures-table';
-import { formatNumber, formatP, formatPercent, withUnit } from './format';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
 import type { StudyUnits } from './types';
 
@@ -21,7 +21,7 @@ const anovaColumns = anovaColumn.columns([
   anovaColumn.accessor('df', { header: 'df', meta: { align: 'end' }, cell: (info) => info.getValue() ?? '—' }),
   anovaColumn.accessor('ms', { header: 'Mean square', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 5) }),
   anovaColumn.accessor('F', { header: 'F', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 4) }),
-  anovaColumn.accessor('p', { header: 'p', meta: { align: 'end' }, cell: (info) => formatP(info.getValue()) }),
+  anovaColumn.accessor('p', { header: 'p', meta: { align: 'end' }, cell: (info) => formatPValue(info.getValue()) }),
 ]);
 
 const seriesColumn = dataTableColumns<PrecisionSeries>();

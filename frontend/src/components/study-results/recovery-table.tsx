@@ -1,8 +1,8 @@
+import { formatInterval, formatNumber, formatPercent, pText } from '@meritline/shared';
 import { Text } from '@chakra-ui/react';
 import type { EvaluationResult, RecoveryGroup, RecoveryItemResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
-import { formatInterval, formatNumber, formatPercent, pText } from './format';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
 
 interface RecoveryRow extends RecoveryGroup {

@@ -1,6 +1,7 @@
+import { formatNumber, pText, withUnit } from '@meritline/shared';
 import { Alert, Stack } from '@chakra-ui/react';
 import type { EvaluationResult, UnknownFlag } from '@meritline/shared';
-import { formatNumber, pText, WEIGHTING_LABELS, withUnit } from './format';
+import { WEIGHTING_LABELS } from './format';
 import { OUTLIER_TESTS } from './outliers-table';
 import type { StudyResultsProps } from './types';
 

@@ -1,6 +1,6 @@
+import { formatInterval, formatNumber } from '@meritline/shared';
 import type { EvaluationResult, UnknownFlag, UnknownResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { formatInterval, formatNumber } from './format';
 
 const FLAG_WORDS: Record<UnknownFlag, string> = {
   belowRange: 'below the lowest standard',

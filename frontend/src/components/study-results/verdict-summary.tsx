@@ -1,8 +1,8 @@
 import { Box, HStack, Stack, Text } from '@chakra-ui/react';
-import { findFigure } from '@meritline/shared';
+import { findFigure, formatNumber, withUnit } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';
-import { describeRequirement, formatNumber, withUnit } from './format';
+import { describeRequirement } from './format';
 import { FailsIcon, MeetsIcon, NotJudgedIcon } from './icons';
 import { judgeCriteria, type JudgedCriterion } from './judge-criteria';
 import type { StudyResultsProps } from './types';

@@ -1,9 +1,10 @@
+import { formatNumber, formatPercent, withUnit } from '@meritline/shared';
 import { Stack, Text } from '@chakra-ui/react';
 import type { EvaluationResult, RangeLevel } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';
-import { figureLabel, formatNumber, formatPercent, withUnit } from './format';
+import { figureLabel } from './format';
 import type { StudyUnits } from './types';
 
 const column = dataTableColumns<RangeLevel>();

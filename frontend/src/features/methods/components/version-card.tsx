@@ -5,8 +5,8 @@ import {
   REVALIDATION_FAMILY_LABELS,
   type MethodDto,
   type MethodVersionDto,
+  formatDateTime,
 } from '@meritline/shared';
-import { formatDateTime } from '@/lib/format';
 import { CriteriaList } from './criteria-list';
 import { VersionFormDialog } from './version-form-dialog';
 import { VersionStatusAction } from './version-status-action';

@@ -1,3 +1,4 @@
+import { formatDateTime } from '@meritline/shared';
 import { Box, DataList, Heading, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { Link as RouterLink, useParams } from 'react-router';
@@ -5,7 +6,6 @@ import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { methodsQueries } from '../api/methods-queries';
 import { useMethodPermissions } from '../hooks/use-method-permissions';
 import { VersionCard } from '../components/version-card';

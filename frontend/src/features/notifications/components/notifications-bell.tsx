@@ -1,8 +1,8 @@
+import { formatDateTime } from '@meritline/shared';
 import { Box, Button, Float, HStack, IconButton, Popover, Portal, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useNavigate } from 'react-router';
-import { formatDateTime } from '@/lib/format';
 import { useMarkAllRead, useMarkRead } from '../api/mark-read';
 import { notificationsQueries, type NotificationItem } from '../api/notifications-queries';
 

@@ -1,3 +1,4 @@
+import { formatDateTime } from '@meritline/shared';
 import { Box, Button, Grid, Heading, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import type { OutboxMessageDto } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
@@ -7,7 +8,6 @@ import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { outboxQueries } from '../api/outbox-queries';
 
 const column = dataTableColumns<OutboxMessageDto>();
@@ -30,12 +30,12 @@ const outboxColumns = column.columns([
     header: 'Sent',
     meta: { align: 'end' },
     cell: (info) => {
-      const sent = new Date(info.getValue());
+      const [date, time] = formatDateTime(info.getValue()).split(' ');
       return (
-        <Stack gap="0" fontSize="sm" whiteSpace="nowrap" title={formatDateTime(info.getValue())}>
-          <Text as="span">{sent.toLocaleDateString()}</Text>
+        <Stack gap="0" fontSize="sm" whiteSpace="nowrap">
+          <Text as="span">{date}</Text>
           <Text as="span" color="fg.muted">
-            {sent.toLocaleTimeString(undefined, { hour: '2-digit', minute: '2-digit' })}
+            {time} UTC
           </Text>
         </Stack>
       );

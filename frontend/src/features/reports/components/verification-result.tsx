@@ -1,6 +1,6 @@
+import { formatDateTime } from '@meritline/shared';
 import type { ReportVerification } from '@meritline/shared';
 import { Alert, Code, DataList, Stack, Text } from '@chakra-ui/react';
-import { formatDateTime } from '@/lib/format';
 
 /** The answer in plain words: which report it is, or why the file cannot be trusted. */
 export function VerificationResult({ fileName, verification }: { fileName: string; verification: ReportVerification }) {

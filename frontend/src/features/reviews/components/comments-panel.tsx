@@ -1,9 +1,9 @@
+import { formatDateTime } from '@meritline/shared';
 import { Badge, Box, Button, Heading, HStack, NativeSelect, Stack, Text, Textarea } from '@chakra-ui/react';
 import type { StudySection } from '@meritline/shared';
 import { useState } from 'react';
 import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
-import { formatDateTime } from '@/lib/format';
 import { commentSchema, usePostComment, useResolveComment } from '../api/comments';
 import { SECTION_LABELS, type StudyComment } from '../api/review-types';
 

@@ -1,7 +1,6 @@
+import { formatNumber, formatDateTime } from '@meritline/shared';
 import { Badge, Box, Heading, Stack, Table, Text } from '@chakra-ui/react';
 import type { StudyInput } from '@meritline/shared';
-import { formatNumber } from '@/components/study-results';
-import { formatDateTime } from '@/lib/format';
 import type { StudyDiff } from '../api/review-types';
 
 const SECTION_NAMES: Record<string, string> = {

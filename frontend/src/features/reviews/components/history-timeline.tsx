@@ -1,5 +1,5 @@
+import { formatDateTime } from '@meritline/shared';
 import { Badge, Box, HStack, Stack, Text } from '@chakra-ui/react';
-import { formatDateTime } from '@/lib/format';
 import { STATUS_LABELS, type HistoryItem } from '../api/review-types';
 
 const KIND_COLOURS: Record<HistoryItem['kind'], string> = { status: 'brand', signature: 'green', comment: 'orange', record: 'gray' };

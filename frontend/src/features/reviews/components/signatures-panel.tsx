@@ -1,6 +1,5 @@
 import { Alert, Badge, Box, Code, HStack, Stack, Text } from '@chakra-ui/react';
-import { ROLE_LABELS } from '@meritline/shared';
-import { formatDateTime } from '@/lib/format';
+import { ROLE_LABELS, formatDateTime } from '@meritline/shared';
 import { MEANING_LABELS, type Signature } from '../api/review-types';
 
 const utc = (iso: string) => `${iso.slice(0, 16).replace('T', ' ')} UTC`;

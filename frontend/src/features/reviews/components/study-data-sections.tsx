@@ -1,8 +1,9 @@
+import { formatNumber } from '@meritline/shared';
 import { Heading, Stack, Text } from '@chakra-ui/react';
 import type { StudyInput } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { formatNumber, MODEL_LABELS, WEIGHTING_LABELS } from '@/components/study-results';
+import { MODEL_LABELS, WEIGHTING_LABELS } from '@/components/study-results';
 
 interface Row {
   id: string;

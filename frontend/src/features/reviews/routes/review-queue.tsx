@@ -1,3 +1,4 @@
+import { formatDateTime } from '@meritline/shared';
 import { Badge, Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -6,7 +7,6 @@ import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { reviewQueueQueries } from '../api/review-queries';
 import type { QueueItem } from '../api/review-types';
 

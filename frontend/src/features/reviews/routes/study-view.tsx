@@ -1,3 +1,4 @@
+import { formatDateTime } from '@meritline/shared';
 import { Alert, Badge, Box, Heading, HStack, Stack, Tabs, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -7,7 +8,6 @@ import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
 import { CalibrationPlot, ResidualPlot, StudyFigures, VerdictSummary } from '@/components/study-results';
 import { useSession } from '@/lib/auth';
-import { formatDateTime } from '@/lib/format';
 import { studyReviewQueries } from '../api/review-queries';
 import { STATUS_LABELS, type HistoryItem, type StudyView } from '../api/review-types';
 import { ApprovalCaution } from '../components/approval-caution';

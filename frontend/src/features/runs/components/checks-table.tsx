@@ -1,7 +1,7 @@
+import { formatNumber } from '@meritline/shared';
 import { useMemo } from 'react';
 import { Badge } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { formatNumber } from '@/components/study-results';
 import type { RunCheck } from '../api/types';
 import { headerWithUnit } from './column-header';
 

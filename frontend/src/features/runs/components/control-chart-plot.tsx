@@ -1,5 +1,5 @@
+import { formatNumber, formatDate } from '@meritline/shared';
 import type { Data, Shape } from 'plotly.js-dist-min';
-import { formatNumber } from '@/components/study-results';
 import { LazyPlot } from '@/components/study-results/lazy-plot';
 import type { ControlChart } from '../api/types';
 
@@ -16,7 +16,7 @@ export function ControlChartPlot({ chart }: { chart: ControlChart }) {
       name: 'Slope of an accepted run',
       x,
       y: chart.points.map((p) => p.slope),
-      text: chart.points.map((p) => `${p.title}<br>${new Date(p.createdAt).toLocaleDateString()}`),
+      text: chart.points.map((p) => `${p.title}<br>${formatDate(p.createdAt)}`),
       line: { color: 'rgba(28,79,75,0.35)', width: 1 },
       marker: {
         size: 10,

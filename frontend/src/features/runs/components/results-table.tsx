@@ -1,8 +1,7 @@
 import { Badge, Stack, Text } from '@chakra-ui/react';
-import { roundToInterval } from '@meritline/shared';
+import { roundToInterval, formatNumber } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { formatNumber } from '@/components/study-results';
 import type { RunUnknown } from '../api/types';
 import { headerWithUnit } from './column-header';
 

@@ -1,9 +1,9 @@
+import { formatNumber } from '@meritline/shared';
 import { Alert, Box, DataList, Heading, List, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useFormikContext } from 'formik';
 import { useEffect } from 'react';
 import { FormField } from '@/components/form/form-field';
-import { formatNumber } from '@/components/study-results';
 import { isApiError } from '@/lib/api-client';
 import { buildRunInput, formFieldOf, standardLevels, type RunFormValues } from '../api/create-run';
 import { runsQueries } from '../api/runs-queries';

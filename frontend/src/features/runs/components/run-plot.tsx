@@ -1,6 +1,7 @@
+import { formatNumber } from '@meritline/shared';
 import type { EvaluationResult, StudyInput } from '@meritline/shared';
 import type { Data } from 'plotly.js-dist-min';
-import { calibrationFigure, formatNumber } from '@/components/study-results';
+import { calibrationFigure } from '@/components/study-results';
 import { PLOT_COLOURS } from '@/components/study-results/calibration-plot';
 import { LazyPlot } from '@/components/study-results/lazy-plot';
 import type { RunData, RunResult } from '../api/types';

@@ -1,12 +1,18 @@
 import { Badge, Box, Card, HStack, Stack, Table, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { Link as RouterLink } from 'react-router';
-import { Role, RUN_REVIEW_STATUS_LABELS, RUN_SIGNATURE_MEANING_LABELS, RunReviewStatus, type RunReviewDto } from '@meritline/shared';
+import {
+  Role,
+  RUN_REVIEW_STATUS_LABELS,
+  RUN_SIGNATURE_MEANING_LABELS,
+  RunReviewStatus,
+  type RunReviewDto,
+  formatDateTime,
+} from '@meritline/shared';
 import { SignatureDialog } from '@/components/signature-dialog';
 import { toaster } from '@/components/ui/toaster';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { runReleaseQueries, useRunReleaseAction } from '../api/run-release';
 
 const STATUS_COLOURS: Record<RunReviewStatus, string> = {

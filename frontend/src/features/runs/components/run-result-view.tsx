@@ -1,7 +1,6 @@
 import { Alert, Box, DataList, Heading, List, Stack, Text } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
-import { formatR2, type RunStatus } from '@meritline/shared';
-import { formatNumber } from '@/components/study-results';
+import { formatR2, type RunStatus, formatNumber } from '@meritline/shared';
 import type { RunData, RunResult } from '../api/types';
 import { ChecksTable } from './checks-table';
 import { OnePointBiasTable } from './one-point-bias';

@@ -1,9 +1,8 @@
+import { formatNumber, formatDateTime } from '@meritline/shared';
 import { Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
-import { formatNumber } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import type { RunModel, RunSummary } from '../api/types';
 import { RunStatusBadge } from './run-status-badge';
 

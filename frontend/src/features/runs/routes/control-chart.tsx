@@ -1,12 +1,11 @@
+import { formatNumber, formatDateTime } from '@meritline/shared';
 import { Alert, Badge, Box, Field, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
-import { formatNumber } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { runsQueries } from '../api/runs-queries';
 import type { ControlChart, ControlFlag } from '../api/types';
 import { ControlChartPlot } from '../components/control-chart-plot';

@@ -1,3 +1,4 @@
+import { formatDateTime } from '@meritline/shared';
 import { Button, HStack, Menu, Portal, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -9,7 +10,6 @@ import { MODEL_LABELS } from '@/components/study-results';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { downloadRunFile, type RunFileKind } from '../api/run-files';
 import { runsQueries } from '../api/runs-queries';
 import { RunReleaseActions, RunReleasePanel, RunReviewBadge, useRunReview } from '../components/run-release-panel';

@@ -1,7 +1,6 @@
 import { Badge, HStack, Stack, Text } from '@chakra-ui/react';
-import { ROLE_LABELS, type UserDto } from '@meritline/shared';
+import { ROLE_LABELS, type UserDto, formatDateTime } from '@meritline/shared';
 import { dataTableColumns } from '@/components/data-table';
-import { formatDateTime } from '@/lib/format';
 import { UserActions } from './user-actions';
 
 function UserStatus({ user }: { user: UserDto }) {
@@ -63,7 +62,7 @@ export const usersColumns = column.columns([
     sortFn: 'datetime',
     sortUndefined: 'last',
     meta: { align: 'end' },
-    cell: (info) => formatDateTime(info.getValue(), 'Never'),
+    cell: (info) => (info.getValue() ? formatDateTime(info.getValue()) : 'Never'),
   }),
   column.display({
     id: 'actions',

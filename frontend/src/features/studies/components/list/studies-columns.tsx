@@ -1,10 +1,10 @@
+import { formatDateTime, formatDate } from '@meritline/shared';
 import type { StudySort, StudySummaryDto } from '@meritline/shared';
 import { Button, chakra, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { StudyStatusBadge } from '../study-status-badge';
 
 export interface ServerSort {
@@ -43,7 +43,6 @@ function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: S
 }
 
 const column = dataTableColumns<StudySummaryDto>();
-const dateOnly = new Intl.DateTimeFormat(undefined, { dateStyle: 'medium' });
 
 const isEditable = (study: StudySummaryDto) => study.status === 'draft' || study.status === 'returned';
 /** Drafts open in the wizard; submitted and approved studies on their read-only review page. */
@@ -86,7 +85,7 @@ export function studiesColumns(sort: ServerSort) {
         <Stack gap="0" align="flex-end">
           <Text whiteSpace="nowrap">{formatDateTime(info.getValue())}</Text>
           <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
-            created {dateOnly.format(new Date(info.row.original.createdAt))}
+            created {formatDate(info.row.original.createdAt)}
           </Text>
         </Stack>
       ),

@@ -1,5 +1,5 @@
+import { formatNumber } from '@meritline/shared';
 import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
-import { formatNumber } from '@/components/study-results';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
 import { setSheet } from './exclusion';

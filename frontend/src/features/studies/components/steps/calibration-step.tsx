@@ -1,5 +1,6 @@
+import { formatNumber } from '@meritline/shared';
 import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
-import { CalibrationPlot, formatNumber, MODEL_LABELS, type CriterionDefinition } from '@/components/study-results';
+import { CalibrationPlot, MODEL_LABELS, type CriterionDefinition } from '@/components/study-results';
 import type { LiveEvaluation } from '../../hooks/use-live-evaluation';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
 import { usableRows } from '../../utils/study-sheets';

@@ -1,5 +1,5 @@
+import { formatNumber, formatPercent } from '@meritline/shared';
 import { Field, Grid, Heading, Input, Stack, Text } from '@chakra-ui/react';
-import { formatNumber, formatPercent } from '@/components/study-results';
 import { parseDecimal } from '../../utils/parse-number';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';

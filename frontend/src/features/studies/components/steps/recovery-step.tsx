@@ -1,5 +1,5 @@
+import { formatPercent } from '@meritline/shared';
 import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
-import { formatPercent } from '@/components/study-results';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
 import { setSheet } from './exclusion';

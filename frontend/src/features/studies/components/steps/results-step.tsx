@@ -1,10 +1,8 @@
 import { Alert, Box, Button, Field, Grid, Heading, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
-import { ENGINE_VERSION, MODELS, type CalibrationModel, type Weighting } from '@meritline/shared';
+import { ENGINE_VERSION, MODELS, type CalibrationModel, type Weighting, formatNumber, formatPercent } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import {
   CalibrationPlot,
-  formatNumber,
-  formatPercent,
   MODEL_LABELS,
   ResidualPlot,
   StudyFigures,

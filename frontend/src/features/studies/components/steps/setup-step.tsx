@@ -1,10 +1,10 @@
+import { formatDateTime } from '@meritline/shared';
 import { Badge, Box, DataList, Field, Heading, HStack, Input, Link, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { useState } from 'react';
 import { Link as RouterLink } from 'react-router';
 import { ValidationError } from 'yup';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
-import { formatDateTime } from '@/lib/format';
 import { studyDetailsSchema, type StudyDetailsValues } from '../../api/study-details-rules';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
 import { DeleteDraft } from './delete-draft';

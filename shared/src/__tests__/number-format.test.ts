@@ -6,12 +6,13 @@ import {
   formatLevel,
   formatNumber,
   formatPercent,
+  formatPercentValue,
   formatPValue,
   NOT_AVAILABLE,
   pText,
-} from './format.js';
+} from '../catalogue/format.js';
 
-describe('number formatting', () => {
+describe('number formatting shared by the screens and the signed reports', () => {
   it('should round an estimate to its standard uncertainty given to two significant digits', () => {
     // JCGM 100:2008 (GUM) 7.2.2, example (from memory): m_S = 100.021 47 g with u_c = 0.35 mg is written 100.021 47(35) g.
     expect(formatEstimate(100.02147, 0.00035)).toEqual({ value: '100.02147', uncertainty: '0.00035', decimals: 5 });
@@ -26,9 +27,10 @@ describe('number formatting', () => {
     expect(formatNumber(55333.3333, 4)).toBe('55333');
     expect(formatNumber(0.5, 4)).toBe('0.5000');
     expect(formatNumber(-0.00227, 3)).toBe('-0.00227');
-    expect(formatNumber(1e-8, 3)).toBe('1.00e-8');
-    expect(formatNumber(2.5392e8, 5)).toBe('2.5392e8');
-    expect(formatNumber(-0.00001, 2)).toBe('-1.0e-5');
+    expect(formatNumber(1e-8, 3)).toBe('1.00 × 10⁻⁸');
+    expect(formatNumber(2.5392e8, 5)).toBe('2.5392 × 10⁸');
+    expect(formatNumber(2.5e6, 4)).toBe('2500000');
+    expect(formatNumber(-0.00001, 2)).toBe('-1.0 × 10⁻⁵');
     expect(formatNumber(-0.0000001 * 0, 3)).toBe('0.00');
     expect(formatNumber(null)).toBe(NOT_AVAILABLE);
     expect(formatNumber(Number.NaN)).toBe(NOT_AVAILABLE);
@@ -38,9 +40,10 @@ describe('number formatting', () => {
     expect(formatLevel(0.5)).toBe('0.5');
     expect(formatLevel(50)).toBe('50');
     expect(formatLevel(0.1 + 0.2)).toBe('0.3');
-    expect(formatPercent(98.6666)).toBe('98.7');
-    expect(formatPercent(0.7235)).toBe('0.724');
-    expect(formatPercent(100)).toBe('100.0');
+    expect(formatPercentValue(98.6666)).toBe('98.7');
+    expect(formatPercentValue(0.7235)).toBe('0.724');
+    expect(formatPercent(100)).toBe('100.0 %');
+    expect(formatPercent(98.7654, 4)).toBe('98.77 %');
   });
 
   it('should give p-values two significant digits and only a bound below 0.001', () => {
