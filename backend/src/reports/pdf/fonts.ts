@@ -93,8 +93,9 @@ const SUPERSCRIPT_DIGITS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
 
 /** The fonts lack most superscript digits: a power of ten such as 10⁻⁸ prints as 10^-8. */
 function plainPowers(text: string): string {
-  return text.replace(/10([⁻]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+)/g, (_match, power: string) =>
-    `10^${[...power].map((char) => (char === '⁻' ? '-' : String(SUPERSCRIPT_DIGITS.indexOf(char)))).join('')}`,
+  return text.replace(
+    /10([⁻]?[⁰¹²³⁴⁵⁶⁷⁸⁹]+)/g,
+    (_match, power: string) => `10^${[...power].map((char) => (char === '⁻' ? '-' : String(SUPERSCRIPT_DIGITS.indexOf(char)))).join('')}`,
   );
 }
 
