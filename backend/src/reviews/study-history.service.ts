@@ -52,7 +52,8 @@ export class StudyHistoryService {
       this.comments.find(study.id),
     ]);
     const items: HistoryItemDto[] = [
-      ...entries.map((entry): HistoryItemDto => ({
+      // Oldest first, so that entries written in the same millisecond keep the order they were made in.
+      ...[...entries].reverse().map((entry): HistoryItemDto => ({
         id: `audit-${entry.seq}`,
         at: entry.at.toISOString(),
         kind: entry.changes?.status ? 'status' : 'record',
