@@ -22,6 +22,7 @@ import { ReviewsModule } from './reviews/reviews.module.js';
 import { RunsModule } from './runs/runs.module.js';
 import { StudiesModule } from './studies/studies.module.js';
 import { UsersModule } from './users/users.module.js';
+import { WorkersModule } from './workers/workers.module.js';
 
 const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
 
@@ -31,6 +32,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     ThrottlerModule.forRoot([{ ttl: 60_000, limit: 1200 }]),
     ...(existsSync(frontendDist) ? [ServeStaticModule.forRoot({ rootPath: frontendDist, exclude: ['/api/{*path}'] })] : []),
     DatabaseModule,
+    WorkersModule,
     AuditModule,
     MailModule,
     UsersModule,
