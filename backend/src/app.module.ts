@@ -2,7 +2,7 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { ServeStaticModule } from '@nestjs/serve-static';
-import { ThrottlerGuard, ThrottlerModule } from '@nestjs/throttler';
+import { ThrottlerModule } from '@nestjs/throttler';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { AuditModule } from './audit/audit.module.js';
@@ -23,6 +23,7 @@ import { RunsModule } from './runs/runs.module.js';
 import { StudiesModule } from './studies/studies.module.js';
 import { UsersModule } from './users/users.module.js';
 import { WorkersModule } from './workers/workers.module.js';
+import { AccountThrottlerGuard } from './common/guards/account-throttler.guard.js';
 
 const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
 
@@ -48,7 +49,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },
-    { provide: APP_GUARD, useClass: ThrottlerGuard },
+    { provide: APP_GUARD, useClass: AccountThrottlerGuard },
     { provide: APP_GUARD, useClass: JwtAuthGuard },
     { provide: APP_GUARD, useClass: RolesGuard },
   ],
