@@ -27,11 +27,18 @@ import { AccountThrottlerGuard } from './common/guards/account-throttler.guard.j
 
 const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
 
+/** Hashed build files never change under their name: cache them for a year; index.html is checked every time. */
+function cacheHeaders(res: { setHeader(name: string, value: string): void }, path: string): void {
+  res.setHeader('Cache-Control', /[\\/]assets[\\/]/.test(path) ? 'public, max-age=31536000, immutable' : 'no-cache');
+}
+
 @Module({
   imports: [
     ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig] }),
     ThrottlerModule.forRoot([{ ttl: 60_000, limit: 1200 }]),
-    ...(existsSync(frontendDist) ? [ServeStaticModule.forRoot({ rootPath: frontendDist, exclude: ['/api/{*path}'] })] : []),
+    ...(existsSync(frontendDist)
+      ? [ServeStaticModule.forRoot({ rootPath: frontendDist, exclude: ['/api/{*path}'], serveStaticOptions: { setHeaders: cacheHeaders } })]
+      : []),
     DatabaseModule,
     WorkersModule,
     AuditModule,
