@@ -2,7 +2,7 @@ import { Module } from '@nestjs/common';
 import { ConfigModule } from '@nestjs/config';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
 import { ServeStaticModule } from '@nestjs/serve-static';
-import { ThrottlerGuard, ThrottlerModule } from '@nestjs/throttler';
+import { ThrottlerModule } from '@nestjs/throttler';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { AuditModule } from './audit/audit.module.js';
@@ -22,15 +22,25 @@ import { ReviewsModule } from './reviews/reviews.module.js';
 import { RunsModule } from './runs/runs.module.js';
 import { StudiesModule } from './studies/studies.module.js';
 import { UsersModule } from './users/users.module.js';
+import { WorkersModule } from './workers/workers.module.js';
+import { AccountThrottlerGuard } from './common/guards/account-throttler.guard.js';
 
 const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.url));
+
+/** Hashed build files never change under their name: cache them for a year; index.html is checked every time. */
+function cacheHeaders(res: { setHeader(name: string, value: string): void }, path: string): void {
+  res.setHeader('Cache-Control', /[\\/]assets[\\/]/.test(path) ? 'public, max-age=31536000, immutable' : 'no-cache');
+}
 
 @Module({
   imports: [
     ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig] }),
     ThrottlerModule.forRoot([{ ttl: 60_000, limit: 1200 }]),
-    ...(existsSync(frontendDist) ? [ServeStaticModule.forRoot({ rootPath: frontendDist, exclude: ['/api/{*path}'] })] : []),
+    ...(existsSync(frontendDist)
+      ? [ServeStaticModule.forRoot({ rootPath: frontendDist, exclude: ['/api/{*path}'], serveStaticOptions: { setHeaders: cacheHeaders } })]
+      : []),
     DatabaseModule,
+    WorkersModule,
     AuditModule,
     MailModule,
     UsersModule,
@@ -46,7 +56,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },
-    { provide: APP_GUARD, useClass: ThrottlerGuard },
+    { provide: APP_GUARD, useClass: AccountThrottlerGuard },
     { provide: APP_GUARD, useClass: JwtAuthGuard },
     { provide: APP_GUARD, useClass: RolesGuard },
   ],

@@ -1,6 +1,7 @@
 import type { NestExpressApplication } from '@nestjs/platform-express';
 import type { NextFunction, Request, Response } from 'express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
+import compression from 'compression';
 import helmet from 'helmet';
 import { loadAppConfig } from './config/app.config.js';
 import { jsonBodyGuard } from './common/json-body-guard.js';
@@ -49,6 +50,7 @@ export function configureApp(app: NestExpressApplication) {
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');
   app.use(securityHeaders);
+  app.use(compression());
   app.enableShutdownHooks();
   if (loadAppConfig().apiDocs) {
     const document = SwaggerModule.createDocument(

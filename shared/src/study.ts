@@ -10,6 +10,9 @@ export type Weighting = (typeof WEIGHTINGS)[number];
 export const CANDIDATE_WEIGHTINGS = ['none', '1/x', '1/x2'] as const;
 export type CandidateWeighting = (typeof CANDIDATE_WEIGHTINGS)[number];
 
+/** Bounds on one study: a list (standards, replicates, unknowns…) holds at most `rows` entries. */
+export const STUDY_LIMITS = { rows: 5000 } as const;
+
 export const CRITERION_OPS = ['>=', '<=', '>', '<', 'between', 'abs<='] as const;
 export type CriterionOp = (typeof CRITERION_OPS)[number];
 

@@ -2,6 +2,7 @@ import { StudyValidationError, type StudyFieldError } from './errors.js';
 import {
   CRITERION_OPS,
   MODELS,
+  STUDY_LIMITS,
   WEIGHTINGS,
   type CheckStandard,
   type Criterion,
@@ -52,9 +53,15 @@ class Collector {
   }
 
   isArray(value: unknown, field: string): value is unknown[] {
-    if (Array.isArray(value)) return true;
-    this.add(field, value === undefined ? 'required' : 'not_array', `${field} must be an array`);
-    return false;
+    if (!Array.isArray(value)) {
+      this.add(field, value === undefined ? 'required' : 'not_array', `${field} must be an array`);
+      return false;
+    }
+    if (value.length > STUDY_LIMITS.rows) {
+      this.add(field, 'too_many', `${field} holds ${value.length} entries; a study takes at most ${STUDY_LIMITS.rows} per list`);
+      return false;
+    }
+    return true;
   }
 
   number(value: unknown, field: string): number | undefined {

@@ -1,14 +1,19 @@
 import { Body, Controller, HttpCode, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags, ApiUnprocessableEntityResponse } from '@nestjs/swagger';
-import { evaluateStudy, type EvaluationResult } from '@meritline/shared';
+import type { EvaluationResult } from '@meritline/shared';
+import { Throttle } from '@nestjs/throttler';
+import { WorkerPoolService } from '../workers/worker-pool.service.js';
 
 /** The engine as a service: the same result as the command line gives for the same study. */
 @ApiTags('evaluate')
 @ApiBearerAuth()
 @Controller('evaluate')
 export class EvaluateController {
+  constructor(private readonly workers: WorkerPoolService) {}
+
   @Post()
   @HttpCode(200)
+  @Throttle({ default: { limit: 120, ttl: 60_000 } })
   @ApiBody({
     schema: { type: 'object', additionalProperties: true, description: 'A study in the engine’s input format (at most 5 MB of JSON).' },
   })
@@ -16,7 +21,7 @@ export class EvaluateController {
   @ApiUnprocessableEntityResponse({
     description: '{ statusCode, message, errors: [{ field, code, message }] } for a study the engine cannot evaluate.',
   })
-  evaluate(@Body() study: Record<string, unknown>): EvaluationResult {
-    return evaluateStudy(study);
+  evaluate(@Body() study: Record<string, unknown>): Promise<EvaluationResult> {
+    return this.workers.engine(study);
   }
 }

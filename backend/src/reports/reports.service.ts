@@ -15,7 +15,8 @@ import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { formatDateTime } from './pdf/index.js';
 import type { ReportContent } from './report-content.js';
 import { LabCertificateService } from './signing/lab-certificate.service.js';
-import { renderValidationReport, reportFileName, REPORT_ID_INFO_KEY } from './validation-report.document.js';
+import { reportFileName, REPORT_ID_INFO_KEY } from './validation-report.document.js';
+import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { ValidationReport } from './validation-report.entity.js';
 
 export const EXCLUSION_ACTIONS = ['study.point-excluded', 'study.point-included'];
@@ -49,6 +50,7 @@ export class ReportsService {
     @Inject(appConfig.KEY) private readonly config: AppConfigType,
     private readonly audit: AuditService,
     private readonly certificate: LabCertificateService,
+    private readonly workers: WorkerPoolService,
   ) {}
 
   /**
@@ -65,7 +67,7 @@ export class ReportsService {
     const reportId = randomUUID();
     const signedAt = new Date();
     const content = await this.contentOf(study, reportId, signedAt);
-    const pdf = await this.certificate.sign(await renderValidationReport(content), {
+    const pdf = await this.certificate.sign(await this.workers.renderReport(content), {
       reason: `Method validation report of ${content.method.name}, version ${content.version.number}, issued by ${content.laboratoryName}`,
       location: content.laboratoryName,
       contactInfo: content.verifyUrl,
@@ -123,7 +125,7 @@ export class ReportsService {
     const content = await this.contentOf(study, null, new Date());
     return {
       fileName: reportFileName(content.method.name, content.version.number, null, study.id),
-      pdf: await renderValidationReport(content),
+      pdf: await this.workers.renderReport(content),
       signed: false,
     };
   }

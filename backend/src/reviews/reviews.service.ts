@@ -10,7 +10,7 @@ import { writeTransaction } from '../database/write-transaction.js';
 import { ReportsService } from '../reports/reports.service.js';
 import type { StudyDto } from '../studies/dto/study.dto.js';
 import { toStudyDto } from '../studies/studies.service.js';
-import { evaluateStudyData } from '../studies/study-evaluation.js';
+import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import type { ReturnStudyDto } from './dto/return-study.dto.js';
 import type { SignStudyDto } from './dto/sign-study.dto.js';
@@ -46,6 +46,7 @@ export class ReviewsService {
     private readonly audit: AuditService,
     private readonly notices: ReviewNoticesService,
     private readonly reports: ReportsService,
+    private readonly workers: WorkerPoolService,
   ) {}
 
   async findStudy(id: string): Promise<ValidationStudy> {
@@ -159,6 +160,7 @@ export class ReviewsService {
         'A study cannot be started on a retired method version.',
       );
     }
+    const evaluation = await this.workers.evaluate(source.data);
     const id = await writeTransaction(this.dataSource, async (manager) => {
       const repo = manager.getRepository(ValidationStudy);
       const copy = await repo.save(
@@ -167,7 +169,7 @@ export class ReviewsService {
           title: `${source.title} (new study)`.slice(0, 200),
           status: 'draft',
           data: source.data,
-          ...evaluateStudyData(source.data),
+          ...evaluation,
           meta: source.meta?.instrument ? { instrument: source.meta.instrument } : {},
           authorId: actor.id,
           editorIds: [actor.id],

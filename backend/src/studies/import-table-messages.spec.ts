@@ -1,7 +1,8 @@
 import ExcelJS from 'exceljs';
+import { strToU8, zipSync } from 'fflate';
 import JSZip from 'jszip';
 import { describe, expect, it } from 'vitest';
-import { readImportTable } from './import-table.js';
+import { MAX_WORKBOOK_EXPANDED_BYTES, readImportTable } from './import-table.js';
 import { importSection } from './study-import.js';
 
 describe('import messages that say what is wrong in the file', () => {
@@ -27,4 +28,13 @@ describe('import messages that say what is wrong in the file', () => {
     expect(message).not.toMatch(/file is empty/);
     expect(message).toMatch(/no Excel worksheet|not a readable Excel workbook/);
   });
+
+  it('should refuse a workbook whose parts unpack past the bound, without unpacking all of it', async () => {
+    const sheet = new Uint8Array(MAX_WORKBOOK_EXPANDED_BYTES * 2).fill(0x20);
+    const buffer = Buffer.from(zipSync({ '[Content_Types].xml': strToU8('<Types/>'), 'xl/worksheets/sheet1.xml': sheet }, { level: 9 }));
+    expect(buffer.length).toBeLessThan(MAX_WORKBOOK_EXPANDED_BYTES / 50);
+    const error = await readImportTable(buffer).catch((e: unknown) => e as { getStatus(): number; getResponse(): unknown });
+    expect((error as { getStatus(): number }).getStatus()).toBe(422);
+    expect(JSON.stringify((error as { getResponse(): unknown }).getResponse())).toMatch(/unpacks to more than 30 MB.*"code":"too_large"/);
+  }, 30_000);
 });

@@ -1,9 +1,12 @@
 import { UnprocessableEntityException, UnsupportedMediaTypeException } from '@nestjs/common';
 import ExcelJS from 'exceljs';
+import { Unzip, UnzipInflate } from 'fflate';
 import Papa from 'papaparse';
 
 export const MAX_IMPORT_BYTES = 5 * 1024 * 1024;
 export const MAX_IMPORT_ROWS = 20_000;
+/** What the parts of a workbook may expand to; a small file can unpack to gigabytes of XML. */
+export const MAX_WORKBOOK_EXPANDED_BYTES = 30 * 1024 * 1024;
 
 export type Cell = string | number | null;
 
@@ -111,7 +114,33 @@ function cellValue(value: unknown): Cell {
   return String(value);
 }
 
+class ExpandsTooFar extends Error {}
+
+/** Unpacks the archive in small steps, counting, and stops as soon as it grows past the bound. */
+function checkExpandedSize(buffer: Buffer): void {
+  let expanded = 0;
+  const unzip = new Unzip();
+  unzip.register(UnzipInflate);
+  unzip.onfile = (file) => {
+    file.ondata = (error, chunk) => {
+      if (error) throw error;
+      expanded += chunk.length;
+      if (expanded > MAX_WORKBOOK_EXPANDED_BYTES) throw new ExpandsTooFar();
+    };
+    file.start();
+  };
+  const step = 4096;
+  try {
+    for (let at = 0; at < buffer.length; at += step) unzip.push(buffer.subarray(at, at + step), at + step >= buffer.length);
+  } catch (error) {
+    if (!(error instanceof ExpandsTooFar)) throw unsupported('a ZIP archive that is not a readable Excel workbook');
+    const message = `This workbook unpacks to more than ${MAX_WORKBOOK_EXPANDED_BYTES / 1024 / 1024} MB. Save only the sheet with the data, or export it as CSV.`;
+    throw new UnprocessableEntityException({ statusCode: 422, message, errors: [{ field: 'file', code: 'too_large', message }] });
+  }
+}
+
 async function readXlsx(buffer: Buffer): Promise<ImportTable> {
+  checkExpandedSize(buffer);
   const workbook = new ExcelJS.Workbook();
   try {
     await workbook.xlsx.load(buffer as unknown as ArrayBuffer);

@@ -16,8 +16,8 @@ import type { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
 import type { StudyMetaDto } from './dto/study-meta.dto.js';
 import type { ImportPreviewDto, StudyDto, StudyPageDto, StudySummaryDto } from './dto/study.dto.js';
 import type { UpdateStudyDto } from './dto/update-study.dto.js';
-import { readImportTable } from './import-table.js';
-import { evaluateStudyData, withMethodDefaults, type StudyData } from './study-evaluation.js';
+import { withMethodDefaults, type StudyData } from './study-evaluation.js';
+import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { importSection } from './study-import.js';
 import { ValidationStudy } from './validation-study.entity.js';
 
@@ -151,6 +151,7 @@ export class StudiesService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly audit: AuditService,
+    private readonly workers: WorkerPoolService,
   ) {}
 
   async findPage(query: ListStudiesQueryDto, user: AuthUser): Promise<StudyPageDto> {
@@ -237,7 +238,7 @@ export class StudiesService {
         ]);
       }
       const data = withMethodDefaults(dto.data, version, version.method);
-      const evaluation = evaluateStudyData(data);
+      const evaluation = await this.workers.evaluate(data);
       const study = await manager.save(
         manager.create(ValidationStudy, {
           methodVersionId: version.id,
@@ -284,7 +285,7 @@ export class StudiesService {
       if (dto.data !== undefined) {
         const data = withMethodDefaults(dto.data, study.methodVersion, study.methodVersion.method);
         if (changed(study.data, data)) {
-          Object.assign(patch, this.dataPatch(study, data, actor, dto.reason));
+          Object.assign(patch, await this.dataPatch(study, data, actor, dto.reason));
           exclusions = exclusionEntries(study.data, data, actor, id);
         }
       }
@@ -331,7 +332,7 @@ export class StudiesService {
     await this.loadEditable(this.dataSource.manager, id, actor);
     if (!file) throw unprocessable([{ field: 'file', code: 'required', message: 'Choose a CSV or XLSX file.' }]);
     const mapping = parseMapping(dto.mapping);
-    const preview = importSection(await readImportTable(file.buffer), dto.section, mapping);
+    const preview = importSection(await this.workers.readTable(file.buffer), dto.section, mapping);
     if (dto.dryRun) return preview;
     if (preview.errors.length > 0) throw unprocessable(preview.errors as FieldError[], 'The file has errors; nothing was imported.');
 
@@ -344,7 +345,7 @@ export class StudiesService {
         study.methodVersion.method,
       );
       if (!changed(study.data, data)) return toStudyDto(study);
-      const patch = this.dataPatch(study, data, actor, dto.reason);
+      const patch = await this.dataPatch(study, data, actor, dto.reason);
       await this.save(manager, study, dto.lockVersion as number, patch);
       await this.audit.record(
         {
@@ -367,11 +368,11 @@ export class StudiesService {
   }
 
   /** New data and the server's result for them; once returned, a data change needs a reason. */
-  private dataPatch(study: ValidationStudy, data: StudyData, actor: AuthUser, reason: string | undefined): StudyPatch {
+  private async dataPatch(study: ValidationStudy, data: StudyData, actor: AuthUser, reason: string | undefined): Promise<StudyPatch> {
     if (study.status === 'returned' && !reason) {
       throw unprocessable([{ field: 'reason', code: 'required', message: 'Say why the data change after the study was returned.' }]);
     }
-    return { data, ...evaluateStudyData(data), editorIds: [...new Set([...study.editorIds, actor.id])] };
+    return { data, ...(await this.workers.evaluate(data)), editorIds: [...new Set([...study.editorIds, actor.id])] };
   }
 
   /** Writes only if nobody changed the study since `lockVersion` was read. */

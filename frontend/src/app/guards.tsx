@@ -1,50 +1,7 @@
-import { Box, Progress } from '@chakra-ui/react';
 import { hasAnyRole, type Role } from '@meritline/shared';
-import { Navigate, Outlet, useLocation, useNavigation } from 'react-router';
+import { Outlet } from 'react-router';
 import { NotAllowed } from '@/components/not-allowed';
-import { PageSpinner } from '@/components/page-spinner';
-import { QueryError } from '@/components/query-error';
 import { useSession } from '@/lib/auth';
-import { paths } from '@/lib/config/paths';
-import { sessionEndedByUser } from '@/lib/session-token';
-import { AppShell } from './layout/app-shell';
-
-/** Layout of every signed-in page: sends signed-out visitors to sign-in and brings them back afterwards. */
-export function ProtectedRoute() {
-  const session = useSession();
-  const location = useLocation();
-  const navigation = useNavigation();
-
-  if (!session.token) {
-    const redirectTo = sessionEndedByUser() ? undefined : location.pathname + location.search;
-    return <Navigate to={paths.signIn.getHref(redirectTo)} replace />;
-  }
-  if (session.isLoading) return <PageSpinner label="Loading your account" />;
-  if (!session.user) {
-    return (
-      <Box p="8" maxW="2xl" mx="auto">
-        <QueryError
-          error={session.error ?? new Error('No user')}
-          title="Your account could not be loaded"
-          onRetry={() => window.location.reload()}
-        />
-      </Box>
-    );
-  }
-
-  return (
-    <AppShell user={session.user} onSignOut={session.signOut}>
-      {navigation.state === 'loading' && (
-        <Progress.Root size="xs" value={null} position="fixed" top="0" insetX="0" zIndex="toast" aria-label="Opening the page">
-          <Progress.Track bg="transparent">
-            <Progress.Range bg="accent.solid" />
-          </Progress.Track>
-        </Progress.Root>
-      )}
-      <Outlet />
-    </AppShell>
-  );
-}
 
 /** Shows its child routes only to users holding at least one of `roles`. */
 export function RequireRole({ roles }: { roles: readonly Role[] }) {

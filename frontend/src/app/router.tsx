@@ -6,7 +6,7 @@ import { RouteErrorBoundary } from '@/components/error-boundary';
 import { NotFound } from '@/components/not-found';
 import { PageSpinner } from '@/components/page-spinner';
 import { paths } from '@/lib/config/paths';
-import { ProtectedRoute, RequireRole } from './guards';
+import { RequireRole } from './guards';
 
 /** Each page is its own chunk, loaded when first visited. */
 const page = (load: () => Promise<{ default: ComponentType }>) => async () => ({ Component: (await load()).default });
@@ -21,7 +21,8 @@ export const routes: RouteObject[] = [
       { path: paths.acceptInvitation.path, lazy: page(() => import('@/features/auth/routes/accept-invitation')) },
       { path: paths.verify.path, lazy: page(() => import('@/features/reports/routes/verify-report')) },
       {
-        Component: ProtectedRoute,
+        // The shell loads with the first signed-in page: the sign-in page does not need it.
+        lazy: page(() => import('./layout/protected-layout')),
         children: [
           { index: true, lazy: page(() => import('./routes/overview')) },
           { path: paths.changePassword.path, lazy: page(() => import('@/features/auth/routes/change-password')) },
