@@ -40,3 +40,15 @@ export {
 } from './engine/distributions.js';
 export * from './study.js';
 export type * from './result.js';
+export type * from './comparison-types.js';
+export {
+  compareResults,
+  compareLineParameter,
+  compareVariances,
+  welchTest,
+  equivalenceTest,
+  intermediatePrecisionDf,
+  type CompareOptions,
+  type SampleSummary,
+  type LineSummary,
+} from './engine/compare.js';
