@@ -43,6 +43,7 @@ export type * from './result.js';
 export type * from './comparison-types.js';
 export {
   compareResults,
+  figureComparisons,
   compareLineParameter,
   compareVariances,
   welchTest,
@@ -52,3 +53,4 @@ export {
   type SampleSummary,
   type LineSummary,
 } from './engine/compare.js';
+export type * from './api/comparisons.js';

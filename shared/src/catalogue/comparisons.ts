@@ -42,3 +42,32 @@ export const TREND_FIGURE_LABELS = {
   rsdI: 'Intermediate precision RSD',
   meanRecovery: 'Mean recovery',
 } as const;
+
+export const METHOD_VERSION_STATUS_LABELS = { draft: 'Draft', active: 'Active', retired: 'Retired' } as const;
+
+export const CALIBRATION_MODEL_LABELS = {
+  linear: 'Straight line',
+  'linear-through-origin': 'Straight line through the origin',
+  quadratic: 'Quadratic',
+  'one-point': 'One-point',
+  'two-point': 'Two-point',
+} as const;
+
+export const WEIGHTING_LABELS = { none: 'None', '1/x': '1/x', '1/x2': '1/x²', '1/s2': '1/s²' } as const;
+
+/** Aspects of two method versions set side by side. */
+export const VERSION_ASPECT_LABELS = {
+  status: 'Status',
+  changeKind: 'Kind of change',
+  changeSummary: 'Change recorded with the version',
+  revalidationScope: 'Shown again after the change',
+  study: 'Study compared',
+  instrument: 'Instrument',
+  model: 'Calibration model',
+  weighting: 'Weighting',
+  requiresQualityRelease: 'Release by a quality manager',
+  checkTolerancePct: 'Check standards recover within',
+  onePointMaxInterceptPct: 'Largest intercept for one-point calibration',
+  recoveryEquivalenceMarginPct: 'Equivalence margin of the mean recovery',
+  criterion: 'Acceptance criterion',
+} as const;

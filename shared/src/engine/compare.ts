@@ -321,10 +321,11 @@ function compareRange(from: EvaluationResult, to: EvaluationResult): RangeCompar
   };
 }
 
-function compareFigureTable(from: EvaluationResult, to: EvaluationResult): FigureComparison[] {
+/** Every catalogue figure either result holds, side by side; a missing result gives a one-sided table. */
+export function figureComparisons(from: EvaluationResult | null, to: EvaluationResult | null): FigureComparison[] {
   return FIGURES.filter((f) => !f.key.startsWith('range.')).flatMap((f) => {
-    const a = figureValue(from, f.key);
-    const b = figureValue(to, f.key);
+    const a = from ? figureValue(from, f.key) : null;
+    const b = to ? figureValue(to, f.key) : null;
     if (a === null && b === null) return [];
     return [
       {
@@ -334,8 +335,8 @@ function compareFigureTable(from: EvaluationResult, to: EvaluationResult): Figur
         to: b,
         difference: a === null || b === null ? null : b - a,
         ratio: ratio(a, b),
-        criterionFrom: criterionFor(from, f.key),
-        criterionTo: criterionFor(to, f.key),
+        criterionFrom: from ? criterionFor(from, f.key) : null,
+        criterionTo: to ? criterionFor(to, f.key) : null,
       },
     ];
   });
@@ -365,6 +366,6 @@ export function compareResults(from: EvaluationResult, to: EvaluationResult, opt
     recovery: compareRecovery(from, to, marginPct, alpha),
     detection: compareDetection(from, to),
     range: compareRange(from, to),
-    figures: compareFigureTable(from, to),
+    figures: figureComparisons(from, to),
   };
 }
