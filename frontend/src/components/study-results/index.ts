@@ -20,3 +20,5 @@ export {
 } from './format';
 export type { CriterionDefinition, StudyResultsProps, StudyUnits } from './types';
 export { plainWarning } from './figure-section';
+export { LazyPlot, type LazyPlotProps } from './lazy-plot';
+export { formatInterval, pText } from './format';
