@@ -232,7 +232,7 @@ function comparePrecision(
   const a = intermediatePrecisionDf(from);
   const b = intermediatePrecisionDf(to);
   const describe = (d: { df: number; satterthwaite: boolean }) =>
-    d.satterthwaite ? `${d.df.toPrecision(4)} (Satterthwaite)` : `${d.df} (within series; no between-series component)`;
+    d.satterthwaite ? `${d.df.toFixed(1)} (Satterthwaite)` : `${d.df} (within series; no between-series component)`;
   const note = `effective degrees of freedom: earlier ${describe(a)}, later ${describe(b)}`;
   return compareVariances({ sd: from.sI, df: a.df }, { sd: to.sI, df: b.df }, alpha, note);
 }

@@ -1,7 +1,7 @@
-import { Alert, Box, Field, Heading, HStack, Link, NativeSelect, Stack, Text } from '@chakra-ui/react';
+import { Alert, Box, Field, Heading, Link, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { METHOD_VERSION_STATUS_LABELS, type VersionComparisonResponse } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
-import type { ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
@@ -43,7 +43,7 @@ function Section({ title, description, children }: { title: string; description?
 
 function Picker(props: { label: string; value: string; onChange: (value: string) => void; children: ReactNode }) {
   return (
-    <Field.Root maxW={{ base: 'full', md: '24rem' }}>
+    <Field.Root>
       <Field.Label>{props.label}</Field.Label>
       <NativeSelect.Root>
         <NativeSelect.Field value={props.value} onChange={(e) => props.onChange(e.target.value)}>
@@ -103,17 +103,27 @@ function ComparisonBody({ comparison }: { comparison: VersionComparisonResponse 
 
 export default function VersionComparisonPage() {
   const [params, setParams] = useSearchParams();
+  // The choice lives here (two quick picks must not overwrite each other); the address only mirrors it for sharing.
+  const [choice, setChoice] = useState(() => ({
+    method: params.get('method') ?? '',
+    from: params.get('from') ?? '',
+    to: params.get('to') ?? '',
+  }));
   const methods = useQuery(methodsQueries.list());
-  const methodId = params.get('method') ?? methods.data?.find((m) => m.versions.length >= 2)?.id ?? '';
+  const methodId = choice.method || (methods.data?.find((m) => m.versions.length >= 2)?.id ?? '');
   const method = methods.data?.find((m) => m.id === methodId);
   const pair = method ? defaultPair(method) : null;
-  const fromId = params.get('from') ?? pair?.[0].id ?? '';
-  const toId = params.get('to') ?? pair?.[1].id ?? '';
+  const fromId = choice.from || (pair?.[0].id ?? '');
+  const toId = choice.to || (pair?.[1].id ?? '');
   const ready = Boolean(method && fromId && toId && fromId !== toId);
   const comparison = useQuery({ ...comparisonsQueries.compare(fromId, toId), enabled: ready });
   const trend = useQuery({ ...comparisonsQueries.trend(methodId), enabled: Boolean(method) });
 
-  const choose = (next: Record<string, string>) => setParams({ method: methodId, from: fromId, to: toId, ...next }, { replace: true });
+  const choose = (next: Partial<typeof choice>) => {
+    const updated = { ...choice, method: methodId, ...(next.method ? { from: '', to: '' } : {}), ...next };
+    setChoice(updated);
+    setParams(Object.fromEntries(Object.entries(updated).filter(([, value]) => value)), { replace: true });
+  };
 
   if (methods.isPending) return <PageSpinner label="Loading the methods" />;
   if (methods.isError)
@@ -129,8 +139,8 @@ export default function VersionComparisonPage() {
       />
       <Stack gap="10">
         <Box borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p={{ base: '4', md: '6' }}>
-          <HStack gap="4" align="flex-end" wrap="wrap">
-            <Picker label="Method" value={methodId} onChange={(id) => setParams({ method: id }, { replace: true })}>
+          <SimpleGrid columns={{ base: 1, md: 3 }} gap="4" alignItems="end">
+            <Picker label="Method" value={methodId} onChange={(id) => choose({ method: id })}>
               {methods.data.map((m) => (
                 <option key={m.id} value={m.id}>
                   {m.name}
@@ -151,7 +161,7 @@ export default function VersionComparisonPage() {
                 </option>
               ))}
             </Picker>
-          </HStack>
+          </SimpleGrid>
           {method && (
             <Link asChild fontSize="sm" color="brand.fg" mt="3">
               <RouterLink to={paths.methodDetail.getHref(method.id)}>Open the method</RouterLink>

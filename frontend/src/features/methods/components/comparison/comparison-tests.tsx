@@ -10,12 +10,15 @@ import {
 } from '@meritline/shared';
 import type { ReactNode } from 'react';
 import { formatInterval, formatNumber, pText } from '@/components/study-results';
+import { sentence } from './sentence';
 import { VerdictBadge } from './verdict-badge';
 
 type Test = LineParameterComparison | VarianceComparison | MeanComparison | EquivalenceTest | Unavailable;
 
 const confidence = (alpha: number) => `${formatNumber(100 * (1 - alpha), 3)} %`;
 const signed = (value: number, digits = 4) => `${value > 0 ? '+' : ''}${formatNumber(value, digits)}`;
+/** Degrees of freedom: whole numbers as they are, Satterthwaite's to one decimal. */
+const dfText = (df: number) => (Number.isInteger(df) ? String(df) : df.toFixed(1));
 
 function TestCard({ title, test, children }: { title: string; test: Test; children?: ReactNode }) {
   return (
@@ -27,7 +30,7 @@ function TestCard({ title, test, children }: { title: string; test: Test; childr
           </Heading>
           {test.available ? <VerdictBadge verdict={test.verdict} /> : <Text color="fg.muted">Not tested</Text>}
         </HStack>
-        {test.available ? children : <Text color="fg.muted">{test.reason}</Text>}
+        {test.available ? children : <Text color="fg.muted">{sentence(test.reason)}</Text>}
       </Stack>
     </Box>
   );
@@ -76,11 +79,10 @@ function VarianceTest({ title, test, unit }: { title: string; test: VarianceComp
             {unit ? ` ${unit}` : ''}
           </Line>
           <Line label="Test">
-            F = {formatNumber(test.F, 3)} ({formatNumber(test.df[0], 4)} and {formatNumber(test.df[1], 4)} degrees of freedom), two-sided{' '}
-            {pText(test.p)}
+            F = {formatNumber(test.F, 3)} ({dfText(test.df[0])} and {dfText(test.df[1])} degrees of freedom), two-sided {pText(test.p)}
           </Line>
           <Line label={`Ratio of variances, ${confidence(test.alpha)} interval`}>{formatInterval(test.ratioCi, 3)}</Line>
-          {test.dfNote && <Text color="fg.muted">{test.dfNote.charAt(0).toUpperCase() + test.dfNote.slice(1)}.</Text>}
+          {test.dfNote && <Text color="fg.muted">{sentence(test.dfNote)}</Text>}
         </>
       )}
     </TestCard>
@@ -109,7 +111,7 @@ function RecoveryTests({ recovery, marginPct }: { recovery: VersionComparisonRes
                   {signed(welch.difference, 3)} percentage points ({formatInterval(welch.ci, 3)})
                 </Line>
                 <Line label="Test">
-                  t = {formatNumber(welch.t, 3)}, {formatNumber(welch.df, 4)} degrees of freedom (Welch), {pText(welch.p)}
+                  t = {formatNumber(welch.t, 3)}, {dfText(welch.df)} degrees of freedom (Welch), {pText(welch.p)}
                 </Line>
               </>
             )}

@@ -2,6 +2,7 @@ import { Box, Stack, Text } from '@chakra-ui/react';
 import { DETECTION_APPROACH_LABELS, type DetectionComparison, type VersionComparisonResponse } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark, formatNumber } from '@/components/study-results';
+import { sentence } from './sentence';
 
 const column = dataTableColumns<DetectionComparison>();
 
@@ -28,7 +29,7 @@ export function DetectionComparisonTable({ rows, unit }: { rows: DetectionCompar
 }
 
 export function RangeComparisonText({ range, unit }: { range: VersionComparisonResponse['range']; unit: string }) {
-  if (!range.available) return <Text color="fg.muted">{range.reason}</Text>;
+  if (!range.available) return <Text color="fg.muted">{sentence(range.reason)}</Text>;
   const list = (levels: number[]) => (levels.length ? levels.map((x) => `${formatNumber(x)} ${unit}`).join(', ') : 'none');
   return (
     <Box borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p="5">

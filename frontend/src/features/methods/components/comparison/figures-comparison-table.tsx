@@ -11,8 +11,8 @@ function requirement(row: FigureComparison, units: Units): string | null {
 }
 
 export function figureColumns(fromLabel: string, toLabel: string, units: Units) {
-  const withUnit = (row: FigureComparison, value: number | null) => {
-    const unit = figureUnit(row.figure, units);
+  const withUnit = (row: FigureComparison, value: number | null, difference = false) => {
+    const unit = difference && figureUnit(row.figure, units) === '%' ? 'percentage points' : figureUnit(row.figure, units);
     const text = formatNumber(value);
     return unit && text !== '—' ? `${text} ${unit}` : text;
   };
@@ -30,7 +30,7 @@ export function figureColumns(fromLabel: string, toLabel: string, units: Units) 
     column.accessor('difference', {
       header: 'Difference (later − earlier)',
       meta: { align: 'end' },
-      cell: (info) => withUnit(info.row.original, info.getValue()),
+      cell: (info) => withUnit(info.row.original, info.getValue(), true),
     }),
     column.accessor('ratio', {
       header: 'Ratio (later / earlier)',

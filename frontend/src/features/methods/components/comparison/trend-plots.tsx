@@ -75,7 +75,7 @@ export function TrendPlots({ trend }: { trend: MethodTrendResponse }) {
         ]}
       />
       <TrendPlot
-        title={`${TREND_FIGURE_LABELS.loq}${basis ? ` (${DETECTION_APPROACH_LABELS[basis].toLowerCase()})` : ''}`}
+        title={`${TREND_FIGURE_LABELS.loq}${basis ? `, ${DETECTION_APPROACH_LABELS[basis].charAt(0).toLowerCase()}${DETECTION_APPROACH_LABELS[basis].slice(1)}` : ''}`}
         label="Limit of quantitation of every version"
         yTitle={method.xUnit}
         data={[series(points, (p) => p.loq, TREND_FIGURE_LABELS.loq, INK)]}
