@@ -1,5 +1,28 @@
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
+import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
+
+type BodyParser = Parameters<ReturnType<ReturnType<TestApp['http']>['get']>['parse']>[0];
+const binary: BodyParser = (res, done) => {
+  const chunks: Buffer[] = [];
+  res.on('data', (chunk: Buffer) => chunks.push(chunk));
+  res.on('end', () => done(null, Buffer.concat(chunks)));
+};
+const OUTPUT = fileURLToPath(new URL('../test-output/', import.meta.url));
+const scratch = mkdtempSync(join(tmpdir(), 'meritline-assessment-'));
+afterAll(() => rmSync(scratch, { recursive: true, force: true }));
+/** poppler's words on the file: pdfsig exits 0 for valid and broken signatures alike. */
+const poppler = (tool: string, bytes: Buffer) => {
+  const file = join(scratch, `${tool}.pdf`);
+  writeFileSync(file, bytes);
+  const run = spawnSync(tool, tool === 'pdftotext' ? [file, '-'] : [file], { encoding: 'utf8' });
+  return `${run.stdout}${run.stderr}`.replace(/\s+/g, ' ');
+};
+const STATEMENT = 'The new detector raises the sensitivity; recovery and precision are unchanged. Fit for use.';
 
 type Row = Record<string, unknown>;
 type Version = { id: string; number: number; status: string };
@@ -164,6 +187,111 @@ describe('comparing method versions', () => {
         .get(`/api/methods/${UNKNOWN_ID}/trend`)
         .set(await auth(DEMO.quality))
         .expect(404);
+    });
+  });
+
+  describe('POST /api/method-versions/:id/assessment', () => {
+    const assess = async (versionId: string, body: Row, email: string = DEMO.quality) =>
+      t
+        .http()
+        .post(`/api/method-versions/${versionId}/assessment`)
+        .set(await auth(email))
+        .send(body)
+        .buffer(true)
+        .parse(binary);
+    const lockOf = async (versionId: string) =>
+      (
+        await t
+          .http()
+          .get(`/api/method-versions/${versionId}`)
+          .set(await auth(DEMO.quality))
+      ).body.lockVersion as number;
+
+    it('signs the assessment of version 3 against version 2: a PDF pdfsig accepts, stored and verifiable', async () => {
+      const v3 = version(caffeine, 3).id;
+      const res = await assess(v3, { statement: STATEMENT, password: DEMO_PASSWORD, lockVersion: await lockOf(v3) });
+      expect(res.status, res.body.toString().slice(0, 300)).toBe(201);
+      expect(res.headers['content-type']).toBe('application/pdf');
+      expect(res.headers['x-assessment-id']).toMatch(/^[0-9a-f-]{36}$/);
+      const pdf = res.body as Buffer;
+      mkdirSync(OUTPUT, { recursive: true });
+      writeFileSync(join(OUTPUT, 'change-assessment.pdf'), pdf);
+      spawnSync('pdftoppm', ['-png', '-r', '70', join(OUTPUT, 'change-assessment.pdf'), join(OUTPUT, 'change-assessment')]);
+      expect(poppler('pdfsig', pdf)).toMatch(/Signature is Valid/);
+      const text = poppler('pdftotext', pdf);
+      expect(text).toContain('Change assessment');
+      expect(text).toContain('significantly different');
+      expect(text).toContain('equivalent within the margin');
+      expect(text).toContain(STATEMENT);
+      expect(text).not.toMatch(/calibration\.slope|no-difference/);
+
+      const verified = await t
+        .http()
+        .post('/api/reports/verify')
+        .attach('file', pdf, { filename: 'a.pdf', contentType: 'application/pdf' });
+      expect(verified.body).toMatchObject({
+        valid: true,
+        kind: 'change-assessment',
+        reportId: res.headers['x-assessment-id'],
+        methodName: CAFFEINE,
+        methodVersion: 3,
+        studyTitle: 'Change assessment of version 3 against version 2',
+      });
+      const changed = Buffer.from(pdf);
+      changed[changed.indexOf('(Change assessment: ') + 8] = 'X'.charCodeAt(0);
+      const refused = await t
+        .http()
+        .post('/api/reports/verify')
+        .attach('file', changed, { filename: 'a.pdf', contentType: 'application/pdf' });
+      expect(refused.body).toMatchObject({ valid: false, reason: expect.stringMatching(/changed since it was signed/) });
+      const trail = await t
+        .http()
+        .get('/api/audit')
+        .query({ entity: 'method-version', id: v3 })
+        .set(await auth(DEMO.quality));
+      expect(trail.body.map((e: Row) => e.action)).toContain('signature.change-assessed');
+    });
+
+    it('refuses anonymous (401), reviewers and analysts (403), a wrong password (401), an unknown version (404), a stale lock (409)', async () => {
+      const v3 = version(caffeine, 3).id;
+      const body = { statement: STATEMENT, password: DEMO_PASSWORD, lockVersion: await lockOf(v3) };
+      await t.http().post(`/api/method-versions/${v3}/assessment`).send(body).expect(401);
+      expect((await assess(v3, body, DEMO.reviewer)).status).toBe(403);
+      expect((await assess(v3, body, DEMO.analyst)).status).toBe(403);
+      const wrong = await assess(v3, { ...body, password: 'not the password' });
+      expect(wrong.status).toBe(401);
+      expect(JSON.parse(wrong.body.toString()).message).toMatch(/not signed/);
+      expect((await assess(UNKNOWN_ID, body)).status).toBe(404);
+      expect((await assess(v3, { ...body, lockVersion: body.lockVersion + 5 })).status).toBe(409);
+    });
+
+    it.each([
+      ['a short statement', { statement: 'Fine.' }, 'statement'],
+      ['no password', { password: undefined }, 'password'],
+      ['no lock version', { lockVersion: undefined }, 'lockVersion'],
+      ['a margin of 0', { margin: 0 }, 'margin'],
+      ['an earlier version of another method', { compareWith: 'nitrate' }, 'compareWith'],
+      ['the version itself', { compareWith: 'self' }, 'compareWith'],
+    ])('answers 422 naming the field for %s, signing nothing', async (_case, change, field) => {
+      const v3 = version(caffeine, 3).id;
+      const wanted = (change as Row).compareWith;
+      const compareWith = wanted === 'nitrate' ? version(nitrate, 1).id : wanted === 'self' ? v3 : undefined;
+      const res = await assess(v3, {
+        statement: STATEMENT,
+        password: DEMO_PASSWORD,
+        lockVersion: await lockOf(v3),
+        ...change,
+        ...(compareWith ? { compareWith } : {}),
+      });
+      expect(res.status).toBe(422);
+      expect(JSON.parse(res.body.toString()).errors.map((e: Row) => e.field)).toContain(field);
+    });
+
+    it('refuses to assess a first version, which has nothing earlier', async () => {
+      const v1 = version(caffeine, 1).id;
+      const res = await assess(v1, { statement: STATEMENT, password: DEMO_PASSWORD, lockVersion: await lockOf(v1) });
+      expect(res.status).toBe(422);
+      expect(JSON.parse(res.body.toString()).errors[0]).toMatchObject({ field: 'compareWith', code: 'no_earlier_version' });
     });
   });
 });

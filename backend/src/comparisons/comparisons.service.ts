@@ -1,5 +1,6 @@
-import { Injectable, NotFoundException } from '@nestjs/common';
+import { ConflictException, Inject, Injectable, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
+import { createHash, randomUUID } from 'node:crypto';
 import { DataSource, In } from 'typeorm';
 import {
   CALIBRATION_MODEL_LABELS,
@@ -24,11 +25,28 @@ import {
   type VersionChangeRow,
   type VersionComparisonResponse,
 } from '@meritline/shared';
+import { AuditService } from '../audit/audit.service.js';
+import { AuthService } from '../auth/auth.service.js';
+import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
+import { appConfig, type AppConfigType } from '../config/app.config.js';
+import { writeTransaction } from '../database/write-transaction.js';
+import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { Method } from '../methods/method.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
+import { CHANGE_ASSESSED, ChangeAssessment } from './change-assessment.entity.js';
+import { renderChangeAssessment } from './change-assessment.document.js';
+import type { CreateAssessmentDto } from './dto/assessment.dto.js';
 import type { CompareVersionsQueryDto } from './dto/compare-query.dto.js';
+
+export const WRONG_ASSESSMENT_PASSWORD = 'Password not correct; the change assessment was not signed.';
+
+export interface AssessmentFile {
+  id: string;
+  fileName: string;
+  pdf: Buffer;
+}
 
 type Side = { version: MethodVersion; study: ValidationStudy | null };
 
@@ -106,7 +124,109 @@ const noStudy = (side: Side) => `Version ${side.version.number} has no approved 
 
 @Injectable()
 export class ComparisonsService {
-  constructor(@InjectDataSource() private readonly dataSource: DataSource) {}
+  constructor(
+    @InjectDataSource() private readonly dataSource: DataSource,
+    @Inject(appConfig.KEY) private readonly config: AppConfigType,
+    private readonly audit: AuditService,
+    private readonly auth: AuthService,
+    private readonly certificate: LabCertificateService,
+  ) {}
+
+  /** A quality manager's e-signature on the comparison of a version with an earlier one: a signed PDF stored against the newer version. */
+  async assess(versionId: string, dto: CreateAssessmentDto, actor: AuthUser): Promise<AssessmentFile> {
+    const version = await this.dataSource.getRepository(MethodVersion).findOneBy({ id: versionId });
+    if (!version) throw new NotFoundException('Method version not found.');
+    let compareWith = dto.compareWith;
+    if (compareWith === undefined) {
+      const previous = await this.dataSource
+        .getRepository(MethodVersion)
+        .findOne({ where: { methodId: version.methodId, number: version.number - 1 } });
+      if (!previous) {
+        const message = 'The first version of a method has no earlier version to be assessed against.';
+        throw unprocessable([{ field: 'compareWith', code: 'no_earlier_version', message }], message);
+      }
+      compareWith = previous.id;
+    }
+    const comparison = await this.compare({ from: compareWith, to: versionId, margin: dto.margin }).catch((error: unknown) => {
+      // The comparison names its fields from/to; here they are compareWith and the version in the path.
+      const body = (error as { getResponse?: () => { errors?: { field: string }[] } }).getResponse?.();
+      body?.errors?.forEach((e) => (e.field = e.field === 'from' || e.field === 'to' ? 'compareWith' : e.field));
+      throw error;
+    });
+    if (dto.lockVersion !== version.lockVersion) {
+      throw new ConflictException('Someone changed this version since you opened the comparison; reload it and sign again.');
+    }
+    if (!(await this.auth.verifyPassword(actor.id, dto.password))) {
+      await this.audit.record({
+        actor,
+        action: 'signature.failed',
+        entity: 'method-version',
+        entityId: versionId,
+        changes: { meaning: { from: null, to: 'change assessed' } },
+        reason: 'Password not correct.',
+      });
+      throw new UnauthorizedException(WRONG_ASSESSMENT_PASSWORD);
+    }
+    const id = randomUUID();
+    const signedAt = new Date();
+    const statement = dto.statement.trim();
+    const unsigned = await renderChangeAssessment({
+      laboratoryName: this.config.laboratoryName,
+      verifyUrl: `${this.config.publicUrl}/verify`,
+      assessmentId: id,
+      signedAt,
+      signerName: actor.name,
+      statement,
+      comparison,
+    });
+    const pdf = await this.certificate.sign(unsigned, {
+      reason: `Change assessment of ${comparison.method.name}, version ${comparison.to.number} against version ${comparison.from.number}`,
+      location: this.config.laboratoryName,
+      contactInfo: `${this.config.publicUrl}/verify`,
+      signingTime: signedAt,
+    });
+    const sha256 = createHash('sha256').update(pdf).digest('hex');
+    await writeTransaction(this.dataSource, async (manager) => {
+      await manager.getRepository(ChangeAssessment).insert({
+        id,
+        methodVersionId: versionId,
+        comparedVersionId: comparison.from.versionId,
+        fromStudyId: comparison.from.studyId,
+        toStudyId: comparison.to.studyId,
+        signerId: actor.id,
+        signerName: actor.name,
+        meaning: CHANGE_ASSESSED,
+        statement,
+        pdf,
+        sha256,
+        sizeBytes: pdf.length,
+        signedAt,
+      });
+      await this.audit.record(
+        {
+          actor,
+          action: 'signature.change-assessed',
+          entity: 'method-version',
+          entityId: versionId,
+          changes: {
+            assessmentId: { from: null, to: id },
+            comparedVersionId: { from: null, to: comparison.from.versionId },
+            signatureMeaning: { from: null, to: 'change assessed' },
+            sha256: { from: null, to: sha256 },
+          },
+          reason: statement,
+        },
+        manager,
+      );
+    });
+    const slug =
+      comparison.method.name
+        .toLowerCase()
+        .replace(/[^a-z0-9]+/g, '-')
+        .replace(/^-+|-+$/g, '')
+        .slice(0, 60) || 'method';
+    return { id, fileName: `meritline-${slug}-v${comparison.to.number}-assessment-${id.slice(0, 8)}.pdf`, pdf };
+  }
 
   async compare(query: CompareVersionsQueryDto): Promise<VersionComparisonResponse> {
     const versions = await this.dataSource
