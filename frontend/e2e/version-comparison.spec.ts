@@ -1,5 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
-import { mainNavigation, signIn } from './support';
+import { readFileSync } from 'node:fs';
+import { DEMO_PASSWORD, mainNavigation, signIn } from './support';
 
 const CAFFEINE = 'Caffeine in energy drinks by HPLC-UV';
 // Plotly is a large chunk loaded on first use: allow it time on a busy machine.
@@ -69,9 +70,32 @@ test('the quality manager compares the last two versions of the demo caffeine me
       .screenshot({ path: `test-output/screenshots/version-comparison-${section.toLowerCase().replaceAll(' ', '-')}.png` });
   }
 
+  await page.getByRole('button', { name: 'Sign the change assessment' }).click();
+  const dialog = page.getByRole('dialog');
+  await expect(dialog).toContainText('Change assessed');
+  await dialog.getByLabel('Your password').fill(DEMO_PASSWORD);
+  await dialog.getByLabel('Your assessment').fill('Short.');
+  await dialog.getByRole('button', { name: 'Sign and download' }).click();
+  await expect(dialog).toContainText('at least 20 characters');
+  await dialog
+    .getByLabel('Your assessment')
+    .fill('The new detector is about 15 % more sensitive; recovery stays equivalent and precision unchanged. Fit for use.');
+  await page.screenshot({ path: 'test-output/screenshots/version-comparison-sign.png' });
+  const [download] = await Promise.all([page.waitForEvent('download'), dialog.getByRole('button', { name: 'Sign and download' }).click()]);
+  await expect(dialog).toBeHidden();
+  const pdf = 'test-output/screenshots/version-comparison-assessment.pdf';
+  await download.saveAs(pdf);
+  expect(readFileSync(pdf).subarray(0, 5).toString()).toBe('%PDF-');
+
   await page.getByLabel('Earlier version').selectOption({ label: 'Version 1 (retired)' });
   await page.getByLabel('Later version').selectOption({ label: 'Version 2 (retired)' });
   await expect(testCard(page, 'Slope (sensitivity)')).toContainText('no significant difference');
   await shot(page, 'first-two');
+
+  await page.goto('/verify');
+  await page.getByLabel('Report to verify (PDF)').setInputFiles(pdf);
+  await expect(page.getByText(/^Valid:/)).toBeVisible();
+  await expect(page.getByText('Change assessment of version 3 against version 2')).toBeVisible();
+  await page.screenshot({ path: 'test-output/screenshots/version-comparison-verified.png' });
   expect(outside).toEqual([]);
 });

@@ -11,6 +11,7 @@ import { paths } from '@/lib/config/paths';
 import { comparisonsQueries } from '../api/comparisons-queries';
 import { methodsQueries } from '../api/methods-queries';
 import type { MethodDto, MethodVersionDto } from '../api/types';
+import { AssessmentAction } from '../components/comparison/assessment-action';
 import { ChangesTable } from '../components/comparison/changes-table';
 import { ComparisonTests } from '../components/comparison/comparison-tests';
 import { DetectionComparisonTable, RangeComparisonText } from '../components/comparison/detection-range';
@@ -55,7 +56,7 @@ function Picker(props: { label: string; value: string; onChange: (value: string)
   );
 }
 
-function ComparisonBody({ comparison }: { comparison: VersionComparisonResponse }) {
+function ComparisonBody({ comparison, lockVersion }: { comparison: VersionComparisonResponse; lockVersion: number | null }) {
   const fromLabel = `Version ${comparison.from.number}`;
   const toLabel = `Version ${comparison.to.number}`;
   const units = { x: comparison.method.xUnit, y: comparison.method.yUnit };
@@ -97,6 +98,16 @@ function ComparisonBody({ comparison }: { comparison: VersionComparisonResponse 
       <Section title="Working range">
         <RangeComparisonText range={comparison.range} unit={units.x} />
       </Section>
+      {lockVersion !== null && (
+        <Section
+          title="Change assessment"
+          description={`Record your assessment of version ${comparison.to.number} against version ${comparison.from.number} under your e-signature: a signed PDF kept against version ${comparison.to.number}.`}
+        >
+          <div>
+            <AssessmentAction comparison={comparison} lockVersion={lockVersion} />
+          </div>
+        </Section>
+      )}
     </Stack>
   );
 }
@@ -175,7 +186,9 @@ export default function VersionComparisonPage() {
         {ready && comparison.isError && (
           <QueryError error={comparison.error} title="The versions could not be compared" onRetry={() => void comparison.refetch()} />
         )}
-        {ready && comparison.data && <ComparisonBody comparison={comparison.data} />}
+        {ready && comparison.data && (
+          <ComparisonBody comparison={comparison.data} lockVersion={versions.find((v) => v.id === toId)?.lockVersion ?? null} />
+        )}
         {trend.data && (
           <Section
             title="Over every version"

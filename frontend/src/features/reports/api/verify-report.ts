@@ -6,6 +6,8 @@ export type ReportVerification =
   | {
       valid: true;
       studyId: string;
+      /** A study's validation report, or a quality manager's signed change assessment. */
+      kind?: 'validation-report' | 'change-assessment';
       studyTitle: string;
       reportId: string;
       methodName: string;
