@@ -294,4 +294,14 @@ describe('comparing method versions', () => {
       expect(JSON.parse(res.body.toString()).errors[0]).toMatchObject({ field: 'compareWith', code: 'no_earlier_version' });
     });
   });
+
+  it('documents the routes with their success and error bodies in the OpenAPI description', async () => {
+    const docs = (await t.http().get('/api/docs-json').expect(200)).body;
+    const compareDoc = docs.paths['/api/method-versions/compare'].get;
+    expect(Object.keys(compareDoc.responses)).toEqual(expect.arrayContaining(['200', '401', '403', '422']));
+    expect(compareDoc.parameters.map((p: Row) => p.name)).toEqual(expect.arrayContaining(['from', 'to', 'fromStudy', 'toStudy', 'margin']));
+    expect(Object.keys(docs.paths['/api/methods/{id}/trend'].get.responses)).toEqual(expect.arrayContaining(['200', '404']));
+    const assessDoc = docs.paths['/api/method-versions/{id}/assessment'].post;
+    expect(Object.keys(assessDoc.responses)).toEqual(expect.arrayContaining(['201', '401', '403', '404', '409', '422']));
+  });
 });
