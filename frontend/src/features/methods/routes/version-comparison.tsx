@@ -1,7 +1,7 @@
 import { Alert, Box, Field, Heading, Link, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { METHOD_VERSION_STATUS_LABELS, type VersionComparisonResponse } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
-import { useState, type ReactNode } from 'react';
+import { useMemo, useState, type ReactNode } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
@@ -59,7 +59,8 @@ function Picker(props: { label: string; value: string; onChange: (value: string)
 function ComparisonBody({ comparison, lockVersion }: { comparison: VersionComparisonResponse; lockVersion: number | null }) {
   const fromLabel = `Version ${comparison.from.number}`;
   const toLabel = `Version ${comparison.to.number}`;
-  const units = { x: comparison.method.xUnit, y: comparison.method.yUnit };
+  const { xUnit, yUnit } = comparison.method;
+  const units = useMemo(() => ({ x: xUnit, y: yUnit }), [xUnit, yUnit]);
   return (
     <Stack gap="10">
       {comparison.missing.length > 0 && (

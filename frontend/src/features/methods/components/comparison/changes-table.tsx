@@ -1,4 +1,5 @@
 import { Text } from '@chakra-ui/react';
+import { useMemo } from 'react';
 import type { VersionChangeRow } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 
@@ -30,7 +31,6 @@ export function changesColumns(fromLabel: string, toLabel: string) {
 }
 
 export function ChangesTable({ rows, fromLabel, toLabel }: { rows: VersionChangeRow[]; fromLabel: string; toLabel: string }) {
-  // Rebuilt only when the version labels change.
-  const columns = changesColumns(fromLabel, toLabel);
+  const columns = useMemo(() => changesColumns(fromLabel, toLabel), [fromLabel, toLabel]);
   return <DataTable label="What changed between the versions" columns={columns} data={rows} getRowId={(row) => row.aspect} />;
 }

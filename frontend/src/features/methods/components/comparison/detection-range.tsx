@@ -1,4 +1,5 @@
 import { Box, Stack, Text } from '@chakra-ui/react';
+import { useMemo } from 'react';
 import { DETECTION_APPROACH_LABELS, type DetectionComparison, type VersionComparisonResponse } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark, formatNumber } from '@/components/study-results';
@@ -24,8 +25,9 @@ function detectionColumns(unit: string) {
 }
 
 export function DetectionComparisonTable({ rows, unit }: { rows: DetectionComparison[]; unit: string }) {
+  const columns = useMemo(() => detectionColumns(unit), [unit]);
   if (rows.length === 0) return <Text color="fg.muted">Neither study gives detection or quantitation limits.</Text>;
-  return <DataTable label="Detection and quantitation limits of both versions" columns={detectionColumns(unit)} data={rows} />;
+  return <DataTable label="Detection and quantitation limits of both versions" columns={columns} data={rows} />;
 }
 
 export function RangeComparisonText({ range, unit }: { range: VersionComparisonResponse['range']; unit: string }) {

@@ -1,4 +1,5 @@
 import { Stack, Text } from '@chakra-ui/react';
+import { useMemo } from 'react';
 import { describeRequirement, figureUnit, type CriterionOutcome, type FigureComparison, type Units } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark, formatNumber } from '@/components/study-results';
@@ -61,6 +62,7 @@ export function figureColumns(fromLabel: string, toLabel: string, units: Units) 
 }
 
 export function FiguresComparisonTable(props: { rows: FigureComparison[]; fromLabel: string; toLabel: string; units: Units }) {
-  const columns = figureColumns(props.fromLabel, props.toLabel, props.units);
+  const { fromLabel, toLabel, units } = props;
+  const columns = useMemo(() => figureColumns(fromLabel, toLabel, units), [fromLabel, toLabel, units]);
   return <DataTable label="Figures of both versions" columns={columns} data={props.rows} getRowId={(row) => row.figure} />;
 }
