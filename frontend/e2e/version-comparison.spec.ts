@@ -63,6 +63,7 @@ test('the quality manager compares the last two versions of the demo caffeine me
       .locator('.main-svg')
       .first(),
   ).toBeVisible(PLOT_TIMEOUT);
+  await page.screenshot({ path: 'test-output/screenshots/version-comparison-top.png' });
   await shot(page, 'last-two');
   for (const section of ['What changed', 'Statistical tests', 'Figures', 'Over every version']) {
     await page
@@ -91,6 +92,9 @@ test('the quality manager compares the last two versions of the demo caffeine me
   await page.getByLabel('Later version').selectOption({ label: 'Version 2 (retired)' });
   await expect(testCard(page, 'Slope (sensitivity)')).toContainText('no significant difference');
   await shot(page, 'first-two');
+  await page
+    .getByRole('region', { name: 'Statistical tests' })
+    .screenshot({ path: 'test-output/screenshots/version-comparison-first-two-tests.png' });
 
   await page.goto('/verify');
   await page.getByLabel('Report to verify (PDF)').setInputFiles(pdf);
