@@ -7,6 +7,7 @@ import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { AuditModule } from './audit/audit.module.js';
 import { AuthModule } from './auth/auth.module.js';
+import { ComparisonsModule } from './comparisons/comparisons.module.js';
 import { AllExceptionsFilter } from './common/filters/all-exceptions.filter.js';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard.js';
 import { RolesGuard } from './common/guards/roles.guard.js';
@@ -46,6 +47,8 @@ function cacheHeaders(res: { setHeader(name: string, value: string): void }, pat
     UsersModule,
     AuthModule,
     HealthModule,
+    // Before MethodsModule: /method-versions/compare must win over /method-versions/:id.
+    ComparisonsModule,
     MethodsModule,
     StudiesModule,
     EvaluateModule,

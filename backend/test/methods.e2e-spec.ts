@@ -93,7 +93,7 @@ describe('methods, versions and criteria templates', () => {
         .get('/api/methods')
         .set(await auth(DEMO.reviewer))
         .expect(200);
-      expect(res.body).toHaveLength(3);
+      expect(res.body).toHaveLength(4);
       const nitrate = res.body.find((method: Row) => method.name === NITRATE);
       expect(nitrate).toMatchObject({
         analyte: expect.stringMatching(/^Nitrate/),

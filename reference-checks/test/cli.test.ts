@@ -100,3 +100,36 @@ describe.concurrent('CLI: node shared/dist/cli.js <study>', () => {
     expect(missing.stderr).toMatch(/cannot read/);
   });
 });
+
+describe('meritline-evaluate --compare', () => {
+  function runArgs(args: string[]): Promise<{ status: number | null; stdout: string; stderr: string }> {
+    return new Promise((resolve) => {
+      execFile(process.execPath, [cli, ...args], (error, stdout, stderr) => {
+        resolve({ status: error ? (typeof error.code === 'number' ? error.code : null) : 0, stdout, stderr });
+      });
+    });
+  }
+
+  it('compares the Miller fluorescence line with a 10 % more sensitive copy of itself', async () => {
+    const earlier = write('earlier.json', { standards: standards(miller.data.x, miller.data.y) });
+    const later = write('later.json', {
+      standards: standards(
+        miller.data.x,
+        (miller.data.y as number[]).map((y) => 1.1 * y),
+      ),
+    });
+    const { status, stdout } = await runArgs(['--compare', earlier, later, '--margin', '3']);
+    expect(status).toBe(0);
+    const result = JSON.parse(stdout);
+    expect(result.slope.changePct).toBeCloseTo(10, 9);
+    expect(result.recoveryMarginPct).toBe(3);
+    expect(result.repeatability).toEqual({ available: false, reason: expect.any(String) });
+  });
+
+  it('refuses a margin that is not a positive number', async () => {
+    const file = write('one.json', { standards: standards(miller.data.x, miller.data.y) });
+    const { status, stderr } = await runArgs(['--compare', file, file, '--margin', '-1']);
+    expect(status).toBe(2);
+    expect(stderr).toMatch(/percentage points/);
+  });
+});

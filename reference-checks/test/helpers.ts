@@ -1,4 +1,5 @@
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { expect } from 'vitest';
 
@@ -35,4 +36,17 @@ export function expectAbs(actual: number | null | undefined, expected: number | 
 
 export function standards(x: readonly number[], y: readonly number[]): { x: number; y: number }[] {
   return x.map((xi, i) => ({ x: xi, y: y[i] }));
+}
+
+/**
+ * The shared reference-data folder of the installation (read in place, never copied into the project);
+ * MERITLINE_REFERENCE_DATA points elsewhere. Checks that need it are skipped where it is absent.
+ */
+export const sharedReferenceDir = process.env.MERITLINE_REFERENCE_DATA ?? '/work/shared/reference-data';
+
+export const hasSharedReference = (name: string): boolean => existsSync(join(sharedReferenceDir, name));
+
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export function loadSharedJson(name: string): any {
+  return JSON.parse(readFileSync(join(sharedReferenceDir, name), 'utf8'));
 }

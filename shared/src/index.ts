@@ -39,3 +39,17 @@ export {
 } from './engine/distributions.js';
 export * from './study.js';
 export type * from './result.js';
+export type * from './comparison-types.js';
+export {
+  compareResults,
+  figureComparisons,
+  compareLineParameter,
+  compareVariances,
+  welchTest,
+  equivalenceTest,
+  intermediatePrecisionDf,
+  type CompareOptions,
+  type SampleSummary,
+  type LineSummary,
+} from './engine/compare.js';
+export type * from './api/comparisons.js';

@@ -4,6 +4,7 @@ import { MethodVersion } from '../methods/method-version.entity.js';
 import { Method } from '../methods/method.entity.js';
 import { Notification } from '../notifications/notification.entity.js';
 import { ValidationReport } from '../reports/validation-report.entity.js';
+import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { Run } from '../runs/run.entity.js';
@@ -26,6 +27,7 @@ export const entities = [
   ValidationReport,
   Run,
   RunSignature,
+  ChangeAssessment,
   UserSession,
   AppSetting,
 ];

@@ -6,6 +6,8 @@ import { DataSource, In } from 'typeorm';
 import type { EvaluationResult, StudyInput } from '@meritline/shared';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
+import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';
+import { MethodVersion } from '../methods/method-version.entity.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
@@ -144,6 +146,7 @@ export class ReportsService {
       const study = await this.findStudy(report.studyId);
       return {
         valid: true,
+        kind: 'validation-report',
         studyId: study.id,
         studyTitle: study.title,
         reportId: report.id,
@@ -153,8 +156,13 @@ export class ReportsService {
         sha256: report.sha256,
       };
     }
+    const assessment = await this.findAssessment({ sha256: sha256(file) });
+    if (assessment) return assessment;
     const claimed = claimedReportId(file.toString('latin1'));
-    const original = claimed ? await reports.findOne({ where: { id: claimed }, select: { id: true, signedAt: true } }) : null;
+    const original = claimed
+      ? ((await reports.findOne({ where: { id: claimed }, select: { id: true, signedAt: true } })) ??
+        (await this.dataSource.getRepository(ChangeAssessment).findOne({ where: { id: claimed }, select: { id: true, signedAt: true } })))
+      : null;
     if (original) {
       return {
         valid: false,
@@ -167,6 +175,30 @@ export class ReportsService {
       valid: false,
       reason:
         'This PDF does not match any report issued by this laboratory’s Meritline. It may have been changed after signing, or it was not issued here.',
+    };
+  }
+
+  private async findAssessment(where: { sha256: string }): Promise<ReportVerification | null> {
+    const assessment = await this.dataSource.getRepository(ChangeAssessment).findOne({
+      where,
+      select: { id: true, methodVersionId: true, comparedVersionId: true, toStudyId: true, signedAt: true, sha256: true },
+    });
+    if (!assessment) return null;
+    const versions = await this.dataSource
+      .getRepository(MethodVersion)
+      .find({ where: { id: In([assessment.methodVersionId, assessment.comparedVersionId]) }, relations: { method: true } });
+    const assessed = versions.find((v) => v.id === assessment.methodVersionId) as MethodVersion;
+    const compared = versions.find((v) => v.id === assessment.comparedVersionId) as MethodVersion;
+    return {
+      valid: true,
+      kind: 'change-assessment',
+      studyId: assessment.toStudyId ?? '',
+      studyTitle: `Change assessment of version ${assessed.number} against version ${compared.number}`,
+      reportId: assessment.id,
+      methodName: assessed.method.name,
+      methodVersion: assessed.number,
+      signedAt: assessment.signedAt.toISOString(),
+      sha256: assessment.sha256,
     };
   }
 

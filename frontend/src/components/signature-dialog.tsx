@@ -18,6 +18,8 @@ export interface SignatureDialogProps {
   /** Shown when a comment is asked for; `commentRequired` makes it mandatory (e.g. when returning work). */
   commentLabel?: string;
   commentRequired?: boolean;
+  /** Shortest comment accepted, e.g. for a written assessment. */
+  commentMinLength?: number;
   triggerVariant?: 'solid' | 'outline';
   /** Throw to keep the dialog open and show the server's answer. */
   onSign: (values: SignatureValues) => Promise<unknown>;
@@ -33,11 +35,13 @@ export function SignatureDialog({
   submitLabel,
   commentLabel,
   commentRequired = false,
+  commentMinLength,
   triggerVariant = 'solid',
   onSign,
 }: SignatureDialogProps) {
   const [open, setOpen] = useState(false);
-  const comment = yup.string().trim().max(2000, 'Keep the comment under 2000 characters.');
+  const limited = yup.string().trim().max(2000, 'Keep the comment under 2000 characters.');
+  const comment = commentMinLength ? limited.min(commentMinLength, `Write at least ${commentMinLength} characters.`) : limited;
   const schema = yup.object({
     password: yup.string().required('Enter your password to sign.').max(200),
     comment: commentRequired ? comment.required('Say why.') : comment.default(''),

@@ -2,6 +2,8 @@
 export type ReportVerification =
   | {
       valid: true;
+      /** A study's validation report, or a quality manager's signed change assessment. */
+      kind: 'validation-report' | 'change-assessment';
       studyId: string;
       studyTitle: string;
       reportId: string;

@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import type { MethodVersionStatus } from '@meritline/shared';
+import type { MethodChangeKind, MethodVersionStatus, RevalidationFamily } from '@meritline/shared';
 import { AuditService } from '../../audit/audit.service.js';
 import { findTemplate, type CriteriaTemplate } from '../../methods/criteria-templates.js';
 import { MethodVersion, type CriteriaSet } from '../../methods/method-version.entity.js';
@@ -10,6 +10,7 @@ export const DEMO_METHODS = {
   nitrate: 'Nitrate in drinking water by ion chromatography',
   dye: 'Tartrazine in soft drinks by UV-Vis spectrophotometry',
   pesticide: 'Chlorpyrifos in apples by LC-MS/MS',
+  caffeine: 'Caffeine in energy drinks by HPLC-UV',
 } as const;
 
 /** Demo dates relative to the day the database is seeded, so the demo always looks current. */
@@ -33,6 +34,8 @@ interface DemoVersion {
   criteria: CriteriaSet;
   createdBy: string;
   createdDaysAgo: number;
+  changeKind?: MethodChangeKind;
+  revalidationScope?: RevalidationFamily[];
 }
 
 interface DemoMethod extends Pick<Method, 'name' | 'analyte' | 'matrix' | 'technique' | 'xUnit' | 'yUnit' | 'purpose'> {
@@ -118,6 +121,46 @@ const METHODS: DemoMethod[] = [
       },
     ],
   },
+  {
+    name: DEMO_METHODS.caffeine,
+    analyte: 'Caffeine',
+    matrix: 'Energy drinks',
+    technique: 'HPLC-UV at 273 nm, C18 column, isocratic',
+    xUnit: 'mg/L',
+    yUnit: 'mAU·s',
+    purpose: 'assay',
+    createdDaysAgo: 330,
+    versions: [
+      {
+        number: 1,
+        status: 'retired',
+        changeSummary: 'First release: 20–120 mg/L after degassing and a tenfold dilution.',
+        criteria: template('assay').criteria,
+        createdBy: 'quality@meritline.test',
+        createdDaysAgo: 330,
+      },
+      {
+        number: 2,
+        status: 'retired',
+        changeSummary: 'Degassing by sonication instead of stirring; dilution unchanged.',
+        changeKind: 'sample-preparation',
+        revalidationScope: ['recovery', 'precision'],
+        criteria: template('assay').criteria,
+        createdBy: 'analyst@meritline.test',
+        createdDaysAgo: 190,
+      },
+      {
+        number: 3,
+        status: 'active',
+        changeSummary: 'New diode-array detector with a 10 mm flow cell replaces the variable-wavelength detector.',
+        changeKind: 'instrument',
+        revalidationScope: ['linearity', 'detection-limits', 'precision'],
+        criteria: template('assay').criteria,
+        createdBy: 'quality@meritline.test',
+        createdDaysAgo: 60,
+      },
+    ],
+  },
 ];
 
 export async function seedDemoMethods(manager: EntityManager) {
@@ -141,6 +184,8 @@ export async function seedDemoMethods(manager: EntityManager) {
           number: version.number,
           status: version.status,
           changeSummary: version.changeSummary,
+          changeKind: version.changeKind ?? null,
+          revalidationScope: version.revalidationScope ?? null,
           criteria: version.criteria,
           settings: template(fields.purpose).settings,
           createdById: author.id,

@@ -16,6 +16,9 @@ export const DEMO_STUDIES = {
   pesticideReturned: 'Chlorpyrifos in apples: validation at 1–100 µg/kg',
   nitrateDraft: 'Nitrate by IC: bottled mineral water',
   pesticideDraft: 'Chlorpyrifos in pears: matrix extension',
+  caffeineInitial: 'Caffeine by HPLC-UV: initial validation',
+  caffeineSonication: 'Caffeine by HPLC-UV: degassing by sonication',
+  caffeineDetector: 'Caffeine by HPLC-UV: diode-array detector',
 } as const;
 
 /** Deterministic noise (mulberry32 and Box–Muller), so every demo database holds the same invented numbers. */
@@ -182,6 +185,28 @@ const chlorpyrifos = (seed: number): Scenario => ({
   extra: { weighting: '1/x2', massFraction: 5e-8 },
 });
 
+/** Invented caffeine assay; the detector of version 3 is about 15 % more sensitive. */
+const caffeine = (seed: number, slope: number, recoveryPct: number): Scenario => ({
+  seed,
+  slope,
+  intercept: 0.9,
+  levels: [20, 40, 60, 80, 100, 120],
+  responseSd: (y) => 0.6 + 0.0025 * y,
+  yDecimals: 2,
+  xDecimals: 2,
+  recovery: {
+    native: 0,
+    levels: [
+      { level: 'low', added: 40, n: 3 },
+      { level: 'mid', added: 80, n: 3 },
+      { level: 'high', added: 100, n: 3 },
+    ],
+    meanPct: recoveryPct,
+    sdPct: 0.7,
+  },
+  precision: { days: 3, n: 5, mean: 80.2, rsdPct: 0.6, betweenRsdPct: 0.4 },
+});
+
 interface DemoStudy {
   title: string;
   method: string;
@@ -307,6 +332,30 @@ const STUDIES: DemoStudy[] = [
     createdDaysAgo: 1,
     updatedDaysAgo: 0,
   },
+  ...(
+    [
+      [DEMO_STUDIES.caffeineInitial, 1, caffeine(3301, 12.62, 99.1), 'HPLC-1, variable-wavelength detector', 320, 312],
+      [DEMO_STUDIES.caffeineSonication, 2, caffeine(3302, 12.58, 99.9), 'HPLC-1, variable-wavelength detector', 180, 171],
+      [DEMO_STUDIES.caffeineDetector, 3, caffeine(3303, 14.51, 100.0), 'HPLC-2, diode-array detector', 52, 44],
+    ] as const
+  ).map(([title, version, scenario, instrument, started, finished]): DemoStudy => ({
+    title,
+    method: DEMO_METHODS.caffeine,
+    version,
+    author: version === 2 ? 'analyst2@meritline.test' : 'analyst@meritline.test',
+    status: 'approved',
+    data: studyData(scenario),
+    meta: {
+      instrument,
+      startedOn: isoDay(started),
+      finishedOn: isoDay(finished),
+      conclusion: 'Linearity, recovery and precision meet the assay criteria of the version.',
+    },
+    createdDaysAgo: started,
+    updatedDaysAgo: finished - 1,
+    submittedDaysAgo: finished - 1,
+    approvedDaysAgo: finished - 3,
+  })),
 ];
 
 function isoDay(days: number): string {

@@ -8,6 +8,9 @@ export class ReportVerificationDto {
   @ApiPropertyOptional({ description: 'Why the file is not a valid report (only when valid is false).' })
   reason?: string;
 
+  @ApiPropertyOptional({ enum: ['validation-report', 'change-assessment'], description: 'What kind of signed document the file is.' })
+  kind?: 'validation-report' | 'change-assessment';
+
   @ApiPropertyOptional({ format: 'uuid' })
   studyId?: string;
 

@@ -9,3 +9,4 @@ export { judgeCriteria, type JudgedCriterion } from './judge-criteria';
 export { criterionName, describeRequirement, FIGURE_LABELS, figureLabel, figureUnit, MODEL_LABELS, WEIGHTING_LABELS } from './format';
 export type { CriterionDefinition, StudyResultsProps, StudyUnits } from './types';
 export { plainWarning } from './figure-section';
+export { LazyPlot, type LazyPlotProps } from './lazy-plot';

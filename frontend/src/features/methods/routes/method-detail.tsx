@@ -1,11 +1,12 @@
-import { formatDateTime } from '@meritline/shared';
 import { Box, DataList, Heading, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import { formatDateTime, hasAnyRole, Role } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { Link as RouterLink, useParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
+import { useSession } from '@/lib/auth';
 import { methodsQueries } from '../api/methods-queries';
 import { useMethodPermissions } from '../hooks/use-method-permissions';
 import { VersionCard } from '../components/version-card';
@@ -15,6 +16,7 @@ export default function MethodDetailPage() {
   const { methodId = '' } = useParams();
   const method = useQuery(methodsQueries.detail(methodId));
   const { canManage, canPropose, canEditDraft } = useMethodPermissions();
+  const canCompare = hasAnyRole(useSession().user?.roles ?? [], [Role.QualityManager]);
 
   if (method.isPending) return <PageSpinner label="Loading the method" />;
   if (method.isError)
@@ -80,9 +82,16 @@ export default function MethodDetailPage() {
             <Heading as="h2" size="xl">
               Versions
             </Heading>
-            <Text color="fg.muted" fontSize="sm">
-              Newest first
-            </Text>
+            <HStack gap="4">
+              {canCompare && versions.length >= 2 && (
+                <Link asChild fontSize="sm" color="brand.fg" fontWeight="600">
+                  <RouterLink to={`${paths.methodComparison.getHref()}?method=${encodeURIComponent(m.id)}`}>Compare versions</RouterLink>
+                </Link>
+              )}
+              <Text color="fg.muted" fontSize="sm">
+                Newest first
+              </Text>
+            </HStack>
           </HStack>
           {versions.map((version) => (
             <VersionCard key={version.id} method={m} version={version} canManage={canManage} canEdit={canEditDraft(version.createdBy.id)} />

@@ -23,13 +23,14 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
       </Alert.Root>
     );
   }
+  const assessment = verification.kind === 'change-assessment';
   const rows: [string, string][] = [
-    ['Study', verification.studyTitle],
+    [assessment ? 'Document' : 'Study', verification.studyTitle],
     ['Method', verification.methodName],
     ['Method version', `Version ${verification.methodVersion}`],
     ['Signed', formatDateTime(verification.signedAt)],
-    ['Report id', verification.reportId],
-    ['Study id', verification.studyId],
+    [assessment ? 'Assessment id' : 'Report id', verification.reportId],
+    ...(verification.studyId ? [[assessment ? 'Study of the version' : 'Study id', verification.studyId] as [string, string]] : []),
   ];
   return (
     <Alert.Root status="success" variant="surface" alignItems="flex-start">
@@ -39,8 +40,8 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
         <Alert.Description>
           <Stack gap="4">
             <Text>
-              This file is, byte for byte, the validation report this laboratory issued and signed. Its digital signature can also be
-              checked in any PDF reader that shows signatures.
+              This file is, byte for byte, the {assessment ? 'change assessment' : 'validation report'} this laboratory issued and signed.
+              Its digital signature can also be checked in any PDF reader that shows signatures.
             </Text>
             <DataList.Root orientation="horizontal" size="sm">
               {rows.map(([label, value]) => (
