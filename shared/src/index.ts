@@ -40,3 +40,5 @@ export {
 } from './engine/distributions.js';
 export * from './study.js';
 export type * from './result.js';
+export * from './api/reference-materials.js';
+export * from './api/preparations.js';

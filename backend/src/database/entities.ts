@@ -12,6 +12,8 @@ import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
 import { User } from '../users/user.entity.js';
+import { ReferenceMaterial } from '../reference-materials/reference-material.entity.js';
+import { StandardPreparation } from '../preparations/standard-preparation.entity.js';
 
 export const entities = [
   User,
@@ -28,4 +30,6 @@ export const entities = [
   RunSignature,
   UserSession,
   AppSetting,
+  ReferenceMaterial,
+  StandardPreparation,
 ];
