@@ -17,6 +17,7 @@ import type { StudyMetaDto } from './dto/study-meta.dto.js';
 import type { ImportPreviewDto, StudyDto, StudyPageDto, StudySummaryDto } from './dto/study.dto.js';
 import type { UpdateStudyDto } from './dto/update-study.dto.js';
 import { readImportTable } from './import-table.js';
+import { PreparationsService } from '../preparations/preparations.service.js';
 import { evaluateStudyData, withMethodDefaults, type StudyData } from './study-evaluation.js';
 import { importSection, type ImportSection } from './study-import.js';
 import { ValidationStudy, type StudyMeta } from './validation-study.entity.js';
@@ -151,6 +152,7 @@ export class StudiesService {
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly audit: AuditService,
+    private readonly preparations: PreparationsService,
   ) {}
 
   async findPage(query: ListStudiesQueryDto, user: AuthUser): Promise<StudyPageDto> {
@@ -237,6 +239,7 @@ export class StudiesService {
         ]);
       }
       const data = withMethodDefaults(dto.data, version, version.method);
+      await this.assertPreparationsUsable(manager, data);
       const evaluation = evaluateStudyData(data);
       const study = await manager.save(
         manager.create(ValidationStudy, {
@@ -284,6 +287,7 @@ export class StudiesService {
       if (dto.data !== undefined) {
         const data = withMethodDefaults(dto.data, study.methodVersion, study.methodVersion.method);
         if (changed(study.data, data)) {
+          await this.assertPreparationsUsable(manager, data);
           Object.assign(patch, this.dataPatch(study, data, actor, dto.reason));
           exclusions = exclusionEntries(study.data, data, actor, id);
         }
@@ -344,6 +348,7 @@ export class StudiesService {
         study.methodVersion.method,
       );
       if (!changed(study.data, data)) return toStudyDto(study);
+      await this.assertPreparationsUsable(manager, data);
       const patch = this.dataPatch(study, data, actor, dto.reason);
       await this.save(manager, study, dto.lockVersion as number, patch);
       await this.audit.record(
@@ -364,6 +369,12 @@ export class StudiesService {
       );
       return this.findOne(id, manager);
     });
+  }
+
+  /** Standards that name a preparation must name a saved one whose material is still in use. */
+  private async assertPreparationsUsable(manager: EntityManager, data: StudyData) {
+    const errors = await this.preparations.studyStandardErrors(manager, data);
+    if (errors.length) throw unprocessable(errors, 'A standard names a preparation that cannot be used.');
   }
 
   /** New data and the server's result for them; once returned, a data change needs a reason. */
