@@ -5,8 +5,8 @@ import type { BudgetEntry, MassUnit, ToleranceDistribution } from '../uncertaint
 export const MASS_UNITS: readonly MassUnit[] = ['µg', 'mg', 'g'];
 export const TOLERANCE_DISTRIBUTIONS: readonly ToleranceDistribution[] = ['rectangular', 'triangular'];
 export const TOLERANCE_DISTRIBUTION_LABELS: Record<ToleranceDistribution, string> = {
-  rectangular: 'Rectangular (a/√3)',
-  triangular: 'Triangular (a/√6)',
+  rectangular: 'Rectangular',
+  triangular: 'Triangular',
 };
 export const MAX_DILUTION_STEPS = 12;
 

@@ -67,7 +67,9 @@ export const emptyPreparation: PreparationValues = {
   steps: [newStep()],
 };
 
-const optional = (v: string) => (v.trim() === '' ? undefined : Number(v));
+/** Formik keeps what number inputs hold as numbers, and emptied ones as ''. */
+const text = (v: unknown) => (v === undefined || v === null ? '' : String(v).trim());
+const optional = (v: unknown) => (text(v) === '' ? undefined : Number(v));
 
 /** The request once every required number is there; null while the form is incomplete. */
 export function previewRequest(v: PreparationValues): PreparationPreviewRequest | null {
@@ -79,7 +81,7 @@ export function previewRequest(v: PreparationValues): PreparationPreviewRequest 
     s.volumeTolerance,
     ...v.steps.flatMap((st) => [st.aliquot, st.aliquotTolerance, st.volume, st.volumeTolerance]),
   ];
-  if (!v.materialId || required.some((x) => x.trim() === '' || !Number.isFinite(Number(x)))) return null;
+  if (!v.materialId || required.some((x) => text(x) === '' || !Number.isFinite(Number(x)))) return null;
   return {
     source: { materialId: v.materialId },
     stock: {

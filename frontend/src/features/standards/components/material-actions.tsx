@@ -18,7 +18,7 @@ export function MaterialActions({ material }: { material: ReferenceMaterialDto }
   const canKeep = useCanKeepRegister();
   const open = material.status !== 'withdrawn';
   return (
-    <HStack gap="2" justify="flex-end">
+    <HStack gap="2" justify="flex-end" wrap="wrap" maxW="12rem" ms="auto">
       {material.certificate && (
         <Button
           size="xs"

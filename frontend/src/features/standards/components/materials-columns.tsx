@@ -20,12 +20,28 @@ export const materialsColumns = column.columns([
       </Stack>
     ),
   }),
-  column.accessor((m) => `${m.lot} / ${m.certificateNumber}`, {
-    id: 'lot',
-    header: 'Lot / certificate',
+  column.accessor('lot', {
+    header: 'Lot and certificate',
     sortFn: 'text',
+    cell: (info) => (
+      <Stack gap="0">
+        <Text>Lot {info.getValue()}</Text>
+        <Text fontSize="sm" color="fg.muted">
+          Certificate {info.row.original.certificateNumber}
+        </Text>
+      </Stack>
+    ),
   }),
-  column.accessor((m) => certifiedValueWords(m), { id: 'value', header: 'Certified value', enableSorting: false }),
+  column.accessor((m) => certifiedValueWords(m), {
+    id: 'value',
+    header: 'Certified value',
+    enableSorting: false,
+    cell: (info) => (
+      <Text whiteSpace="normal" minW="10rem">
+        {info.getValue()}
+      </Text>
+    ),
+  }),
   column.accessor('expiresOn', {
     header: 'Status',
     sortFn: 'text',
@@ -41,6 +57,7 @@ export const materialsColumns = column.columns([
   column.display({
     id: 'actions',
     header: () => <Text srOnly>Actions</Text>,
+    meta: { align: 'end' },
     cell: (info) => <MaterialActions material={info.row.original} />,
   }),
 ]);

@@ -83,14 +83,24 @@ export function StockFields() {
           <Select name="stock.volumeDistribution" label="Tolerance taken as" options={DISTRIBUTIONS} />
         </SimpleGrid>
         <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
-          <FormField name="stock.volumeRepeatability" label="Filling repeatability, SD (mL)" type="number" helperText="Optional." />
-          <FormField name="stock.temperatureRange" label="Temperature range ± (°C)" type="number" helperText="Optional." />
+          <FormField
+            name="stock.volumeRepeatability"
+            label="Filling SD (mL)"
+            type="number"
+            helperText="Optional; from fill-and-weigh checks."
+          />
+          <FormField
+            name="stock.temperatureRange"
+            label="Temperature ± (°C)"
+            type="number"
+            helperText="Optional; deviation from the flask’s calibration temperature."
+          />
           <FormField
             name="stock.expansionCoefficient"
-            label="Expansion coefficient (per °C)"
+            label="Expansion per °C"
             type="number"
             placeholder="0.00021"
-            helperText="Water when left empty."
+            helperText="Water (0.00021) when left empty."
           />
         </SimpleGrid>
       </Stack>

@@ -9,11 +9,33 @@ import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { BudgetTable } from './budget-table';
 import { concentrationWords } from './concentration-words';
 
-/** The server's dry run of what is on the form, as the analyst types. */
-export function PreparationPreview() {
+function usePreview() {
   const { values } = useFormikContext<PreparationValues>();
   const body = useDebouncedValue(previewRequest(values), 300);
-  const preview = useQuery(preparationsQueries.preview(body));
+  return { body, preview: useQuery(preparationsQueries.preview(body)), massUnit: String(values.stock.massUnit) };
+}
+
+/** The stock's budget under the form, where the table has room; it follows the same dry run. */
+export function PreparationBudget() {
+  const { preview, massUnit } = usePreview();
+  if (!preview.data || preview.isError) return null;
+  return (
+    <Box borderWidth="1px" borderRadius="l3" p="5" bg="bg.panel" opacity={preview.isPlaceholderData ? 0.6 : 1}>
+      <Heading as="h2" size="md" mb="3">
+        Uncertainty budget of the stock
+      </Heading>
+      <BudgetTable stock={preview.data.stock} massUnit={massUnit} />
+      <Text fontSize="xs" color="fg.muted" mt="3">
+        c = 1000 · m · P / V; relative standard uncertainties combined in quadrature (GUM). A tolerance ± a counts as a/√3 when taken as
+        rectangular and a/√6 when triangular. State an expanded uncertainty U = k · u as your procedures require.
+      </Text>
+    </Box>
+  );
+}
+
+/** The server's dry run of what is on the form, as the analyst types. */
+export function PreparationPreview() {
+  const { body, preview } = usePreview();
 
   if (!body)
     return (
@@ -70,16 +92,6 @@ export function PreparationPreview() {
             ))}
           </Table.Body>
         </Table.Root>
-      </Box>
-      <Box>
-        <Heading as="h3" size="sm" mb="2">
-          Uncertainty budget of the stock
-        </Heading>
-        <BudgetTable stock={stock} massUnit={values.stock.massUnit} />
-        <Text fontSize="xs" color="fg.muted" mt="2">
-          c = 1000 · m · P / V; relative standard uncertainties combined in quadrature (GUM). Tolerances a become a/√3 (rectangular) or a/√6
-          (triangular). Expanded uncertainty U = k · u as your procedures require.
-        </Text>
       </Box>
     </Stack>
   );

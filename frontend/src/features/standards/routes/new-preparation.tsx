@@ -12,7 +12,7 @@ import { emptyPreparation, preparationSchema, previewRequest, usableMaterials, t
 import { useCreatePreparation } from '../api/preparations';
 import { referenceMaterialsQueries } from '../api/reference-materials-queries';
 import { MaterialField, StepFields, StockFields } from '../components/preparation-fields';
-import { PreparationPreview } from '../components/preparation-preview';
+import { PreparationBudget, PreparationPreview } from '../components/preparation-preview';
 
 export default function NewPreparationPage() {
   const materials = useQuery(referenceMaterialsQueries.list());
@@ -47,7 +47,7 @@ export default function NewPreparationPage() {
         <Skeleton height="60" />
       ) : (
         <Form initialValues={emptyPreparation} validationSchema={preparationSchema} onSubmit={save} submitLabel="Save the preparation">
-          <Grid templateColumns={{ base: '1fr', xl: 'minmax(0, 1fr) minmax(0, 1fr)' }} gap="8" alignItems="start">
+          <Grid templateColumns={{ base: '1fr', xl: 'minmax(0, 3fr) minmax(0, 2fr)' }} gap="8" alignItems="start">
             <Stack gap="6">
               <FormField name="name" label="Name of the preparation" required placeholder="Cadmium stock and working standards, week 49" />
               <MaterialField materials={usableMaterials(materials.data)} />
@@ -61,6 +61,7 @@ export default function NewPreparationPage() {
               <PreparationPreview />
             </Box>
           </Grid>
+          <PreparationBudget />
         </Form>
       )}
     </>
