@@ -1,4 +1,7 @@
-import { readFileSync } from 'node:fs';
+import { execFileSync } from 'node:child_process';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bearer, calibrationData, openDatabaseFile } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
@@ -282,6 +285,38 @@ describe('standard preparations', () => {
           .expect(201)
       ).body;
       expect(study.data.standards[0].preparationId).toBe(prep.id);
+
+      // The draft report prints the chain material and lot → stock → working standards with each u.
+      const pdf = await t
+        .http()
+        .get(`/api/studies/${study.id}/report`)
+        .set(bearer(analyst))
+        .buffer(true)
+        .parse((res, done) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () => done(null, Buffer.concat(chunks)));
+        })
+        .expect(200);
+      const dir = mkdtempSync(join(tmpdir(), 'meritline-prep-'));
+      try {
+        const file = join(dir, 'report.pdf');
+        writeFileSync(file, pdf.body as Buffer);
+        const text = execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+        expect(text).toContain('Traceability of the standards');
+        expect(text).toContain(`lot ${material.lot}, certificate T-1`);
+        expect(text).toContain('Standards 1 (x = 0.5), 2 (x = 0.5)');
+        const stock = prep.result.stock;
+        // u to two significant digits and c to the same place (GUM 7.2.6), as every estimate in the report.
+        expect(stock.u).toBeGreaterThan(0.1);
+        expect(text).toContain(`${stock.concentration.toFixed(2)} mg/L ${stock.u.toFixed(2)} mg/L`);
+        const last = prep.result.steps[1];
+        expect(last.u).toBeLessThan(0.01);
+        expect(last.u).toBeGreaterThan(0.001);
+        expect(text).toContain(`${last.concentration.toFixed(4)} mg/L ${last.u.toFixed(4)} mg/L`);
+      } finally {
+        rmSync(dir, { recursive: true, force: true });
+      }
 
       await t
         .http()
