@@ -17,6 +17,7 @@ test('the analyst prepares a stock and two dilutions from a seeded material and 
   // The overview warns of the demo material that expires soon.
   await expect(page.getByText('Reference materials expiring within 30 days')).toBeVisible();
   await expect(page.getByText(/Sodium nitrate, dried, lot CRM-NO3-2207: expires in \d+ days/)).toBeVisible();
+  await shot(page, 'overview');
 
   await mainNavigation(page).getByRole('link', { name: 'Standard preparations' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Standard preparations' })).toBeVisible();
@@ -119,4 +120,23 @@ test('the quality manager registers a material and stores its certificate', asyn
   });
   await expect(row.getByRole('button', { name: /^Certificate of Potassium/ })).toBeVisible();
   await shot(page, 'registered');
+
+  // The bottle is opened: the date goes in through the edit dialog.
+  await row.getByRole('button', { name: /^Edit Potassium/ }).click();
+  const edit = page.getByRole('dialog');
+  await edit.getByLabel('Opened').fill('2026-11-15');
+  await edit.getByRole('button', { name: 'Save the changes' }).click();
+  await expect(page.getByRole('dialog')).toHaveCount(0);
+
+  // Withdrawal asks for a reason and leaves the material in the register, marked in words.
+  await row.getByRole('button', { name: /^Withdraw Potassium/ }).click();
+  const withdraw = page.getByRole('alertdialog');
+  await withdraw.getByRole('button', { name: 'Withdraw' }).click();
+  await expect(withdraw.getByText('Say why the material is withdrawn.')).toBeVisible();
+  await withdraw.getByLabel('Reason').fill('Lid cracked on receipt of the second bottle; contents possibly wet.');
+  await withdraw.getByRole('button', { name: 'Withdraw' }).click();
+  await expect(row).toContainText('Withdrawn');
+  await expect(row).toContainText('Lid cracked on receipt');
+  await expect(row.getByRole('button', { name: /^Edit Potassium/ })).toHaveCount(0);
+  await shot(page, 'withdrawn');
 });

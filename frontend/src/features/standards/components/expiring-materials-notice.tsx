@@ -1,6 +1,6 @@
-import { Alert, List } from '@chakra-ui/react';
+import { Alert, Link, List } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
-import { Link } from 'react-router';
+import { Link as RouterLink } from 'react-router';
 import { paths } from '@/lib/config/paths';
 import { referenceMaterialsQueries } from '../api/reference-materials-queries';
 import { expiryWords } from './material-status';
@@ -22,7 +22,9 @@ export function ExpiringMaterialsNotice() {
               </List.Item>
             ))}
           </List.Root>
-          <Link to={paths.referenceMaterials.getHref()}>Open the register</Link>
+          <Link asChild variant="underline" mt="1">
+            <RouterLink to={paths.referenceMaterials.getHref()}>Open the register</RouterLink>
+          </Link>
         </Alert.Description>
       </Alert.Content>
     </Alert.Root>

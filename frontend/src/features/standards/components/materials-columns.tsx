@@ -48,6 +48,11 @@ export const materialsColumns = column.columns([
     cell: (info) => (
       <Stack gap="1" minW="12rem">
         <MaterialStatus material={info.row.original} />
+        {info.row.original.withdrawnReason && (
+          <Text fontSize="sm" whiteSpace="normal" maxW="16rem">
+            {info.row.original.withdrawnReason}
+          </Text>
+        )}
         <Text fontSize="xs" color="fg.muted">
           Use until {info.getValue()}
         </Text>
