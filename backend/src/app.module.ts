@@ -18,6 +18,8 @@ import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { MethodsModule } from './methods/methods.module.js';
 import { NotificationsModule } from './notifications/notifications.module.js';
+import { PreparationsModule } from './preparations/preparations.module.js';
+import { ReferenceMaterialsModule } from './reference-materials/reference-materials.module.js';
 import { ReportsModule } from './reports/reports.module.js';
 import { ReviewsModule } from './reviews/reviews.module.js';
 import { RunsModule } from './runs/runs.module.js';
@@ -56,6 +58,8 @@ function cacheHeaders(res: { setHeader(name: string, value: string): void }, pat
     ReviewsModule,
     ReportsModule,
     RunsModule,
+    ReferenceMaterialsModule,
+    PreparationsModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },

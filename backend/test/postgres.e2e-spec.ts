@@ -47,6 +47,47 @@ describe.skipIf(!serverUrl)('the same entities, migrations and seeds on PostgreS
     expect(runs.body.total).toBeGreaterThan(0);
   });
 
+  it('should keep reference materials with their numbers and certificate bytes, and save a preparation', async () => {
+    const quality = { Authorization: `Bearer ${await t.tokenFor(DEMO.quality)}` };
+    const analyst = { Authorization: `Bearer ${await t.tokenFor(DEMO.analyst)}` };
+    const materials = (await t.http().get('/api/reference-materials').set(analyst).expect(200)).body as {
+      id: string;
+      analyte: string;
+      certifiedValue: number;
+      lockVersion: number;
+    }[];
+    const cadmium = materials.find((m) => m.analyte === 'Cadmium')!;
+    expect(typeof cadmium.certifiedValue).toBe('number');
+    const pdf = Buffer.from('%PDF-1.4\n%%EOF\n', 'latin1');
+    await t
+      .http()
+      .put(`/api/reference-materials/${cadmium.id}/certificate`)
+      .set(quality)
+      .field('lockVersion', String(cadmium.lockVersion))
+      .attach('file', pdf, 'c.pdf')
+      .expect(200);
+    const back = await t
+      .http()
+      .get(`/api/reference-materials/${cadmium.id}/certificate`)
+      .set(analyst)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      })
+      .expect(200);
+    expect(Buffer.compare(back.body as Buffer, pdf)).toBe(0);
+    const stock = { mass: 50, uMass: 0.05, massUnit: 'mg', volume: 50, volumeTolerance: 0.06, volumeDistribution: 'triangular' };
+    const saved = await t
+      .http()
+      .post('/api/preparations')
+      .set(analyst)
+      .send({ name: 'On PostgreSQL', source: { materialId: cadmium.id }, stock, steps: [] })
+      .expect(201);
+    expect(saved.body.result.stock.concentration).toBeCloseTo(1000 * cadmium.certifiedValue, 9);
+  });
+
   it('should keep the audit chain intact on PostgreSQL', async () => {
     const token = await t.tokenFor(DEMO.quality);
     const verify = await t.http().get('/api/audit/verify').set('Authorization', `Bearer ${token}`).expect(200);

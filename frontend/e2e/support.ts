@@ -3,7 +3,7 @@ import { expect, type Page } from '@playwright/test';
 export const DEMO_PASSWORD = 'meritline-demo';
 
 export const DEMO_ACCOUNTS = [
-  { role: 'analyst', email: 'analyst@meritline.test', entries: ['Validation studies', 'Routine batches'] },
+  { role: 'analyst', email: 'analyst@meritline.test', entries: ['Validation studies', 'Routine batches', 'Standard preparations'] },
   { role: 'reviewer', email: 'reviewer@meritline.test', entries: ['Review queue'] },
   // The demo quality manager also reviews.
   { role: 'quality_manager', email: 'quality@meritline.test', entries: ['Methods', 'Version comparison', 'Review queue'] },

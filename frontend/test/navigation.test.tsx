@@ -6,12 +6,12 @@ import { setSessionToken } from '@/lib/session-token';
 import { renderRoutes, stubApi } from './render';
 
 const ENTRIES_BY_ROLE: Record<Role, string[]> = {
-  [Role.Analyst]: ['Validation studies', 'Routine batches'],
+  [Role.Analyst]: ['Validation studies', 'Routine batches', 'Standard preparations'],
   [Role.Reviewer]: ['Review queue'],
   [Role.QualityManager]: ['Methods', 'Version comparison'],
   [Role.Admin]: ['Users', 'Outbox'],
 };
-const FOR_EVERYONE = ['Overview', 'Verify a report'];
+const FOR_EVERYONE = ['Overview', 'Reference materials', 'Verify a report'];
 const ALL_ROLE_ENTRIES = Object.values(ENTRIES_BY_ROLE).flat();
 
 function signInAs(roles: Role[]) {
@@ -44,7 +44,9 @@ describe('navigation by role', () => {
     renderRoutes(routes, '/');
 
     const links = await mainNavigationLinks();
-    expect(links.sort()).toEqual([...FOR_EVERYONE, 'Validation studies', 'Routine batches', 'Review queue'].sort());
+    expect(links.sort()).toEqual(
+      [...FOR_EVERYONE, 'Validation studies', 'Routine batches', 'Standard preparations', 'Review queue'].sort(),
+    );
   });
 
   it('names the signed-in user and their roles in the shell', async () => {

@@ -53,3 +53,5 @@ export {
   type LineSummary,
 } from './engine/compare.js';
 export type * from './api/comparisons.js';
+export * from './api/reference-materials.js';
+export * from './api/preparations.js';

@@ -33,6 +33,8 @@ export interface StandardPoint {
   /** Standard deviation of the response, for 1/s2 weighting. */
   sd?: number;
   excluded?: Exclusion;
+  /** The saved standard preparation this standard was made from (traceability; not used in the calculation). */
+  preparationId?: string;
 }
 
 export interface UnknownSample {

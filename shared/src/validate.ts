@@ -127,18 +127,26 @@ function parseUnits(c: Collector, value: unknown): Units | undefined {
   return units;
 }
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
 function parseStandards(c: Collector, value: unknown): StandardPoint[] {
   if (!c.isArray(value, 'standards')) return [];
   const standards: StandardPoint[] = [];
   value.forEach((item, i) => {
     const field = `standards[${i}]`;
     if (!c.isObject(item, field)) return;
-    c.onlyKeys(item, ['x', 'y', 'id', 'sd', 'excluded'], field);
+    c.onlyKeys(item, ['x', 'y', 'id', 'sd', 'excluded', 'preparationId'], field);
     const x = c.number(item.x, `${field}.x`);
     const y = c.number(item.y, `${field}.y`);
     const point: StandardPoint = { x: x ?? NaN, y: y ?? NaN };
     if (item.id !== undefined) point.id = c.text(item.id, `${field}.id`);
     if (item.sd !== undefined) point.sd = c.positive(item.sd, `${field}.sd`);
+    if (item.preparationId !== undefined && item.preparationId !== null) {
+      const preparationId = c.text(item.preparationId, `${field}.preparationId`);
+      if (preparationId !== undefined && !UUID.test(preparationId)) {
+        c.add(`${field}.preparationId`, 'invalid_value', `${field}.preparationId must be the id of a saved preparation`);
+      } else point.preparationId = preparationId;
+    }
     if (item.excluded !== undefined && item.excluded !== null && item.excluded !== false) {
       if (c.isObject(item.excluded, `${field}.excluded`)) {
         const reason = c.text(item.excluded.reason, `${field}.excluded.reason`);

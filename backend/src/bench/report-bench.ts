@@ -130,6 +130,7 @@ export function typicalReportContent(reportId: string | null = '3f2a9c1e-7b44-4d
         createdAt: at('2026-11-17T11:30:00Z'),
       },
     ],
+    preparations: [],
     exclusions: [
       {
         at: at('2026-11-13T16:05:00Z'),

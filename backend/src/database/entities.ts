@@ -13,6 +13,8 @@ import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
 import { User } from '../users/user.entity.js';
+import { ReferenceMaterial } from '../reference-materials/reference-material.entity.js';
+import { StandardPreparation } from '../preparations/standard-preparation.entity.js';
 
 export const entities = [
   User,
@@ -30,4 +32,6 @@ export const entities = [
   ChangeAssessment,
   UserSession,
   AppSetting,
+  ReferenceMaterial,
+  StandardPreparation,
 ];

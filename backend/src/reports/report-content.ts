@@ -47,6 +47,19 @@ export interface ReportContent {
     resolved: boolean;
     createdAt: Date;
   }[];
+  /** The saved preparations the study's standards name, in the order first named. */
+  preparations: {
+    id: string;
+    name: string;
+    material: { name: string; supplier: string; lot: string; certificateNumber: string; expiresOn: string } | null;
+    source: { purity: number; uPurity: number };
+    stock: { concentration: number; u: number; unit: string };
+    steps: { concentration: number; u: number }[];
+    /** Indices (0-based) of the study's standards that name it. */
+    standards: number[];
+    savedBy: string;
+    savedAt: Date;
+  }[];
   /** Audit entries that excluded (or restored) points of this study. */
   exclusions: {
     at: Date;

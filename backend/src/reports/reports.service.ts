@@ -16,6 +16,7 @@ import { writeTransaction } from '../database/write-transaction.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { formatDateTime } from './pdf/index.js';
 import type { ReportContent } from './report-content.js';
+import { StandardPreparation } from '../preparations/standard-preparation.entity.js';
 import { LabCertificateService } from './signing/lab-certificate.service.js';
 import { reportFileName, REPORT_ID_INFO_KEY } from './validation-report.document.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
@@ -222,6 +223,7 @@ export class ReportsService {
       manager.getRepository(AuditEntry).find({ where: { entityId: study.id, action: In(EXCLUSION_ACTIONS) }, order: { seq: 'ASC' } }),
     ]);
     const { method, ...version } = study.methodVersion;
+    const preparations = await this.preparationsOf(study.data);
     return {
       laboratoryName: this.config.laboratoryName,
       verifyUrl: `${this.config.publicUrl}/verify`,
@@ -269,6 +271,41 @@ export class ReportsService {
         createdAt: c.createdAt,
       })),
       exclusions: exclusions.map((e) => ({ at: e.at, actorName: e.actorName, action: e.action, changes: e.changes, reason: e.reason })),
+      preparations,
     };
+  }
+
+  private async preparationsOf(data: Record<string, unknown>): Promise<ReportContent['preparations']> {
+    const standards = Array.isArray(data.standards) ? (data.standards as { preparationId?: unknown }[]) : [];
+    const byId = new Map<string, number[]>();
+    standards.forEach((s, i) => {
+      if (typeof s?.preparationId === 'string') byId.set(s.preparationId, [...(byId.get(s.preparationId) ?? []), i]);
+    });
+    if (!byId.size) return [];
+    const found = await this.dataSource.manager
+      .getRepository(StandardPreparation)
+      .find({ where: { id: In([...byId.keys()]) }, relations: { material: true, createdBy: true } });
+    const rank = [...byId.keys()];
+    return found
+      .sort((a, b) => rank.indexOf(a.id) - rank.indexOf(b.id))
+      .map((p) => ({
+        id: p.id,
+        name: p.name,
+        material: p.material
+          ? {
+              name: p.material.name,
+              supplier: p.material.supplier,
+              lot: p.material.lot,
+              certificateNumber: p.material.certificateNumber,
+              expiresOn: p.material.expiresOn,
+            }
+          : null,
+        source: p.input.source,
+        stock: { concentration: p.result.stock.concentration, u: p.result.stock.u, unit: p.result.stock.unit },
+        steps: p.result.steps.map(({ concentration, u }) => ({ concentration, u })),
+        standards: byId.get(p.id) ?? [],
+        savedBy: p.createdBy.name,
+        savedAt: p.createdAt,
+      }));
   }
 }

@@ -16,6 +16,7 @@ import type { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
 import type { StudyMetaDto } from './dto/study-meta.dto.js';
 import type { ImportPreviewDto, StudyDto, StudyPageDto, StudySummaryDto } from './dto/study.dto.js';
 import type { UpdateStudyDto } from './dto/update-study.dto.js';
+import { PreparationsService } from '../preparations/preparations.service.js';
 import { withMethodDefaults, type StudyData } from './study-evaluation.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { importSection } from './study-import.js';
@@ -152,6 +153,7 @@ export class StudiesService {
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly audit: AuditService,
     private readonly workers: WorkerPoolService,
+    private readonly preparations: PreparationsService,
   ) {}
 
   async findPage(query: ListStudiesQueryDto, user: AuthUser): Promise<StudyPageDto> {
@@ -238,6 +240,7 @@ export class StudiesService {
         ]);
       }
       const data = withMethodDefaults(dto.data, version, version.method);
+      await this.assertPreparationsUsable(manager, data);
       const evaluation = await this.workers.evaluate(data);
       const study = await manager.save(
         manager.create(ValidationStudy, {
@@ -285,6 +288,7 @@ export class StudiesService {
       if (dto.data !== undefined) {
         const data = withMethodDefaults(dto.data, study.methodVersion, study.methodVersion.method);
         if (changed(study.data, data)) {
+          await this.assertPreparationsUsable(manager, data);
           Object.assign(patch, await this.dataPatch(study, data, actor, dto.reason));
           exclusions = exclusionEntries(study.data, data, actor, id);
         }
@@ -345,6 +349,7 @@ export class StudiesService {
         study.methodVersion.method,
       );
       if (!changed(study.data, data)) return toStudyDto(study);
+      await this.assertPreparationsUsable(manager, data);
       const patch = await this.dataPatch(study, data, actor, dto.reason);
       await this.save(manager, study, dto.lockVersion as number, patch);
       await this.audit.record(
@@ -365,6 +370,12 @@ export class StudiesService {
       );
       return this.findOne(id, manager);
     });
+  }
+
+  /** Standards that name a preparation must name a saved one whose material is still in use. */
+  private async assertPreparationsUsable(manager: EntityManager, data: StudyData) {
+    const errors = await this.preparations.studyStandardErrors(manager, data);
+    if (errors.length) throw unprocessable(errors, 'A standard names a preparation that cannot be used.');
   }
 
   /** New data and the server's result for them; once returned, a data change needs a reason. */

@@ -26,6 +26,7 @@ export const routes: RouteObject[] = [
         children: [
           { index: true, lazy: page(() => import('./routes/overview')) },
           { path: paths.changePassword.path, lazy: page(() => import('@/features/auth/routes/change-password')) },
+          { path: paths.referenceMaterials.path, lazy: page(() => import('@/features/standards/routes/reference-materials')) },
           {
             element: <RequireRole roles={[Role.Analyst]} />,
             children: [
@@ -34,6 +35,8 @@ export const routes: RouteObject[] = [
               { path: paths.studyEdit.path, lazy: page(() => import('./routes/study-wizard')) },
               { path: paths.runs.path, lazy: page(() => import('@/features/runs/routes/routine-batches')) },
               { path: paths.runNew.path, lazy: page(() => import('@/features/runs/routes/new-run')) },
+              { path: paths.preparations.path, lazy: page(() => import('@/features/standards/routes/preparations')) },
+              { path: paths.preparationNew.path, lazy: page(() => import('@/features/standards/routes/new-preparation')) },
             ],
           },
           {

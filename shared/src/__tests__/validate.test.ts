@@ -37,6 +37,15 @@ describe('parseStudy: structure, types and finiteness', () => {
     );
   });
 
+  it('keeps the preparation a standard came from, which changes no figure, and refuses one that is not an id', () => {
+    const id = '3f6c2a9e-1b7d-4c1e-9a3b-2d5e8f0a7c41';
+    const traced = line.map((p, i) => (i === 0 ? { ...p, preparationId: id } : p));
+    expect(parseStudy({ standards: traced }).standards?.[0].preparationId).toBe(id);
+    expect(evaluateStudy({ standards: traced }).calibration).toEqual(evaluateStudy({ standards: line }).calibration);
+    const errors = validationErrors(() => parseStudy({ standards: [{ ...line[0], preparationId: 'stock of Monday' }, ...line.slice(1)] }));
+    expect(errors[0]).toMatchObject({ field: 'standards[0].preparationId', code: 'invalid_value' });
+  });
+
   it('requires a reason for an excluded standard', () => {
     const errors = validationErrors(() => parseStudy({ standards: [...line, { x: 5, y: 10, excluded: {} }] }));
     expect(errors[0]).toMatchObject({ field: 'standards[4].excluded.reason', code: 'required' });

@@ -147,3 +147,12 @@ export function formatR2(r2: number): string {
   const decimals = Math.min(12, Math.max(4, -Math.floor(Math.log10(gap)) + 1));
   return r2.toFixed(decimals);
 }
+
+/** A number to `digits` significant digits, without exponent notation for everyday magnitudes. */
+export function formatSignificant(value: number, digits = 3): string {
+  if (!Number.isFinite(value)) return '—';
+  if (value === 0) return '0';
+  const magnitude = Math.floor(Math.log10(Math.abs(value)));
+  if (magnitude < -6 || magnitude > 9) return value.toExponential(digits - 1);
+  return value.toFixed(Math.max(0, digits - 1 - magnitude));
+}

@@ -6,6 +6,7 @@ import { SessionsAndPasswordReset1764640000000 } from './1764640000000-sessions-
 import { MethodChangeControl1764650000000 } from './1764650000000-method-change-control.js';
 import { RunRelease1764660000000 } from './1764660000000-run-release.js';
 import { ChangeAssessments1796430074365 } from './1796430074365-change-assessments.js';
+import { ReferenceMaterialsAndPreparations1796428717951 } from './1796428717951-reference-materials-and-preparations.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -16,4 +17,5 @@ export const migrations = [
   MethodChangeControl1764650000000,
   RunRelease1764660000000,
   ChangeAssessments1796430074365,
+  ReferenceMaterialsAndPreparations1796428717951,
 ];

@@ -4,6 +4,7 @@ import { User } from '../../users/user.entity.js';
 import { seedDemoMethods } from './demo-methods.seed.js';
 import { seedDemoReviews } from './demo-reviews.seed.js';
 import { seedDemoRuns } from './demo-runs.seed.js';
+import { seedDemoStandards } from './demo-standards.seed.js';
 import { seedDemoStudies } from './demo-studies.seed.js';
 import { seedDemoUsers } from './demo-users.seed.js';
 import { writeTransaction } from '../write-transaction.js';
@@ -11,7 +12,7 @@ import { writeTransaction } from '../write-transaction.js';
 export type DemoSeeder = (manager: EntityManager) => Promise<void>;
 
 /** Seeders run in this order, in one transaction, only on an empty database. */
-const seeders: DemoSeeder[] = [seedDemoUsers, seedDemoMethods, seedDemoStudies, seedDemoReviews, seedDemoRuns];
+const seeders: DemoSeeder[] = [seedDemoUsers, seedDemoMethods, seedDemoStudies, seedDemoReviews, seedDemoRuns, seedDemoStandards];
 
 @Injectable()
 export class DemoSeedService implements OnApplicationBootstrap {

@@ -19,6 +19,7 @@ import {
   withUnit,
 } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
+import { traceabilitySection } from './traceability.js';
 import { confidenceWords, MODEL_WORDS, notEvaluated, plural, sectionWarnings, WEIGHTING_WORDS, xUnit, yUnit } from './common.js';
 
 const FLAG_WORDS: Record<UnknownFlag, string> = {
@@ -419,6 +420,7 @@ export function calibrationSection(pdf: PdfComposer, content: ReportContent): vo
   linearityInWords(pdf, result, x, y);
   plots(pdf, result, c, x, y);
   levelTables(pdf, c, x, y);
+  traceabilitySection(pdf, content);
   samples(pdf, result, x, y);
   sectionWarnings(pdf, result, [
     'calibration',

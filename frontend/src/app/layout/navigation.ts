@@ -38,6 +38,22 @@ export const NAVIGATION: readonly NavSection[] = [
     ],
   },
   {
+    label: 'Traceable standards',
+    items: [
+      {
+        label: 'Standard preparations',
+        href: paths.preparations.getHref(),
+        summary: 'Prepare a stock and working standards from a reference material, with their uncertainty.',
+        roles: [Role.Analyst],
+      },
+      {
+        label: 'Reference materials',
+        href: paths.referenceMaterials.getHref(),
+        summary: 'Certified materials, their certificates, lots and expiry dates.',
+      },
+    ],
+  },
+  {
     label: 'Second person review',
     items: [
       {

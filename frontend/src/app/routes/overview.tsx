@@ -4,6 +4,7 @@ import { Link } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
+import { ExpiringMaterialsNotice } from '@/features/standards/components/expiring-materials-notice';
 import { navigationFor } from '../layout/navigation';
 
 const ROLE_WORK: Record<Role, string> = {
@@ -34,6 +35,7 @@ export default function OverviewPage() {
       <PageHeader section="Overview" title={`${greeting(new Date().getHours())}, ${firstName}`} />
 
       <Stack gap="10">
+        <ExpiringMaterialsNotice />
         <Stack gap="4" as="section" aria-labelledby="roles-heading">
           <Heading id="roles-heading" as="h2" size="md">
             Your roles

@@ -35,6 +35,9 @@ export const paths = {
   methodDetail: { path: '/methods/:methodId', getHref: (methodId: string) => `/methods/${encodeURIComponent(methodId)}` },
   methodComparison: { path: '/methods/compare', getHref: () => '/methods/compare' },
   verify: { path: '/verify', getHref: () => '/verify' },
+  referenceMaterials: { path: '/standards', getHref: () => '/standards' },
+  preparations: { path: '/standards/preparations', getHref: () => '/standards/preparations' },
+  preparationNew: { path: '/standards/preparations/new', getHref: () => '/standards/preparations/new' },
 
   users: { path: '/admin/users', getHref: () => '/admin/users' },
   outbox: { path: '/admin/outbox', getHref: () => '/admin/outbox' },

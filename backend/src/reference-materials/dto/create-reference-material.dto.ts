@@ -1,0 +1,3 @@
+import { ReferenceMaterialFieldsDto } from './reference-material-fields.dto.js';
+
+export class CreateReferenceMaterialDto extends ReferenceMaterialFieldsDto {}

@@ -1,0 +1,147 @@
+import {
+  Body,
+  Controller,
+  Get,
+  HttpCode,
+  Param,
+  ParseUUIDPipe,
+  Patch,
+  Post,
+  Put,
+  Res,
+  StreamableFile,
+  UploadedFile,
+  UseInterceptors,
+} from '@nestjs/common';
+import { FileInterceptor } from '@nestjs/platform-express';
+import {
+  ApiBearerAuth,
+  ApiBody,
+  ApiConflictResponse,
+  ApiConsumes,
+  ApiCreatedResponse,
+  ApiForbiddenResponse,
+  ApiNotFoundResponse,
+  ApiOkResponse,
+  ApiProduces,
+  ApiTags,
+  ApiUnauthorizedResponse,
+  ApiUnprocessableEntityResponse,
+} from '@nestjs/swagger';
+import type { Response } from 'express';
+import { MAX_CERTIFICATE_BYTES, Role } from '@meritline/shared';
+import { ApiErrorDto } from '../common/dto/api-error.dto.js';
+import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { CreateReferenceMaterialDto } from './dto/create-reference-material.dto.js';
+import { LockVersionDto } from './dto/reference-material-fields.dto.js';
+import { ReferenceMaterialResponseDto } from './dto/reference-material.dto.js';
+import { UpdateReferenceMaterialDto } from './dto/update-reference-material.dto.js';
+import { WithdrawReferenceMaterialDto } from './dto/withdraw-reference-material.dto.js';
+import { ReferenceMaterialsService } from './reference-materials.service.js';
+
+const KEEPERS = [Role.QualityManager, Role.Admin];
+const INVALID = { type: ApiErrorDto, description: 'Invalid fields: { statusCode, message, errors: [{ field, code, message }] }.' };
+const STALE = { type: ApiErrorDto, description: 'Stale lock version, a withdrawn material, or a duplicate supplier, certificate and lot.' };
+
+@ApiTags('reference-materials')
+@ApiBearerAuth()
+@ApiUnauthorizedResponse({ type: ApiErrorDto, description: 'Not signed in.' })
+@Controller('reference-materials')
+export class ReferenceMaterialsController {
+  constructor(private readonly materials: ReferenceMaterialsService) {}
+
+  @Get()
+  @ApiOkResponse({ type: [ReferenceMaterialResponseDto], description: 'The register, with status and days to expiry.' })
+  findAll() {
+    return this.materials.findAll();
+  }
+
+  @Get('expiring')
+  @ApiOkResponse({ type: [ReferenceMaterialResponseDto], description: 'Materials in use that expire within 30 days, soonest first.' })
+  findExpiring() {
+    return this.materials.findExpiring();
+  }
+
+  @Get(':id')
+  @ApiOkResponse({ type: ReferenceMaterialResponseDto })
+  @ApiNotFoundResponse({ type: ApiErrorDto })
+  findOne(@Param('id', ParseUUIDPipe) id: string) {
+    return this.materials.findOne(id);
+  }
+
+  @Post()
+  @Roles(...KEEPERS)
+  @ApiCreatedResponse({ type: ReferenceMaterialResponseDto })
+  @ApiForbiddenResponse({ type: ApiErrorDto, description: 'Only quality managers and administrators keep the register.' })
+  @ApiUnprocessableEntityResponse(INVALID)
+  @ApiConflictResponse(STALE)
+  create(@Body() dto: CreateReferenceMaterialDto, @CurrentUser() actor: AuthUser) {
+    return this.materials.create(dto, actor);
+  }
+
+  @Patch(':id')
+  @Roles(...KEEPERS)
+  @ApiOkResponse({ type: ReferenceMaterialResponseDto })
+  @ApiForbiddenResponse({ type: ApiErrorDto })
+  @ApiNotFoundResponse({ type: ApiErrorDto })
+  @ApiUnprocessableEntityResponse(INVALID)
+  @ApiConflictResponse(STALE)
+  update(@Param('id', ParseUUIDPipe) id: string, @Body() dto: UpdateReferenceMaterialDto, @CurrentUser() actor: AuthUser) {
+    return this.materials.update(id, dto, actor);
+  }
+
+  @Post(':id/withdraw')
+  @HttpCode(200)
+  @Roles(...KEEPERS)
+  @ApiOkResponse({ type: ReferenceMaterialResponseDto, description: 'Withdrawn for good; preparations from it are refused.' })
+  @ApiForbiddenResponse({ type: ApiErrorDto })
+  @ApiNotFoundResponse({ type: ApiErrorDto })
+  @ApiUnprocessableEntityResponse(INVALID)
+  @ApiConflictResponse(STALE)
+  withdraw(@Param('id', ParseUUIDPipe) id: string, @Body() dto: WithdrawReferenceMaterialDto, @CurrentUser() actor: AuthUser) {
+    return this.materials.withdraw(id, dto, actor);
+  }
+
+  @Put(':id/certificate')
+  @Roles(...KEEPERS)
+  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_CERTIFICATE_BYTES, files: 1 } }))
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({
+    schema: {
+      type: 'object',
+      required: ['file', 'lockVersion'],
+      properties: {
+        file: { type: 'string', format: 'binary', description: 'The certificate as a PDF, at most 10 MB.' },
+        lockVersion: { type: 'integer' },
+      },
+    },
+  })
+  @ApiOkResponse({ type: ReferenceMaterialResponseDto })
+  @ApiForbiddenResponse({ type: ApiErrorDto })
+  @ApiNotFoundResponse({ type: ApiErrorDto })
+  @ApiUnprocessableEntityResponse({ type: ApiErrorDto, description: 'No file, or not a PDF.' })
+  @ApiConflictResponse(STALE)
+  uploadCertificate(
+    @Param('id', ParseUUIDPipe) id: string,
+    @UploadedFile() file: Express.Multer.File | undefined,
+    @Body() dto: LockVersionDto,
+    @CurrentUser() actor: AuthUser,
+  ) {
+    return this.materials.uploadCertificate(id, file, dto.lockVersion, actor);
+  }
+
+  @Get(':id/certificate')
+  @ApiProduces('application/pdf')
+  @ApiOkResponse({ description: 'The certificate as uploaded.', schema: { type: 'string', format: 'binary' } })
+  @ApiNotFoundResponse({ type: ApiErrorDto, description: 'No such material, or no certificate uploaded.' })
+  async certificate(@Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    const file = await this.materials.certificate(id);
+    res.setHeader('Cache-Control', 'private, no-store');
+    return new StreamableFile(file.pdf, {
+      type: 'application/pdf',
+      disposition: `attachment; filename="${file.fileName}"`,
+      length: file.pdf.length,
+    });
+  }
+}

@@ -1,0 +1,63 @@
+import { formatDateTime } from '@meritline/shared';
+import { Stack, Text } from '@chakra-ui/react';
+import type { PreparationDto } from '@meritline/shared';
+import { dataTableColumns } from '@/components/data-table';
+import { concentrationWords } from './concentration-words';
+
+const column = dataTableColumns<PreparationDto>();
+
+export const preparationsColumns = column.columns([
+  column.accessor('name', {
+    header: 'Preparation',
+    sortFn: 'text',
+    cell: (info) => (
+      <Stack gap="0" whiteSpace="normal" minW="14rem">
+        <Text fontWeight="600">{info.getValue()}</Text>
+        <Text fontSize="sm" color="fg.muted">
+          {info.row.original.material
+            ? `${info.row.original.material.name}, lot ${info.row.original.material.lot}`
+            : 'Purity entered by hand'}
+        </Text>
+      </Stack>
+    ),
+  }),
+  column.accessor((p) => p.result.stock.concentration, {
+    id: 'stock',
+    header: 'Stock',
+    enableSorting: false,
+    cell: (info) => {
+      const { stock } = info.row.original.result;
+      return concentrationWords(stock.concentration, stock.u, stock.unit);
+    },
+  }),
+  column.accessor((p) => p.steps.length, {
+    id: 'standards',
+    header: 'Working standards',
+    enableSorting: false,
+    cell: (info) => {
+      const { steps, stock } = info.row.original.result;
+      return (
+        <Stack gap="0" fontSize="sm">
+          {steps.map((s, i) => (
+            <Text key={i}>
+              {i + 1}: {concentrationWords(s.concentration, s.u, stock.unit)}
+            </Text>
+          ))}
+        </Stack>
+      );
+    },
+  }),
+  column.accessor('createdAt', {
+    header: 'Saved',
+    sortFn: 'datetime',
+    meta: { align: 'end' },
+    cell: (info) => (
+      <Stack gap="0" align="flex-end">
+        <Text>{formatDateTime(info.getValue())}</Text>
+        <Text fontSize="sm" color="fg.muted">
+          {info.row.original.createdBy.name}
+        </Text>
+      </Stack>
+    ),
+  }),
+]);
