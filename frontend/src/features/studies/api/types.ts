@@ -54,6 +54,9 @@ export interface StudyDto {
 /** The wizard's last step, supplied by the app (the review feature signs the submission). */
 export type SubmitSlot = ComponentType<{ study: StudyDto }>;
 
+/** The reviewer's remarks on a returned study (return comment, open comments), supplied by the app from the review feature. */
+export type RemarksSlot = ComponentType<{ studyId: string }>;
+
 export type StudySummary = Omit<StudyDto, 'data' | 'result'> & { verdictPass: boolean | null };
 
 export interface StudyPage {
