@@ -128,7 +128,7 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
     .click();
   const exclusion = page.getByRole('dialog');
   await exclusion.getByRole('button', { name: 'Exclude the standard' }).click();
-  await expect(exclusion.getByText('Say why the point is excluded')).toBeVisible();
+  await expect(exclusion.getByText('Say why the standard is excluded')).toBeVisible();
   await exclusion.getByLabel('Reason').fill('Bubble in the cell, seen after the reading');
   await exclusion.getByRole('button', { name: 'Exclude the standard' }).click();
   await expect(standards.getByText('Excluded: Bubble in the cell, seen after the reading')).toBeVisible();

@@ -92,7 +92,7 @@ export function DiffPanel({ diff, data, unit }: { diff: StudyDiff | null; data: 
         <Text color="fg.muted">The study was resubmitted unchanged.</Text>
       ) : (
         <Box borderWidth="1px" borderRadius="l3" overflow="hidden">
-          <Table.ScrollArea>
+          <Table.ScrollArea position="relative">
             <Table.Root size="sm" aria-label="Changes between submissions">
               <Table.Header>
                 <Table.Row bg="bg.subtle">

@@ -102,7 +102,7 @@ function StudyWizard({ study, step, SubmitSlot, RemarksSlot }: { study: StudyDto
         title={draft.title || 'Untitled study'}
         description={`${server.method.name}, version ${server.methodVersion.number}`}
         actions={
-          <HStack gap="4">
+          <HStack gap="4" wrap="wrap">
             <StudyStatusBadge status={server.status} />
             <SaveStatus state={state} editable={editable} onRetry={() => void controller.saveNow()} />
           </HStack>
