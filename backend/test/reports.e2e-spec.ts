@@ -13,6 +13,7 @@ import { ReportsService } from '../src/reports/reports.service.js';
 import { createSelfSignedP12 } from '../src/reports/signing/self-signed-certificate.js';
 import { ValidationReport } from '../src/reports/validation-report.entity.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
+import { createStudy } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /* eslint-disable @typescript-eslint/no-explicit-any -- reference files and API bodies are plain JSON */
@@ -329,6 +330,29 @@ describe('validation reports', () => {
   });
 
   describe('draft preview', () => {
+    it('should list excluded recovery and precision results with their reasons among the exclusions', async () => {
+      const created = await createStudy(t, { author: DEMO.analyst });
+      const draft = (await t.http().get(`/api/studies/${created.id}`).set(as('analyst')).expect(200)).body;
+      const data = {
+        ...draft.data,
+        recovery: [
+          { id: 'S1', added: 1, found: 0.98 },
+          { id: 'S2', added: 1, found: 1.02 },
+          { id: 'S3', added: 1, found: 0.61, excluded: { reason: 'Vial S3 spilt before injection' } },
+        ],
+        precision: [
+          { group: 'day 1', value: 5.02 },
+          { group: 'day 1', value: 4.98 },
+          { group: 'day 1', value: 5.9, excluded: { reason: 'Wrong dilution on day 1' } },
+        ],
+      };
+      await t.http().patch(`/api/studies/${draft.id}`).set(as('analyst')).send({ lockVersion: draft.lockVersion, data }).expect(200);
+      const text = pdftotext(saved('draft-exclusions.pdf', (await download(draft.id, 'analyst').expect(200)).body));
+      expect(text).toContain('Excluded replicate results');
+      expect(text).toMatch(/Recovery, S3 \(row 3\)[\s\S]*Vial S3 spilt before injection/);
+      expect(text).toMatch(/Precision, series day 1 \(row 3\)[\s\S]*Wrong dilution on day 1/);
+    });
+
     it('should mark every page DRAFT, carry no signature and store nothing', async () => {
       const submitted = await ds.getRepository(ValidationStudy).findOneByOrFail({ status: 'submitted' });
       const count = await reportCount();

@@ -357,12 +357,18 @@ describe('review and sign-off', () => {
       expect(timeline.filter((item) => item.kind === 'signature').every((item) => item.valid)).toBe(true);
     });
 
-    it('should refuse the history, signatures, diff and comments to anonymous callers, admins and unknown studies', async () => {
+    it('should refuse the history, signatures, diff and comments to anonymous callers and unknown studies; admins read but never comment', async () => {
       for (const route of ['history', 'signatures', 'diff', 'comments']) {
         await t.http().get(`/api/studies/${study.id}/${route}`).expect(401);
-        await t.http().get(`/api/studies/${study.id}/${route}`).set(as('admin')).expect(403);
+        await t.http().get(`/api/studies/${study.id}/${route}`).set(as('admin')).expect(200);
         await t.http().get(`/api/studies/${UNKNOWN_ID}/${route}`).set(as('reviewer')).expect(404);
       }
+      await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('admin'))
+        .send({ section: 'standards', body: 'Looks fine.' })
+        .expect(403);
     });
   });
 

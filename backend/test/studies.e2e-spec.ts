@@ -547,14 +547,25 @@ describe('validation studies', () => {
         .send({ lockVersion: study.lockVersion, data })
         .expect(422);
       expect(refused.body.errors).toEqual([
-        { field: 'reason', code: 'required', message: 'Say why the data change after the study was returned.' },
+        {
+          field: 'reason',
+          code: 'required',
+          message: 'Say why the study changes after it was returned; the reason is kept with the change.',
+        },
       ]);
+      expect(stored(study.id)).toEqual(before);
+      await t
+        .http()
+        .patch(`/api/studies/${study.id}`)
+        .set(tomasz)
+        .send({ lockVersion: study.lockVersion, title: `${study.title} (rev. 2)` })
+        .expect(422);
       expect(stored(study.id)).toEqual(before);
       const titleOnly = await t
         .http()
         .patch(`/api/studies/${study.id}`)
         .set(tomasz)
-        .send({ lockVersion: study.lockVersion, title: `${study.title} (rev. 2)` })
+        .send({ lockVersion: study.lockVersion, title: `${study.title} (rev. 2)`, reason: 'Revision number in the title.' })
         .expect(200);
       const res = await t
         .http()

@@ -127,10 +127,10 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
     .getByRole('button', { name: 'Exclude…' })
     .click();
   const exclusion = page.getByRole('dialog');
-  await exclusion.getByRole('button', { name: 'Exclude the point' }).click();
-  await expect(exclusion.getByText('Say why the point is excluded')).toBeVisible();
+  await exclusion.getByRole('button', { name: 'Exclude the standard' }).click();
+  await expect(exclusion.getByText('Say why the standard is excluded')).toBeVisible();
   await exclusion.getByLabel('Reason').fill('Bubble in the cell, seen after the reading');
-  await exclusion.getByRole('button', { name: 'Exclude the point' }).click();
+  await exclusion.getByRole('button', { name: 'Exclude the standard' }).click();
   await expect(standards.getByText('Excluded: Bubble in the cell, seen after the reading')).toBeVisible();
   await expect(page.getByRole('complementary', { name: 'Calibration as you type' })).toContainText('13 (1 excluded)');
   await expect(saveStatus(page)).toContainText('Saved', { timeout: 20_000 });

@@ -7,7 +7,7 @@ export const DEMO_ACCOUNTS = [
   { role: 'reviewer', email: 'reviewer@meritline.test', entries: ['Review queue'] },
   // The demo quality manager also reviews.
   { role: 'quality_manager', email: 'quality@meritline.test', entries: ['Methods', 'Version comparison', 'Review queue'] },
-  { role: 'admin', email: 'admin@meritline.test', entries: ['Users', 'Outbox'] },
+  { role: 'admin', email: 'admin@meritline.test', entries: ['Validation studies', 'Users', 'Outbox'] },
 ] as const;
 
 export const ROLE_ENTRIES = [...new Set(DEMO_ACCOUNTS.flatMap((account) => account.entries))];

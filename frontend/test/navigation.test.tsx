@@ -9,7 +9,7 @@ const ENTRIES_BY_ROLE: Record<Role, string[]> = {
   [Role.Analyst]: ['Validation studies', 'Routine batches', 'Standard preparations'],
   [Role.Reviewer]: ['Review queue'],
   [Role.QualityManager]: ['Methods', 'Version comparison'],
-  [Role.Admin]: ['Users', 'Outbox'],
+  [Role.Admin]: ['Validation studies', 'Users', 'Outbox'],
 };
 const FOR_EVERYONE = ['Overview', 'Reference materials', 'Verify a report'];
 const ALL_ROLE_ENTRIES = Object.values(ENTRIES_BY_ROLE).flat();

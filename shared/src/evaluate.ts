@@ -96,7 +96,12 @@ export function evaluateStudy(input: unknown): EvaluationResult {
     verdict: { criteria: [], pass: null },
     warnings,
   };
-  result.range = workingRange(result, criteria, study.recovery, warn);
+  result.range = workingRange(
+    result,
+    criteria,
+    study.recovery?.filter((r) => !r.excluded),
+    warn,
+  );
   result.verdict = verdict(result, criteria);
   Object.assign(result, uncertaintySections(study, result, warn));
   guardFinite({ ...result, warnings: [] }, '', warn);

@@ -254,8 +254,19 @@ export interface RecoveryGroup {
   significant: boolean | null;
 }
 
+/** A replicate row left out of the figures, with its position in the study section and the reason given. */
+export interface ExcludedRow {
+  index: number;
+  /** The row's sample id (recovery) or series (precision). */
+  label: string;
+  value: number;
+  reason: string;
+}
+
 export interface RecoveryResult {
   items: RecoveryItemResult[];
+  /** Rows the analyst excluded; none of them enters the items or the means. */
+  excluded: ExcludedRow[];
   byLevel: RecoveryGroup[];
   overall: RecoveryGroup;
 }
@@ -276,6 +287,8 @@ export interface PrecisionSeries {
 }
 
 export interface PrecisionResultSection {
+  /** Results the analyst excluded; none of them enters the analysis of variance. */
+  excluded: ExcludedRow[];
   k: number;
   N: number;
   grandMean: number;

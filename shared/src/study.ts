@@ -23,6 +23,8 @@ export interface Units {
 
 export interface Exclusion {
   reason: string;
+  /** The outlier test that prompted the exclusion, if one did. */
+  test?: string;
   [key: string]: unknown;
 }
 
@@ -51,11 +53,13 @@ export interface RecoveryItem {
   found: number;
   /** Amount already present before spiking; default 0. */
   native?: number;
+  excluded?: Exclusion;
 }
 
 export interface PrecisionResult {
   group: string;
   value: number;
+  excluded?: Exclusion;
 }
 
 export interface LowSpikes {

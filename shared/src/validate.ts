@@ -7,6 +7,7 @@ import {
   type CheckStandard,
   type Criterion,
   type CriterionOp,
+  type Exclusion,
   type LowSpikes,
   type PrecisionResult,
   type RecoveryItem,
@@ -129,6 +130,16 @@ function parseUnits(c: Collector, value: unknown): Units | undefined {
 
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
+/** An excluded row keeps its data and says why it is left out of the figures. */
+function parseExclusion(c: Collector, value: unknown, field: string): Exclusion | undefined {
+  if (value === undefined || value === null || value === false) return undefined;
+  if (!c.isObject(value, `${field}.excluded`)) return undefined;
+  const reason = c.text(value.reason, `${field}.excluded.reason`);
+  const exclusion: Exclusion = { ...value, reason: reason ?? '' };
+  if (value.test !== undefined) exclusion.test = c.text(value.test, `${field}.excluded.test`);
+  return exclusion;
+}
+
 function parseStandards(c: Collector, value: unknown): StandardPoint[] {
   if (!c.isArray(value, 'standards')) return [];
   const standards: StandardPoint[] = [];
@@ -147,12 +158,8 @@ function parseStandards(c: Collector, value: unknown): StandardPoint[] {
         c.add(`${field}.preparationId`, 'invalid_value', `${field}.preparationId must be the id of a saved preparation`);
       } else point.preparationId = preparationId;
     }
-    if (item.excluded !== undefined && item.excluded !== null && item.excluded !== false) {
-      if (c.isObject(item.excluded, `${field}.excluded`)) {
-        const reason = c.text(item.excluded.reason, `${field}.excluded.reason`);
-        point.excluded = { ...item.excluded, reason: reason ?? '' };
-      }
-    }
+    const excluded = parseExclusion(c, item.excluded, field);
+    if (excluded) point.excluded = excluded;
     standards.push(point);
   });
   return standards;
@@ -202,7 +209,7 @@ function parseRecovery(c: Collector, value: unknown): RecoveryItem[] | undefined
   return value.flatMap((item, i) => {
     const field = `recovery[${i}]`;
     if (!c.isObject(item, field)) return [];
-    c.onlyKeys(item, ['id', 'level', 'added', 'found', 'native'], field);
+    c.onlyKeys(item, ['id', 'level', 'added', 'found', 'native', 'excluded'], field);
     const recovery: RecoveryItem = {
       id: c.text(item.id, `${field}.id`) ?? '',
       added: c.positive(item.added, `${field}.added`) ?? NaN,
@@ -210,6 +217,8 @@ function parseRecovery(c: Collector, value: unknown): RecoveryItem[] | undefined
     };
     if (item.level !== undefined) recovery.level = c.text(item.level, `${field}.level`);
     if (item.native !== undefined) recovery.native = c.number(item.native, `${field}.native`);
+    const excluded = parseExclusion(c, item.excluded, field);
+    if (excluded) recovery.excluded = excluded;
     return [recovery];
   });
 }
@@ -220,9 +229,12 @@ function parsePrecision(c: Collector, value: unknown): PrecisionResult[] | undef
   return value.flatMap((item, i) => {
     const field = `precision[${i}]`;
     if (!c.isObject(item, field)) return [];
-    c.onlyKeys(item, ['group', 'value'], field);
+    c.onlyKeys(item, ['group', 'value', 'excluded'], field);
     const group = typeof item.group === 'number' ? String(item.group) : c.text(item.group, `${field}.group`);
-    return [{ group: group ?? '', value: c.number(item.value, `${field}.value`) ?? NaN }];
+    const result: PrecisionResult = { group: group ?? '', value: c.number(item.value, `${field}.value`) ?? NaN };
+    const excluded = parseExclusion(c, item.excluded, field);
+    if (excluded) result.excluded = excluded;
+    return [result];
   });
 }
 

@@ -24,6 +24,8 @@ import { StudyHistoryService } from './study-history.service.js';
 import { RunReleaseService } from '../runs/run-release.service.js';
 
 const STUDY_READERS = [Role.Analyst, Role.Reviewer, Role.QualityManager];
+/** Administrators read a study's record too (to hand a draft to another analyst), but do not comment. */
+const STUDY_VIEWERS = [...STUDY_READERS, Role.Admin];
 
 @ApiTags('reviews')
 @ApiBearerAuth()
@@ -67,25 +69,25 @@ export class StudyReviewController {
   }
 
   @Get('signatures')
-  @Roles(...STUDY_READERS)
+  @Roles(...STUDY_VIEWERS)
   signatures(@Param('id', ParseUUIDPipe) id: string): Promise<SignatureDto[]> {
     return this.reviewsService.listSignatures(id);
   }
 
   @Get('history')
-  @Roles(...STUDY_READERS)
+  @Roles(...STUDY_VIEWERS)
   history(@Param('id', ParseUUIDPipe) id: string): Promise<HistoryItemDto[]> {
     return this.historyService.history(id);
   }
 
   @Get('diff')
-  @Roles(...STUDY_READERS)
+  @Roles(...STUDY_VIEWERS)
   diff(@Param('id', ParseUUIDPipe) id: string): Promise<StudyDiffDto | null> {
     return this.historyService.diff(id);
   }
 
   @Get('comments')
-  @Roles(...STUDY_READERS)
+  @Roles(...STUDY_VIEWERS)
   comments(@Param('id', ParseUUIDPipe) id: string): Promise<CommentDto[]> {
     return this.commentsService.list(id);
   }

@@ -334,6 +334,7 @@ export class ReviewsService {
         justification: signature.justification ?? null,
         dataSnapshot: authored ? study.data : null,
         resultSnapshot: authored ? study.result : null,
+        metaSnapshot: authored ? { ...study.meta, title: study.title } : null,
       }),
     );
     await this.audit.record(

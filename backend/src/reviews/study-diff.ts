@@ -1,5 +1,5 @@
 import { canonicalJson } from '@meritline/shared';
-import type { RowChange, SectionDiff, StudyDiffDto } from '@meritline/shared';
+import type { FieldChanges, RowChange, SectionDiff, StudyDiffDto } from '@meritline/shared';
 
 type Data = Record<string, unknown>;
 
@@ -70,4 +70,25 @@ export function diffStudyData(before: Data, after: Data): Pick<StudyDiffDto, 'se
     .map((name) => diffRows(name, beforeSections.get(name) ?? [], afterSections.get(name) ?? []))
     .filter((diff): diff is SectionDiff => diff !== null);
   return { settings, sections };
+}
+
+/** Record fields (title, conclusion, instrument, dates) that differ; both sides as stored, absent ones as null. */
+export function diffStudyMeta(before: Data, after: Data): StudyDiffDto['meta'] {
+  const fields = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort();
+  return fields
+    .filter((field) => !same(before[field], after[field]))
+    .map((field) => ({ field, from: before[field] ?? null, to: after[field] ?? null }));
+}
+
+/** The data diff as audit changes: `data.<setting>`, `data.<section>[<row>]` (added or removed) and `data.<section>[<row>].<field>`. */
+export function dataChangeEntries(before: Data, after: Data): FieldChanges {
+  const { settings, sections } = diffStudyData(before, after);
+  const changes: FieldChanges = {};
+  for (const s of settings) changes[`data.${s.field}`] = { from: s.from, to: s.to };
+  for (const section of sections) {
+    for (const row of section.added) changes[`data.${section.section}[${row.key}]`] = { from: null, to: row.row };
+    for (const row of section.removed) changes[`data.${section.section}[${row.key}]`] = { from: row.row, to: null };
+    for (const c of section.changed) changes[`data.${section.section}[${c.key}].${c.field}`] = { from: c.from, to: c.to };
+  }
+  return changes;
 }

@@ -1,16 +1,19 @@
 import { Injectable } from '@nestjs/common';
-import type { SignatureMeaning } from '@meritline/shared';
+import { describeStudyChange, type FieldChanges, type SignatureMeaning } from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { CommentsService } from './comments.service.js';
 import { ReviewsService } from './reviews.service.js';
 import type { HistoryItemDto, StudyDiffDto } from '@meritline/shared';
 import { toSignatureDtos } from './signatures.js';
-import { diffStudyData } from './study-diff.js';
+import { diffStudyData, diffStudyMeta } from './study-diff.js';
 
 const ACTION_WORDS: Record<string, string> = {
   'study.created': 'Study created',
-  'study.updated': 'Data changed',
+  'study.updated': 'Study changed',
   'study.point-excluded': 'Point excluded from the calculations',
+  'study.point-included': 'Point included in the calculations again',
+  'study.imported': 'Section imported from a file',
+  'study.reassigned': 'Assigned to another analyst',
   'study.submitted': 'Submitted for review',
   'study.returned': 'Returned to the author for changes',
   'study.review-approved': 'Reviewed and approved; awaiting release by a quality manager',
@@ -34,6 +37,25 @@ const SECTION_WORDS: Record<string, string> = {
   results: 'Results',
   conclusion: 'Conclusion',
 };
+
+const UNSAID = new Set(['status', 'dataHash', 'meta', 'authorId', 'methodVersionId', 'copiedFromId']);
+
+/** The entry's changes in words; the whole-record `meta` pair of older entries is told field by field. */
+function changeLines(changes: FieldChanges | null): string[] {
+  if (!changes) return [];
+  const entries = Object.entries(changes);
+  const meta = changes.meta;
+  const metaEntries =
+    isRecord(meta?.from) || isRecord(meta?.to)
+      ? diffStudyMeta(isRecord(meta.from) ? meta.from : {}, isRecord(meta.to) ? meta.to : {}).map((m) => [`meta.${m.field}`, m] as const)
+      : [];
+  return [...entries.filter(([path]) => !UNSAID.has(path)), ...metaEntries].flatMap(([path, change]) => {
+    const line = describeStudyChange(path, change.from, change.to);
+    return line ? [line] : [];
+  });
+}
+
+const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null && !Array.isArray(value);
 
 @Injectable()
 export class StudyHistoryService {
@@ -62,6 +84,7 @@ export class StudyHistoryService {
         summary: ACTION_WORDS[entry.action] ?? entry.action.replace(/[.-]/g, ' '),
         detail: entry.reason,
         changes: entry.changes,
+        lines: changeLines(entry.changes),
       })),
       ...toSignatureDtos(signatures, study).map((signature): HistoryItemDto => ({
         id: `signature-${signature.id}`,
@@ -98,6 +121,7 @@ export class StudyHistoryService {
       from: { signatureId: before.id, signedAt: before.signedAt.toISOString() },
       to: { signatureId: after.id, signedAt: after.signedAt.toISOString() },
       ...diffStudyData(before.dataSnapshot!, after.dataSnapshot!),
+      meta: before.metaSnapshot && after.metaSnapshot ? diffStudyMeta(before.metaSnapshot, after.metaSnapshot) : [],
     };
   }
 }

@@ -48,4 +48,8 @@ export class StudySignature {
   /** The result as signed with `dataSnapshot`. */
   @Column({ name: 'result_snapshot', type: 'simple-json', nullable: true })
   resultSnapshot: Record<string, unknown> | null;
+
+  /** The title and record fields (conclusion, instrument, dates) as signed with `dataSnapshot`. */
+  @Column({ name: 'meta_snapshot', type: 'simple-json', nullable: true })
+  metaSnapshot: Record<string, unknown> | null;
 }

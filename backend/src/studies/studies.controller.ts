@@ -34,6 +34,7 @@ import { CreateStudyDto } from './dto/create-study.dto.js';
 import { ImportStudyDto } from './dto/import-study.dto.js';
 import { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
 import { ImportPreviewDto, StudyDto, StudyPageDto } from './dto/study.dto.js';
+import { ReassignStudyDto } from './dto/reassign-study.dto.js';
 import { UpdateStudyDto } from './dto/update-study.dto.js';
 import { MAX_IMPORT_BYTES } from './import-table.js';
 import { IMPORT_SECTIONS, type ImportSection } from '@meritline/shared';
@@ -73,6 +74,14 @@ export class StudiesController {
   @ApiOkResponse({ type: StudyDto })
   update(@Param('id', ParseUUIDPipe) id: string, @Body() dto: UpdateStudyDto, @CurrentUser() actor: AuthUser): Promise<StudyDto> {
     return this.studiesService.update(id, dto, actor);
+  }
+
+  @Post('studies/:id/reassign')
+  @Roles(Role.Admin)
+  @HttpCode(200)
+  @ApiOkResponse({ type: StudyDto, description: 'The draft, now written by the analyst named; audited with the reason.' })
+  reassign(@Param('id', ParseUUIDPipe) id: string, @Body() dto: ReassignStudyDto, @CurrentUser() actor: AuthUser): Promise<StudyDto> {
+    return this.studiesService.reassign(id, dto, actor);
   }
 
   @Delete('studies/:id')

@@ -2,7 +2,7 @@ import { ConflictException, ForbiddenException, Injectable, NotFoundException } 
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
-import { canonicalJson, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
+import { canonicalJson, Role, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -15,10 +15,13 @@ import type { ImportStudyDto } from './dto/import-study.dto.js';
 import type { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
 import type { StudyMetaDto } from './dto/study-meta.dto.js';
 import type { ImportPreviewDto, StudyDto, StudyPageDto, StudySummaryDto } from './dto/study.dto.js';
+import type { ReassignStudyDto } from './dto/reassign-study.dto.js';
 import type { UpdateStudyDto } from './dto/update-study.dto.js';
 import { PreparationsService } from '../preparations/preparations.service.js';
-import { withMethodDefaults, type StudyData } from './study-evaluation.js';
+import { dataChangeEntries, diffStudyMeta } from '../reviews/study-diff.js';
+import { User } from '../users/user.entity.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
+import { withMethodDefaults, type StudyData } from './study-evaluation.js';
 import { importSection } from './study-import.js';
 import { ValidationStudy } from './validation-study.entity.js';
 
@@ -26,7 +29,7 @@ const LOCKED_STATUSES = ['submitted', 'approved'];
 const DAY_MS = 86_400_000;
 
 type StudyPatch = Partial<
-  Pick<ValidationStudy, 'title' | 'meta' | 'data' | 'result' | 'resultErrors' | 'engineVersion' | 'dataHash' | 'editorIds'>
+  Pick<ValidationStudy, 'title' | 'meta' | 'data' | 'result' | 'resultErrors' | 'engineVersion' | 'dataHash' | 'editorIds' | 'authorId'>
 >;
 
 const iso = (date: Date | null) => date?.toISOString() ?? null;
@@ -93,29 +96,42 @@ function mergeMeta(current: StudyMeta, update: StudyMetaDto | undefined): StudyM
 
 const changed = (from: unknown, to: unknown) => canonicalJson(from) !== canonicalJson(to);
 
-type Standard = { excluded?: { reason?: string } };
-const standardsOf = (data: StudyData): Standard[] => (Array.isArray(data.standards) ? (data.standards as Standard[]) : []);
+type ExcludableRow = { excluded?: { reason?: string } };
+const EXCLUDABLE_SECTIONS = ['standards', 'recovery', 'precision'] as const;
+const rowsOf = (data: StudyData, section: string): ExcludableRow[] =>
+  Array.isArray(data[section]) ? (data[section] as ExcludableRow[]) : [];
 
-/** One audit entry per standard newly excluded (with its reason) or re-included, by position. */
+/** One audit entry per row newly excluded (with its reason) or included again, by section and position. */
 function exclusionEntries(before: StudyData, after: StudyData, actor: AuthUser, studyId: string): AuditRecord[] {
-  const old = standardsOf(before);
-  return standardsOf(after).flatMap((point, i): AuditRecord[] => {
-    const was = old[i]?.excluded?.reason;
-    const is = point?.excluded?.reason;
-    const entry = { actor, entity: 'study', entityId: studyId };
-    if (is && !was)
-      return [
-        {
-          ...entry,
-          action: 'study.point-excluded',
-          changes: { [`standards[${i}].excluded`]: { from: null, to: point.excluded } },
-          reason: is,
-        },
-      ];
-    if (was && !is && old[i])
-      return [{ ...entry, action: 'study.point-included', changes: { [`standards[${i}].excluded`]: { from: old[i].excluded, to: null } } }];
-    return [];
+  return EXCLUDABLE_SECTIONS.flatMap((section) => {
+    const old = rowsOf(before, section);
+    return rowsOf(after, section).flatMap((row, i): AuditRecord[] => {
+      const was = old[i]?.excluded?.reason;
+      const is = row?.excluded?.reason;
+      const entry = { actor, entity: 'study', entityId: studyId };
+      const path = `${section}[${i}].excluded`;
+      if (is && !was)
+        return [{ ...entry, action: 'study.point-excluded', changes: { [path]: { from: null, to: row.excluded } }, reason: is }];
+      if (was && !is && old[i])
+        return [{ ...entry, action: 'study.point-included', changes: { [path]: { from: old[i].excluded, to: null } } }];
+      return [];
+    });
   });
+}
+
+/** The reason a returned study's change needs: refused with 422 when missing. */
+function reasonForReturned(study: ValidationStudy, reason: string | undefined): string | null {
+  const text = reason?.trim() ?? '';
+  if (study.status === 'returned' && !text) {
+    throw unprocessable([
+      {
+        field: 'reason',
+        code: 'required',
+        message: 'Say why the study changes after it was returned; the reason is kept with the change.',
+      },
+    ]);
+  }
+  return text || null;
 }
 
 function replaceSection(data: StudyData, section: ImportSection, rows: unknown[]): StudyData {
@@ -289,22 +305,53 @@ export class StudiesService {
         const data = withMethodDefaults(dto.data, study.methodVersion, study.methodVersion.method);
         if (changed(study.data, data)) {
           await this.assertPreparationsUsable(manager, data);
-          Object.assign(patch, await this.dataPatch(study, data, actor, dto.reason));
+          Object.assign(patch, await this.dataPatch(study, data, actor));
           exclusions = exclusionEntries(study.data, data, actor, id);
         }
       }
       if (Object.keys(patch).length === 0) return toStudyDto(study);
+      const reason = reasonForReturned(study, dto.reason);
 
       await this.save(manager, study, dto.lockVersion, patch);
       const changes: FieldChanges = {};
       if (patch.title) changes.title = { from: study.title, to: patch.title };
-      if (patch.meta) changes.meta = { from: study.meta, to: patch.meta };
+      if (patch.meta) {
+        for (const { field, from, to } of diffStudyMeta({ ...study.meta }, { ...patch.meta })) changes[`meta.${field}`] = { from, to };
+      }
+      if (patch.data) Object.assign(changes, dataChangeEntries(study.data, patch.data));
       if (patch.dataHash) changes.dataHash = { from: study.dataHash, to: patch.dataHash };
+      await this.audit.record({ actor, action: 'study.updated', entity: 'study', entityId: id, changes, reason }, manager);
+      for (const entry of exclusions) await this.audit.record(entry, manager);
+      return this.findOne(id, manager);
+    });
+  }
+
+  /** An administrator hands a draft to another analyst (the author left, or is away); the old author keeps no right to edit it. */
+  async reassign(id: ValidationStudy['id'], dto: ReassignStudyDto, actor: AuthUser): Promise<StudyDto> {
+    return writeTransaction(this.dataSource, async (manager) => {
+      const study = await this.load(manager, id);
+      if (dto.lockVersion !== study.lockVersion) throw staleStudy();
+      if (study.status !== 'draft') {
+        throw new ConflictException(`This study is ${study.status}; only a draft can be given to another analyst.`);
+      }
+      const analyst = await manager.findOne(User, { where: { id: dto.authorId } });
+      const refuse = (code: string, message: string) => unprocessable([{ field: 'authorId', code, message }]);
+      if (!analyst || !analyst.active || !analyst.roles.includes(Role.Analyst)) {
+        throw refuse('not_analyst', 'Choose an active analyst.');
+      }
+      if (analyst.id === study.authorId) throw refuse('same_author', `${analyst.name} already writes this study.`);
+      await this.save(manager, study, dto.lockVersion, { authorId: analyst.id, editorIds: [...new Set([...study.editorIds, analyst.id])] });
       await this.audit.record(
-        { actor, action: 'study.updated', entity: 'study', entityId: id, changes, reason: dto.reason ?? null },
+        {
+          actor,
+          action: 'study.reassigned',
+          entity: 'study',
+          entityId: id,
+          changes: { author: { from: study.author.name, to: analyst.name }, authorId: { from: study.authorId, to: analyst.id } },
+          reason: dto.reason,
+        },
         manager,
       );
-      for (const entry of exclusions) await this.audit.record(entry, manager);
       return this.findOne(id, manager);
     });
   }
@@ -350,7 +397,8 @@ export class StudiesService {
       );
       if (!changed(study.data, data)) return toStudyDto(study);
       await this.assertPreparationsUsable(manager, data);
-      const patch = await this.dataPatch(study, data, actor, dto.reason);
+      const reason = reasonForReturned(study, dto.reason);
+      const patch = await this.dataPatch(study, data, actor);
       await this.save(manager, study, dto.lockVersion as number, patch);
       await this.audit.record(
         {
@@ -364,7 +412,7 @@ export class StudiesService {
             file: { from: null, to: file.originalname },
             dataHash: { from: study.dataHash, to: patch.dataHash },
           },
-          reason: dto.reason ?? null,
+          reason,
         },
         manager,
       );
@@ -378,11 +426,8 @@ export class StudiesService {
     if (errors.length) throw unprocessable(errors, 'A standard names a preparation that cannot be used.');
   }
 
-  /** New data and the server's result for them; once returned, a data change needs a reason. */
-  private async dataPatch(study: ValidationStudy, data: StudyData, actor: AuthUser, reason: string | undefined): Promise<StudyPatch> {
-    if (study.status === 'returned' && !reason) {
-      throw unprocessable([{ field: 'reason', code: 'required', message: 'Say why the data change after the study was returned.' }]);
-    }
+  /** New data and the server's result for them. */
+  private async dataPatch(study: ValidationStudy, data: StudyData, actor: AuthUser): Promise<StudyPatch> {
     return { data, ...(await this.workers.evaluate(data)), editorIds: [...new Set([...study.editorIds, actor.id])] };
   }
 

@@ -30,7 +30,6 @@ export const routes: RouteObject[] = [
           {
             element: <RequireRole roles={[Role.Analyst]} />,
             children: [
-              { path: paths.studies.path, lazy: page(() => import('@/features/studies/routes/studies')) },
               { path: paths.studyNew.path, lazy: page(() => import('@/features/studies/routes/new-study')) },
               { path: paths.studyEdit.path, lazy: page(() => import('./routes/study-wizard')) },
               { path: paths.runs.path, lazy: page(() => import('@/features/runs/routes/routine-batches')) },
@@ -52,8 +51,14 @@ export const routes: RouteObject[] = [
             ],
           },
           {
-            element: <RequireRole roles={[Role.Analyst, Role.Reviewer, Role.QualityManager]} />,
+            // Administrators open a study to give a draft to another analyst.
+            element: <RequireRole roles={[Role.Analyst, Role.Reviewer, Role.QualityManager, Role.Admin]} />,
             children: [{ path: paths.studyView.path, lazy: page(() => import('@/features/reviews/routes/study-view')) }],
+          },
+          {
+            // Administrators read the list to find a draft that must change hands.
+            element: <RequireRole roles={[Role.Analyst, Role.Admin]} />,
+            children: [{ path: paths.studies.path, lazy: page(() => import('@/features/studies/routes/studies')) }],
           },
           {
             // Analysts read methods and may propose drafts; quality managers and administrators decide.

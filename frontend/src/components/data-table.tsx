@@ -91,7 +91,7 @@ export function DataTable<TData extends RowData>({
 
   return (
     <Box borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" overflow="hidden">
-      <Table.ScrollArea>
+      <Table.ScrollArea position="relative">
         <Table.Root size="md" aria-label={label} aria-busy={isLoading || undefined} interactive={rows.length > 0}>
           <Table.Header>
             {table.getHeaderGroups().map((headerGroup) => (

@@ -32,7 +32,12 @@ export function PageHeader({ title, section, description, actions }: PageHeaderP
           </Text>
         )}
       </Stack>
-      {actions && <Box flexShrink={0}>{actions}</Box>}
+      {/* At most the page's width, so that a row of buttons wraps on a phone instead of widening the page. */}
+      {actions && (
+        <Box flexShrink={0} maxW="full">
+          {actions}
+        </Box>
+      )}
     </HStack>
   );
 }

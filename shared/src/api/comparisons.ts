@@ -1,4 +1,5 @@
-import type { MethodVersionStatus, StudyStatus } from '../api-types.js';
+import type { MethodVersionStatus } from './methods.js';
+import type { StudyStatus } from './studies.js';
 import type {
   ComparisonVerdict,
   DetectionComparison,

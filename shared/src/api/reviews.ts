@@ -46,6 +46,8 @@ export interface HistoryItemDto {
   summary: string;
   detail: string | null;
   changes: FieldChanges | null;
+  /** Each change of the entry in words, before and after (data, title and record fields). */
+  lines?: string[];
   valid?: boolean;
 }
 
@@ -69,6 +71,8 @@ export interface StudyDiffDto {
   to: { signatureId: string; signedAt: string };
   settings: { field: string; from: unknown; to: unknown }[];
   sections: SectionDiff[];
+  /** Title, conclusion and other record fields that changed (`title`, `conclusion`, `instrument`…); empty for submissions made before they were kept. */
+  meta: { field: string; from: unknown; to: unknown }[];
 }
 
 export type ReviewStage = 'review' | 'release';

@@ -3,3 +3,4 @@ export * from './format.js';
 export * from './statuses.js';
 export * from './sections.js';
 export * from './comparisons.js';
+export * from './study-changes.js';

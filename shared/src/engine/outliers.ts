@@ -125,7 +125,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
   if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
   const series = [
     ...groupBy(
-      (study.precision ?? []).map((p, index) => ({ ...p, index })),
+      (study.precision ?? []).map((p, index) => ({ ...p, index })).filter((p) => !p.excluded),
       (p) => p.group,
     ).entries(),
   ];

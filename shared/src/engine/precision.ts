@@ -15,12 +15,28 @@ export function horwitzRsd(massFraction: number): number {
  * before any sum, so constant leading digits cost no precision (NIST StRD AtmWtAg).
  */
 export function precision(
-  items: readonly PrecisionResult[] | undefined,
+  rows: readonly PrecisionResult[] | undefined,
   massFraction: number | undefined,
   warn: Warn,
 ): PrecisionResultSection | null {
-  if (!items || items.length === 0) {
+  if (!rows || rows.length === 0) {
     warn('precision', 'no_inputs', 'no precision results in the study');
+    return null;
+  }
+  const excluded = rows.flatMap((row, index) =>
+    row.excluded ? [{ index, label: row.group, value: row.value, reason: row.excluded.reason }] : [],
+  );
+  const items = rows.filter((row) => !row.excluded);
+  if (excluded.length > 0) {
+    const reasons = [...new Set(excluded.map((row) => row.reason))].join('; ');
+    warn(
+      'precision',
+      'excluded',
+      `${excluded.length} precision result${excluded.length === 1 ? '' : 's'} excluded by the analyst: ${reasons}`,
+    );
+  }
+  if (items.length === 0) {
+    warn('precision', 'all_excluded', 'every precision result is excluded');
     return null;
   }
   const shift = items[0].value;
@@ -84,6 +100,7 @@ export function precision(
     };
   }
   return {
+    excluded,
     k,
     N,
     grandMean,

@@ -35,7 +35,23 @@ export function recovery(items: readonly RecoveryItem[] | undefined, confidence:
     warn('recovery', 'no_inputs', 'no recovery experiments in the study');
     return null;
   }
-  const results = items.map((item) => ({
+  const excluded = items.flatMap((item, index) =>
+    item.excluded ? [{ index, label: item.id, value: item.found, reason: item.excluded.reason }] : [],
+  );
+  const used = items.filter((item) => !item.excluded);
+  if (excluded.length > 0) {
+    const reasons = [...new Set(excluded.map((row) => row.reason))].join('; ');
+    warn(
+      'recovery',
+      'excluded',
+      `${excluded.length} recovery experiment${excluded.length === 1 ? '' : 's'} excluded by the analyst: ${reasons}`,
+    );
+  }
+  if (used.length === 0) {
+    warn('recovery', 'all_excluded', 'every recovery experiment is excluded');
+    return null;
+  }
+  const results = used.map((item) => ({
     id: item.id,
     level: item.level ?? null,
     pct: (100 * (item.found - (item.native ?? 0))) / item.added,
@@ -54,6 +70,7 @@ export function recovery(items: readonly RecoveryItem[] | undefined, confidence:
   );
   return {
     items: results,
+    excluded,
     byLevel,
     overall: summarise(
       null,

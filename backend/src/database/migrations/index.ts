@@ -7,6 +7,7 @@ import { MethodChangeControl1764650000000 } from './1764650000000-method-change-
 import { RunRelease1764660000000 } from './1764660000000-run-release.js';
 import { ChangeAssessments1796430074365 } from './1796430074365-change-assessments.js';
 import { ReferenceMaterialsAndPreparations1796428717951 } from './1796428717951-reference-materials-and-preparations.js';
+import { SignatureMetaSnapshot1796428791270 } from './1796428791270-signature-meta-snapshot.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -18,4 +19,5 @@ export const migrations = [
   RunRelease1764660000000,
   ChangeAssessments1796430074365,
   ReferenceMaterialsAndPreparations1796428717951,
+  SignatureMetaSnapshot1796428791270,
 ];

@@ -45,14 +45,26 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
   const excluded = (content.study.data.standards ?? []).flatMap((p, index) =>
     p.excluded ? [{ index, x: p.x, y: p.y, reason: p.excluded.reason }] : [],
   );
-  const recordOf = (index: number) =>
+  const recordOf = (set: string, index: number) =>
     [...content.exclusions].reverse().find((entry) => {
       const point = pointOf(JSON.stringify(entry.changes ?? {}));
-      return entry.action.endsWith('excluded') && point?.set === 'standards' && point.index === index;
+      return entry.action.endsWith('excluded') && point?.set === set && point.index === index;
     });
-  if (!excluded.length) {
-    pdf.paragraph('No point is excluded: every standard enters the fit.');
-  } else {
+  const data = content.study.data;
+  const replicates = [
+    ...(data.recovery ?? []).flatMap((r, index) =>
+      r.excluded ? [{ set: 'recovery', what: `Recovery, ${r.id}`, index, value: formatNumber(r.found, 5), reason: r.excluded.reason }] : [],
+    ),
+    ...(data.precision ?? []).flatMap((p, index) =>
+      p.excluded
+        ? [{ set: 'precision', what: `Precision, series ${p.group}`, index, value: formatNumber(p.value, 5), reason: p.excluded.reason }]
+        : [],
+    ),
+  ];
+  if (!excluded.length && !replicates.length) {
+    pdf.paragraph('No point is excluded: every standard and every replicate result enters the computations.');
+  }
+  if (excluded.length) {
     pdf.table({
       columns: [
         { header: 'Standard', width: 0.7, align: 'right' },
@@ -63,7 +75,7 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
         { header: 'When', width: 1.5 },
       ],
       rows: excluded.map((p) => {
-        const record = recordOf(p.index);
+        const record = recordOf('standards', p.index);
         return [
           String(p.index + 1),
           formatLevel(p.x),
@@ -74,6 +86,29 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
         ];
       }),
       note: 'Excluded points stay in the study data and in the plots (hollow markers) but enter no computation.',
+    });
+  }
+  if (replicates.length) {
+    pdf.table({
+      caption: 'Excluded replicate results',
+      columns: [
+        { header: 'Result', width: 1.5 },
+        { header: `Value (${xUnit(content)})`, width: 1, align: 'right' },
+        { header: 'Reason given', width: 2.1 },
+        { header: 'Excluded by', width: 1.1 },
+        { header: 'When', width: 1.5 },
+      ],
+      rows: replicates.map((r) => {
+        const record = recordOf(r.set, r.index);
+        return [
+          `${r.what} (row ${r.index + 1})`,
+          r.value,
+          r.reason,
+          record?.actorName ?? 'not in the audit trail',
+          record ? formatDateTime(record.at) : NOT_AVAILABLE,
+        ];
+      }),
+      note: 'Excluded results stay in the study data but enter no recovery or precision figure.',
     });
   }
   if (content.exclusions.length) {

@@ -27,7 +27,7 @@ export const NAVIGATION: readonly NavSection[] = [
         label: 'Validation studies',
         href: paths.studies.getHref(),
         summary: 'Calibrate with standards and check linearity, LOD/LOQ, recovery and precision.',
-        roles: [Role.Analyst],
+        roles: [Role.Analyst, Role.Admin],
       },
       {
         label: 'Routine batches',

@@ -1,6 +1,5 @@
-import { formatNumber, formatDateTime } from '@meritline/shared';
 import { Badge, Box, Heading, Stack, Table, Text } from '@chakra-ui/react';
-import type { StudyInput } from '@meritline/shared';
+import { formatDateTime, formatNumber, STUDY_META_WORDS, type StudyInput } from '@meritline/shared';
 import type { StudyDiff } from '../api/review-types';
 
 const SECTION_NAMES: Record<string, string> = {
@@ -53,6 +52,13 @@ export function DiffPanel({ diff, data, unit }: { diff: StudyDiff | null; data: 
   const rowLabel = rowLabeller(data, unit);
   if (!diff) return <Text color="fg.muted">This study has been submitted once; there is nothing to compare yet.</Text>;
   const rows = [
+    ...(diff.meta ?? []).map((m) => ({
+      where: 'Record',
+      what: STUDY_META_WORDS[m.field] ?? m.field,
+      kind: 'changed',
+      from: show(m.from),
+      to: show(m.to),
+    })),
     ...diff.settings.map((s) => ({
       where: 'Settings',
       what: FIELD_NAMES[s.field] ?? s.field,
@@ -81,10 +87,10 @@ export function DiffPanel({ diff, data, unit }: { diff: StudyDiff | null; data: 
         Changes between the submissions of {formatDateTime(diff.from.signedAt)} and {formatDateTime(diff.to.signedAt)}
       </Heading>
       {rows.length === 0 ? (
-        <Text color="fg.muted">The data were resubmitted unchanged.</Text>
+        <Text color="fg.muted">The study was resubmitted unchanged.</Text>
       ) : (
         <Box borderWidth="1px" borderRadius="l3" overflow="hidden">
-          <Table.ScrollArea>
+          <Table.ScrollArea position="relative">
             <Table.Root size="sm" aria-label="Changes between submissions">
               <Table.Header>
                 <Table.Row bg="bg.subtle">
@@ -103,10 +109,12 @@ export function DiffPanel({ diff, data, unit }: { diff: StudyDiff | null; data: 
                     <Table.Cell>
                       <Badge colorPalette={row.kind === 'added' ? 'green' : row.kind === 'removed' ? 'red' : 'orange'}>{row.kind}</Badge>
                     </Table.Cell>
-                    <Table.Cell fontFamily="mono" color="fg.muted">
+                    <Table.Cell fontFamily="mono" color="fg.muted" whiteSpace="pre-wrap" minW="12rem">
                       {row.from}
                     </Table.Cell>
-                    <Table.Cell fontFamily="mono">{row.to}</Table.Cell>
+                    <Table.Cell fontFamily="mono" whiteSpace="pre-wrap" minW="12rem">
+                      {row.to}
+                    </Table.Cell>
                   </Table.Row>
                 ))}
               </Table.Body>

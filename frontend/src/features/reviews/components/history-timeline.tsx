@@ -40,8 +40,15 @@ export function HistoryTimeline({ items }: { items: readonly HistoryItem[] }) {
             </Text>
             {item.detail && (
               <Text fontSize="sm" mt="1" whiteSpace="pre-wrap">
-                {item.detail}
+                {item.lines?.length ? `Reason: ${item.detail}` : item.detail}
               </Text>
+            )}
+            {item.lines && item.lines.length > 0 && (
+              <Box as="ul" fontSize="sm" mt="1" ps="5" listStyleType="disc" overflowWrap="anywhere" data-testid="history-changes">
+                {item.lines.map((line, index) => (
+                  <li key={index}>{line}</li>
+                ))}
+              </Box>
             )}
           </Box>
         );

@@ -8,6 +8,7 @@ import { useCopyStudy } from '../api/copy-study';
 import type { Signature, StudyView } from '../api/review-types';
 import { ReturnDialog } from './return-dialog';
 import { SignDialog } from './sign-dialog';
+import { ReassignDialog } from './reassign-dialog';
 import { MEANINGS } from './signature-meanings';
 
 interface ReviewActionsProps {
@@ -30,10 +31,13 @@ export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
     actions.push(
       <Button key="edit" variant="outline" asChild>
         <RouterLink to={paths.studyEdit.getHref(study.id)}>
-          {study.status === 'returned' ? 'Make the changes' : 'Edit the study'}
+          {!isAuthor ? 'Open in the wizard' : study.status === 'returned' ? 'Make the changes' : 'Edit the study'}
         </RouterLink>
       </Button>,
     );
+  }
+  if (study.status === 'draft' && user.roles.includes(Role.Admin)) {
+    actions.push(<ReassignDialog key="reassign" study={study} />);
   }
   if (isAuthor && (study.status === 'draft' || study.status === 'returned') && study.result) {
     actions.push(

@@ -9,6 +9,7 @@ import { toaster } from '@/components/ui/toaster';
 import { studyReviewQueries } from '../api/review-queries';
 import { signSchema, useSignStudy, type SignValues, type SigningAction } from '../api/sign-study';
 import { APPROVAL_CAUTION, FAILED_VERDICT_CAUTION } from './approval-caution';
+import { OpenCommentList, openThreads } from './reviewer-remarks';
 
 export interface SignDialogProps {
   studyId: string;
@@ -51,6 +52,8 @@ export function SignDialog({
   // The study page has loaded the study already; read it from the cache rather than ask again.
   const study = useQuery({ ...studyReviewQueries.detail(studyId), enabled: false });
   const needsJustification = action === 'approve' && study.data?.result?.verdict.pass === false;
+  const comments = useQuery({ ...studyReviewQueries.comments(studyId), enabled: action === 'approve' });
+  const openComments = action === 'approve' ? openThreads(comments.data ?? []) : [];
 
   return (
     <Dialog.Root open={open} onOpenChange={(event) => setOpen(event.open)} size="md">
@@ -77,6 +80,25 @@ export function SignDialog({
                   Your name, role, the time (UTC) and a fingerprint of the study’s data and results are recorded with the signature.
                   {action === 'approve' && ` ${APPROVAL_CAUTION}`}
                 </Text>
+                {action === 'approve' && comments.data && (
+                  <Alert.Root status={openComments.length ? 'warning' : 'success'} variant="subtle" data-testid="open-comments-note">
+                    <Alert.Indicator />
+                    <Alert.Content minW="0">
+                      <Alert.Title>
+                        {openComments.length === 0
+                          ? 'No comment is open.'
+                          : openComments.length === 1
+                            ? 'One comment is still open.'
+                            : `${openComments.length} comments are still open.`}
+                      </Alert.Title>
+                      {openComments.length > 0 && (
+                        <Alert.Description>
+                          <OpenCommentList comments={openComments} />
+                        </Alert.Description>
+                      )}
+                    </Alert.Content>
+                  </Alert.Root>
+                )}
                 {needsJustification && (
                   <Alert.Root status="warning" variant="subtle">
                     <Alert.Indicator />

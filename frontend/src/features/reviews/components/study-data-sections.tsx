@@ -52,16 +52,19 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
         data.recovery?.length &&
           section(
             'Recovery',
-            ['Sample', 'Level', withUnit('Added', units.x), withUnit('Found', units.x), withUnit('Native', units.x)],
-            data.recovery.map((r, i) => ({ id: `r${i}`, cells: [r.id, r.level ?? '', r.added, r.found, r.native ?? 0] })),
-            [false, false, true, true, true],
+            ['Sample', 'Level', withUnit('Added', units.x), withUnit('Found', units.x), withUnit('Native', units.x), 'Excluded because'],
+            data.recovery.map((r, i) => ({
+              id: `r${i}`,
+              cells: [r.id, r.level ?? '', r.added, r.found, r.native ?? 0, r.excluded?.reason ?? ''],
+            })),
+            [false, false, true, true, true, false],
           ),
         data.precision?.length &&
           section(
             'Precision',
-            ['Series', withUnit('Result', units.x)],
-            data.precision.map((p, i) => ({ id: `p${i}`, cells: [p.group, p.value] })),
-            [false, true],
+            ['Series', withUnit('Result', units.x), 'Excluded because'],
+            data.precision.map((p, i) => ({ id: `p${i}`, cells: [p.group, p.value, p.excluded?.reason ?? ''] })),
+            [false, true, false],
           ),
         data.unknowns?.length &&
           section(
@@ -75,6 +78,13 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
             'Low-level spikes (detection limit)',
             ['#', withUnit('Spiked result', units.x)],
             data.lowSpikes.spiked.map((v, i) => ({ id: `l${i}`, cells: [i + 1, v] })),
+            [true, true],
+          ),
+        data.lowSpikes?.blanks?.length &&
+          section(
+            'Method blanks (detection limit)',
+            ['#', withUnit('Blank result', units.x)],
+            data.lowSpikes.blanks.map((v, i) => ({ id: `mb${i}`, cells: [i + 1, v === null ? 'not detected' : v] })),
             [true, true],
           ),
       ].filter((s): s is ReturnType<typeof section> => Boolean(s)),

@@ -6,7 +6,7 @@ import { useParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
-import { CalibrationPlot, ResidualPlot, StudyFigures, VerdictSummary } from '@/components/study-results';
+import { CalibrationPlot, ResidualPlot, StudyFigures, StudyFlags, VerdictSummary } from '@/components/study-results';
 import { useSession } from '@/lib/auth';
 import { studyReviewQueries } from '../api/review-queries';
 import { STATUS_LABELS, type HistoryItem, type StudyView } from '../api/review-types';
@@ -150,6 +150,12 @@ function ResultsTab({ study }: { study: StudyView }) {
     <Stack gap="10">
       <VerdictSummary result={props.result} criteria={props.criteria} />
       <ApprovalCaution />
+      <Stack gap="3">
+        <Heading as="h2" size="lg">
+          Points to check
+        </Heading>
+        <StudyFlags result={props.result} units={props.units} />
+      </Stack>
       {study.result.calibration && (
         <Stack gap="4">
           <Heading as="h2" size="lg">

@@ -1,5 +1,7 @@
 import type { StudyDto, StudySort, StudyStatus } from '@meritline/shared';
 import type { ComponentType } from 'react';
+/** The reviewer's remarks on a returned study (return comment, open comments), supplied by the app from the review feature. */
+export type RemarksSlot = ComponentType<{ studyId: string }>;
 
 export interface StudyListParams {
   status?: StudyStatus;

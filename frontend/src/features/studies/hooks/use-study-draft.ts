@@ -2,6 +2,7 @@ import { canonicalJson, type StudyDto, type StudyMeta } from '@meritline/shared'
 import { useQueryClient } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { isApiError } from '@/lib/api-client';
+import { useSession } from '@/lib/auth';
 import { studiesQueries } from '../api/studies-queries';
 import { useUpdateStudy, type StudyChanges } from '../api/update-study';
 import { dataToDraft, draftToData, type DataDraft } from '../utils/study-sheets';
@@ -39,6 +40,14 @@ const payloadOf = (draft: StudyDraft): Payload => ({
 /** Only draft and returned studies change; submitted and approved ones are on record. */
 export const isEditable = (study: Pick<StudyDto, 'status'>) => study.status === 'draft' || study.status === 'returned';
 
+/** Why the signed-in user may not change the study, or null when they may. */
+export function readOnlyReason(study: Pick<StudyDto, 'status' | 'author'>, userId: string | undefined): string | null {
+  if (study.status === 'approved') return 'This study is approved and can no longer be changed.';
+  if (study.status === 'submitted') return 'This study is submitted for review and can no longer be changed.';
+  if (study.author.id !== userId) return `Only its author, ${study.author.name}, may change this study; you can read it.`;
+  return null;
+}
+
 /**
  * The study as the analyst edits it, saved in the background: each change waits a moment for the
  * next keystroke, then the changed parts go to the server with the lock version last read. A stale
@@ -46,6 +55,8 @@ export const isEditable = (study: Pick<StudyDto, 'status'>) => study.status === 
  */
 export function useStudyDraft(initial: StudyDto) {
   const queryClient = useQueryClient();
+  const { user } = useSession();
+  const userId = user?.id;
   const { mutateAsync } = useUpdateStudy(initial.id);
   const [draft, setDraft] = useState(() => draftFrom(initial));
   const [server, setServer] = useState(initial);
@@ -60,7 +71,10 @@ export function useStudyDraft(initial: StudyDto) {
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const inFlight = useRef<Promise<boolean> | null>(null);
   const stopped = useRef(false);
-  const editable = isEditable(server);
+  const lockedReason = readOnlyReason(server, userId);
+  const editable = lockedReason === null;
+  const mayEdit = useRef(editable);
+  mayEdit.current = editable;
 
   const adopt = useCallback(
     (study: StudyDto) => {
@@ -96,7 +110,7 @@ export function useStudyDraft(initial: StudyDto) {
         setState((s) => (s.kind === 'pending' || s.kind === 'saving' ? { kind: 'saved', at: new Date() } : s));
         return true;
       }
-      if (changes.data && status.current === 'returned') {
+      if (status.current === 'returned') {
         if (!reasonRef.current.trim()) {
           setState({ kind: 'needs-reason' });
           return false;
@@ -140,7 +154,7 @@ export function useStudyDraft(initial: StudyDto) {
       const next = updater(latest.current);
       latest.current = next;
       setDraft(next);
-      if (stopped.current || !isEditable({ status: status.current })) return;
+      if (stopped.current || !mayEdit.current || !isEditable({ status: status.current })) return;
       setState({ kind: 'pending' });
       if (timer.current) clearTimeout(timer.current);
       timer.current = setTimeout(() => void saveNow(), AUTOSAVE_DELAY_MS);
@@ -191,7 +205,7 @@ export function useStudyDraft(initial: StudyDto) {
 
   const data = useMemo(() => draftToData(draft.data), [draft.data]);
 
-  return { draft, data, server, state, editable, reason, setReason, change, saveNow, reload, prepareImport, adopt };
+  return { draft, data, server, state, editable, lockedReason, reason, setReason, change, saveNow, reload, prepareImport, adopt };
 }
 
 export type StudyDraftController = ReturnType<typeof useStudyDraft>;

@@ -1,11 +1,12 @@
 import { Button, HStack, Stack, Text } from '@chakra-ui/react';
-import { STUDY_SORTS, type StudySort, type StudyStatus } from '@meritline/shared';
+import { Role, STUDY_SORTS, type StudySort, type StudyStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useCallback, useMemo } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
+import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { methodChoicesQueries } from '../api/method-choices-queries';
 import { studiesQueries } from '../api/studies-queries';
@@ -75,7 +76,12 @@ export default function ValidationStudiesPage() {
     (by: StudySort) => update({ sort: by, order: sort === by && order === 'desc' ? 'asc' : 'desc', page: undefined }),
     [update, sort, order],
   );
-  const columns = useMemo(() => studiesColumns({ sort, order, onSort }), [sort, order, onSort]);
+  const { user } = useSession();
+  const analyst = user?.roles.includes(Role.Analyst) ?? false;
+  const columns = useMemo(
+    () => studiesColumns({ sort, order, onSort }, { id: user?.id, analyst }),
+    [sort, order, onSort, user?.id, analyst],
+  );
 
   const total = studies.data?.total ?? 0;
   const first = total === 0 ? 0 : (params.page - 1) * PAGE_SIZE + 1;
@@ -100,9 +106,11 @@ export default function ValidationStudiesPage() {
             <Button asChild variant="outline">
               <RouterLink to={paths.methods.getHref()}>Methods</RouterLink>
             </Button>
-            <Button asChild>
-              <RouterLink to={paths.studyNew.getHref()}>New study</RouterLink>
-            </Button>
+            {analyst && (
+              <Button asChild>
+                <RouterLink to={paths.studyNew.getHref()}>New study</RouterLink>
+              </Button>
+            )}
           </HStack>
         }
       />

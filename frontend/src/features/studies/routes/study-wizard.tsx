@@ -9,7 +9,7 @@ import { preloadPlotly } from '@/components/study-results';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { studiesQueries } from '../api/studies-queries';
-import type { SubmitSlot } from '../api/types';
+import type { RemarksSlot, SubmitSlot } from '../api/types';
 import { BlanksStep } from '../components/steps/blanks-step';
 import { CalibrationStep, type DataStepProps } from '../components/steps/calibration-step';
 import { ConclusionStep } from '../components/steps/conclusion-step';
@@ -78,10 +78,15 @@ function SaveProblems({ controller }: { controller: StudyDraftController }) {
   return null;
 }
 
-function StudyWizard({ study, step, SubmitSlot }: { study: StudyDto; step: number; SubmitSlot: SubmitSlot }) {
+interface Slots {
+  SubmitSlot: SubmitSlot;
+  RemarksSlot: RemarksSlot;
+}
+
+function StudyWizard({ study, step, SubmitSlot, RemarksSlot }: { study: StudyDto; step: number } & Slots) {
   const controller = useStudyDraft(study);
   const live = useLiveEvaluation(controller.data);
-  const { draft, server, state, editable, reason, setReason } = controller;
+  const { draft, server, state, editable, lockedReason, reason, setReason } = controller;
   const units = { x: server.method.xUnit, y: server.method.yUnit };
   const props: DataStepProps = { controller, live, units, criteria: server.methodVersion.criteria };
   const current = WIZARD_STEPS[step - 1];
@@ -98,7 +103,7 @@ function StudyWizard({ study, step, SubmitSlot }: { study: StudyDto; step: numbe
         title={draft.title || 'Untitled study'}
         description={`${server.method.name}, version ${server.methodVersion.number}`}
         actions={
-          <HStack gap="4">
+          <HStack gap="4" wrap="wrap">
             <StudyStatusBadge status={server.status} />
             <SaveStatus state={state} editable={editable} onRetry={() => void controller.saveNow()} />
           </HStack>
@@ -106,12 +111,11 @@ function StudyWizard({ study, step, SubmitSlot }: { study: StudyDto; step: numbe
       />
       <StudyStepper studyId={server.id} current={step} notes={stepNotes(controller, live.result?.verdict.pass)} />
       <Stack gap="6">
-        {!editable && (
-          <Alert.Root status="info">
+        {lockedReason && (
+          <Alert.Root status="info" data-testid="read-only-reason">
             <Alert.Indicator />
             <Alert.Description>
-              This study is {server.status === 'approved' ? 'approved' : 'submitted for review'} and can no longer be changed. What you see
-              is the record; its signatures and comments are on the{' '}
+              {lockedReason} What you see is the record; its signatures and comments are on the{' '}
               <Link asChild color="brand.fg">
                 <RouterLink to={paths.studyView.getHref(server.id)}>review page</RouterLink>
               </Link>
@@ -122,15 +126,21 @@ function StudyWizard({ study, step, SubmitSlot }: { study: StudyDto; step: numbe
         {server.status === 'returned' && (
           <Alert.Root status="warning" alignItems="flex-start">
             <Alert.Indicator />
-            <Alert.Content gap="3">
+            <Alert.Content gap="3" minW="0">
               <Alert.Title>The reviewer returned this study</Alert.Title>
-              <Field.Root required invalid={state.kind === 'needs-reason'}>
-                <Field.Label>
-                  Why the data change now (kept with each change on record)
-                  <Field.RequiredIndicator />
-                </Field.Label>
-                <Input value={reason} onChange={(e) => setReason(e.target.value)} bg="bg.panel" maxLength={500} />
-              </Field.Root>
+              <RemarksSlot studyId={server.id} />
+              {editable && (
+                <Field.Root required invalid={state.kind === 'needs-reason'}>
+                  <Field.Label>
+                    Why the study changes now (kept with each change on record; every change needs it)
+                    <Field.RequiredIndicator />
+                  </Field.Label>
+                  <Input value={reason} onChange={(e) => setReason(e.target.value)} bg="bg.panel" maxLength={500} />
+                  {state.kind === 'needs-reason' && (
+                    <Field.ErrorText>Your change is not saved yet: say why the study changes, then it is saved.</Field.ErrorText>
+                  )}
+                </Field.Root>
+              )}
             </Alert.Content>
           </Alert.Root>
         )}
@@ -162,7 +172,7 @@ function StudyWizard({ study, step, SubmitSlot }: { study: StudyDto; step: numbe
 }
 
 /** The app composes the page with the review feature's submit step (features never import each other). */
-export function StudyWizardPage({ SubmitSlot }: { SubmitSlot: SubmitSlot }) {
+export function StudyWizardPage({ SubmitSlot, RemarksSlot }: Slots) {
   const { studyId = '' } = useParams();
   const [search] = useSearchParams();
   const study = useQuery(studiesQueries.detail(studyId));
@@ -170,5 +180,5 @@ export function StudyWizardPage({ SubmitSlot }: { SubmitSlot: SubmitSlot }) {
 
   if (study.isPending) return <PageSpinner label="Opening the study" />;
   if (study.isError) return <QueryError error={study.error} title="The study could not be opened" onRetry={() => void study.refetch()} />;
-  return <StudyWizard key={study.data.id} study={study.data} step={step} SubmitSlot={SubmitSlot} />;
+  return <StudyWizard key={study.data.id} study={study.data} step={step} SubmitSlot={SubmitSlot} RemarksSlot={RemarksSlot} />;
 }

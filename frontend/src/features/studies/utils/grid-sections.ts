@@ -17,14 +17,14 @@ export interface GridColumn {
 export interface GridRow {
   id: string;
   cells: Record<string, string>;
-  /** Standards only: left out of every computation, with the analyst's reason. */
-  excluded?: { reason: string };
+  /** Standards, recovery and precision rows: left out of every computation, with the analyst's reason. */
+  excluded?: { reason: string; test?: string };
 }
 
 let lastRowId = 0;
 export const newRowId = () => `row-${++lastRowId}`;
 
-export function newRow(cells: Record<string, string> = {}, excluded?: { reason: string }): GridRow {
+export function newRow(cells: Record<string, string> = {}, excluded?: GridRow['excluded']): GridRow {
   return { id: newRowId(), cells, ...(excluded ? { excluded } : {}) };
 }
 

@@ -22,13 +22,18 @@ export interface DataDraft {
 
 const MANAGED = new Set<string>(['model', 'weighting', 'confidence', 'alpha', 'massFraction', ...IMPORT_SECTIONS]);
 
+type Exclusion = { reason: string; test?: string };
+const exclusionOf = (excluded: Exclusion | undefined): Exclusion | undefined =>
+  excluded ? { reason: excluded.reason, ...(excluded.test ? { test: excluded.test } : {}) } : undefined;
+const exclusionField = (row: GridRow) => (row.excluded ? { excluded: exclusionOf(row.excluded) } : {});
+
 const text = (value: unknown) => (value === undefined || value === null ? '' : String(value));
 const list = <T>(value: unknown): T[] => (Array.isArray(value) ? (value as T[]) : []);
 
 export function dataToDraft(data: Record<string, unknown>): DataDraft {
   const extras = Object.fromEntries(Object.entries(data).filter(([key]) => !MANAGED.has(key)));
-  const standards = list<{ x: number; y: number; id?: string; excluded?: { reason: string } }>(data.standards).map((s) =>
-    newRow({ x: text(s.x), y: text(s.y), ...(s.id ? { id: s.id } : {}) }, s.excluded ? { reason: s.excluded.reason } : undefined),
+  const standards = list<{ x: number; y: number; id?: string; excluded?: Exclusion }>(data.standards).map((s) =>
+    newRow({ x: text(s.x), y: text(s.y), ...(s.id ? { id: s.id } : {}) }, exclusionOf(s.excluded)),
   );
   const unknowns = list<{ id: string; y: number[]; dilution?: number }>(data.unknowns).flatMap((u) =>
     (u.y.length > 0 ? u.y : [NaN]).map((y) => newRow({ id: u.id, y: Number.isNaN(y) ? '' : text(y), dilution: text(u.dilution) })),
@@ -55,10 +60,17 @@ export function dataToDraft(data: Record<string, unknown>): DataDraft {
       unknowns,
       blanks: list<number>(data.blanks).map((v) => newRow({ value: text(v) })),
       lowSpikes,
-      recovery: list<{ id: string; level?: string; added: number; found: number; native?: number }>(data.recovery).map((r) =>
-        newRow({ id: r.id, level: text(r.level), added: text(r.added), found: text(r.found), native: text(r.native) }),
+      recovery: list<{ id: string; level?: string; added: number; found: number; native?: number; excluded?: Exclusion }>(
+        data.recovery,
+      ).map((r) =>
+        newRow(
+          { id: r.id, level: text(r.level), added: text(r.added), found: text(r.found), native: text(r.native) },
+          exclusionOf(r.excluded),
+        ),
       ),
-      precision: list<{ group: string; value: number }>(data.precision).map((p) => newRow({ group: p.group, value: text(p.value) })),
+      precision: list<{ group: string; value: number; excluded?: Exclusion }>(data.precision).map((p) =>
+        newRow({ group: p.group, value: text(p.value) }, exclusionOf(p.excluded)),
+      ),
     },
   };
 }
@@ -93,7 +105,7 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
       x: num(row.cells.x),
       y: num(row.cells.y),
       ...(row.cells.id ? { id: row.cells.id } : {}),
-      ...(row.excluded ? { excluded: { reason: row.excluded.reason } } : {}),
+      ...exclusionField(row),
     })),
   };
   const blanks = usableRows('blanks', sheets.blanks).map((row) => num(row.cells.value));
@@ -125,12 +137,14 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
     added: num(row.cells.added),
     found: num(row.cells.found),
     ...(optionalNum(row.cells.native) !== undefined ? { native: num(row.cells.native) } : {}),
+    ...exclusionField(row),
   }));
   if (recovery.length > 0) data.recovery = recovery;
 
   const precision = usableRows('precision', sheets.precision).map((row) => ({
     group: row.cells.group.trim(),
     value: num(row.cells.value),
+    ...exclusionField(row),
   }));
   if (precision.length > 0) data.precision = precision;
 

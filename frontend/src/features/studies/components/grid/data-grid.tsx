@@ -17,7 +17,7 @@ export interface DataGridProps {
 const CellInput = chakra('input', {
   base: {
     width: 'full',
-    minWidth: '7.5rem',
+    minWidth: { base: '5rem', md: '7.5rem' },
     px: '2',
     py: '1.5',
     fontSize: 'sm',
@@ -92,7 +92,7 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
 
   return (
     <Box ref={gridRef} borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" overflow="hidden">
-      <Table.ScrollArea maxH="36rem" overflowY="auto">
+      <Table.ScrollArea position="relative" maxH="36rem" overflowY="auto">
         <Table.Root size="sm" aria-label={label} stickyHeader>
           <Table.Header>
             <Table.Row bg="bg.subtle">
@@ -100,7 +100,14 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
                 Row
               </Table.ColumnHeader>
               {columns.map((column) => (
-                <Table.ColumnHeader key={column.key} py="2.5" color="fg.muted" fontWeight="600" fontSize="xs" minW="8rem">
+                <Table.ColumnHeader
+                  key={column.key}
+                  py="2.5"
+                  color="fg.muted"
+                  fontWeight="600"
+                  fontSize="xs"
+                  minW={{ base: '5.5rem', md: '8rem' }}
+                >
                   {column.label}
                   {column.unit && (
                     <Text as="span" fontWeight="400">
@@ -188,7 +195,10 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
                     <Table.Row bg="bg.muted">
                       <Table.Cell />
                       <Table.Cell colSpan={columns.length + (readOnly ? 0 : 1)} pt="0" pb="2" px="3" fontSize="xs" color="fg.muted">
-                        Excluded: {row.excluded.reason}
+                        {/* Wraps and stays in view while the grid scrolls sideways, so that a long reason can be read on a phone. */}
+                        <Box position="sticky" left="3" maxW="calc(100vw - 6rem)" whiteSpace="normal" overflowWrap="anywhere">
+                          Excluded: {row.excluded.reason}
+                        </Box>
                       </Table.Cell>
                     </Table.Row>
                   )}

@@ -260,7 +260,7 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
                           <Text fontWeight="600">
                             {count} row{count === 1 ? '' : 's'} read{table.body.length > 10 ? '; the first 10:' : ':'}
                           </Text>
-                          <Table.ScrollArea borderWidth="1px" borderColor="border" borderRadius="l2">
+                          <Table.ScrollArea position="relative" borderWidth="1px" borderColor="border" borderRadius="l2">
                             <Table.Root size="sm" aria-label="Rows found in the file">
                               <Table.Header>
                                 <Table.Row>

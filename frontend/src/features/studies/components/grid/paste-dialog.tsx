@@ -65,7 +65,7 @@ export function PasteDialog({ sectionName, columns, hasRows, onPaste, disabled }
                       {problems > 0 &&
                         ` ${problems} with a cell that is not a number or is missing: it will be marked in the grid and not used until corrected.`}
                     </Text>
-                    <Table.ScrollArea borderWidth="1px" borderColor="border" borderRadius="l2" maxH="48">
+                    <Table.ScrollArea position="relative" borderWidth="1px" borderColor="border" borderRadius="l2" maxH="48">
                       <Table.Root size="sm" aria-label="Rows to paste">
                         <Table.Header>
                           <Table.Row>

@@ -45,12 +45,18 @@ function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: S
 const column = dataTableColumns<StudySummaryDto>();
 
 const isEditable = (study: StudySummaryDto) => study.status === 'draft' || study.status === 'returned';
-/** Drafts open in the wizard; submitted and approved studies on their read-only review page. */
-const studyHref = (study: StudySummaryDto) =>
-  isEditable(study) ? paths.studyEdit.getHref(study.id, 2) : paths.studyView.getHref(study.id);
+
+/** Who looks at the list: an analyst opens drafts in the wizard (their own to change), anyone else the read-only review page. */
+export interface ListViewer {
+  id: string | undefined;
+  analyst: boolean;
+}
 
 /** Columns of the studies list; the sortable headers ask the server to sort. */
-export function studiesColumns(sort: ServerSort) {
+export function studiesColumns(sort: ServerSort, viewer: ListViewer) {
+  const studyHref = (study: StudySummaryDto) =>
+    isEditable(study) && viewer.analyst ? paths.studyEdit.getHref(study.id, 2) : paths.studyView.getHref(study.id);
+  const mine = (study: StudySummaryDto) => isEditable(study) && study.author.id === viewer.id;
   return column.columns([
     column.accessor('title', {
       header: () => <SortHeader label="Title" by="title" sort={sort} />,
@@ -102,7 +108,7 @@ export function studiesColumns(sort: ServerSort) {
       meta: { align: 'end' },
       cell: (info) => {
         const study = info.row.original;
-        const editable = isEditable(study);
+        const editable = mine(study);
         return (
           <Button asChild size="xs" variant={editable ? 'solid' : 'outline'}>
             <RouterLink to={studyHref(study)} aria-label={`${editable ? 'Resume' : 'Open'} ${study.title}`}>

@@ -10,23 +10,53 @@ export const setSheet = (
   rows: GridRow[],
 ) => controller.change((d) => ({ ...d, data: { ...d.data, sheets: { ...d.data.sheets, [section]: rows } } }));
 
-const describe = (row: GridRow) => `x = ${row.cells.x ?? '?'}, y = ${row.cells.y ?? '?'}`;
+type ExcludableSection = 'standards' | 'recovery' | 'precision';
+
+interface ExclusionWords {
+  /** What a row is: "standard", "spiked sample", "result". */
+  noun: string;
+  describe: (row: GridRow) => string;
+  consequence: string;
+}
+
+const WORDS: Record<ExcludableSection, ExclusionWords> = {
+  standards: {
+    noun: 'standard',
+    describe: (row) => `x = ${row.cells.x ?? '?'}, y = ${row.cells.y ?? '?'}`,
+    consequence: 'The point stays in the study, shown hollow, and is left out of every figure.',
+  },
+  recovery: {
+    noun: 'spiked sample',
+    describe: (row) => `${row.cells.id || 'without a name'}, found ${row.cells.found ?? '?'}`,
+    consequence: 'The row stays in the study, marked excluded, and is left out of every recovery figure.',
+  },
+  precision: {
+    noun: 'result',
+    describe: (row) => `${row.cells.value ?? '?'} (series ${row.cells.group || '?'})`,
+    consequence: 'The result stays in the study, marked excluded, and is left out of the repeatability and intermediate precision.',
+  },
+};
+
+/** Excluding a standard takes a written reason and can be undone: the point stays in the data and leaves every computation. */
+export const useStandardExclusion = (controller: StudyDraftController) => useRowExclusion(controller, 'standards');
 
 /**
- * Excluding a standard takes a written reason and can be undone: the point stays in the data,
- * shown hollow, and leaves every computation.
+ * Excluding a row (a standard, a spiked sample, a precision result) takes a written reason and can be
+ * undone: the row stays in the data, marked, and leaves every computation.
  */
-export function useStandardExclusion(controller: StudyDraftController) {
+export function useRowExclusion(controller: StudyDraftController, section: ExcludableSection) {
+  const words = WORDS[section];
+  const describe = words.describe;
   const [target, setTarget] = useState<GridRow | null>(null);
   const [reason, setReason] = useState('');
   const [touched, setTouched] = useState(false);
   const reasonInput = useRef<HTMLTextAreaElement>(null);
-  const rows = controller.draft.data.sheets.standards;
+  const rows = controller.draft.data.sheets[section];
 
   const setExcluded = (rowId: string, excluded: { reason: string } | undefined) =>
     setSheet(
       controller,
-      'standards',
+      section,
       rows.map((row) => {
         if (row.id !== rowId) return row;
         const { excluded: _previous, ...rest } = row;
@@ -39,7 +69,11 @@ export function useStandardExclusion(controller: StudyDraftController) {
     if (!row || !controller.editable) return;
     if (row.excluded) {
       setExcluded(row.id, undefined);
-      toaster.create({ type: 'info', title: 'Standard included again', description: describe(row) });
+      toaster.create({
+        type: 'info',
+        title: `${words.noun.charAt(0).toUpperCase()}${words.noun.slice(1)} included again`,
+        description: describe(row),
+      });
       return;
     }
     setReason('');
@@ -63,12 +97,14 @@ export function useStandardExclusion(controller: StudyDraftController) {
         <Dialog.Positioner>
           <Dialog.Content>
             <Dialog.Header>
-              <Dialog.Title>Exclude the standard {target ? describe(target) : ''}?</Dialog.Title>
+              <Dialog.Title>
+                Exclude the {words.noun} {target ? describe(target) : ''}?
+              </Dialog.Title>
             </Dialog.Header>
             <Dialog.Body>
               <Text mb="4" color="fg.muted">
-                The point stays in the study, shown hollow, and is left out of every figure. Exclude only for an assignable cause, such as a
-                bubble in the cell or a failed injection; the reason goes on record and can be read by the reviewer.
+                {words.consequence} Exclude only for an assignable cause, such as a bubble in the cell, a spilt vial or a failed injection;
+                the reason goes on record and can be read by the reviewer.
               </Text>
               <Field.Root invalid={touched && invalid} required>
                 <Field.Label>
@@ -76,14 +112,14 @@ export function useStandardExclusion(controller: StudyDraftController) {
                   <Field.RequiredIndicator />
                 </Field.Label>
                 <Textarea ref={reasonInput} value={reason} onChange={(e) => setReason(e.target.value)} rows={2} />
-                {touched && invalid && <Field.ErrorText>Say why the point is excluded (at least 3 characters).</Field.ErrorText>}
+                {touched && invalid && <Field.ErrorText>Say why the {words.noun} is excluded (at least 3 characters).</Field.ErrorText>}
               </Field.Root>
             </Dialog.Body>
             <Dialog.Footer>
               <Button variant="outline" onClick={() => setTarget(null)}>
                 Cancel
               </Button>
-              <Button onClick={confirm}>Exclude the point</Button>
+              <Button onClick={confirm}>Exclude the {words.noun}</Button>
             </Dialog.Footer>
             <Dialog.CloseTrigger asChild>
               <CloseButton size="sm" />
@@ -95,7 +131,13 @@ export function useStandardExclusion(controller: StudyDraftController) {
   );
 
   const rowActions = (row: GridRow) => (
-    <Button size="xs" variant="ghost" onClick={() => toggle(row.id)} disabled={!controller.editable}>
+    <Button
+      size="xs"
+      variant="ghost"
+      onClick={() => toggle(row.id)}
+      disabled={!controller.editable}
+      title={`${row.excluded ? 'Include again' : 'Exclude'} the ${words.noun} ${describe(row)}`}
+    >
       {row.excluded ? 'Include again' : 'Exclude…'}
     </Button>
   );

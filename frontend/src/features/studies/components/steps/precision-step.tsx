@@ -3,11 +3,12 @@ import { Field, Grid, Heading, Input, Stack, Text } from '@chakra-ui/react';
 import { parseDecimal } from '../../utils/parse-number';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
-import { setSheet } from './exclusion';
+import { setSheet, useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
 
 export function PrecisionStep({ controller, live, units }: DataStepProps) {
   const { draft, server, editable, prepareImport, adopt, change } = controller;
+  const exclusion = useRowExclusion(controller, 'precision');
   const p = live.result?.precision;
   const massFraction = draft.data.settings.massFraction;
   const parsed = parseDecimal(massFraction);
@@ -41,6 +42,7 @@ export function PrecisionStep({ controller, live, units }: DataStepProps) {
             readOnly={!editable}
             prepareImport={prepareImport}
             onImported={adopt}
+            rowActions={exclusion.rowActions}
           />
         </Stack>
         <Field.Root invalid={Boolean(massFractionProblem)} maxW="md" readOnly={!editable}>
@@ -61,7 +63,10 @@ export function PrecisionStep({ controller, live, units }: DataStepProps) {
       <LivePanel title="Precision as you type" live={live}>
         {p ? (
           <Stack gap="0">
-            <FigureLine label="Series / results" value={`${p.k} / ${p.N}`} />
+            <FigureLine
+              label="Series / results used"
+              value={`${p.k} / ${p.N}${p.excluded?.length ? ` (${p.excluded.length} excluded)` : ''}`}
+            />
             <FigureLine label="Grand mean" value={`${formatNumber(p.grandMean, 5)} ${units.x}`} />
             <FigureLine label="Repeatability SD (RSD)" value={`${formatNumber(p.sR, 4)} (${formatPercent(p.rsdR, 3)})`} />
             <FigureLine label="Intermediate precision SD (RSD)" value={`${formatNumber(p.sI, 4)} (${formatPercent(p.rsdI, 3)})`} />
@@ -73,6 +78,7 @@ export function PrecisionStep({ controller, live, units }: DataStepProps) {
           </Text>
         )}
       </LivePanel>
+      {exclusion.dialog}
     </Grid>
   );
 }

@@ -2,11 +2,12 @@ import { formatPercent } from '@meritline/shared';
 import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
-import { setSheet } from './exclusion';
+import { setSheet, useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
 
 export function RecoveryStep({ controller, live, units }: DataStepProps) {
   const { draft, server, editable, prepareImport, adopt } = controller;
+  const exclusion = useRowExclusion(controller, 'recovery');
   const r = live.result?.recovery;
   return (
     <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
@@ -28,6 +29,7 @@ export function RecoveryStep({ controller, live, units }: DataStepProps) {
           readOnly={!editable}
           prepareImport={prepareImport}
           onImported={adopt}
+          rowActions={exclusion.rowActions}
         />
       </Stack>
       <LivePanel title="Recovery as you type" live={live}>
@@ -41,7 +43,7 @@ export function RecoveryStep({ controller, live, units }: DataStepProps) {
               />
             ))}
             <FigureLine
-              label={`All levels · ${r.overall.n} spikes`}
+              label={`All levels · ${r.overall.n} spikes${r.excluded?.length ? ` (${r.excluded.length} excluded)` : ''}`}
               value={`${formatPercent(r.overall.meanPct)} (RSD ${formatPercent(r.overall.rsdPct, 3)})`}
             />
           </Stack>
@@ -51,6 +53,7 @@ export function RecoveryStep({ controller, live, units }: DataStepProps) {
           </Text>
         )}
       </LivePanel>
+      {exclusion.dialog}
     </Grid>
   );
 }
