@@ -1,0 +1,29 @@
+import type { MethodVersionSettings } from './api-types.js';
+
+type Data = Record<string, unknown>;
+type VersionOptions = Pick<MethodVersionSettings, 'accuracyBeta' | 'accuracyLambdaPct' | 'coverageFactor'>;
+
+const isObject = (value: unknown): value is Data => typeof value === 'object' && value !== null && !Array.isArray(value);
+
+/**
+ * The accuracy-profile β and λ and the coverage factor k of the method version, for a study that
+ * does not state its own: the study's options win. Only studies with accuracy results (or their own
+ * uncertainty section) take them, so other studies keep their data unchanged.
+ */
+export function withVersionOptions<T extends Data>(data: T, settings: VersionOptions): T {
+  if (!Array.isArray(data.accuracy) && !isObject(data.uncertainty)) return data;
+  const out: Data = { ...data };
+  if (Array.isArray(data.accuracy)) {
+    const own = isObject(data.accuracyProfile) ? data.accuracyProfile : {};
+    const profile: Data = {};
+    if (settings.accuracyBeta !== undefined) profile.beta = settings.accuracyBeta;
+    if (settings.accuracyLambdaPct !== undefined) profile.lambda = settings.accuracyLambdaPct;
+    Object.assign(profile, own);
+    if (Object.keys(profile).length > 0) out.accuracyProfile = profile;
+  }
+  if (settings.coverageFactor !== undefined) {
+    const own = isObject(data.uncertainty) ? data.uncertainty : {};
+    out.uncertainty = { coverageFactor: settings.coverageFactor, ...own };
+  }
+  return out as T;
+}
