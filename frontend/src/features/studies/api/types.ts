@@ -84,7 +84,7 @@ export interface MethodChoice extends StudyMethod {
   versions: (Pick<StudyMethodVersion, 'id' | 'number' | 'status' | 'criteria'> & { changeSummary: string; createdAt: string })[];
 }
 
-export const IMPORT_SECTIONS = ['standards', 'blanks', 'recovery', 'precision', 'unknowns', 'lowSpikes'] as const;
+export const IMPORT_SECTIONS = ['standards', 'blanks', 'recovery', 'precision', 'accuracy', 'unknowns', 'lowSpikes'] as const;
 export type ImportSection = (typeof IMPORT_SECTIONS)[number];
 
 export interface ImportPreview {
