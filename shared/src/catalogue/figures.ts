@@ -62,7 +62,12 @@ export const FIGURES: readonly FigureEntry[] = [
   { key: 'range.recoveryPct', label: 'Mean recovery at every level', unit: 'percent', section: RANGE },
   { key: 'accuracyProfile.validFrom', label: 'Lower limit of quantitation (accuracy profile)', unit: 'x', section: ACCURACY_PROFILE },
   { key: 'accuracyProfile.validTo', label: 'Upper limit of quantitation (accuracy profile)', unit: 'x', section: ACCURACY_PROFILE },
-  { key: 'accuracyProfile.beta', label: 'β, expected proportion of results inside the tolerance limits', unit: 'none', section: ACCURACY_PROFILE },
+  {
+    key: 'accuracyProfile.beta',
+    label: 'β, expected proportion of results inside the tolerance limits',
+    unit: 'none',
+    section: ACCURACY_PROFILE,
+  },
   { key: 'accuracyProfile.lambda', label: 'Acceptance limits ±λ', unit: 'percent', section: ACCURACY_PROFILE },
   { key: 'trueness.mean', label: 'Mean found on the reference material', unit: 'x', section: TRUENESS },
   { key: 'trueness.certified', label: 'Certified value', unit: 'x', section: TRUENESS },
@@ -72,7 +77,12 @@ export const FIGURES: readonly FigureEntry[] = [
   { key: 'trueness.UDifference', label: 'Expanded uncertainty of the difference (k = 2)', unit: 'x', section: TRUENESS },
   { key: 'uncertainty.coverageFactor', label: 'Coverage factor k', unit: 'none', section: UNCERTAINTY },
   { key: 'uncertainty.relative.UPct', label: 'Expanded uncertainty U, relative (largest level)', unit: 'percent', section: UNCERTAINTY },
-  { key: 'uncertainty.relative.ucPct', label: 'Combined standard uncertainty u_c, relative (largest level)', unit: 'percent', section: UNCERTAINTY },
+  {
+    key: 'uncertainty.relative.ucPct',
+    label: 'Combined standard uncertainty u_c, relative (largest level)',
+    unit: 'percent',
+    section: UNCERTAINTY,
+  },
   { key: 'uncertainty.absolute.U', label: 'Expanded uncertainty U, absolute (largest level)', unit: 'x', section: UNCERTAINTY },
   { key: 'uncertainty.absolute.uc', label: 'Combined standard uncertainty u_c, absolute (largest level)', unit: 'x', section: UNCERTAINTY },
 ];
