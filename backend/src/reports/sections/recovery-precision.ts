@@ -13,6 +13,7 @@ import {
 } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { confidenceWords, notEvaluated, sectionWarnings, xUnit } from './common.js';
+import { numbered } from './numbering.js';
 
 function groupRow(group: RecoveryGroup, label: string): string[] {
   const bias = group.significant === null ? NOT_AVAILABLE : group.significant ? 'Yes' : 'No';
@@ -30,7 +31,7 @@ function groupRow(group: RecoveryGroup, label: string): string[] {
 }
 
 function recovery(pdf: PdfComposer, content: ReportContent, result: EvaluationResult): void {
-  pdf.heading('4.1  Recovery', 2);
+  pdf.heading(numbered('recoveryPrecision', 'Recovery', 1), 2);
   const r = result.recovery;
   if (!r) {
     notEvaluated(pdf, result, ['recovery']);
@@ -83,7 +84,7 @@ function recovery(pdf: PdfComposer, content: ReportContent, result: EvaluationRe
 }
 
 function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationResult): void {
-  pdf.heading('4.2  Precision', 2);
+  pdf.heading(numbered('recoveryPrecision', 'Precision', 2), 2);
   const p = result.precision;
   if (!p) {
     notEvaluated(pdf, result, ['precision']);
@@ -156,7 +157,7 @@ function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationR
 }
 
 export function recoveryPrecisionSection(pdf: PdfComposer, content: ReportContent): void {
-  pdf.heading('4  Recovery and precision');
+  pdf.heading(numbered('recoveryPrecision', 'Recovery and precision'));
   const result = content.study.result;
   if (!result) {
     notEvaluated(pdf, result, ['recovery', 'precision']);

@@ -5,6 +5,7 @@ import type { ReportContent } from '../report-content.js';
 import { APPROACH_LABELS, criterionInWords, describeFigure, formatAgainstCriterion } from '../report-figures.js';
 import { MODEL_WORDS, WEIGHTING_WORDS, xUnit } from './common.js';
 import { reportedLimits } from './detection.js';
+import { numbered } from './numbering.js';
 
 function conclusion(result: EvaluationResult | null): string {
   if (!result) return 'The study could not be evaluated, so no verdict is given.';
@@ -18,7 +19,7 @@ function conclusion(result: EvaluationResult | null): string {
 export function summarySection(pdf: PdfComposer, content: ReportContent): void {
   const result = content.study.result;
   const units = { x: xUnit(content), y: content.study.data.units?.y ?? content.method.yUnit };
-  pdf.heading('1  Summary');
+  pdf.heading(numbered('summary', 'Summary'));
 
   if (result && result.verdict.criteria.length) {
     pdf.table({
