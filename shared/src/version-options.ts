@@ -1,6 +1,11 @@
 import type { MethodVersionSettings } from './api-types.js';
 
 type Data = Record<string, unknown>;
+
+/** What the engine uses when neither the study nor its method version says otherwise. */
+export const DEFAULT_ACCURACY_BETA = 0.8;
+export const DEFAULT_ACCURACY_LAMBDA_PCT = 10;
+export const DEFAULT_COVERAGE_FACTOR = 2;
 type VersionOptions = Pick<MethodVersionSettings, 'accuracyBeta' | 'accuracyLambdaPct' | 'coverageFactor'>;
 
 const isObject = (value: unknown): value is Data => typeof value === 'object' && value !== null && !Array.isArray(value);

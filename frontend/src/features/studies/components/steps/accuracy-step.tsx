@@ -1,3 +1,4 @@
+import { DEFAULT_ACCURACY_BETA, DEFAULT_ACCURACY_LAMBDA_PCT, DEFAULT_COVERAGE_FACTOR } from '@meritline/shared';
 import { Field, Fieldset, Grid, Heading, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { AccuracyProfilePlot, formatNumber, formatPercent, validityWords } from '@/components/study-results';
 import { accuracyOptionProblems, type AccuracyOptions } from '../../utils/study-sheets';
@@ -5,10 +6,6 @@ import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
 import { setSheet } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
-
-const DEFAULT_BETA = 0.8;
-const DEFAULT_LAMBDA = 10;
-const DEFAULT_K = 2;
 
 interface OptionFieldProps {
   name: keyof AccuracyOptions;
@@ -44,9 +41,9 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
   const options = draft.data.settings.accuracy;
   const problems = accuracyOptionProblems(options);
   const version = server.methodVersion.settings;
-  const versionBeta = version.accuracyBeta ?? DEFAULT_BETA;
-  const versionLambda = version.accuracyLambdaPct ?? DEFAULT_LAMBDA;
-  const versionK = version.coverageFactor ?? DEFAULT_K;
+  const versionBeta = version.accuracyBeta ?? DEFAULT_ACCURACY_BETA;
+  const versionLambda = version.accuracyLambdaPct ?? DEFAULT_ACCURACY_LAMBDA_PCT;
+  const versionK = version.coverageFactor ?? DEFAULT_COVERAGE_FACTOR;
   const setOption = (name: keyof AccuracyOptions, value: string) =>
     change((d) => ({
       ...d,
