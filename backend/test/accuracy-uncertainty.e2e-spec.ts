@@ -45,7 +45,7 @@ describe('accuracy profile, trueness and measurement uncertainty through the API
     t = await createTestApp();
     headers = { Authorization: `Bearer ${await t.tokenFor(DEMO.analyst)}` };
     const methods = (await t.http().get('/api/methods').set(headers).expect(200)).body as Row[];
-    versionId = methods.find((m) => m.analyte === 'Tartrazine').versions[0].id;
+    versionId = methods.find((m) => m.analyte === 'Tartrazine')!.versions[0].id;
   });
   afterAll(() => t.close());
 

@@ -51,10 +51,13 @@ describe('uncertainty, accuracy-profile and trueness figures', () => {
   it('takes β, λ and k from the method version only where the study states none', () => {
     const settings = { accuracyBeta: 0.95, accuracyLambdaPct: 5, coverageFactor: 3 };
     expect(withVersionOptions({ precision: [] }, settings)).toEqual({ precision: [] });
-    const filled = withVersionOptions({ accuracy }, settings);
+    const filled: Record<string, unknown> = withVersionOptions({ accuracy } as Record<string, unknown>, settings);
     expect(filled.accuracyProfile).toEqual({ beta: 0.95, lambda: 5 });
     expect(filled.uncertainty).toEqual({ coverageFactor: 3 });
-    const own = withVersionOptions({ accuracy, accuracyProfile: { beta: 0.8 }, uncertainty: { coverageFactor: 2 } }, settings);
+    const own: Record<string, unknown> = withVersionOptions(
+      { accuracy, accuracyProfile: { beta: 0.8 }, uncertainty: { coverageFactor: 2 } },
+      settings,
+    );
     expect(own.accuracyProfile).toEqual({ beta: 0.8, lambda: 5 });
     expect(own.uncertainty).toEqual({ coverageFactor: 2 });
     const result = evaluateStudy(filled);
