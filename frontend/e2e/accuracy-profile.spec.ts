@@ -76,4 +76,16 @@ test('the demo analyst reads the accuracy profile, trueness and uncertainty of t
   await page.screenshot({ path: 'test-output/screenshots/accuracy-results-uncertainty.png' });
   await shot(page, 'step-7');
   await expect(page.getByText(/accuracyProfile\.|uncertainty\.byLevel|trueness\./)).toHaveCount(0);
+
+  // The review page shares the result displays, and lists the design as entered.
+  const studyId = /\/studies\/([^/]+)\/edit/.exec(page.url())![1];
+  await page.goto(`/studies/${studyId}`);
+  await expect(plot(page, /^Accuracy profile: relative bias and 95 %/)).toBeVisible({ timeout: 120_000 });
+  await expect(page.getByRole('table', { name: 'Measurement uncertainty by level' })).toContainText('L3');
+  await expect(page.getByTestId('trueness-words')).toContainText('certified 7.5 mg/L');
+  await page.getByRole('tab', { name: 'Data' }).click();
+  await expect(page.getByRole('table', { name: 'Accuracy design' })).toContainText('day 3');
+  await expect(page.getByRole('table', { name: 'Reference material' })).toContainText('7.5');
+  await expect(page.getByText('Accuracy profile: β 95 %, acceptance limits ±15 %')).toBeVisible();
+  await shot(page, 'review-data');
 });
