@@ -1,4 +1,4 @@
-import { MODELS, WEIGHTINGS, type CalibrationModel, type Weighting } from '@meritline/shared';
+import { accuracyProfileErrors, MODELS, WEIGHTINGS, type AccuracyItem, type CalibrationModel, type Weighting } from '@meritline/shared';
 import { IMPORT_SECTIONS, type ImportSection } from '../api/types';
 import { newRow, rowProblems, sectionColumns, type GridRow, type SectionUnits } from './grid-sections';
 import { isNotDetected, parseDecimal } from './parse-number';
@@ -178,15 +178,31 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
   const massFraction = parseDecimal(settings.massFraction);
   if (massFraction !== null && massFraction > 0 && massFraction <= 1) data.massFraction = massFraction;
 
-  const accuracy = usableRows('accuracy', sheets.accuracy).map((row) => ({
+  const accuracy = accuracyItems(sheets.accuracy);
+  const complete = accuracy.length > 0 && accuracyDesignProblems(accuracy).length === 0;
+  if (complete) data.accuracy = accuracy;
+  Object.assign(data, accuracyOptionsToData(settings.accuracy, complete));
+  return data;
+}
+
+export function accuracyItems(rows: readonly GridRow[]): AccuracyItem[] {
+  return usableRows('accuracy', rows).map((row) => ({
     level: row.cells.level.trim(),
     series: row.cells.series.trim(),
     nominal: num(row.cells.nominal),
     found: num(row.cells.found),
   }));
-  if (accuracy.length > 0) data.accuracy = accuracy;
-  Object.assign(data, accuracyOptionsToData(settings.accuracy, accuracy.length > 0));
-  return data;
+}
+
+/**
+ * What keeps an accuracy design from being saved: series or replicates missing, unbalanced series, a level
+ * with two nominal values. The server refuses such a design, so the wizard holds it back while it is typed;
+ * fewer than 3 levels is only unfinished and is saved.
+ */
+export function accuracyDesignProblems(items: readonly AccuracyItem[]): string[] {
+  return accuracyProfileErrors(items)
+    .filter((e) => e.code !== 'too_few_levels')
+    .map((e) => e.message.charAt(0).toUpperCase() + e.message.slice(1));
 }
 
 /** What is wrong with each accuracy option as typed, by option; empty options are fine (the method version's apply). */

@@ -1,7 +1,7 @@
 import { DEFAULT_ACCURACY_BETA, DEFAULT_ACCURACY_LAMBDA_PCT, DEFAULT_COVERAGE_FACTOR } from '@meritline/shared';
-import { Field, Fieldset, Grid, Heading, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Alert, Field, Fieldset, Grid, Heading, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { AccuracyProfilePlot, formatNumber, formatPercent, validityWords } from '@/components/study-results';
-import { accuracyOptionProblems, type AccuracyOptions } from '../../utils/study-sheets';
+import { accuracyDesignProblems, accuracyItems, accuracyOptionProblems, type AccuracyOptions } from '../../utils/study-sheets';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
 import { setSheet } from './exclusion';
@@ -53,6 +53,7 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
   const profile = live.result?.accuracyProfile;
   const uncertainty = live.result?.uncertainty;
   const trueness = live.result?.trueness;
+  const designProblems = accuracyDesignProblems(accuracyItems(draft.data.sheets.accuracy));
   const betaChoice = options.beta.trim() === '' ? '' : String(Number(options.beta));
 
   return (
@@ -78,6 +79,18 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
             prepareImport={prepareImport}
             onImported={adopt}
           />
+          {designProblems.length > 0 && (
+            <Alert.Root status="warning" data-testid="accuracy-design-problems">
+              <Alert.Indicator />
+              <Alert.Content>
+                <Alert.Title>The accuracy results are not saved until the design is complete</Alert.Title>
+                {designProblems.slice(0, 5).map((problem) => (
+                  <Alert.Description key={problem}>{problem}.</Alert.Description>
+                ))}
+                <Alert.Description>Until then they stay in this window only.</Alert.Description>
+              </Alert.Content>
+            </Alert.Root>
+          )}
         </Stack>
 
         <Fieldset.Root disabled={!editable}>
