@@ -42,6 +42,20 @@ test('the demo analyst reads the accuracy profile, trueness and uncertainty of t
   await expect(plot(page, /^Accuracy profile: relative bias/)).toBeVisible({ timeout: 120_000 });
   await shot(page, 'step-6');
 
+  // A replicate removed leaves series of unequal size: the step says why, and nothing is saved until the row is back.
+  await grid.getByRole('button', { name: 'Remove row 27' }).click();
+  const problems = page.getByTestId('accuracy-design-problems');
+  await expect(problems).toContainText('Level L3: every series must have the same number of replicates');
+  await expect(page.getByTestId('save-status')).toContainText('Not saved: complete the accuracy design', { timeout: 20_000 });
+  await problems.scrollIntoViewIfNeeded();
+  await page.screenshot({ path: 'test-output/screenshots/accuracy-step-6-incomplete.png' });
+  await grid.getByRole('textbox', { name: 'Level, row 27' }).fill('L3');
+  await grid.getByRole('textbox', { name: 'Series (day, analyst, instrument), row 27' }).fill('day 3');
+  await grid.getByRole('textbox', { name: 'Nominal, row 27' }).fill('10');
+  await grid.getByRole('textbox', { name: 'Found, row 27' }).fill('9,96');
+  await expect(problems).toBeHidden();
+  await expect(live).toContainText('Valid from');
+
   // β = 95 % widens the tolerance limits: the validity domain shrinks, at once in the browser.
   await page.getByLabel('β, expected proportion of results inside the tolerance limits').selectOption('0.95');
   await expect(live).toContainText('β = 95 %');

@@ -196,8 +196,8 @@ export function accuracyItems(rows: readonly GridRow[]): AccuracyItem[] {
 
 /**
  * What keeps an accuracy design from being saved: series or replicates missing, unbalanced series, a level
- * with two nominal values. The server refuses such a design, so the wizard holds it back while it is typed;
- * fewer than 3 levels is only unfinished and is saved.
+ * with two nominal values. The server refuses such a design, so the wizard saves nothing while it is typed
+ * and leaves it out of the live figures; fewer than 3 levels is only unfinished and is saved.
  */
 export function accuracyDesignProblems(items: readonly AccuracyItem[]): string[] {
   return accuracyProfileErrors(items)

@@ -83,11 +83,13 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
             <Alert.Root status="warning" data-testid="accuracy-design-problems">
               <Alert.Indicator />
               <Alert.Content>
-                <Alert.Title>The accuracy results are not saved until the design is complete</Alert.Title>
+                <Alert.Title>Nothing is saved until the accuracy design is complete</Alert.Title>
                 {designProblems.slice(0, 5).map((problem) => (
                   <Alert.Description key={problem}>{problem}.</Alert.Description>
                 ))}
-                <Alert.Description>Until then they stay in this window only.</Alert.Description>
+                <Alert.Description>
+                  Until then your changes stay in this window and the saved study keeps its last complete design.
+                </Alert.Description>
               </Alert.Content>
             </Alert.Root>
           )}
