@@ -238,6 +238,10 @@ describe('accuracy profile, trueness and measurement uncertainty through the API
     const text = pdftotext(file);
     expect(text).toContain('5 Accuracy profile, trueness and measurement uncertainty');
     expect(text).toContain('5.1 Accuracy profile');
+    // The summary names the validity domain too.
+    expect(text).toContain(
+      `valid from ${formatNumber(accuracyProfile.validFrom, 4)} mg/L to ${formatNumber(accuracyProfile.validTo, 4)} mg/L (β 80.0 %, ±10.0 %)`,
+    );
     expect(text).toContain('5.2 Trueness against a reference material');
     expect(text).toContain('5.3 Measurement uncertainty');
     expect(text).toContain(
