@@ -317,7 +317,7 @@ describe('importing CSV and XLSX files into a study', () => {
         .get('/api/import-templates/calibrants')
         .set(await auth(DEMO.reviewer))
         .expect(404);
-      expect(missing.body.message).toMatch(/standards, blanks, recovery, precision, unknowns, lowSpikes/);
+      expect(missing.body.message).toMatch(/standards, blanks, recovery, precision, accuracy, unknowns, lowSpikes/);
     });
   });
 });

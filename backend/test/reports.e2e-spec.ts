@@ -244,10 +244,11 @@ describe('validation reports', () => {
         '2 Calibration',
         '3 Detection and quantitation limits',
         '4 Recovery and precision',
-        '5 Outliers and exclusions',
-        '6 Statistical methods and references',
-        '7 Electronic signatures and review',
-        '8 Caution',
+        '5 Accuracy profile, trueness and measurement uncertainty',
+        '6 Outliers and exclusions',
+        '7 Statistical methods and references',
+        '8 Electronic signatures and review',
+        '9 Caution',
       ]) {
         expect(text).toContain(heading);
       }

@@ -35,6 +35,7 @@ const TITLES = {
   caffeineInitial: 'Caffeine by HPLC-UV: initial validation',
   caffeineSonication: 'Caffeine by HPLC-UV: degassing by sonication',
   caffeineDetector: 'Caffeine by HPLC-UV: diode-array detector',
+  dyeAccuracy: 'Tartrazine in soft drinks: accuracy profile and uncertainty',
 };
 
 function completeData() {
@@ -105,7 +106,7 @@ describe('validation studies', () => {
         .get('/api/studies')
         .set(await auth(DEMO.reviewer))
         .expect(200);
-      expect(res.body).toMatchObject({ total: 9, page: 1, pageSize: 20 });
+      expect(res.body).toMatchObject({ total: 10, page: 1, pageSize: 20 });
       expect(res.body.items.map((s: Row) => s.title).sort()).toEqual(Object.values(TITLES).sort());
       for (const item of res.body.items) {
         expect(item).not.toHaveProperty('data');
@@ -134,7 +135,7 @@ describe('validation studies', () => {
       );
       expect(titles).toEqual([...Object.values(TITLES)].sort((a, b) => (a < b ? -1 : 1)));
       const second = await t.http().get('/api/studies?sort=title&order=asc&pageSize=2&page=2').set(headers).expect(200);
-      expect(second.body).toMatchObject({ total: 9, page: 2, pageSize: 2 });
+      expect(second.body).toMatchObject({ total: 10, page: 2, pageSize: 2 });
       expect(second.body.items.map((s: Row) => s.title)).toEqual(titles.slice(2, 4));
       expect((await t.http().get('/api/studies?pageSize=2&page=6').set(headers)).body.items).toEqual([]);
       const byCreation = (await t.http().get('/api/studies?sort=createdAt&order=desc').set(headers)).body.items.map(
@@ -148,16 +149,16 @@ describe('validation studies', () => {
     it('should filter by status, method, version, author, mine, title text and date range', async () => {
       const analyst = await auth(DEMO.analyst);
       const count = async (query: string) => (await t.http().get(`/api/studies?${query}`).set(analyst).expect(200)).body.total;
-      expect(await count('status=draft')).toBe(2);
+      expect(await count('status=draft')).toBe(3);
       expect(await count(`methodVersionId=${versions['nitrate v2']}`)).toBe(2);
       const nitrate = (await t.http().get(`/api/method-versions/${versions['nitrate v2']}`).set(analyst)).body.method.id;
       expect(await count(`methodId=${nitrate}`)).toBe(3);
-      expect(await count('mine=true')).toBe(5);
+      expect(await count('mine=true')).toBe(6);
       const tomasz = (seeded[TITLES.pesticideReturned].author as Row).id;
       expect(await count(`authorId=${tomasz}`)).toBe(4);
       expect(await count('q=NITRATE')).toBe(3);
       expect(await count('q=%25')).toBe(0);
-      expect(await count('status=draft&mine=true')).toBe(1);
+      expect(await count('status=draft&mine=true')).toBe(2);
       const all = (await t.http().get('/api/studies?pageSize=100').set(analyst)).body.items as { updatedAt: string }[];
       const day = (offset: number) => new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10);
       expect(await count(`from=${day(-3)}`)).toBe(all.filter((s) => s.updatedAt.slice(0, 10) >= day(-3)).length);
@@ -195,7 +196,7 @@ describe('validation studies', () => {
           .set(await auth(email))
           .send(body)
           .expect(403);
-      expect(studyCount()).toBe(9);
+      expect(studyCount()).toBe(10);
     });
 
     it('should refuse a retired or unknown method version with 422 on methodVersionId', async () => {
@@ -205,7 +206,7 @@ describe('validation studies', () => {
       ]);
       const unknown = await create({ methodVersionId: UNKNOWN_ID, title: 'Nowhere', data: completeData() }, 422);
       expect(unknown.body.errors[0]).toMatchObject({ field: 'methodVersionId', code: 'not_found' });
-      expect(studyCount()).toBe(9);
+      expect(studyCount()).toBe(10);
     });
 
     it('should answer missing fields, bad meta and malformed study data with 422 field messages, saving nothing', async () => {
@@ -241,7 +242,7 @@ describe('validation studies', () => {
           expect.objectContaining({ field: 'recovery[0].added', code: 'not_positive' }),
         ]),
       );
-      expect(studyCount()).toBe(9);
+      expect(studyCount()).toBe(10);
     });
 
     it('should keep an incomplete draft with no result and the engine’s reasons', async () => {

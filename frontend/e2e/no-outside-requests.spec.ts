@@ -39,6 +39,14 @@ test('the study results, a run and the control chart draw their plots without as
   await expectPlotStaysInside(page, /^Calibration plot/);
   await expectPlotStaysInside(page, /^Residual plot/);
 
+  await mainNavigation(page).getByRole('link', { name: 'Validation studies' }).click();
+  await studies.getByRole('link', { name: 'Resume Tartrazine in soft drinks: accuracy profile and uncertainty' }).click();
+  await page
+    .getByRole('navigation', { name: 'Study steps' })
+    .getByRole('link', { name: /Results/ })
+    .click();
+  await expectPlotStaysInside(page, /^Accuracy profile/);
+
   await mainNavigation(page).getByRole('link', { name: 'Routine batches' }).click();
   const runs = page.getByRole('table', { name: 'Routine runs' });
   await runs.getByRole('row').filter({ hasText: 'Accepted' }).first().getByRole('link').first().click();

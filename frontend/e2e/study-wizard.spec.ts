@@ -75,7 +75,7 @@ async function openStep(page: Page, name: string, number: number) {
     .getByRole('navigation', { name: 'Study steps' })
     .getByRole('link', { name: new RegExp(name) })
     .click();
-  await expect(page.getByText(`Validation study · step ${number} of 7: ${name}`)).toBeVisible();
+  await expect(page.getByText(`Validation study · step ${number} of 8: ${name}`)).toBeVisible();
 }
 
 async function pasteInto(page: Page, text: string, rows: number) {
@@ -166,8 +166,8 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await expect(saveStatus(page)).toContainText('Saved', { timeout: 20_000 });
   await shot(page, 5);
 
-  // Step 6: every figure, the plots, the verdict; the server confirms the browser's figures.
-  await openStep(page, 'Results', 6);
+  // Step 7: every figure, the plots, the verdict; the server confirms the browser's figures.
+  await openStep(page, 'Results', 7);
   await expect(page.getByTestId('verdict-summary')).toContainText('acceptance criteria');
   await expect(
     page
@@ -195,8 +195,8 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await expect(saveStatus(page)).toContainText('Saved', { timeout: 20_000 });
   await shot(page, 6);
 
-  // Step 7: the conclusion, with the caution; the draft saves itself.
-  await openStep(page, 'Conclusion', 7);
+  // Step 8: the conclusion, with the caution; the draft saves itself.
+  await openStep(page, 'Conclusion', 8);
   await page
     .getByLabel('Your conclusion')
     .fill('Linear from 1 to 12 mg/L after excluding one reading with a bubble; recovery and precision meet the assay criteria.');
@@ -215,6 +215,6 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   await expect(
     page.getByRole('table', { name: 'Calibration standards' }).getByText('Excluded: Bubble in the cell, seen after the reading'),
   ).toBeVisible();
-  await openStep(page, 'Conclusion', 7);
+  await openStep(page, 'Conclusion', 8);
   await expect(page.getByLabel('Your conclusion')).toHaveValue(/Linear from 1 to 12 mg\/L/);
 });

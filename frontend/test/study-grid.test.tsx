@@ -2,7 +2,13 @@ import { fireEvent, screen, within } from '@testing-library/react';
 import { useState } from 'react';
 import { DataGrid } from '@/features/studies/components/grid/data-grid';
 import { cellProblem, newRow, sectionColumns, type GridRow } from '@/features/studies/utils/grid-sections';
-import { dataToDraft, draftToData } from '@/features/studies/utils/study-sheets';
+import {
+  accuracyDesignProblems,
+  accuracyItems,
+  accuracyOptionProblems,
+  dataToDraft,
+  draftToData,
+} from '@/features/studies/utils/study-sheets';
 import { renderWithProviders } from './render';
 
 // Invented numbers of the demo laboratory; what is checked is the handling of the cells.
@@ -104,5 +110,42 @@ describe('what the grid sends', () => {
       precision: [{ group: 'day 1', value: 5.02 }],
     };
     expect(draftToData(dataToDraft(stored))).toEqual(stored);
+  });
+
+  it('round-trips the accuracy design, the reference material and the options; holds back an unbalanced design', () => {
+    // Invented numbers: 3 levels × 2 series × 2 replicates.
+    const accuracy = [1, 5, 10].flatMap((nominal) =>
+      ['day 1', 'day 2'].flatMap((series) => [0.99, 1.01].map((f) => ({ level: `L${nominal}`, series, nominal, found: nominal * f }))),
+    );
+    const stored = {
+      model: 'linear',
+      weighting: 'none',
+      confidence: 0.95,
+      alpha: 0.05,
+      standards: [],
+      accuracy,
+      accuracyProfile: { beta: 0.95, lambda: 15 },
+      uncertainty: { coverageFactor: 2, relativeAbove: 2 },
+      referenceMaterial: { certified: 7.5, uCertified: 0.06, results: [7.58, 7.6] },
+    };
+    const draft = dataToDraft(stored);
+    expect(draft.settings.accuracy.referenceResults).toBe('7.58; 7.6');
+    expect(draftToData(draft)).toEqual(stored);
+
+    // One replicate removed: a series of one; the server would refuse the design, so it waits in the grid (with its options).
+    draft.sheets.accuracy = draft.sheets.accuracy.slice(1);
+    const held = draftToData(draft);
+    expect(held.accuracy).toBeUndefined();
+    expect(held.accuracyProfile).toBeUndefined();
+    expect(held.referenceMaterial).toEqual(stored.referenceMaterial);
+    expect(accuracyDesignProblems(accuracyItems(draft.sheets.accuracy))).toEqual(['Level L1: every series needs at least 2 replicates']);
+
+    // A reference material with one result or a bad number is not sent; the field says what is wrong.
+    draft.settings.accuracy = { ...draft.settings.accuracy, referenceResults: '7,58; x', lambda: '0' };
+    expect(draftToData(draft).referenceMaterial).toBeUndefined();
+    expect(accuracyOptionProblems(draft.settings.accuracy)).toMatchObject({
+      referenceResults: 'Write numbers separated by spaces or semicolons',
+      lambda: 'λ lies above 0 and at most 100 %',
+    });
   });
 });

@@ -96,6 +96,8 @@ export function evaluateStudy(input: unknown): EvaluationResult {
     verdict: { criteria: [], pass: null },
     warnings,
   };
+  // Before the verdict, so criteria can name the uncertainty, accuracy-profile and trueness figures.
+  Object.assign(result, uncertaintySections(study, result, warn));
   result.range = workingRange(
     result,
     criteria,
@@ -103,7 +105,6 @@ export function evaluateStudy(input: unknown): EvaluationResult {
     warn,
   );
   result.verdict = verdict(result, criteria);
-  Object.assign(result, uncertaintySections(study, result, warn));
   guardFinite({ ...result, warnings: [] }, '', warn);
   return result;
 }

@@ -4,6 +4,7 @@ export * from './run-status.js';
 export * from './method-change.js';
 export * from './catalogue/index.js';
 export * from './password-policy.js';
+export { withVersionOptions, DEFAULT_ACCURACY_BETA, DEFAULT_ACCURACY_LAMBDA_PCT, DEFAULT_COVERAGE_FACTOR } from './version-options.js';
 export { ENGINE_VERSION } from './version.js';
 export { parseStudy } from './validate.js';
 export { evaluateStudy } from './evaluate.js';

@@ -1,4 +1,4 @@
-import type { CriterionOp, DetectionApproach, Units } from '@meritline/shared';
+import { figureUnit, findFigure, type CriterionOp, type DetectionApproach, type Units } from '@meritline/shared';
 import { formatFixed, formatNumber, formatPercentValue, formatPValue } from './pdf/index.js';
 
 export const APPROACH_LABELS: Record<DetectionApproach, string> = {
@@ -80,6 +80,9 @@ export interface FigureDescription {
 export function describeFigure(figure: string, units: Units): FigureDescription {
   const path = figure.replace(/\[(\w+)\]/g, '.$1');
   const parts = path.split('.');
+  const catalogued = ['accuracyProfile', 'trueness', 'uncertainty'].includes(parts[0]) ? findFigure(path) : undefined;
+  if (catalogued)
+    return { label: catalogued.label, unit: figureUnit(path, units) ?? null, kind: catalogued.unit === 'percent' ? 'percent' : 'plain' };
   const leaf = parts.at(-1) ?? path;
   const kind: FigureKind = /Pct$|^rsd/.test(leaf)
     ? 'percent'

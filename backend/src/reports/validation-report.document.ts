@@ -2,6 +2,7 @@ import { createHash } from 'node:crypto';
 import { canonicalJson } from '@meritline/shared';
 import { createPdfComposer } from './pdf/index.js';
 import type { ReportContent } from './report-content.js';
+import { accuracyUncertaintySection } from './sections/accuracy-uncertainty.js';
 import { calibrationSection } from './sections/calibration.js';
 import { coverPage } from './sections/cover.js';
 import { detectionSection } from './sections/detection.js';
@@ -54,6 +55,7 @@ export async function renderValidationReport(content: ReportContent): Promise<Bu
   calibrationSection(pdf, content);
   detectionSection(pdf, content);
   recoveryPrecisionSection(pdf, content);
+  accuracyUncertaintySection(pdf, content);
   outliersSection(pdf, content);
   methodsSection(pdf, content, createHash('sha256').update(studyData).digest('hex'));
   signaturesSection(pdf, content);

@@ -1,6 +1,14 @@
 import { Logger } from '@nestjs/common';
 import { createHash } from 'node:crypto';
-import { canonicalJson, ENGINE_VERSION, evaluateStudy, parseStudy, StudyValidationError, type StudyFieldError } from '@meritline/shared';
+import {
+  canonicalJson,
+  ENGINE_VERSION,
+  evaluateStudy,
+  parseStudy,
+  StudyValidationError,
+  withVersionOptions,
+  type StudyFieldError,
+} from '@meritline/shared';
 import type { MethodVersion } from '../methods/method-version.entity.js';
 import type { Method } from '../methods/method.entity.js';
 
@@ -29,11 +37,12 @@ export function dataHash(data: StudyData): string {
 
 /**
  * The study data as stored: the method version's acceptance criteria (the version owns them, so a
- * study cannot loosen them) and the method's units unless the data name their own.
+ * study cannot loosen them), the method's units unless the data name their own, and the version's
+ * accuracy-profile β and λ and coverage factor where the study states none.
  */
 export function withMethodDefaults(data: StudyData, version: MethodVersion, method: Method): StudyData {
   return {
-    ...data,
+    ...withVersionOptions(data, version.settings),
     units: data.units ?? { x: method.xUnit, y: method.yUnit },
     criteria: version.criteria.map(({ figure, op, value }) => ({ figure, op, value })),
   };

@@ -1,6 +1,7 @@
 import type { ImportPreviewDto, ImportSection } from '@meritline/shared';
 import {
   headerAliases,
+  type AccuracyItem,
   type FieldError,
   type LowSpikes,
   type PrecisionResult,
@@ -13,7 +14,7 @@ import { MAX_IMPORT_ROWS, type Cell, type ImportTable, type TableRow } from './i
 /** Target field → source column header. */
 export type ImportMapping = Record<string, string>;
 
-export type ImportedRows = StandardPoint[] | number[] | RecoveryItem[] | PrecisionResult[] | UnknownSample[] | LowSpikes[];
+export type ImportedRows = StandardPoint[] | number[] | RecoveryItem[] | PrecisionResult[] | AccuracyItem[] | UnknownSample[] | LowSpikes[];
 
 type FieldKind = 'number' | 'text' | 'number-or-not-detected';
 
@@ -51,6 +52,12 @@ const SECTION_FIELDS: Record<ImportSection, ImportField[]> = {
     field('group', 'series', 'text', true, headerAliases('precision', 'group')),
     field('value', 'result', 'number', true, headerAliases('precision', 'value')),
   ],
+  accuracy: [
+    field('level', 'level', 'text', true, headerAliases('accuracy', 'level')),
+    field('series', 'series', 'text', true, headerAliases('accuracy', 'series')),
+    field('nominal', 'nominal value', 'number', true, headerAliases('accuracy', 'nominal')),
+    field('found', 'result found', 'number', true, headerAliases('accuracy', 'found')),
+  ],
   unknowns: [
     field('id', 'sample', 'text', true, headerAliases('unknowns', 'id')),
     field('y', 'response', 'number', false, headerAliases('unknowns', 'y')),
@@ -85,6 +92,11 @@ const TEMPLATE_ROWS: Record<ImportSection, string[][]> = {
     ['group', 'value'],
     ['day 1', '5.02'],
     ['day 1', '4.97'],
+  ],
+  accuracy: [
+    ['level', 'series', 'nominal', 'found'],
+    ['L1', 'day 1', '1.0', '0.984'],
+    ['L1', 'day 1', '1.0', '1.012'],
   ],
   unknowns: [
     ['id', 'y1', 'y2', 'dilution'],
@@ -239,6 +251,8 @@ function buildRows(
       }));
     case 'precision':
       return records.map((r) => ({ group: text(r.group), value: num(r.value) }));
+    case 'accuracy':
+      return records.map((r) => ({ level: text(r.level), series: text(r.series), nominal: num(r.nominal), found: num(r.found) }));
     case 'unknowns': {
       const replicateKeys = Object.keys(mapping)
         .filter((key) => key === 'y' || REPLICATE_KEY.test(key))

@@ -14,6 +14,12 @@ export interface MethodVersionSettings {
   onePointMaxInterceptPct: number;
   /** Mean recoveries of two versions within this many percentage points count as equivalent (default 5). */
   recoveryEquivalenceMarginPct?: number;
+  /** β of the accuracy profile's tolerance limits (0.80 unless set; 0.95 is the stricter common choice). */
+  accuracyBeta?: number;
+  /** Acceptance limits of the accuracy profile, ±λ % (10 unless set). */
+  accuracyLambdaPct?: number;
+  /** Coverage factor k of the expanded uncertainty (2 unless set). */
+  coverageFactor?: number;
 }
 
 /** An acceptance criterion as a method version states it; `label` names it for people. */

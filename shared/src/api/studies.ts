@@ -76,7 +76,7 @@ export interface StudyPageDto {
 export const STUDY_SORTS = ['updatedAt', 'createdAt', 'title', 'status'] as const;
 export type StudySort = (typeof STUDY_SORTS)[number];
 
-export const IMPORT_SECTIONS = ['standards', 'blanks', 'recovery', 'precision', 'unknowns', 'lowSpikes'] as const;
+export const IMPORT_SECTIONS = ['standards', 'blanks', 'recovery', 'precision', 'accuracy', 'unknowns', 'lowSpikes'] as const;
 export type ImportSection = (typeof IMPORT_SECTIONS)[number];
 
 export interface ImportPreviewDto {

@@ -17,6 +17,9 @@ const DETECTION = 'Detection and quantitation limits';
 const RECOVERY = 'Recovery';
 const PRECISION = 'Precision';
 const RANGE = 'Working range (judged at every level)';
+const ACCURACY_PROFILE = 'Accuracy profile';
+const TRUENESS = 'Trueness against a reference material';
+const UNCERTAINTY = 'Measurement uncertainty';
 
 /** Every figure a criterion can name, with the words people read. */
 export const FIGURES: readonly FigureEntry[] = [
@@ -57,7 +60,52 @@ export const FIGURES: readonly FigureEntry[] = [
   { key: 'range.rePct', label: 'Back-calculated deviation at every level', unit: 'percent', section: RANGE },
   { key: 'range.rsdPct', label: 'RSD at every level', unit: 'percent', section: RANGE },
   { key: 'range.recoveryPct', label: 'Mean recovery at every level', unit: 'percent', section: RANGE },
+  { key: 'accuracyProfile.validFrom', label: 'Lower limit of quantitation (accuracy profile)', unit: 'x', section: ACCURACY_PROFILE },
+  { key: 'accuracyProfile.validTo', label: 'Upper limit of quantitation (accuracy profile)', unit: 'x', section: ACCURACY_PROFILE },
+  {
+    key: 'accuracyProfile.beta',
+    label: 'β, expected proportion of results inside the tolerance limits',
+    unit: 'none',
+    section: ACCURACY_PROFILE,
+  },
+  { key: 'accuracyProfile.lambda', label: 'Acceptance limits ±λ', unit: 'percent', section: ACCURACY_PROFILE },
+  { key: 'trueness.mean', label: 'Mean found on the reference material', unit: 'x', section: TRUENESS },
+  { key: 'trueness.certified', label: 'Certified value', unit: 'x', section: TRUENESS },
+  { key: 'trueness.difference', label: 'Difference from the certified value', unit: 'x', section: TRUENESS },
+  { key: 'trueness.differencePct', label: 'Difference from the certified value, relative', unit: 'percent', section: TRUENESS },
+  { key: 'trueness.uDifference', label: 'Standard uncertainty of the difference', unit: 'x', section: TRUENESS },
+  { key: 'trueness.UDifference', label: 'Expanded uncertainty of the difference (k = 2)', unit: 'x', section: TRUENESS },
+  { key: 'uncertainty.coverageFactor', label: 'Coverage factor k', unit: 'none', section: UNCERTAINTY },
+  { key: 'uncertainty.relative.UPct', label: 'Expanded uncertainty U, relative (largest level)', unit: 'percent', section: UNCERTAINTY },
+  {
+    key: 'uncertainty.relative.ucPct',
+    label: 'Combined standard uncertainty u_c, relative (largest level)',
+    unit: 'percent',
+    section: UNCERTAINTY,
+  },
+  { key: 'uncertainty.absolute.U', label: 'Expanded uncertainty U, absolute (largest level)', unit: 'x', section: UNCERTAINTY },
+  { key: 'uncertainty.absolute.uc', label: 'Combined standard uncertainty u_c, absolute (largest level)', unit: 'x', section: UNCERTAINTY },
 ];
+
+/** Per-level figures: the key's last part → its words and unit. */
+const UNCERTAINTY_LEVEL_FIGURES: Record<string, [string, FigureUnitKind]> = {
+  uRw: ['Within-laboratory reproducibility u(R_w)', 'x'],
+  uRwPct: ['Within-laboratory reproducibility u(R_w), relative', 'percent'],
+  uBias: ['Uncertainty of the bias u(bias)', 'x'],
+  uBiasPct: ['Uncertainty of the bias u(bias), relative', 'percent'],
+  uc: ['Combined standard uncertainty u_c', 'x'],
+  ucPct: ['Combined standard uncertainty u_c, relative', 'percent'],
+  U: ['Expanded uncertainty U', 'x'],
+  UPct: ['Expanded uncertainty U, relative', 'percent'],
+};
+const PROFILE_LEVEL_FIGURES: Record<string, [string, FigureUnitKind]> = {
+  biasPct: ['Relative bias', 'percent'],
+  recoveryPct: ['Mean recovery', 'percent'],
+  lowerPct: ['Lower β-expectation tolerance limit', 'percent'],
+  upperPct: ['Upper β-expectation tolerance limit', 'percent'],
+  rsdRPct: ['Repeatability RSD', 'percent'],
+  rsdIPct: ['Intermediate precision RSD', 'percent'],
+};
 
 const BY_KEY = new Map(FIGURES.map((figure) => [figure.key, figure]));
 
@@ -73,6 +121,14 @@ export function findFigure(figure: string): FigureEntry | undefined {
     const what = byLevel[2] === 'meanPct' ? 'Mean recovery' : byLevel[2] === 'rsdPct' ? 'Recovery RSD' : 'Recovery SD';
     return { key: path, label: `${what} at level ${byLevel[1]}`, unit: 'percent', section: RECOVERY };
   }
+  const uncertaintyLevel = /^uncertainty\.byLevel\.([^.]+)\.(\w+)$/.exec(path);
+  const uWords = uncertaintyLevel && UNCERTAINTY_LEVEL_FIGURES[uncertaintyLevel[2]];
+  if (uncertaintyLevel && uWords)
+    return { key: path, label: `${uWords[0]} at level ${uncertaintyLevel[1]}`, unit: uWords[1], section: UNCERTAINTY };
+  const profileLevel = /^accuracyProfile\.levels\.([^.]+)\.(\w+)$/.exec(path);
+  const pWords = profileLevel && PROFILE_LEVEL_FIGURES[profileLevel[2]];
+  if (profileLevel && pWords)
+    return { key: path, label: `${pWords[0]} at level ${profileLevel[1]} (accuracy profile)`, unit: pWords[1], section: ACCURACY_PROFILE };
   return undefined;
 }
 

@@ -45,6 +45,12 @@ export const SECTION_HEADER_ALIASES = {
     y: RESPONSE,
     dilution: ['dilution factor', 'dilution', 'df', 'dil'],
   },
+  accuracy: {
+    level: ['level', 'concentration level', 'spike level', 'fortification level'],
+    series: ['series', 'day', 'run', 'batch', 'group', 'analyst', 'instrument'],
+    nominal: ['nominal', 'target', 'expected', 'reference value', 'true value', 'added', 'spiked'],
+    found: ['found', 'measured', 'result', 'determined', 'back calculated', 'amount found'],
+  },
   lowSpikes: {
     spiked: ['low level spike result', 'spiked', 'spike', 'spiked result', 'spiked sample', 'low spike'],
     blank: ['blank result', 'blank', 'blanks', 'method blank'],

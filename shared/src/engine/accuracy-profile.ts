@@ -1,5 +1,6 @@
 import { StudyValidationError, type StudyFieldError } from '../errors.js';
 import type { AccuracyItem, AccuracyProfileLevel, AccuracyProfileOptions, AccuracyProfileResult } from '../uncertainty-types.js';
+import { DEFAULT_ACCURACY_BETA, DEFAULT_ACCURACY_LAMBDA_PCT } from '../version-options.js';
 import { studentQuantile } from './distributions.js';
 import { groupBy, mean } from './stats.js';
 
@@ -103,8 +104,8 @@ function crossing(x0: number, g0: number, x1: number, g1: number): number {
 export function accuracyProfile(items: readonly AccuracyItem[], options: AccuracyProfileOptions = {}): AccuracyProfileResult {
   const errors = accuracyProfileErrors(items, options);
   if (errors.length > 0) throw new StudyValidationError(errors);
-  const beta = options.beta ?? 0.8;
-  const lambda = options.lambda ?? 10;
+  const beta = options.beta ?? DEFAULT_ACCURACY_BETA;
+  const lambda = options.lambda ?? DEFAULT_ACCURACY_LAMBDA_PCT;
   const levels: AccuracyProfileLevel[] = [...groupBy(items, (i) => i.level).entries()]
     .map(([level, list]) => {
       const nominal = list[0].nominal;

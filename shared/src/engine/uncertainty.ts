@@ -8,6 +8,7 @@ import type {
   TruenessResult,
   UncertaintyResult,
 } from '../uncertainty-types.js';
+import { DEFAULT_COVERAGE_FACTOR } from '../version-options.js';
 import { mean, sd } from './stats.js';
 
 /** Root mean square of the bias values. */
@@ -34,7 +35,7 @@ export function combineTopDown(uRw: number, uBias: number, coverageFactor = 2): 
 
 /** Top-down uncertainty per level; U stated absolute below `relativeAbove` and relative at and above it. */
 export function topDownUncertainty(levels: readonly TopDownLevel[], options: TopDownOptions = {}): UncertaintyResult {
-  const k = options.coverageFactor ?? 2;
+  const k = options.coverageFactor ?? DEFAULT_COVERAGE_FACTOR;
   if (!(k > 0))
     throw StudyValidationError.single('uncertainty.coverageFactor', 'not_positive', 'the coverage factor must be greater than zero');
   const relativeAbove = options.relativeAbove ?? null;

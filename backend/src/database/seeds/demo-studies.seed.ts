@@ -19,6 +19,7 @@ export const DEMO_STUDIES = {
   caffeineInitial: 'Caffeine by HPLC-UV: initial validation',
   caffeineSonication: 'Caffeine by HPLC-UV: degassing by sonication',
   caffeineDetector: 'Caffeine by HPLC-UV: diode-array detector',
+  dyeAccuracy: 'Tartrazine in soft drinks: accuracy profile and uncertainty',
 } as const;
 
 /** Deterministic noise (mulberry32 and Box–Muller), so every demo database holds the same invented numbers. */
@@ -49,6 +50,13 @@ interface Scenario {
   precision?: { days: number; n: number; mean: number; rsdPct: number; betweenRsdPct: number };
   unknowns?: { id: string; x: number; m: number; dilution?: number }[];
   lowSpikes?: { level: number; n: number; sd: number; blanks: (number | null)[] };
+  /** Levels × series × replicates of samples of known content; RSDs in %. */
+  accuracy?: {
+    levels: { level: string; nominal: number; biasPct: number; rsdPct: number; betweenRsdPct: number }[];
+    series: number;
+    replicates: number;
+  };
+  referenceMaterial?: { certified: number; uCertified: number; biasPct: number; rsdPct: number; n: number };
   extra?: Partial<StudyData>;
 }
 
@@ -92,6 +100,28 @@ function studyData(s: Scenario): StudyData {
       ),
       ...(dilution ? { dilution } : {}),
     }));
+  }
+  if (s.accuracy) {
+    const { levels, series, replicates } = s.accuracy;
+    data.accuracy = levels.flatMap(({ level, nominal, biasPct, rsdPct, betweenRsdPct }) =>
+      Array.from({ length: series }, (_, day) => {
+        const dayMean = nominal * (1 + (biasPct + noise(betweenRsdPct)) / 100);
+        return Array.from({ length: replicates }, () => ({
+          level,
+          series: `day ${day + 1}`,
+          nominal,
+          found: round(dayMean + (nominal * noise(rsdPct)) / 100, s.xDecimals),
+        }));
+      }).flat(),
+    );
+  }
+  if (s.referenceMaterial) {
+    const { certified, uCertified, biasPct, rsdPct, n } = s.referenceMaterial;
+    data.referenceMaterial = {
+      certified,
+      uCertified,
+      results: Array.from({ length: n }, () => round(certified * (1 + (biasPct + noise(rsdPct)) / 100), s.xDecimals)),
+    };
   }
   if (s.lowSpikes) {
     const { level, n, sd, blanks } = s.lowSpikes;
@@ -154,6 +184,26 @@ const tartrazine: Scenario = {
     { id: 'S-3102 lemon drink', x: 18.7, m: 3, dilution: 5 },
     { id: 'S-3103 sports drink', x: 6.4, m: 3 },
   ],
+};
+
+/** Tartrazine with an accuracy design: the lowest level scatters too much for ±10 %, so the profile starts above it. */
+const tartrazineAccuracy: Scenario = {
+  ...tartrazine,
+  seed: 3120,
+  recovery: undefined,
+  precision: undefined,
+  unknowns: [{ id: 'S-3140 orange soda', x: 24.6, m: 3, dilution: 5 }],
+  accuracy: {
+    series: 3,
+    replicates: 3,
+    levels: [
+      { level: 'L1', nominal: 1, biasPct: 3.5, rsdPct: 4.5, betweenRsdPct: 3 },
+      { level: 'L2', nominal: 5, biasPct: 0.8, rsdPct: 0.9, betweenRsdPct: 0.6 },
+      { level: 'L3', nominal: 10, biasPct: -0.4, rsdPct: 0.7, betweenRsdPct: 0.5 },
+    ],
+  },
+  referenceMaterial: { certified: 7.5, uCertified: 0.06, biasPct: 0.6, rsdPct: 0.8, n: 5 },
+  extra: { uncertainty: { relativeAbove: 2 } },
 };
 
 const chlorpyrifos = (seed: number): Scenario => ({
@@ -356,6 +406,17 @@ const STUDIES: DemoStudy[] = [
     submittedDaysAgo: finished - 1,
     approvedDaysAgo: finished - 3,
   })),
+  {
+    title: DEMO_STUDIES.dyeAccuracy,
+    method: DEMO_METHODS.dye,
+    version: 1,
+    author: 'analyst@meritline.test',
+    status: 'draft',
+    data: studyData(tartrazineAccuracy),
+    meta: { instrument: 'UV-Vis 1, 1 cm glass cell', startedOn: isoDay(3) },
+    createdDaysAgo: 3,
+    updatedDaysAgo: 0,
+  },
 ];
 
 function isoDay(days: number): string {

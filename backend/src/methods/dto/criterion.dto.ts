@@ -17,6 +17,9 @@ const RESULT_SECTIONS = [
   'precision',
   'outliers',
   'range',
+  'accuracyProfile',
+  'trueness',
+  'uncertainty',
 ];
 const FIGURE_PATTERN = new RegExp(`^(${RESULT_SECTIONS.join('|')})(\\.[A-Za-z0-9_-]+|\\[[A-Za-z0-9_-]+\\])+$`);
 

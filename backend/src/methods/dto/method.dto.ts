@@ -28,6 +28,10 @@ export class MethodVersionSettingsViewDto implements MethodVersionSettings {
   @ApiProperty() onePointMaxInterceptPct: number;
   @ApiProperty({ required: false, description: 'Percentage points within which mean recoveries count as equivalent (5 unless set).' })
   recoveryEquivalenceMarginPct?: number;
+  @ApiProperty({ required: false, description: 'β of the accuracy profile (0.80 unless set).' }) accuracyBeta?: number;
+  @ApiProperty({ required: false, description: 'Acceptance limits of the accuracy profile, ±λ % (10 unless set).' })
+  accuracyLambdaPct?: number;
+  @ApiProperty({ required: false, description: 'Coverage factor k of the expanded uncertainty (2 unless set).' }) coverageFactor?: number;
 }
 
 export class RevalidationCoverageDto implements RevalidationCoverage {

@@ -21,6 +21,7 @@ import {
 import type { ReportContent } from '../report-content.js';
 import { traceabilitySection } from './traceability.js';
 import { confidenceWords, MODEL_WORDS, notEvaluated, plural, sectionWarnings, WEIGHTING_WORDS, xUnit, yUnit } from './common.js';
+import { numbered } from './numbering.js';
 
 const FLAG_WORDS: Record<UnknownFlag, string> = {
   belowRange: 'below the calibrated range',
@@ -47,7 +48,7 @@ function modelParagraph(pdf: PdfComposer, result: EvaluationResult, c: Calibrati
   pdf.paragraph(
     `Model: ${MODEL_WORDS[c.model]}, ${WEIGHTING_WORDS[c.weighting]}. ${plural(c.n, 'standard')} at ${plural(levels, 'level')} ` +
       `from ${formatLevel(c.xMin)} to ${formatLevel(c.xMax)} ${x} enter the fit` +
-      (c.excluded.length ? `; ${plural(c.excluded.length, 'standard')} excluded (see section 5).` : '.'),
+      (c.excluded.length ? `; ${plural(c.excluded.length, 'standard')} excluded (see section ${numbered('outliers', '').trim()}).` : '.'),
   );
   const h = result.homoscedasticity;
   if (!h) {
@@ -406,7 +407,7 @@ function samples(pdf: PdfComposer, result: EvaluationResult, x: string, y: strin
 
 export function calibrationSection(pdf: PdfComposer, content: ReportContent): void {
   const result = content.study.result;
-  pdf.heading('2  Calibration');
+  pdf.heading(numbered('calibration', 'Calibration'));
   const c = result?.calibration;
   if (!result || !c) {
     notEvaluated(pdf, result, ['calibration']);

@@ -3,6 +3,7 @@ import { formatNumber, NOT_AVAILABLE, withUnit, type PdfComposer, type TableRow 
 import type { ReportContent } from '../report-content.js';
 import { APPROACH_LABELS } from '../report-figures.js';
 import { notEvaluated, sectionWarnings, xUnit, yUnit } from './common.js';
+import { numbered } from './numbering.js';
 
 export interface ReportedLimits {
   approach: DetectionApproach;
@@ -44,7 +45,7 @@ const ORDER: DetectionApproach[] = ['sdResidual', 'sdIntercept', 'blankSd', 'iso
 
 export function detectionSection(pdf: PdfComposer, content: ReportContent): void {
   const result = content.study.result;
-  pdf.heading('3  Detection and quantitation limits');
+  pdf.heading(numbered('detection', 'Detection and quantitation limits'));
   const detection = result?.detection;
   if (!result || !detection) {
     notEvaluated(pdf, result, ['detection']);

@@ -1,5 +1,6 @@
 import { colors, sizes, type PdfComposer } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
+import { numbered } from './numbering.js';
 
 export const STUDY_DATA_ATTACHMENT = 'study-data.json';
 
@@ -42,6 +43,14 @@ const FORMULAS: [topic: string, lines: string[]][] = [
     ],
   ],
   [
+    'Accuracy profile, trueness and measurement uncertainty',
+    [
+      'Accuracy profile (total error): per level, a one-way random model over the series; β-expectation tolerance interval mean ± k s_I with k = t((1 + β)/2; ν) sqrt(1 + 1/(I J B²)), B = sqrt((R + 1)/(J R + 1)), R = s²_between / s²_r and Satterthwaite ν (Mee 1984). Limits as % of the nominal value; the validity domain is where both stay inside ±λ, its ends read off a straight line between levels.',
+      'Trueness against a reference material: difference = mean - certified; U = 2 sqrt(s²/n + u(certified)²); a difference larger than U shows a bias (common practice).',
+      'Top-down uncertainty: u(R_w) = s_I at each level; u(bias) = sqrt(RMS of the biases² + u(reference)²); u_c = sqrt(u(R_w)² + u(bias)²); U = k u_c (Nordtest TR 537).',
+    ],
+  ],
+  [
     'Outliers and rounding',
     [
       'Grubbs G = max |v - mean| / s, two-sided at 5 %; Dixon r10 for 3 to 10 values; Cochran C = largest variance / sum of variances (ISO 5725-2).',
@@ -59,11 +68,13 @@ const REFERENCES = [
   'Hubaux A., Vos G., Anal. Chem. 42 (1970) 849. Currie L. A., Anal. Chem. 40 (1968) 586.',
   'Horwitz W., Kamps L. R., Boyer K. W., J. Assoc. Off. Anal. Chem. 63 (1980); AOAC Official Methods of Analysis, Appendix F.',
   'Draper N. R., Smith H., Applied Regression Analysis (Wiley). Miller J. N., Miller J. C., Statistics and Chemometrics for Analytical Chemistry (Pearson).',
+  'Mee R. W., Technometrics 26 (1984) 251. Hubert Ph. et al., J. Pharm. Biomed. Anal. 36 (2004) 579 (accuracy profile).',
+  'Magnusson B. et al., Nordtest TR 537, Handbook for calculation of measurement uncertainty in environmental laboratories.',
   'JCGM 100:2008, Evaluation of measurement data: guide to the expression of uncertainty in measurement (GUM).',
 ];
 
 export function methodsSection(pdf: PdfComposer, content: ReportContent, attachmentSha256: string): void {
-  pdf.heading('6  Statistical methods and references');
+  pdf.heading(numbered('methods', 'Statistical methods and references'));
   pdf.paragraph(
     "All figures come from the Meritline statistics engine. Standard deviations use the n - 1 divisor; t and F are quantiles of Student's t and Fisher's F distributions.",
   );

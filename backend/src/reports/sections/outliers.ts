@@ -2,6 +2,7 @@ import type { OutlierFlag } from '@meritline/shared';
 import { formatDateTime, formatLevel, formatNumber, NOT_AVAILABLE, type PdfComposer, type TableRow } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { notEvaluated, plural, sectionWarnings, xUnit, yUnit } from './common.js';
+import { numbered } from './numbering.js';
 
 const TEST_WORDS: Record<OutlierFlag['test'], string> = {
   grubbs: 'Grubbs (two-sided)',
@@ -41,7 +42,7 @@ function reasonOf(entry: Exclusion): string {
 }
 
 function exclusions(pdf: PdfComposer, content: ReportContent): void {
-  pdf.heading('5.2  Excluded points', 2);
+  pdf.heading(numbered('outliers', 'Excluded points', 2), 2);
   const excluded = (content.study.data.standards ?? []).flatMap((p, index) =>
     p.excluded ? [{ index, x: p.x, y: p.y, reason: p.excluded.reason }] : [],
   );
@@ -126,9 +127,9 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
 }
 
 export function outliersSection(pdf: PdfComposer, content: ReportContent): void {
-  pdf.heading('5  Outliers and exclusions');
+  pdf.heading(numbered('outliers', 'Outliers and exclusions'));
   const result = content.study.result;
-  pdf.heading('5.1  Outlier tests', 2);
+  pdf.heading(numbered('outliers', 'Outlier tests', 1), 2);
   const flags = result?.outliers;
   if (!result || !flags) {
     notEvaluated(pdf, result, ['outliers']);
@@ -136,7 +137,7 @@ export function outliersSection(pdf: PdfComposer, content: ReportContent): void 
     const flagged = flags.filter((f) => f.outlier).length;
     pdf.paragraph(
       `${plural(flags.length, 'test')} on the replicate sets; ${flagged === 0 ? 'none flags a value' : `${plural(flagged, 'test')} flag a value`}. ` +
-        'Tests only flag: no value was removed because of a test. Points are excluded only by a person, with a reason (section 5.2).',
+        `Tests only flag: no value was removed because of a test. Points are excluded only by a person, with a reason (section ${numbered('outliers', '', 2).trim()}).`,
     );
     const rows: TableRow[] = flags.map((f) => ({
       cells: [

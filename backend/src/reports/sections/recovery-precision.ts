@@ -14,6 +14,7 @@ import {
 } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { confidenceWords, notEvaluated, sectionWarnings, xUnit } from './common.js';
+import { numbered } from './numbering.js';
 
 function groupRow(group: RecoveryGroup, label: string): string[] {
   const bias = group.significant === null ? NOT_AVAILABLE : group.significant ? 'Yes' : 'No';
@@ -31,7 +32,7 @@ function groupRow(group: RecoveryGroup, label: string): string[] {
 }
 
 function recovery(pdf: PdfComposer, content: ReportContent, result: EvaluationResult): void {
-  pdf.heading('4.1  Recovery', 2);
+  pdf.heading(numbered('recoveryPrecision', 'Recovery', 1), 2);
   const r = result.recovery;
   if (!r) {
     notEvaluated(pdf, result, ['recovery']);
@@ -84,7 +85,7 @@ function recovery(pdf: PdfComposer, content: ReportContent, result: EvaluationRe
 }
 
 function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationResult): void {
-  pdf.heading('4.2  Precision', 2);
+  pdf.heading(numbered('recoveryPrecision', 'Precision', 2), 2);
   const p = result.precision;
   if (!p) {
     notEvaluated(pdf, result, ['precision']);
@@ -151,7 +152,7 @@ function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationR
 }
 
 export function recoveryPrecisionSection(pdf: PdfComposer, content: ReportContent): void {
-  pdf.heading('4  Recovery and precision');
+  pdf.heading(numbered('recoveryPrecision', 'Recovery and precision'));
   const result = content.study.result;
   if (!result) {
     notEvaluated(pdf, result, ['recovery', 'precision']);

@@ -1,6 +1,7 @@
 import { ROLE_LABELS, type SignatureMeaning } from '@meritline/shared';
 import { colors, formatDateTime, sizes, type PdfComposer } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
+import { numbered } from './numbering.js';
 
 const MEANING_WORDS: Record<SignatureMeaning, string> = {
   authored: 'Performed the study and submitted it for review',
@@ -19,7 +20,7 @@ const SECTION_WORDS: Record<string, string> = {
 };
 
 export function signaturesSection(pdf: PdfComposer, content: ReportContent): void {
-  pdf.heading('7  Electronic signatures and review');
+  pdf.heading(numbered('signatures', 'Electronic signatures and review'));
   pdf.paragraph(
     'Electronic signatures recorded in Meritline: who signed, in which role, with which meaning, when, and the start of the SHA-256 fingerprint ' +
       'of the study data and results as signed.',
@@ -92,7 +93,7 @@ export function signaturesSection(pdf: PdfComposer, content: ReportContent): voi
 }
 
 export function cautionSection(pdf: PdfComposer, content: ReportContent): void {
-  pdf.heading('8  Caution');
+  pdf.heading(numbered('caution', 'Caution'));
   pdf.callout(
     'This report supports decisions; it does not make them',
     [

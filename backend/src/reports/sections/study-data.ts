@@ -77,6 +77,36 @@ export function studyDataAppendix(pdf: PdfComposer, content: ReportContent): voi
       { labelWidth: 150, size: 8.5 },
     );
   }
+  if (data.accuracy?.length) {
+    const accuracy = data.accuracy;
+    const cells = [...new Set(accuracy.map((a) => `${a.level}\u0000${a.series}`))];
+    pdf.keyValues(
+      cells.map((cell) => {
+        const [level, series] = cell.split('\u0000');
+        const items = accuracy.filter((a) => a.level === level && a.series === series);
+        return [`Accuracy, ${level}, ${series} (${x})`, `nominal ${items[0].nominal}; found ${list(items.map((a) => a.found))}`];
+      }),
+      { labelWidth: 150, size: 8.5 },
+    );
+  }
+  const options: [string, string][] = [];
+  if (data.accuracyProfile)
+    options.push(['Accuracy profile β / λ', `${data.accuracyProfile.beta ?? 0.8} / ${data.accuracyProfile.lambda ?? 10} %`]);
+  if (data.uncertainty) {
+    const u = data.uncertainty;
+    options.push([
+      'Uncertainty options',
+      `k ${u.coverageFactor ?? 2}; relative from ${u.relativeAbove === undefined ? 'every level' : `${u.relativeAbove} ${x}`}; u(nominal) ${u.uReferencePct ?? 0} %`,
+    ]);
+  }
+  if (data.referenceMaterial) {
+    const rm = data.referenceMaterial;
+    options.push([
+      `Reference material (${x})`,
+      `certified ${rm.certified}, standard uncertainty ${rm.uCertified}; found ${list(rm.results)}`,
+    ]);
+  }
+  if (options.length) pdf.keyValues(options, { labelWidth: 150, size: 8.5 });
   if (data.criteria?.length) {
     pdf.heading('Acceptance criteria as evaluated', 3);
     pdf.bullets(

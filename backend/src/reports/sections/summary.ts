@@ -5,6 +5,7 @@ import type { ReportContent } from '../report-content.js';
 import { APPROACH_LABELS, criterionInWords, describeFigure, formatAgainstCriterion } from '../report-figures.js';
 import { MODEL_WORDS, WEIGHTING_WORDS, xUnit } from './common.js';
 import { reportedLimits } from './detection.js';
+import { numbered } from './numbering.js';
 
 function conclusion(result: EvaluationResult | null): string {
   if (!result) return 'The study could not be evaluated, so no verdict is given.';
@@ -18,7 +19,7 @@ function conclusion(result: EvaluationResult | null): string {
 export function summarySection(pdf: PdfComposer, content: ReportContent): void {
   const result = content.study.result;
   const units = { x: xUnit(content), y: content.study.data.units?.y ?? content.method.yUnit };
-  pdf.heading('1  Summary');
+  pdf.heading(numbered('summary', 'Summary'));
 
   if (result && result.verdict.criteria.length) {
     pdf.table({
@@ -85,7 +86,35 @@ export function summarySection(pdf: PdfComposer, content: ReportContent): void {
       ],
       ['Repeatability RSD', formatPercent(result.precision?.rsdR)],
       ['Intermediate precision RSD', formatPercent(result.precision?.rsdI)],
+      ...accuracyFigures(result, units.x),
     ],
     { labelWidth: 150 },
   );
+}
+
+/** Only for studies with an accuracy design, reference material or uncertainty options. */
+function accuracyFigures(result: EvaluationResult, x: string): [string, string][] {
+  const rows: [string, string][] = [];
+  const p = result.accuracyProfile;
+  if (p)
+    rows.push([
+      'Accuracy profile',
+      p.validFrom === null || p.validTo === null
+        ? `no validity domain at ±${formatNumber(p.lambda, 3)} %`
+        : `valid from ${withUnit(formatNumber(p.validFrom, 4), x)} to ${withUnit(formatNumber(p.validTo, 4), x)} (β ${formatNumber(p.beta * 100, 3)} %, ±${formatNumber(p.lambda, 3)} %)`,
+    ]);
+  const u = result.uncertainty;
+  if (u) {
+    const parts = [
+      u.relative ? `${formatPercent(u.relative.UPct)}` : null,
+      u.absolute ? withUnit(formatNumber(u.absolute.U, 3), x) : null,
+    ].filter(Boolean);
+    rows.push([`Expanded uncertainty (k = ${formatNumber(u.coverageFactor, 3)})`, `up to ${parts.join(' or ')}`]);
+  }
+  if (result.trueness)
+    rows.push([
+      'Trueness',
+      result.trueness.significant ? 'bias shown on the reference material' : 'no bias shown on the reference material',
+    ]);
+  return rows;
 }

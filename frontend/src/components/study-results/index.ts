@@ -2,6 +2,8 @@ export { CalibrationPlot, calibrationFigure, type CalibrationPlotProps } from '.
 export { ResidualPlot } from './residual-plot';
 export { preloadPlotly } from './lazy-plot';
 export { StudyFigures } from './study-figures';
+export { AccuracyProfilePlot, truenessSentence, validityWords } from './accuracy-profile';
+export { UncertaintyTables } from './uncertainty-tables';
 export { StudyFlags, studyFlags, type StudyFlag } from './study-flags';
 export { VerdictSummary, verdictHeadline } from './verdict-summary';
 export { CriterionMark } from './criterion-mark';

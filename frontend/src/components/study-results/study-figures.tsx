@@ -1,4 +1,5 @@
 import { Stack } from '@chakra-ui/react';
+import { AccuracyProfilePlot, AccuracyProfileTables, TruenessSummary } from './accuracy-profile';
 import { CalibrationTable, LevelsTable, LinearityTable } from './calibration-figures';
 import { DetectionTable } from './detection-table';
 import { FigureSection } from './figure-section';
@@ -7,11 +8,12 @@ import { OutliersTable } from './outliers-table';
 import { PrecisionAnovaTable, PrecisionFiguresTable, PrecisionSeriesTable } from './precision-tables';
 import { RecoveryItemsTable, RecoveryTable } from './recovery-table';
 import type { StudyResultsProps } from './types';
+import { UncertaintyTables } from './uncertainty-tables';
 import { UnknownsTable } from './unknowns-table';
 import { WorkingRange } from './working-range';
 
 /** Every figure of merit the engine computed, each beside its criterion and outcome. Read-only. */
-export function StudyFigures({ result, units, criteria }: StudyResultsProps) {
+export function StudyFigures({ data, result, units, criteria }: StudyResultsProps) {
   const judged = judgeCriteria(criteria, result);
   const hasLinearityTests = Boolean(
     result.lackOfFit || result.mandel || result.interceptTest || result.throughOrigin || result.homoscedasticity,
@@ -70,6 +72,42 @@ export function StudyFigures({ result, units, criteria }: StudyResultsProps) {
         <PrecisionAnovaTable result={result} />
         <PrecisionSeriesTable result={result} />
       </FigureSection>
+      {(data.accuracy || result.accuracyProfile) && (
+        <FigureSection
+          id="fig-accuracy-profile"
+          title="Accuracy profile"
+          description="Total error at each level: the relative bias and the β-expectation tolerance limits, judged against the acceptance limits."
+          sections={['accuracyProfile']}
+          result={result}
+          available={Boolean(result.accuracyProfile)}
+        >
+          <AccuracyProfilePlot result={result} units={units} />
+          <AccuracyProfileTables result={result} units={units} judged={judged} />
+        </FigureSection>
+      )}
+      {(data.referenceMaterial || result.trueness) && (
+        <FigureSection
+          id="fig-trueness"
+          title="Trueness against the reference material"
+          sections={['trueness']}
+          result={result}
+          available={Boolean(result.trueness)}
+        >
+          <TruenessSummary result={result} units={units} judged={judged} />
+        </FigureSection>
+      )}
+      {(data.uncertainty || data.accuracy || result.uncertainty) && (
+        <FigureSection
+          id="fig-uncertainty"
+          title="Measurement uncertainty"
+          description="Top-down, from the validation data: within-laboratory reproducibility and the uncertainty of the bias."
+          sections={['uncertainty']}
+          result={result}
+          available={Boolean(result.uncertainty)}
+        >
+          <UncertaintyTables result={result} units={units} judged={judged} />
+        </FigureSection>
+      )}
       <FigureSection
         id="fig-outliers"
         title="Outlier tests"

@@ -40,7 +40,14 @@ export type VersionFormValues = Omit<
   changeKind: MethodChangeKind | '';
   revalidationScope: RevalidationFamily[];
   recoveryEquivalenceMarginPct: number | '';
-  settings: { requiresQualityRelease: boolean; checkTolerancePct: number | ''; onePointMaxInterceptPct: number | '' };
+  settings: {
+    requiresQualityRelease: boolean;
+    checkTolerancePct: number | '';
+    onePointMaxInterceptPct: number | '';
+    accuracyBeta: number;
+    accuracyLambdaPct: number | '';
+    coverageFactor: number | '';
+  };
 };
 
 export function versionBody(values: VersionFormValues) {
@@ -53,6 +60,9 @@ export function versionBody(values: VersionFormValues) {
       checkTolerancePct: Number(values.settings.checkTolerancePct),
       onePointMaxInterceptPct: Number(values.settings.onePointMaxInterceptPct),
       recoveryEquivalenceMarginPct: Number(values.recoveryEquivalenceMarginPct),
+      accuracyBeta: Number(values.settings.accuracyBeta),
+      accuracyLambdaPct: Number(values.settings.accuracyLambdaPct),
+      coverageFactor: Number(values.settings.coverageFactor),
     },
   };
 }

@@ -61,6 +61,21 @@ export const settingsSchema = yup.object({
     .required('Enter the limit.')
     .min(0, 'Use zero or more.')
     .max(100, 'Use at most 100 %.'),
+  accuracyBeta: yup.number().oneOf([0.8, 0.95], 'Choose 80 % or 95 %.').required('Choose β.'),
+  accuracyLambdaPct: yup
+    .number()
+    .transform(emptyToUndefined)
+    .typeError('Enter a number.')
+    .required('Enter the acceptance limits.')
+    .moreThan(0, 'Use more than 0 %.')
+    .max(100, 'Use at most 100 %.'),
+  coverageFactor: yup
+    .number()
+    .transform(emptyToUndefined)
+    .typeError('Enter a number.')
+    .required('Enter the coverage factor.')
+    .min(1, 'Use at least 1.')
+    .max(5, 'Use at most 5.'),
 });
 
 export const changeSummaryField = yup.string().trim().required('Say what changed and why.').max(2000, 'Use at most 2000 characters.');

@@ -1,4 +1,4 @@
-import { Checkbox, SimpleGrid } from '@chakra-ui/react';
+import { Checkbox, NativeSelect, SimpleGrid } from '@chakra-ui/react';
 import { FormField } from '@/components/form/form-field';
 
 /** The settings of a method version that decide how its studies and routine batches are handled. */
@@ -30,6 +30,37 @@ export function SettingsFields() {
           </Checkbox.Root>
         )}
       </FormField>
+      <FormField
+        name="settings.accuracyBeta"
+        label="Accuracy profile: β"
+        helperText="Expected proportion of results inside the tolerance limits; a study may choose its own."
+      >
+        {(field, helpers) => (
+          <NativeSelect.Root>
+            <NativeSelect.Field
+              name={field.name}
+              value={String(field.value)}
+              onChange={(e) => void helpers.setValue(Number(e.target.value))}
+            >
+              <option value="0.8">80 %</option>
+              <option value="0.95">95 %</option>
+            </NativeSelect.Field>
+            <NativeSelect.Indicator />
+          </NativeSelect.Root>
+        )}
+      </FormField>
+      <FormField
+        name="settings.accuracyLambdaPct"
+        label="Accuracy profile: acceptance limits (± %)"
+        type="number"
+        helperText="The largest total error a result may show inside the validity domain."
+      />
+      <FormField
+        name="settings.coverageFactor"
+        label="Coverage factor k of the expanded uncertainty"
+        type="number"
+        helperText="U = k · u_c; 2 gives about 95 % coverage."
+      />
     </SimpleGrid>
   );
 }

@@ -1,5 +1,8 @@
 import { Box, DataList, Heading, HStack, Stack, Text } from '@chakra-ui/react';
 import {
+  DEFAULT_ACCURACY_BETA,
+  DEFAULT_ACCURACY_LAMBDA_PCT,
+  DEFAULT_COVERAGE_FACTOR,
   DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT,
   METHOD_CHANGE_KIND_LABELS,
   REVALIDATION_FAMILY_LABELS,
@@ -102,6 +105,14 @@ export function VersionCard({ method, version, canManage, canEdit }: VersionCard
             <DataList.ItemLabel>Recovery equivalence margin</DataList.ItemLabel>
             <DataList.ItemValue>
               ± {settings.recoveryEquivalenceMarginPct ?? DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT} percentage points
+            </DataList.ItemValue>
+          </DataList.Item>
+          <DataList.Item>
+            <DataList.ItemLabel>Accuracy profile and uncertainty</DataList.ItemLabel>
+            <DataList.ItemValue>
+              β {Math.round(100 * (settings.accuracyBeta ?? DEFAULT_ACCURACY_BETA))} %, acceptance limits ±
+              {settings.accuracyLambdaPct ?? DEFAULT_ACCURACY_LAMBDA_PCT} %; coverage factor k ={' '}
+              {settings.coverageFactor ?? DEFAULT_COVERAGE_FACTOR}
             </DataList.ItemValue>
           </DataList.Item>
           <DataList.Item>

@@ -4,7 +4,14 @@ import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
-import { DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT, type MethodDto, type MethodVersionDto } from '@meritline/shared';
+import {
+  DEFAULT_ACCURACY_BETA,
+  DEFAULT_ACCURACY_LAMBDA_PCT,
+  DEFAULT_COVERAGE_FACTOR,
+  DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT,
+  type MethodDto,
+  type MethodVersionDto,
+} from '@meritline/shared';
 import { newVersionFormSchema, useCreateVersion, versionFormSchema, type VersionFormValues } from '../api/create-version';
 import { useUpdateVersion } from '../api/update-version';
 import { toCriterionRows } from '../api/version-rules';
@@ -36,6 +43,9 @@ export function VersionFormDialog({ method, mode, version, triggerLabel, proposa
       requiresQualityRelease: version.settings.requiresQualityRelease,
       checkTolerancePct: version.settings.checkTolerancePct,
       onePointMaxInterceptPct: version.settings.onePointMaxInterceptPct,
+      accuracyBeta: version.settings.accuracyBeta ?? DEFAULT_ACCURACY_BETA,
+      accuracyLambdaPct: version.settings.accuracyLambdaPct ?? DEFAULT_ACCURACY_LAMBDA_PCT,
+      coverageFactor: version.settings.coverageFactor ?? DEFAULT_COVERAGE_FACTOR,
     },
     recoveryEquivalenceMarginPct: version.settings.recoveryEquivalenceMarginPct ?? DEFAULT_RECOVERY_EQUIVALENCE_MARGIN_PCT,
   };

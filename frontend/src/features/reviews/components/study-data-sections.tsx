@@ -66,6 +66,29 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
             data.precision.map((p, i) => ({ id: `p${i}`, cells: [p.group, p.value, p.excluded?.reason ?? ''] })),
             [false, true, false],
           ),
+        data.accuracy?.length &&
+          section(
+            'Accuracy design',
+            ['Level', 'Series', withUnit('Nominal', units.x), withUnit('Found', units.x)],
+            data.accuracy.map((a, i) => ({ id: `a${i}`, cells: [a.level, a.series, a.nominal, a.found] })),
+            [false, false, true, true],
+          ),
+        data.referenceMaterial &&
+          section(
+            'Reference material',
+            [withUnit('Certified value', units.x), withUnit('Standard uncertainty', units.x), withUnit('Results', units.x)],
+            [
+              {
+                id: 'rm',
+                cells: [
+                  data.referenceMaterial.certified,
+                  data.referenceMaterial.uCertified,
+                  data.referenceMaterial.results.map((v) => formatNumber(v, 6)).join('; '),
+                ],
+              },
+            ],
+            [true, true, true],
+          ),
         data.unknowns?.length &&
           section(
             'Samples',
@@ -97,6 +120,19 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
         Model: <strong>{MODEL_LABELS[data.model ?? 'linear'] ?? data.model}</strong> · Weighting:{' '}
         <strong>{WEIGHTING_LABELS[data.weighting ?? 'none'] ?? data.weighting}</strong> · Confidence level:{' '}
         <strong>{Math.round((data.confidence ?? 0.95) * 100)} %</strong>
+        {data.accuracyProfile && (
+          <>
+            {' '}
+            · Accuracy profile: β <strong>{formatNumber((data.accuracyProfile.beta ?? 0.8) * 100, 3)} %</strong>, acceptance limits{' '}
+            <strong>±{formatNumber(data.accuracyProfile.lambda ?? 10, 3)} %</strong>
+          </>
+        )}
+        {data.uncertainty?.coverageFactor !== undefined && (
+          <>
+            {' '}
+            · Coverage factor <strong>k = {formatNumber(data.uncertainty.coverageFactor, 3)}</strong>
+          </>
+        )}
       </Text>
       {sections.map((s) => (
         <Stack key={s.title} gap="3">

@@ -5,7 +5,7 @@ import { isApiError } from '@/lib/api-client';
 import { useSession } from '@/lib/auth';
 import { studiesQueries } from '../api/studies-queries';
 import { useUpdateStudy, type StudyChanges } from '../api/update-study';
-import { dataToDraft, draftToData, type DataDraft } from '../utils/study-sheets';
+import { accuracyDesignProblems, accuracyItems, dataToDraft, draftToData, type DataDraft } from '../utils/study-sheets';
 
 export interface StudyDraft {
   title: string;
@@ -18,6 +18,7 @@ export type SaveState =
   | { kind: 'pending' }
   | { kind: 'saving' }
   | { kind: 'needs-reason' }
+  | { kind: 'incomplete'; problems: string[] }
   | { kind: 'conflict' }
   | { kind: 'error'; message: string; details: string[] };
 
@@ -110,6 +111,12 @@ export function useStudyDraft(initial: StudyDto) {
         setState((s) => (s.kind === 'pending' || s.kind === 'saving' ? { kind: 'saved', at: new Date() } : s));
         return true;
       }
+      // The server refuses an unbalanced accuracy design: nothing is sent until it is complete, so the saved study keeps its last one.
+      const problems = accuracyDesignProblems(accuracyItems(latest.current.data.sheets.accuracy));
+      if (problems.length > 0) {
+        setState({ kind: 'incomplete', problems });
+        return false;
+      }
       if (status.current === 'returned') {
         if (!reasonRef.current.trim()) {
           setState({ kind: 'needs-reason' });
@@ -187,7 +194,7 @@ export function useStudyDraft(initial: StudyDto) {
     return { lockVersion: lockVersion.current, ...(status.current === 'returned' ? { reason: reasonRef.current.trim() } : {}) };
   }, [saveNow]);
 
-  const dirty = state.kind === 'pending' || state.kind === 'saving' || state.kind === 'needs-reason';
+  const dirty = state.kind === 'pending' || state.kind === 'saving' || state.kind === 'needs-reason' || state.kind === 'incomplete';
   useEffect(() => {
     if (!dirty) return;
     const warn = (event: BeforeUnloadEvent) => event.preventDefault();

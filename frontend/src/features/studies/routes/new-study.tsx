@@ -12,6 +12,7 @@ import { paths } from '@/lib/config/paths';
 import { createStudySchema, useCreateStudy, type CreateStudyValues } from '../api/create-study';
 import { methodChoicesQueries } from '../api/method-choices-queries';
 import { defaultVersion, MethodSelect, VersionPicker } from '../components/wizard/method-version-picker';
+import { LAST_STEP } from '../components/wizard/wizard-steps';
 
 const isoToday = () => new Date().toISOString().slice(0, 10);
 
@@ -72,7 +73,7 @@ export default function NewStudyPage() {
   return (
     <>
       <PageHeader
-        section="Validation study · step 1 of 7"
+        section={`Validation study · step 1 of ${LAST_STEP}`}
         title="New validation study"
         description="Choose the method and version the study validates. The study is saved as a draft; the next steps take the standards, blanks, recovery and precision data."
       />

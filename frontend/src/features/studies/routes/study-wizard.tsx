@@ -1,7 +1,8 @@
 import type { StudyDto } from '@meritline/shared';
 import { Alert, Button, Field, HStack, Input, Link, Stack } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
-import { useEffect } from 'react';
+import { useEffect, useMemo } from 'react';
+import { withVersionOptions } from '@meritline/shared';
 import { Link as RouterLink, useParams, useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
@@ -10,6 +11,7 @@ import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { studiesQueries } from '../api/studies-queries';
 import type { RemarksSlot, SubmitSlot } from '../api/types';
+import { AccuracyStep } from '../components/steps/accuracy-step';
 import { BlanksStep } from '../components/steps/blanks-step';
 import { CalibrationStep, type DataStepProps } from '../components/steps/calibration-step';
 import { ConclusionStep } from '../components/steps/conclusion-step';
@@ -36,7 +38,8 @@ function stepNotes(controller: StudyDraftController, verdict: boolean | null | u
     3: `${note('blanks')}`,
     4: note('recovery'),
     5: note('precision'),
-    6: verdict === true ? 'Meets the criteria' : verdict === false ? 'Does not meet all criteria' : 'Figures, plots, flags',
+    6: note('accuracy'),
+    7: verdict === true ? 'Meets the criteria' : verdict === false ? 'Does not meet all criteria' : 'Figures, plots, flags',
   };
 }
 
@@ -85,7 +88,10 @@ interface Slots {
 
 function StudyWizard({ study, step, SubmitSlot, RemarksSlot }: { study: StudyDto; step: number } & Slots) {
   const controller = useStudyDraft(study);
-  const live = useLiveEvaluation(controller.data);
+  // The browser applies the version's β, λ and k as the server does, so both show the same figures.
+  const settings = controller.server.methodVersion.settings;
+  const liveData = useMemo(() => withVersionOptions(controller.data, settings), [controller.data, settings]);
+  const live = useLiveEvaluation(liveData);
   const { draft, server, state, editable, lockedReason, reason, setReason } = controller;
   const units = { x: server.method.xUnit, y: server.method.yUnit };
   const props: DataStepProps = { controller, live, units, criteria: server.methodVersion.criteria };
@@ -150,8 +156,9 @@ function StudyWizard({ study, step, SubmitSlot, RemarksSlot }: { study: StudyDto
         {step === 3 && <BlanksStep {...props} />}
         {step === 4 && <RecoveryStep {...props} />}
         {step === 5 && <PrecisionStep {...props} />}
-        {step === 6 && <ResultsStep {...props} />}
-        {step === 7 && <ConclusionStep {...props} SubmitSlot={SubmitSlot} />}
+        {step === 6 && <AccuracyStep {...props} />}
+        {step === 7 && <ResultsStep {...props} />}
+        {step === 8 && <ConclusionStep {...props} SubmitSlot={SubmitSlot} />}
         <HStack justify="space-between" pt="6" borderTopWidth="1px" borderColor="border">
           {step > 1 ? (
             <Button asChild variant="outline">

@@ -10,6 +10,10 @@ const KEY_FIGURES: { figure: string; name: string }[] = [
   { figure: 'recovery.overall.meanPct', name: 'mean recovery' },
   { figure: 'precision.rsdR', name: 'repeatability RSD' },
   { figure: 'precision.rsdI', name: 'intermediate precision RSD' },
+  { figure: 'accuracyProfile.validFrom', name: 'lower limit of quantitation' },
+  { figure: 'accuracyProfile.validTo', name: 'upper limit of quantitation' },
+  { figure: 'uncertainty.relative.UPct', name: 'expanded uncertainty' },
+  { figure: 'trueness.difference', name: 'difference from the certified value' },
 ];
 
 const close = (a: number | null, b: number | null) =>

@@ -118,6 +118,27 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
           aliases: headerAliases('recovery', 'native'),
         },
       ];
+    case 'accuracy':
+      return [
+        { key: 'level', label: 'Level', kind: 'text', required: true, placeholder: 'L1', aliases: headerAliases('accuracy', 'level') },
+        {
+          key: 'series',
+          label: 'Series (day, analyst, instrument)',
+          kind: 'text',
+          required: true,
+          placeholder: 'day 1',
+          aliases: headerAliases('accuracy', 'series'),
+        },
+        {
+          key: 'nominal',
+          label: 'Nominal',
+          unit: units.x,
+          kind: 'positive',
+          required: true,
+          aliases: headerAliases('accuracy', 'nominal'),
+        },
+        { key: 'found', label: 'Found', unit: units.x, kind: 'number', required: true, aliases: headerAliases('accuracy', 'found') },
+      ];
     case 'precision':
       return [
         {

@@ -1,4 +1,13 @@
-import { MODELS, WEIGHTINGS, type CalibrationModel, type Weighting, IMPORT_SECTIONS, type ImportSection } from '@meritline/shared';
+import {
+  accuracyProfileErrors,
+  IMPORT_SECTIONS,
+  MODELS,
+  WEIGHTINGS,
+  type AccuracyItem,
+  type CalibrationModel,
+  type ImportSection,
+  type Weighting,
+} from '@meritline/shared';
 import { newRow, rowProblems, sectionColumns, type GridRow, type SectionUnits } from './grid-sections';
 import { isNotDetected, parseDecimal } from './parse-number';
 
@@ -11,6 +20,20 @@ export interface StudySettings {
   alpha: number;
   /** As typed; the Horwitz prediction needs it as a mass fraction (1 mg/kg = 1e-6). */
   massFraction: string;
+  accuracy: AccuracyOptions;
+}
+
+/** The accuracy-profile, reference-material and uncertainty options, as typed; empty means the method version's. */
+export interface AccuracyOptions {
+  beta: string;
+  lambda: string;
+  coverageFactor: string;
+  relativeAbove: string;
+  uReferencePct: string;
+  certified: string;
+  uCertified: string;
+  /** Results on the reference material, separated by spaces or semicolons. */
+  referenceResults: string;
 }
 
 /** The editable form of a study's data: grids of text cells plus the settings; `extras` keeps what the wizard does not edit. */
@@ -20,7 +43,17 @@ export interface DataDraft {
   extras: Record<string, unknown>;
 }
 
-const MANAGED = new Set<string>(['model', 'weighting', 'confidence', 'alpha', 'massFraction', ...IMPORT_SECTIONS]);
+const MANAGED = new Set<string>([
+  'model',
+  'weighting',
+  'confidence',
+  'alpha',
+  'massFraction',
+  'accuracyProfile',
+  'referenceMaterial',
+  'uncertainty',
+  ...IMPORT_SECTIONS,
+]);
 
 type Exclusion = { reason: string; test?: string };
 const exclusionOf = (excluded: Exclusion | undefined): Exclusion | undefined =>
@@ -44,6 +77,9 @@ export function dataToDraft(data: Record<string, unknown>): DataDraft {
   const lowSpikes = Array.from({ length: Math.max(spiked.length, spikeBlanks.length) }, (_, i) =>
     newRow({ spiked: text(spiked[i]), blank: i < spikeBlanks.length ? (spikeBlanks[i] === null ? 'ND' : text(spikeBlanks[i])) : '' }),
   );
+  const profile = (data.accuracyProfile ?? {}) as { beta?: number; lambda?: number };
+  const uncertainty = (data.uncertainty ?? {}) as { coverageFactor?: number; relativeAbove?: number; uReferencePct?: number };
+  const reference = (data.referenceMaterial ?? {}) as { certified?: number; uCertified?: number; results?: number[] };
   const model = MODELS.includes(data.model as CalibrationModel) ? (data.model as CalibrationModel) : 'linear';
   const weighting = WEIGHTINGS.includes(data.weighting as Weighting) ? (data.weighting as Weighting) : 'none';
   return {
@@ -54,6 +90,16 @@ export function dataToDraft(data: Record<string, unknown>): DataDraft {
       confidence: typeof data.confidence === 'number' ? data.confidence : 0.95,
       alpha: typeof data.alpha === 'number' ? data.alpha : 0.05,
       massFraction: text(data.massFraction),
+      accuracy: {
+        beta: text(profile.beta),
+        lambda: text(profile.lambda),
+        coverageFactor: text(uncertainty.coverageFactor),
+        relativeAbove: text(uncertainty.relativeAbove),
+        uReferencePct: text(uncertainty.uReferencePct),
+        certified: text(reference.certified),
+        uCertified: text(reference.uCertified),
+        referenceResults: (reference.results ?? []).join('; '),
+      },
     },
     sheets: {
       standards,
@@ -70,6 +116,9 @@ export function dataToDraft(data: Record<string, unknown>): DataDraft {
       ),
       precision: list<{ group: string; value: number; excluded?: Exclusion }>(data.precision).map((p) =>
         newRow({ group: p.group, value: text(p.value) }, exclusionOf(p.excluded)),
+      ),
+      accuracy: list<{ level: string; series: string; nominal: number; found: number }>(data.accuracy).map((a) =>
+        newRow({ level: text(a.level), series: text(a.series), nominal: text(a.nominal), found: text(a.found) }),
       ),
     },
   };
@@ -150,5 +199,82 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
 
   const massFraction = parseDecimal(settings.massFraction);
   if (massFraction !== null && massFraction > 0 && massFraction <= 1) data.massFraction = massFraction;
+
+  const accuracy = accuracyItems(sheets.accuracy);
+  const complete = accuracy.length > 0 && accuracyDesignProblems(accuracy).length === 0;
+  if (complete) data.accuracy = accuracy;
+  Object.assign(data, accuracyOptionsToData(settings.accuracy, complete));
   return data;
+}
+
+export function accuracyItems(rows: readonly GridRow[]): AccuracyItem[] {
+  return usableRows('accuracy', rows).map((row) => ({
+    level: row.cells.level.trim(),
+    series: row.cells.series.trim(),
+    nominal: num(row.cells.nominal),
+    found: num(row.cells.found),
+  }));
+}
+
+/**
+ * What keeps an accuracy design from being saved: series or replicates missing, unbalanced series, a level
+ * with two nominal values. The server refuses such a design, so the wizard saves nothing while it is typed
+ * and leaves it out of the live figures; fewer than 3 levels is only unfinished and is saved.
+ */
+export function accuracyDesignProblems(items: readonly AccuracyItem[]): string[] {
+  return accuracyProfileErrors(items)
+    .filter((e) => e.code !== 'too_few_levels')
+    .map((e) => e.message.charAt(0).toUpperCase() + e.message.slice(1));
+}
+
+/** What is wrong with each accuracy option as typed, by option; empty options are fine (the method version's apply). */
+export function accuracyOptionProblems(options: AccuracyOptions): Partial<Record<keyof AccuracyOptions, string>> {
+  const problems: Partial<Record<keyof AccuracyOptions, string>> = {};
+  const check = (key: keyof AccuracyOptions, ok: (v: number) => boolean, words: string) => {
+    if (options[key].trim() === '') return;
+    const value = parseDecimal(options[key]);
+    if (value === null) problems[key] = 'Not a number';
+    else if (!ok(value)) problems[key] = words;
+  };
+  check('beta', (v) => v > 0 && v < 1, 'β lies between 0 and 1');
+  check('lambda', (v) => v > 0 && v <= 100, 'λ lies above 0 and at most 100 %');
+  check('coverageFactor', (v) => v >= 1 && v <= 5, 'k lies from 1 to 5');
+  check('relativeAbove', (v) => v > 0, 'Must be above zero');
+  check('uReferencePct', (v) => v >= 0 && v <= 50, 'From 0 to 50 %');
+  check('certified', (v) => v > 0, 'Must be above zero');
+  check('uCertified', (v) => v >= 0, 'Must not be negative');
+  const results = referenceResults(options.referenceResults);
+  if (results === null) problems.referenceResults = 'Write numbers separated by spaces or semicolons';
+  return problems;
+}
+
+/** Reference-material results as typed ("5.12; 5.18 5.09"); null when one of them is not a number. */
+export function referenceResults(text: string): number[] | null {
+  const parts = text.split(/[;\s]+/).filter((part) => part !== '');
+  const values = parts.map(parseDecimal);
+  return values.every((v): v is number => v !== null) ? values : null;
+}
+
+function accuracyOptionsToData(options: AccuracyOptions, hasAccuracy: boolean): Record<string, unknown> {
+  const problems = accuracyOptionProblems(options);
+  const value = (key: keyof AccuracyOptions) =>
+    options[key].trim() === '' || problems[key] ? undefined : (parseDecimal(options[key]) as number);
+  const out: Record<string, unknown> = {};
+  const profile = { beta: value('beta'), lambda: value('lambda') };
+  if (hasAccuracy && (profile.beta !== undefined || profile.lambda !== undefined))
+    out.accuracyProfile = Object.fromEntries(Object.entries(profile).filter(([, v]) => v !== undefined));
+  const uncertainty = {
+    coverageFactor: value('coverageFactor'),
+    relativeAbove: value('relativeAbove'),
+    uReferencePct: value('uReferencePct'),
+  };
+  if (Object.values(uncertainty).some((v) => v !== undefined))
+    out.uncertainty = Object.fromEntries(Object.entries(uncertainty).filter(([, v]) => v !== undefined));
+  // The engine needs the whole reference material; a part of it waits in the form until the rest is typed.
+  const certified = value('certified');
+  const uCertified = value('uCertified');
+  const results = referenceResults(options.referenceResults);
+  if (certified !== undefined && uCertified !== undefined && results && results.length >= 2)
+    out.referenceMaterial = { certified, uCertified, results };
+  return out;
 }

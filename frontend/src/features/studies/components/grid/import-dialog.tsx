@@ -44,6 +44,12 @@ const IMPORT_FIELDS: Record<ImportSection, ImportField[]> = {
     { key: 'group', label: 'Series', required: true },
     { key: 'value', label: 'Result', required: true },
   ],
+  accuracy: [
+    { key: 'level', label: 'Level', required: true },
+    { key: 'series', label: 'Series', required: true },
+    { key: 'nominal', label: 'Nominal', required: true },
+    { key: 'found', label: 'Found', required: true },
+  ],
   unknowns: [
     { key: 'id', label: 'Sample', required: true },
     { key: 'y', label: 'Response' },

@@ -38,6 +38,12 @@ export function SaveStatus({ state, editable, onRetry }: { state: SaveState; edi
           Not saved: give the reason for the change
         </Text>
       );
+    case 'incomplete':
+      return (
+        <Text fontSize="sm" color="fg.warning" fontWeight="600" data-testid="save-status">
+          Not saved: complete the accuracy design
+        </Text>
+      );
     case 'conflict':
       return (
         <Text fontSize="sm" color="fg.error" fontWeight="600" data-testid="save-status">

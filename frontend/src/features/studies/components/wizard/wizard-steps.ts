@@ -4,8 +4,9 @@ export const WIZARD_STEPS = [
   { number: 3, title: 'Blanks and low-level spikes', summary: 'For detection and quantitation limits' },
   { number: 4, title: 'Recovery', summary: 'Spiked samples: added and found' },
   { number: 5, title: 'Precision', summary: 'Repeated results in series' },
-  { number: 6, title: 'Results', summary: 'Figures of merit, plots and flags' },
-  { number: 7, title: 'Conclusion', summary: 'Verdict and your conclusion' },
+  { number: 6, title: 'Accuracy and uncertainty', summary: 'Accuracy profile, reference material, U' },
+  { number: 7, title: 'Results', summary: 'Figures of merit, plots and flags' },
+  { number: 8, title: 'Conclusion', summary: 'Verdict and your conclusion' },
 ] as const;
 
 export const LAST_STEP = WIZARD_STEPS.length;
