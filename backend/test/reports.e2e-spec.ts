@@ -294,6 +294,7 @@ describe('validation reports', () => {
       const res = await verify(first.body).expect(200);
       expect(res.body).toEqual({
         valid: true,
+        kind: 'validation-report',
         studyId: study.id,
         studyTitle: study.title,
         reportId: stored.id,

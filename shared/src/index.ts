@@ -40,3 +40,5 @@ export {
 } from './engine/distributions.js';
 export * from './study.js';
 export type * from './result.js';
+export { routineUncertainty } from './engine/routine-uncertainty.js';
+export type * from './api/runs.js';

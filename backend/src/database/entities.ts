@@ -8,6 +8,7 @@ import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { Run } from '../runs/run.entity.js';
 import { RunSignature } from '../runs/run-signature.entity.js';
+import { RunResultsReport } from '../runs/run-results-report.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
@@ -26,6 +27,7 @@ export const entities = [
   ValidationReport,
   Run,
   RunSignature,
+  RunResultsReport,
   UserSession,
   AppSetting,
 ];

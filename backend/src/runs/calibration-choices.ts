@@ -74,6 +74,14 @@ export function validationBasis(study: ApprovedStudy): ValidationBasis | null {
     interceptTest: test
       ? { intercept: test.intercept, p: test.p, significant: test.significant, interceptPctOfTopResponse: test.interceptPctOfTopResponse }
       : null,
+    uncertainty: result.uncertainty
+      ? {
+          coverageFactor: result.uncertainty.coverageFactor,
+          relativeAbove: result.uncertainty.relativeAbove,
+          absolute: result.uncertainty.absolute,
+          relative: result.uncertainty.relative,
+        }
+      : null,
   };
 }
 

@@ -1,6 +1,8 @@
 import {
   evaluateStudy,
+  routineUncertainty,
   StudyValidationError,
+  type RunResultUncertainty,
   type CalibrationResult,
   type FieldError,
   type StudyInput,
@@ -97,6 +99,26 @@ function checkRunShape(data: Json, choices: ModelChoice[]): { model: RunModel; c
   return { model, choice };
 }
 
+/** Where a routine result's U comes from, in words (or that the validation states none). */
+export function uncertaintyBasisText(basis: ValidationBasis, unit: string | undefined): string {
+  const u = basis.uncertainty;
+  if (!u || (!u.absolute && !u.relative))
+    return `The validation study “${basis.studyTitle}” has no measurement uncertainty, so none is stated with the results.`;
+  const k = `k = ${u.coverageFactor}`;
+  const parts: string[] = [];
+  if (u.absolute) {
+    const level = u.absolute.below !== null && u.relative ? ` below ${withUnit(formatSignificant(u.absolute.below, 3), unit)}` : '';
+    parts.push(
+      `${withUnit(formatSignificant(u.absolute.U, 2), unit)} absolute${level} in the measured solution, times the dilution factor`,
+    );
+  }
+  if (u.relative) {
+    const level = u.relative.from !== null && u.absolute ? ` at and above ${withUnit(formatSignificant(u.relative.from, 3), unit)}` : '';
+    parts.push(`${formatSignificant(u.relative.UPct, 2)} % of the result${level}`);
+  }
+  return `Expanded uncertainty U (${k}) from the top-down uncertainty of the validation study “${basis.studyTitle}” (intermediate precision and bias): ${parts.join('; ')}.`;
+}
+
 function suggestDilution(x0Undiluted: number, top: number, dilution: number): number {
   const step = DILUTION_STEPS.find((f) => x0Undiluted / f <= DILUTION_TARGET * top) ?? DILUTION_STEPS[DILUTION_STEPS.length - 1];
   return step * dilution;
@@ -140,14 +162,19 @@ function readUnknown(
   }
   if (!reportable) remarks.push('Not reportable: the run was rejected.');
 
+  const quantified = !belowLimits && !flags.includes('aboveTopStandard');
+  const expanded = quantified && basis.uncertainty ? routineUncertainty(basis.uncertainty, x0Undiluted, u.dilution) : null;
+  const uncertainty: RunResultUncertainty = { value: expanded, basis: uncertaintyBasisText(basis, unit) };
+
   let reported: string;
   const limit = loq ?? lod;
   if (belowLimits && limit !== null) reported = `< ${withUnit(formatSignificant(limit * u.dilution, 2), unit)}`;
   else if (flags.includes('aboveTopStandard')) reported = `> ${withUnit(formatSignificant(calibration.xMax * u.dilution, 3), unit)}`;
+  else if (expanded) reported = formatWithInterval(u.x0, expanded.U, unit);
   else if (u.ci) reported = formatWithInterval(u.x0, (u.ci[1] - u.ci[0]) / 2, unit);
   else reported = withUnit(formatSignificant(u.x0, 3), unit);
 
-  return { ...u, x0Undiluted, flags, reported, remarks, suggestedDilution, reportable };
+  return { ...u, x0Undiluted, flags, reported, remarks, suggestedDilution, reportable, uncertainty };
 }
 
 /**

@@ -11,7 +11,7 @@ import {
   type PlotPoint,
 } from '../reports/pdf/index.js';
 import { APPROACH_LABELS } from '../reports/report-figures.js';
-import { RUN_CAUTION } from './run-export.js';
+import { RUN_CAUTION } from './results-report.js';
 import type { RunDto } from './runs.service.js';
 import type { RunResult, ValidationBasis } from './run-types.js';
 
@@ -158,11 +158,14 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
         u.remarks.join(' '),
       ],
     })),
-    note:
-      calibration.sYX === null
+    note: result.unknowns.some((u) => u.uncertainty?.value)
+      ? '± is the expanded uncertainty U of the result, from the validation (basis below).'
+      : calibration.sYX === null
         ? 'No interval: a one- or two-point calibration has no residual spread to estimate it from.'
         : `± is the ${Math.round(result.confidence * 100)} % confidence interval of the reading (s_x0, Miller & Miller), times the dilution factor.`,
   });
+  for (const basis of new Set(result.unknowns.flatMap((u) => (u.uncertainty ? [u.uncertainty.basis] : []))))
+    pdf.paragraph(`Uncertainty: ${basis}`, { size: 8.5, color: colors.muted });
 
   const bias = result.onePointBias;
   if (bias) {

@@ -1,4 +1,13 @@
-import type { CalibrationModel, DetectionApproach, EvaluationResult, RunStatus, UnknownResult, Weighting } from '@meritline/shared';
+import type {
+  CalibrationModel,
+  DetectionApproach,
+  EvaluationResult,
+  RunResultUncertainty,
+  RunStatus,
+  UncertaintyResult,
+  UnknownResult,
+  Weighting,
+} from '@meritline/shared';
 
 export const RUN_MODELS = ['one-point', 'two-point', 'linear', 'quadratic'] as const;
 export type RunModel = (typeof RUN_MODELS)[number];
@@ -37,6 +46,8 @@ export interface ValidationBasis {
   loqBasis: DetectionApproach | null;
   validatedRange: ValidatedRange | null;
   interceptTest: { intercept: number; p: number; significant: boolean; interceptPctOfTopResponse: number } | null;
+  /** The validation's top-down measurement uncertainty; null when the study has none (absent on runs saved before it was carried). */
+  uncertainty?: Pick<UncertaintyResult, 'coverageFactor' | 'relativeAbove' | 'absolute' | 'relative'> | null;
 }
 
 export interface RunSettings {
@@ -58,6 +69,8 @@ export interface RunUnknown extends Omit<UnknownResult, 'flags'> {
   suggestedDilution: number | null;
   /** False for every result of a rejected run. */
   reportable: boolean;
+  /** U (k = 2 unless the validation says otherwise) from the validation, with its basis in words; absent on older runs. */
+  uncertainty?: RunResultUncertainty;
 }
 
 export interface RunCheck {

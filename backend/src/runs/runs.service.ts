@@ -22,6 +22,7 @@ import type { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
 import { evaluateRun, type RunContext } from './run-calculation.js';
 import { runCsv, runWorkbook } from './run-export.js';
 import { runSheet } from './run-sheet.js';
+import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
 import type { ModelChoice, RunEvaluation, RunResult, ValidatedRange, ValidationBasis } from './run-types.js';
 
@@ -404,7 +405,8 @@ export class RunsService {
 
   async exportFile(id: Run['id'], format: ExportFormat): Promise<RunFile> {
     const run = await this.findOne(id);
-    const body = format === 'csv' ? Buffer.from(runCsv(run), 'utf8') : await runWorkbook(run);
+    const signatures = await this.dataSource.getRepository(RunSignature).find({ where: { runId: id }, order: { signedAt: 'ASC' } });
+    const body = format === 'csv' ? Buffer.from(runCsv(run, signatures), 'utf8') : await runWorkbook(run, signatures);
     return { body, contentType: CONTENT_TYPES[format], filename: fileName(run, format) };
   }
 

@@ -8,6 +8,15 @@ export class ReportVerificationDto {
   @ApiPropertyOptional({ description: 'Why the file is not a valid report (only when valid is false).' })
   reason?: string;
 
+  @ApiPropertyOptional({ enum: ['validation-report', 'results-report'], description: 'Which kind of report the file is.' })
+  kind?: 'validation-report' | 'results-report';
+
+  @ApiPropertyOptional({ format: 'uuid', description: 'Results reports: the released run.' })
+  runId?: string;
+
+  @ApiPropertyOptional()
+  runTitle?: string;
+
   @ApiPropertyOptional({ format: 'uuid' })
   studyId?: string;
 

@@ -1,10 +1,12 @@
 import { useMutation } from '@tanstack/react-query';
+import type { RunReportVerificationDto } from '@meritline/shared';
 import { api } from '@/lib/api-client';
 
 /** The server's answer: only a byte-identical copy of an issued report is valid. */
 export type ReportVerification =
   | {
       valid: true;
+      kind: 'validation-report';
       studyId: string;
       studyTitle: string;
       reportId: string;
@@ -13,6 +15,7 @@ export type ReportVerification =
       signedAt: string;
       sha256: string;
     }
+  | RunReportVerificationDto
   | { valid: false; reason: string };
 
 export const MAX_REPORT_BYTES = 20 * 1024 * 1024;

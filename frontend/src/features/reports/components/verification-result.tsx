@@ -23,13 +23,14 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
       </Alert.Root>
     );
   }
+  const results = verification.kind === 'results-report';
   const rows: [string, string][] = [
-    ['Study', verification.studyTitle],
+    results ? ['Routine run', verification.runTitle] : ['Study', verification.studyTitle],
     ['Method', verification.methodName],
     ['Method version', `Version ${verification.methodVersion}`],
     ['Signed', formatDateTime(verification.signedAt)],
     ['Report id', verification.reportId],
-    ['Study id', verification.studyId],
+    results ? ['Run id', verification.runId] : ['Study id', verification.studyId],
   ];
   return (
     <Alert.Root status="success" variant="surface" alignItems="flex-start">
@@ -39,8 +40,8 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
         <Alert.Description>
           <Stack gap="4">
             <Text>
-              This file is, byte for byte, the validation report this laboratory issued and signed. Its digital signature can also be
-              checked in any PDF reader that shows signatures.
+              This file is, byte for byte, the {results ? 'results report of a released routine run' : 'validation report'} this laboratory
+              issued and signed. Its digital signature can also be checked in any PDF reader that shows signatures.
             </Text>
             <DataList.Root orientation="horizontal" size="sm">
               {rows.map(([label, value]) => (

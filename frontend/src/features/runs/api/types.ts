@@ -3,7 +3,9 @@ import type {
   DetectionApproach,
   EvaluationResult,
   MethodVersionStatus,
+  RunResultUncertainty,
   RunStatus,
+  UncertaintyResult,
   UnknownResult,
   Weighting,
 } from '@meritline/shared';
@@ -48,6 +50,7 @@ export interface ValidationBasis {
   loqBasis: DetectionApproach | null;
   validatedRange: ValidatedRange | null;
   interceptTest: { intercept: number; p: number; significant: boolean; interceptPctOfTopResponse: number } | null;
+  uncertainty?: Pick<UncertaintyResult, 'coverageFactor' | 'relativeAbove' | 'absolute' | 'relative'> | null;
 }
 
 export interface RunOptions {
@@ -81,6 +84,8 @@ export interface RunUnknown extends Omit<UnknownResult, 'flags'> {
   remarks: string[];
   suggestedDilution: number | null;
   reportable: boolean;
+  /** Absent on runs calculated before results carried their uncertainty. */
+  uncertainty?: RunResultUncertainty;
 }
 
 export interface RunCheck {

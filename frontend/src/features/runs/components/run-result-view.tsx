@@ -11,6 +11,11 @@ import { RunPlot } from './run-plot';
 export const RUN_CAUTION =
   'Results are reported under the laboratory’s own procedures and the regulations that apply to the sample (for drinking water and released products, the limits and reporting rules of the competent authority), after review by a qualified person. The results of a rejected run are not reportable.';
 
+/** The basis of the results' uncertainty in words, once per distinct basis. */
+function uncertaintyBases(result: RunResult): string[] {
+  return [...new Set(result.unknowns.flatMap((u) => (u.uncertainty ? [u.uncertainty.basis] : [])))];
+}
+
 function equation(result: RunResult): string {
   const c = result.calibration;
   if (!c) return '—';
@@ -114,6 +119,11 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
           Concentrations include the dilution factor. Limits and the validated range apply to the measured solution, before dilution.
           {calibration?.sYX === null ? ' One- and two-point calibrations have no residual spread, so their results carry no interval.' : ''}
         </Text>
+        {uncertaintyBases(result).map((basis) => (
+          <Text key={basis} fontSize="sm" data-testid="uncertainty-basis">
+            {basis}
+          </Text>
+        ))}
       </Section>
 
       {result.onePointBias && (
