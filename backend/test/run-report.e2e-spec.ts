@@ -190,6 +190,52 @@ describe('signed results report of a routine run', () => {
     await report('00000000-0000-4000-8000-000000000000').expect(404);
   });
 
+  describe('method blanks and QC samples', () => {
+    const withControls = (controls: object) => ({
+      ...runInput(versionId, 'Controls'),
+      data: { ...runInput(versionId, 'Controls').data, ...controls },
+    });
+    const preview = (controls: object) => t.http().post('/api/runs/preview').set(auth(analyst)).send(withControls(controls));
+
+    // Miller & Miller line: b = 1.93, a = 1.52, s_y/x = 0.433; LOD = 3.3·s_y/x / b ≈ 0.74 pg/ml (ICH Q2(R2)).
+    it('should accept a run whose blank stays below the LOD and whose QC sample recovers within the window', async () => {
+      const res = await preview({ blanks: [{ id: 'MB-1', y: [2.5] }], qcSamples: [{ id: 'QC-6', known: 6, y: [13.1] }] }).expect(200);
+      expect(res.body.status).toBe('accepted');
+      expect(res.body.result.blanks).toEqual([expect.objectContaining({ id: 'MB-1', limitBasis: 'lod', pass: true })]);
+      expect(res.body.result.blanks[0].found).toBeCloseTo((2.5 - 1.5179) / 1.9304, 3);
+      expect(res.body.result.qcSamples[0]).toMatchObject({ id: 'QC-6', known: 6, pass: true });
+      expect(res.body.result.qcWindow).toMatchObject({ low: 90, high: 110 });
+      expect(res.body.result.unknowns.map((u: { id: string }) => u.id)).toEqual(['S-1', 'S-2', 'S-3', 'S-4']);
+    });
+
+    it('should reject a run whose blank reads above the LOD or whose QC sample misses the window, with the reason in words', async () => {
+      const res = await preview({ blanks: [{ id: 'MB-1', y: [3.5] }], qcSamples: [{ id: 'QC-6', known: 6, y: [15] }] }).expect(200);
+      expect(res.body.status).toBe('rejected');
+      expect(res.body.rejectionReasons).toEqual([
+        expect.stringMatching(/^Method blank MB-1 read 1\.0\d pg\/ml, not below the LOD of the validation of 0\.740 pg\/ml/),
+        expect.stringMatching(/^QC sample QC-6 recovered 116\.\d % of its known 6 pg\/ml, outside the window of 90 to 110 %/),
+      ]);
+      const limited = await preview({ blanks: [{ id: 'MB-1', y: [3.5], limit: 1.5 }] }).expect(200);
+      expect(limited.body.status).toBe('accepted');
+      expect(limited.body.result.blanks[0]).toMatchObject({ limit: 1.5, limitBasis: 'set', pass: true });
+    });
+
+    it('should refuse malformed blanks and QC samples with the field (422) and save nothing', async () => {
+      const bad = await preview({ blanks: [{ id: 'MB-1', y: [2.5], limit: -1 }], qcSamples: [{ id: 'QC-6', y: [13] }] }).expect(422);
+      expect(bad.body.errors.map((e: { field: string }) => e.field)).toEqual(['data.blanks[0].limit', 'data.qcSamples[0].known']);
+      const empty = await preview({ qcSamples: [{ id: 'QC-6', known: 6, y: [] }] }).expect(422);
+      expect(empty.body.errors[0].field).toBe('data.qcSamples[0].y');
+      const count = (await query('select id from runs')).length;
+      await t
+        .http()
+        .post('/api/runs')
+        .set(auth(analyst))
+        .send(withControls({ blanks: 'none' }))
+        .expect(422);
+      expect(await query('select id from runs')).toHaveLength(count);
+    });
+  });
+
   describe('a released run', () => {
     let runId: string;
     let pdf: Buffer;

@@ -2,6 +2,9 @@ import type {
   CalibrationModel,
   DetectionApproach,
   EvaluationResult,
+  RunBlankResult,
+  RunQcSampleResult,
+  RunQcWindow,
   RunResultUncertainty,
   RunStatus,
   UncertaintyResult,
@@ -12,7 +15,7 @@ import type {
 export const RUN_MODELS = ['one-point', 'two-point', 'linear', 'quadratic'] as const;
 export type RunModel = (typeof RUN_MODELS)[number];
 
-export const RUN_DATA_KEYS = ['model', 'weighting', 'twoPoint', 'standards', 'checks', 'unknowns'] as const;
+export const RUN_DATA_KEYS = ['model', 'weighting', 'twoPoint', 'standards', 'checks', 'unknowns', 'blanks', 'qcSamples'] as const;
 
 export interface ModelChoice {
   model: RunModel;
@@ -107,6 +110,10 @@ export interface RunResult extends Omit<EvaluationResult, 'unknowns' | 'checks'>
   onePointBias: OnePointBias | null;
   acceptance: { tolerancePct: number; low: number; high: number };
   validation: ValidationBasis;
+  /** Method blanks and QC samples of known value (absent on runs saved before they existed). */
+  blanks?: RunBlankResult[];
+  qcSamples?: RunQcSampleResult[];
+  qcWindow?: RunQcWindow;
 }
 
 export interface RunEvaluation {

@@ -14,7 +14,7 @@ import { approvingSignature, failsCriteria } from '../reviews/signatures.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { User } from '../users/user.entity.js';
-import { modelChoices, validationBasis } from './calibration-choices.js';
+import { modelChoices, qcWindow, validationBasis } from './calibration-choices.js';
 import { controlChart, type ControlChart } from './control-chart.js';
 import type { CreateRunDto } from './dto/create-run.dto.js';
 import type { ExportFormat } from './dto/export-run.query.dto.js';
@@ -261,7 +261,13 @@ export class RunsService {
     const { method, settings } = version;
     return {
       version,
-      context: { basis: options.validation, choices: options.models, settings, units: { x: method.xUnit, y: method.yUnit } },
+      context: {
+        basis: options.validation,
+        choices: options.models,
+        settings,
+        units: { x: method.xUnit, y: method.yUnit },
+        qcWindow: qcWindow(version.criteria, settings),
+      },
     };
   }
 

@@ -4,7 +4,7 @@ import { canonicalJson, ENGINE_VERSION, type EvaluationResult } from '@meritline
 import { AuditService } from '../../audit/audit.service.js';
 import { MethodVersion } from '../../methods/method-version.entity.js';
 import { Method } from '../../methods/method.entity.js';
-import { modelChoices, validationBasis } from '../../runs/calibration-choices.js';
+import { modelChoices, qcWindow, validationBasis } from '../../runs/calibration-choices.js';
 import { evaluateRun } from '../../runs/run-calculation.js';
 import { Run } from '../../runs/run.entity.js';
 import { ValidationStudy } from '../../studies/validation-study.entity.js';
@@ -236,6 +236,7 @@ async function seedVersionRuns(manager: EntityManager, version: MethodVersion, r
     choices: modelChoices(basis, version.settings, method.yUnit),
     settings: version.settings,
     units: { x: method.xUnit, y: method.yUnit },
+    qcWindow: qcWindow(version.criteria, version.settings),
   };
   const audit = new AuditService(manager.connection);
   for (const [i, demo] of runs.entries()) {

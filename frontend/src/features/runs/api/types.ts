@@ -3,6 +3,11 @@ import type {
   DetectionApproach,
   EvaluationResult,
   MethodVersionStatus,
+  RunBlankInput,
+  RunBlankResult,
+  RunQcSampleInput,
+  RunQcSampleResult,
+  RunQcWindow,
   RunResultUncertainty,
   RunStatus,
   UncertaintyResult,
@@ -109,6 +114,9 @@ export interface RunResult extends Omit<EvaluationResult, 'unknowns' | 'checks'>
   onePointBias: OnePointBias | null;
   acceptance: { tolerancePct: number; low: number; high: number };
   validation: ValidationBasis;
+  blanks?: RunBlankResult[];
+  qcSamples?: RunQcSampleResult[];
+  qcWindow?: RunQcWindow;
 }
 
 export interface RunData {
@@ -118,6 +126,8 @@ export interface RunData {
   standards: { x: number; y: number; sd?: number; excluded?: { reason: string } }[];
   checks: { id: string; nominal: number; y: number[] }[];
   unknowns: { id: string; y: number[]; dilution?: number }[];
+  blanks?: RunBlankInput[];
+  qcSamples?: RunQcSampleInput[];
 }
 
 export interface RunPreview {

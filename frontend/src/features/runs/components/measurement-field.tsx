@@ -4,7 +4,7 @@ import { FormField } from '@/components/form/form-field';
 import type { RunFormValues } from '../api/create-run';
 
 export interface MeasurementFieldProps {
-  name: 'standards' | 'checks' | 'unknowns';
+  name: 'standards' | 'checks' | 'unknowns' | 'blanks' | 'qcSamples';
   label: string;
   /** The columns, in order, as the analyst would type them. */
   columns: string;

@@ -4,6 +4,7 @@ import { formatR2, type RunStatus } from '@meritline/shared';
 import { formatNumber } from '@/components/study-results';
 import type { RunData, RunResult } from '../api/types';
 import { ChecksTable } from './checks-table';
+import { ControlsTables } from './controls-table';
 import { OnePointBiasTable } from './one-point-bias';
 import { ResultsTable } from './results-table';
 import { RunPlot } from './run-plot';
@@ -63,7 +64,8 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
           <Alert.Content>
             <Alert.Title>The run {saved} accepted</Alert.Title>
             <Alert.Description>
-              Every check standard recovered within {acceptance.low} to {acceptance.high} % of its nominal concentration.
+              Every check standard recovered within {acceptance.low} to {acceptance.high} % of its nominal concentration
+              {result.blanks?.length || result.qcSamples?.length ? '; every method blank and QC sample met its limit.' : '.'}
             </Alert.Description>
           </Alert.Content>
         </Alert.Root>
@@ -135,6 +137,12 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
       <Section title="Check standards">
         <ChecksTable checks={result.checks} xUnit={units.x} yUnit={units.y} />
       </Section>
+
+      {(result.blanks?.length || result.qcSamples?.length) && (
+        <Section title="Method blanks and QC samples">
+          <ControlsTables blanks={result.blanks ?? []} qcSamples={result.qcSamples ?? []} window={result.qcWindow} xUnit={units.x} />
+        </Section>
+      )}
 
       <Text fontSize="sm" color="fg.muted">
         {RUN_CAUTION}
