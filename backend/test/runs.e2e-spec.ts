@@ -579,8 +579,8 @@ describe('routine runs', () => {
       ]);
       const unknownModel = await refused(fluorescenceRun({ model: 'cubic' }), 422);
       expect(fieldsOf(unknownModel)).toEqual(['data.model']);
-      const extra = await refused(fluorescenceRun({ blanks: [0.1, 0.2] }), 422);
-      expect(fieldsOf(extra)).toEqual(['data.blanks']);
+      const extra = await refused(fluorescenceRun({ recovery: [0.1, 0.2] }), 422);
+      expect(fieldsOf(extra)).toEqual(['data.recovery']);
     });
 
     it('should refuse bad request shapes with field messages', async () => {

@@ -42,3 +42,13 @@ export * from './study.js';
 export type * from './result.js';
 export { routineUncertainty } from './engine/routine-uncertainty.js';
 export type * from './api/runs.js';
+export { QC_SERIES, QC_SERIES_LABELS } from './api/runs.js';
+export {
+  controlLimits,
+  controlSignals,
+  CONTROL_RULE_LABELS,
+  MIN_BASELINE_POINTS,
+  type ControlLimits,
+  type ControlRule,
+  type ControlSignal,
+} from './engine/control-rules.js';

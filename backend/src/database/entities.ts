@@ -9,6 +9,8 @@ import { StudySignature } from '../reviews/study-signature.entity.js';
 import { Run } from '../runs/run.entity.js';
 import { RunSignature } from '../runs/run-signature.entity.js';
 import { RunResultsReport } from '../runs/run-results-report.entity.js';
+import { QcBaseline } from '../runs/qc-baseline.entity.js';
+import { QcSignalNotice } from '../runs/qc-signal-notice.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
@@ -28,6 +30,8 @@ export const entities = [
   Run,
   RunSignature,
   RunResultsReport,
+  QcBaseline,
+  QcSignalNotice,
   UserSession,
   AppSetting,
 ];

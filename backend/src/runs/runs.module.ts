@@ -11,6 +11,8 @@ import { User } from '../users/user.entity.js';
 import { MethodVersionRunsController } from './method-version-runs.controller.js';
 import { RunReleaseService } from './run-release.service.js';
 import { RunReportService } from './run-report.service.js';
+import { QcTrendsController } from './qc-trends.controller.js';
+import { QcTrendsService } from './qc-trends.service.js';
 import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
 import { RunsController } from './runs.controller.js';
@@ -25,8 +27,8 @@ import { RunsService } from './runs.service.js';
     NotificationsModule,
     ReportsModule,
   ],
-  controllers: [RunsController, MethodVersionRunsController],
-  providers: [RunsService, RunReleaseService, RunReportService],
+  controllers: [RunsController, MethodVersionRunsController, QcTrendsController],
+  providers: [RunsService, RunReleaseService, RunReportService, QcTrendsService],
   exports: [RunReleaseService],
 })
 export class RunsModule {}

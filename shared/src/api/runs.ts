@@ -65,3 +65,71 @@ export interface RunQcWindow {
   high: number;
   basis: string;
 }
+
+export const QC_SERIES = ['check', 'qc', 'blank', 'slope', 'intercept'] as const;
+export type QcSeries = (typeof QC_SERIES)[number];
+
+export const QC_SERIES_LABELS: Record<QcSeries, string> = {
+  check: 'Check standard recovery',
+  qc: 'QC sample recovery',
+  blank: 'Method blank reading',
+  slope: 'Calibration slope',
+  intercept: 'Calibration intercept',
+};
+
+export interface QcBaselineDto {
+  methodVersionId: string;
+  runIds: string[];
+  chosenBy: { id: string; name: string };
+  chosenAt: string;
+  reason: string;
+  lockVersion: number;
+}
+
+/** PUT /api/method-versions/:id/qc-baseline: the released runs whose points set the control limits. */
+export interface PutQcBaselineRequest {
+  runIds: string[];
+  reason: string;
+  /** The baseline's lock version as loaded; absent when none has been chosen yet. */
+  lockVersion?: number;
+}
+
+export interface QcTrendPoint {
+  runId: string;
+  runTitle: string;
+  createdAt: string;
+  /** The check standard, QC sample or blank the value belongs to; null for slope and intercept. */
+  item: string | null;
+  value: number;
+  /** Part of the baseline that sets the limits (not judged by the rules). */
+  baseline: boolean;
+  /** Rules that fired at this point, in words. */
+  signals: string[];
+}
+
+export interface QcTrendSignalDto {
+  rule: 'beyondAction' | 'twoOfThreeBeyondWarning' | 'sevenOnOneSide' | 'sixTrending';
+  /** The signal in words: the rule, where and which way. */
+  message: string;
+  runId: string;
+  runTitle: string;
+  item: string | null;
+  createdAt: string;
+}
+
+/** GET /api/methods/:id/qc-trends */
+export interface QcTrendsDto {
+  methodId: string;
+  methodName: string;
+  methodVersionId: string;
+  versionNumber: number;
+  series: QcSeries;
+  seriesLabel: string;
+  unit: string;
+  baseline: QcBaselineDto | null;
+  limits: { n: number; mean: number; sd: number; warning: [number, number]; action: [number, number] } | null;
+  points: QcTrendPoint[];
+  signals: QcTrendSignalDto[];
+  /** Why there are no limits, in words; null when there are. */
+  message: string | null;
+}

@@ -6,6 +6,7 @@ import { SessionsAndPasswordReset1764640000000 } from './1764640000000-sessions-
 import { MethodChangeControl1764650000000 } from './1764650000000-method-change-control.js';
 import { RunRelease1764660000000 } from './1764660000000-run-release.js';
 import { RunResultsReports1796428699593 } from './1796428699593-run-results-reports.js';
+import { QcTrends1796429841749 } from './1796429841749-qc-trends.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -16,4 +17,5 @@ export const migrations = [
   MethodChangeControl1764650000000,
   RunRelease1764660000000,
   RunResultsReports1796428699593,
+  QcTrends1796429841749,
 ];
