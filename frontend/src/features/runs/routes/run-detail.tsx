@@ -107,7 +107,7 @@ export default function RunDetailPage() {
         />
         <Text fontSize="xs" color="fg.muted">
           Saved runs do not change: a correction is a new run. Data SHA-256 {r.dataHash} · engine {r.engineVersion} ·{' '}
-          <RouterLink to={paths.runControlChart.getHref(r.methodVersionId)}>slope control chart of this version</RouterLink>
+          <RouterLink to={paths.runControlChart.getHref(r.methodVersionId)}>control charts of this version</RouterLink>
         </Text>
       </Stack>
     </>
