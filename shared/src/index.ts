@@ -42,7 +42,7 @@ export * from './study.js';
 export type * from './result.js';
 export { routineUncertainty } from './engine/routine-uncertainty.js';
 export type * from './api/runs.js';
-export { QC_SERIES, QC_SERIES_LABELS } from './api/runs.js';
+export { QC_SERIES, QC_SERIES_LABELS, IMPORT_MAPPING_FIELDS, IMPORT_MAPPING_LABELS } from './api/runs.js';
 export {
   controlLimits,
   controlSignals,

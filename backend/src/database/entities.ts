@@ -11,6 +11,7 @@ import { RunSignature } from '../runs/run-signature.entity.js';
 import { RunResultsReport } from '../runs/run-results-report.entity.js';
 import { QcBaseline } from '../runs/qc-baseline.entity.js';
 import { QcSignalNotice } from '../runs/qc-signal-notice.entity.js';
+import { RunImportMapping } from '../runs/run-import-mapping.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
@@ -32,6 +33,7 @@ export const entities = [
   RunResultsReport,
   QcBaseline,
   QcSignalNotice,
+  RunImportMapping,
   UserSession,
   AppSetting,
 ];

@@ -13,6 +13,7 @@ import { RunReleaseService } from './run-release.service.js';
 import { RunReportService } from './run-report.service.js';
 import { QcTrendsController } from './qc-trends.controller.js';
 import { QcTrendsService } from './qc-trends.service.js';
+import { InstrumentImportService } from './instrument-import.service.js';
 import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
 import { RunsController } from './runs.controller.js';
@@ -28,7 +29,7 @@ import { RunsService } from './runs.service.js';
     ReportsModule,
   ],
   controllers: [RunsController, MethodVersionRunsController, QcTrendsController],
-  providers: [RunsService, RunReleaseService, RunReportService, QcTrendsService],
+  providers: [RunsService, RunReleaseService, RunReportService, QcTrendsService, InstrumentImportService],
   exports: [RunReleaseService],
 })
 export class RunsModule {}

@@ -133,3 +133,58 @@ export interface QcTrendsDto {
   /** Why there are no limits, in words; null when there are. */
   message: string | null;
 }
+
+/** The run fields an instrument export's columns are mapped to. */
+export const IMPORT_MAPPING_FIELDS = ['sampleId', 'sampleType', 'response', 'replicate', 'dilution', 'concentration'] as const;
+export type ImportMappingField = (typeof IMPORT_MAPPING_FIELDS)[number];
+
+export const IMPORT_MAPPING_LABELS: Record<ImportMappingField, string> = {
+  sampleId: 'Sample name',
+  sampleType: 'Sample type',
+  response: 'Response',
+  replicate: 'Replicate',
+  dilution: 'Dilution factor',
+  concentration: 'Concentration (standards, checks and QC samples)',
+};
+
+/** Column header per field; replicate, dilution and concentration may be left unmapped (null). */
+export interface ImportMappingColumns {
+  sampleId: string;
+  sampleType: string;
+  response: string;
+  replicate: string | null;
+  dilution: string | null;
+  concentration: string | null;
+}
+
+/** GET /api/method-versions/:id/import-mapping */
+export interface ImportMappingDto {
+  methodVersionId: string;
+  /** Null until a mapping has been saved for the version. */
+  columns: ImportMappingColumns | null;
+  /** 0 while none is saved. */
+  lockVersion: number;
+  updatedBy: string | null;
+  updatedAt: string | null;
+}
+
+/** PUT /api/method-versions/:id/import-mapping */
+export interface PutImportMappingRequest {
+  columns: ImportMappingColumns;
+  /** The lock version as loaded (0 for the first mapping). */
+  lockVersion: number;
+}
+
+/** The measurements of an instrument export, in the shape a new run takes. */
+export interface InstrumentImportData {
+  standards: { x: number; y: number }[];
+  checks: { id: string; nominal: number; y: number[] }[];
+  unknowns: { id: string; y: number[]; dilution?: number }[];
+  blanks: RunBlankInput[];
+  qcSamples: RunQcSampleInput[];
+}
+
+/** POST /api/method-versions/:id/instrument-import */
+export type InstrumentImportResult =
+  | { status: 'needs-mapping'; columns: string[]; preview: (string | number | null)[][] }
+  | { status: 'parsed'; columns: string[]; data: InstrumentImportData; rows: number };

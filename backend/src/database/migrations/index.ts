@@ -7,6 +7,7 @@ import { MethodChangeControl1764650000000 } from './1764650000000-method-change-
 import { RunRelease1764660000000 } from './1764660000000-run-release.js';
 import { RunResultsReports1796428699593 } from './1796428699593-run-results-reports.js';
 import { QcTrends1796429841749 } from './1796429841749-qc-trends.js';
+import { RunImportMappings1796430502016 } from './1796430502016-run-import-mappings.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -18,4 +19,5 @@ export const migrations = [
   RunRelease1764660000000,
   RunResultsReports1796428699593,
   QcTrends1796429841749,
+  RunImportMappings1796430502016,
 ];
