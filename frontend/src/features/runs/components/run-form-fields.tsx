@@ -11,6 +11,7 @@ import type { MethodChoice, RunModel, RunOptions } from '../api/types';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { parseBlanks, parseChecks, parseQcSamples, parseStandards, parseUnknowns } from '../utils/measurement-text';
 import { MeasurementField } from './measurement-field';
+import { InstrumentImport } from './instrument-import';
 import { ModelPicker } from './model-picker';
 import { RunResultView } from './run-result-view';
 import { VersionSelect } from './version-filter';
@@ -191,6 +192,8 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
           </Stack>
         </>
       )}
+
+      {options.data?.usable && <InstrumentImport versionId={values.methodVersionId} />}
 
       <SimpleGrid columns={{ base: 1, lg: 2 }} gap="6">
         <MeasurementField
