@@ -75,6 +75,7 @@ export interface RunSummaryDto {
   id: string;
   title: string;
   status: RunStatus;
+  reviewStatus: Run['reviewStatus'];
   model: string;
   methodVersionId: string;
   versionNumber: number;
@@ -377,6 +378,7 @@ export class RunsService {
           id: run.id,
           title: run.title,
           status: run.status,
+          reviewStatus: run.reviewStatus,
           model: run.model,
           methodVersionId: run.methodVersionId,
           versionNumber: run.methodVersion.number,

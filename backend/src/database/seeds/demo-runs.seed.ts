@@ -261,7 +261,7 @@ async function releaseAsBaseline(manager: EntityManager, version: MethodVersion,
       },
     ]);
   }
-  const reason = 'Demo: the first released runs after the column change, with the instrument in control.';
+  const reason = 'Demo: the first released runs after the column change, with the instrument in control';
   await manager.insert(QcBaseline, {
     methodVersionId: version.id,
     runIds: runs.map((r) => r.id),

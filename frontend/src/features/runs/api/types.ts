@@ -9,6 +9,7 @@ import type {
   RunQcSampleResult,
   RunQcWindow,
   RunResultUncertainty,
+  RunReviewStatus,
   RunStatus,
   UncertaintyResult,
   UnknownResult,
@@ -154,6 +155,7 @@ export interface RunSummary {
   id: string;
   title: string;
   status: RunStatus;
+  reviewStatus: RunReviewStatus;
   model: RunModel;
   methodVersionId: string;
   versionNumber: number;

@@ -61,8 +61,9 @@ export function InstrumentImport({ versionId }: { versionId: string }) {
     void setFieldValue('unknowns', unknownsText(data.unknowns));
     void setFieldValue('blanks', blanksText(data.blanks));
     void setFieldValue('qcSamples', qcSamplesText(data.qcSamples));
+    const n = (count: number, one: string, many = `${one}s`) => `${count} ${count === 1 ? one : many}`;
     setDone(
-      `Read ${rows} rows: ${data.standards.length} standard readings, ${data.checks.length} check standards, ${data.unknowns.length} samples, ${data.blanks.length} method blanks and ${data.qcSamples.length} QC samples. Check them below before saving the run.`,
+      `Read ${n(rows, 'row')}: ${n(data.standards.length, 'standard reading')}, ${n(data.checks.length, 'check standard')}, ${n(data.unknowns.length, 'sample')}, ${n(data.blanks.length, 'method blank')} and ${n(data.qcSamples.length, 'QC sample')}. Check them below before saving the run.`,
     );
   };
 

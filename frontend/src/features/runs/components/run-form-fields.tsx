@@ -220,6 +220,7 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
         />
         <MeasurementField
           name="blanks"
+          optional
           label="Method blanks (optional)"
           columns={`name, limit${xUnit ? ` (${xUnit})` : ''} or empty for the LOD, responses`}
           example={'MB-1\t\t0.004'}
@@ -227,6 +228,7 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
         />
         <MeasurementField
           name="qcSamples"
+          optional
           label="QC samples of known value (optional)"
           columns={`name, known value${xUnit ? ` (${xUnit})` : ''}, dilution factor (empty for none), responses`}
           example={'QC 20 mg/L\t20\t\t3.05'}

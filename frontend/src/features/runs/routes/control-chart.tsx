@@ -1,14 +1,17 @@
-import { Alert, Box, Field, Link, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { QC_SERIES, QC_SERIES_LABELS, type QcSeries, type QcTrendSignalDto } from '@meritline/shared';
+import { Alert, Box, Button, Field, Link, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { QC_SERIES, QC_SERIES_LABELS, Role, type QcSeries, type QcTrendSignalDto } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
 import { formatNumber } from '@/components/study-results';
+import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { formatDateTime } from '@/lib/format';
 import { runsQueries } from '../api/runs-queries';
+import { BaselinePicker } from '../components/baseline-picker';
 import { TrendChartPlot } from '../components/trend-chart-plot';
 import { VersionSelect } from '../components/version-filter';
 
@@ -33,6 +36,9 @@ export default function ControlChartPage() {
   const versionId = params.get('versionId') ?? '';
   const seriesParam = params.get('series');
   const series: QcSeries = isSeries(seriesParam) ? seriesParam : 'slope';
+  const { user } = useSession();
+  const isQualityManager = user?.roles.includes(Role.QualityManager) ?? false;
+  const [picking, setPicking] = useState(false);
   const methods = useQuery(runsQueries.methodChoices());
   const methodId = methods.data?.find((m) => m.versions.some((v) => v.id === versionId))?.id ?? '';
   const chart = useQuery({ ...runsQueries.qcTrends(methodId, series, versionId), enabled: methodId !== '' });
@@ -77,6 +83,14 @@ export default function ControlChartPage() {
         {chart.isError && <QueryError error={chart.error} onRetry={() => void chart.refetch()} />}
         {chart.data && (
           <>
+            {isQualityManager && !picking && (
+              <Box>
+                <Button size="sm" variant="outline" onClick={() => setPicking(true)}>
+                  {chart.data.baseline ? 'Change the baseline' : 'Choose the baseline'}
+                </Button>
+              </Box>
+            )}
+            {picking && <BaselinePicker key={chart.data.methodVersionId} chart={chart.data} onClose={() => setPicking(false)} />}
             {chart.data.message && (
               <Alert.Root status="info" variant="surface">
                 <Alert.Indicator />
