@@ -113,7 +113,7 @@ test('an analyst calibrates a run with two points, then with one point, and expo
       .locator('.main-svg')
       .first(),
   ).toBeVisible(PLOT_TIMEOUT);
-  await expect(page.getByRole('table', { name: 'Runs with a signal' })).toBeVisible();
+  await expect(page.getByRole('table', { name: 'Signals' })).toBeVisible();
   await shot(page, 'control-chart');
 });
 
