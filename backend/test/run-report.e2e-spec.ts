@@ -220,6 +220,23 @@ describe('signed results report of a routine run', () => {
       expect(limited.body.result.blanks[0]).toMatchObject({ limit: 1.5, limitBasis: 'set', pass: true });
     });
 
+    it('should print the blanks, the QC samples and their window on the run sheet', async () => {
+      const saved = await t
+        .http()
+        .post('/api/runs')
+        .set(auth(analyst))
+        .send(withControls({ blanks: [{ id: 'MB-1', y: [2.5] }], qcSamples: [{ id: 'QC-6', known: 6, y: [13.1] }] }))
+        .expect(201);
+      const sheet = await t.http().get(`/api/runs/${saved.body.id}/sheet`).set(auth(analyst)).buffer(true).parse(binary).expect(200);
+      const file = `${OUTPUT}run-sheet-controls.pdf`;
+      writeFileSync(file, sheet.body as Buffer);
+      const text = pdftotext(file);
+      expect(text).toContain('Method blanks and QC samples');
+      expect(text).toMatch(/MB-1\s+0\.5\d+\s+0\.740 \(LOD\)\s+below the limit/);
+      expect(text).toMatch(/QC window: 90 to 110 % recovery/);
+      expect(text).toContain('Uncertainty: Expanded uncertainty U (k = 2)');
+    });
+
     it('should refuse malformed blanks and QC samples with the field (422) and save nothing', async () => {
       const bad = await preview({ blanks: [{ id: 'MB-1', y: [2.5], limit: -1 }], qcSamples: [{ id: 'QC-6', y: [13] }] }).expect(422);
       expect(bad.body.errors.map((e: { field: string }) => e.field)).toEqual(['data.blanks[0].limit', 'data.qcSamples[0].known']);

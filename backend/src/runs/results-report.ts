@@ -139,7 +139,11 @@ export async function renderResultsReport(content: ResultsReportContent): Promis
     },
   );
   pdf.paragraph(
-    `Acceptance: every check standard of the run recovered within ${result.acceptance.low} to ${result.acceptance.high} % of its nominal value.`,
+    `Acceptance: every check standard of the run recovered within ${result.acceptance.low} to ${result.acceptance.high} % of its nominal value${
+      result.blanks?.length || result.qcSamples?.length
+        ? `; ${result.blanks?.length ?? 0} method blank(s) stayed below their limit and ${result.qcSamples?.length ?? 0} QC sample(s) recovered within ${result.qcWindow?.low} to ${result.qcWindow?.high} %`
+        : ''
+    }.`,
     { size: sizes.small, color: colors.muted },
   );
 

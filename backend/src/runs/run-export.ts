@@ -84,6 +84,26 @@ export async function runWorkbook(run: RunDto, signatures: ReportSignature[]): P
       Outcome: c.pass ? 'pass' : 'fail',
     })),
   );
+  addTable(workbook.addWorksheet('Blanks and QC samples'), [
+    ...(result.blanks ?? []).map((b) => ({
+      Kind: 'method blank',
+      Name: b.id,
+      [`Known (${xUnit})`]: null,
+      [`Found (${xUnit})`]: rounded(b.found),
+      'Recovery (%)': null,
+      Limit: `below ${rounded(b.limit, 3)} ${xUnit} (${b.limitBasis === 'lod' ? 'LOD of the validation' : 'set limit'})`,
+      Outcome: b.pass ? 'pass' : 'fail',
+    })),
+    ...(result.qcSamples ?? []).map((q) => ({
+      Kind: 'QC sample',
+      Name: q.id,
+      [`Known (${xUnit})`]: q.known,
+      [`Found (${xUnit})`]: rounded(q.found),
+      'Recovery (%)': rounded(q.recoveryPct, 4),
+      Limit: result.qcWindow ? `${result.qcWindow.low} to ${result.qcWindow.high} % recovery` : '',
+      Outcome: q.pass ? 'pass' : 'fail',
+    })),
+  ]);
   addTable(
     workbook.addWorksheet('Standards'),
     ((run.data.standards as { x: number; y: number; excluded?: { reason: string } }[]) ?? []).map((s) => ({
