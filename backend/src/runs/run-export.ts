@@ -84,7 +84,7 @@ export async function runWorkbook(run: RunDto, signatures: ReportSignature[]): P
       Outcome: c.pass ? 'pass' : 'fail',
     })),
   );
-  addTable(workbook.addWorksheet('Blanks and QC samples'), [
+  const controls = [
     ...(result.blanks ?? []).map((b) => ({
       Kind: 'method blank',
       Name: b.id,
@@ -103,7 +103,8 @@ export async function runWorkbook(run: RunDto, signatures: ReportSignature[]): P
       Limit: result.qcWindow ? `${result.qcWindow.low} to ${result.qcWindow.high} % recovery` : '',
       Outcome: q.pass ? 'pass' : 'fail',
     })),
-  ]);
+  ];
+  if (controls.length) addTable(workbook.addWorksheet('Blanks and QC samples'), controls);
   addTable(
     workbook.addWorksheet('Standards'),
     ((run.data.standards as { x: number; y: number; excluded?: { reason: string } }[]) ?? []).map((s) => ({
