@@ -108,6 +108,24 @@ describe('instrument exports mapped once per method version', () => {
     ]);
   });
 
+  it('should keep the study import’s limits: over 20,000 rows 422, over 5 MB 413, a binary file 415', async () => {
+    const many = await upload(`${EXPORT.split('\n')[0]}\n${'6;W;Sample;;;1,0;AR\n'.repeat(20_001)}`).expect(422);
+    expect(many.body.errors[0]).toMatchObject({
+      field: 'file',
+      code: 'too_many_rows',
+      message: expect.stringMatching(/more than 20,000 data rows/),
+    });
+    const huge = Buffer.alloc(5 * 1024 * 1024 + 1, 'x');
+    await t
+      .http()
+      .post(`/api/method-versions/${versionId}/instrument-import`)
+      .set(auth(analyst))
+      .attach('file', huge, 'huge.csv')
+      .expect(413);
+    const png = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0]);
+    await t.http().post(`/api/method-versions/${versionId}/instrument-import`).set(auth(analyst)).attach('file', png, 'x.png').expect(415);
+  });
+
   it('should refuse anonymous callers (401), a missing file (400) and unknown versions (404)', async () => {
     await t.http().post(`/api/method-versions/${versionId}/instrument-import`).attach('file', Buffer.from(EXPORT), 'e.csv').expect(401);
     await t.http().post(`/api/method-versions/${versionId}/instrument-import`).set(auth(analyst)).expect(400);

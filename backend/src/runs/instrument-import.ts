@@ -1,6 +1,6 @@
 import type { FieldError, ImportMappingColumns, ImportMappingField, InstrumentImportData } from '@meritline/shared';
 import { IMPORT_MAPPING_LABELS } from '@meritline/shared';
-import type { Cell, ImportTable } from '../studies/import-table.js';
+import { MAX_IMPORT_ROWS, type Cell, type ImportTable } from '../studies/import-table.js';
 import { parseNumber } from '../studies/study-import.js';
 
 export type SampleKind = 'standard' | 'check' | 'blank' | 'qc' | 'unknown';
@@ -44,7 +44,10 @@ export function readInstrumentExport(
   }
   const data: InstrumentImportData = { standards: [], checks: [], unknowns: [], blanks: [], qcSamples: [] };
   if (errors.length) return { data, errors };
-  if (table.tooManyRows) errors.push({ field: 'file', code: 'too_many_rows', message: 'The file has more rows than an import takes.' });
+  if (table.tooManyRows) {
+    const message = `The file has more than ${MAX_IMPORT_ROWS.toLocaleString('en-GB')} data rows; split it into runs of that size or fewer.`;
+    return { data, errors: [{ field: 'file', code: 'too_many_rows', message }] };
+  }
 
   type Reading = {
     kind: SampleKind;
