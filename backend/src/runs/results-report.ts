@@ -33,6 +33,8 @@ const MEANING_WORDS: Record<RunSignatureMeaning, string> = {
   'reviewed-and-released': 'Reviewed the run and released its results',
 };
 
+const count = (n: number, one: string) => `${n} ${one}${n === 1 ? '' : 's'}`;
+
 const stripUnit = (text: string, unit: string) => (unit && text.endsWith(` ${unit}`) ? text.slice(0, -unit.length - 1) : text);
 
 /** The result and its U as printed: the value to the decimal place of U (two significant figures), "< LOQ" and "> top" as such. */
@@ -141,7 +143,7 @@ export async function renderResultsReport(content: ResultsReportContent): Promis
   pdf.paragraph(
     `Acceptance: every check standard of the run recovered within ${result.acceptance.low} to ${result.acceptance.high} % of its nominal value${
       result.blanks?.length || result.qcSamples?.length
-        ? `; ${result.blanks?.length ?? 0} method blank(s) stayed below their limit and ${result.qcSamples?.length ?? 0} QC sample(s) recovered within ${result.qcWindow?.low} to ${result.qcWindow?.high} %`
+        ? `; ${count(result.blanks?.length ?? 0, 'method blank')} below the limit and ${count(result.qcSamples?.length ?? 0, 'QC sample')} within ${result.qcWindow?.low} to ${result.qcWindow?.high} % recovery`
         : ''
     }.`,
     { size: sizes.small, color: colors.muted },
