@@ -579,8 +579,8 @@ describe('routine runs', () => {
       ]);
       const unknownModel = await refused(fluorescenceRun({ model: 'cubic' }), 422);
       expect(fieldsOf(unknownModel)).toEqual(['data.model']);
-      const extra = await refused(fluorescenceRun({ blanks: [0.1, 0.2] }), 422);
-      expect(fieldsOf(extra)).toEqual(['data.blanks']);
+      const extra = await refused(fluorescenceRun({ recovery: [0.1, 0.2] }), 422);
+      expect(fieldsOf(extra)).toEqual(['data.recovery']);
     });
 
     it('should refuse bad request shapes with field messages', async () => {
@@ -687,7 +687,7 @@ describe('routine runs', () => {
       // A rejected run is never released, so its export is refused; the CSV it would give still marks every row not reportable.
       const refusedExport = await t.http().get(`/api/runs/${rejectedId}/export?format=csv`).set(auth(analyst)).expect(409);
       expect(refusedExport.body.message).toMatch(/released/);
-      const rejected = { text: runCsv(await t.app.get(RunsService).findOne(rejectedId)) };
+      const rejected = { text: runCsv(await t.app.get(RunsService).findOne(rejectedId), []) };
       const rows = Papa.parse<Record<string, string>>(rejected.text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true }).data;
       expect(rows.every((r) => r.Reportable === 'no: run rejected')).toBe(true);
     });

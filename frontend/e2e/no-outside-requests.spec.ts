@@ -52,8 +52,8 @@ test('the study results, a run and the control chart draw their plots without as
   await runs.getByRole('row').filter({ hasText: 'Accepted' }).first().getByRole('link').first().click();
   await expectPlotStaysInside(page, /^Run calibration/);
 
-  await page.getByRole('link', { name: 'slope control chart of this version' }).click();
-  await expectPlotStaysInside(page, /^Slope control chart/);
+  await page.getByRole('link', { name: 'control charts of this version' }).click();
+  await expectPlotStaysInside(page, /^Calibration slope control chart/);
 
   expect(outside).toEqual([]);
 });

@@ -106,14 +106,14 @@ test('an analyst calibrates a run with two points, then with one point, and expo
   expect(csv).toMatch(/W-2811 tap water, Riverside/);
   expect(download.suggestedFilename()).toMatch(/\.csv$/);
 
-  await page.getByRole('link', { name: 'slope control chart of this version' }).click();
+  await page.getByRole('link', { name: 'control charts of this version' }).click();
   await expect(
     page
-      .getByRole('group', { name: /^Slope control chart/ })
+      .getByRole('group', { name: /^Calibration slope control chart/ })
       .locator('.main-svg')
       .first(),
   ).toBeVisible(PLOT_TIMEOUT);
-  await expect(page.getByRole('table', { name: 'Runs with a signal' })).toBeVisible();
+  await expect(page.getByRole('table', { name: 'Signals' })).toBeVisible();
   await shot(page, 'control-chart');
 });
 

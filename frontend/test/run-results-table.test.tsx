@@ -1,4 +1,5 @@
 import { screen, within } from '@testing-library/react';
+import { ControlsTables } from '@/features/runs/components/controls-table';
 import { ResultsTable } from '@/features/runs/components/results-table';
 import type { RunUnknown } from '@/features/runs/api/types';
 import { renderWithProviders } from './render';
@@ -34,5 +35,35 @@ describe('run results', () => {
     expect(row).toHaveTextContent('322.5 ± 3.1');
     expect(row).not.toHaveTextContent('322.54');
     expect(row).toHaveTextContent('calibration confidence interval, 95 %');
+  });
+
+  it('shows the expanded uncertainty of the validation instead of the interval when the result carries one', async () => {
+    // U = 6 % of 322.54 = 19.35 → 19 (two significant digits, JCGM 100:2008 7.2.6), the result to the same place.
+    const withU = {
+      ...sample,
+      uncertainty: { value: { U: 19.35, coverageFactor: 2, expressedAs: 'relative', relativePct: 6 }, basis: 'From the validation.' },
+    };
+    renderWithProviders(<ResultsTable unknowns={[withU as RunUnknown]} xUnit="mg/L" yUnit="µS·min" confidence={0.95} />);
+    const row = within(await screen.findByRole('table', { name: 'Sample results' })).getByRole('row', { name: /W-2901/ });
+    expect(row).toHaveTextContent('323 ± 19');
+    expect(row).toHaveTextContent('expanded uncertainty U, k = 2');
+  });
+
+  it('says in words whether each method blank and QC sample met its limit', async () => {
+    renderWithProviders(
+      <ControlsTables
+        blanks={[{ id: 'MB-1', yMean: 0.05, found: 0.31, limit: 0.0304, limitBasis: 'lod', pass: false }]}
+        qcSamples={[{ id: 'QC 20', known: 20, dilution: 1, yMean: 3.05, found: 20.02, recoveryPct: 100.1, pass: true }]}
+        window={{ low: 80, high: 120, basis: 'the mean-recovery criterion of this method version' }}
+        xUnit="mg/L"
+      />,
+    );
+    expect(within(await screen.findByRole('table', { name: 'Method blanks' })).getByRole('row', { name: /MB-1/ })).toHaveTextContent(
+      'Not below the limit',
+    );
+    expect(within(screen.getByRole('table', { name: 'QC samples' })).getByRole('row', { name: /QC 20/ })).toHaveTextContent(
+      'Within the window',
+    );
+    expect(screen.getByText(/must recover 80 to 120 % of their known value/)).toBeInTheDocument();
   });
 });

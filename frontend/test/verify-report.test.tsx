@@ -10,6 +10,7 @@ describe('verify a report page', () => {
       'POST /api/reports/verify': {
         body: {
           valid: true,
+          kind: 'validation-report',
           studyId: '9b0c6d52-1e7f-4a3b-8c2d-5f6e7a8b9c01',
           studyTitle: 'Validation after the column change',
           reportId: '3f2a9c1e-7b44-4d0e-9a51-6c2d8e0f4b17',

@@ -56,3 +56,15 @@ export {
 export type * from './api/comparisons.js';
 export * from './api/reference-materials.js';
 export * from './api/preparations.js';
+export { routineUncertainty } from './engine/routine-uncertainty.js';
+export type * from './api/runs.js';
+export { QC_SERIES, QC_SERIES_LABELS, IMPORT_MAPPING_FIELDS, IMPORT_MAPPING_LABELS } from './api/runs.js';
+export {
+  controlLimits,
+  controlSignals,
+  CONTROL_RULE_LABELS,
+  MIN_BASELINE_POINTS,
+  type ControlLimits,
+  type ControlRule,
+  type ControlSignal,
+} from './engine/control-rules.js';

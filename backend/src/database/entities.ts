@@ -9,6 +9,10 @@ import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { Run } from '../runs/run.entity.js';
 import { RunSignature } from '../runs/run-signature.entity.js';
+import { RunResultsReport } from '../runs/run-results-report.entity.js';
+import { QcBaseline } from '../runs/qc-baseline.entity.js';
+import { QcSignalNotice } from '../runs/qc-signal-notice.entity.js';
+import { RunImportMapping } from '../runs/run-import-mapping.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { AppSetting } from '../auth/app-setting.entity.js';
 import { UserSession } from '../auth/user-session.entity.js';
@@ -30,6 +34,10 @@ export const entities = [
   Run,
   RunSignature,
   ChangeAssessment,
+  RunResultsReport,
+  QcBaseline,
+  QcSignalNotice,
+  RunImportMapping,
   UserSession,
   AppSetting,
   ReferenceMaterial,

@@ -3,7 +3,7 @@ import { ConflictException, Inject, Injectable, Logger, NotFoundException } from
 import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash, randomUUID } from 'node:crypto';
 import { DataSource, In } from 'typeorm';
-import type { EvaluationResult, StudyInput } from '@meritline/shared';
+import type { EvaluationResult, RunReportVerificationDto, StudyInput } from '@meritline/shared';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';
@@ -13,6 +13,9 @@ import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { writeTransaction } from '../database/write-transaction.js';
+import { RESULTS_REPORT_ID_INFO_KEY } from '../runs/results-report.js';
+import { RunResultsReport } from '../runs/run-results-report.entity.js';
+import { Run } from '../runs/run.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { formatDateTime } from './pdf/index.js';
 import type { ReportContent } from './report-content.js';
@@ -35,10 +38,10 @@ export interface ReportFile {
 }
 
 /** The report id a PDF names in its information dictionary, written directly or as a reference to a string object. */
-function claimedReportId(pdf: string): string | null {
-  const direct = new RegExp(`/${REPORT_ID_INFO_KEY}\\s*\\(([0-9a-f-]{36})\\)`).exec(pdf);
+function claimedReportId(pdf: string, key = REPORT_ID_INFO_KEY): string | null {
+  const direct = new RegExp(`/${key}\\s*\\(([0-9a-f-]{36})\\)`).exec(pdf);
   if (direct) return direct[1];
-  const reference = new RegExp(`/${REPORT_ID_INFO_KEY}\\s+(\\d+)\\s+0\\s+R`).exec(pdf);
+  const reference = new RegExp(`/${key}\\s+(\\d+)\\s+0\\s+R`).exec(pdf);
   return reference ? (new RegExp(`(?:^|\\s)${reference[1]}\\s+0\\s+obj\\s*\\(([0-9a-f-]{36})\\)`).exec(pdf)?.[1] ?? null) : null;
 }
 
@@ -157,13 +160,38 @@ export class ReportsService {
         sha256: report.sha256,
       };
     }
+    const results = this.dataSource.getRepository(RunResultsReport);
+    const resultsReport = await results.findOne({
+      where: { sha256: sha256(file) },
+      select: { id: true, runId: true, sha256: true, signedAt: true },
+    });
+    if (resultsReport) {
+      const run = await this.dataSource
+        .getRepository(Run)
+        .findOneOrFail({ where: { id: resultsReport.runId }, relations: { methodVersion: { method: true } } });
+      return {
+        valid: true,
+        kind: 'results-report',
+        reportId: resultsReport.id,
+        runId: run.id,
+        runTitle: run.title,
+        methodName: run.methodVersion.method.name,
+        methodVersion: run.methodVersion.number,
+        signedAt: resultsReport.signedAt.toISOString(),
+        sha256: resultsReport.sha256,
+      };
+    }
     const assessment = await this.findAssessment({ sha256: sha256(file) });
     if (assessment) return assessment;
-    const claimed = claimedReportId(file.toString('latin1'));
+    const text = file.toString('latin1');
+    const claimed = claimedReportId(text);
+    const claimedResults = claimedReportId(text, RESULTS_REPORT_ID_INFO_KEY);
     const original = claimed
       ? ((await reports.findOne({ where: { id: claimed }, select: { id: true, signedAt: true } })) ??
         (await this.dataSource.getRepository(ChangeAssessment).findOne({ where: { id: claimed }, select: { id: true, signedAt: true } })))
-      : null;
+      : claimedResults
+        ? await results.findOne({ where: { id: claimedResults }, select: { id: true, signedAt: true } })
+        : null;
     if (original) {
       return {
         valid: false,

@@ -1,4 +1,4 @@
-import type { DetectionApproach, DetectionResult, EvaluationResult } from '@meritline/shared';
+import type { DetectionApproach, DetectionResult, EvaluationResult, RunQcWindow } from '@meritline/shared';
 import { formatSignificant } from './report-format.js';
 import type { ModelChoice, RunSettings, ValidatedRange, ValidationBasis } from './run-types.js';
 
@@ -74,6 +74,14 @@ export function validationBasis(study: ApprovedStudy): ValidationBasis | null {
     interceptTest: test
       ? { intercept: test.intercept, p: test.p, significant: test.significant, interceptPctOfTopResponse: test.interceptPctOfTopResponse }
       : null,
+    uncertainty: result.uncertainty
+      ? {
+          coverageFactor: result.uncertainty.coverageFactor,
+          relativeAbove: result.uncertainty.relativeAbove,
+          absolute: result.uncertainty.absolute,
+          relative: result.uncertainty.relative,
+        }
+      : null,
   };
 }
 
@@ -127,4 +135,18 @@ export function modelChoices(basis: ValidationBasis | null, settings: RunSetting
           reason: 'The validation showed a straight line; a quadratic calibration was not validated for this version.',
         },
   ];
+}
+
+/**
+ * The recovery window of QC samples of known value: the version's criterion on the mean recovery
+ * when it gives one as a range, else the check standards' window.
+ */
+export function qcWindow(criteria: { figure: string; op: string; value: number | [number, number] }[], settings: RunSettings): RunQcWindow {
+  const recovery = criteria.find((c) => c.figure === 'recovery.overall.meanPct' && c.op === 'between' && Array.isArray(c.value));
+  if (recovery) {
+    const [low, high] = recovery.value as [number, number];
+    return { low, high, basis: 'the mean-recovery criterion of this method version' };
+  }
+  const t = settings.checkTolerancePct;
+  return { low: 100 - t, high: 100 + t, basis: 'the check-standard window of this method version, as it sets no recovery range' };
 }

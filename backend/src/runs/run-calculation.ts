@@ -1,6 +1,13 @@
 import {
   evaluateStudy,
+  routineUncertainty,
   StudyValidationError,
+  type RunBlankInput,
+  type RunBlankResult,
+  type RunQcSampleInput,
+  type RunQcSampleResult,
+  type RunQcWindow,
+  type RunResultUncertainty,
   type CalibrationResult,
   type FieldError,
   type StudyInput,
@@ -26,6 +33,69 @@ export interface RunContext {
   choices: ModelChoice[];
   settings: RunSettings;
   units: Units;
+  /** The recovery window of QC samples of known value. */
+  qcWindow: RunQcWindow;
+}
+
+const MAX_ROWS = 500;
+const MAX_READINGS = 100;
+const MAX_ID = 80;
+
+/** Method blanks and QC samples: their shape checked here, so the engine only ever sees well-formed readings. */
+function readControls(data: Json): { blanks: RunBlankInput[]; qcSamples: RunQcSampleInput[]; errors: FieldError[] } {
+  const errors: FieldError[] = [];
+  const fail = (field: string, code: string, message: string) => errors.push({ field: `data.${field}`, code, message });
+  const positive = (value: unknown) => typeof value === 'number' && Number.isFinite(value) && value > 0 && value < 1e12;
+  const rows = (key: 'blanks' | 'qcSamples', what: string) => {
+    const value = data[key];
+    if (value === undefined) return [];
+    if (!Array.isArray(value)) return (fail(key, 'not_array', `The ${what} must be a list.`), []);
+    if (value.length > MAX_ROWS) return (fail(key, 'too_many', `At most ${MAX_ROWS} ${what} per run.`), []);
+    const seen = new Set<string>();
+    return value.flatMap((item: unknown, i) => {
+      const field = `${key}[${i}]`;
+      if (!isObject(item)) return (fail(field, 'not_object', `Each of the ${what} needs a name and readings.`), []);
+      const allowed = key === 'blanks' ? ['id', 'y', 'limit'] : ['id', 'known', 'y', 'dilution'];
+      for (const k of Object.keys(item)) if (!allowed.includes(k)) fail(`${field}.${k}`, 'unknown_field', `${k} is not part of ${what}.`);
+      const id = typeof item.id === 'string' ? item.id.trim() : '';
+      if (!id || id.length > MAX_ID) fail(`${field}.id`, 'invalid', `Give each of the ${what} a name of 1 to ${MAX_ID} characters.`);
+      else if (seen.has(id)) fail(`${field}.id`, 'duplicate', `The name “${id}” is used twice among the ${what}.`);
+      seen.add(id);
+      const y = item.y;
+      if (!Array.isArray(y) || y.length === 0 || y.length > MAX_READINGS || !y.every((v) => typeof v === 'number' && Number.isFinite(v)))
+        fail(`${field}.y`, 'invalid', `${id || `Row ${i + 1}`}: give 1 to ${MAX_READINGS} responses, each a number.`);
+      return [{ ...item, id }];
+    });
+  };
+  const blanks = rows('blanks', 'method blanks') as unknown as RunBlankInput[];
+  blanks.forEach((b, i) => {
+    if (b.limit !== undefined && !positive(b.limit))
+      fail(`blanks[${i}].limit`, 'not_positive', `${b.id}: the limit must be a concentration above zero (or left empty for the LOD).`);
+  });
+  const qcSamples = rows('qcSamples', 'QC samples') as unknown as RunQcSampleInput[];
+  qcSamples.forEach((q, i) => {
+    if (!positive(q.known)) fail(`qcSamples[${i}].known`, 'not_positive', `${q.id}: the known value must be a concentration above zero.`);
+    if (q.dilution !== undefined && !positive(q.dilution))
+      fail(`qcSamples[${i}].dilution`, 'not_positive', `${q.id}: the dilution factor must be a number above zero.`);
+  });
+  return { blanks, qcSamples, errors };
+}
+
+const blankId = (i: number) => `internal:method-blank:${i}`;
+const qcId = (i: number) => `internal:qc-sample:${i}`;
+
+/** The engine reads blanks and QC samples as extra unknowns; its field paths point back to their own lists. */
+function controlField(field: string, unknowns: number, blanks: number): string {
+  const m = /^unknowns\[(\d+)\](.*)$/.exec(field);
+  if (!m || Number(m[1]) < unknowns) return field;
+  const i = Number(m[1]) - unknowns;
+  return i < blanks ? `blanks[${i}]${m[2]}` : `qcSamples[${i - blanks}]${m[2]}`;
+}
+
+function namedControls(message: string, controls: { blanks: RunBlankInput[]; qcSamples: RunQcSampleInput[] }): string {
+  return message
+    .replace(/internal:method-blank:(\d+)/g, (_, i: string) => `method blank ${controls.blanks[Number(i)]?.id ?? ''}`)
+    .replace(/internal:qc-sample:(\d+)/g, (_, i: string) => `QC sample ${controls.qcSamples[Number(i)]?.id ?? ''}`);
 }
 
 const DILUTION_STEPS = [2, 5, 10, 20, 50, 100, 200, 500, 1000, 2000, 5000, 10000];
@@ -97,6 +167,26 @@ function checkRunShape(data: Json, choices: ModelChoice[]): { model: RunModel; c
   return { model, choice };
 }
 
+/** Where a routine result's U comes from, in words (or that the validation states none). */
+export function uncertaintyBasisText(basis: ValidationBasis, unit: string | undefined): string {
+  const u = basis.uncertainty;
+  if (!u || (!u.absolute && !u.relative))
+    return `The validation study “${basis.studyTitle}” has no measurement uncertainty, so none is stated with the results.`;
+  const k = `k = ${u.coverageFactor}`;
+  const parts: string[] = [];
+  if (u.absolute) {
+    const level = u.absolute.below !== null && u.relative ? ` below ${withUnit(formatSignificant(u.absolute.below, 3), unit)}` : '';
+    parts.push(
+      `${withUnit(formatSignificant(u.absolute.U, 2), unit)} absolute${level} in the measured solution, times the dilution factor`,
+    );
+  }
+  if (u.relative) {
+    const level = u.relative.from !== null && u.absolute ? ` at and above ${withUnit(formatSignificant(u.relative.from, 3), unit)}` : '';
+    parts.push(`${formatSignificant(u.relative.UPct, 2)} % of the result${level}`);
+  }
+  return `Expanded uncertainty U (${k}) from the top-down uncertainty of the validation study “${basis.studyTitle}” (intermediate precision and bias): ${parts.join('; ')}.`;
+}
+
 function suggestDilution(x0Undiluted: number, top: number, dilution: number): number {
   const step = DILUTION_STEPS.find((f) => x0Undiluted / f <= DILUTION_TARGET * top) ?? DILUTION_STEPS[DILUTION_STEPS.length - 1];
   return step * dilution;
@@ -140,14 +230,19 @@ function readUnknown(
   }
   if (!reportable) remarks.push('Not reportable: the run was rejected.');
 
+  const quantified = !belowLimits && !flags.includes('aboveTopStandard');
+  const expanded = quantified && basis.uncertainty ? routineUncertainty(basis.uncertainty, x0Undiluted, u.dilution) : null;
+  const uncertainty: RunResultUncertainty = { value: expanded, basis: uncertaintyBasisText(basis, unit) };
+
   let reported: string;
   const limit = loq ?? lod;
   if (belowLimits && limit !== null) reported = `< ${withUnit(formatSignificant(limit * u.dilution, 2), unit)}`;
   else if (flags.includes('aboveTopStandard')) reported = `> ${withUnit(formatSignificant(calibration.xMax * u.dilution, 3), unit)}`;
+  else if (expanded) reported = formatWithInterval(u.x0, expanded.U, unit);
   else if (u.ci) reported = formatWithInterval(u.x0, (u.ci[1] - u.ci[0]) / 2, unit);
   else reported = withUnit(formatSignificant(u.x0, 3), unit);
 
-  return { ...u, x0Undiluted, flags, reported, remarks, suggestedDilution, reportable };
+  return { ...u, x0Undiluted, flags, reported, remarks, suggestedDilution, reportable, uncertainty };
 }
 
 /**
@@ -189,7 +284,18 @@ function checkOutcome(
 export function evaluateRun(input: unknown, context: RunContext): RunEvaluation {
   if (!isObject(input)) throw new StudyValidationError([{ field: 'data', code: 'not_object', message: 'The run data must be an object.' }]);
   const { model, choice } = checkRunShape(input, context.choices);
-  const { basis, settings, units } = context;
+  const { basis, settings, units, qcWindow } = context;
+  const controls = readControls(input);
+  if (controls.errors.length) throw new StudyValidationError(controls.errors);
+  const missingLimit = controls.blanks.findIndex((b) => b.limit === undefined);
+  if (missingLimit >= 0 && basis.lod === null)
+    throw new StudyValidationError([
+      {
+        field: `data.blanks[${missingLimit}].limit`,
+        code: 'required',
+        message: `${controls.blanks[missingLimit].id}: the validation has no LOD, so give the limit the blank must stay below.`,
+      },
+    ]);
   const data: Json = {
     units,
     model,
@@ -199,14 +305,29 @@ export function evaluateRun(input: unknown, context: RunContext): RunEvaluation 
     standards: input.standards,
     checks: input.checks,
     unknowns: input.unknowns,
+    ...(controls.blanks.length ? { blanks: controls.blanks } : {}),
+    ...(controls.qcSamples.length ? { qcSamples: controls.qcSamples } : {}),
+  };
+  const unknownCount = Array.isArray(input.unknowns) ? input.unknowns.length : 0;
+  const engineInput = {
+    ...data,
+    blanks: undefined,
+    qcSamples: undefined,
+    unknowns: [
+      ...(input.unknowns as unknown[]),
+      ...controls.blanks.map((b, i) => ({ id: blankId(i), y: b.y })),
+      ...controls.qcSamples.map((q, i) => ({ id: qcId(i), y: q.y, ...(q.dilution !== undefined ? { dilution: q.dilution } : {}) })),
+    ],
   };
   let engine;
   try {
-    engine = evaluateStudy(data as unknown as StudyInput);
+    engine = evaluateStudy(JSON.parse(JSON.stringify(engineInput)) as StudyInput);
   } catch (error) {
-    if (error instanceof StudyValidationError) throw prefixed(error.errors);
+    if (error instanceof StudyValidationError)
+      throw prefixed(error.errors.map((e) => ({ ...e, field: controlField(e.field, unknownCount, controls.blanks.length) })));
     throw error;
   }
+  for (const w of engine.warnings ?? []) w.message = namedControls(w.message, controls);
   const calibration = engine.calibration as CalibrationResult;
   const tolerancePct = settings.checkTolerancePct;
   const checks = (engine.checks ?? []).map((c, i) => checkOutcome(c, (input.checks as { y: number[] }[])[i].y, tolerancePct));
@@ -216,8 +337,29 @@ export function evaluateRun(input: unknown, context: RunContext): RunEvaluation 
       (c) =>
         `Check standard ${c.id} recovered ${formatPct(c.recoveryPct)} of its nominal ${withUnit(String(c.nominal), units.x)}, outside the acceptance window of ${100 - tolerancePct} to ${100 + tolerancePct} %.`,
     );
+  const read = engine.unknowns ?? [];
+  const blanks: RunBlankResult[] = controls.blanks.map((b, i) => {
+    const r = read.find((u) => u.id === blankId(i))!;
+    const limit = b.limit ?? (basis.lod as number);
+    return { id: b.id, yMean: r.yMean, found: r.x0, limit, limitBasis: b.limit !== undefined ? 'set' : 'lod', pass: r.x0 < limit };
+  });
+  const qcSamples: RunQcSampleResult[] = controls.qcSamples.map((q, i) => {
+    const r = read.find((u) => u.id === qcId(i))!;
+    const recoveryPct = (100 * r.x0) / q.known;
+    // Inclusive window, as for the check standards.
+    const pass = recoveryPct >= qcWindow.low - 1e-9 && recoveryPct <= qcWindow.high + 1e-9;
+    return { id: q.id, known: q.known, dilution: q.dilution ?? 1, yMean: r.yMean, found: r.x0, recoveryPct, pass };
+  });
+  for (const b of blanks.filter((b) => !b.pass))
+    rejectionReasons.push(
+      `Method blank ${b.id} read ${withUnit(formatSignificant(b.found, 3), units.x)}, not below ${b.limitBasis === 'lod' ? 'the LOD of the validation' : 'its set limit'} of ${withUnit(formatSignificant(b.limit, 3), units.x)}: the run may be contaminated.`,
+    );
+  for (const q of qcSamples.filter((q) => !q.pass))
+    rejectionReasons.push(
+      `QC sample ${q.id} recovered ${formatPct(q.recoveryPct)} of its known ${withUnit(String(q.known), units.x)}, outside the window of ${qcWindow.low} to ${qcWindow.high} % (${qcWindow.basis}).`,
+    );
   const status = rejectionReasons.length === 0 ? 'accepted' : 'rejected';
-  const unknowns = (engine.unknowns ?? []).map((u) => readUnknown(u, calibration, basis, units.x, status === 'accepted'));
+  const unknowns = read.slice(0, unknownCount).map((u) => readUnknown(u, calibration, basis, units.x, status === 'accepted'));
   return {
     data,
     status,
@@ -229,6 +371,9 @@ export function evaluateRun(input: unknown, context: RunContext): RunEvaluation 
       onePointBias: model === 'one-point' ? onePointBias(calibration, unknowns, basis) : null,
       acceptance: { tolerancePct, low: 100 - tolerancePct, high: 100 + tolerancePct },
       validation: basis,
+      blanks,
+      qcSamples,
+      qcWindow,
     },
   };
 }

@@ -1,11 +1,8 @@
 import ExcelJS from 'exceljs';
 import { toCsv } from '../common/csv.js';
+import { reportRows, RUN_CAUTION, type ReportSignature } from './results-report.js';
 import type { RunDto } from './runs.service.js';
 import type { RunUnknown } from './run-types.js';
-
-/** Said on every exported and printed run: the software computes, the laboratory decides. */
-export const RUN_CAUTION =
-  'Results are reported under the laboratory’s own procedures and the regulations that apply to the sample (for drinking water and released products, the limits and reporting rules of the competent authority). A qualified person reviews them before release. The results of a rejected run are not reportable.';
 
 export const FLAG_LABELS: Record<RunUnknown['flags'][number], string> = {
   belowLod: 'below LOD',
@@ -21,13 +18,17 @@ export function reportableText(run: RunDto): string {
   return run.status === 'accepted' ? 'yes' : 'no: run rejected';
 }
 
-/** One row per unknown, in the order the analyst entered them; the column names carry the units. */
-export function resultRows(run: RunDto): Record<string, string | number | null>[] {
+/**
+ * One row per unknown, in the order the analyst entered them: the columns of the signed results report
+ * first, then the calculation's own figures (their names carry the units).
+ */
+export function resultRows(run: RunDto, signatures: ReportSignature[]): Record<string, string | number | null>[] {
   const { xUnit, yUnit } = run.method;
   const bias = new Map((run.result.onePointBias?.items ?? []).map((b) => [b.id, b]));
-  return run.result.unknowns.map((u) => {
+  const reported = reportRows(run, signatures);
+  return run.result.unknowns.map((u, i) => {
     const row: Record<string, string | number | null> = {
-      Sample: u.id,
+      ...reported[i],
       Replicates: u.m,
       [`Mean response (${yUnit})`]: rounded(u.yMean),
       'Dilution factor': u.dilution,
@@ -49,8 +50,8 @@ export function resultRows(run: RunDto): Record<string, string | number | null>[
   });
 }
 
-export function runCsv(run: RunDto): string {
-  return toCsv(resultRows(run));
+export function runCsv(run: RunDto, signatures: ReportSignature[]): string {
+  return toCsv(resultRows(run, signatures));
 }
 
 function addTable(sheet: ExcelJS.Worksheet, rows: Record<string, string | number | boolean | null>[]): void {
@@ -62,7 +63,7 @@ function addTable(sheet: ExcelJS.Worksheet, rows: Record<string, string | number
   sheet.views = [{ state: 'frozen', ySplit: 1 }];
 }
 
-export async function runWorkbook(run: RunDto): Promise<Buffer> {
+export async function runWorkbook(run: RunDto, signatures: ReportSignature[]): Promise<Buffer> {
   const { result } = run;
   const { xUnit, yUnit } = run.method;
   const validation = result.validation;
@@ -70,7 +71,7 @@ export async function runWorkbook(run: RunDto): Promise<Buffer> {
   workbook.creator = 'Meritline';
   workbook.created = new Date(run.createdAt);
 
-  addTable(workbook.addWorksheet('Results'), resultRows(run));
+  addTable(workbook.addWorksheet('Results'), resultRows(run, signatures));
   addTable(
     workbook.addWorksheet('Check standards'),
     result.checks.map((c) => ({
@@ -83,6 +84,27 @@ export async function runWorkbook(run: RunDto): Promise<Buffer> {
       Outcome: c.pass ? 'pass' : 'fail',
     })),
   );
+  const controls = [
+    ...(result.blanks ?? []).map((b) => ({
+      Kind: 'method blank',
+      Name: b.id,
+      [`Known (${xUnit})`]: null,
+      [`Found (${xUnit})`]: rounded(b.found),
+      'Recovery (%)': null,
+      Limit: `below ${rounded(b.limit, 3)} ${xUnit} (${b.limitBasis === 'lod' ? 'LOD of the validation' : 'set limit'})`,
+      Outcome: b.pass ? 'pass' : 'fail',
+    })),
+    ...(result.qcSamples ?? []).map((q) => ({
+      Kind: 'QC sample',
+      Name: q.id,
+      [`Known (${xUnit})`]: q.known,
+      [`Found (${xUnit})`]: rounded(q.found),
+      'Recovery (%)': rounded(q.recoveryPct, 4),
+      Limit: result.qcWindow ? `${result.qcWindow.low} to ${result.qcWindow.high} % recovery` : '',
+      Outcome: q.pass ? 'pass' : 'fail',
+    })),
+  ];
+  if (controls.length) addTable(workbook.addWorksheet('Blanks and QC samples'), controls);
   addTable(
     workbook.addWorksheet('Standards'),
     ((run.data.standards as { x: number; y: number; excluded?: { reason: string } }[]) ?? []).map((s) => ({

@@ -1,4 +1,4 @@
-import { ConflictException, ForbiddenException, Injectable, NotFoundException, UnauthorizedException } from '@nestjs/common';
+import { ConflictException, ForbiddenException, Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash } from 'node:crypto';
 import { DataSource, In, type EntityManager } from 'typeorm';
@@ -24,6 +24,7 @@ import { UsersService } from '../users/users.service.js';
 import type { ReturnRunDto, SignRunDto, SupersedeRunDto } from './dto/run-signing.dto.js';
 import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
+import { QcTrendsService } from './qc-trends.service.js';
 import { RunsService, type RunDto } from './runs.service.js';
 
 export const WRONG_RUN_PASSWORD = 'Password not correct; nothing was signed.';
@@ -51,6 +52,8 @@ function runContentHash(run: Pick<Run, 'data' | 'result'>): string {
 /** Submission, second-person release, return and correction of routine runs. */
 @Injectable()
 export class RunReleaseService {
+  private readonly logger = new Logger(RunReleaseService.name);
+
   constructor(
     @InjectDataSource() private readonly dataSource: DataSource,
     private readonly runsService: RunsService,
@@ -59,6 +62,7 @@ export class RunReleaseService {
     private readonly users: UsersService,
     private readonly mail: MailService,
     private readonly notifications: NotificationsService,
+    private readonly qcTrends: QcTrendsService,
   ) {}
 
   private async findRun(id: string): Promise<Run> {
@@ -133,6 +137,10 @@ export class RunReleaseService {
       role: Role.Reviewer,
       at,
     });
+    // A control-chart signal must never undo a release; the chart shows it again on the next look.
+    await this.qcTrends
+      .afterRelease(run.methodVersionId)
+      .catch((error: Error) => this.logger.error(`Control-chart check failed: ${error.message}`));
     return this.review(id);
   }
 

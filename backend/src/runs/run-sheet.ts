@@ -11,7 +11,7 @@ import {
   type PlotPoint,
 } from '../reports/pdf/index.js';
 import { APPROACH_LABELS } from '../reports/report-figures.js';
-import { RUN_CAUTION } from './run-export.js';
+import { RUN_CAUTION } from './results-report.js';
 import type { RunDto } from './runs.service.js';
 import type { RunResult, ValidationBasis } from './run-types.js';
 
@@ -135,7 +135,9 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
   } else {
     pdf.callout(
       'Run accepted',
-      [`Every check standard recovered within ${result.acceptance.low} to ${result.acceptance.high} % of its nominal value.`],
+      [
+        `Every check standard recovered within ${result.acceptance.low} to ${result.acceptance.high} % of its nominal value${result.blanks?.length || result.qcSamples?.length ? '; every method blank and QC sample met its limit' : ''}.`,
+      ],
       'pass',
     );
   }
@@ -158,11 +160,14 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
         u.remarks.join(' '),
       ],
     })),
-    note:
-      calibration.sYX === null
+    note: result.unknowns.some((u) => u.uncertainty?.value)
+      ? '± is the expanded uncertainty U of the result, from the validation (basis below).'
+      : calibration.sYX === null
         ? 'No interval: a one- or two-point calibration has no residual spread to estimate it from.'
         : `± is the ${Math.round(result.confidence * 100)} % confidence interval of the reading (s_x0, Miller & Miller), times the dilution factor.`,
   });
+  for (const basis of new Set(result.unknowns.flatMap((u) => (u.uncertainty ? [u.uncertainty.basis] : []))))
+    pdf.paragraph(`Uncertainty: ${basis}`, { size: 8.5, color: colors.muted });
 
   const bias = result.onePointBias;
   if (bias) {
@@ -204,6 +209,47 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
     })),
     note: `Acceptance window: ${result.acceptance.low} to ${result.acceptance.high} % recovery.`,
   });
+
+  const blanks = result.blanks ?? [];
+  const qcSamples = result.qcSamples ?? [];
+  if (blanks.length || qcSamples.length) {
+    pdf.heading('Method blanks and QC samples', 2);
+    if (blanks.length)
+      pdf.table({
+        columns: [
+          { header: 'Method blank' },
+          { header: `Found (${xUnit})`, align: 'right' },
+          { header: `Must stay below (${xUnit})`, align: 'right' },
+          { header: 'Outcome' },
+        ],
+        rows: blanks.map((b) => ({
+          cells: [
+            b.id,
+            formatNumber(b.found, 3),
+            `${formatNumber(b.limit, 3)} (${b.limitBasis === 'lod' ? 'LOD' : 'set limit'})`,
+            b.pass ? 'below the limit' : 'NOT BELOW THE LIMIT',
+          ],
+          bold: !b.pass,
+        })),
+      });
+    if (qcSamples.length)
+      pdf.table({
+        columns: [
+          { header: 'QC sample' },
+          { header: `Known (${xUnit})`, align: 'right' },
+          { header: `Found (${xUnit})`, align: 'right' },
+          { header: 'Recovery (%)', align: 'right' },
+          { header: 'Outcome' },
+        ],
+        rows: qcSamples.map((q) => ({
+          cells: [q.id, formatNumber(q.known, 4), formatNumber(q.found, 4), formatPercentValue(q.recoveryPct), q.pass ? 'pass' : 'FAIL'],
+          bold: !q.pass,
+        })),
+        note: result.qcWindow
+          ? `QC window: ${result.qcWindow.low} to ${result.qcWindow.high} % recovery (${result.qcWindow.basis}).`
+          : undefined,
+      });
+  }
 
   pdf.heading('Calibration', 2);
   pdf.keyValues([

@@ -1,9 +1,21 @@
-import type { CalibrationModel, DetectionApproach, EvaluationResult, RunStatus, UnknownResult, Weighting } from '@meritline/shared';
+import type {
+  CalibrationModel,
+  DetectionApproach,
+  EvaluationResult,
+  RunBlankResult,
+  RunQcSampleResult,
+  RunQcWindow,
+  RunResultUncertainty,
+  RunStatus,
+  UncertaintyResult,
+  UnknownResult,
+  Weighting,
+} from '@meritline/shared';
 
 export const RUN_MODELS = ['one-point', 'two-point', 'linear', 'quadratic'] as const;
 export type RunModel = (typeof RUN_MODELS)[number];
 
-export const RUN_DATA_KEYS = ['model', 'weighting', 'twoPoint', 'standards', 'checks', 'unknowns'] as const;
+export const RUN_DATA_KEYS = ['model', 'weighting', 'twoPoint', 'standards', 'checks', 'unknowns', 'blanks', 'qcSamples'] as const;
 
 export interface ModelChoice {
   model: RunModel;
@@ -37,6 +49,8 @@ export interface ValidationBasis {
   loqBasis: DetectionApproach | null;
   validatedRange: ValidatedRange | null;
   interceptTest: { intercept: number; p: number; significant: boolean; interceptPctOfTopResponse: number } | null;
+  /** The validation's top-down measurement uncertainty; null when the study has none (absent on runs saved before it was carried). */
+  uncertainty?: Pick<UncertaintyResult, 'coverageFactor' | 'relativeAbove' | 'absolute' | 'relative'> | null;
 }
 
 export interface RunSettings {
@@ -58,6 +72,8 @@ export interface RunUnknown extends Omit<UnknownResult, 'flags'> {
   suggestedDilution: number | null;
   /** False for every result of a rejected run. */
   reportable: boolean;
+  /** U (k = 2 unless the validation says otherwise) from the validation, with its basis in words; absent on older runs. */
+  uncertainty?: RunResultUncertainty;
 }
 
 export interface RunCheck {
@@ -94,6 +110,10 @@ export interface RunResult extends Omit<EvaluationResult, 'unknowns' | 'checks'>
   onePointBias: OnePointBias | null;
   acceptance: { tolerancePct: number; low: number; high: number };
   validation: ValidationBasis;
+  /** Method blanks and QC samples of known value (absent on runs saved before they existed). */
+  blanks?: RunBlankResult[];
+  qcSamples?: RunQcSampleResult[];
+  qcWindow?: RunQcWindow;
 }
 
 export interface RunEvaluation {

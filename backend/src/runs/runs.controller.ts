@@ -9,6 +9,7 @@ import { ExportRunQueryDto } from './dto/export-run.query.dto.js';
 import { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
 import { ReturnRunDto, SignRunDto, SupersedeRunDto } from './dto/run-signing.dto.js';
 import { RunReleaseService } from './run-release.service.js';
+import { RunReportService } from './run-report.service.js';
 import { RunsService, type MethodChoice, type RunDto, type RunFile, type RunPage, type RunPreview } from './runs.service.js';
 
 function send(res: Response, file: RunFile): StreamableFile {
@@ -24,6 +25,7 @@ export class RunsController {
   constructor(
     private readonly runsService: RunsService,
     private readonly release: RunReleaseService,
+    private readonly reports: RunReportService,
   ) {}
 
   @Get()
@@ -65,6 +67,18 @@ export class RunsController {
   ): Promise<StreamableFile> {
     await this.release.assertReportable(id);
     return send(res, await this.runsService.exportFile(id, query.format));
+  }
+
+  /** The signed results report of a released, accepted run (issued once, then always the same bytes). */
+  @Get(':id/report')
+  @ApiProduces('application/pdf')
+  async report(
+    @Param('id', ParseUUIDPipe) id: string,
+    @CurrentUser() actor: AuthUser,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<StreamableFile> {
+    res.setHeader('Cache-Control', 'private, no-store');
+    return send(res, await this.reports.reportFile(id, actor));
   }
 
   /** Where the run stands in its release, with its signatures. */

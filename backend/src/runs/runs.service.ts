@@ -14,7 +14,7 @@ import { approvingSignature, failsCriteria } from '../reviews/signatures.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { User } from '../users/user.entity.js';
-import { modelChoices, validationBasis } from './calibration-choices.js';
+import { modelChoices, qcWindow, validationBasis } from './calibration-choices.js';
 import { controlChart, type ControlChart } from './control-chart.js';
 import type { CreateRunDto } from './dto/create-run.dto.js';
 import type { ExportFormat } from './dto/export-run.query.dto.js';
@@ -22,6 +22,7 @@ import type { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
 import { evaluateRun, type RunContext } from './run-calculation.js';
 import { runCsv, runWorkbook } from './run-export.js';
 import { runSheet } from './run-sheet.js';
+import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
 import type { ModelChoice, RunEvaluation, RunResult, ValidatedRange, ValidationBasis } from './run-types.js';
 
@@ -74,6 +75,7 @@ export interface RunSummaryDto {
   id: string;
   title: string;
   status: RunStatus;
+  reviewStatus: Run['reviewStatus'];
   model: string;
   methodVersionId: string;
   versionNumber: number;
@@ -260,7 +262,13 @@ export class RunsService {
     const { method, settings } = version;
     return {
       version,
-      context: { basis: options.validation, choices: options.models, settings, units: { x: method.xUnit, y: method.yUnit } },
+      context: {
+        basis: options.validation,
+        choices: options.models,
+        settings,
+        units: { x: method.xUnit, y: method.yUnit },
+        qcWindow: qcWindow(version.criteria, settings),
+      },
     };
   }
 
@@ -370,6 +378,7 @@ export class RunsService {
           id: run.id,
           title: run.title,
           status: run.status,
+          reviewStatus: run.reviewStatus,
           model: run.model,
           methodVersionId: run.methodVersionId,
           versionNumber: run.methodVersion.number,
@@ -404,7 +413,8 @@ export class RunsService {
 
   async exportFile(id: Run['id'], format: ExportFormat): Promise<RunFile> {
     const run = await this.findOne(id);
-    const body = format === 'csv' ? Buffer.from(runCsv(run), 'utf8') : await runWorkbook(run);
+    const signatures = await this.dataSource.getRepository(RunSignature).find({ where: { runId: id }, order: { signedAt: 'ASC' } });
+    const body = format === 'csv' ? Buffer.from(runCsv(run, signatures), 'utf8') : await runWorkbook(run, signatures);
     return { body, contentType: CONTENT_TYPES[format], filename: fileName(run, format) };
   }
 

@@ -190,7 +190,7 @@ export function resolveMapping(section: ImportSection, columns: string[], reques
   return { mapping, errors };
 }
 
-function parseNumber(cell: Cell, decimalComma: boolean): number | undefined {
+export function parseNumber(cell: Cell, decimalComma: boolean): number | undefined {
   if (typeof cell === 'number') return Number.isFinite(cell) ? cell : undefined;
   let text = String(cell).trim();
   if (decimalComma && /^[^.]*,[^,]*$/.test(text)) text = text.replace(',', '.');

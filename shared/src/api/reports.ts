@@ -1,3 +1,5 @@
+import type { RunReportVerificationDto } from './runs.js';
+
 /** The answer to an uploaded PDF: only a byte-identical copy of an issued report is valid. */
 export type ReportVerification =
   | {
@@ -12,6 +14,7 @@ export type ReportVerification =
       signedAt: string;
       sha256: string;
     }
+  | RunReportVerificationDto
   | { valid: false; reason: string };
 
 /** Largest PDF the verify route takes. */

@@ -8,6 +8,9 @@ import { RunRelease1764660000000 } from './1764660000000-run-release.js';
 import { ChangeAssessments1796430074365 } from './1796430074365-change-assessments.js';
 import { ReferenceMaterialsAndPreparations1796428717951 } from './1796428717951-reference-materials-and-preparations.js';
 import { SignatureMetaSnapshot1796428791270 } from './1796428791270-signature-meta-snapshot.js';
+import { RunResultsReports1796428699593 } from './1796428699593-run-results-reports.js';
+import { QcTrends1796429841749 } from './1796429841749-qc-trends.js';
+import { RunImportMappings1796430502016 } from './1796430502016-run-import-mappings.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -20,4 +23,7 @@ export const migrations = [
   ChangeAssessments1796430074365,
   ReferenceMaterialsAndPreparations1796428717951,
   SignatureMetaSnapshot1796428791270,
+  RunResultsReports1796428699593,
+  QcTrends1796429841749,
+  RunImportMappings1796430502016,
 ];

@@ -1,11 +1,13 @@
 import { createHash } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
-import { canonicalJson, ENGINE_VERSION, type EvaluationResult } from '@meritline/shared';
+import { canonicalJson, ENGINE_VERSION, Role, RunReviewStatus, type EvaluationResult } from '@meritline/shared';
 import { AuditService } from '../../audit/audit.service.js';
 import { MethodVersion } from '../../methods/method-version.entity.js';
 import { Method } from '../../methods/method.entity.js';
-import { modelChoices, validationBasis } from '../../runs/calibration-choices.js';
+import { modelChoices, qcWindow, validationBasis } from '../../runs/calibration-choices.js';
 import { evaluateRun } from '../../runs/run-calculation.js';
+import { QcBaseline } from '../../runs/qc-baseline.entity.js';
+import { RunSignature } from '../../runs/run-signature.entity.js';
 import { Run } from '../../runs/run.entity.js';
 import { ValidationStudy } from '../../studies/validation-study.entity.js';
 import { User } from '../../users/user.entity.js';
@@ -223,19 +225,80 @@ function runData(run: DemoRun, model: DemoRun['model'], index: number, topLevel:
   };
 }
 
-async function seedVersionRuns(manager: EntityManager, version: MethodVersion, runs: DemoRun[], firstIndex: number) {
+/** The oldest runs of the active version are released and set the control-chart baseline; the later ones drift above it. */
+const BASELINE_RUNS = 5;
+
+async function releaseAsBaseline(manager: EntityManager, version: MethodVersion, runs: Run[]) {
+  const reviewer = await manager.findOneByOrFail(User, { email: 'reviewer@meritline.test' });
+  const quality = await manager.findOneByOrFail(User, { email: 'quality@meritline.test' });
+  const audit = new AuditService(manager.connection);
+  for (const run of runs) {
+    const author = await manager.findOneByOrFail(User, { id: run.authorId });
+    const hash = createHash('sha256')
+      .update(canonicalJson({ data: run.data, result: run.result }))
+      .digest('hex');
+    const submittedAt = new Date(run.createdAt.getTime() + 3_600_000);
+    const releasedAt = new Date(run.createdAt.getTime() + 7_200_000);
+    await manager.update(Run, { id: run.id }, { reviewStatus: RunReviewStatus.Released, submittedAt, releasedAt, lockVersion: 3 });
+    await manager.save(RunSignature, [
+      {
+        runId: run.id,
+        signerId: author.id,
+        signerName: author.name,
+        signerRole: Role.Analyst,
+        meaning: 'performed',
+        signedAt: submittedAt,
+        contentHash: hash,
+      },
+      {
+        runId: run.id,
+        signerId: reviewer.id,
+        signerName: reviewer.name,
+        signerRole: Role.Reviewer,
+        meaning: 'reviewed-and-released',
+        signedAt: releasedAt,
+        contentHash: hash,
+      },
+    ]);
+  }
+  const reason = 'Demo: the first released runs after the column change, with the instrument in control';
+  await manager.insert(QcBaseline, {
+    methodVersionId: version.id,
+    runIds: runs.map((r) => r.id),
+    chosenById: quality.id,
+    chosenByName: quality.name,
+    chosenAt: new Date(runs[runs.length - 1].createdAt.getTime() + 86_400_000),
+    reason,
+    lockVersion: 1,
+  });
+  await audit.record(
+    {
+      actor: quality,
+      action: 'qc-baseline.chosen',
+      entity: 'method-version',
+      entityId: version.id,
+      changes: { qcBaselineRunIds: { from: null, to: runs.map((r) => r.id) } },
+      reason,
+    },
+    manager,
+  );
+}
+
+async function seedVersionRuns(manager: EntityManager, version: MethodVersion, runs: DemoRun[], firstIndex: number): Promise<Run[]> {
   const study = await manager.findOne(ValidationStudy, {
     where: { methodVersionId: version.id, status: 'approved' },
     order: { approvedAt: 'DESC' },
   });
   const basis = study?.result ? validationBasis({ ...study, result: study.result as unknown as EvaluationResult }) : null;
-  if (!basis) return;
+  if (!basis) return [];
+  const saved: Run[] = [];
   const method = await manager.findOneByOrFail(Method, { id: version.methodId });
   const context = {
     basis,
     choices: modelChoices(basis, version.settings, method.yUnit),
     settings: version.settings,
     units: { x: method.xUnit, y: method.yUnit },
+    qcWindow: qcWindow(version.criteria, version.settings),
   };
   const audit = new AuditService(manager.connection);
   for (const [i, demo] of runs.entries()) {
@@ -259,6 +322,7 @@ async function seedVersionRuns(manager: EntityManager, version: MethodVersion, r
         createdAt: date,
       }),
     );
+    saved.push(run);
     await audit.record(
       {
         actor: author,
@@ -275,6 +339,7 @@ async function seedVersionRuns(manager: EntityManager, version: MethodVersion, r
       manager,
     );
   }
+  return saved;
 }
 
 /** Routine batches on the validated nitrate method: a month on the active version and a few from the retired one. */
@@ -285,5 +350,9 @@ export async function seedDemoRuns(manager: EntityManager) {
   const retired = versions.find((v) => v.status === 'retired');
   const active = versions.find((v) => v.status === 'active');
   if (retired) await seedVersionRuns(manager, retired, RETIRED_RUNS, 100);
-  if (active) await seedVersionRuns(manager, active, ACTIVE_RUNS, 0);
+  if (active) {
+    const runs = await seedVersionRuns(manager, active, ACTIVE_RUNS, 0);
+    const baseline = runs.filter((r) => r.status === 'accepted').slice(0, BASELINE_RUNS);
+    if (baseline.length === BASELINE_RUNS) await releaseAsBaseline(manager, active, baseline);
+  }
 }

@@ -8,8 +8,17 @@ export class ReportVerificationDto {
   @ApiPropertyOptional({ description: 'Why the file is not a valid report (only when valid is false).' })
   reason?: string;
 
-  @ApiPropertyOptional({ enum: ['validation-report', 'change-assessment'], description: 'What kind of signed document the file is.' })
-  kind?: 'validation-report' | 'change-assessment';
+  @ApiPropertyOptional({
+    enum: ['validation-report', 'change-assessment', 'results-report'],
+    description: 'What kind of signed document the file is.',
+  })
+  kind?: 'validation-report' | 'change-assessment' | 'results-report';
+
+  @ApiPropertyOptional({ format: 'uuid', description: 'Results reports: the released run.' })
+  runId?: string;
+
+  @ApiPropertyOptional()
+  runTitle?: string;
 
   @ApiPropertyOptional({ format: 'uuid' })
   studyId?: string;

@@ -37,5 +37,6 @@ describe('fonts', () => {
   it('should spell the signs no subset carries with ones that exist', () => {
     expect(printable('r² ≥ 0.995, %RE ≤ 15')).toBe('r² >= 0.995, %RE <= 15');
     expect(printable('1.00 × 10⁻⁸ and 2.5392 × 10⁸')).toBe('1.00 × 10^-8 and 2.5392 × 10^8');
+    expect(printable('Nitrate (as NO₃⁻), CO₂')).toBe('Nitrate (as NO3-), CO2');
   });
 });

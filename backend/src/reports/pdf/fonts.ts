@@ -24,6 +24,12 @@ const SUBSTITUTES: Record<string, string> = {
   '∑': 'sum',
   '‰': ' per mille',
   '\t': ' ',
+  // Chemical formulas such as NO₃⁻: no subset has sub- or superscript digits beyond ¹²³, so they print on the line.
+  ...Object.fromEntries([...'₀₁₂₃₄₅₆₇₈₉'].map((c, i) => [c, String(i)])),
+  ...Object.fromEntries([...'⁴⁵⁶⁷⁸⁹'].map((c, i) => [c, String(i + 4)])),
+  '⁰': '0',
+  '⁺': '+',
+  '⁻': '-',
 };
 
 const ranges: Record<Subset, [number, number][]> = (() => {

@@ -24,13 +24,18 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
     );
   }
   const assessment = verification.kind === 'change-assessment';
+  const results = verification.kind === 'results-report';
   const rows: [string, string][] = [
-    [assessment ? 'Document' : 'Study', verification.studyTitle],
+    results ? ['Routine run', verification.runTitle] : [assessment ? 'Document' : 'Study', verification.studyTitle],
     ['Method', verification.methodName],
     ['Method version', `Version ${verification.methodVersion}`],
     ['Signed', formatDateTime(verification.signedAt)],
     [assessment ? 'Assessment id' : 'Report id', verification.reportId],
-    ...(verification.studyId ? [[assessment ? 'Study of the version' : 'Study id', verification.studyId] as [string, string]] : []),
+    ...(results
+      ? [['Run id', verification.runId] as [string, string]]
+      : verification.studyId
+        ? [[assessment ? 'Study of the version' : 'Study id', verification.studyId] as [string, string]]
+        : []),
   ];
   return (
     <Alert.Root status="success" variant="surface" alignItems="flex-start">
@@ -40,8 +45,9 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
         <Alert.Description>
           <Stack gap="4">
             <Text>
-              This file is, byte for byte, the {assessment ? 'change assessment' : 'validation report'} this laboratory issued and signed.
-              Its digital signature can also be checked in any PDF reader that shows signatures.
+              This file is, byte for byte, the{' '}
+              {results ? 'results report of a released routine run' : assessment ? 'change assessment' : 'validation report'} this
+              laboratory issued and signed. Its digital signature can also be checked in any PDF reader that shows signatures.
             </Text>
             <DataList.Root orientation="horizontal" size="sm">
               {rows.map(([label, value]) => (

@@ -41,8 +41,8 @@ export default function VerifyReportPage() {
             {TITLE}
           </Heading>
           <Text color="fg.muted" fontSize="md">
-            Check that a signed Meritline validation report is authentic and has not been changed since it was signed. The file is compared
-            with the reports this laboratory issued; it is not stored. No account is needed.
+            Check that a signed Meritline validation report or results report is authentic and has not been changed since it was signed. The
+            file is compared with the reports this laboratory issued; it is not stored. No account is needed.
           </Text>
         </Stack>
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api, ApiError, isApiError } from '@/lib/api-client';
-import { parseChecks, parseStandards, parseUnknowns, type ParsedTable } from '../utils/measurement-text';
+import { parseBlanks, parseChecks, parseQcSamples, parseStandards, parseUnknowns, type ParsedTable } from '../utils/measurement-text';
 import { runsQueries } from './runs-queries';
 import type { CreateRunInput, ModelChoice, Run, RunData, RunModel } from './types';
 
@@ -15,6 +15,8 @@ export interface RunFormValues {
   standards: string;
   checks: string;
   unknowns: string;
+  blanks: string;
+  qcSamples: string;
 }
 
 export const emptyRunForm: RunFormValues = {
@@ -26,6 +28,8 @@ export const emptyRunForm: RunFormValues = {
   standards: '',
   checks: '',
   unknowns: '',
+  blanks: '',
+  qcSamples: '',
 };
 
 const readable = (parse: (text: string) => ParsedTable<unknown>, what: string) =>
@@ -38,6 +42,12 @@ const readable = (parse: (text: string) => ParsedTable<unknown>, what: string) =
       return rows.length > 0 || context.createError({ message: `Enter or paste the ${what}.` });
     });
 
+const optionalTable = (parse: (text: string) => ParsedTable<unknown>) =>
+  yup.string().test('readable', (text, context) => {
+    const { errors } = parse(text ?? '');
+    return errors.length === 0 || context.createError({ message: errors.join(' ') });
+  });
+
 export const runFormSchema = yup.object({
   methodVersionId: yup.string().required('Choose the method version the run uses.'),
   title: yup.string().trim().required('Give the run a title, e.g. the batch and date.').max(200, 'Use at most 200 characters.'),
@@ -47,6 +57,8 @@ export const runFormSchema = yup.object({
   standards: readable(parseStandards, 'standards'),
   checks: readable(parseChecks, 'check standards'),
   unknowns: readable(parseUnknowns, 'samples'),
+  blanks: optionalTable(parseBlanks),
+  qcSamples: optionalTable(parseQcSamples),
 });
 
 /** The distinct standard levels, lowest first. */
@@ -62,8 +74,11 @@ export function buildRunInput(values: RunFormValues, choice: ModelChoice | undef
   const standards = parseStandards(values.standards);
   const checks = parseChecks(values.checks);
   const unknowns = parseUnknowns(values.unknowns);
+  const blanks = parseBlanks(values.blanks);
+  const qcSamples = parseQcSamples(values.qcSamples);
   if (!values.methodVersionId || !values.model || [standards, checks, unknowns].some((t) => t.errors.length > 0 || t.rows.length === 0))
     return null;
+  if (blanks.errors.length > 0 || qcSamples.errors.length > 0) return null;
   const levels = standardLevels(standards.rows);
   let used: (x: number) => boolean = () => true;
   let reason = '';
@@ -82,6 +97,8 @@ export function buildRunInput(values: RunFormValues, choice: ModelChoice | undef
     standards: standards.rows.map((s) => (used(s.x) ? s : { ...s, excluded: { reason } })),
     checks: checks.rows,
     unknowns: unknowns.rows,
+    ...(blanks.rows.length ? { blanks: blanks.rows } : {}),
+    ...(qcSamples.rows.length ? { qcSamples: qcSamples.rows } : {}),
   };
   return {
     methodVersionId: values.methodVersionId,
@@ -99,11 +116,17 @@ const FIELD_OF: Record<string, keyof RunFormValues> = {
   'data.twoPoint': 'bracketing',
 };
 
-const ROW_NAMES = { standards: 'Standard', checks: 'Check standard', unknowns: 'Sample' } as const;
+const ROW_NAMES = {
+  standards: 'Standard',
+  checks: 'Check standard',
+  unknowns: 'Sample',
+  blanks: 'Method blank',
+  qcSamples: 'QC sample',
+} as const;
 
 /** `data.standards[3].x` → the standards field, and "Standard 4" for the message. */
 export function formFieldOf(field: string): { name: keyof RunFormValues | null; row: string | null } {
-  const table = /^data\.(standards|checks|unknowns)(?:\[(\d+)\])?/.exec(field);
+  const table = /^data\.(standards|checks|unknowns|blanks|qcSamples)(?:\[(\d+)\])?/.exec(field);
   if (table) {
     const key = table[1] as keyof typeof ROW_NAMES;
     return { name: key, row: table[2] === undefined ? null : `${ROW_NAMES[key]} ${Number(table[2]) + 1}` };

@@ -1,4 +1,5 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import type { ImportMappingDto, QcSeries, QcTrendsDto } from '@meritline/shared';
 import { api } from '@/lib/api-client';
 import type { ControlChart, CreateRunInput, MethodChoice, Run, RunFilters, RunOptions, RunPage, RunPreview } from './types';
 
@@ -39,6 +40,21 @@ export const runsQueries = {
     queryOptions({
       queryKey: [...runsQueries.all, 'control-chart', methodVersionId],
       queryFn: ({ signal }) => api.get<ControlChart>(`/method-versions/${encodeURIComponent(methodVersionId)}/control-chart`, { signal }),
+    }),
+  importMapping: (methodVersionId: string) =>
+    queryOptions({
+      queryKey: [...runsQueries.all, 'import-mapping', methodVersionId],
+      queryFn: ({ signal }) =>
+        api.get<ImportMappingDto>(`/method-versions/${encodeURIComponent(methodVersionId)}/import-mapping`, { signal }),
+    }),
+  qcTrends: (methodId: string, series: QcSeries, versionId: string) =>
+    queryOptions({
+      queryKey: [...runsQueries.all, 'qc-trends', methodId, series, versionId],
+      queryFn: ({ signal }) =>
+        api.get<QcTrendsDto>(
+          `/methods/${encodeURIComponent(methodId)}/qc-trends?series=${series}${versionId ? `&versionId=${encodeURIComponent(versionId)}` : ''}`,
+          { signal },
+        ),
     }),
   /** The server's full result for unsaved data: the same calculation as saving, nothing stored. */
   preview: (input: CreateRunInput) =>

@@ -3,7 +3,15 @@ import type {
   DetectionApproach,
   EvaluationResult,
   MethodVersionStatus,
+  RunBlankInput,
+  RunBlankResult,
+  RunQcSampleInput,
+  RunQcSampleResult,
+  RunQcWindow,
+  RunResultUncertainty,
+  RunReviewStatus,
   RunStatus,
+  UncertaintyResult,
   UnknownResult,
   Weighting,
 } from '@meritline/shared';
@@ -48,6 +56,7 @@ export interface ValidationBasis {
   loqBasis: DetectionApproach | null;
   validatedRange: ValidatedRange | null;
   interceptTest: { intercept: number; p: number; significant: boolean; interceptPctOfTopResponse: number } | null;
+  uncertainty?: Pick<UncertaintyResult, 'coverageFactor' | 'relativeAbove' | 'absolute' | 'relative'> | null;
 }
 
 export interface RunOptions {
@@ -81,6 +90,8 @@ export interface RunUnknown extends Omit<UnknownResult, 'flags'> {
   remarks: string[];
   suggestedDilution: number | null;
   reportable: boolean;
+  /** Absent on runs calculated before results carried their uncertainty. */
+  uncertainty?: RunResultUncertainty;
 }
 
 export interface RunCheck {
@@ -104,6 +115,9 @@ export interface RunResult extends Omit<EvaluationResult, 'unknowns' | 'checks'>
   onePointBias: OnePointBias | null;
   acceptance: { tolerancePct: number; low: number; high: number };
   validation: ValidationBasis;
+  blanks?: RunBlankResult[];
+  qcSamples?: RunQcSampleResult[];
+  qcWindow?: RunQcWindow;
 }
 
 export interface RunData {
@@ -113,6 +127,8 @@ export interface RunData {
   standards: { x: number; y: number; sd?: number; excluded?: { reason: string } }[];
   checks: { id: string; nominal: number; y: number[] }[];
   unknowns: { id: string; y: number[]; dilution?: number }[];
+  blanks?: RunBlankInput[];
+  qcSamples?: RunQcSampleInput[];
 }
 
 export interface RunPreview {
@@ -139,6 +155,7 @@ export interface RunSummary {
   id: string;
   title: string;
   status: RunStatus;
+  reviewStatus: RunReviewStatus;
   model: RunModel;
   methodVersionId: string;
   versionNumber: number;

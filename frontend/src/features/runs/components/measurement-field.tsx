@@ -4,7 +4,7 @@ import { FormField } from '@/components/form/form-field';
 import type { RunFormValues } from '../api/create-run';
 
 export interface MeasurementFieldProps {
-  name: 'standards' | 'checks' | 'unknowns';
+  name: 'standards' | 'checks' | 'unknowns' | 'blanks' | 'qcSamples';
   label: string;
   /** The columns, in order, as the analyst would type them. */
   columns: string;
@@ -12,10 +12,12 @@ export interface MeasurementFieldProps {
   summary?: string;
   /** Spans the whole row of the form grid. */
   wide?: boolean;
+  /** May stay empty. */
+  optional?: boolean;
 }
 
 /** A table typed, pasted from a spreadsheet or read from a CSV file, one row per line. */
-export function MeasurementField({ name, label, columns, example, summary, wide = false }: MeasurementFieldProps) {
+export function MeasurementField({ name, label, columns, example, summary, wide = false, optional = false }: MeasurementFieldProps) {
   const { setFieldValue, setFieldTouched } = useFormikContext<RunFormValues>();
   const load = async (file: File | undefined) => {
     if (!file) return;
@@ -27,7 +29,7 @@ export function MeasurementField({ name, label, columns, example, summary, wide 
       <FormField
         name={name}
         label={label}
-        required
+        required={!optional}
         helperText={
           <Stack gap="0.5" as="span">
             <span>Columns: {columns}. Paste from a spreadsheet (tabs), or separate with commas or semicolons.</span>

@@ -39,13 +39,19 @@ function columnsFor(xUnit: string, yUnit: string, confidencePct: number) {
       header: headerWithUnit('Result, dilution corrected', xUnit),
       meta: { align: 'end' },
       cell: (info) => {
+        const expanded = info.row.original.uncertainty?.value;
         const ci = info.row.original.ci;
-        const rounded = ci ? roundToInterval(info.getValue(), (ci[1] - ci[0]) / 2) : null;
+        const halfWidth = expanded ? expanded.U : ci ? (ci[1] - ci[0]) / 2 : null;
+        const rounded = halfWidth !== null ? roundToInterval(info.getValue(), halfWidth) : null;
         return (
           <Stack gap="0" align="flex-end">
             <Text whiteSpace="nowrap">{rounded ? `${rounded.value} ± ${rounded.halfWidth}` : formatNumber(info.getValue(), 3)}</Text>
             <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
-              {rounded ? `calibration confidence interval, ${confidencePct} %` : 'no interval'}
+              {expanded
+                ? `expanded uncertainty U, k = ${expanded.coverageFactor}`
+                : rounded
+                  ? `calibration confidence interval, ${confidencePct} %`
+                  : 'no interval'}
             </Text>
           </Stack>
         );

@@ -9,8 +9,9 @@ import { buildRunInput, formFieldOf, standardLevels, type RunFormValues } from '
 import { runsQueries } from '../api/runs-queries';
 import type { MethodChoice, RunModel, RunOptions } from '../api/types';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
-import { parseChecks, parseStandards, parseUnknowns } from '../utils/measurement-text';
+import { parseBlanks, parseChecks, parseQcSamples, parseStandards, parseUnknowns } from '../utils/measurement-text';
 import { MeasurementField } from './measurement-field';
+import { InstrumentImport } from './instrument-import';
 import { ModelPicker } from './model-picker';
 import { RunResultView } from './run-result-view';
 import { VersionSelect } from './version-filter';
@@ -127,6 +128,8 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
   const levels = standardLevels(standards);
   const checks = parseChecks(values.checks).rows;
   const unknowns = parseUnknowns(values.unknowns).rows;
+  const blanks = parseBlanks(values.blanks).rows;
+  const qcSamples = parseQcSamples(values.qcSamples).rows;
   const xUnit = options.data?.method.xUnit ?? '';
   const yUnit = options.data?.method.yUnit ?? '';
 
@@ -190,6 +193,8 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
         </>
       )}
 
+      {options.data?.usable && <InstrumentImport versionId={values.methodVersionId} />}
+
       <SimpleGrid columns={{ base: 1, lg: 2 }} gap="6">
         <MeasurementField
           name="standards"
@@ -212,6 +217,22 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
           columns="sample, dilution factor (empty for none), responses"
           example={'W-2811 tap water\t1\t1.83\t1.84\nW-2812 well\t2\t3.95\t3.97'}
           summary={unknowns.length ? plural(unknowns.length, 'sample') : undefined}
+        />
+        <MeasurementField
+          name="blanks"
+          optional
+          label="Method blanks (optional)"
+          columns={`name, limit${xUnit ? ` (${xUnit})` : ''} or empty for the LOD, responses`}
+          example={'MB-1\t\t0.004'}
+          summary={blanks.length ? plural(blanks.length, 'method blank') : undefined}
+        />
+        <MeasurementField
+          name="qcSamples"
+          optional
+          label="QC samples of known value (optional)"
+          columns={`name, known value${xUnit ? ` (${xUnit})` : ''}, dilution factor (empty for none), responses`}
+          example={'QC 20 mg/L\t20\t\t3.05'}
+          summary={qcSamples.length ? plural(qcSamples.length, 'QC sample') : undefined}
         />
       </SimpleGrid>
 

@@ -3,12 +3,18 @@ import type { ReactNode } from 'react';
 import { formatR2, type RunStatus, formatNumber } from '@meritline/shared';
 import type { RunData, RunResult } from '../api/types';
 import { ChecksTable } from './checks-table';
+import { ControlsTables } from './controls-table';
 import { OnePointBiasTable } from './one-point-bias';
 import { ResultsTable } from './results-table';
 import { RunPlot } from './run-plot';
 
 export const RUN_CAUTION =
   'Results are reported under the laboratory’s own procedures and the regulations that apply to the sample (for drinking water and released products, the limits and reporting rules of the competent authority), after review by a qualified person. The results of a rejected run are not reportable.';
+
+/** The basis of the results' uncertainty in words, once per distinct basis. */
+function uncertaintyBases(result: RunResult): string[] {
+  return [...new Set(result.unknowns.flatMap((u) => (u.uncertainty ? [u.uncertainty.basis] : [])))];
+}
 
 function equation(result: RunResult): string {
   const c = result.calibration;
@@ -57,7 +63,8 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
           <Alert.Content>
             <Alert.Title>The run {saved} accepted</Alert.Title>
             <Alert.Description>
-              Every check standard recovered within {acceptance.low} to {acceptance.high} % of its nominal concentration.
+              Every check standard recovered within {acceptance.low} to {acceptance.high} % of its nominal concentration
+              {result.blanks?.length || result.qcSamples?.length ? '; every method blank and QC sample met its limit.' : '.'}
             </Alert.Description>
           </Alert.Content>
         </Alert.Root>
@@ -113,6 +120,11 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
           Concentrations include the dilution factor. Limits and the validated range apply to the measured solution, before dilution.
           {calibration?.sYX === null ? ' One- and two-point calibrations have no residual spread, so their results carry no interval.' : ''}
         </Text>
+        {uncertaintyBases(result).map((basis) => (
+          <Text key={basis} fontSize="sm" data-testid="uncertainty-basis">
+            {basis}
+          </Text>
+        ))}
       </Section>
 
       {result.onePointBias && (
@@ -124,6 +136,12 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
       <Section title="Check standards">
         <ChecksTable checks={result.checks} xUnit={units.x} yUnit={units.y} />
       </Section>
+
+      {(result.blanks?.length || result.qcSamples?.length) && (
+        <Section title="Method blanks and QC samples">
+          <ControlsTables blanks={result.blanks ?? []} qcSamples={result.qcSamples ?? []} window={result.qcWindow} xUnit={units.x} />
+        </Section>
+      )}
 
       <Text fontSize="sm" color="fg.muted">
         {RUN_CAUTION}

@@ -1,27 +1,22 @@
-import { formatNumber, formatDateTime } from '@meritline/shared';
-import { Alert, Badge, Box, Field, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import { Alert, Box, Button, Field, Link, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { formatDateTime, formatNumber, QC_SERIES, QC_SERIES_LABELS, Role, type QcSeries, type QcTrendSignalDto } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
+import { useState } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
+import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { runsQueries } from '../api/runs-queries';
-import type { ControlChart, ControlFlag } from '../api/types';
-import { ControlChartPlot } from '../components/control-chart-plot';
+import { BaselinePicker } from '../components/baseline-picker';
+import { TrendChartPlot } from '../components/trend-chart-plot';
 import { VersionSelect } from '../components/version-filter';
 
-const FLAG_WORDS: Record<ControlFlag, string> = {
-  beyondWarning: 'beyond a warning limit',
-  beyondAction: 'beyond an action limit',
-  sevenOnOneSide: '7th run in a row on one side of the mean',
-};
-
-type Point = ControlChart['points'][number] & { position: number };
-const column = dataTableColumns<Point>();
+const column = dataTableColumns<QcTrendSignalDto>();
 const columns = column.columns([
-  column.accessor('position', { header: 'Run no.', meta: { align: 'end' } }),
-  column.accessor('title', {
+  column.accessor('message', { header: 'Signal', cell: (info) => <Text whiteSpace="normal">{info.getValue()}</Text> }),
+  column.accessor('runTitle', {
     header: 'Run',
     cell: (info) => (
       <Link asChild color="brand.fg" fontWeight="500">
@@ -30,69 +25,111 @@ const columns = column.columns([
     ),
   }),
   column.accessor('createdAt', { header: 'Created', cell: (info) => formatDateTime(info.getValue()) }),
-  column.accessor('slope', { header: 'Slope', meta: { align: 'end' }, cell: (info) => formatNumber(info.getValue(), 5) }),
-  column.accessor('flags', {
-    header: 'Signal',
-    cell: (info) => (
-      <HStack gap="1.5" wrap="wrap">
-        {info.getValue().map((flag) => (
-          <Badge key={flag} colorPalette={flag === 'beyondWarning' ? 'orange' : 'red'} variant="subtle">
-            {FLAG_WORDS[flag]}
-          </Badge>
-        ))}
-      </HStack>
-    ),
-  }),
 ]);
+
+const isSeries = (value: string | null): value is QcSeries => (QC_SERIES as readonly string[]).includes(value ?? '');
 
 export default function ControlChartPage() {
   const [params, setParams] = useSearchParams();
   const versionId = params.get('versionId') ?? '';
+  const seriesParam = params.get('series');
+  const series: QcSeries = isSeries(seriesParam) ? seriesParam : 'slope';
+  const { user } = useSession();
+  const isQualityManager = user?.roles.includes(Role.QualityManager) ?? false;
+  const [picking, setPicking] = useState(false);
   const methods = useQuery(runsQueries.methodChoices());
-  const chart = useQuery({ ...runsQueries.controlChart(versionId), enabled: versionId !== '' });
-  const flagged = (chart.data?.points ?? []).map((p, i) => ({ ...p, position: i + 1 })).filter((p) => p.flags.length > 0);
+  const methodId = methods.data?.find((m) => m.versions.some((v) => v.id === versionId))?.id ?? '';
+  const chart = useQuery({ ...runsQueries.qcTrends(methodId, series, versionId), enabled: methodId !== '' });
+  const set = (next: { versionId?: string; series?: QcSeries }) => {
+    const merged = { versionId, series, ...next };
+    setParams(merged.versionId ? { versionId: merged.versionId, series: merged.series } : {});
+  };
 
   return (
     <>
       <PageHeader
         section="Routine batches"
-        title="Slope control chart"
-        description="The calibration slope of every accepted run of a method version, against the mean and the warning (± 2 s) and action (± 3 s) limits of those runs. A slope beyond the action limits, or seven in a row on one side of the mean, asks for a look at the instrument and the standards."
+        title="Control charts"
+        description="A series of every accepted run of a method version (check standard or QC sample recovery, method blank reading, calibration slope or intercept) against the mean and the warning (± 2 s) and action (± 3 s) limits of a baseline of released runs chosen by a quality manager. The run rules name each signal in words."
       />
       <Stack gap="6">
-        <Field.Root maxW="lg">
-          <Field.Label>Method version</Field.Label>
-          <VersionSelect
-            methods={methods.data ?? []}
-            value={versionId}
-            onChange={(value) => setParams(value ? { versionId: value } : {})}
-            emptyLabel="Choose a method version"
-          />
-        </Field.Root>
-        {!versionId && <Text color="fg.muted">Choose a method version to see its chart.</Text>}
+        <SimpleGrid columns={{ base: 1, md: 2 }} gap="4" maxW="4xl">
+          <Field.Root>
+            <Field.Label>Method version</Field.Label>
+            <VersionSelect
+              methods={methods.data ?? []}
+              value={versionId}
+              onChange={(value) => set({ versionId: value })}
+              emptyLabel="Choose a method version"
+            />
+          </Field.Root>
+          <Field.Root>
+            <Field.Label>Series</Field.Label>
+            <NativeSelect.Root>
+              <NativeSelect.Field value={series} onChange={(event) => set({ series: event.currentTarget.value as QcSeries })}>
+                {QC_SERIES.map((s) => (
+                  <option key={s} value={s}>
+                    {QC_SERIES_LABELS[s]}
+                  </option>
+                ))}
+              </NativeSelect.Field>
+              <NativeSelect.Indicator />
+            </NativeSelect.Root>
+          </Field.Root>
+        </SimpleGrid>
+        {!versionId && <Text color="fg.muted">Choose a method version to see its charts.</Text>}
         {chart.isError && <QueryError error={chart.error} onRetry={() => void chart.refetch()} />}
         {chart.data && (
           <>
+            {isQualityManager && !picking && (
+              <Box>
+                <Button size="sm" variant="outline" onClick={() => setPicking(true)}>
+                  {chart.data.baseline ? 'Change the baseline' : 'Choose the baseline'}
+                </Button>
+              </Box>
+            )}
+            {picking && <BaselinePicker key={chart.data.methodVersionId} chart={chart.data} onClose={() => setPicking(false)} />}
             {chart.data.message && (
-              <Alert.Root status={chart.data.limits ? 'warning' : 'info'} variant="surface">
+              <Alert.Root status="info" variant="surface">
                 <Alert.Indicator />
                 <Alert.Description>{chart.data.message}</Alert.Description>
               </Alert.Root>
             )}
-            {chart.data.n > 0 && (
+            {chart.data.signals.length > 0 && (
+              <Alert.Root status="warning" variant="surface">
+                <Alert.Indicator />
+                <Alert.Content>
+                  <Alert.Title>
+                    {chart.data.signals.length === 1 ? 'One signal' : `${chart.data.signals.length} signals`}: look into the method before
+                    more results are released
+                  </Alert.Title>
+                  <Alert.Description>The quality managers were e-mailed once about each signal.</Alert.Description>
+                </Alert.Content>
+              </Alert.Root>
+            )}
+            {chart.data.points.length > 0 && (
               <Box borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p="3">
-                <ControlChartPlot chart={chart.data} />
+                <TrendChartPlot chart={chart.data} />
               </Box>
             )}
-            {chart.data.limits && chart.data.mean !== null && chart.data.sd !== null && (
+            {chart.data.limits && (
               <Text fontSize="sm" color="fg.muted">
-                {chart.data.n} accepted runs: mean slope {formatNumber(chart.data.mean, 5)}, s {formatNumber(chart.data.sd, 3)}{' '}
-                {chart.data.slopeUnit}; warning limits {formatNumber(chart.data.limits.warning[0], 5)} to{' '}
-                {formatNumber(chart.data.limits.warning[1], 5)}, action limits {formatNumber(chart.data.limits.action[0], 5)} to{' '}
-                {formatNumber(chart.data.limits.action[1], 5)}. Rejected runs are left out.
+                Baseline of {chart.data.limits.n} values from {chart.data.baseline?.runIds.length} released runs, chosen by{' '}
+                {chart.data.baseline?.chosenBy.name} on {formatDateTime(chart.data.baseline?.chosenAt ?? '')} ({chart.data.baseline?.reason}
+                ): mean {formatNumber(chart.data.limits.mean, 5)}, s {formatNumber(chart.data.limits.sd, 3)} {chart.data.unit}; warning
+                limits {formatNumber(chart.data.limits.warning[0], 5)} to {formatNumber(chart.data.limits.warning[1], 5)}, action limits{' '}
+                {formatNumber(chart.data.limits.action[0], 5)} to {formatNumber(chart.data.limits.action[1], 5)}. Only the runs after the
+                baseline are judged; rejected and replaced runs are left out.
               </Text>
             )}
-            {flagged.length > 0 && <DataTable label="Runs with a signal" columns={columns} data={flagged} getRowId={(p) => p.runId} />}
+            {chart.data.signals.length > 0 && (
+              <DataTable
+                label="Signals"
+                columns={columns}
+                data={chart.data.signals}
+                getRowId={(s) => `${s.rule}:${s.runId}:${s.item ?? ''}`}
+              />
+            )}
           </>
         )}
       </Stack>

@@ -11,7 +11,7 @@ import { buildRunInput, emptyRunForm, runFormSchema, useCreateRun, type RunFormV
 import { runsQueries } from '../api/runs-queries';
 import type { Run } from '../api/types';
 import { RunFormFields } from '../components/run-form-fields';
-import { checksText, standardsText, unknownsText } from '../utils/measurement-text';
+import { blanksText, checksText, qcSamplesText, standardsText, unknownsText } from '../utils/measurement-text';
 
 /** A saved run's data as a starting point: a correction or a second calibration is always a new run. */
 function valuesFrom(run: Run): RunFormValues {
@@ -26,6 +26,8 @@ function valuesFrom(run: Run): RunFormValues {
     standards: standardsText(standards),
     checks: checksText(run.data.checks),
     unknowns: unknownsText(run.data.unknowns),
+    blanks: blanksText(run.data.blanks),
+    qcSamples: qcSamplesText(run.data.qcSamples),
   };
 }
 

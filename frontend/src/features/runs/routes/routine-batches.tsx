@@ -49,7 +49,7 @@ export default function RoutineBatchesPage() {
         actions={
           <HStack gap="3">
             <Button variant="outline" asChild>
-              <RouterLink to={paths.runControlChart.getHref(versionId)}>Slope control chart</RouterLink>
+              <RouterLink to={paths.runControlChart.getHref(versionId)}>Control charts</RouterLink>
             </Button>
             <Button asChild>
               <RouterLink to={paths.runNew.getHref({ versionId })}>New run</RouterLink>

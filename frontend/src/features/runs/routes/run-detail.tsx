@@ -1,5 +1,6 @@
 import { formatDateTime } from '@meritline/shared';
 import { Button, HStack, Menu, Portal, Stack, Text } from '@chakra-ui/react';
+import { RunReviewStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';
@@ -66,9 +67,14 @@ export default function RunDetailPage() {
         actions={
           <HStack gap="3" wrap="wrap">
             {review.data && <RunReleaseActions runId={r.id} review={review.data} />}
+            {review.data?.reviewStatus === RunReviewStatus.Released && r.status === 'accepted' && (
+              <Button loading={busy === 'report'} onClick={() => void download('report')}>
+                Signed results report
+              </Button>
+            )}
             <Menu.Root>
               <Menu.Trigger asChild>
-                <Button variant="outline" loading={busy !== null}>
+                <Button variant="outline" loading={busy !== null && busy !== 'report'}>
                   Export
                 </Button>
               </Menu.Trigger>
@@ -101,7 +107,7 @@ export default function RunDetailPage() {
         />
         <Text fontSize="xs" color="fg.muted">
           Saved runs do not change: a correction is a new run. Data SHA-256 {r.dataHash} · engine {r.engineVersion} ·{' '}
-          <RouterLink to={paths.runControlChart.getHref(r.methodVersionId)}>slope control chart of this version</RouterLink>
+          <RouterLink to={paths.runControlChart.getHref(r.methodVersionId)}>control charts of this version</RouterLink>
         </Text>
       </Stack>
     </>

@@ -108,6 +108,31 @@ export function parseUnknowns(text: string): ParsedTable<Unknown> {
   });
 }
 
+/** "name, limit (empty for the validation's LOD), response[, response …]". */
+export function parseBlanks(text: string): ParsedTable<NonNullable<RunData['blanks']>[number]> {
+  return readTable(text, 3, (cells, fail) => {
+    if (!cells[0]) return fail('the method blank needs a name');
+    const limit = cells[1] === '' ? undefined : readNumber(cells[1]);
+    if (limit === null || (limit !== undefined && limit <= 0))
+      return fail(`the limit “${cells[1]}” must be a number above zero, or empty for the LOD`);
+    const y = responses(cells.slice(2), fail);
+    return y && { id: cells[0], y, ...(limit !== undefined ? { limit } : {}) };
+  });
+}
+
+/** "name, known value, dilution factor (empty for none), response[, response …]". */
+export function parseQcSamples(text: string): ParsedTable<NonNullable<RunData['qcSamples']>[number]> {
+  return readTable(text, 4, (cells, fail) => {
+    if (!cells[0]) return fail('the QC sample needs a name');
+    const known = readNumber(cells[1]);
+    if (known === null || known <= 0) return fail(`the known value “${cells[1]}” must be a number above zero`);
+    const dilution = cells[2] === '' ? 1 : readNumber(cells[2]);
+    if (dilution === null || dilution <= 0) return fail(`the dilution factor “${cells[2]}” must be a number above zero`);
+    const y = responses(cells.slice(3), fail);
+    return y && { id: cells[0], known, y, ...(dilution !== 1 ? { dilution } : {}) };
+  });
+}
+
 const line = (cells: (string | number)[]) => cells.join('\t');
 
 /** Back to the tab-separated text the fields hold, e.g. to start a new run from a saved one. */
@@ -121,4 +146,12 @@ export function checksText(checks: RunData['checks']): string {
 
 export function unknownsText(unknowns: RunData['unknowns']): string {
   return unknowns.map((u) => line([u.id, u.dilution ?? 1, ...u.y])).join('\n');
+}
+
+export function blanksText(blanks: RunData['blanks']): string {
+  return (blanks ?? []).map((b) => line([b.id, b.limit ?? '', ...b.y])).join('\n');
+}
+
+export function qcSamplesText(qcSamples: RunData['qcSamples']): string {
+  return (qcSamples ?? []).map((q) => line([q.id, q.known, q.dilution ?? 1, ...q.y])).join('\n');
 }

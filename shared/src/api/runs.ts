@@ -1,0 +1,190 @@
+import type { RoutineUncertainty } from '../engine/routine-uncertainty.js';
+
+export type { RoutineUncertainty };
+
+/** The expanded uncertainty a routine result carries, and where it comes from in words. */
+export interface RunResultUncertainty {
+  /** Null when the validation states no uncertainty or the result is not a number to report (e.g. below the LOQ). */
+  value: RoutineUncertainty | null;
+  /** The basis in words, shown on screen, on the run sheet, in the report and in exports. */
+  basis: string;
+}
+
+/** The answer of POST /api/reports/verify for a signed results report of a routine run. */
+export interface RunReportVerificationDto {
+  valid: true;
+  kind: 'results-report';
+  reportId: string;
+  runId: string;
+  runTitle: string;
+  methodName: string;
+  methodVersion: number;
+  signedAt: string;
+  sha256: string;
+}
+
+/** A method blank in a run: its reading must stay below the set limit, else below the validation's LOD. */
+export interface RunBlankInput {
+  id: string;
+  y: number[];
+  /** Upper limit in the measured solution (concentration unit); absent: the validation's LOD. */
+  limit?: number;
+}
+
+/** A QC sample of known value in a run: its recovery must fall within the version's window. */
+export interface RunQcSampleInput {
+  id: string;
+  known: number;
+  y: number[];
+  dilution?: number;
+}
+
+export interface RunBlankResult {
+  id: string;
+  yMean: number;
+  /** Concentration read off the run's calibration (measured solution). */
+  found: number;
+  limit: number;
+  limitBasis: 'set' | 'lod';
+  pass: boolean;
+}
+
+export interface RunQcSampleResult {
+  id: string;
+  known: number;
+  dilution: number;
+  yMean: number;
+  found: number;
+  recoveryPct: number;
+  pass: boolean;
+}
+
+/** The recovery window QC samples must meet, and where it comes from in words. */
+export interface RunQcWindow {
+  low: number;
+  high: number;
+  basis: string;
+}
+
+export const QC_SERIES = ['check', 'qc', 'blank', 'slope', 'intercept'] as const;
+export type QcSeries = (typeof QC_SERIES)[number];
+
+export const QC_SERIES_LABELS: Record<QcSeries, string> = {
+  check: 'Check standard recovery',
+  qc: 'QC sample recovery',
+  blank: 'Method blank reading',
+  slope: 'Calibration slope',
+  intercept: 'Calibration intercept',
+};
+
+export interface QcBaselineDto {
+  methodVersionId: string;
+  runIds: string[];
+  chosenBy: { id: string; name: string };
+  chosenAt: string;
+  reason: string;
+  lockVersion: number;
+}
+
+/** PUT /api/method-versions/:id/qc-baseline: the released runs whose points set the control limits. */
+export interface PutQcBaselineRequest {
+  runIds: string[];
+  reason: string;
+  /** The baseline's lock version as loaded; absent when none has been chosen yet. */
+  lockVersion?: number;
+}
+
+export interface QcTrendPoint {
+  runId: string;
+  runTitle: string;
+  createdAt: string;
+  /** The check standard, QC sample or blank the value belongs to; null for slope and intercept. */
+  item: string | null;
+  value: number;
+  /** Part of the baseline that sets the limits (not judged by the rules). */
+  baseline: boolean;
+  /** Rules that fired at this point, in words. */
+  signals: string[];
+}
+
+export interface QcTrendSignalDto {
+  rule: 'beyondAction' | 'twoOfThreeBeyondWarning' | 'sevenOnOneSide' | 'sixTrending';
+  /** The signal in words: the rule, where and which way. */
+  message: string;
+  runId: string;
+  runTitle: string;
+  item: string | null;
+  createdAt: string;
+}
+
+/** GET /api/methods/:id/qc-trends */
+export interface QcTrendsDto {
+  methodId: string;
+  methodName: string;
+  methodVersionId: string;
+  versionNumber: number;
+  series: QcSeries;
+  seriesLabel: string;
+  unit: string;
+  baseline: QcBaselineDto | null;
+  limits: { n: number; mean: number; sd: number; warning: [number, number]; action: [number, number] } | null;
+  points: QcTrendPoint[];
+  signals: QcTrendSignalDto[];
+  /** Why there are no limits, in words; null when there are. */
+  message: string | null;
+}
+
+/** The run fields an instrument export's columns are mapped to. */
+export const IMPORT_MAPPING_FIELDS = ['sampleId', 'sampleType', 'response', 'replicate', 'dilution', 'concentration'] as const;
+export type ImportMappingField = (typeof IMPORT_MAPPING_FIELDS)[number];
+
+export const IMPORT_MAPPING_LABELS: Record<ImportMappingField, string> = {
+  sampleId: 'Sample name',
+  sampleType: 'Sample type',
+  response: 'Response',
+  replicate: 'Replicate',
+  dilution: 'Dilution factor',
+  concentration: 'Concentration (standards, checks and QC samples)',
+};
+
+/** Column header per field; replicate, dilution and concentration may be left unmapped (null). */
+export interface ImportMappingColumns {
+  sampleId: string;
+  sampleType: string;
+  response: string;
+  replicate: string | null;
+  dilution: string | null;
+  concentration: string | null;
+}
+
+/** GET /api/method-versions/:id/import-mapping */
+export interface ImportMappingDto {
+  methodVersionId: string;
+  /** Null until a mapping has been saved for the version. */
+  columns: ImportMappingColumns | null;
+  /** 0 while none is saved. */
+  lockVersion: number;
+  updatedBy: string | null;
+  updatedAt: string | null;
+}
+
+/** PUT /api/method-versions/:id/import-mapping */
+export interface PutImportMappingRequest {
+  columns: ImportMappingColumns;
+  /** The lock version as loaded (0 for the first mapping). */
+  lockVersion: number;
+}
+
+/** The measurements of an instrument export, in the shape a new run takes. */
+export interface InstrumentImportData {
+  standards: { x: number; y: number }[];
+  checks: { id: string; nominal: number; y: number[] }[];
+  unknowns: { id: string; y: number[]; dilution?: number }[];
+  blanks: RunBlankInput[];
+  qcSamples: RunQcSampleInput[];
+}
+
+/** POST /api/method-versions/:id/instrument-import */
+export type InstrumentImportResult =
+  | { status: 'needs-mapping'; columns: string[]; preview: (string | number | null)[][] }
+  | { status: 'parsed'; columns: string[]; data: InstrumentImportData; rows: number };
