@@ -6,6 +6,7 @@ import { ThrottlerGuard, ThrottlerModule } from '@nestjs/throttler';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { AuditModule } from './audit/audit.module.js';
+import { AuditReviewModule } from './audit-review/audit-review.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { AllExceptionsFilter } from './common/filters/all-exceptions.filter.js';
 import { JwtAuthGuard } from './common/guards/jwt-auth.guard.js';
@@ -43,6 +44,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     ReviewsModule,
     ReportsModule,
     RunsModule,
+    AuditReviewModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },

@@ -1,5 +1,6 @@
 export * from './roles.js';
 export * from './api-types.js';
+export * from './api/audit.js';
 export * from './review-types.js';
 export * from './run-status.js';
 export * from './method-change.js';

@@ -1,4 +1,5 @@
 import { AuditEntry } from '../audit/audit-entry.entity.js';
+import { AuditReview } from '../audit-review/audit-review.entity.js';
 import { OutboxMessage } from '../mail/outbox-message.entity.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { Method } from '../methods/method.entity.js';
@@ -28,4 +29,5 @@ export const entities = [
   RunSignature,
   UserSession,
   AppSetting,
+  AuditReview,
 ];

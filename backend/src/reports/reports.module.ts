@@ -6,6 +6,6 @@ import { LabCertificateService } from './signing/lab-certificate.service.js';
 @Module({
   controllers: [ReportsController],
   providers: [ReportsService, LabCertificateService],
-  exports: [ReportsService],
+  exports: [ReportsService, LabCertificateService],
 })
 export class ReportsModule {}

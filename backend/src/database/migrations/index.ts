@@ -5,6 +5,7 @@ import { SignatureResultSnapshot1764630000000 } from './1764630000000-signature-
 import { SessionsAndPasswordReset1764640000000 } from './1764640000000-sessions-and-password-reset.js';
 import { MethodChangeControl1764650000000 } from './1764650000000-method-change-control.js';
 import { RunRelease1764660000000 } from './1764660000000-run-release.js';
+import { AuditReview1796428669934 } from './1796428669934-audit-review.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -14,4 +15,5 @@ export const migrations = [
   SessionsAndPasswordReset1764640000000,
   MethodChangeControl1764650000000,
   RunRelease1764660000000,
+  AuditReview1796428669934,
 ];
