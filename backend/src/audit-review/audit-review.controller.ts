@@ -1,7 +1,7 @@
 import { Body, Controller, Get, HttpCode, Inject, Post, Query, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
-import { Role, type AuditReviewDto, type AuditTrailPageDto, type AuditVerificationDto } from '@meritline/shared';
+import { Role, type AuditPersonDto, type AuditReviewDto, type AuditTrailPageDto, type AuditVerificationDto } from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -28,6 +28,11 @@ export class AuditReviewController {
     return this.trail.page(query, user);
   }
 
+  @Get('people')
+  people(@CurrentUser() user: AuthUser): Promise<AuditPersonDto[]> {
+    return this.trail.people(user);
+  }
+
   @Get('verify')
   @Roles(Role.QualityManager, Role.Admin)
   verify(): Promise<AuditVerificationDto> {
@@ -41,7 +46,9 @@ export class AuditReviewController {
     @CurrentUser() user: AuthUser,
     @Res({ passthrough: true }) res: Response,
   ): Promise<StreamableFile> {
-    const entries = (await this.trail.entriesForExport(query, user)).map(toEntryDto);
+    const rows = await this.trail.entriesForExport(query, user);
+    const names = await this.trail.namesOf(rows);
+    const entries = rows.map((entry) => toEntryDto(entry, names));
     const exportedAt = new Date();
     const extract = {
       laboratoryName: this.config.laboratoryName,

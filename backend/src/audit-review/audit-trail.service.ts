@@ -10,6 +10,7 @@ import {
   auditEntityLabel,
   hasAnyRole,
   Role,
+  type AuditPersonDto,
   type AuditRecordKind,
   type AuditReviewDto,
   type AuditTrailEntryDto,
@@ -60,7 +61,7 @@ function dayStart(value: string, field: string): Date {
   return date;
 }
 
-export function toEntryDto(entry: AuditEntry): AuditTrailEntryDto {
+export function toEntryDto(entry: AuditEntry, names: Record<string, string> = {}): AuditTrailEntryDto {
   return {
     seq: entry.seq,
     at: entry.at.toISOString(),
@@ -72,7 +73,7 @@ export function toEntryDto(entry: AuditEntry): AuditTrailEntryDto {
     entityId: entry.entityId,
     recordText: auditEntityLabel(entry.entity),
     changes: entry.changes,
-    changesInWords: auditChangesInWords(entry.changes),
+    changesInWords: auditChangesInWords(entry.changes, names),
     reason: entry.reason,
   };
 }
@@ -94,6 +95,7 @@ export class AuditTrailService {
       throw unprocessable([{ field: 'page', code: 'conflict', message: 'Page either by cursor or by page number, not both.' }]);
     }
     const pageSize = query.pageSize ?? DEFAULT_PAGE_SIZE;
+    const record = parseRecord(query.record);
     const qb = await this.filtered(query, user);
     const total = await qb.clone().getCount();
     if (query.cursor !== undefined) qb.andWhere('a.seq < :cursor', { cursor: query.cursor });
@@ -103,13 +105,60 @@ export class AuditTrailService {
       .take(pageSize + 1)
       .getMany();
     const items = rows.slice(0, pageSize);
+    const names = await this.namesOf(items);
     return {
-      items: items.map(toEntryDto),
+      items: items.map((entry) => toEntryDto(entry, names)),
       total,
       nextCursor: rows.length > pageSize ? items[items.length - 1].seq : null,
       page: query.page ?? null,
       pageSize,
+      record: record ? { ...record, name: await this.recordName(record) } : null,
     };
+  }
+
+  /** Titles and names of the studies, method versions and users that entries refer to by id, so values read as words. */
+  async namesOf(entries: AuditEntry[]): Promise<Record<string, string>> {
+    const ids = new Set<string>();
+    for (const entry of entries) {
+      for (const [field, change] of Object.entries(entry.changes ?? {})) {
+        if (!/Id$/.test(field)) continue;
+        for (const value of [change?.from, change?.to]) if (typeof value === 'string' && /^[0-9a-f-]{36}$/i.test(value)) ids.add(value);
+      }
+    }
+    if (!ids.size) return {};
+    const list = [...ids];
+    const names: Record<string, string> = {};
+    const studies = await this.dataSource
+      .createQueryBuilder()
+      .select(text('s.id'), 'id')
+      .addSelect('s.title', 'name')
+      .from('validation_studies', 's')
+      .where(`${text('s.id')} IN (:...list)`, { list })
+      .getRawMany<{ id: string; name: string }>();
+    for (const row of studies) names[row.id] = `“${row.name}”`;
+    const versions = await this.dataSource
+      .createQueryBuilder()
+      .select(text('v.id'), 'id')
+      .addSelect(`m.name || ', version ' || ${text('v.number')}`, 'name')
+      .from('method_versions', 'v')
+      .innerJoin('methods', 'm', 'm.id = v.method_id')
+      .where(`${text('v.id')} IN (:...list)`, { list })
+      .getRawMany<{ id: string; name: string }>();
+    for (const row of versions) names[row.id] = row.name;
+    return names;
+  }
+
+  /** The people who acted in the part of the trail the reader may see, by name. */
+  async people(user: AuthUser): Promise<AuditPersonDto[]> {
+    const rows = await (
+      await this.filtered({}, user)
+    )
+      .select('a.actor_id', 'id')
+      .addSelect('MAX(a.actor_name)', 'name')
+      .andWhere('a.actor_id IS NOT NULL')
+      .groupBy('a.actor_id')
+      .getRawMany<AuditPersonDto>();
+    return rows.sort((a, b) => a.name.localeCompare(b.name));
   }
 
   /** Every matching entry, oldest first, for an export; refuses beyond the export bound rather than cutting silently. */

@@ -25,6 +25,8 @@ export const routes: RouteObject[] = [
         children: [
           { index: true, lazy: page(() => import('./routes/overview')) },
           { path: paths.changePassword.path, lazy: page(() => import('@/features/auth/routes/change-password')) },
+          // Everyone may open it: analysts and reviewers see only the trail of the records they work on.
+          { path: paths.auditTrail.path, lazy: page(() => import('@/features/audit/routes/audit-trail')) },
           {
             element: <RequireRole roles={[Role.Analyst]} />,
             children: [

@@ -35,6 +35,14 @@ export interface AuditTrailPageDto {
   nextCursor: number | null;
   page: number | null;
   pageSize: number;
+  /** The record filtered on, with its printable name. */
+  record: { kind: AuditRecordKind; id: string; name: string } | null;
+}
+
+/** A person who appears in the trail the reader may see, for the person filter. */
+export interface AuditPersonDto {
+  id: string;
+  name: string;
 }
 
 export interface AuditBreakDto {

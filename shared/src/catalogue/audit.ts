@@ -1,6 +1,6 @@
 import { ROLE_LABELS } from '../roles.js';
 import { RUN_REVIEW_STATUS_LABELS, RUN_SIGNATURE_MEANING_LABELS } from '../run-status.js';
-import { STUDY_STATUS_LABELS } from './statuses.js';
+import { STUDY_SECTION_LABELS, STUDY_STATUS_LABELS } from './statuses.js';
 
 /** Every action the audit trail records, in words: the trail screen, its exports and its PDF show only these. */
 export const AUDIT_ACTION_LABELS: Record<string, string> = {
@@ -156,6 +156,7 @@ const VALUE_WORDS: Record<string, Record<string, string>> = {
   meaning: SIGNATURE_MEANING_WORDS,
   roles: ROLE_LABELS,
   signerRole: ROLE_LABELS,
+  section: STUDY_SECTION_LABELS,
 };
 
 const NO_VALUE = '—';
@@ -185,10 +186,24 @@ function valueText(value: unknown, words: Record<string, string>): string {
 /** Stored changes as rows of words. */
 export function auditChangesInWords(
   changes: Record<string, { from: unknown; to: unknown }> | null | undefined,
+  /** Printable names of the records that values refer to by id (a study's title for its id). */
+  names: Record<string, string> = {},
 ): { field: string; from: string; to: string }[] {
+  const text = (value: unknown, field: string) => (typeof value === 'string' && names[value] ? names[value] : auditValueText(value, field));
   return Object.entries(changes ?? {}).map(([field, change]) => ({
     field: auditFieldLabel(field),
-    from: auditValueText(change?.from, field),
-    to: auditValueText(change?.to, field),
+    from: text(change?.from, field),
+    to: text(change?.to, field),
   }));
+}
+
+/** What a break found by the chain check means for the reader, beside the finding itself. */
+export function auditBreakMeaning(reason: string): string {
+  if (/content does not match/.test(reason)) return 'This entry was changed after it was written.';
+  if (/link to the previous entry/.test(reason)) return 'An entry just before this one was changed, removed or put in afterwards.';
+  if (/is missing/.test(reason)) return 'An entry was removed from the trail.';
+  if (/entries removed/.test(reason)) return 'The newest entries were removed after the last signed checkpoint.';
+  if (/signed checkpoint/.test(reason)) return 'The trail up to this entry was rewritten after the checkpoint was signed.';
+  if (/checkpoint file/.test(reason)) return 'The file of signed checkpoints was tampered with.';
+  return 'The trail does not match what was recorded; ask your administrator to investigate.';
 }

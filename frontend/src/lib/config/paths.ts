@@ -35,6 +35,12 @@ export const paths = {
   methodDetail: { path: '/methods/:methodId', getHref: (methodId: string) => `/methods/${encodeURIComponent(methodId)}` },
   methodComparison: { path: '/methods/compare', getHref: () => '/methods/compare' },
   verify: { path: '/verify', getHref: () => '/verify' },
+  auditTrail: {
+    path: '/audit-trail',
+    /** `record` is kind:id, e.g. study:<id>; the trail screen then shows that record's trail only. */
+    getHref: (query: { record?: string } = {}) => withQuery('/audit-trail', query),
+  },
+  qualification: { path: '/qualification', getHref: () => '/qualification' },
 
   users: { path: '/admin/users', getHref: () => '/admin/users' },
   outbox: { path: '/admin/outbox', getHref: () => '/admin/outbox' },
