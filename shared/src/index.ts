@@ -1,6 +1,7 @@
 export * from './roles.js';
 export * from './api-types.js';
 export * from './api/audit.js';
+export * from './api/qualification.js';
 export * from './review-types.js';
 export * from './run-status.js';
 export * from './method-change.js';
@@ -41,3 +42,4 @@ export {
 } from './engine/distributions.js';
 export * from './study.js';
 export type * from './result.js';
+export * from './qualification/index.js';
