@@ -18,6 +18,7 @@ import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { MethodsModule } from './methods/methods.module.js';
 import { NotificationsModule } from './notifications/notifications.module.js';
+import { QualificationModule } from './qualification/qualification.module.js';
 import { ReportsModule } from './reports/reports.module.js';
 import { ReviewsModule } from './reviews/reviews.module.js';
 import { RunsModule } from './runs/runs.module.js';
@@ -45,6 +46,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     ReportsModule,
     RunsModule,
     AuditReviewModule,
+    QualificationModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },

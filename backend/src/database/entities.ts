@@ -4,6 +4,7 @@ import { OutboxMessage } from '../mail/outbox-message.entity.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { Method } from '../methods/method.entity.js';
 import { Notification } from '../notifications/notification.entity.js';
+import { QualificationRun } from '../qualification/qualification-run.entity.js';
 import { ValidationReport } from '../reports/validation-report.entity.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
@@ -30,4 +31,5 @@ export const entities = [
   UserSession,
   AppSetting,
   AuditReview,
+  QualificationRun,
 ];

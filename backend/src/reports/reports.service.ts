@@ -7,6 +7,7 @@ import { AuditEntry } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
+import { QualificationRun } from '../qualification/qualification-run.entity.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { writeTransaction } from '../database/write-transaction.js';
@@ -38,6 +39,15 @@ export type ReportVerification =
       methodName: string;
       methodVersion: number;
       signedAt: string;
+      sha256: string;
+    }
+  | {
+      valid: true;
+      kind: 'self-qualification';
+      qualificationId: string;
+      signedAt: string;
+      passed: number;
+      total: number;
       sha256: string;
     }
   | { valid: false; reason: string };
@@ -161,6 +171,21 @@ export class ReportsService {
         methodVersion: study.methodVersion.number,
         signedAt: report.signedAt.toISOString(),
         sha256: report.sha256,
+      };
+    }
+    const qualification = await this.dataSource.getRepository(QualificationRun).findOne({
+      where: { sha256: sha256(file) },
+      select: { id: true, ranAt: true, passed: true, total: true, sha256: true },
+    });
+    if (qualification) {
+      return {
+        valid: true,
+        kind: 'self-qualification',
+        qualificationId: qualification.id,
+        signedAt: qualification.ranAt.toISOString(),
+        passed: qualification.passed,
+        total: qualification.total,
+        sha256: qualification.sha256,
       };
     }
     const claimed = claimedReportId(file.toString('latin1'));

@@ -6,6 +6,7 @@ import { SessionsAndPasswordReset1764640000000 } from './1764640000000-sessions-
 import { MethodChangeControl1764650000000 } from './1764650000000-method-change-control.js';
 import { RunRelease1764660000000 } from './1764660000000-run-release.js';
 import { AuditReview1796428669934 } from './1796428669934-audit-review.js';
+import { QualificationRuns1796428669935 } from './1796428669935-qualification-runs.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -16,4 +17,5 @@ export const migrations = [
   MethodChangeControl1764650000000,
   RunRelease1764660000000,
   AuditReview1796428669934,
+  QualificationRuns1796428669935,
 ];

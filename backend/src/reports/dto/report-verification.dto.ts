@@ -26,6 +26,18 @@ export class ReportVerificationDto {
   @ApiPropertyOptional({ format: 'date-time' })
   signedAt?: string;
 
+  @ApiPropertyOptional({ enum: ['self-qualification'], description: 'Set when the file is a self-qualification report.' })
+  kind?: 'self-qualification';
+
+  @ApiPropertyOptional({ format: 'uuid' })
+  qualificationId?: string;
+
+  @ApiPropertyOptional({ description: 'Checks passed (self-qualification).' })
+  passed?: number;
+
+  @ApiPropertyOptional({ description: 'Checks run (self-qualification).' })
+  total?: number;
+
   @ApiPropertyOptional({ description: 'SHA-256 of the report file (hex).' })
   sha256?: string;
 }

@@ -13,6 +13,15 @@ export type ReportVerification =
       signedAt: string;
       sha256: string;
     }
+  | {
+      valid: true;
+      kind: 'self-qualification';
+      qualificationId: string;
+      signedAt: string;
+      passed: number;
+      total: number;
+      sha256: string;
+    }
   | { valid: false; reason: string };
 
 export const MAX_REPORT_BYTES = 20 * 1024 * 1024;

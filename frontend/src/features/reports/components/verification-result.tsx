@@ -23,14 +23,22 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
       </Alert.Root>
     );
   }
-  const rows: [string, string][] = [
-    ['Study', verification.studyTitle],
-    ['Method', verification.methodName],
-    ['Method version', `Version ${verification.methodVersion}`],
-    ['Signed', formatDateTime(verification.signedAt)],
-    ['Report id', verification.reportId],
-    ['Study id', verification.studyId],
-  ];
+  const qualification = 'kind' in verification;
+  const rows: [string, string][] = qualification
+    ? [
+        ['Report', 'Self-qualification of the calculations'],
+        ['Checks passed', `${verification.passed} of ${verification.total}`],
+        ['Signed', formatDateTime(verification.signedAt)],
+        ['Report id', verification.qualificationId],
+      ]
+    : [
+        ['Study', verification.studyTitle],
+        ['Method', verification.methodName],
+        ['Method version', `Version ${verification.methodVersion}`],
+        ['Signed', formatDateTime(verification.signedAt)],
+        ['Report id', verification.reportId],
+        ['Study id', verification.studyId],
+      ];
   return (
     <Alert.Root status="success" variant="surface" alignItems="flex-start">
       <Alert.Indicator />
@@ -39,8 +47,8 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
         <Alert.Description>
           <Stack gap="4">
             <Text>
-              This file is, byte for byte, the validation report this laboratory issued and signed. Its digital signature can also be
-              checked in any PDF reader that shows signatures.
+              This file is, byte for byte, the {qualification ? 'self-qualification report' : 'validation report'} this laboratory issued
+              and signed. Its digital signature can also be checked in any PDF reader that shows signatures.
             </Text>
             <DataList.Root orientation="horizontal" size="sm">
               {rows.map(([label, value]) => (
