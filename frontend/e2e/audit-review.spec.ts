@@ -1,4 +1,5 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test';
+import { readFile } from 'node:fs/promises';
 import { DEMO_PASSWORD, mainNavigation, signIn } from './support';
 
 const expect = baseExpect.configure({ timeout: 30_000 });
@@ -6,7 +7,7 @@ test.setTimeout(240_000);
 
 const shot = (page: Page, name: string) => page.screenshot({ path: `test-output/screenshots/audit-review-${name}.png`, fullPage: true });
 
-test('the quality manager filters the trail to one study, verifies the chain and marks it reviewed', async ({ page, request }) => {
+test('the quality manager reviews a study’s trail, then runs the self-qualification and verifies its report', async ({ page, request }) => {
   const login = await request.post('/api/auth/login', { data: { email: 'quality@meritline.test', password: DEMO_PASSWORD } });
   const headers = { Authorization: `Bearer ${(await login.json()).accessToken}` };
   const studies = (await (await request.get('/api/studies?status=approved', { headers })).json()) as {
@@ -49,4 +50,23 @@ test('the quality manager filters the trail to one study, verifies the chain and
   expect(csv.suggestedFilename()).toMatch(/^meritline-audit-trail-.*\.csv$/);
   const [pdf] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export signed PDF' }).click()]);
   expect(pdf.suggestedFilename()).toMatch(/\.pdf$/);
+
+  await mainNavigation(page).getByRole('link', { name: 'Self-qualification', exact: true }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'Self-qualification' })).toBeVisible();
+  await page.getByRole('button', { name: 'Run the self-qualification' }).click();
+  await expect(page.getByTestId('qualification-answer')).toContainText(/All \d+ checks passed/);
+  const runs = page.getByRole('table', { name: 'Self-qualification runs' });
+  await expect(runs.getByText('All checks passed')).toBeVisible();
+  await shot(page, 'qualification');
+  const [report] = await Promise.all([page.waitForEvent('download'), runs.getByRole('button', { name: 'Signed report' }).first().click()]);
+  expect(report.suggestedFilename()).toMatch(/^meritline-self-qualification-[0-9a-f]{8}\.pdf$/);
+  const saved = await report.path();
+
+  await page.goto('/verify');
+  await page
+    .getByLabel('Report to verify (PDF)')
+    .setInputFiles({ name: 'self-qualification.pdf', mimeType: 'application/pdf', buffer: await readFile(saved) });
+  await expect(page.getByText(/is an authentic report, unchanged since it was signed/)).toBeVisible();
+  await expect(page.getByText('Self-qualification of the calculations')).toBeVisible();
+  await shot(page, 'qualification-verified');
 });

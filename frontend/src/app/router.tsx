@@ -66,6 +66,10 @@ export const routes: RouteObject[] = [
             children: [{ path: paths.methodComparison.path, lazy: page(() => import('@/features/methods/routes/version-comparison')) }],
           },
           {
+            element: <RequireRole roles={[Role.QualityManager, Role.Admin]} />,
+            children: [{ path: paths.qualification.path, lazy: page(() => import('@/features/qualification/routes/qualification')) }],
+          },
+          {
             element: <RequireRole roles={[Role.Admin]} />,
             children: [
               { path: paths.users.path, lazy: page(() => import('@/features/users/routes/users')) },

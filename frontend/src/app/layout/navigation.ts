@@ -69,6 +69,12 @@ export const NAVIGATION: readonly NavSection[] = [
         summary: 'Read who changed what and why, check the chain and sign its review.',
         roles: [Role.QualityManager, Role.Admin],
       },
+      {
+        label: 'Self-qualification',
+        href: paths.qualification.getHref(),
+        summary: 'Recompute published reference values and keep a signed report of the agreement.',
+        roles: [Role.QualityManager, Role.Admin],
+      },
     ],
   },
   {
