@@ -18,6 +18,7 @@ import { HealthModule } from './health/health.module.js';
 import { MailModule } from './mail/mail.module.js';
 import { MethodsModule } from './methods/methods.module.js';
 import { NotificationsModule } from './notifications/notifications.module.js';
+import { OverviewModule } from './overview/overview.module.js';
 import { QualificationModule } from './qualification/qualification.module.js';
 import { ReportsModule } from './reports/reports.module.js';
 import { ReviewsModule } from './reviews/reviews.module.js';
@@ -47,6 +48,7 @@ const frontendDist = fileURLToPath(new URL('../../frontend/dist', import.meta.ur
     RunsModule,
     AuditReviewModule,
     QualificationModule,
+    OverviewModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },

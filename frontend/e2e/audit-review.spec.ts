@@ -3,7 +3,7 @@ import { readFile } from 'node:fs/promises';
 import { DEMO_PASSWORD, mainNavigation, signIn } from './support';
 
 const expect = baseExpect.configure({ timeout: 30_000 });
-test.setTimeout(240_000);
+test.setTimeout(300_000);
 
 const shot = (page: Page, name: string) => page.screenshot({ path: `test-output/screenshots/audit-review-${name}.png`, fullPage: true });
 
@@ -69,4 +69,10 @@ test('the quality manager reviews a study’s trail, then runs the self-qualific
   await expect(page.getByText(/is an authentic report, unchanged since it was signed/)).toBeVisible();
   await expect(page.getByText('Self-qualification of the calculations')).toBeVisible();
   await shot(page, 'qualification-verified');
+
+  await page.goto('/');
+  await expect(page.getByRole('heading', { level: 2, name: 'Waiting for you' })).toBeVisible();
+  await expect(page.getByRole('region', { name: 'Last review of the audit trail' })).toContainText(study.title);
+  await expect(page.getByRole('region', { name: 'Waiting for your review' })).toBeVisible();
+  await shot(page, 'overview');
 });

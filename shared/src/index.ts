@@ -2,6 +2,7 @@ export * from './roles.js';
 export * from './api-types.js';
 export * from './api/audit.js';
 export * from './api/qualification.js';
+export * from './api/overview.js';
 export * from './review-types.js';
 export * from './run-status.js';
 export * from './method-change.js';
