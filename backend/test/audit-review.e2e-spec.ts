@@ -97,6 +97,16 @@ describe('reviewing the audit trail', () => {
       expect(page.items.some((e) => e.entityId === ownStudy)).toBe(true);
     });
 
+    it('should name the record filtered on and list only the people of the reader’s part of the trail', async () => {
+      const page = await trail(`record=study:${ownStudy}`, 'analyst');
+      expect(page.record).toEqual({ kind: 'study', id: ownStudy, name: expect.any(String) });
+      const quality = (await t.http().get('/api/audit/people').set(as('quality')).expect(200)).body as { id: string; name: string }[];
+      expect(quality.map((p) => p.name)).toEqual(expect.arrayContaining(['Alma Ruiz', 'Tomasz Weber', 'Priya Nair']));
+      const analyst = (await t.http().get('/api/audit/people').set(as('analyst')).expect(200)).body as { id: string; name: string }[];
+      expect(analyst.map((p) => p.name)).toContain('Alma Ruiz');
+      expect(analyst.map((p) => p.name)).not.toContain('Tomasz Weber');
+    });
+
     it('should let a reviewer read the trail of a study awaiting review', async () => {
       const page = await trail(`record=study:${otherStudy}`, 'reviewer');
       expect(page.items.map((e) => e.action)).toContain('study.submitted');
