@@ -114,6 +114,7 @@ export const AUDIT_FIELD_LABELS: Record<string, string> = {
   criteria: 'Acceptance criteria',
   settings: 'Version settings',
   meta: 'Study details',
+  model: 'Calibration',
   idleMinutes: 'Idle sign-out after (minutes)',
   periodFrom: 'Period from',
   periodTo: 'Period to',
@@ -151,7 +152,15 @@ const SIGNATURE_MEANING_WORDS: Record<string, string> = {
 
 /** Coded values in words, per field: the same code can mean different things (a study's and a run's "submitted"). */
 const VALUE_WORDS: Record<string, Record<string, string>> = {
-  status: { ...STUDY_STATUS_LABELS, active: 'Active', retired: 'Retired' },
+  // Studies, method versions and the check-standard verdict of a run share the field name; their codes do not clash.
+  status: { ...STUDY_STATUS_LABELS, active: 'Active', retired: 'Retired', accepted: 'Accepted', rejected: 'Rejected' },
+  model: {
+    linear: 'Straight line',
+    'linear-through-origin': 'Straight line through the origin',
+    quadratic: 'Quadratic curve',
+    'one-point': 'One point (single standard level)',
+    'two-point': 'Two points',
+  },
   reviewStatus: RUN_REVIEW_STATUS_LABELS,
   meaning: SIGNATURE_MEANING_WORDS,
   roles: ROLE_LABELS,

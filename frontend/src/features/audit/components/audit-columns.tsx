@@ -31,17 +31,17 @@ export const auditColumns = column.columns([
     header: 'Old and new values',
     cell: (info) =>
       info.getValue().length ? (
-        <Stack gap="1" fontSize="sm" maxW="sm">
+        <Stack gap="1" fontSize="sm" width="xs" whiteSpace="normal">
           {info.getValue().map((change) => (
             <Box key={change.field}>
               <Text as="span" fontWeight="600">
                 {change.field}:
               </Text>{' '}
-              <Text as="span" color="fg.muted" wordBreak="break-all">
+              <Text as="span" color="fg.muted" overflowWrap="anywhere">
                 {change.from}
               </Text>{' '}
               →{' '}
-              <Text as="span" wordBreak="break-all">
+              <Text as="span" overflowWrap="anywhere">
                 {change.to}
               </Text>
             </Box>
@@ -54,7 +54,7 @@ export const auditColumns = column.columns([
   column.accessor('reason', {
     header: 'Reason',
     cell: (info) => (
-      <Text fontSize="sm" whiteSpace="pre-wrap" maxW="xs">
+      <Text fontSize="sm" whiteSpace="pre-wrap" width="3xs">
         {info.getValue() ?? '—'}
       </Text>
     ),
