@@ -1,5 +1,7 @@
 import {
+  AOAC_HORWITZ_PRINTED,
   ATMWTAG,
+  EPA_MDL_T_PRINTED,
   evaluateStudy,
   NOINT1,
   NOINT2,
@@ -12,11 +14,12 @@ import {
   type RegressionReference,
 } from '@meritline/shared';
 import { describe, expect, it } from 'vitest';
-import { expectRel, loadJson, standards } from './helpers.js';
+import { expectRel, loadCsv, loadJson, standards } from './helpers.js';
 
-// The certified NIST StRD checks are the self-qualification list of the engine (shared/src/qualification), which the
-// server runs too: 15 certified digits, required here to at least 9 (relative 1e-9), counts exactly.
-describe('NIST StRD certified values: the self-qualification list', () => {
+// The published checks are the self-qualification list of the engine (shared/src/qualification), which the server runs
+// too: NIST StRD certified values (15 digits, required to at least 9, counts exactly) and printed tables (EPA MDL t,
+// AOAC Horwitz Table D1) within half a unit of their last printed digit.
+describe('published values: the self-qualification list', () => {
   it.each(QUALIFICATION_CHECKS.map((check) => [check.id, check] as const))('%s', (_id, check) => {
     const result = runCheck(check);
     expect(result.obtained, `${check.quantity}: no value`).not.toBeNull();
@@ -26,10 +29,10 @@ describe('NIST StRD certified values: the self-qualification list', () => {
     ).toBe(true);
   });
 
-  it('covers every certified value of the six sets', () => {
+  it('covers every certified value of the six sets and both printed tables', () => {
     const ids = QUALIFICATION_CHECKS.map((c) => c.id);
     expect(new Set(ids).size).toBe(ids.length);
-    for (const prefix of ['norris', 'pontius', 'noint1', 'noint2', 'sirstv', 'atmwtag']) {
+    for (const prefix of ['norris', 'pontius', 'noint1', 'noint2', 'sirstv', 'atmwtag', 'epa-mdl', 'aoac-horwitz']) {
       expect(ids.filter((id) => id.startsWith(`${prefix}.`)).length).toBeGreaterThanOrEqual(6);
     }
   });
@@ -68,6 +71,22 @@ describe('the data of the list are those of the reference files', () => {
       rSquared: cert.r_squared,
       residualSd: cert.residual_sd,
     });
+  });
+});
+
+describe('the printed tables of the list are those of the reference files', () => {
+  it('EPA MDL t values (epa_mdl_t_values.csv, rows confirmed from a stored copy)', () => {
+    const printed = loadCsv('epa_mdl_t_values.csv').filter((row) => row.printed_source === 'stored');
+    expect(EPA_MDL_T_PRINTED.rows.map((row) => [String(row.n), row.t])).toEqual(printed.map((row) => [row.n, row.printed_table]));
+  });
+
+  it('AOAC Table D1 (horwitz_horrat.json)', () => {
+    const printed = (loadJson('horwitz_horrat.json').table as Record<string, number | null>[]).filter(
+      (row) => row.AOAC_Table_D1_printed !== null,
+    );
+    expect(AOAC_HORWITZ_PRINTED.rows.map((row) => [row.massFraction, Number(row.rsdPercent)])).toEqual(
+      printed.map((row) => [row.C_mass_fraction, row.AOAC_Table_D1_printed]),
+    );
   });
 });
 

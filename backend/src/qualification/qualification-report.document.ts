@@ -17,6 +17,12 @@ export interface QualificationReportContent {
 export const qualificationFileName = (id: string) => `meritline-self-qualification-${id.slice(0, 8)}.pdf`;
 
 const digits = (value: number | null) => (value === null ? 'none' : value >= 15 ? '15 (all)' : value.toFixed(1));
+function requiredText(check: QualificationCheckResult): string {
+  if (check.tolerance === 0) return 'exact';
+  if (check.toleranceKind === 'absolute') return `± ${Number(check.tolerance.toPrecision(2))}`;
+  return `${check.requiredDigits} digits`;
+}
+
 /** 15 significant digits, in powers of ten where the published value uses them too. */
 function obtainedText(check: QualificationCheckResult): string {
   if (check.obtained === null) return 'no value';
@@ -58,7 +64,7 @@ export function renderQualificationReport(content: QualificationReportContent): 
     failed === 0 ? 'All checks passed' : `${failed} of ${checks.length} checks failed`,
     [
       `${content.passed} of ${checks.length} checks agree with the published values within their tolerance.`,
-      `Fewest digits of agreement: ${digits(content.minDigits)}.`,
+      `Fewest digits of agreement with the certified values: ${digits(content.minDigits)}.`,
       failed === 0
         ? 'The calculations of this installation reproduce the published reference values.'
         : 'Do not rely on results calculated by this installation until the failed checks are explained; inform your quality manager.',
@@ -75,7 +81,7 @@ export function renderQualificationReport(content: QualificationReportContent): 
         { header: 'Published', width: 1.6, align: 'right' },
         { header: 'Obtained', width: 1.6, align: 'right' },
         { header: 'Digits agreeing', width: 0.8, align: 'right' },
-        { header: 'Digits required', width: 0.8, align: 'right' },
+        { header: 'Required', width: 0.8, align: 'right' },
         { header: 'Result', width: 0.7 },
       ],
       rows: checks
@@ -87,7 +93,7 @@ export function renderQualificationReport(content: QualificationReportContent): 
             check.expected,
             obtainedText(check),
             digits(check.digits),
-            check.tolerance === 0 ? 'exact' : String(check.requiredDigits),
+            requiredText(check),
             check.pass ? 'Pass' : 'FAIL',
           ],
           bold: !check.pass,
@@ -98,7 +104,8 @@ export function renderQualificationReport(content: QualificationReportContent): 
   pdf.heading('What this report does and does not show', 2);
   pdf.paragraph(
     'Digits of agreement are −log10 of the relative difference between the obtained and the published value (the log relative error ' +
-      'of the NIST StRD documentation), at most 15. Counts such as degrees of freedom must agree exactly. This run shows that the ' +
+      'of the NIST StRD documentation), at most 15. Counts such as degrees of freedom must agree exactly; values of printed tables, ' +
+      'which are rounded, must agree within half a unit of their last printed digit. This run shows that the ' +
       'calculations reproduce the reference values on this installation; it does not replace the validation of the computerised ' +
       "system or of any method under the laboratory's own procedures, its qualified review and the regulations that apply.",
   );

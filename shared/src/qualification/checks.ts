@@ -1,6 +1,9 @@
 import { evaluateStudy } from '../evaluate.js';
 import type { CalibrationResult, PrecisionResultSection } from '../result.js';
 import { ENGINE_VERSION } from '../version.js';
+import { AOAC_HORWITZ_PRINTED, EPA_MDL_T_PRINTED } from './printed-tables.js';
+import { studentQuantile } from '../engine/distributions.js';
+import { horwitzRsd } from '../engine/precision.js';
 import { ATMWTAG, NOINT1, NOINT2, NORRIS, PONTIUS, SIRSTV, type AnovaReference, type RegressionReference } from './nist-strd.js';
 
 /** Digits of agreement are capped here: the certified values carry 15 significant digits. */
@@ -16,8 +19,9 @@ export interface QualificationCheckDefinition {
   source: string;
   /** The published value, as printed. */
   expected: string;
-  /** Largest relative difference accepted (0: exact, for counts). */
+  /** Largest difference accepted (0: exact, for counts): relative to the published value, or absolute for rounded printed tables. */
   tolerance: number;
+  toleranceKind?: 'relative' | 'absolute';
   compute: () => number | null;
 }
 
@@ -30,7 +34,8 @@ export interface QualificationCheckResult {
   /** −log10 of the relative difference (the LRE of the StRD documentation), capped at 15; null when nothing was obtained. */
   digits: number | null;
   tolerance: number;
-  /** Digits of agreement the tolerance asks for. */
+  toleranceKind: 'relative' | 'absolute';
+  /** Digits of agreement the tolerance asks for (relative tolerances). */
   requiredDigits: number;
   pass: boolean;
 }
@@ -41,7 +46,7 @@ export interface QualificationSummary {
   passed: number;
   failed: number;
   allPassed: boolean;
-  /** The fewest digits of agreement over all checks. */
+  /** The fewest digits of agreement over the certified values (printed tables are rounded, so they are left out). */
   minDigits: number | null;
 }
 
@@ -130,6 +135,32 @@ function anovaChecks(ref: AnovaReference): QualificationCheckDefinition[] {
   ];
 }
 
+/** Printed tables are rounded: agreement within half a unit of the last printed digit. */
+const halfLastDigit = (printed: string) => 0.5 * 10 ** -(printed.split('.')[1]?.length ?? 0) + 1e-12;
+
+function printedTableChecks(): QualificationCheckDefinition[] {
+  return [
+    ...EPA_MDL_T_PRINTED.rows.map((row) => ({
+      id: `epa-mdl.t-${row.n}`,
+      quantity: `EPA MDL: t(${row.n - 1}, 0.99) for ${row.n} samples`,
+      source: EPA_MDL_T_PRINTED.source,
+      expected: row.t,
+      tolerance: halfLastDigit(row.t),
+      toleranceKind: 'absolute' as const,
+      compute: () => studentQuantile(0.99, row.n - 1),
+    })),
+    ...AOAC_HORWITZ_PRINTED.rows.map((row) => ({
+      id: `aoac-horwitz.c-${row.massFraction.toExponential(0).replace('+', '')}`,
+      quantity: `Horwitz: predicted RSD of reproducibility (%) at mass fraction ${row.massFraction.toFixed(Math.max(0, -Math.floor(Math.log10(row.massFraction))))}`,
+      source: AOAC_HORWITZ_PRINTED.source,
+      expected: row.rsdPercent,
+      tolerance: halfLastDigit(row.rsdPercent),
+      toleranceKind: 'absolute' as const,
+      compute: () => horwitzRsd(row.massFraction),
+    })),
+  ];
+}
+
 /**
  * The published checks of the calculations, defined once: the reference-checks tests and the server's
  * self-qualification run this same list through the same engine build.
@@ -141,6 +172,7 @@ export const QUALIFICATION_CHECKS: readonly QualificationCheckDefinition[] = [
   ...regressionChecks(NOINT2),
   ...anovaChecks(SIRSTV),
   ...anovaChecks(ATMWTAG),
+  ...printedTableChecks(),
 ];
 
 /** Correct significant digits of `obtained` against `expected` (the StRD log relative error), capped at 15. */
@@ -160,7 +192,9 @@ export function runCheck(definition: QualificationCheckDefinition): Qualificatio
   }
   const finite = obtained !== null && Number.isFinite(obtained);
   const digits = finite ? digitsOfAgreement(obtained as number, expected) : null;
-  const difference = finite ? Math.abs((obtained as number) - expected) / (expected === 0 ? 1 : Math.abs(expected)) : Infinity;
+  const toleranceKind = definition.toleranceKind ?? 'relative';
+  const scale = toleranceKind === 'absolute' || expected === 0 ? 1 : Math.abs(expected);
+  const difference = finite ? Math.abs((obtained as number) - expected) / scale : Infinity;
   return {
     id: definition.id,
     quantity: definition.quantity,
@@ -169,6 +203,7 @@ export function runCheck(definition: QualificationCheckDefinition): Qualificatio
     obtained: finite ? (obtained as number) : null,
     digits,
     tolerance: definition.tolerance,
+    toleranceKind,
     requiredDigits: definition.tolerance === 0 ? MAX_DIGITS : Math.round(-Math.log10(definition.tolerance)),
     pass: difference <= definition.tolerance,
   };
@@ -177,7 +212,10 @@ export function runCheck(definition: QualificationCheckDefinition): Qualificatio
 export function runQualification(checks: readonly QualificationCheckDefinition[] = QUALIFICATION_CHECKS): QualificationSummary {
   const results = checks.map(runCheck);
   const passed = results.filter((r) => r.pass).length;
-  const digits = results.map((r) => r.digits).filter((d): d is number => d !== null);
+  const digits = results
+    .filter((r) => r.toleranceKind === 'relative' && r.tolerance > 0)
+    .map((r) => r.digits)
+    .filter((d): d is number => d !== null);
   return {
     engineVersion: ENGINE_VERSION,
     checks: results,
