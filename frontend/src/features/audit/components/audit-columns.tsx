@@ -8,22 +8,32 @@ const column = dataTableColumns<AuditTrailEntryDto>();
 export const auditColumns = column.columns([
   column.accessor('seq', { header: 'No.', meta: { align: 'end' }, cell: (info) => <Text color="fg.muted">{info.getValue()}</Text> }),
   column.accessor('at', {
-    header: 'When',
-    cell: (info) => (
-      <Text whiteSpace="nowrap" title={info.getValue()}>
-        {formatDateTime(info.getValue())}
-      </Text>
-    ),
-  }),
-  column.accessor('actorName', { header: 'Who' }),
-  column.accessor('actionText', {
-    header: 'What',
+    header: 'When and who',
     cell: (info) => (
       <Stack gap="0">
+        <Text whiteSpace="nowrap" title={info.getValue()}>
+          {formatDateTime(info.getValue())}
+        </Text>
+        <Text fontWeight="600">{info.row.original.actorName}</Text>
+      </Stack>
+    ),
+  }),
+  column.accessor('actionText', {
+    header: 'What and why',
+    cell: (info) => (
+      <Stack gap="0.5" width="2xs" whiteSpace="normal">
         <Text fontWeight="600">{info.getValue()}</Text>
         <Text fontSize="sm" color="fg.muted">
           {info.row.original.recordText}
         </Text>
+        {info.row.original.reason && (
+          <Text fontSize="sm" whiteSpace="pre-wrap" overflowWrap="anywhere">
+            <Text as="span" fontWeight="600">
+              Reason:
+            </Text>{' '}
+            {info.row.original.reason}
+          </Text>
+        )}
       </Stack>
     ),
   }),
@@ -50,13 +60,5 @@ export const auditColumns = column.columns([
       ) : (
         <Text color="fg.subtle">—</Text>
       ),
-  }),
-  column.accessor('reason', {
-    header: 'Reason',
-    cell: (info) => (
-      <Text fontSize="sm" whiteSpace="pre-wrap" width="3xs">
-        {info.getValue() ?? '—'}
-      </Text>
-    ),
   }),
 ]);
