@@ -6,6 +6,7 @@ import { ThrottlerModule } from '@nestjs/throttler';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { AuditModule } from './audit/audit.module.js';
+import { AuditReviewModule } from './audit-review/audit-review.module.js';
 import { AuthModule } from './auth/auth.module.js';
 import { ComparisonsModule } from './comparisons/comparisons.module.js';
 import { AllExceptionsFilter } from './common/filters/all-exceptions.filter.js';
@@ -20,6 +21,8 @@ import { MethodsModule } from './methods/methods.module.js';
 import { NotificationsModule } from './notifications/notifications.module.js';
 import { PreparationsModule } from './preparations/preparations.module.js';
 import { ReferenceMaterialsModule } from './reference-materials/reference-materials.module.js';
+import { OverviewModule } from './overview/overview.module.js';
+import { QualificationModule } from './qualification/qualification.module.js';
 import { ReportsModule } from './reports/reports.module.js';
 import { ReviewsModule } from './reviews/reviews.module.js';
 import { RunsModule } from './runs/runs.module.js';
@@ -60,6 +63,9 @@ function cacheHeaders(res: { setHeader(name: string, value: string): void }, pat
     RunsModule,
     ReferenceMaterialsModule,
     PreparationsModule,
+    AuditReviewModule,
+    QualificationModule,
+    OverviewModule,
   ],
   providers: [
     { provide: APP_FILTER, useClass: AllExceptionsFilter },

@@ -38,15 +38,11 @@ describe('the audit trail and signature integrity', () => {
   });
 
   it('should record each step of the review with the actor, the status change and the failed signature', async () => {
-    const study = await t.http().get(`/api/audit?entity=study&id=${studyId}`).set(quality).expect(200);
-    expect(study.body.map((e: { action: string }) => e.action).reverse()).toEqual([
-      'signature.failed',
-      'study.submitted',
-      'study.approved',
-    ]);
-    expect(study.body[0]).toMatchObject({ actorName: 'Priya Nair', changes: { status: { from: 'submitted', to: 'approved' } } });
-    const signatures = await t.http().get('/api/audit?entity=study-signature').set(quality).expect(200);
-    const ofStudy = signatures.body.filter((e: { changes: { studyId: { to: string } } }) => e.changes.studyId.to === studyId);
+    const trail = await t.http().get(`/api/audit?record=study:${studyId}`).set(quality).expect(200);
+    const study = trail.body.items.filter((e: { entity: string }) => e.entity === 'study');
+    expect(study.map((e: { action: string }) => e.action).reverse()).toEqual(['signature.failed', 'study.submitted', 'study.approved']);
+    expect(study[0]).toMatchObject({ actorName: 'Priya Nair', changes: { status: { from: 'submitted', to: 'approved' } } });
+    const ofStudy = trail.body.items.filter((e: { entity: string }) => e.entity === 'study-signature');
     expect(ofStudy.map((e: { action: string }) => e.action).sort()).toEqual(['signature.authored', 'signature.reviewed-and-approved']);
   });
 

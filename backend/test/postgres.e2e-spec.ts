@@ -93,4 +93,34 @@ describe.skipIf(!serverUrl)('the same entities, migrations and seeds on PostgreS
     const verify = await t.http().get('/api/audit/verify').set('Authorization', `Bearer ${token}`).expect(200);
     expect(verify.body.ok).toBe(true);
   });
+
+  it('should filter, scope and page the audit trail, run the self-qualification and build the overview on PostgreSQL', async () => {
+    const quality = { Authorization: `Bearer ${await t.tokenFor(DEMO.quality)}` };
+    const analyst = { Authorization: `Bearer ${await t.tokenFor(DEMO.analyst)}` };
+    const studies = await t.http().get('/api/studies?pageSize=50').set(analyst).expect(200);
+    const study = studies.body.items[0] as { id: string };
+    const today = new Date().toISOString().slice(0, 10);
+    const filtered = await t
+      .http()
+      .get(`/api/audit?record=study:${study.id}&from=${today}&to=${today}&q=study&pageSize=5`)
+      .set(quality)
+      .expect(200);
+    expect(filtered.body.record).toMatchObject({ kind: 'study', id: study.id });
+    const scoped = await t.http().get('/api/audit?pageSize=200').set(analyst).expect(200);
+    expect(scoped.body.total).toBeGreaterThan(0);
+    await t.http().get('/api/audit/people').set(analyst).expect(200);
+    const me = (await t.http().get('/api/auth/me').set(analyst).expect(200)).body.id as string;
+    const items = studies.body.items as { id: string; author: { id: string } }[];
+    const own = items.find((s) => s.author.id === me);
+    const other = items.find((s) => s.author.id !== me);
+    if (own) await t.http().get(`/api/audit?record=study:${own.id}`).set(analyst).expect(200);
+    if (other) await t.http().get(`/api/audit?record=study:${other.id}`).set(analyst).expect(403);
+    expect(own && other).toBeTruthy();
+    const paged = await t.http().get('/api/audit?pageSize=3').set(quality).expect(200);
+    await t.http().get(`/api/audit?pageSize=3&cursor=${paged.body.nextCursor}`).set(quality).expect(200);
+    await t.http().get('/api/audit/export?format=csv').set(quality).expect(200);
+    await t.http().post('/api/qualification').set(quality).expect(201);
+    const overview = await t.http().get('/api/overview').set(quality).expect(200);
+    expect(overview.body).toHaveProperty('justifiedApprovals');
+  });
 });

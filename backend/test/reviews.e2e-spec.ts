@@ -103,8 +103,8 @@ describe('review and sign-off', () => {
         .expect(401);
       expect(res.body.message).toBe('Password not correct; nothing was signed.');
       expect(databaseState(t, study.id)).toEqual(before);
-      const audit = await t.http().get(`/api/audit?entity=study&id=${study.id}`).set(as('quality')).expect(200);
-      expect(audit.body[0]).toMatchObject({ action: 'signature.failed', actorName: 'Alma Ruiz' });
+      const audit = await t.http().get(`/api/audit?record=study:${study.id}`).set(as('quality')).expect(200);
+      expect(audit.body.items[0]).toMatchObject({ action: 'signature.failed', actorName: 'Alma Ruiz' });
       await t.http().get('/api/auth/me').set(as('analyst')).expect(200);
     });
 
@@ -190,8 +190,8 @@ describe('review and sign-off', () => {
       expect(mails[0].text).toContain(comment);
       const notices = await t.http().get('/api/notifications').set(as('analyst')).expect(200);
       expect(notices.body.items[0]).toMatchObject({ kind: 'study.returned', message: expect.stringContaining(comment) });
-      const audit = await t.http().get(`/api/audit?entity=study&id=${study.id}`).set(as('quality')).expect(200);
-      expect(audit.body[0]).toMatchObject({
+      const audit = await t.http().get(`/api/audit?record=study:${study.id}`).set(as('quality')).expect(200);
+      expect(audit.body.items[0]).toMatchObject({
         action: 'study.returned',
         changes: { status: { from: 'submitted', to: 'returned' } },
         reason: comment,
@@ -487,8 +487,8 @@ describe('review and sign-off', () => {
         submittedAt: null,
         result: expect.any(Object),
       });
-      const audit = await t.http().get(`/api/audit?entity=study&id=${res.body.id}`).set(as('quality')).expect(200);
-      expect(audit.body[0]).toMatchObject({ action: 'study.created', changes: { copiedFromId: { from: null, to: study.id } } });
+      const audit = await t.http().get(`/api/audit?record=study:${res.body.id}`).set(as('quality')).expect(200);
+      expect(audit.body.items[0]).toMatchObject({ action: 'study.created', changes: { copiedFromId: { from: null, to: study.id } } });
     });
 
     it('should refuse a copy onto a retired method version (422), by a reviewer (403), anonymously (401) or of an unknown study (404)', async () => {
@@ -537,8 +537,9 @@ describe('review and sign-off', () => {
         [first.body.id, true],
         [reply.body.id, false],
       ]);
-      const audit = await t.http().get(`/api/audit?entity=study-comment&id=${first.body.id}`).set(as('quality')).expect(200);
-      expect(audit.body.map((e: { action: string }) => e.action)).toEqual(['study-comment.resolved', 'study-comment.created']);
+      const audit = await t.http().get(`/api/audit?record=study:${study.id}`).set(as('quality')).expect(200);
+      const ofComment = audit.body.items.filter((e: { entityId: string }) => e.entityId === first.body.id);
+      expect(ofComment.map((e: { action: string }) => e.action)).toEqual(['study-comment.resolved', 'study-comment.created']);
     });
 
     it('should refuse bad comments with 422 field messages and change nothing', async () => {

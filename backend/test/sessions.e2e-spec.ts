@@ -39,10 +39,10 @@ describe('sessions, password reset, password rules and signing locks', () => {
     return (
       await t
         .http()
-        .get(`/api/audit?entity=user&id=${await userId(t, email)}`)
+        .get(`/api/audit?record=user:${await userId(t, email)}&pageSize=200`)
         .set(bearer(quality))
         .expect(200)
-    ).body as { action: string; reason: string | null; changes: unknown }[];
+    ).body.items as { action: string; reason: string | null; changes: unknown }[];
   };
 
   beforeAll(async () => {

@@ -6,8 +6,12 @@ export const DEMO_ACCOUNTS = [
   { role: 'analyst', email: 'analyst@meritline.test', entries: ['Validation studies', 'Routine batches', 'Standard preparations'] },
   { role: 'reviewer', email: 'reviewer@meritline.test', entries: ['Review queue'] },
   // The demo quality manager also reviews.
-  { role: 'quality_manager', email: 'quality@meritline.test', entries: ['Methods', 'Version comparison', 'Review queue'] },
-  { role: 'admin', email: 'admin@meritline.test', entries: ['Validation studies', 'Users', 'Outbox'] },
+  {
+    role: 'quality_manager',
+    email: 'quality@meritline.test',
+    entries: ['Methods', 'Version comparison', 'Audit trail', 'Self-qualification', 'Review queue'],
+  },
+  { role: 'admin', email: 'admin@meritline.test', entries: ['Validation studies', 'Users', 'Outbox', 'Audit trail', 'Self-qualification'] },
 ] as const;
 
 export const ROLE_ENTRIES = [...new Set(DEMO_ACCOUNTS.flatMap((account) => account.entries))];

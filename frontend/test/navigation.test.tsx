@@ -8,8 +8,8 @@ import { renderRoutes, stubApi } from './render';
 const ENTRIES_BY_ROLE: Record<Role, string[]> = {
   [Role.Analyst]: ['Validation studies', 'Routine batches', 'Standard preparations'],
   [Role.Reviewer]: ['Review queue'],
-  [Role.QualityManager]: ['Methods', 'Version comparison'],
-  [Role.Admin]: ['Validation studies', 'Users', 'Outbox'],
+  [Role.QualityManager]: ['Methods', 'Version comparison', 'Audit trail', 'Self-qualification'],
+  [Role.Admin]: ['Validation studies', 'Users', 'Outbox', 'Audit trail', 'Self-qualification'],
 };
 const FOR_EVERYONE = ['Overview', 'Reference materials', 'Verify a report'];
 const ALL_ROLE_ENTRIES = Object.values(ENTRIES_BY_ROLE).flat();

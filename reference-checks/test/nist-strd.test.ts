@@ -1,131 +1,113 @@
-import { evaluateStudy } from '@meritline/shared';
+import {
+  AOAC_HORWITZ_PRINTED,
+  ATMWTAG,
+  EPA_MDL_T_PRINTED,
+  evaluateStudy,
+  NOINT1,
+  NOINT2,
+  NORRIS,
+  PONTIUS,
+  QUALIFICATION_CHECKS,
+  runCheck,
+  SIRSTV,
+  type AnovaReference,
+  type RegressionReference,
+} from '@meritline/shared';
 import { describe, expect, it } from 'vitest';
-import { expectRel, loadJson, standards } from './helpers.js';
+import { expectRel, loadCsv, loadJson, standards } from './helpers.js';
 
-// NIST StRD certified values (15 significant digits): required here to at least 9 (relative 1e-9).
-const NINE_DIGITS = 1e-9;
-
-describe('NIST StRD Norris: straight line, certified values', () => {
-  const ref = loadJson('nist_strd_norris.json');
-  const cert = ref.certified;
-  const cal = evaluateStudy({ model: 'linear', standards: standards(ref.data.x, ref.data.y) }).calibration!;
-
-  it('reproduces the estimates and their standard deviations', () => {
-    expectRel(cal.intercept, cert.parameters.B0.estimate, NINE_DIGITS, 'B0');
-    expectRel(cal.slope, cert.parameters.B1.estimate, NINE_DIGITS, 'B1');
-    expectRel(cal.seIntercept, cert.parameters.B0.sd, NINE_DIGITS, 'sd B0');
-    expectRel(cal.seSlope, cert.parameters.B1.sd, NINE_DIGITS, 'sd B1');
+// The published checks are the self-qualification list of the engine (shared/src/qualification), which the server runs
+// too: NIST StRD certified values (15 digits, required to at least 9, counts exactly) and printed tables (EPA MDL t,
+// AOAC Horwitz Table D1) within half a unit of their last printed digit.
+describe('published values: the self-qualification list', () => {
+  it.each(QUALIFICATION_CHECKS.map((check) => [check.id, check] as const))('%s', (_id, check) => {
+    const result = runCheck(check);
+    expect(result.obtained, `${check.quantity}: no value`).not.toBeNull();
+    expect(
+      result.pass,
+      `${check.quantity} (${check.source}): got ${result.obtained}, expected ${check.expected}, ${result.digits?.toFixed(1)} digits`,
+    ).toBe(true);
   });
 
-  it('reproduces the residual SD, R² and the ANOVA table', () => {
-    expectRel(cal.sYX, cert.residual_standard_deviation, NINE_DIGITS, 'residual SD');
-    expectRel(cal.r2, cert.r_squared, NINE_DIGITS, 'R²');
-    expect(cal.anova!.dfRegression).toBe(cert.anova.regression.df);
-    expect(cal.anova!.dfResidual).toBe(cert.anova.residual.df);
-    expectRel(cal.anova!.ssRegression, cert.anova.regression.ss, NINE_DIGITS, 'SS regression');
-    expectRel(cal.anova!.msRegression, cert.anova.regression.ms, NINE_DIGITS, 'MS regression');
-    expectRel(cal.anova!.F, cert.anova.regression.F, NINE_DIGITS, 'F');
-    expectRel(cal.anova!.ssResidual, cert.anova.residual.ss, NINE_DIGITS, 'SS residual');
-    expectRel(cal.anova!.msResidual, cert.anova.residual.ms, NINE_DIGITS, 'MS residual');
+  it('covers every certified value of the six sets and both printed tables', () => {
+    const ids = QUALIFICATION_CHECKS.map((c) => c.id);
+    expect(new Set(ids).size).toBe(ids.length);
+    for (const prefix of ['norris', 'pontius', 'noint1', 'noint2', 'sirstv', 'atmwtag', 'epa-mdl', 'aoac-horwitz']) {
+      expect(ids.filter((id) => id.startsWith(`${prefix}.`)).length).toBeGreaterThanOrEqual(6);
+    }
   });
 });
 
-describe('NIST StRD Pontius: quadratic, certified values', () => {
-  const ref = loadJson('nist_strd_pontius.json');
-  const cert = ref.certified;
-  const cal = evaluateStudy({ model: 'quadratic', standards: standards(ref.data.x, ref.data.y) }).calibration!;
-
-  it('reproduces B0, B1, B2 and their standard deviations', () => {
-    expectRel(cal.intercept, cert.parameters.B0.estimate, NINE_DIGITS, 'B0');
-    expectRel(cal.slope, cert.parameters.B1.estimate, NINE_DIGITS, 'B1');
-    expectRel(cal.curvature, cert.parameters.B2.estimate, NINE_DIGITS, 'B2');
-    expectRel(cal.seIntercept, cert.parameters.B0.sd, NINE_DIGITS, 'sd B0');
-    expectRel(cal.seSlope, cert.parameters.B1.sd, NINE_DIGITS, 'sd B1');
-    expectRel(cal.seCurvature, cert.parameters.B2.sd, NINE_DIGITS, 'sd B2');
+describe('the data of the list are those of the reference files', () => {
+  it.each([
+    ['nist_strd_norris.json', NORRIS],
+    ['nist_strd_pontius.json', PONTIUS],
+    ['nist_strd_noint1.json', NOINT1],
+    ['nist_strd_noint2.json', NOINT2],
+  ] as [string, RegressionReference][])('%s', (file, embedded) => {
+    const ref = loadJson(file);
+    expect(embedded.x).toEqual(ref.data.x);
+    expect(embedded.y).toEqual(ref.data.y);
+    const cert = ref.certified;
+    expect(embedded.certified).toEqual({
+      parameters: cert.parameters,
+      residualSd: cert.residual_standard_deviation,
+      rSquared: cert.r_squared,
+      anova: cert.anova,
+    });
   });
 
-  it('reproduces the residual SD, R² and the ANOVA table', () => {
-    expectRel(cal.sYX, cert.residual_standard_deviation, NINE_DIGITS, 'residual SD');
-    expectRel(cal.r2, cert.r_squared, NINE_DIGITS, 'R²');
-    expect(cal.anova!.dfRegression).toBe(2);
-    expect(cal.anova!.dfResidual).toBe(37);
-    expectRel(cal.anova!.ssRegression, cert.anova.regression.ss, NINE_DIGITS, 'SS regression');
-    expectRel(cal.anova!.msRegression, cert.anova.regression.ms, NINE_DIGITS, 'MS regression');
-    expectRel(cal.anova!.F, cert.anova.regression.F, NINE_DIGITS, 'F');
-    expectRel(cal.anova!.ssResidual, cert.anova.residual.ss, NINE_DIGITS, 'SS residual');
-    expectRel(cal.anova!.msResidual, cert.anova.residual.ms, NINE_DIGITS, 'MS residual');
+  it.each([
+    ['nist_strd_anova_sirstv.json', SIRSTV],
+    ['nist_strd_anova_atmwtag.json', ATMWTAG],
+  ] as [string, AnovaReference][])('%s', (file, embedded) => {
+    const ref = loadJson(file);
+    expect(embedded.group).toEqual(ref.data.group);
+    expect(embedded.value).toEqual(ref.data.value);
+    const cert = ref.certified;
+    expect(embedded.certified).toEqual({
+      between: cert.between,
+      within: cert.within,
+      rSquared: cert.r_squared,
+      residualSd: cert.residual_sd,
+    });
   });
 });
 
-describe.each(['nist_strd_noint1.json', 'nist_strd_noint2.json'])('NIST StRD %s: line through the origin, certified values', (file) => {
-  const ref = loadJson(file);
-  const cert = ref.certified;
-  const cal = evaluateStudy({ model: 'linear-through-origin', standards: standards(ref.data.x, ref.data.y) }).calibration!;
+describe('the printed tables of the list are those of the reference files', () => {
+  it('EPA MDL t values (epa_mdl_t_values.csv, rows confirmed from a stored copy)', () => {
+    const printed = loadCsv('epa_mdl_t_values.csv').filter((row) => row.printed_source === 'stored');
+    expect(EPA_MDL_T_PRINTED.rows.map((row) => [String(row.n), row.t])).toEqual(printed.map((row) => [row.n, row.printed_table]));
+  });
 
-  it('reproduces B1, its SD, the residual SD and the uncentred R²', () => {
-    expectRel(cal.slope, cert.parameters.B1.estimate, NINE_DIGITS, 'B1');
-    expectRel(cal.seSlope, cert.parameters.B1.sd, NINE_DIGITS, 'sd B1');
-    expectRel(cal.sYX, cert.residual_standard_deviation, NINE_DIGITS, 'residual SD');
-    expectRel(cal.r2, cert.r_squared, NINE_DIGITS, 'R² (uncentred)');
+  it('AOAC Table D1 (horwitz_horrat.json)', () => {
+    const printed = (loadJson('horwitz_horrat.json').table as Record<string, number | null>[]).filter(
+      (row) => row.AOAC_Table_D1_printed !== null,
+    );
+    expect(AOAC_HORWITZ_PRINTED.rows.map((row) => [row.massFraction, Number(row.rsdPercent)])).toEqual(
+      printed.map((row) => [row.C_mass_fraction, row.AOAC_Table_D1_printed]),
+    );
+  });
+});
+
+describe.each(['nist_strd_noint1.json', 'nist_strd_noint2.json'])('NIST StRD %s: line through the origin', (file) => {
+  it('keeps the intercept at exactly zero', () => {
+    const ref = loadJson(file);
+    const cal = evaluateStudy({ model: 'linear-through-origin', standards: standards(ref.data.x, ref.data.y) }).calibration!;
     expect(cal.intercept).toBe(0);
   });
-
-  it('reproduces the uncentred ANOVA table', () => {
-    expect(cal.anova!.dfRegression).toBe(1);
-    expect(cal.anova!.dfResidual).toBe(cert.anova.residual.df);
-    expectRel(cal.anova!.ssRegression, cert.anova.regression.ss, NINE_DIGITS, 'SS regression');
-    expectRel(cal.anova!.F, cert.anova.regression.F, NINE_DIGITS, 'F');
-    expectRel(cal.anova!.ssResidual, cert.anova.residual.ss, NINE_DIGITS, 'SS residual');
-    expectRel(cal.anova!.msResidual, cert.anova.residual.ms, NINE_DIGITS, 'MS residual');
-  });
 });
 
-function anovaStudy(file: string) {
-  const ref = loadJson(file);
-  const precision = ref.data.group.map((g: number, i: number) => ({ group: `instrument ${g}`, value: ref.data.value[i] }));
-  return { ref, result: evaluateStudy({ precision }).precision! };
-}
-
-describe('NIST StRD ANOVA SiRstv: one-way layout, certified values', () => {
-  const { ref, result } = anovaStudy('nist_strd_anova_sirstv.json');
-  const cert = ref.certified;
-
-  it('reproduces the between and within rows to 9 digits', () => {
-    expect(result.dfBetween).toBe(cert.between.df);
-    expect(result.dfWithin).toBe(cert.within.df);
-    expectRel(result.ssBetween, cert.between.ss, NINE_DIGITS, 'SS between');
-    expectRel(result.msBetween, cert.between.ms, NINE_DIGITS, 'MS between');
-    expectRel(result.F, cert.between.F, NINE_DIGITS, 'F');
-    expectRel(result.ssWithin, cert.within.ss, NINE_DIGITS, 'SS within');
-    expectRel(result.msWithin, cert.within.ms, NINE_DIGITS, 'MS within');
-    expectRel(result.sR, cert.residual_sd, NINE_DIGITS, 'residual SD');
-    const r2 = result.ssBetween! / (result.ssBetween! + result.ssWithin);
-    expectRel(r2, cert.r_squared, NINE_DIGITS, 'R²');
-  });
-
+describe('NIST StRD ANOVA SiRstv: derived precision estimates', () => {
   it('derives s_r, s_L and s_R as recomputed in the reference file (ISO 5725-2 one-way model; recomputed, not certified)', () => {
+    const ref = loadJson('nist_strd_anova_sirstv.json');
+    const precision = ref.data.group.map((g: number, i: number) => ({ group: `instrument ${g}`, value: ref.data.value[i] }));
+    const result = evaluateStudy({ precision }).precision!;
     const derived = ref.derived_precision_estimates_not_certified;
     expectRel(result.sR, derived.s_r, 1e-9, 's_r');
     expectRel(result.sBetween, derived.s_L, 1e-9, 's_L');
     expectRel(result.sI, derived.s_R, 1e-9, 's_R');
     expectRel(result.grandMean, derived.grand_mean, 1e-12, 'grand mean');
     expectRel(result.p, derived['F_p_value (upper tail, scipy)'], 1e-9, 'p');
-  });
-});
-
-describe('NIST StRD ANOVA AtmWtAg: 7 constant leading digits, certified values', () => {
-  const { ref, result } = anovaStudy('nist_strd_anova_atmwtag.json');
-  const cert = ref.certified;
-  // 6 digits are asked of this set (the reference file's plain two-pass float64 gives 8.5); shifting
-  // the data by their first value before any sum keeps about 10, so 9 are checked.
-  const NINE_DIGITS_SHIFTED = 1e-9;
-
-  it('reproduces the between and within rows to 9 digits', () => {
-    expectRel(result.ssBetween, cert.between.ss, NINE_DIGITS_SHIFTED, 'SS between');
-    expectRel(result.msBetween, cert.between.ms, NINE_DIGITS_SHIFTED, 'MS between');
-    expectRel(result.F, cert.between.F, NINE_DIGITS_SHIFTED, 'F');
-    expectRel(result.ssWithin, cert.within.ss, NINE_DIGITS_SHIFTED, 'SS within');
-    expectRel(result.msWithin, cert.within.ms, NINE_DIGITS_SHIFTED, 'MS within');
-    expectRel(result.sR, cert.residual_sd, NINE_DIGITS_SHIFTED, 'residual SD');
   });
 });

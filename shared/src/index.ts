@@ -1,5 +1,8 @@
 export * from './roles.js';
 export * from './api/index.js';
+export * from './api/audit.js';
+export * from './api/qualification.js';
+export * from './api/overview.js';
 export * from './run-status.js';
 export * from './method-change.js';
 export * from './catalogue/index.js';
@@ -68,3 +71,4 @@ export {
   type ControlRule,
   type ControlSignal,
 } from './engine/control-rules.js';
+export * from './qualification/index.js';

@@ -1,10 +1,9 @@
 import { Global, Module } from '@nestjs/common';
-import { AuditController } from './audit.controller.js';
 import { AuditService } from './audit.service.js';
 
+/** Recording and verifying the trail; reading it lives in the audit-review module. */
 @Global()
 @Module({
-  controllers: [AuditController],
   providers: [AuditService],
   exports: [AuditService],
 })

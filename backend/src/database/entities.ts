@@ -1,8 +1,10 @@
 import { AuditEntry } from '../audit/audit-entry.entity.js';
+import { AuditReview } from '../audit-review/audit-review.entity.js';
 import { OutboxMessage } from '../mail/outbox-message.entity.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { Method } from '../methods/method.entity.js';
 import { Notification } from '../notifications/notification.entity.js';
+import { QualificationRun } from '../qualification/qualification-run.entity.js';
 import { ValidationReport } from '../reports/validation-report.entity.js';
 import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
@@ -42,4 +44,6 @@ export const entities = [
   AppSetting,
   ReferenceMaterial,
   StandardPreparation,
+  AuditReview,
+  QualificationRun,
 ];

@@ -3,13 +3,14 @@ import { ConflictException, Inject, Injectable, Logger, NotFoundException } from
 import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash, randomUUID } from 'node:crypto';
 import { DataSource, In } from 'typeorm';
-import type { EvaluationResult, RunReportVerificationDto, StudyInput } from '@meritline/shared';
+import type { EvaluationResult, StudyInput } from '@meritline/shared';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
+import { QualificationRun } from '../qualification/qualification-run.entity.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { writeTransaction } from '../database/write-transaction.js';
@@ -158,6 +159,21 @@ export class ReportsService {
         methodVersion: study.methodVersion.number,
         signedAt: report.signedAt.toISOString(),
         sha256: report.sha256,
+      };
+    }
+    const qualification = await this.dataSource.getRepository(QualificationRun).findOne({
+      where: { sha256: sha256(file) },
+      select: { id: true, ranAt: true, passed: true, total: true, sha256: true },
+    });
+    if (qualification) {
+      return {
+        valid: true,
+        kind: 'self-qualification',
+        qualificationId: qualification.id,
+        signedAt: qualification.ranAt.toISOString(),
+        passed: qualification.passed,
+        total: qualification.total,
+        sha256: qualification.sha256,
       };
     }
     const results = this.dataSource.getRepository(RunResultsReport);

@@ -27,6 +27,8 @@ export const routes: RouteObject[] = [
           { index: true, lazy: page(() => import('./routes/overview')) },
           { path: paths.changePassword.path, lazy: page(() => import('@/features/auth/routes/change-password')) },
           { path: paths.referenceMaterials.path, lazy: page(() => import('@/features/standards/routes/reference-materials')) },
+          // Everyone may open it: analysts and reviewers see only the trail of the records they work on.
+          { path: paths.auditTrail.path, lazy: page(() => import('@/features/audit/routes/audit-trail')) },
           {
             element: <RequireRole roles={[Role.Analyst]} />,
             children: [
@@ -71,6 +73,10 @@ export const routes: RouteObject[] = [
           {
             element: <RequireRole roles={[Role.QualityManager]} />,
             children: [{ path: paths.methodComparison.path, lazy: page(() => import('@/features/methods/routes/version-comparison')) }],
+          },
+          {
+            element: <RequireRole roles={[Role.QualityManager, Role.Admin]} />,
+            children: [{ path: paths.qualification.path, lazy: page(() => import('@/features/qualification/routes/qualification')) }],
           },
           {
             element: <RequireRole roles={[Role.Admin]} />,

@@ -15,6 +15,15 @@ export type ReportVerification =
       sha256: string;
     }
   | RunReportVerificationDto
+  | {
+      valid: true;
+      kind: 'self-qualification';
+      qualificationId: string;
+      signedAt: string;
+      passed: number;
+      total: number;
+      sha256: string;
+    }
   | { valid: false; reason: string };
 
 /** Largest PDF the verify route takes. */

@@ -4,3 +4,4 @@ export * from './statuses.js';
 export * from './sections.js';
 export * from './comparisons.js';
 export * from './study-changes.js';
+export * from './audit.js';

@@ -11,6 +11,8 @@ import { SignatureMetaSnapshot1796428791270 } from './1796428791270-signature-me
 import { RunResultsReports1796428699593 } from './1796428699593-run-results-reports.js';
 import { QcTrends1796429841749 } from './1796429841749-qc-trends.js';
 import { RunImportMappings1796430502016 } from './1796430502016-run-import-mappings.js';
+import { AuditReview1796428669934 } from './1796428669934-audit-review.js';
+import { QualificationRuns1796428669935 } from './1796428669935-qualification-runs.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -26,4 +28,6 @@ export const migrations = [
   RunResultsReports1796428699593,
   QcTrends1796429841749,
   RunImportMappings1796430502016,
+  AuditReview1796428669934,
+  QualificationRuns1796428669935,
 ];

@@ -9,10 +9,10 @@ export class ReportVerificationDto {
   reason?: string;
 
   @ApiPropertyOptional({
-    enum: ['validation-report', 'change-assessment', 'results-report'],
+    enum: ['validation-report', 'change-assessment', 'results-report', 'self-qualification'],
     description: 'What kind of signed document the file is.',
   })
-  kind?: 'validation-report' | 'change-assessment' | 'results-report';
+  kind?: 'validation-report' | 'change-assessment' | 'results-report' | 'self-qualification';
 
   @ApiPropertyOptional({ format: 'uuid', description: 'Results reports: the released run.' })
   runId?: string;
@@ -37,6 +37,15 @@ export class ReportVerificationDto {
 
   @ApiPropertyOptional({ format: 'date-time' })
   signedAt?: string;
+
+  @ApiPropertyOptional({ format: 'uuid' })
+  qualificationId?: string;
+
+  @ApiPropertyOptional({ description: 'Checks passed (self-qualification).' })
+  passed?: number;
+
+  @ApiPropertyOptional({ description: 'Checks run (self-qualification).' })
+  total?: number;
 
   @ApiPropertyOptional({ description: 'SHA-256 of the report file (hex).' })
   sha256?: string;

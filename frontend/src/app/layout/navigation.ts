@@ -79,6 +79,18 @@ export const NAVIGATION: readonly NavSection[] = [
         summary: 'See what changed between two versions of a method.',
         roles: [Role.QualityManager],
       },
+      {
+        label: 'Audit trail',
+        href: paths.auditTrail.getHref(),
+        summary: 'Read who changed what and why, check the chain and sign its review.',
+        roles: [Role.QualityManager, Role.Admin],
+      },
+      {
+        label: 'Self-qualification',
+        href: paths.qualification.getHref(),
+        summary: 'Recompute published reference values and keep a signed report of the agreement.',
+        roles: [Role.QualityManager, Role.Admin],
+      },
     ],
   },
   {

@@ -2,6 +2,7 @@ import { Alert, Box, Card, Heading, LinkBox, LinkOverlay, SimpleGrid, Stack, Tex
 import { Role, ROLE_LABELS } from '@meritline/shared';
 import { Link } from 'react-router';
 import { PageHeader } from '@/components/page-header';
+import { WaitingWork } from '@/features/overview/components/waiting-work';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { ExpiringMaterialsNotice } from '@/features/standards/components/expiring-materials-notice';
@@ -35,6 +36,7 @@ export default function OverviewPage() {
       <PageHeader section="Overview" title={`${greeting(new Date().getHours())}, ${firstName}`} />
 
       <Stack gap="10">
+        <WaitingWork roles={user.roles} />
         <ExpiringMaterialsNotice />
         <Stack gap="4" as="section" aria-labelledby="roles-heading">
           <Heading id="roles-heading" as="h2" size="md">

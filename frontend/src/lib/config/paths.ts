@@ -38,6 +38,12 @@ export const paths = {
   referenceMaterials: { path: '/standards', getHref: () => '/standards' },
   preparations: { path: '/standards/preparations', getHref: () => '/standards/preparations' },
   preparationNew: { path: '/standards/preparations/new', getHref: () => '/standards/preparations/new' },
+  auditTrail: {
+    path: '/audit-trail',
+    /** `record` is kind:id, e.g. study:<id>; the trail screen then shows that record's trail only. */
+    getHref: (query: { record?: string } = {}) => withQuery('/audit-trail', query),
+  },
+  qualification: { path: '/qualification', getHref: () => '/qualification' },
 
   users: { path: '/admin/users', getHref: () => '/admin/users' },
   outbox: { path: '/admin/outbox', getHref: () => '/admin/outbox' },

@@ -2,6 +2,51 @@ import { formatDateTime } from '@meritline/shared';
 import type { ReportVerification } from '@meritline/shared';
 import { Alert, Code, DataList, Stack, Text } from '@chakra-ui/react';
 
+type Valid = Extract<ReportVerification, { valid: true }>;
+
+/** Which document it is, and the facts that identify it. */
+function describeReport(verification: Valid): { document: string; rows: [string, string][] } {
+  const signed: [string, string] = ['Signed', formatDateTime(verification.signedAt)];
+  switch (verification.kind) {
+    case 'self-qualification':
+      return {
+        document: 'self-qualification report',
+        rows: [
+          ['Report', 'Self-qualification of the calculations'],
+          ['Checks passed', `${verification.passed} of ${verification.total}`],
+          signed,
+          ['Report id', verification.qualificationId],
+        ],
+      };
+    case 'results-report':
+      return {
+        document: 'results report of a released routine run',
+        rows: [
+          ['Routine run', verification.runTitle],
+          ['Method', verification.methodName],
+          ['Method version', `Version ${verification.methodVersion}`],
+          signed,
+          ['Report id', verification.reportId],
+          ['Run id', verification.runId],
+        ],
+      };
+    default: {
+      const assessment = verification.kind === 'change-assessment';
+      return {
+        document: assessment ? 'change assessment' : 'validation report',
+        rows: [
+          [assessment ? 'Document' : 'Study', verification.studyTitle],
+          ['Method', verification.methodName],
+          ['Method version', `Version ${verification.methodVersion}`],
+          signed,
+          [assessment ? 'Assessment id' : 'Report id', verification.reportId],
+          [assessment ? 'Study of the version' : 'Study id', verification.studyId],
+        ],
+      };
+    }
+  }
+}
+
 /** The answer in plain words: which report it is, or why the file cannot be trusted. */
 export function VerificationResult({ fileName, verification }: { fileName: string; verification: ReportVerification }) {
   if (!verification.valid) {
@@ -23,20 +68,7 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
       </Alert.Root>
     );
   }
-  const assessment = verification.kind === 'change-assessment';
-  const results = verification.kind === 'results-report';
-  const rows: [string, string][] = [
-    results ? ['Routine run', verification.runTitle] : [assessment ? 'Document' : 'Study', verification.studyTitle],
-    ['Method', verification.methodName],
-    ['Method version', `Version ${verification.methodVersion}`],
-    ['Signed', formatDateTime(verification.signedAt)],
-    [assessment ? 'Assessment id' : 'Report id', verification.reportId],
-    ...(results
-      ? [['Run id', verification.runId] as [string, string]]
-      : verification.studyId
-        ? [[assessment ? 'Study of the version' : 'Study id', verification.studyId] as [string, string]]
-        : []),
-  ];
+  const { document, rows } = describeReport(verification);
   return (
     <Alert.Root status="success" variant="surface" alignItems="flex-start">
       <Alert.Indicator />
@@ -45,9 +77,8 @@ export function VerificationResult({ fileName, verification }: { fileName: strin
         <Alert.Description>
           <Stack gap="4">
             <Text>
-              This file is, byte for byte, the{' '}
-              {results ? 'results report of a released routine run' : assessment ? 'change assessment' : 'validation report'} this
-              laboratory issued and signed. Its digital signature can also be checked in any PDF reader that shows signatures.
+              This file is, byte for byte, the {document} this laboratory issued and signed. Its digital signature can also be checked in
+              any PDF reader that shows signatures.
             </Text>
             <DataList.Root orientation="horizontal" size="sm">
               {rows.map(([label, value]) => (

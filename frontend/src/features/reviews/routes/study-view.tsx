@@ -1,13 +1,14 @@
 import { formatDateTime } from '@meritline/shared';
-import { Alert, Badge, Box, Heading, HStack, Stack, Tabs, Text } from '@chakra-ui/react';
+import { Alert, Badge, Box, Button, Heading, HStack, Stack, Tabs, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { useParams } from 'react-router';
+import { Link as RouterLink, useParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
 import { CalibrationPlot, ResidualPlot, StudyFigures, StudyFlags, VerdictSummary } from '@/components/study-results';
 import { useSession } from '@/lib/auth';
+import { paths } from '@/lib/config/paths';
 import { studyReviewQueries } from '../api/review-queries';
 import { STATUS_LABELS, type HistoryItem, type StudyView } from '../api/review-types';
 import { ApprovalCaution } from '../components/approval-caution';
@@ -61,7 +62,14 @@ export default function StudyViewPage() {
             </Text>
           </HStack>
         }
-        actions={signatures.data && <ReviewActions study={s} signatures={signatures.data} user={user} />}
+        actions={
+          <HStack gap="3" wrap="wrap">
+            <Button variant="outline" asChild>
+              <RouterLink to={paths.auditTrail.getHref({ record: `study:${s.id}` })}>Audit trail</RouterLink>
+            </Button>
+            {signatures.data && <ReviewActions study={s} signatures={signatures.data} user={user} />}
+          </HStack>
+        }
       />
       <Stack gap="6">
         {signatures.data && <BrokenSignatureWarning signatures={signatures.data} />}

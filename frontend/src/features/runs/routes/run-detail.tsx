@@ -90,6 +90,9 @@ export default function RunDetailPage() {
                 </Menu.Positioner>
               </Portal>
             </Menu.Root>
+            <Button variant="outline" asChild>
+              <RouterLink to={paths.auditTrail.getHref({ record: `run:${r.id}` })}>Audit trail</RouterLink>
+            </Button>
             <Button asChild>
               <RouterLink to={paths.runNew.getHref({ from: r.id })}>New run from this one</RouterLink>
             </Button>

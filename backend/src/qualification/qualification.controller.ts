@@ -1,0 +1,38 @@
+import { Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Res, StreamableFile } from '@nestjs/common';
+import { ApiBearerAuth, ApiProduces, ApiTags } from '@nestjs/swagger';
+import type { Response } from 'express';
+import { Role, type QualificationRunDetailDto, type QualificationRunDto } from '@meritline/shared';
+import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
+import { Roles } from '../common/decorators/roles.decorator.js';
+import { QualificationService } from './qualification.service.js';
+
+@ApiTags('qualification')
+@ApiBearerAuth()
+@Roles(Role.QualityManager, Role.Admin)
+@Controller('qualification')
+export class QualificationController {
+  constructor(private readonly qualification: QualificationService) {}
+
+  @Post()
+  @HttpCode(201)
+  run(@CurrentUser() user: AuthUser): Promise<QualificationRunDetailDto> {
+    return this.qualification.run(user);
+  }
+
+  @Get()
+  list(): Promise<QualificationRunDto[]> {
+    return this.qualification.list();
+  }
+
+  @Get(':id/report')
+  @ApiProduces('application/pdf')
+  async report(@Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
+    const file = await this.qualification.report(id);
+    res.setHeader('Cache-Control', 'private, no-store');
+    return new StreamableFile(file.pdf, {
+      type: 'application/pdf',
+      disposition: `attachment; filename="${file.fileName}"`,
+      length: file.pdf.length,
+    });
+  }
+}

@@ -1,0 +1,3 @@
+export * from './checks.js';
+export * from './nist-strd.js';
+export * from './printed-tables.js';
