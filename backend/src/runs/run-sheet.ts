@@ -164,7 +164,7 @@ export async function runSheet(run: RunDto, laboratoryName: string): Promise<Buf
       ? '± is the expanded uncertainty U of the result, from the validation (basis below).'
       : calibration.sYX === null
         ? 'No interval: a one- or two-point calibration has no residual spread to estimate it from.'
-        : `± is the ${Math.round(result.confidence * 100)} % confidence interval of the reading (s_x0, Miller & Miller), times the dilution factor.`,
+        : `± is the ${Math.round(result.confidence * 100)} % confidence interval of the reading (from its standard deviation about the calibration line, Miller & Miller), times the dilution factor.`,
   });
   for (const basis of new Set(result.unknowns.flatMap((u) => (u.uncertainty ? [u.uncertainty.basis] : []))))
     pdf.paragraph(`Uncertainty: ${basis}`, { size: 8.5, color: colors.muted });

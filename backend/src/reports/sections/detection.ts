@@ -127,8 +127,8 @@ export function detectionSection(pdf: PdfComposer, content: ReportContent): void
     };
     details.push([
       'MDL (40 CFR 136 App. B)',
-      `${epaMdl.nSpiked} spiked samples: MDL_s = ${withUnit(formatNumber(epaMdl.mdlSpiked, 3), x)}; ${epaMdl.nBlanks} method blanks: MDL_b = ${withUnit(formatNumber(epaMdl.mdlBlank, 3), x)}` +
-        `${epaMdl.blankRule ? ` (${rule[epaMdl.blankRule]})` : ''}; the larger, MDL_${epaMdl.governing === 'spiked' ? 's' : 'b'}, governs`,
+      `from ${epaMdl.nSpiked} spiked samples ${withUnit(formatNumber(epaMdl.mdlSpiked, 3), x)}; from ${epaMdl.nBlanks} method blanks ${withUnit(formatNumber(epaMdl.mdlBlank, 3), x)}` +
+        `${epaMdl.blankRule ? ` (${rule[epaMdl.blankRule]})` : ''}; the larger, from the ${epaMdl.governing === 'spiked' ? 'spiked samples' : 'method blanks'}, governs`,
     ]);
   }
   if (details.length) {

@@ -134,15 +134,15 @@ function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationR
       'Results',
       `N = ${p.N} in k = ${p.k} series; grand mean ${withUnit(formatNumber(p.grandMean, 5), x)}${p.n0 === null ? '' : `; n0 = ${formatNumber(p.n0, 3)}`}`,
     ],
-    ['Repeatability', `s_r = ${withUnit(formatNumber(p.sR, 3), x)}, RSD_r = ${formatPercent(p.rsdR)}`],
+    ['Repeatability', `SD ${withUnit(formatNumber(p.sR, 3), x)}, RSD ${formatPercent(p.rsdR)}`],
     ['Between-series SD', p.sBetween === null ? NOT_AVAILABLE : withUnit(formatNumber(p.sBetween, 3), x)],
-    ['Intermediate precision', `s_I = ${withUnit(formatNumber(p.sI, 3), x)}, RSD_I = ${formatPercent(p.rsdI)}`],
+    ['Intermediate precision', `SD ${withUnit(formatNumber(p.sI, 3), x)}, RSD ${formatPercent(p.rsdI)}`],
   ];
   if (p.horwitz) {
     pairs.push([
       'Horwitz',
-      `mass fraction ${formatNumber(p.horwitz.massFraction, 3)}; predicted RSD_R = ${formatPercent(p.horwitz.predictedRsd)} (2^(1 - 0.5 log10 C), Horwitz 1980); ` +
-        `HorRat = RSD_I / PRSD_R = ${formatFixed(p.horwitz.horRat, 2)}; repeatability HorRat = ${formatFixed(p.horwitz.horRatRepeatability, 2)}`,
+      `mass fraction ${formatNumber(p.horwitz.massFraction, 3)}; predicted reproducibility RSD ${formatPercent(p.horwitz.predictedRsd)} (2^(1 - 0.5 log10 C), Horwitz 1980); ` +
+        `HorRat (intermediate-precision RSD over the predicted RSD) ${formatFixed(p.horwitz.horRat, 2)}; repeatability HorRat ${formatFixed(p.horwitz.horRatRepeatability, 2)}`,
     ]);
   } else {
     pairs.push(['Horwitz', 'not evaluated: the study gives no mass fraction']);
