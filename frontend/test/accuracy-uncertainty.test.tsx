@@ -65,7 +65,7 @@ describe('accuracy profile, trueness and uncertainty displays', () => {
     const table = screen.getByRole('table', { name: 'Accuracy profile by level' });
     const rows = within(table).getAllByRole('row');
     expect(rows[1]).toHaveTextContent('-12.2 %');
-    expect(rows[1]).toHaveTextContent('11.96 %');
+    expect(rows[1]).toHaveTextContent('12.0 %');
     expect(rows[1]).toHaveTextContent('No');
     expect(rows[3]).toHaveTextContent('Yes');
     const domain = screen.getByRole('table', { name: 'Validity domain of the accuracy profile' });
@@ -76,7 +76,11 @@ describe('accuracy profile, trueness and uncertainty displays', () => {
     renderWithProviders(<AccuracyProfilePlot result={result} units={units} />);
     expect(
       screen.getByRole('group', { name: /^Accuracy profile: relative bias and 95 % β-expectation tolerance limits at 3 levels/ }),
-    ).toHaveAccessibleName(expect.stringContaining(`valid from ${formatNumber(result.accuracyProfile!.validFrom, 4)} to 100 mg/L`));
+    ).toHaveAccessibleName(
+      expect.stringContaining(
+        `valid from ${formatNumber(result.accuracyProfile!.validFrom, 4)} to ${formatNumber(result.accuracyProfile!.validTo, 4)} mg/L`,
+      ),
+    );
   });
 
   it('shows U by level, absolute below the switch-over and relative from it, with the calibration u(x0) beside it', () => {
@@ -100,7 +104,7 @@ describe('accuracy profile, trueness and uncertainty displays', () => {
     renderWithProviders(<TruenessSummary result={result} units={units} judged={judged} />);
     // Mean 50.2, 0.3 below 50.5; U of the difference = 2·√(s²/4 + 0.2²) ≈ 0.53 (common practice).
     expect(screen.getByTestId('trueness-words')).toHaveTextContent(
-      /The mean of 4 results on the reference material is 50\.2 mg\/L, 0\.3 mg\/L \(0\.594 %\) below the certified 50\.5 mg\/L\. That difference is within the expanded uncertainty of the difference, so no bias is shown on this material/,
+      /The mean of 4 results on the reference material is 50\.20 mg\/L, 0\.300 mg\/L \(0\.594 %\) below the certified 50\.5 mg\/L\. That difference is within the expanded uncertainty of the difference, so no bias is shown on this material/,
     );
     expect(document.body.textContent).not.toMatch(/trueness\.|accuracyProfile\./);
   });

@@ -47,12 +47,13 @@ describe('approving a study that fails its criteria', () => {
     await user.type(justification, 'Looks fine.');
     await user.click(within(dialog).getByRole('button', { name: 'Sign and approve' }));
     expect(await within(dialog).findByText('Write at least 20 characters.')).toBeInTheDocument();
-    expect(calls).toHaveLength(0);
+    const approvals = () => calls.filter((call) => call.key.startsWith('POST '));
+    expect(approvals()).toHaveLength(0);
 
     await user.clear(justification);
     await user.type(justification, JUSTIFICATION);
     await user.click(within(dialog).getByRole('button', { name: 'Sign and approve' }));
-    await waitFor(() => expect(calls[0]?.body).toEqual({ password: 'meritline-demo', justification: JUSTIFICATION, lockVersion: 4 }));
+    await waitFor(() => expect(approvals()[0]?.body).toEqual({ password: 'meritline-demo', justification: JUSTIFICATION, lockVersion: 4 }));
   });
 
   it('shows no justification field when the study meets its criteria', async () => {

@@ -129,7 +129,7 @@ const patches = (calls: { key: string; body: unknown }[]) => calls.filter((c) =>
 
 describe('a returned study in the wizard', () => {
   it('shows the reviewer’s return comment and open comments, and saves a conclusion change only with a reason', async () => {
-    const { user, calls } = openWizard(author, 7, (body) => ({ body: { ...study(), ...(body as object), lockVersion: 8 } }));
+    const { user, calls } = openWizard(author, 8, (body) => ({ body: { ...study(), ...(body as object), lockVersion: 8 } }));
     const remarks = await screen.findByTestId('reviewer-remarks');
     expect(remarks).toHaveTextContent('State the working range in the conclusion.');
     expect(within(remarks).getByText('2 comments are still open')).toBeInTheDocument();
@@ -150,7 +150,7 @@ describe('a returned study in the wizard', () => {
   });
 
   it('is read-only for anyone but its author, and says why', async () => {
-    const { calls } = openWizard(colleague, 7, () => ({ status: 403, body: { statusCode: 403, message: 'no' } }));
+    const { calls } = openWizard(colleague, 8, () => ({ status: 403, body: { statusCode: 403, message: 'no' } }));
     expect(await screen.findByTestId('read-only-reason')).toHaveTextContent(
       'Only its author, Mira Okafor, may change this study; you can read it.',
     );

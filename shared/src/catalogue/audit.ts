@@ -52,6 +52,17 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   'run.superseded': 'Run replaced by a correction',
   'audit.reviewed': 'Audit trail marked as reviewed',
   'qualification.run': 'Self-qualification of the calculations run',
+  'signature.change-assessed': 'Signed as quality manager: change assessed',
+  'qc-baseline.chosen': 'Control-chart baseline chosen',
+  'reference-material.created': 'Reference material registered',
+  'reference-material.updated': 'Reference material changed',
+  'reference-material.withdrawn': 'Reference material withdrawn',
+  'reference-material.certificate-uploaded': 'Certificate of a reference material attached',
+  'reference-material.expiry-notice-sent': 'Expiry notice of a reference material sent',
+  'preparation.created': 'Standard preparation recorded',
+  'run-import-mapping.saved': 'Column mapping of instrument exports saved',
+  'run-report.issued': 'Signed results report issued',
+  'study.reassigned': 'Draft given to another analyst',
 };
 
 /** Words for an action code; an unknown code is never printed as such. */
@@ -72,6 +83,10 @@ export const AUDIT_ENTITY_LABELS: Record<string, string> = {
   settings: 'Settings',
   'audit-review': 'Audit-trail review',
   qualification: 'Self-qualification',
+  'reference-material': 'Reference material',
+  preparation: 'Standard preparation',
+  'run-results-report': 'Results report',
+  'change-assessment': 'Change assessment',
 };
 
 export const auditEntityLabel = (entity: string) => AUDIT_ENTITY_LABELS[entity] ?? 'Other record';

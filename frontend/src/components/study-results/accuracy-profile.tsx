@@ -1,5 +1,6 @@
 import { Stack, Text } from '@chakra-ui/react';
 import {
+  formatLevel,
   figureLabel,
   type AccuracyProfileLevel,
   type AccuracyProfileResult,
@@ -18,12 +19,12 @@ import { criteriaForFigure, criteriaUnder, type JudgedCriterion } from './judge-
 import { LazyPlot } from './lazy-plot';
 import type { StudyUnits } from './types';
 
-const betaWords = (beta: number) => `${formatNumber(beta * 100, 3)} %`;
+const betaWords = (beta: number) => `${formatLevel(beta * 100)} %`;
 
 /** "from 1.2 to 10 mg/L", or why there is none. */
 export function validityWords(profile: AccuracyProfileResult, unit: string | undefined): string {
   if (profile.validFrom === null || profile.validTo === null)
-    return `at no level do the tolerance limits stay inside ±${formatNumber(profile.lambda, 3)} %`;
+    return `at no level do the tolerance limits stay inside ±${formatLevel(profile.lambda)} %`;
   return `from ${formatNumber(profile.validFrom, 4)} to ${withUnit(formatNumber(profile.validTo, 4), unit)}`;
 }
 
@@ -63,7 +64,7 @@ export function AccuracyProfilePlot({ result, units, height = 340 }: { result: E
       hovertemplate: `%{x}: %{y:.2f} %<extra>${name}</extra>`,
     });
     const data: Data[] = [
-      limitLine(profile.lambda, `Acceptance limits ±${formatNumber(profile.lambda, 3)} %`, true),
+      limitLine(profile.lambda, `Acceptance limits ±${formatLevel(profile.lambda)} %`, true),
       limitLine(-profile.lambda, '', false),
       limit('upperPct', `Tolerance limits (β = ${betaWords(profile.beta)})`, true),
       limit('lowerPct', 'Lower tolerance limit', false),
@@ -105,7 +106,7 @@ export function AccuracyProfilePlot({ result, units, height = 340 }: { result: E
   return (
     <Stack gap="1">
       <LazyPlot
-        label={`Accuracy profile: relative bias and ${betaWords(profile.beta)} β-expectation tolerance limits at ${profile.levels.length} levels against acceptance limits of ±${formatNumber(profile.lambda, 3)} %; valid ${validityWords(profile, units.x)}`}
+        label={`Accuracy profile: relative bias and ${betaWords(profile.beta)} β-expectation tolerance limits at ${profile.levels.length} levels against acceptance limits of ±${formatLevel(profile.lambda)} %; valid ${validityWords(profile, units.x)}`}
         data={plot.data}
         layout={{
           shapes: plot.shapes,
@@ -185,9 +186,9 @@ export function AccuracyProfileTables({
   return (
     <Stack gap="4">
       <Text>
-        With β = {betaWords(profile.beta)} and acceptance limits of ±{formatNumber(profile.lambda, 3)} %, the method is valid{' '}
+        With β = {betaWords(profile.beta)} and acceptance limits of ±{formatLevel(profile.lambda)} %, the method is valid{' '}
         <Text as="strong">{validityWords(profile, units.x)}</Text>: on average, {betaWords(profile.beta)} of future results in that range
-        are expected within ±{formatNumber(profile.lambda, 3)} % of the true value.
+        are expected within ±{formatLevel(profile.lambda)} % of the true value.
       </Text>
       <FiguresTable label="Validity domain of the accuracy profile" rows={rows} />
       <DataTable label="Accuracy profile by level" columns={columns} data={profile.levels} getRowId={(row) => row.level} />
@@ -204,7 +205,7 @@ export function truenessSentence(t: TruenessResult, unit: string | undefined): s
   return (
     `The mean of ${t.n} results on the reference material is ${withUnit(formatNumber(t.mean, 4), unit)}, ` +
     `${withUnit(formatNumber(Math.abs(t.difference), 3), unit)} (${formatPercent(Math.abs(t.differencePct), 3)}) ${direction} the certified ` +
-    `${withUnit(formatNumber(t.certified, 4), unit)}. That difference is ${verdict} (${withUnit(formatNumber(t.UDifference, 3), unit)}, k = 2).`
+    `${withUnit(formatLevel(t.certified), unit)}. That difference is ${verdict} (${withUnit(formatNumber(t.UDifference, 3), unit)}, k = 2).`
   );
 }
 

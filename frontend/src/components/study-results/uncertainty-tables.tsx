@@ -1,5 +1,6 @@
 import { Stack, Text } from '@chakra-ui/react';
 import {
+  formatLevel,
   figureLabel,
   type EvaluationResult,
   type TopDownLevelResult,
@@ -53,7 +54,7 @@ function uncertaintyColumns(units: StudyUnits, k: number) {
     }),
     level.display({
       id: 'U',
-      header: `U (k = ${formatNumber(k, 3)})`,
+      header: `U (k = ${formatLevel(k)})`,
       meta: { align: 'end' },
       cell: (info) => (
         <Text as="span" fontWeight="600">
