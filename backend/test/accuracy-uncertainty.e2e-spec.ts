@@ -249,7 +249,7 @@ describe('accuracy profile, trueness and measurement uncertainty through the API
     );
     const top = uncertainty.byLevel.at(-1);
     expect(text).toContain(`${formatNumber(top.concentration, 4)} relative`);
-    expect(text).toContain(`${formatPercent(top.UPct)} %`);
+    expect(text).toContain(formatPercent(top.UPct));
     expect(text).toContain(`Measurement uncertainty by level (k = ${formatNumber(uncertainty.coverageFactor, 3)})`);
     expect(text).toContain(`Difference ${formatNumber(trueness.difference, 3)} mg/L`);
     expect(text).toContain(trueness.significant ? 'the method shows a bias on this material' : 'no bias is shown on this material');

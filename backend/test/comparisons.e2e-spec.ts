@@ -247,9 +247,9 @@ describe('comparing method versions', () => {
       const trail = await t
         .http()
         .get('/api/audit')
-        .query({ entity: 'method-version', id: v3 })
+        .query({ record: `method-version:${v3}` })
         .set(await auth(DEMO.quality));
-      expect(trail.body.map((e: Row) => e.action)).toContain('signature.change-assessed');
+      expect(trail.body.items.map((e: Row) => e.action)).toContain('signature.change-assessed');
     });
 
     it('refuses anonymous (401), reviewers and analysts (403), a wrong password (401), an unknown version (404), a stale lock (409)', async () => {
