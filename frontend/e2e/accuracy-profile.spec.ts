@@ -37,7 +37,7 @@ test('the demo analyst reads the accuracy profile, trueness and uncertainty of t
   await expect(grid.getByRole('textbox', { name: 'Level, row 27' })).toHaveValue('L3');
   await expect(page.getByLabel(/^Certified value/)).toHaveValue('7.5');
   const live = page.getByRole('complementary', { name: 'Accuracy and uncertainty as you type' });
-  await expect(live).toContainText('Valid from 2.249 to 10 mg/L');
+  await expect(live).toContainText('Valid from 2.249 to 10.00 mg/L');
   await expect(live).toContainText('β = 80 %');
   await expect(plot(page, /^Accuracy profile: relative bias/)).toBeVisible({ timeout: 120_000 });
   await shot(page, 'step-6');
@@ -59,7 +59,7 @@ test('the demo analyst reads the accuracy profile, trueness and uncertainty of t
   // β = 95 % widens the tolerance limits: the validity domain shrinks, at once in the browser.
   await page.getByLabel('β, expected proportion of results inside the tolerance limits').selectOption('0.95');
   await expect(live).toContainText('β = 95 %');
-  await expect(live).not.toContainText('Valid from 2.249 to 10 mg/L');
+  await expect(live).not.toContainText('Valid from 2.249 to 10.00 mg/L');
   // A λ of 0 is refused beside the field and never sent.
   await page.getByLabel('Acceptance limits ±λ (%)').fill('0');
   await expect(page.getByText('λ lies above 0 and at most 100 %')).toBeVisible();

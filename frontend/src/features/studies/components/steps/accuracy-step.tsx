@@ -1,4 +1,5 @@
 import {
+  formatLevel,
   DEFAULT_ACCURACY_BETA,
   DEFAULT_ACCURACY_LAMBDA_PCT,
   DEFAULT_COVERAGE_FACTOR,
@@ -186,8 +187,8 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
         {profile ? (
           <Stack gap="2">
             <Text fontSize="sm">
-              Valid <Text as="strong">{validityWords(profile, units.x)}</Text> (β = {formatPercent(profile.beta * 100, 3)}, λ = ±
-              {formatPercent(profile.lambda, 3)}).
+              Valid <Text as="strong">{validityWords(profile, units.x)}</Text> (β = {formatLevel(profile.beta * 100)} %, λ = ±
+              {formatLevel(profile.lambda)} %).
             </Text>
             <AccuracyProfilePlot result={live.result!} units={units} height={260} />
           </Stack>
@@ -201,7 +202,7 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
             {uncertainty.byLevel.map((l) => (
               <FigureLine
                 key={l.level}
-                label={`U at level ${l.level} (k = ${formatNumber(uncertainty.coverageFactor, 3)})`}
+                label={`U at level ${l.level} (k = ${formatLevel(uncertainty.coverageFactor)})`}
                 value={l.expressedAs === 'relative' ? formatPercent(l.UPct, 3) : `${formatNumber(l.U, 3)} ${units.x}`}
               />
             ))}
