@@ -49,7 +49,7 @@ test('a returned study: the author sees the remarks, changes the conclusion with
   expect(returned.status()).toBe(200);
 
   await signInAs(page, 'analyst@meritline.test');
-  await page.goto(`/studies/${draft.id}/edit?step=7`);
+  await page.goto(`/studies/${draft.id}/edit?step=8`);
   const remarks = page.getByTestId('reviewer-remarks');
   await expect(remarks).toContainText('The conclusion does not state the working range.');
   await expect(remarks).toContainText('One comment is still open');
