@@ -29,7 +29,7 @@ describe('the overview of waiting work', () => {
     expect(analyst.versionsAwaitingActivation).toEqual([]);
     expect(analyst.justifiedApprovals).toEqual([]);
     const reviewer = await get('reviewer');
-    expect(reviewer).toEqual({ returnedRuns: [], versionsAwaitingActivation: [], justifiedApprovals: [] });
+    expect(reviewer).toEqual({ returnedRuns: [], versionsAwaitingActivation: [], justifiedApprovals: [], driftSignals: [] });
     const quality = await get('quality');
     expect(quality.returnedRuns).toEqual([]);
     for (const v of quality.versionsAwaitingActivation)
@@ -65,5 +65,21 @@ describe('the overview of waiting work', () => {
       expect.objectContaining({ id: run.id, title: run.title, comment: 'Check standard 3 again.' }),
     );
     expect((await get('analyst2')).returnedRuns.map((r) => r.id)).not.toContain(run.id);
+  });
+
+  it('should list the control-chart signals e-mailed to the quality managers, in words, for them only', async () => {
+    const [{ id: methodId }] = await dataSourceOf(t).query('select id from methods where name = ?', [
+      'Nitrate in drinking water by ion chromatography',
+    ]);
+    await t
+      .http()
+      .get(`/api/methods/${methodId}/qc-trends?series=slope`)
+      .set(bearer(await t.tokenFor(DEMO.analyst)))
+      .expect(200);
+    const quality = await get('quality');
+    expect(quality.driftSignals.length).toBeGreaterThan(0);
+    expect(quality.driftSignals[0]).toMatchObject({ methodName: 'Nitrate in drinking water by ion chromatography', series: 'slope' });
+    expect(quality.driftSignals[0].message).toMatch(/^Calibration slope: /);
+    expect((await get('analyst')).driftSignals).toEqual([]);
   });
 });

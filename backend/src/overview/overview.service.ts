@@ -1,10 +1,11 @@
 import { Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, IsNull, Not } from 'typeorm';
+import { DataSource, IsNull, MoreThan, Not } from 'typeorm';
 import { hasAnyRole, Role, RunReviewStatus, type OverviewDto } from '@meritline/shared';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
+import { QcSignalNotice } from '../runs/qc-signal-notice.entity.js';
 import { Run } from '../runs/run.entity.js';
 
 const LIMIT = 10;
@@ -15,12 +16,13 @@ export class OverviewService {
 
   async overviewFor(user: AuthUser): Promise<OverviewDto> {
     const quality = user.roles.includes(Role.QualityManager);
-    const [returnedRuns, versionsAwaitingActivation, justifiedApprovals] = await Promise.all([
+    const [returnedRuns, versionsAwaitingActivation, justifiedApprovals, driftSignals] = await Promise.all([
       user.roles.includes(Role.Analyst) ? this.returnedRuns(user) : [],
       hasAnyRole(user.roles, [Role.QualityManager, Role.Admin]) ? this.draftVersions() : [],
       quality ? this.justifiedApprovals() : [],
+      quality ? this.driftSignals() : [],
     ]);
-    return { returnedRuns, versionsAwaitingActivation, justifiedApprovals };
+    return { returnedRuns, versionsAwaitingActivation, justifiedApprovals, driftSignals };
   }
 
   private async returnedRuns(user: AuthUser): Promise<OverviewDto['returnedRuns']> {
@@ -35,6 +37,35 @@ export class OverviewService {
       comment: run.returnComment,
       submittedAt: run.submittedAt?.toISOString() ?? null,
     }));
+  }
+
+  /** The signals as they were e-mailed: the notice's own sentence, the third line of its text. */
+  private async driftSignals(): Promise<OverviewDto['driftSignals']> {
+    const since = new Date(Date.now() - 30 * 24 * 3600 * 1000);
+    const notices = await this.dataSource.getRepository(QcSignalNotice).find({
+      where: { sentAt: MoreThan(since) },
+      order: { sentAt: 'DESC' },
+      take: LIMIT,
+    });
+    const versions = await this.dataSource.getRepository(MethodVersion).find({
+      where: notices.map((n) => ({ id: n.methodVersionId })),
+      relations: { method: true },
+    });
+    return notices.flatMap((notice) => {
+      const version = versions.find((v) => v.id === notice.methodVersionId);
+      if (!version) return [];
+      return [
+        {
+          id: notice.id,
+          methodVersionId: version.id,
+          methodName: version.method.name,
+          versionNumber: version.number,
+          series: notice.series,
+          message: notice.body.split('\n')[2] ?? notice.subject,
+          at: notice.sentAt.toISOString(),
+        },
+      ];
+    });
   }
 
   private async draftVersions(): Promise<OverviewDto['versionsAwaitingActivation']> {

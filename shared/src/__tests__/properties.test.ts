@@ -39,7 +39,7 @@ describe('properties of the calibration', () => {
         const fit = evaluateStudy({ standards, blanks: [0.01, 0.012, 0.009] });
         const ys = standards.map((s) => s.y);
         // A nearly perfect line leaves a residual SD made of rounding noise, which no unit change preserves.
-        fc.pre(fit.calibration.sYX! > 1e-6 * (Math.max(...ys) - Math.min(...ys)));
+        fc.pre(fit.calibration!.sYX! > 1e-6 * (Math.max(...ys) - Math.min(...ys)));
         const mg = fit.detection!;
         const ug = evaluateStudy({ standards: standards.map((s) => ({ ...s, x: s.x * 1000 })), blanks: [0.01, 0.012, 0.009] }).detection!;
         expect(close(ug.sdResidual!.lod, 1000 * mg.sdResidual!.lod, 1e-7)).toBe(true);

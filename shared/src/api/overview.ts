@@ -15,4 +15,14 @@ export interface OverviewDto {
     at: string | null;
     justification: string;
   }[];
+  /** Control-chart signals of the last 30 days, as e-mailed to the quality managers (quality managers). */
+  driftSignals: {
+    id: string;
+    methodVersionId: string;
+    methodName: string;
+    versionNumber: number;
+    series: string;
+    message: string;
+    at: string;
+  }[];
 }

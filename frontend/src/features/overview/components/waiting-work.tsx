@@ -96,6 +96,17 @@ export function WaitingWork({ roles }: { roles: readonly Role[] }) {
   }
   if (quality) {
     lists.push({
+      title: 'Control-chart signals',
+      loading: work.isPending,
+      empty: 'No control chart has signalled in the last 30 days.',
+      items: work.data?.driftSignals.map((signal) => ({
+        key: signal.id,
+        href: paths.runControlChart.getHref(signal.methodVersionId),
+        label: `${signal.methodName}, version ${signal.versionNumber}`,
+        detail: `${formatDateTime(signal.at)}: ${signal.message}`,
+      })),
+    });
+    lists.push({
       title: 'Approved although criteria were not met',
       loading: work.isPending,
       empty: 'No approval or activation needed a justification.',
