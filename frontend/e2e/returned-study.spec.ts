@@ -19,7 +19,14 @@ async function draftOfAnalyst(request: APIRequestContext): Promise<{ id: string;
   const source = approved.items.find((study: { methodVersion: { status: string } }) => study.methodVersion.status !== 'retired');
   const copy = await request.post(`/api/studies/${source.id}/copy`, { headers });
   expect(copy.status()).toBe(201);
-  return copy.json();
+  // A title of its own, so that other browser tests on the same server never meet two studies of one name.
+  const draft = await copy.json();
+  const renamed = await request.patch(`/api/studies/${draft.id}`, {
+    headers,
+    data: { lockVersion: draft.lockVersion, title: `Returned-study check ${draft.id.slice(0, 8)}` },
+  });
+  expect(renamed.status()).toBe(200);
+  return renamed.json();
 }
 
 async function signInAs(page: Page, email: string) {

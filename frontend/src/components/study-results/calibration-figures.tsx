@@ -1,4 +1,4 @@
-import { formatInterval, formatNumber, formatPercent, pText, withUnit } from '@meritline/shared';
+import { formatLevel, formatInterval, formatNumber, formatPercent, pText, withUnit } from '@meritline/shared';
 import { Text } from '@chakra-ui/react';
 import type { CalibrationLevel, EvaluationResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
@@ -8,7 +8,7 @@ import { MODEL_LABELS, slopeUnit, WEIGHTING_LABELS } from './format';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
 import type { StudyUnits } from './types';
 
-const pct = (confidence: number) => `${formatNumber(confidence * 100, 3)} %`;
+const pct = (confidence: number) => `${formatLevel(confidence * 100)} %`;
 
 export function calibrationRows(result: EvaluationResult, units: StudyUnits, judged: readonly JudgedCriterion[]): FigureRow[] {
   const c = result.calibration;

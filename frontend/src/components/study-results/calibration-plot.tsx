@@ -1,4 +1,4 @@
-import { formatNumber } from '@meritline/shared';
+import { formatLevel } from '@meritline/shared';
 import type { EvaluationResult, StudyInput } from '@meritline/shared';
 import type { Data, Layout } from 'plotly.js-dist-min';
 import { LazyPlot } from './lazy-plot';
@@ -64,7 +64,7 @@ export function calibrationFigure(
   const used = standards.filter((s) => !s.excluded);
   const excluded = standards.filter((s) => s.excluded);
   const curve = fittedCurve(result);
-  const confidencePct = `${formatNumber(result.confidence * 100, 3)} %`;
+  const confidencePct = `${formatLevel(result.confidence * 100)} %`;
   const unknowns = (result.unknowns ?? []).map((u) => ({ ...u, xRead: u.x0 / (u.dilution || 1) }));
 
   const xs = [...standards.map((s) => s.x), ...(curve?.x ?? []), ...unknowns.map((u) => u.xRead)];

@@ -1,4 +1,4 @@
-import { formatNumber } from '@meritline/shared';
+import { formatLevel, formatNumber } from '@meritline/shared';
 import { Heading, Stack, Text } from '@chakra-ui/react';
 import type { StudyInput } from '@meritline/shared';
 import { useMemo } from 'react';
@@ -123,14 +123,14 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
         {data.accuracyProfile && (
           <>
             {' '}
-            · Accuracy profile: β <strong>{formatNumber((data.accuracyProfile.beta ?? 0.8) * 100, 3)} %</strong>, acceptance limits{' '}
-            <strong>±{formatNumber(data.accuracyProfile.lambda ?? 10, 3)} %</strong>
+            · Accuracy profile: β <strong>{formatLevel((data.accuracyProfile.beta ?? 0.8) * 100)} %</strong>, acceptance limits{' '}
+            <strong>±{formatLevel(data.accuracyProfile.lambda ?? 10)} %</strong>
           </>
         )}
         {data.uncertainty?.coverageFactor !== undefined && (
           <>
             {' '}
-            · Coverage factor <strong>k = {formatNumber(data.uncertainty.coverageFactor, 3)}</strong>
+            · Coverage factor <strong>k = {formatLevel(data.uncertainty.coverageFactor)}</strong>
           </>
         )}
       </Text>
