@@ -2,7 +2,7 @@
  * Worked examples of textbooks, guides and handbooks: their data and the values the engine must reproduce, stated
  * here with their sources. Taken from the project's reference files (reference-checks/data) and from the shared
  * reference data of the installation (compare_*.json, equivalence_tost.json), which say for each value whether it
- * is printed, recomputed (numpy/scipy, R) or recalled from memory.
+ * is printed, recomputed (numpy/scipy, R) or recalled from memory. Recomputed values are stated to 15 significant digits.
  */
 
 export const MILLER_FLUORESCENCE = {
@@ -13,20 +13,20 @@ export const MILLER_FLUORESCENCE = {
   x: [0, 2, 4, 6, 8, 10, 12],
   y: [2.1, 5.0, 9.0, 12.6, 17.3, 21.0, 24.7],
   recomputed: {
-    slope: '1.930357142857143',
-    intercept: '1.5178571428571406',
+    slope: '1.93035714285714',
+    intercept: '1.51785714285714',
     r: '0.99887956534852',
-    sYX: '0.43284771324005317',
-    seSlope: '0.040900264457006445',
-    seIntercept: '0.2949360013595481',
+    sYX: '0.432847713240053',
+    seSlope: '0.0409002644570064',
+    seIntercept: '0.294936001359548',
   },
   /** y0, number of readings m, x0 and s_x0 (recomputed). */
   unknowns: [
-    { y0: 2.9, m: 1, x0: '0.7160037002775218', sX0: '0.2645697709699052' },
-    { y0: 13.5, m: 1, x0: '6.207215541165588', sX0: '0.23975422270299107' },
-    { y0: 23.0, m: 1, x0: '11.128584643848288', sX0: '0.2631932592546461' },
-    { y0: 13.5, m: 4, x0: '6.207215541165588', sX0: '0.14061336181375664' },
-    { y0: 2.9, m: 3, x0: '0.7160037002775218', sX0: '0.19099002741063054' },
+    { y0: 2.9, m: 1, x0: '0.716003700277522', sX0: '0.264569770969905' },
+    { y0: 13.5, m: 1, x0: '6.20721554116559', sX0: '0.239754222702991' },
+    { y0: 23.0, m: 1, x0: '11.1285846438483', sX0: '0.263193259254646' },
+    { y0: 13.5, m: 4, x0: '6.20721554116559', sX0: '0.140613361813757' },
+    { y0: 2.9, m: 3, x0: '0.716003700277522', sX0: '0.190990027410631' },
   ],
   /** The book's rounded results that the recomputation reproduces (from memory). */
   printed: { r: '0.9989', slope: '1.93', intercept: '1.52', seSlope: '0.0409' },
@@ -38,10 +38,10 @@ export const MILLER_WEIGHTED = {
   x: [0.0, 2.0, 4.0, 6.0, 8.0, 10.0],
   y: [0.009, 0.158, 0.301, 0.472, 0.577, 0.739],
   s: [0.001, 0.004, 0.01, 0.013, 0.017, 0.022],
-  recomputed: { slope: '0.0737599662370502', intercept: '0.00908390777317043', sYX: '0.002495481176705378' },
+  recomputed: { slope: '0.0737599662370502', intercept: '0.00908390777317043', sYX: '0.00249548117670538' },
   unknowns: [
-    { y0: 0.1, x0: '1.2325940054614846', sX0: '0.04558939912826637' },
-    { y0: 0.6, x0: '8.011338973878324', sX0: '0.26972190983131655' },
+    { y0: 0.1, x0: '1.23259400546148', sX0: '0.0455893991282664' },
+    { y0: 0.6, x0: '8.01133897387832', sX0: '0.269721909831317' },
   ],
 } as const;
 
@@ -60,7 +60,7 @@ export const QUAM_A1 = {
     temperatureRange: 4,
     expansionCoefficient: 0.00021,
   },
-  recomputed: { c: '1002.69972', u: '0.8351992267684393' },
+  recomputed: { c: '1002.69972', u: '0.835199226768439' },
   printed: { c: '1002.7' },
 } as const;
 
@@ -73,12 +73,12 @@ export const QUAM_A5 = {
   samples: [0.0712, 0.0716],
   recomputed: {
     slope: '0.241',
-    intercept: '0.008700000000000074',
-    sYX: '0.005485645603965661',
-    seSlope: '0.005007686399618411',
-    seIntercept: '0.002876696823682443',
-    c0: '0.2601659751037341',
-    uC0: '0.017844611125583127',
+    intercept: '0.00870000000000007',
+    sYX: '0.00548564560396566',
+    seSlope: '0.00500768639961841',
+    seIntercept: '0.00287669682368244',
+    c0: '0.260165975103734',
+    uC0: '0.0178446111255831',
   },
   printed: { slope: '0.2410', intercept: '0.0087', c0: '0.260', uC0: '0.018' },
 } as const;
@@ -91,7 +91,7 @@ export const UCLA_TWO_SLOPES = {
   female: { x: [56, 60, 64, 68, 72, 54, 62, 65, 65, 70], y: [117, 125, 133, 141, 149, 109, 128, 131, 131, 145] },
   male: { x: [64, 68, 72, 76, 80, 62, 69, 74, 75, 82], y: [211, 223, 235, 247, 259, 201, 228, 245, 241, 269] },
   printed: { femaleSlope: '2.095872170', maleSlope: '3.189727463' },
-  recomputed: { df: 16, difference: '1.0938552928729526', se: '0.16777740940431807', t: '6.51968162314944', p: '7.065127068207985e-06' },
+  recomputed: { df: 16, difference: '1.09385529287295', se: '0.167777409404318', t: '6.51968162314944', p: '7.06512706820799e-6' },
 } as const;
 
 /** NIST/SEMATECH e-Handbook 1.3.5.9, F test for equal variances (JAHANMI2 batches, summary statistics). */
@@ -125,19 +125,19 @@ export const NCSS_TOST = {
       key: 'pooled-0.025',
       pooled: true,
       alpha: 0.025,
-      se: '51.11428460762155',
+      se: '51.1142846076215',
       df: '27',
-      pLower: '0.02821304055599055',
-      pUpper: '0.014358679002275563',
+      pLower: '0.0282130405559906',
+      pUpper: '0.0143586790022756',
     },
     {
       key: 'welch-0.05',
       pooled: false,
       alpha: 0.05,
-      se: '53.61854688463428',
-      df: '19.169002374282393',
-      pLower: '0.03627921669699269',
-      pUpper: '0.020016015097403847',
+      se: '53.6185468846343',
+      df: '19.1690023742824',
+      pLower: '0.0362792166969927',
+      pUpper: '0.0200160150974038',
     },
   ],
 } as const;
