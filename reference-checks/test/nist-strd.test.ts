@@ -17,8 +17,9 @@ import { describe, expect, it } from 'vitest';
 import { expectRel, loadCsv, loadJson, standards } from './helpers.js';
 
 // The published checks are the self-qualification list of the engine (shared/src/qualification), which the server runs
-// too: NIST StRD certified values (15 digits, required to at least 9, counts exactly) and printed tables (EPA MDL t,
-// AOAC Horwitz Table D1) within half a unit of their last printed digit.
+// too: NIST StRD certified values (15 digits, required to at least 9, counts exactly), printed tables (EPA MDL t,
+// AOAC Horwitz Table D1, ISO 5725-2 Grubbs, Rorabacher Dixon, Cochran) within their printed rounding, and the worked
+// examples (Miller & Miller, QUAM A1/A5, two-sample comparisons) named in shared/src/qualification/worked-examples.ts.
 describe('published values: the self-qualification list', () => {
   it.each(QUALIFICATION_CHECKS.map((check) => [check.id, check] as const))('%s', (_id, check) => {
     const result = runCheck(check);

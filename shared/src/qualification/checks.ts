@@ -1,6 +1,7 @@
 import { evaluateStudy } from '../evaluate.js';
 import type { CalibrationResult, PrecisionResultSection } from '../result.js';
 import { ENGINE_VERSION } from '../version.js';
+import { halfLastDigit, workedExampleChecks } from './example-checks.js';
 import { AOAC_HORWITZ_PRINTED, EPA_MDL_T_PRINTED } from './printed-tables.js';
 import { studentQuantile } from '../engine/distributions.js';
 import { horwitzRsd } from '../engine/precision.js';
@@ -135,9 +136,6 @@ function anovaChecks(ref: AnovaReference): QualificationCheckDefinition[] {
   ];
 }
 
-/** Printed tables are rounded: agreement within half a unit of the last printed digit. */
-const halfLastDigit = (printed: string) => 0.5 * 10 ** -(printed.split('.')[1]?.length ?? 0) + 1e-12;
-
 function printedTableChecks(): QualificationCheckDefinition[] {
   return [
     ...EPA_MDL_T_PRINTED.rows.map((row) => ({
@@ -173,6 +171,7 @@ export const QUALIFICATION_CHECKS: readonly QualificationCheckDefinition[] = [
   ...anovaChecks(SIRSTV),
   ...anovaChecks(ATMWTAG),
   ...printedTableChecks(),
+  ...workedExampleChecks(),
 ];
 
 /** Correct significant digits of `obtained` against `expected` (the StRD log relative error), capped at 15. */

@@ -20,7 +20,7 @@ export default function QualificationPage() {
       <PageHeader
         section="Quality"
         title="Self-qualification"
-        description="Recompute published reference values (NIST Statistical Reference Datasets, EPA and AOAC printed tables) with the calculations of this installation and keep a signed report of the agreement, e.g. after an update or a move to another server."
+        description="Recompute published reference values (NIST Statistical Reference Datasets, printed statistical tables, textbook and guide worked examples) with the calculations of this installation and keep a signed report of the agreement, e.g. after an update or a move to another server."
         actions={
           <Button loading={run.isPending} onClick={() => run.mutate()}>
             Run the self-qualification
