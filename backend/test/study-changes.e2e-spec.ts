@@ -260,6 +260,8 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
       const entry = auditOf(study.id, 'study.point-excluded').find((e) => e.changes.includes('blanks[6]'));
       expect(entry?.reason).toBe(reason);
       expect(JSON.parse(entry!.changes)).toEqual({ 'blanks[6].excluded': { from: null, to: { reason } } });
+      const item = (await history(study.id)).find((h) => h.action === 'study.point-excluded');
+      expect(item?.lines).toEqual([`Blanks, row 7, excluded: nothing → excluded (${reason})`]);
       const bad = await patch(study.id, 'analyst', {
         lockVersion: res.body.lockVersion,
         data: { ...study.data, blanks: [0.001, { value: 'high' }] },
