@@ -331,11 +331,12 @@ describe('validation reports', () => {
   });
 
   describe('draft preview', () => {
-    it('should list excluded recovery and precision results with their reasons among the exclusions', async () => {
+    it('should list excluded blanks, recovery and precision results with their reasons among the exclusions', async () => {
       const created = await createStudy(t, { author: DEMO.analyst });
       const draft = (await t.http().get(`/api/studies/${created.id}`).set(as('analyst')).expect(200)).body;
       const data = {
         ...draft.data,
+        blanks: [0.0011, 0.0018, { value: 0.0095, excluded: { reason: 'Carry-over from the top standard' } }, 0.0014],
         recovery: [
           { id: 'S1', added: 1, found: 0.98 },
           { id: 'S2', added: 1, found: 1.02 },
@@ -352,6 +353,8 @@ describe('validation reports', () => {
       expect(text).toContain('Excluded replicate results');
       expect(text).toMatch(/Recovery, S3 \(row 3\)[\s\S]*Vial S3 spilt before injection/);
       expect(text).toMatch(/Precision, series day 1 \(row 3\)[\s\S]*Wrong dilution on day 1/);
+      expect(text).toMatch(/Method blank \(row 3\)[\s\S]*Carry-over from the top standard/);
+      expect(text).toContain('1 method blank excluded by the analyst');
     });
 
     it('should mark every page DRAFT, carry no signature and store nothing', async () => {

@@ -237,5 +237,36 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
       }).expect(422);
       expect(bad.body.errors.map((e: { field: string }) => e.field)).toContain('precision[0].excluded.reason');
     });
+
+    it('should save a study with an excluded method blank, leave the blank out of the blank SD, audit it and keep plain blanks', async () => {
+      const study = await get((await createStudy(t, { author: DEMO.analyst })).id);
+      // Invented blank responses (AU); the last one is a carried-over vial.
+      const blanks = [0.0011, 0.0018, 0.0009, 0.0014, 0.0012, 0.0016, 0.0095];
+      const plain = await patch(study.id, 'analyst', { lockVersion: study.lockVersion, data: { ...study.data, blanks } }).expect(200);
+      expect(plain.body.data.blanks).toEqual(blanks);
+      expect(plain.body.result.detection.blankSd.n).toBe(7);
+      const reason = 'Carry-over from the top standard.';
+      const withExclusion = { ...study.data, blanks: blanks.map((value, i) => (i === 6 ? { value, excluded: { reason } } : value)) };
+      const res = await patch(study.id, 'analyst', { lockVersion: plain.body.lockVersion, data: withExclusion }).expect(200);
+      expect(res.body.data.blanks[6]).toEqual({ value: 0.0095, excluded: { reason } });
+      const detection = res.body.result.detection;
+      expect(detection.excludedBlanks).toEqual([{ index: 6, label: 'blank 7', value: 0.0095, reason }]);
+      expect(detection.blankSd.n).toBe(6);
+      // Mean of the six kept blanks, summed by hand: 0.0080 / 6.
+      expect(detection.blankSd.mean).toBeCloseTo(0.008 / 6, 12);
+      expect(res.body.result.warnings).toContainEqual(
+        expect.objectContaining({ section: 'detection', code: 'excluded', message: `1 method blank excluded by the analyst: ${reason}` }),
+      );
+      const entry = auditOf(study.id, 'study.point-excluded').find((e) => e.changes.includes('blanks[6]'));
+      expect(entry?.reason).toBe(reason);
+      expect(JSON.parse(entry!.changes)).toEqual({ 'blanks[6].excluded': { from: null, to: { reason } } });
+      const item = (await history(study.id)).find((h) => h.action === 'study.point-excluded');
+      expect(item?.lines).toEqual([`Blanks, row 7, excluded: nothing → excluded (${reason})`]);
+      const bad = await patch(study.id, 'analyst', {
+        lockVersion: res.body.lockVersion,
+        data: { ...study.data, blanks: [0.001, { value: 'high' }] },
+      }).expect(422);
+      expect(bad.body.errors.map((e: { field: string }) => e.field)).toContain('blanks[1].value');
+    });
   });
 });

@@ -153,6 +153,18 @@ test('an analyst runs a validation study through the wizard, from paste and uplo
   const blanks = page.getByRole('table', { name: 'Blanks' });
   await expect(blanks.getByRole('textbox', { name: 'Blank response, row 7' })).toHaveValue('0.0016');
   await expect(page.getByRole('complementary', { name: 'Detection limits as you type' })).toContainText('LOD / LOQ from the blank SD');
+  // A blank read after a top standard is excluded with a reason, the same way as a standard.
+  await blanks
+    .getByRole('row')
+    .filter({ has: page.getByRole('textbox', { name: 'Blank response, row 7' }) })
+    .getByRole('button', { name: 'Exclude…' })
+    .click();
+  const blankExclusion = page.getByRole('dialog');
+  await blankExclusion.getByLabel('Reason').fill('Carry-over from the top standard');
+  await blankExclusion.getByRole('button', { name: 'Exclude the blank' }).click();
+  await expect(blanks.getByText('Excluded: Carry-over from the top standard')).toBeVisible();
+  await expect(page.getByRole('complementary', { name: 'Detection limits as you type' })).toContainText('6 (1 excluded)');
+  await expect(saveStatus(page)).toContainText('Saved', { timeout: 20_000 });
   await shot(page, 3);
 
   // Steps 4 and 5: recovery and precision, pasted.

@@ -233,6 +233,8 @@ export interface DetectionResult {
   epaMdl: EpaMdlResult | null;
   /** The approach the unknowns' belowLod / belowLoq flags were judged against. */
   flagBasis: DetectionApproach | null;
+  /** Method blanks the analyst excluded; none of them enters a blank-based figure or outlier test. */
+  excludedBlanks: ExcludedRow[];
 }
 
 export interface RecoveryItemResult {

@@ -62,6 +62,22 @@ export interface PrecisionResult {
   excluded?: Exclusion;
 }
 
+/** A method blank: a plain response, or the response with the analyst's reason for leaving it out. */
+export interface BlankResult {
+  value: number;
+  excluded?: Exclusion;
+}
+export type Blank = number | BlankResult;
+
+export function blankValue(blank: Blank): number {
+  return typeof blank === 'number' ? blank : blank.value;
+}
+
+/** The blank responses that enter the figures. */
+export function usedBlanks(blanks: readonly Blank[] | undefined): number[] | undefined {
+  return blanks?.flatMap((b) => (typeof b === 'number' ? [b] : b.excluded ? [] : [b.value]));
+}
+
 export interface LowSpikes {
   spiked: number[];
   /** Method blank results in x units; null = no numerical result. */
@@ -94,7 +110,7 @@ export interface Study {
   /** Absent: no calibration (precision, recovery or MDL studies only). */
   standards?: StandardPoint[];
   twoPoint?: TwoPointOptions;
-  blanks?: number[];
+  blanks?: Blank[];
   unknowns?: UnknownSample[];
   checks?: CheckStandard[];
   recovery?: RecoveryItem[];

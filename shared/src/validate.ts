@@ -4,6 +4,8 @@ import {
   MODELS,
   STUDY_LIMITS,
   WEIGHTINGS,
+  type Blank,
+  type BlankResult,
   type CheckStandard,
   type Criterion,
   type CriterionOp,
@@ -138,6 +140,25 @@ function parseExclusion(c: Collector, value: unknown, field: string): Exclusion 
   const exclusion: Exclusion = { ...value, reason: reason ?? '' };
   if (value.test !== undefined) exclusion.test = c.text(value.test, `${field}.excluded.test`);
   return exclusion;
+}
+
+function parseBlanks(c: Collector, value: unknown): Blank[] {
+  if (!c.isArray(value, 'blanks')) return [];
+  const blanks: Blank[] = [];
+  value.forEach((item, i) => {
+    const field = `blanks[${i}]`;
+    if (typeof item !== 'object' || item === null || Array.isArray(item)) {
+      blanks.push(c.number(item, field) ?? NaN);
+      return;
+    }
+    if (!c.isObject(item, field)) return;
+    c.onlyKeys(item, ['value', 'excluded'], field);
+    const blank: BlankResult = { value: c.number(item.value, `${field}.value`) ?? NaN };
+    const excluded = parseExclusion(c, item.excluded, field);
+    if (excluded) blank.excluded = excluded;
+    blanks.push(blank);
+  });
+  return blanks;
 }
 
 function parseStandards(c: Collector, value: unknown): StandardPoint[] {
@@ -360,7 +381,7 @@ export function parseStudy(input: unknown): Study {
       c.add('twoPoint.bracketing', 'not_boolean', 'twoPoint.bracketing must be true or false');
     } else study.twoPoint = { bracketing: input.twoPoint.bracketing };
   }
-  if (input.blanks !== undefined) study.blanks = c.numbers(input.blanks, 'blanks') ?? [];
+  if (input.blanks !== undefined) study.blanks = parseBlanks(c, input.blanks);
   const optional = {
     unknowns: parseUnknowns(c, input.unknowns),
     checks: parseChecks(c, input.checks),

@@ -97,7 +97,7 @@ function mergeMeta(current: StudyMeta, update: StudyMetaDto | undefined): StudyM
 const changed = (from: unknown, to: unknown) => canonicalJson(from) !== canonicalJson(to);
 
 type ExcludableRow = { excluded?: { reason?: string } };
-const EXCLUDABLE_SECTIONS = ['standards', 'recovery', 'precision'] as const;
+const EXCLUDABLE_SECTIONS = ['standards', 'blanks', 'recovery', 'precision'] as const;
 const rowsOf = (data: StudyData, section: string): ExcludableRow[] =>
   Array.isArray(data[section]) ? (data[section] as ExcludableRow[]) : [];
 

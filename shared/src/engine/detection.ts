@@ -3,11 +3,12 @@ import type {
   DetectionApproach,
   DetectionResult,
   EpaMdlResult,
+  ExcludedRow,
   HubauxVosLimits,
   Iso11843Limits,
   LimitPair,
 } from '../result.js';
-import type { Criterion, LowSpikes } from '../study.js';
+import { usedBlanks, type Blank, type Criterion, type LowSpikes } from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { detectionDelta, studentQuantile } from './distributions.js';
 import { fitLine, type RegressionCore } from './regression.js';
@@ -176,14 +177,29 @@ export function epaMdl(lowSpikes: LowSpikes | undefined, warn: Warn): EpaMdlResu
 
 const APPROACHES: DetectionApproach[] = ['sdResidual', 'sdIntercept', 'blankSd', 'iso11843', 'hubauxVos', 'epaMdl'];
 
+/** Method blanks the analyst left out, warned with their count and reasons. */
+function excludedBlanks(blanks: readonly Blank[] | undefined, warn: Warn): ExcludedRow[] {
+  const excluded = (blanks ?? []).flatMap((b, index) =>
+    typeof b !== 'number' && b.excluded ? [{ index, label: `blank ${index + 1}`, value: b.value, reason: b.excluded.reason }] : [],
+  );
+  if (excluded.length > 0) {
+    const reasons = [...new Set(excluded.map((row) => row.reason))].join('; ');
+    warn('detection', 'excluded', `${excluded.length} method blank${excluded.length === 1 ? '' : 's'} excluded by the analyst: ${reasons}`);
+    if (excluded.length === blanks?.length) warn('detection', 'all_excluded', 'every method blank is excluded');
+  }
+  return excluded;
+}
+
 export function detection(
   fit: CalibrationFit | null,
-  blanks: readonly number[] | undefined,
+  allBlanks: readonly Blank[] | undefined,
   lowSpikes: LowSpikes | undefined,
   alpha: number,
   criteria: readonly Criterion[],
   warn: Warn,
 ): DetectionResult | null {
+  const excluded = excludedBlanks(allBlanks, warn);
+  const blanks = usedBlanks(allBlanks);
   const line = fit?.core ? unweightedLine(fit, warn) : null;
   if (!fit && blanks && blanks.length > 0) warn('detection', 'no_calibration', 'blank-based limits need a calibration slope');
   const result: DetectionResult = {
@@ -194,6 +210,7 @@ export function detection(
     hubauxVos: hubauxVos(line, alpha, warn),
     epaMdl: epaMdl(lowSpikes, warn),
     flagBasis: null,
+    excludedBlanks: excluded,
   };
   const named = criteria
     .map((c) => c.figure.split('.'))

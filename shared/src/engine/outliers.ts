@@ -1,5 +1,5 @@
 import type { OutlierFlag } from '../result.js';
-import type { Study } from '../study.js';
+import { blankValue, type Study } from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, studentQuantile } from './distributions.js';
 import { groupBy, mean, sd, variance } from './stats.js';
@@ -116,7 +116,10 @@ function cochran(name: string, groups: { values: number[]; index: number }[], fl
 export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts: number[] | null, warn: Warn): OutlierFlag[] | null {
   const flags: OutlierFlag[] = [];
   const sets: ValueSet[] = [];
-  if (study.blanks) sets.push({ name: 'blanks', values: [...study.blanks], indices: study.blanks.map((_, i) => i) });
+  if (study.blanks) {
+    const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
+    sets.push({ name: 'blanks', values: used.map((b) => b.value), indices: used.map((b) => b.index) });
+  }
   const indexed = fit ? fit.points.map((p, i) => ({ x: p.x, y: p.y, index: fit.indices[i] })) : [];
   const levels = [...groupBy(indexed, (p) => p.x).entries()].sort(([a], [b]) => a - b);
   for (const [x, points] of levels) {

@@ -53,17 +53,48 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
     });
   const data = content.study.data;
   const replicates = [
+    ...(data.blanks ?? []).flatMap((b, index) =>
+      typeof b !== 'number' && b.excluded
+        ? [
+            {
+              set: 'blanks',
+              what: 'Method blank',
+              index,
+              value: `${formatNumber(b.value, 5)} ${yUnit(content)}`,
+              reason: b.excluded.reason,
+            },
+          ]
+        : [],
+    ),
     ...(data.recovery ?? []).flatMap((r, index) =>
-      r.excluded ? [{ set: 'recovery', what: `Recovery, ${r.id}`, index, value: formatNumber(r.found, 5), reason: r.excluded.reason }] : [],
+      r.excluded
+        ? [
+            {
+              set: 'recovery',
+              what: `Recovery, ${r.id}`,
+              index,
+              value: `${formatNumber(r.found, 5)} ${xUnit(content)}`,
+              reason: r.excluded.reason,
+            },
+          ]
+        : [],
     ),
     ...(data.precision ?? []).flatMap((p, index) =>
       p.excluded
-        ? [{ set: 'precision', what: `Precision, series ${p.group}`, index, value: formatNumber(p.value, 5), reason: p.excluded.reason }]
+        ? [
+            {
+              set: 'precision',
+              what: `Precision, series ${p.group}`,
+              index,
+              value: `${formatNumber(p.value, 5)} ${xUnit(content)}`,
+              reason: p.excluded.reason,
+            },
+          ]
         : [],
     ),
   ];
   if (!excluded.length && !replicates.length) {
-    pdf.paragraph('No point is excluded: every standard and every replicate result enters the computations.');
+    pdf.paragraph('No point is excluded: every standard, method blank and replicate result enters the computations.');
   }
   if (excluded.length) {
     pdf.table({
@@ -94,7 +125,7 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
       caption: 'Excluded replicate results',
       columns: [
         { header: 'Result', width: 1.5 },
-        { header: `Value (${xUnit(content)})`, width: 1, align: 'right' },
+        { header: 'Value', width: 1, align: 'right' },
         { header: 'Reason given', width: 2.1 },
         { header: 'Excluded by', width: 1.1 },
         { header: 'When', width: 1.5 },
@@ -109,7 +140,7 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
           record ? formatDateTime(record.at) : NOT_AVAILABLE,
         ];
       }),
-      note: 'Excluded results stay in the study data but enter no recovery or precision figure.',
+      note: 'Excluded results stay in the study data but enter no blank, recovery or precision figure.',
     });
   }
   if (content.exclusions.length) {

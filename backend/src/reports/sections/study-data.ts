@@ -1,4 +1,4 @@
-import { describeCriterion, type StudyInput } from '@meritline/shared';
+import { blankValue, describeCriterion, type StudyInput } from '@meritline/shared';
 import { colors, NOT_AVAILABLE, type PdfComposer } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { STUDY_DATA_ATTACHMENT } from './methods.js';
@@ -47,7 +47,11 @@ export function studyDataAppendix(pdf: PdfComposer, content: ReportContent): voi
     });
   }
   const lines: [string, string][] = [];
-  if (data.blanks?.length) lines.push([`Blanks (${y})`, list(data.blanks)]);
+  if (data.blanks?.length) {
+    const excluded = data.blanks.flatMap((b, i) => (typeof b !== 'number' && b.excluded ? [`blank ${i + 1}`] : []));
+    const note = excluded.length ? `; excluded: ${excluded.join(', ')}` : '';
+    lines.push([`Blanks (${y})`, `${list(data.blanks.map(blankValue))}${note}`]);
+  }
   if (data.lowSpikes) {
     lines.push([`Low-level spikes (${x})`, list(data.lowSpikes.spiked)]);
     if (data.lowSpikes.blanks) lines.push([`Method blanks (${x})`, list(data.lowSpikes.blanks)]);

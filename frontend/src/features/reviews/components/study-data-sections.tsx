@@ -1,4 +1,4 @@
-import { formatLevel, formatNumber } from '@meritline/shared';
+import { blankValue, formatLevel, formatNumber } from '@meritline/shared';
 import { Heading, Stack, Text } from '@chakra-ui/react';
 import type { StudyInput } from '@meritline/shared';
 import { useMemo } from 'react';
@@ -45,9 +45,12 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
         data.blanks?.length &&
           section(
             'Blanks',
-            ['#', withUnit('Response', units.y)],
-            data.blanks.map((b, i) => ({ id: `b${i}`, cells: [i + 1, b] })),
-            [true, true],
+            ['#', withUnit('Response', units.y), 'Excluded because'],
+            data.blanks.map((b, i) => ({
+              id: `b${i}`,
+              cells: [i + 1, blankValue(b), typeof b === 'number' ? '' : (b.excluded?.reason ?? '')],
+            })),
+            [true, true, false],
           ),
         data.recovery?.length &&
           section(

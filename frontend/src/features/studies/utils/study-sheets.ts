@@ -104,7 +104,9 @@ export function dataToDraft(data: Record<string, unknown>): DataDraft {
     sheets: {
       standards,
       unknowns,
-      blanks: list<number>(data.blanks).map((v) => newRow({ value: text(v) })),
+      blanks: list<number | { value: number; excluded?: Exclusion }>(data.blanks).map((b) =>
+        typeof b === 'object' && b !== null ? newRow({ value: text(b.value) }, exclusionOf(b.excluded)) : newRow({ value: text(b) }),
+      ),
       lowSpikes,
       recovery: list<{ id: string; level?: string; added: number; found: number; native?: number; excluded?: Exclusion }>(
         data.recovery,
@@ -157,7 +159,10 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
       ...exclusionField(row),
     })),
   };
-  const blanks = usableRows('blanks', sheets.blanks).map((row) => num(row.cells.value));
+  // A blank is written as a plain number unless it is excluded, so data without exclusions keep their old shape.
+  const blanks = usableRows('blanks', sheets.blanks).map((row) =>
+    row.excluded ? { value: num(row.cells.value), ...exclusionField(row) } : num(row.cells.value),
+  );
   if (blanks.length > 0) data.blanks = blanks;
 
   const unknowns = new Map<string, { id: string; y: number[]; dilution?: number }>();

@@ -2,11 +2,12 @@ import { formatNumber } from '@meritline/shared';
 import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
-import { setSheet } from './exclusion';
+import { setSheet, useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
 
 export function BlanksStep({ controller, live, units }: DataStepProps) {
   const { draft, server, editable, prepareImport, adopt } = controller;
+  const exclusion = useRowExclusion(controller, 'blanks');
   const d = live.result?.detection;
   const x = (v: number | null | undefined) => `${formatNumber(v, 4)} ${units.x}`;
   return (
@@ -27,6 +28,7 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
             readOnly={!editable}
             prepareImport={prepareImport}
             onImported={adopt}
+            rowActions={exclusion.rowActions}
           />
         </Stack>
         <Stack gap="3">
@@ -57,6 +59,12 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
               <FigureLine label="LOD / LOQ from the residual SD" value={`${x(d.sdResidual.lod)} / ${x(d.sdResidual.loq)}`} />
             )}
             {d.blankSd && <FigureLine label="LOD / LOQ from the blank SD" value={`${x(d.blankSd.lod)} / ${x(d.blankSd.loq)}`} />}
+            {d.blankSd && (
+              <FigureLine
+                label="Blanks used"
+                value={`${d.blankSd.n}${d.excludedBlanks?.length ? ` (${d.excludedBlanks.length} excluded)` : ''}`}
+              />
+            )}
             {d.iso11843 && (
               <FigureLine label="ISO 11843-2 critical / detectable" value={`${x(d.iso11843.criticalX)} / ${x(d.iso11843.detectableX)}`} />
             )}
@@ -68,6 +76,7 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
           </Text>
         )}
       </LivePanel>
+      {exclusion.dialog}
     </Grid>
   );
 }

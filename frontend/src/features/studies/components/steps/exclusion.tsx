@@ -10,7 +10,7 @@ export const setSheet = (
   rows: GridRow[],
 ) => controller.change((d) => ({ ...d, data: { ...d.data, sheets: { ...d.data.sheets, [section]: rows } } }));
 
-type ExcludableSection = 'standards' | 'recovery' | 'precision';
+type ExcludableSection = 'standards' | 'blanks' | 'recovery' | 'precision';
 
 interface ExclusionWords {
   /** What a row is: "standard", "spiked sample", "result". */
@@ -24,6 +24,12 @@ const WORDS: Record<ExcludableSection, ExclusionWords> = {
     noun: 'standard',
     describe: (row) => `x = ${row.cells.x ?? '?'}, y = ${row.cells.y ?? '?'}`,
     consequence: 'The point stays in the study, shown hollow, and is left out of every figure.',
+  },
+  blanks: {
+    noun: 'blank',
+    describe: (row) => `response ${row.cells.value ?? '?'}`,
+    consequence:
+      'The blank stays in the study, marked excluded, and is left out of the blank SD, the limits from it and the outlier tests.',
   },
   recovery: {
     noun: 'spiked sample',
@@ -41,7 +47,7 @@ const WORDS: Record<ExcludableSection, ExclusionWords> = {
 export const useStandardExclusion = (controller: StudyDraftController) => useRowExclusion(controller, 'standards');
 
 /**
- * Excluding a row (a standard, a spiked sample, a precision result) takes a written reason and can be
+ * Excluding a row (a standard, a method blank, a spiked sample, a precision result) takes a written reason and can be
  * undone: the row stays in the data, marked, and leaves every computation.
  */
 export function useRowExclusion(controller: StudyDraftController, section: ExcludableSection) {
