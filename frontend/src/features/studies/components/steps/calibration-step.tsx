@@ -1,12 +1,16 @@
 import { formatNumber } from '@meritline/shared';
-import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
+import { Badge, Grid, Heading, Stack, Text } from '@chakra-ui/react';
+import { useQuery } from '@tanstack/react-query';
 import { CalibrationPlot, MODEL_LABELS, type CriterionDefinition } from '@/components/study-results';
+import { preparationChoicesQueries } from '../../api/preparation-choices-queries';
 import type { LiveEvaluation } from '../../hooks/use-live-evaluation';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
+import { isBlankRow, sectionColumns, type GridRow } from '../../utils/grid-sections';
 import { usableRows } from '../../utils/study-sheets';
 import { SectionEditor } from '../grid/section-editor';
 import { setSheet, useStandardExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+import { PreparationDialog } from './preparation-dialog';
 
 export interface DataStepProps {
   controller: StudyDraftController;
@@ -23,6 +27,21 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
     const row = usableRows('standards', draft.data.sheets.standards)[index];
     if (row) exclusion.toggle(row.id);
   };
+  const standards = draft.data.sheets.standards;
+  const filledStandards = standards.filter((row) => !isBlankRow(row, sectionColumns('standards', units)));
+  const fromPreparation = standards.some((row) => row.preparationId);
+  const preparations = useQuery({ ...preparationChoicesQueries.list(), enabled: fromPreparation });
+  const preparationName = (id: string) => preparations.data?.find((p) => p.id === id)?.name ?? 'a saved preparation';
+  const standardActions = (row: GridRow) => (
+    <>
+      {row.preparationId && (
+        <Badge size="sm" colorPalette="blue" variant="subtle" title="Concentration taken from this standard preparation">
+          From {preparationName(row.preparationId)}
+        </Badge>
+      )}
+      {exclusion.rowActions(row)}
+    </>
+  );
 
   return (
     <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
@@ -35,6 +54,12 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
             One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same
             concentration.
           </Text>
+          <PreparationDialog
+            xUnit={units.x}
+            filledRows={filledStandards.length}
+            disabled={!editable}
+            onFill={(rows, mode) => setSheet(controller, 'standards', mode === 'append' ? [...filledStandards, ...rows] : rows)}
+          />
           <SectionEditor
             studyId={server.id}
             section="standards"
@@ -45,7 +70,7 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
             readOnly={!editable}
             prepareImport={prepareImport}
             onImported={adopt}
-            rowActions={exclusion.rowActions}
+            rowActions={standardActions}
           />
         </Stack>
         <Stack gap="3">
