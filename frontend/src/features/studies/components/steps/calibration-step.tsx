@@ -1,5 +1,5 @@
 import { formatNumber } from '@meritline/shared';
-import { Badge, Grid, Heading, Stack, Text } from '@chakra-ui/react';
+import { Badge, Grid, Heading, HStack, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { CalibrationPlot, MODEL_LABELS, type CriterionDefinition } from '@/components/study-results';
 import { preparationChoicesQueries } from '../../api/preparation-choices-queries';
@@ -35,8 +35,16 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
   const standardActions = (row: GridRow) => (
     <>
       {row.preparationId && (
-        <Badge size="sm" colorPalette="blue" variant="subtle" title="Concentration taken from this standard preparation">
-          From {preparationName(row.preparationId)}
+        <Badge
+          size="sm"
+          colorPalette="blue"
+          variant="subtle"
+          maxW="10rem"
+          title={`Concentration taken from the standard preparation ${preparationName(row.preparationId)}`}
+        >
+          <Text as="span" truncate>
+            From {preparationName(row.preparationId)}
+          </Text>
         </Badge>
       )}
       {exclusion.rowActions(row)}
@@ -54,12 +62,14 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
             One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same
             concentration.
           </Text>
-          <PreparationDialog
-            xUnit={units.x}
-            filledRows={filledStandards.length}
-            disabled={!editable}
-            onFill={(rows, mode) => setSheet(controller, 'standards', mode === 'append' ? [...filledStandards, ...rows] : rows)}
-          />
+          <HStack>
+            <PreparationDialog
+              xUnit={units.x}
+              filledRows={filledStandards.length}
+              disabled={!editable}
+              onFill={(rows, mode) => setSheet(controller, 'standards', mode === 'append' ? [...filledStandards, ...rows] : rows)}
+            />
+          </HStack>
           <SectionEditor
             studyId={server.id}
             section="standards"

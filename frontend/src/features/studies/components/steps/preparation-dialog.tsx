@@ -69,9 +69,11 @@ export function PreparationDialog({ xUnit, filledRows, onFill, disabled }: Prepa
                       <Table.Body>
                         {preparations.data.map((p) => (
                           <Table.Row key={p.id} bg={chosen?.id === p.id ? 'bg.emphasized' : undefined}>
-                            <Table.Cell fontWeight="medium">{p.name}</Table.Cell>
-                            <Table.Cell>{materialWords(p)}</Table.Cell>
-                            <Table.Cell>
+                            <Table.Cell fontWeight="medium" whiteSpace="normal" minW="10rem">
+                              {p.name}
+                            </Table.Cell>
+                            <Table.Cell whiteSpace="normal">{materialWords(p)}</Table.Cell>
+                            <Table.Cell whiteSpace="normal">
                               {p.result.steps.length === 0
                                 ? 'None'
                                 : p.result.steps
@@ -81,9 +83,15 @@ export function PreparationDialog({ xUnit, filledRows, onFill, disabled }: Prepa
                                     })
                                     .join('; ')}
                             </Table.Cell>
-                            <Table.Cell>
-                              <Button size="xs" variant={chosen?.id === p.id ? 'solid' : 'outline'} onClick={() => setChosen(p)}>
-                                {chosen?.id === p.id ? 'Chosen' : `Choose ${p.name}`}
+                            <Table.Cell textAlign="end">
+                              <Button
+                                size="xs"
+                                variant={chosen?.id === p.id ? 'solid' : 'outline'}
+                                aria-label={`Choose ${p.name}`}
+                                aria-pressed={chosen?.id === p.id}
+                                onClick={() => setChosen(p)}
+                              >
+                                {chosen?.id === p.id ? 'Chosen' : 'Choose'}
                               </Button>
                             </Table.Cell>
                           </Table.Row>
