@@ -4,7 +4,7 @@ import { useState } from 'react';
 import { DataGrid } from '@/features/studies/components/grid/data-grid';
 import { PreparationDialog } from '@/features/studies/components/steps/preparation-dialog';
 import { isBlankRow, newRow, sectionColumns, type GridRow } from '@/features/studies/utils/grid-sections';
-import { normalizeUnit } from '@/features/studies/utils/preparation-standards';
+import { dropRetypedPreparations, normalizeUnit } from '@/features/studies/utils/preparation-standards';
 import { dataToDraft, draftToData } from '@/features/studies/utils/study-sheets';
 import { renderWithProviders, stubApi } from './render';
 
@@ -108,6 +108,18 @@ describe('standards taken from a saved preparation', () => {
     expect(draft.sheets.standards.map((row) => row.preparationId)).toEqual([PREP_ID, undefined]);
     expect((draftToData(draft).standards as unknown[])[0]).toEqual({ x: 10.027, y: 0.41, preparationId: PREP_ID });
     expect((draftToData(draft).standards as unknown[])[1]).toEqual({ x: 0, y: 0.002 });
+  });
+
+  it('forgets the preparation of a standard whose concentration is typed over, and only of that one', () => {
+    const before = [
+      { ...newRow({ x: '10.027', y: '' }), preparationId: PREP_ID },
+      { ...newRow({ x: '1.0027', y: '' }), preparationId: PREP_ID },
+    ];
+    const typed = [
+      { ...before[0], cells: { x: '10', y: '' } },
+      { ...before[1], cells: { x: '1.0027', y: '0.08' } },
+    ];
+    expect(dropRetypedPreparations(before, typed).map((row) => row.preparationId)).toEqual([undefined, PREP_ID]);
   });
 
   it('reads the usual spellings of one unit as the same unit', () => {

@@ -31,3 +31,13 @@ export function standardsFromPreparation(preparation: PreparationDto, xUnit: str
     })),
   };
 }
+
+/** A standard whose concentration is typed over no longer comes from its preparation. */
+export function dropRetypedPreparations(previous: readonly GridRow[], next: GridRow[]): GridRow[] {
+  const before = new Map(previous.map((row) => [row.id, row.cells.x]));
+  return next.map((row) => {
+    if (!row.preparationId || before.get(row.id) === row.cells.x) return row;
+    const { preparationId: _dropped, ...rest } = row;
+    return rest;
+  });
+}

@@ -6,6 +6,7 @@ import { preparationChoicesQueries } from '../../api/preparation-choices-queries
 import type { LiveEvaluation } from '../../hooks/use-live-evaluation';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
 import { isBlankRow, sectionColumns, type GridRow } from '../../utils/grid-sections';
+import { dropRetypedPreparations } from '../../utils/preparation-standards';
 import { usableRows } from '../../utils/study-sheets';
 import { SectionEditor } from '../grid/section-editor';
 import { setSheet, useStandardExclusion } from './exclusion';
@@ -76,7 +77,7 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
             sectionName="calibration standards"
             units={units}
             rows={draft.data.sheets.standards}
-            onRowsChange={(rows) => setSheet(controller, 'standards', rows)}
+            onRowsChange={(rows) => setSheet(controller, 'standards', dropRetypedPreparations(standards, rows))}
             readOnly={!editable}
             prepareImport={prepareImport}
             onImported={adopt}
