@@ -81,6 +81,58 @@ test('the analyst prepares a stock and two dilutions from a seeded material and 
   await signOut(page);
 });
 
+const TOKEN_KEY = 'meritline.session-token';
+
+test("the analyst takes a draft study's standards from the saved preparation with the mouse", async ({ page }) => {
+  await signIn(page, 'analyst@meritline.test');
+  await mainNavigation(page).getByRole('link', { name: 'Validation studies' }).click();
+  await page.getByRole('link', { name: 'New study', exact: true }).click();
+  await expect(page.getByRole('heading', { level: 1, name: 'New validation study' })).toBeVisible();
+  await page.getByLabel('Method', { exact: true }).selectOption({ label: 'Nitrate in drinking water by ion chromatography' });
+  await page.getByLabel('Title').fill('Nitrate line from the prepared working standards');
+  await page.getByRole('button', { name: 'Create the study' }).click();
+  await expect(page).toHaveURL(/\/edit\?step=2$/);
+
+  await page.getByRole('button', { name: 'Take concentrations from a preparation' }).click();
+  const dialog = page.getByRole('dialog');
+  const offered = dialog.getByRole('table', { name: 'Saved preparations' });
+  const cadmium = offered.getByRole('row', { name: /Cadmium stock and two working standards/ });
+  await expect(cadmium).toContainText('Cadmium granules, 99.99 %, lot NF-CD-0917');
+  await expect(cadmium).toContainText('10.027');
+  await cadmium.getByRole('button', { name: 'Choose Cadmium stock and two working standards' }).click();
+  await shot(page, 'take-from-preparation');
+  await dialog.getByRole('button', { name: 'Put 2 standards in the grid' }).click();
+  await expect(dialog).toBeHidden();
+
+  const standards = page.getByRole('table', { name: 'Calibration standards' });
+  await expect(standards.getByRole('textbox', { name: 'Concentration, row 1' })).toHaveValue(/^10\.027/);
+  await expect(standards.getByRole('textbox', { name: 'Concentration, row 2' })).toHaveValue(/^1\.0027/);
+  await expect(standards.getByText('From Cadmium stock and two working standards')).toHaveCount(2);
+  await standards.getByRole('textbox', { name: 'Response, row 1' }).fill('0.8123');
+  await standards.getByRole('textbox', { name: 'Response, row 2' }).fill('0.0815');
+  await expect(page.getByTestId('save-status')).toContainText('Saved', { timeout: 20_000 });
+  await shot(page, 'standards-from-preparation');
+
+  const studyId = /\/studies\/([^/]+)\/edit/.exec(page.url())?.[1];
+  const study = (await page.evaluate(
+    async ({ id, key }) => {
+      const res = await fetch(`/api/studies/${id}`, { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
+      return res.json();
+    },
+    { id: studyId, key: TOKEN_KEY },
+  )) as { data: { standards: { x: number; y: number; preparationId?: string }[] } };
+  const preparations = (await page.evaluate(async (key) => {
+    const res = await fetch('/api/preparations', { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
+    return res.json();
+  }, TOKEN_KEY)) as { id: string; name: string }[];
+  const preparationId = preparations.find((p) => p.name === 'Cadmium stock and two working standards')?.id;
+  expect(preparationId).toBeTruthy();
+  expect(study.data.standards).toHaveLength(2);
+  expect(study.data.standards.map((s) => s.preparationId)).toEqual([preparationId, preparationId]);
+  expect(study.data.standards.map((s) => s.y)).toEqual([0.8123, 0.0815]);
+  await signOut(page);
+});
+
 test('the quality manager registers a material and stores its certificate', async ({ page }) => {
   await signIn(page, 'quality@meritline.test');
   await mainNavigation(page).getByRole('link', { name: 'Reference materials' }).click();

@@ -19,6 +19,8 @@ export interface GridRow {
   cells: Record<string, string>;
   /** Standards, recovery and precision rows: left out of every computation, with the analyst's reason. */
   excluded?: { reason: string; test?: string };
+  /** Standards rows: the saved standard preparation the concentration was taken from. */
+  preparationId?: string;
 }
 
 let lastRowId = 0;

@@ -65,9 +65,10 @@ const list = <T>(value: unknown): T[] => (Array.isArray(value) ? (value as T[]) 
 
 export function dataToDraft(data: Record<string, unknown>): DataDraft {
   const extras = Object.fromEntries(Object.entries(data).filter(([key]) => !MANAGED.has(key)));
-  const standards = list<{ x: number; y: number; id?: string; excluded?: Exclusion }>(data.standards).map((s) =>
-    newRow({ x: text(s.x), y: text(s.y), ...(s.id ? { id: s.id } : {}) }, exclusionOf(s.excluded)),
-  );
+  const standards = list<{ x: number; y: number; id?: string; preparationId?: string; excluded?: Exclusion }>(data.standards).map((s) => ({
+    ...newRow({ x: text(s.x), y: text(s.y), ...(s.id ? { id: s.id } : {}) }, exclusionOf(s.excluded)),
+    ...(s.preparationId ? { preparationId: s.preparationId } : {}),
+  }));
   const unknowns = list<{ id: string; y: number[]; dilution?: number }>(data.unknowns).flatMap((u) =>
     (u.y.length > 0 ? u.y : [NaN]).map((y) => newRow({ id: u.id, y: Number.isNaN(y) ? '' : text(y), dilution: text(u.dilution) })),
   );
@@ -156,6 +157,7 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
       x: num(row.cells.x),
       y: num(row.cells.y),
       ...(row.cells.id ? { id: row.cells.id } : {}),
+      ...(row.preparationId ? { preparationId: row.preparationId } : {}),
       ...exclusionField(row),
     })),
   };

@@ -1,12 +1,17 @@
 import { formatNumber } from '@meritline/shared';
-import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
+import { Badge, Grid, Heading, HStack, Stack, Text } from '@chakra-ui/react';
+import { useQuery } from '@tanstack/react-query';
 import { CalibrationPlot, MODEL_LABELS, type CriterionDefinition } from '@/components/study-results';
+import { preparationChoicesQueries } from '../../api/preparation-choices-queries';
 import type { LiveEvaluation } from '../../hooks/use-live-evaluation';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
+import { isBlankRow, sectionColumns, type GridRow } from '../../utils/grid-sections';
+import { dropRetypedPreparations } from '../../utils/preparation-standards';
 import { usableRows } from '../../utils/study-sheets';
 import { SectionEditor } from '../grid/section-editor';
 import { setSheet, useStandardExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+import { PreparationDialog } from './preparation-dialog';
 
 export interface DataStepProps {
   controller: StudyDraftController;
@@ -23,6 +28,29 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
     const row = usableRows('standards', draft.data.sheets.standards)[index];
     if (row) exclusion.toggle(row.id);
   };
+  const standards = draft.data.sheets.standards;
+  const filledStandards = standards.filter((row) => !isBlankRow(row, sectionColumns('standards', units)));
+  const fromPreparation = standards.some((row) => row.preparationId);
+  const preparations = useQuery({ ...preparationChoicesQueries.list(), enabled: fromPreparation });
+  const preparationName = (id: string) => preparations.data?.find((p) => p.id === id)?.name ?? 'a saved preparation';
+  const standardActions = (row: GridRow) => (
+    <>
+      {row.preparationId && (
+        <Badge
+          size="sm"
+          colorPalette="blue"
+          variant="subtle"
+          maxW="10rem"
+          title={`Concentration taken from the standard preparation ${preparationName(row.preparationId)}`}
+        >
+          <Text as="span" truncate>
+            From {preparationName(row.preparationId)}
+          </Text>
+        </Badge>
+      )}
+      {exclusion.rowActions(row)}
+    </>
+  );
 
   return (
     <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
@@ -35,17 +63,25 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
             One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same
             concentration.
           </Text>
+          <HStack>
+            <PreparationDialog
+              xUnit={units.x}
+              filledRows={filledStandards.length}
+              disabled={!editable}
+              onFill={(rows, mode) => setSheet(controller, 'standards', mode === 'append' ? [...filledStandards, ...rows] : rows)}
+            />
+          </HStack>
           <SectionEditor
             studyId={server.id}
             section="standards"
             sectionName="calibration standards"
             units={units}
             rows={draft.data.sheets.standards}
-            onRowsChange={(rows) => setSheet(controller, 'standards', rows)}
+            onRowsChange={(rows) => setSheet(controller, 'standards', dropRetypedPreparations(standards, rows))}
             readOnly={!editable}
             prepareImport={prepareImport}
             onImported={adopt}
-            rowActions={exclusion.rowActions}
+            rowActions={standardActions}
           />
         </Stack>
         <Stack gap="3">
