@@ -61,7 +61,7 @@ export * from './api/reference-materials.js';
 export * from './api/preparations.js';
 export { routineUncertainty } from './engine/routine-uncertainty.js';
 export type * from './api/runs.js';
-export { QC_SERIES, QC_SERIES_LABELS, IMPORT_MAPPING_FIELDS, IMPORT_MAPPING_LABELS } from './api/runs.js';
+export { QC_SERIES, QC_SERIES_LABELS, IMPORT_MAPPING_FIELDS, IMPORT_MAPPING_LABELS, RUN_MODELS } from './api/runs.js';
 export {
   controlLimits,
   controlSignals,

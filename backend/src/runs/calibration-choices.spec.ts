@@ -1,6 +1,6 @@
+import { type ValidationBasis } from '@meritline/shared';
 import { describe, expect, it } from 'vitest';
 import { modelChoices } from './calibration-choices.js';
-import type { ValidationBasis } from './run-types.js';
 
 const settings = { checkTolerancePct: 10, onePointMaxInterceptPct: 2 };
 

@@ -1,6 +1,14 @@
-import type { DetectionApproach, DetectionResult, EvaluationResult, RunQcWindow } from '@meritline/shared';
+import {
+  type DetectionApproach,
+  type DetectionResult,
+  type EvaluationResult,
+  type RunQcWindow,
+  type ModelChoice,
+  type ValidatedRange,
+  type ValidationBasis,
+} from '@meritline/shared';
 import { formatSignificant } from './report-format.js';
-import type { ModelChoice, RunSettings, ValidatedRange, ValidationBasis } from './run-types.js';
+import type { RunSettings } from './run-types.js';
 
 const STRAIGHT_LINE_MODELS = ['linear', 'linear-through-origin'];
 

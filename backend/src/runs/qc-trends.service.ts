@@ -16,6 +16,7 @@ import {
   type QcTrendPoint,
   type QcTrendsDto,
   type QcTrendSignalDto,
+  type RunResult,
 } from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -27,7 +28,6 @@ import { UsersService } from '../users/users.service.js';
 import { QcBaseline } from './qc-baseline.entity.js';
 import { QcSignalNotice } from './qc-signal-notice.entity.js';
 import { Run } from './run.entity.js';
-import type { RunResult } from './run-types.js';
 
 interface SeriesValue {
   item: string | null;

@@ -1,8 +1,7 @@
-import { ROLE_LABELS, RUN_SIGNATURE_MEANING_LABELS, type Role, type RunSignatureMeaning } from '@meritline/shared';
+import { ROLE_LABELS, RUN_SIGNATURE_MEANING_LABELS, type Role, type RunSignatureMeaning, type RunUnknown } from '@meritline/shared';
 import { colors, createPdfComposer, formatDate, formatDateTime, sizes } from '../reports/pdf/index.js';
 import { decimalsFor, formatSignificant } from './report-format.js';
 import type { RunDto } from './runs.service.js';
-import type { RunUnknown } from './run-types.js';
 
 /** Said on every exported and printed run: the software computes, the laboratory decides. */
 export const RUN_CAUTION =

@@ -12,21 +12,17 @@ import {
   type FieldError,
   type StudyInput,
   type Units,
-} from '@meritline/shared';
-import { formatPct, formatSignificant, formatWithInterval, withUnit } from './report-format.js';
-import {
-  RUN_DATA_KEYS,
   RUN_MODELS,
   type ModelChoice,
   type OnePointBias,
   type RunCheck,
-  type RunEvaluation,
   type RunFlag,
   type RunModel,
-  type RunSettings,
   type RunUnknown,
   type ValidationBasis,
-} from './run-types.js';
+} from '@meritline/shared';
+import { formatPct, formatSignificant, formatWithInterval, withUnit } from './report-format.js';
+import { RUN_DATA_KEYS, type RunEvaluation, type RunSettings } from './run-types.js';
 
 export interface RunContext {
   basis: ValidationBasis;

@@ -1,6 +1,6 @@
+import { type ValidationBasis } from '@meritline/shared';
 import { describe, expect, it } from 'vitest';
 import { limitsText } from './run-sheet.js';
-import type { ValidationBasis } from './run-types.js';
 
 function validation(overrides: Partial<ValidationBasis>): ValidationBasis {
   return {

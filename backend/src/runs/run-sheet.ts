@@ -1,4 +1,4 @@
-import type { DetectionApproach } from '@meritline/shared';
+import { type DetectionApproach, type RunResult, type ValidationBasis } from '@meritline/shared';
 import {
   colors,
   createPdfComposer,
@@ -13,7 +13,6 @@ import {
 import { APPROACH_LABELS } from '../reports/report-figures.js';
 import { RUN_CAUTION } from './results-report.js';
 import type { RunDto } from './runs.service.js';
-import type { RunResult, ValidationBasis } from './run-types.js';
 
 const MODEL_NAMES: Record<string, string> = {
   'one-point': 'One-point (line through the origin)',

@@ -2,7 +2,17 @@ import { ConflictException, Inject, Injectable, NotFoundException } from '@nestj
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { createHash } from 'node:crypto';
 import { DataSource, In, Repository, type FindOptionsWhere } from 'typeorm';
-import { canonicalJson, ENGINE_VERSION, StudyValidationError, type EvaluationResult, type RunStatus } from '@meritline/shared';
+import {
+  canonicalJson,
+  ENGINE_VERSION,
+  StudyValidationError,
+  type EvaluationResult,
+  type RunStatus,
+  type ModelChoice,
+  type RunResult,
+  type ValidatedRange,
+  type ValidationBasis,
+} from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
@@ -24,7 +34,7 @@ import { runCsv, runWorkbook } from './run-export.js';
 import { runSheet } from './run-sheet.js';
 import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
-import type { ModelChoice, RunEvaluation, RunResult, ValidatedRange, ValidationBasis } from './run-types.js';
+import type { RunEvaluation } from './run-types.js';
 
 export interface MethodSummary {
   id: string;

@@ -1,29 +1,23 @@
 import type {
-  CalibrationModel,
-  DetectionApproach,
-  EvaluationResult,
   MethodVersionStatus,
+  ModelChoice,
+  OnePointBias,
   RunBlankInput,
-  RunBlankResult,
+  RunCheck,
+  RunFlag,
+  RunModel,
   RunQcSampleInput,
-  RunQcSampleResult,
-  RunQcWindow,
-  RunResultUncertainty,
+  RunResult,
   RunReviewStatus,
   RunStatus,
-  UncertaintyResult,
-  UnknownResult,
+  RunUnknown,
+  ValidatedRange,
+  ValidationBasis,
   Weighting,
 } from '@meritline/shared';
 
-export type RunModel = 'one-point' | 'two-point' | 'linear' | 'quadratic';
-
-export interface ModelChoice {
-  model: RunModel;
-  allowed: boolean;
-  reason?: string;
-  weighting?: Weighting;
-}
+/** The run calculation's shapes are the server's, from the shared contract. */
+export type { RunModel, ModelChoice, ValidatedRange, ValidationBasis, RunFlag, RunUnknown, RunCheck, OnePointBias, RunResult };
 
 export interface MethodSummary {
   id: string;
@@ -32,31 +26,6 @@ export interface MethodSummary {
   matrix: string;
   xUnit: string;
   yUnit: string;
-}
-
-export interface ValidatedRange {
-  low: number;
-  high: number;
-  basis: 'range' | 'standards';
-}
-
-export interface ValidationBasis {
-  studyId: string;
-  studyTitle: string;
-  approvedAt: string | null;
-  model: CalibrationModel;
-  weighting: Weighting;
-  confidence: number;
-  slope: number;
-  intercept: number;
-  curvature: number | null;
-  lod: number | null;
-  loq: number | null;
-  lodBasis: DetectionApproach | null;
-  loqBasis: DetectionApproach | null;
-  validatedRange: ValidatedRange | null;
-  interceptTest: { intercept: number; p: number; significant: boolean; interceptPctOfTopResponse: number } | null;
-  uncertainty?: Pick<UncertaintyResult, 'coverageFactor' | 'relativeAbove' | 'absolute' | 'relative'> | null;
 }
 
 export interface RunOptions {
@@ -79,45 +48,6 @@ export interface RunOptions {
 
 export interface MethodChoice extends MethodSummary {
   versions: { id: string; number: number; status: MethodVersionStatus; usable: boolean; reason: string | null }[];
-}
-
-export type RunFlag = 'belowLod' | 'belowLoq' | 'aboveTopStandard' | 'outsideValidatedRange';
-
-export interface RunUnknown extends Omit<UnknownResult, 'flags'> {
-  x0Undiluted: number;
-  flags: RunFlag[];
-  reported: string;
-  remarks: string[];
-  suggestedDilution: number | null;
-  reportable: boolean;
-  /** Absent on runs calculated before results carried their uncertainty. */
-  uncertainty?: RunResultUncertainty;
-}
-
-export interface RunCheck {
-  id: string;
-  nominal: number;
-  yMean: number;
-  found: number;
-  recoveryPct: number;
-  pass: boolean;
-}
-
-export interface OnePointBias {
-  referenceLine: { slope: number; intercept: number };
-  interceptAsConcentration: number;
-  items: { id: string; yMean: number; onePoint: number; regression: number; bias: number; biasPct: number | null }[];
-}
-
-export interface RunResult extends Omit<EvaluationResult, 'unknowns' | 'checks'> {
-  unknowns: RunUnknown[];
-  checks: RunCheck[];
-  onePointBias: OnePointBias | null;
-  acceptance: { tolerancePct: number; low: number; high: number };
-  validation: ValidationBasis;
-  blanks?: RunBlankResult[];
-  qcSamples?: RunQcSampleResult[];
-  qcWindow?: RunQcWindow;
 }
 
 export interface RunData {
