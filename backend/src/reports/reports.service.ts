@@ -1,9 +1,8 @@
-import type { ReportVerification } from '@meritline/shared';
+import type { EvaluationResult, ReportVerification, StudyInput } from '@meritline/shared';
 import { ConflictException, Inject, Injectable, Logger, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash, randomUUID } from 'node:crypto';
 import { DataSource, In } from 'typeorm';
-import type { EvaluationResult, StudyInput } from '@meritline/shared';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';

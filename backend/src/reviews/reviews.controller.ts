@@ -1,6 +1,15 @@
 import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
 import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
-import { Role } from '@meritline/shared';
+import {
+  type CommentDto,
+  type HistoryItemDto,
+  type QueueItemDto,
+  type ReviewQueueEntryDto,
+  Role,
+  type SignatureDto,
+  type StudyDiffDto,
+  type TransitionResultDto,
+} from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import type { StudyDto } from '../studies/dto/study.dto.js';
@@ -11,15 +20,6 @@ import { ReviewQueueQueryDto } from './dto/review-queue.query.dto.js';
 import { SignStudyDto } from './dto/sign-study.dto.js';
 import { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
-import type {
-  CommentDto,
-  HistoryItemDto,
-  QueueItemDto,
-  ReviewQueueEntryDto,
-  SignatureDto,
-  StudyDiffDto,
-  TransitionResultDto,
-} from '@meritline/shared';
 import { StudyHistoryService } from './study-history.service.js';
 import { RunReleaseService } from '../runs/run-release.service.js';
 

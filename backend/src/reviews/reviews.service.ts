@@ -1,7 +1,16 @@
 import { ConflictException, ForbiddenException, Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { DataSource, In, Repository, type EntityManager } from 'typeorm';
-import { MIN_JUSTIFICATION_LENGTH, Role, type SignatureMeaning, type StudyStatus } from '@meritline/shared';
+import {
+  MIN_JUSTIFICATION_LENGTH,
+  type QueueItemDto,
+  type ReviewStage,
+  Role,
+  type SignatureDto,
+  type SignatureMeaning,
+  type StudyStatus,
+  type TransitionResultDto,
+} from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -15,7 +24,6 @@ import { ValidationStudy } from '../studies/validation-study.entity.js';
 import type { ReturnStudyDto } from './dto/return-study.dto.js';
 import type { SignStudyDto } from './dto/sign-study.dto.js';
 import { ReviewNoticesService, type ReviewEvent } from './review-notices.service.js';
-import type { QueueItemDto, ReviewStage, SignatureDto, TransitionResultDto } from '@meritline/shared';
 import { contentHash, currentRound, failsCriteria, toSignatureDtos } from './signatures.js';
 import { StudySignature } from './study-signature.entity.js';
 

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
-import { canonicalJson, type StudyStatus } from '@meritline/shared';
+import { canonicalJson, type SignatureDto, type StudyStatus } from '@meritline/shared';
 import type { StudySignature } from './study-signature.entity.js';
-import type { SignatureDto } from '@meritline/shared';
 
 export interface SignedContent {
   data: Record<string, unknown>;

@@ -1,5 +1,4 @@
-import { canonicalJson } from '@meritline/shared';
-import type { FieldChanges, RowChange, SectionDiff, StudyDiffDto } from '@meritline/shared';
+import { canonicalJson, type FieldChanges, type RowChange, type SectionDiff, type StudyDiffDto } from '@meritline/shared';
 
 type Data = Record<string, unknown>;
 

@@ -1,9 +1,8 @@
 import { Injectable } from '@nestjs/common';
-import { describeStudyChange, type FieldChanges, type SignatureMeaning } from '@meritline/shared';
+import { describeStudyChange, type FieldChanges, type HistoryItemDto, type SignatureMeaning, type StudyDiffDto } from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { CommentsService } from './comments.service.js';
 import { ReviewsService } from './reviews.service.js';
-import type { HistoryItemDto, StudyDiffDto } from '@meritline/shared';
 import { toSignatureDtos } from './signatures.js';
 import { diffStudyData, diffStudyMeta } from './study-diff.js';
 

@@ -1,5 +1,10 @@
-import type { FieldError, ImportMappingColumns, ImportMappingField, InstrumentImportData } from '@meritline/shared';
-import { IMPORT_MAPPING_LABELS } from '@meritline/shared';
+import {
+  type FieldError,
+  IMPORT_MAPPING_LABELS,
+  type ImportMappingColumns,
+  type ImportMappingField,
+  type InstrumentImportData,
+} from '@meritline/shared';
 import { MAX_IMPORT_ROWS, type Cell, type ImportTable } from '../studies/import-table.js';
 import { parseNumber } from '../studies/study-import.js';
 

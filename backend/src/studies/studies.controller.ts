@@ -27,7 +27,7 @@ import {
   ApiTags,
   getSchemaPath,
 } from '@nestjs/swagger';
-import { Role } from '@meritline/shared';
+import { IMPORT_SECTIONS, type ImportSection, Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { CreateStudyDto } from './dto/create-study.dto.js';
@@ -37,7 +37,6 @@ import { ImportPreviewDto, StudyDto, StudyPageDto } from './dto/study.dto.js';
 import { ReassignStudyDto } from './dto/reassign-study.dto.js';
 import { UpdateStudyDto } from './dto/update-study.dto.js';
 import { MAX_IMPORT_BYTES } from './import-table.js';
-import { IMPORT_SECTIONS, type ImportSection } from '@meritline/shared';
 import { importTemplate } from './study-import.js';
 import { StudiesService } from './studies.service.js';
 

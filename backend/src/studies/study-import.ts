@@ -1,8 +1,9 @@
-import type { ImportPreviewDto, ImportSection } from '@meritline/shared';
 import {
-  headerAliases,
   type AccuracyItem,
   type FieldError,
+  headerAliases,
+  type ImportPreviewDto,
+  type ImportSection,
   type LowSpikes,
   type PrecisionResult,
   type RecoveryItem,

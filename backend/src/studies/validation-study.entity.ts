@@ -1,6 +1,5 @@
-import type { StudyMeta } from '@meritline/shared';
+import type { StudyMeta, StudyStatus } from '@meritline/shared';
 import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn, VersionColumn } from 'typeorm';
-import type { StudyStatus } from '@meritline/shared';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { User } from '../users/user.entity.js';
 

@@ -1,9 +1,8 @@
 import type { EntityManager } from 'typeorm';
-import type { StudyStatus } from '@meritline/shared';
+import type { StudyMeta, StudyStatus } from '@meritline/shared';
 import { AuditService } from '../../audit/audit.service.js';
 import { MethodVersion } from '../../methods/method-version.entity.js';
 import { evaluateStudyData, withMethodDefaults, type StudyData } from '../../studies/study-evaluation.js';
-import type { StudyMeta } from '@meritline/shared';
 import { ValidationStudy } from '../../studies/validation-study.entity.js';
 import { User } from '../../users/user.entity.js';
 import { daysAgo, DEMO_METHODS } from './demo-methods.seed.js';

@@ -1,5 +1,4 @@
-import type { CalibrationResult, EvaluationResult, UnknownFlag } from '@meritline/shared';
-import { criterionOutcomeLabel } from '@meritline/shared';
+import { type CalibrationResult, criterionOutcomeLabel, type EvaluationResult, type UnknownFlag } from '@meritline/shared';
 import {
   colors,
   formatEstimate,

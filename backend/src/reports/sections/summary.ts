@@ -1,5 +1,4 @@
-import type { CriterionOp, EvaluationResult } from '@meritline/shared';
-import { criterionOutcomeLabel } from '@meritline/shared';
+import { type CriterionOp, criterionOutcomeLabel, type EvaluationResult } from '@meritline/shared';
 import { formatNumber, formatLevel, formatPercent, NOT_AVAILABLE, withUnit, type PdfComposer } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { APPROACH_LABELS, criterionInWords, describeFigure, formatAgainstCriterion } from '../report-figures.js';

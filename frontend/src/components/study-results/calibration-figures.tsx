@@ -1,6 +1,14 @@
-import { formatLevel, formatInterval, formatNumber, formatPercent, pText, withUnit } from '@meritline/shared';
+import {
+  type CalibrationLevel,
+  type EvaluationResult,
+  formatInterval,
+  formatLevel,
+  formatNumber,
+  formatPercent,
+  pText,
+  withUnit,
+} from '@meritline/shared';
 import { Text } from '@chakra-ui/react';
-import type { CalibrationLevel, EvaluationResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';
 import { FiguresTable, type FigureRow } from './figures-table';

@@ -1,5 +1,4 @@
-import { formatLevel } from '@meritline/shared';
-import type { EvaluationResult, StudyInput } from '@meritline/shared';
+import { type EvaluationResult, formatLevel, type StudyInput } from '@meritline/shared';
 import type { Data, Layout } from 'plotly.js-dist-min';
 import { LazyPlot } from './lazy-plot';
 import type { StudyResultsProps, StudyUnits } from './types';

@@ -1,6 +1,5 @@
-import { formatNumber, withUnit } from '@meritline/shared';
+import { type DetectionApproach, type EvaluationResult, formatNumber, withUnit } from '@meritline/shared';
 import { Text } from '@chakra-ui/react';
-import type { DetectionApproach, EvaluationResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
 import { criteriaUnder, type JudgedCriterion } from './judge-criteria';

@@ -1,6 +1,5 @@
-import { formatNumber } from '@meritline/shared';
+import { type EvaluationResult, formatNumber, type OutlierFlag } from '@meritline/shared';
 import { HStack, Text } from '@chakra-ui/react';
-import type { EvaluationResult, OutlierFlag } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { FailsIcon, MeetsIcon } from './icons';
 

@@ -1,5 +1,4 @@
-import { formatNumber, formatPValue, formatPercent, withUnit } from '@meritline/shared';
-import type { EvaluationResult, PrecisionSeries } from '@meritline/shared';
+import { type EvaluationResult, formatNumber, formatPercent, formatPValue, type PrecisionSeries, withUnit } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { FiguresTable, type FigureRow } from './figures-table';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';

@@ -1,6 +1,13 @@
-import { formatInterval, formatNumber, formatPercent, pText } from '@meritline/shared';
+import {
+  type EvaluationResult,
+  formatInterval,
+  formatNumber,
+  formatPercent,
+  pText,
+  type RecoveryGroup,
+  type RecoveryItemResult,
+} from '@meritline/shared';
 import { Text } from '@chakra-ui/react';
-import type { EvaluationResult, RecoveryGroup, RecoveryItemResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';

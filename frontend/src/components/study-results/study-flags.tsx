@@ -1,6 +1,5 @@
-import { formatNumber, pText, withUnit } from '@meritline/shared';
+import { type EvaluationResult, formatNumber, pText, type UnknownFlag, withUnit } from '@meritline/shared';
 import { Alert, Stack } from '@chakra-ui/react';
-import type { EvaluationResult, UnknownFlag } from '@meritline/shared';
 import { WEIGHTING_LABELS } from './format';
 import { OUTLIER_TESTS } from './outliers-table';
 import type { StudyResultsProps } from './types';

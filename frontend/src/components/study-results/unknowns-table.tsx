@@ -1,5 +1,4 @@
-import { formatInterval, formatNumber } from '@meritline/shared';
-import type { EvaluationResult, UnknownFlag, UnknownResult } from '@meritline/shared';
+import { type EvaluationResult, formatInterval, formatNumber, type UnknownFlag, type UnknownResult } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 
 const FLAG_WORDS: Record<UnknownFlag, string> = {

@@ -1,6 +1,5 @@
-import { formatNumber, formatPercent, withUnit } from '@meritline/shared';
+import { type EvaluationResult, formatNumber, formatPercent, type RangeLevel, withUnit } from '@meritline/shared';
 import { Stack, Text } from '@chakra-ui/react';
-import type { EvaluationResult, RangeLevel } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionMark } from './criterion-mark';

@@ -1,6 +1,5 @@
-import { formatDateTime } from '@meritline/shared';
+import { type AuditTrailEntryDto, formatDateTime } from '@meritline/shared';
 import { Box, Stack, Text } from '@chakra-ui/react';
-import type { AuditTrailEntryDto } from '@meritline/shared';
 import { dataTableColumns } from '@/components/data-table';
 
 const column = dataTableColumns<AuditTrailEntryDto>();

@@ -1,6 +1,5 @@
-import { formatDateTime } from '@meritline/shared';
+import { type AuditReviewDto, type CreateAuditReviewRequest, formatDateTime } from '@meritline/shared';
 import { Box, Stack, Text } from '@chakra-ui/react';
-import type { AuditReviewDto, CreateAuditReviewRequest } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { SignatureDialog } from '@/components/signature-dialog';
 import { toaster } from '@/components/ui/toaster';

@@ -1,6 +1,5 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, type OutboxMessageDto } from '@meritline/shared';
 import { Box, Button, Grid, Heading, HStack, Link, Stack, Text } from '@chakra-ui/react';
-import type { OutboxMessageDto } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { Fragment } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';

@@ -1,6 +1,5 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, type QualificationRunDto } from '@meritline/shared';
 import { Badge, Button, Stack, Text } from '@chakra-ui/react';
-import type { QualificationRunDto } from '@meritline/shared';
 import { useState } from 'react';
 import { dataTableColumns } from '@/components/data-table';
 import { toaster } from '@/components/ui/toaster';

@@ -1,5 +1,4 @@
-import { formatDateTime } from '@meritline/shared';
-import type { ReportVerification } from '@meritline/shared';
+import { formatDateTime, type ReportVerification } from '@meritline/shared';
 import { Alert, Code, DataList, Stack, Text } from '@chakra-ui/react';
 
 type Valid = Extract<ReportVerification, { valid: true }>;

@@ -1,14 +1,14 @@
-import type {
-  EvaluationResult,
-  FieldError,
-  MethodVersionSettings,
-  SignatureMeaning,
-  StudyInput,
-  StudySection,
-  StudyStatus,
-  TransitionResultDto,
+import {
+  type EvaluationResult,
+  type FieldError,
+  type MethodVersionSettings,
+  type SignatureMeaning,
+  STUDY_STATUS_LABELS,
+  type StudyInput,
+  type StudySection,
+  type StudyStatus,
+  type TransitionResultDto,
 } from '@meritline/shared';
-import { STUDY_STATUS_LABELS } from '@meritline/shared';
 import type { CriterionDefinition } from '@/components/study-results';
 
 /** The study as GET /studies/:id gives it: only what the read-only view uses. */

@@ -1,6 +1,5 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, type StudySection } from '@meritline/shared';
 import { Badge, Box, Button, Heading, HStack, NativeSelect, Stack, Text, Textarea } from '@chakra-ui/react';
-import type { StudySection } from '@meritline/shared';
 import { useState } from 'react';
 import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';

@@ -1,6 +1,5 @@
-import { blankValue, formatLevel, formatNumber } from '@meritline/shared';
+import { blankValue, formatLevel, formatNumber, type StudyInput } from '@meritline/shared';
 import { Heading, Stack, Text } from '@chakra-ui/react';
-import type { StudyInput } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { MODEL_LABELS, WEIGHTING_LABELS } from '@/components/study-results';

@@ -1,6 +1,5 @@
-import { formatNumber } from '@meritline/shared';
+import { formatNumber, type RunBlankResult, type RunQcSampleResult, type RunQcWindow } from '@meritline/shared';
 import { Badge, Stack, Text } from '@chakra-ui/react';
-import type { RunBlankResult, RunQcSampleResult, RunQcWindow } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { headerWithUnit } from './column-header';

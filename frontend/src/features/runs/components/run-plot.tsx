@@ -1,5 +1,4 @@
-import { formatNumber } from '@meritline/shared';
-import type { EvaluationResult, StudyInput } from '@meritline/shared';
+import { type EvaluationResult, formatNumber, type StudyInput } from '@meritline/shared';
 import type { Data } from 'plotly.js-dist-min';
 import { calibrationFigure } from '@/components/study-results';
 import { PLOT_COLOURS } from '@/components/study-results/calibration-plot';

@@ -1,5 +1,4 @@
-import { formatNumber } from '@meritline/shared';
-import type { QcTrendsDto } from '@meritline/shared';
+import { formatNumber, type QcTrendsDto } from '@meritline/shared';
 import type { Data, Shape } from 'plotly.js-dist-min';
 import { LazyPlot } from '@/components/study-results/lazy-plot';
 

@@ -1,6 +1,5 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, RunReviewStatus } from '@meritline/shared';
 import { Button, HStack, Menu, Portal, Stack, Text } from '@chakra-ui/react';
-import { RunReviewStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link as RouterLink, useParams } from 'react-router';

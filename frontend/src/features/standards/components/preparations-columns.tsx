@@ -1,6 +1,5 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, type PreparationDto } from '@meritline/shared';
 import { Stack, Text } from '@chakra-ui/react';
-import type { PreparationDto } from '@meritline/shared';
 import { dataTableColumns } from '@/components/data-table';
 import { concentrationWords } from './concentration-words';
 

@@ -1,8 +1,7 @@
-import type { StudyDto } from '@meritline/shared';
+import { type StudyDto, withVersionOptions } from '@meritline/shared';
 import { Alert, Button, Field, HStack, Input, Link, Stack } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useEffect, useMemo } from 'react';
-import { withVersionOptions } from '@meritline/shared';
 import { Link as RouterLink, useParams, useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';

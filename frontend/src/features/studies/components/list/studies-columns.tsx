@@ -1,5 +1,4 @@
-import { formatDateTime, formatDate } from '@meritline/shared';
-import type { StudySort, StudySummaryDto } from '@meritline/shared';
+import { formatDate, formatDateTime, type StudySort, type StudySummaryDto } from '@meritline/shared';
 import { Button, chakra, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
