@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { mainNavigation, signIn } from './support';
+import { DEMO_ACCOUNTS, mainNavigation, signIn, signOut } from './support';
 
 // Plotly is a large chunk loaded on first use: allow it time on a busy machine.
 const PLOT_TIMEOUT = { timeout: 45_000 };
@@ -55,5 +55,30 @@ test('the study results, a run and the control chart draw their plots without as
   await page.getByRole('link', { name: 'control charts of this version' }).click();
   await expectPlotStaysInside(page, /^Calibration slope control chart/);
 
+  expect(outside).toEqual([]);
+});
+
+test("every page of every role's navigation loads and links without reaching an outside host", async ({ page, baseURL }) => {
+  const origin = new URL(baseURL!).origin;
+  const outside = watchOutsideRequests(page, origin);
+  const outsideLinks: string[] = [];
+
+  for (const account of DEMO_ACCOUNTS) {
+    await signIn(page, account.email);
+    for (const entry of account.entries) {
+      await mainNavigation(page).getByRole('link', { name: entry, exact: true }).click();
+      await expect(page.getByRole('main')).toBeVisible();
+      await page.waitForLoadState('networkidle');
+      const hrefs = await page
+        .locator('a[href], link[href], [src]')
+        .evaluateAll((nodes) => nodes.map((node) => (node as HTMLAnchorElement).href || (node as HTMLImageElement).src).filter(Boolean));
+      outsideLinks.push(
+        ...hrefs.filter((href) => /^https?:/.test(href) && new URL(href).origin !== origin).map((href) => `${entry}: ${href}`),
+      );
+    }
+    await signOut(page);
+  }
+
+  expect(outsideLinks).toEqual([]);
   expect(outside).toEqual([]);
 });
