@@ -39,7 +39,7 @@ export class OverviewService {
     }));
   }
 
-  /** The signals as they were e-mailed: the notice's own sentence, the third line of its text. */
+  /** The signals as they were e-mailed, in the notice's own sentence. */
   private async driftSignals(): Promise<OverviewDto['driftSignals']> {
     const since = new Date(Date.now() - 30 * 24 * 3600 * 1000);
     const notices = await this.dataSource.getRepository(QcSignalNotice).find({
@@ -61,7 +61,7 @@ export class OverviewService {
           methodName: version.method.name,
           versionNumber: version.number,
           series: notice.series,
-          message: notice.body.split('\n')[2] ?? notice.subject,
+          message: notice.message ?? notice.subject,
           at: notice.sentAt.toISOString(),
         },
       ];

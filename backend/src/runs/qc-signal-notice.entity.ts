@@ -28,6 +28,10 @@ export class QcSignalNotice {
   @Column({ type: 'text' })
   body: string;
 
+  /** The signal in one sentence, as the e-mail said it (empty on notices sent before it was kept apart). */
+  @Column({ type: 'varchar', length: 500, nullable: true })
+  message: string | null;
+
   @Column({ name: 'sent_at', type: Date })
   sentAt: Date;
 }

@@ -203,6 +203,7 @@ export class QcTrendsService {
             recipients: managers.map((m) => m.email),
             subject,
             body: text,
+            message: signal.message.slice(0, 500),
             sentAt: new Date(),
           }),
         );
