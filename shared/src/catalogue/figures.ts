@@ -79,22 +79,22 @@ export const FIGURES: readonly FigureEntry[] = [
   { key: 'uncertainty.relative.UPct', label: 'Expanded uncertainty U, relative (largest level)', unit: 'percent', section: UNCERTAINTY },
   {
     key: 'uncertainty.relative.ucPct',
-    label: 'Combined standard uncertainty u_c, relative (largest level)',
+    label: 'Combined standard uncertainty uc, relative (largest level)',
     unit: 'percent',
     section: UNCERTAINTY,
   },
   { key: 'uncertainty.absolute.U', label: 'Expanded uncertainty U, absolute (largest level)', unit: 'x', section: UNCERTAINTY },
-  { key: 'uncertainty.absolute.uc', label: 'Combined standard uncertainty u_c, absolute (largest level)', unit: 'x', section: UNCERTAINTY },
+  { key: 'uncertainty.absolute.uc', label: 'Combined standard uncertainty uc, absolute (largest level)', unit: 'x', section: UNCERTAINTY },
 ];
 
 /** Per-level figures: the key's last part → its words and unit. */
 const UNCERTAINTY_LEVEL_FIGURES: Record<string, [string, FigureUnitKind]> = {
-  uRw: ['Within-laboratory reproducibility u(R_w)', 'x'],
-  uRwPct: ['Within-laboratory reproducibility u(R_w), relative', 'percent'],
+  uRw: ['Within-laboratory reproducibility u(Rw)', 'x'],
+  uRwPct: ['Within-laboratory reproducibility u(Rw), relative', 'percent'],
   uBias: ['Uncertainty of the bias u(bias)', 'x'],
   uBiasPct: ['Uncertainty of the bias u(bias), relative', 'percent'],
-  uc: ['Combined standard uncertainty u_c', 'x'],
-  ucPct: ['Combined standard uncertainty u_c, relative', 'percent'],
+  uc: ['Combined standard uncertainty uc', 'x'],
+  ucPct: ['Combined standard uncertainty uc, relative', 'percent'],
   U: ['Expanded uncertainty U', 'x'],
   UPct: ['Expanded uncertainty U, relative', 'percent'],
 };

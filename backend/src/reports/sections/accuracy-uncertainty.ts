@@ -173,15 +173,15 @@ function uncertainty(pdf: PdfComposer, content: ReportContent, result: Evaluatio
       { header: 'Level', width: 0.8 },
       { header: `Concentration (${x})`, width: 1.1, align: 'right' },
       { header: 'Stated', width: 0.8 },
-      { header: 'u(R_w)', align: 'right' },
+      { header: 'u(Rw)', align: 'right' },
       { header: 'u(bias)', align: 'right' },
-      { header: 'u_c', align: 'right' },
+      { header: 'uc', align: 'right' },
       { header: 'U', align: 'right' },
     ],
     rows,
     note:
-      'u(R_w): within-laboratory reproducibility (intermediate precision); u(bias): root mean square of the biases combined with the uncertainty of the reference values; ' +
-      `u_c = √(u(R_w)² + u(bias)²); U = k·u_c (Nordtest TR 537).${u.relativeAbove !== null ? ` Stated in ${x} below ${withUnit(formatNumber(u.relativeAbove, 4), x)}, relative from it on.` : ''}`,
+      'u(Rw): within-laboratory reproducibility (intermediate precision); u(bias): root mean square of the biases combined with the uncertainty of the reference values; ' +
+      `uc = √(u(Rw)² + u(bias)²); U = k·uc (Nordtest TR 537).${u.relativeAbove !== null ? ` Stated in ${x} below ${withUnit(formatNumber(u.relativeAbove, 4), x)}, relative from it on.` : ''}`,
   });
   const samples = (result.unknowns ?? []).filter((s) => s.sX0 !== null);
   if (samples.length) {

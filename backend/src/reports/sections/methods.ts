@@ -9,7 +9,7 @@ const FORMULAS: [topic: string, lines: string[]][] = [
     'Calibration (least squares; ISO 8466-1)',
     [
       'Slope b = Sxy / Sxx and intercept a = ym - b xm, where xm, ym are the means, Sxx = sum of (x - xm)², Sxy = sum of (x - xm)(y - ym); sums on centred data.',
-      'Residual SD s(y/x) = sqrt(sum of e² / (n - 2)); standard errors s_b = s(y/x) / sqrt(Sxx) and s_a = s(y/x) sqrt(sum of x² / (n Sxx)).',
+      'Residual SD s(y/x) = sqrt(sum of e² / (n - 2)); standard errors s(b) = s(y/x) / sqrt(Sxx) and s(a) = s(y/x) sqrt(sum of x² / (n Sxx)).',
       'Intervals: estimate ± t((1 + C)/2; df) × standard error, with C the confidence level of the study.',
       'Weighted fits: weights 1/x or 1/x², scaled to sum to n, in every sum above. Quadratic fits: y = a + b x + c x² by least squares, df = n - 3.',
       'Bands at x: confidence half-width t s(y/x) sqrt(1/n + (x - xm)²/Sxx); prediction half-width (one new reading) t s(y/x) sqrt(1 + 1/n + (x - xm)²/Sxx).',
@@ -19,9 +19,9 @@ const FORMULAS: [topic: string, lines: string[]][] = [
   [
     'Linearity and weighting',
     [
-      'Lack of fit: F = (SS_lof / df_lof) / (SS_pe / df_pe), with pure error from the replicates at each level (Draper and Smith).',
+      'Lack of fit: F = (SS(lof) / df(lof)) / (SS(pe) / df(pe)), with pure error from the replicates at each level (Draper and Smith).',
       "Mandel's test: F = ((n - 2) s1² - (n - 3) s2²) / s2² with 1 and n - 3 degrees of freedom, decision at 99 % (ISO 8466-1; DIN 38402-51).",
-      'Intercept: t = a / s_a with n - 2 degrees of freedom. Variance check: F = s²(highest level) / s²(lowest level), one-sided at 99 %; the weighting with the smallest sum of |%RE| is recommended (common practice).',
+      'Intercept: t = a / s(a) with n - 2 degrees of freedom. Variance check: F = s²(highest level) / s²(lowest level), one-sided at 99 %; the weighting with the smallest sum of |%RE| is recommended (common practice).',
     ],
   ],
   [
@@ -29,25 +29,25 @@ const FORMULAS: [topic: string, lines: string[]][] = [
     [
       'ICH Q2(R2): LOD = 3.3 σ / b and LOQ = 10 σ / b, with σ the residual SD, the SD of the intercept or the SD of blank responses.',
       'Blank responses: mean + 3 SD and mean + 10 SD (IUPAC; common practice), converted with (response - a) / b.',
-      'ISO 11843-2 (K readings): critical value x_c = t(1 - α; n - 2) (s(y/x) / b) q and minimum detectable value x_d = δ (s(y/x) / b) q, q = sqrt(1/K + 1/n + xm²/Sxx), δ from the non-central t distribution with β = α.',
-      'Hubaux and Vos: the critical response y_C = a + t(1 - α; n - 2) s(y/x) q; x_D where the lower prediction limit reaches y_C.',
-      '40 CFR 136 App. B (Rev. 2): MDL_s = t(0.99; n_s - 1) S_s from spiked samples; MDL_b from method blanks; MDL = the larger.',
+      'ISO 11843-2 (K readings): critical value x(c) = t(1 - α; n - 2) (s(y/x) / b) q and minimum detectable value x(d) = δ (s(y/x) / b) q, q = sqrt(1/K + 1/n + xm²/Sxx), δ from the non-central t distribution with β = α.',
+      'Hubaux and Vos: the critical response y(C) = a + t(1 - α; n - 2) s(y/x) q; x(D) where the lower prediction limit reaches y(C).',
+      '40 CFR 136 App. B (Rev. 2): MDL(s) = t(0.99; n(s) - 1) S(s) from spiked samples; MDL(b) from method blanks; MDL = the larger.',
     ],
   ],
   [
     'Recovery and precision (ISO 5725-2)',
     [
       'Recovery % = 100 (found - native) / added; t = (mean - 100) / (SD / sqrt(n)), two-sided.',
-      'One-way ANOVA over the series: s_r = sqrt(MS_within); s_L = sqrt(max(0, (MS_between - MS_within) / n0)); s_I = sqrt(s_r² + s_L²); RSDs relative to the grand mean.',
-      'Horwitz: PRSD_R = 2^(1 - 0.5 log10 C) with C the mass fraction (AOAC writes the same curve as 2 C^-0.15); HorRat = RSD_I / PRSD_R.',
+      'One-way ANOVA over the series: s(r) = sqrt(MS(within)); s(L) = sqrt(max(0, (MS(between) - MS(within)) / n0)); s(I) = sqrt(s(r)² + s(L)²); RSDs relative to the grand mean.',
+      'Horwitz: PRSD(R) = 2^(1 - 0.5 log10 C) with C the mass fraction (AOAC writes the same curve as 2 C^-0.15); HorRat = RSD(I) / PRSD(R).',
     ],
   ],
   [
     'Accuracy profile, trueness and measurement uncertainty',
     [
-      'Accuracy profile (total error): per level, a one-way random model over the series; β-expectation tolerance interval mean ± k s_I with k = t((1 + β)/2; ν) sqrt(1 + 1/(I J B²)), B = sqrt((R + 1)/(J R + 1)), R = s²_between / s²_r and Satterthwaite ν (Mee 1984). Limits as % of the nominal value; the validity domain is where both stay inside ±λ, its ends read off a straight line between levels.',
+      'Accuracy profile (total error): per level, a one-way random model over the series; β-expectation tolerance interval mean ± k s(I) with k = t((1 + β)/2; ν) sqrt(1 + 1/(I J B²)), B = sqrt((R + 1)/(J R + 1)), R = s²(between) / s²(r) and Satterthwaite ν (Mee 1984). Limits as % of the nominal value; the validity domain is where both stay inside ±λ, its ends read off a straight line between levels.',
       'Trueness against a reference material: difference = mean - certified; U = 2 sqrt(s²/n + u(certified)²); a difference larger than U shows a bias (common practice).',
-      'Top-down uncertainty: u(R_w) = s_I at each level; u(bias) = sqrt(RMS of the biases² + u(reference)²); u_c = sqrt(u(R_w)² + u(bias)²); U = k u_c (Nordtest TR 537).',
+      'Top-down uncertainty: u(Rw) = s(I) at each level; u(bias) = sqrt(RMS of the biases² + u(reference)²); uc = sqrt(u(Rw)² + u(bias)²); U = k uc (Nordtest TR 537).',
     ],
   ],
   [

@@ -36,7 +36,7 @@ function uncertaintyColumns(units: StudyUnits, k: number) {
     }),
     level.display({
       id: 'uRw',
-      header: 'u(R_w)',
+      header: 'u(Rw)',
       meta: { align: 'end' },
       cell: (info) => stated(info.row.original, info.row.original.uRw, info.row.original.uRwPct, units.x),
     }),
@@ -48,7 +48,7 @@ function uncertaintyColumns(units: StudyUnits, k: number) {
     }),
     level.display({
       id: 'uc',
-      header: 'u_c',
+      header: 'uc',
       meta: { align: 'end' },
       cell: (info) => stated(info.row.original, info.row.original.uc, info.row.original.ucPct, units.x),
     }),
@@ -92,7 +92,7 @@ function calibrationColumns(units: StudyUnits) {
   ]);
 }
 
-/** Top-down uncertainty by level (u(R_w), u(bias), u_c, U), with the calibration's own u(x₀) beside it for comparison. */
+/** Top-down uncertainty by level (u(Rw), u(bias), uc, U), with the calibration's own u(x₀) beside it for comparison. */
 export function UncertaintyTables({
   result,
   units,
@@ -112,7 +112,7 @@ export function UncertaintyTables({
       id: 'relative',
       label: figureLabel('uncertainty.relative.UPct'),
       value: formatPercent(u.relative.UPct, 3),
-      detail: `u_c = ${formatPercent(u.relative.ucPct, 3)}${u.relative.from !== null ? `; stated relative from ${withUnit(formatNumber(u.relative.from, 4), units.x)}` : ''}`,
+      detail: `uc = ${formatPercent(u.relative.ucPct, 3)}${u.relative.from !== null ? `; stated relative from ${withUnit(formatNumber(u.relative.from, 4), units.x)}` : ''}`,
       criteria: criteriaForFigure(judged, 'uncertainty.relative.UPct'),
     });
   if (u.absolute)
@@ -120,7 +120,7 @@ export function UncertaintyTables({
       id: 'absolute',
       label: figureLabel('uncertainty.absolute.U'),
       value: withUnit(formatNumber(u.absolute.U, 3), units.x),
-      detail: `u_c = ${withUnit(formatNumber(u.absolute.uc, 3), units.x)}${u.absolute.below !== null ? `; stated absolute below ${withUnit(formatNumber(u.absolute.below, 4), units.x)}` : ''}`,
+      detail: `uc = ${withUnit(formatNumber(u.absolute.uc, 3), units.x)}${u.absolute.below !== null ? `; stated absolute below ${withUnit(formatNumber(u.absolute.below, 4), units.x)}` : ''}`,
       criteria: criteriaForFigure(judged, 'uncertainty.absolute.U'),
     });
   const perLevel = criteriaUnder(judged, 'uncertainty.byLevel');
@@ -131,8 +131,8 @@ export function UncertaintyTables({
     <Stack gap="4">
       <DataTable label="Measurement uncertainty by level" columns={columns} data={u.byLevel} getRowId={(row) => row.level} />
       <Text fontSize="sm" color="fg.muted">
-        u(R_w) is the within-laboratory reproducibility (intermediate precision), u(bias) the uncertainty of the bias, u_c = √(u(R_w)² +
-        u(bias)²) the combined standard uncertainty and U = k·u_c the expanded uncertainty (Nordtest TR 537 approach).
+        u(Rw) is the within-laboratory reproducibility (intermediate precision), u(bias) the uncertainty of the bias, uc = √(u(Rw)² +
+        u(bias)²) the combined standard uncertainty and U = k·uc the expanded uncertainty (Nordtest TR 537 approach).
       </Text>
       <FiguresTable label="Measurement uncertainty, largest values" rows={summary} />
       <Stack gap="2">

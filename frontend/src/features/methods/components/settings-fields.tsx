@@ -59,7 +59,7 @@ export function SettingsFields() {
         name="settings.coverageFactor"
         label="Coverage factor k of the expanded uncertainty"
         type="number"
-        helperText="U = k · u_c; 2 gives about 95 % coverage."
+        helperText="U = k · uc; 2 gives about 95 % coverage."
       />
     </SimpleGrid>
   );

@@ -134,7 +134,7 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
               name="coverageFactor"
               label="Coverage factor k"
               placeholder={`${formatNumber(versionK, 3)} (method version’s)`}
-              helper="U = k · u_c; k = 2 gives about 95 % coverage."
+              helper="U = k · uc; k = 2 gives about 95 % coverage."
               {...fieldProps}
             />
             <OptionField
