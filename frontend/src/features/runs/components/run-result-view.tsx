@@ -133,7 +133,7 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
         <ChecksTable checks={result.checks} xUnit={units.x} yUnit={units.y} />
       </Section>
 
-      {(result.blanks?.length || result.qcSamples?.length) && (
+      {(result.blanks?.length ?? 0) + (result.qcSamples?.length ?? 0) > 0 && (
         <Section title="Method blanks and QC samples">
           <ControlsTables blanks={result.blanks ?? []} qcSamples={result.qcSamples ?? []} window={result.qcWindow} xUnit={units.x} />
         </Section>
