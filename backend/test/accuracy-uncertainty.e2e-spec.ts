@@ -5,6 +5,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { formatNumber, formatPercent } from '../src/reports/pdf/index.js';
+import { binary } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 /* eslint-disable @typescript-eslint/no-explicit-any -- reference files and API bodies are plain JSON */
@@ -222,17 +223,7 @@ describe('accuracy profile, trueness and measurement uncertainty through the API
         .expect(200)
     ).body;
     const { accuracyProfile, uncertainty, trueness } = seeded.result;
-    const res = await t
-      .http()
-      .get(`/api/studies/${seeded.id}/report`)
-      .set(headers)
-      .buffer(true)
-      .parse((response, done) => {
-        const chunks: Buffer[] = [];
-        response.on('data', (chunk: Buffer) => chunks.push(chunk));
-        response.on('end', () => done(null, Buffer.concat(chunks)));
-      })
-      .expect(200);
+    const res = await t.http().get(`/api/studies/${seeded.id}/report`).set(headers).buffer(true).parse(binary).expect(200);
     const file = join(scratch, 'accuracy-draft.pdf');
     writeFileSync(file, res.body as Buffer);
     const text = pdftotext(file);

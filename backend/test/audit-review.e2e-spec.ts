@@ -1,31 +1,15 @@
-import { spawnSync, execFileSync } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { execFileSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { AuditTrailEntryDto, AuditTrailPageDto } from '@meritline/shared';
 import { bearer, createStudy, userId } from './support/review-fixtures.js';
+import { binary, pdfsig, scratchFolder } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
-type BodyParser = Parameters<ReturnType<ReturnType<TestApp['http']>['get']>['parse']>[0];
-const binary: BodyParser = (res, done) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
-const scratch = mkdtempSync(join(tmpdir(), 'meritline-audit-review-'));
-const saved = (name: string, bytes: Buffer) => {
-  const file = join(scratch, name);
-  writeFileSync(file, bytes);
-  return file;
-};
-/** pdfsig exits 0 for valid and broken signatures alike, so its words are what count. */
-const pdfsig = (file: string) => {
-  const run = spawnSync('pdfsig', [file], { encoding: 'utf8' });
-  return `${run.stdout}${run.stderr}`;
-};
+const scratch = scratchFolder('meritline-audit-review-');
+const saved = scratch.saved;
 const pdftotext = (file: string) => execFileSync('pdftotext', [file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
-afterAll(() => rmSync(scratch, { recursive: true, force: true }));
+afterAll(scratch.remove);
 
 const FORMULA_COMMENT = '=HYPERLINK("http://example.invalid","check the blanks")';
 

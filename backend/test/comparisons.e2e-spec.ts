@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { listMethods, signedIn } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 type BodyParser = Parameters<ReturnType<ReturnType<TestApp['http']>['get']>['parse']>[0];
@@ -36,7 +37,6 @@ describe('comparing method versions', () => {
   let t: TestApp;
   let caffeine: MethodBody;
   let nitrate: MethodBody;
-  const auth = async (email: string) => ({ Authorization: `Bearer ${await t.tokenFor(email)}` });
   const version = (method: MethodBody, number: number) => method.versions.find((v) => v.number === number) as Version;
   /** The answer to a comparison request; its status is checked by the caller. */
   const compare = async (query: Row, email: string = DEMO.quality, status = 200) => {
@@ -44,20 +44,14 @@ describe('comparing method versions', () => {
       .http()
       .get('/api/method-versions/compare')
       .query(query)
-      .set(await auth(email));
+      .set(await signedIn(t, email));
     expect(res.status, JSON.stringify(res.body).slice(0, 400)).toBe(status);
     return res;
   };
 
   beforeAll(async () => {
     t = await createTestApp();
-    const methods = (
-      await t
-        .http()
-        .get('/api/methods')
-        .set(await auth(DEMO.quality))
-        .expect(200)
-    ).body as MethodBody[];
+    const methods = await listMethods<MethodBody>(t, DEMO.quality);
     caffeine = methods.find((m) => m.name === CAFFEINE) as MethodBody;
     nitrate = methods.find((m) => m.name === NITRATE) as MethodBody;
   });
@@ -105,7 +99,7 @@ describe('comparing method versions', () => {
       const created = await t
         .http()
         .post(`/api/methods/${caffeine.id}/versions`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({
           changeSummary: 'Proposal: a shorter column for faster runs.',
           changeKind: 'column-or-consumable',
@@ -158,7 +152,7 @@ describe('comparing method versions', () => {
       const res = await t
         .http()
         .get(`/api/methods/${caffeine.id}/trend`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(200);
       expect(res.body.method.name).toBe(CAFFEINE);
       const [v1, v2, v3] = res.body.points as Row[];
@@ -175,17 +169,17 @@ describe('comparing method versions', () => {
       await t
         .http()
         .get(`/api/methods/${caffeine.id}/trend`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(403);
       const malformed = await t
         .http()
         .get('/api/methods/not-an-id/trend')
-        .set(await auth(DEMO.quality));
+        .set(await signedIn(t, DEMO.quality));
       expect([400, 422]).toContain(malformed.status);
       await t
         .http()
         .get(`/api/methods/${UNKNOWN_ID}/trend`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .expect(404);
     });
   });
@@ -195,7 +189,7 @@ describe('comparing method versions', () => {
       t
         .http()
         .post(`/api/method-versions/${versionId}/assessment`)
-        .set(await auth(email))
+        .set(await signedIn(t, email))
         .send(body)
         .buffer(true)
         .parse(binary);
@@ -204,7 +198,7 @@ describe('comparing method versions', () => {
         await t
           .http()
           .get(`/api/method-versions/${versionId}`)
-          .set(await auth(DEMO.quality))
+          .set(await signedIn(t, DEMO.quality))
       ).body.lockVersion as number;
 
     it('signs the assessment of version 3 against version 2: a PDF pdfsig accepts, stored and verifiable', async () => {
@@ -248,7 +242,7 @@ describe('comparing method versions', () => {
         .http()
         .get('/api/audit')
         .query({ record: `method-version:${v3}` })
-        .set(await auth(DEMO.quality));
+        .set(await signedIn(t, DEMO.quality));
       expect(trail.body.items.map((e: Row) => e.action)).toContain('signature.change-assessed');
     });
 

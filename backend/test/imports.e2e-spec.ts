@@ -1,12 +1,8 @@
 import ExcelJS from 'exceljs';
 import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { listMethods, readRows, signedIn } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
-
-type Row = Record<string, unknown>;
-type Database = { prepare(sql: string): { all(...params: unknown[]): Row[] }; close(): void };
-const Sqlite = createRequire(import.meta.url)('better-sqlite3') as new (path: string, options: { readonly: boolean }) => Database;
 
 const fixture = (name: string) => readFileSync(new URL(`./fixtures/${name}`, import.meta.url));
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -22,15 +18,7 @@ describe('importing CSV and XLSX files into a study', () => {
   let t: TestApp;
   let studyId: string;
   let dyeVersionId: string;
-  const auth = async (email: string) => ({ Authorization: `Bearer ${await t.tokenFor(email)}` });
-  const rows = (sql: string, ...params: unknown[]) => {
-    const db = new Sqlite(t.databasePath, { readonly: true });
-    try {
-      return db.prepare(sql).all(...params);
-    } finally {
-      db.close();
-    }
-  };
+  const rows = (sql: string, ...params: unknown[]) => readRows(t, sql, ...params);
   const stored = (id: string) => rows('SELECT data, data_hash, lock_version FROM validation_studies WHERE id = ?', id)[0];
   const lockOf = (id: string) => stored(id).lock_version as number;
   const upload = async (
@@ -43,7 +31,7 @@ describe('importing CSV and XLSX files into a study', () => {
     const request = t
       .http()
       .post(`/api/studies/${id}/imports`)
-      .set(await auth(email))
+      .set(await signedIn(t, email))
       .attach('file', file, filename);
     for (const [key, value] of Object.entries(fields)) request.field(key, String(value));
     return request;
@@ -51,18 +39,13 @@ describe('importing CSV and XLSX files into a study', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    const methods = (
-      await t
-        .http()
-        .get('/api/methods')
-        .set(await auth(DEMO.analyst))
-    ).body;
-    dyeVersionId = methods.find((m: Row) => m.analyte === 'Tartrazine').versions[0].id;
+    const methods = await listMethods(t, DEMO.analyst);
+    dyeVersionId = methods.find((m) => m.analyte === 'Tartrazine')!.versions[0].id;
     studyId = (
       await t
         .http()
         .post('/api/studies')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send({ methodVersionId: dyeVersionId, title: 'Import target', data: BASE_DATA })
         .expect(201)
     ).body.id;
@@ -188,7 +171,7 @@ describe('importing CSV and XLSX files into a study', () => {
   });
 
   it('should answer bad form fields with 422: no file, an unknown section, no lockVersion; and 409 for a stale one', async () => {
-    const headers = await auth(DEMO.analyst);
+    const headers = await signedIn(t, DEMO.analyst);
     const noFile = await t
       .http()
       .post(`/api/studies/${studyId}/imports`)
@@ -226,7 +209,7 @@ describe('importing CSV and XLSX files into a study', () => {
       await t
         .http()
         .get('/api/studies?status=submitted&mine=true')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
     ).body;
     const submitted = page.items[0];
     expect((await upload(submitted.id, file, 's.csv', { section: 'standards', lockVersion: submitted.lockVersion })).status).toBe(409);
@@ -237,7 +220,7 @@ describe('importing CSV and XLSX files into a study', () => {
       await t
         .http()
         .post('/api/studies')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send({ methodVersionId: dyeVersionId, title: 'All sections', data: BASE_DATA })
         .expect(201)
     ).body.id;
@@ -274,7 +257,7 @@ describe('importing CSV and XLSX files into a study', () => {
       await t
         .http()
         .get('/api/studies?status=returned')
-        .set(await auth(DEMO.analyst2))
+        .set(await signedIn(t, DEMO.analyst2))
     ).body;
     const returned = page.items[0];
     const before = stored(returned.id);
@@ -305,7 +288,7 @@ describe('importing CSV and XLSX files into a study', () => {
       const res = await t
         .http()
         .get('/api/import-templates/unknowns')
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(200);
       expect(res.headers['content-type']).toMatch(/^text\/csv/);
       expect(res.headers['content-disposition']).toBe('attachment; filename="unknowns-template.csv"');
@@ -315,7 +298,7 @@ describe('importing CSV and XLSX files into a study', () => {
       const missing = await t
         .http()
         .get('/api/import-templates/calibrants')
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(404);
       expect(missing.body.message).toMatch(/standards, blanks, recovery, precision, accuracy, unknowns, lowSpikes/);
     });

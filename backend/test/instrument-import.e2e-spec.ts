@@ -1,5 +1,5 @@
-import { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { bearer, postRun, sqlQuery } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 /* An invented instrument export on the demo nitrate line (about 0.0031 + 0.1523 µS·min per mg/L), in a layout of its own. */
@@ -28,17 +28,20 @@ describe('instrument exports mapped once per method version', () => {
   let analyst: string;
   let reviewer: string;
   let versionId: string;
-  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
   const upload = (text: string, token = analyst, id = versionId) =>
-    t.http().post(`/api/method-versions/${id}/instrument-import`).set(auth(token)).attach('file', Buffer.from(text, 'utf8'), 'export.csv');
+    t
+      .http()
+      .post(`/api/method-versions/${id}/instrument-import`)
+      .set(bearer(token))
+      .attach('file', Buffer.from(text, 'utf8'), 'export.csv');
   const put = (body: object, token = analyst) =>
-    t.http().put(`/api/method-versions/${versionId}/import-mapping`).set(auth(token)).send(body);
+    t.http().put(`/api/method-versions/${versionId}/import-mapping`).set(bearer(token)).send(body);
 
   beforeAll(async () => {
     t = await createTestApp();
     [analyst, reviewer] = await Promise.all([t.tokenFor(DEMO.analyst), t.tokenFor(DEMO.reviewer)]);
-    [{ id: versionId }] = await query<{ id: string }>(
+    [{ id: versionId }] = await sqlQuery<{ id: string }>(
+      t,
       "select v.id from method_versions v join methods m on m.id = v.method_id where m.name = 'Nitrate in drinking water by ion chromatography' and v.status = 'active'",
     );
   });
@@ -47,7 +50,7 @@ describe('instrument exports mapped once per method version', () => {
   });
 
   it('should ask for a mapping the first time, listing the file’s columns', async () => {
-    const mapping = await t.http().get(`/api/method-versions/${versionId}/import-mapping`).set(auth(analyst)).expect(200);
+    const mapping = await t.http().get(`/api/method-versions/${versionId}/import-mapping`).set(bearer(analyst)).expect(200);
     expect(mapping.body).toMatchObject({ columns: null, lockVersion: 0 });
     const res = await upload(EXPORT).expect(200);
     expect(res.body).toMatchObject({
@@ -65,13 +68,13 @@ describe('instrument exports mapped once per method version', () => {
     expect(twice.body.errors.map((e: { field: string }) => e.field)).toContain('columns.replicate');
     await put({ columns: MAPPING, lockVersion: 3 }).expect(409);
     await put({ columns: MAPPING }).expect(422);
-    expect(await query('select id from run_import_mappings')).toEqual([]);
+    expect(await sqlQuery(t, 'select id from run_import_mappings')).toEqual([]);
   });
 
   it('should save the mapping, audit it, and read the next export into run data grouped by sample', async () => {
     const saved = await put({ columns: MAPPING, lockVersion: 0 }).expect(200);
     expect(saved.body).toMatchObject({ columns: MAPPING, lockVersion: 1, updatedBy: 'Alma Ruiz' });
-    expect(await query("select seq from audit_entries where action = 'run-import-mapping.saved'")).toHaveLength(1);
+    expect(await sqlQuery(t, "select seq from audit_entries where action = 'run-import-mapping.saved'")).toHaveLength(1);
     const res = await upload(EXPORT).expect(200);
     expect(res.body.status).toBe('parsed');
     expect(res.body.data).toEqual({
@@ -87,12 +90,11 @@ describe('instrument exports mapped once per method version', () => {
         { id: 'W-3002 well', y: [4.709], dilution: 2 },
       ],
     });
-    const run = await t
-      .http()
-      .post('/api/runs')
-      .set(auth(analyst))
-      .send({ methodVersionId: versionId, title: 'From the instrument', data: { model: 'two-point', ...res.body.data } })
-      .expect(201);
+    const run = await postRun(t, analyst, {
+      methodVersionId: versionId,
+      title: 'From the instrument',
+      data: { model: 'two-point', ...res.body.data },
+    }).expect(201);
     expect(run.body.status).toBe('accepted');
   });
 
@@ -119,18 +121,23 @@ describe('instrument exports mapped once per method version', () => {
     await t
       .http()
       .post(`/api/method-versions/${versionId}/instrument-import`)
-      .set(auth(analyst))
+      .set(bearer(analyst))
       .attach('file', huge, 'huge.csv')
       .expect(413);
     const png = Buffer.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 0]);
-    await t.http().post(`/api/method-versions/${versionId}/instrument-import`).set(auth(analyst)).attach('file', png, 'x.png').expect(415);
+    await t
+      .http()
+      .post(`/api/method-versions/${versionId}/instrument-import`)
+      .set(bearer(analyst))
+      .attach('file', png, 'x.png')
+      .expect(415);
   });
 
   it('should refuse anonymous callers (401), a missing file (400) and unknown versions (404)', async () => {
     await t.http().post(`/api/method-versions/${versionId}/instrument-import`).attach('file', Buffer.from(EXPORT), 'e.csv').expect(401);
-    await t.http().post(`/api/method-versions/${versionId}/instrument-import`).set(auth(analyst)).expect(400);
+    await t.http().post(`/api/method-versions/${versionId}/instrument-import`).set(bearer(analyst)).expect(400);
     await upload(EXPORT, reviewer).expect(403);
     await upload(EXPORT, analyst, '00000000-0000-4000-8000-000000000000').expect(404);
-    await t.http().get('/api/method-versions/00000000-0000-4000-8000-000000000000/import-mapping').set(auth(analyst)).expect(404);
+    await t.http().get('/api/method-versions/00000000-0000-4000-8000-000000000000/import-mapping').set(bearer(analyst)).expect(404);
   });
 });

@@ -1,15 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
-import {
-  bearer,
-  calibrationData,
-  createStudy,
-  dataSourceOf,
-  databaseState,
-  evaluated,
-  openDatabaseFile,
-  userId,
-} from './support/review-fixtures.js';
+import { calibrationData, createStudy, dataSourceOf, databaseState, evaluated, userId } from './support/review-fixtures.js';
+import { readRows, signedIn } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const JUSTIFICATION = 'Recovery at the lowest level is outside the range, but routine samples lie well above it.';
@@ -35,15 +27,7 @@ function runBody(methodVersionId: string, title: string) {
 
 describe('method lifecycle', () => {
   let t: TestApp;
-  const auth = async (email: string) => bearer(await t.tokenFor(email));
-  const rows = (sql: string, ...params: unknown[]) => {
-    const db = openDatabaseFile(t, { readonly: true });
-    try {
-      return db.prepare(sql).all(...params) as Record<string, unknown>[];
-    } finally {
-      db.close();
-    }
-  };
+  const rows = (sql: string, ...params: unknown[]) => readRows(t, sql, ...params);
 
   async function failingStudy(status: ValidationStudy['status']) {
     const study = await createStudy(t, { author: DEMO.analyst, status });
@@ -65,7 +49,7 @@ describe('method lifecycle', () => {
       const res = await t
         .http()
         .get('/api/runs/method-choices')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(200);
       const approved = new Set(
         rows(`SELECT method_version_id FROM validation_studies WHERE status = 'approved'`).map((r) => r.method_version_id),
@@ -87,7 +71,7 @@ describe('method lifecycle', () => {
         const res = await t
           .http()
           .post(`/api/studies/${study.id}/approve`)
-          .set(await auth(DEMO.reviewer))
+          .set(await signedIn(t, DEMO.reviewer))
           .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion, ...(justification ? { justification } : {}) })
           .expect(422);
         expect(res.body.errors).toEqual([
@@ -102,7 +86,7 @@ describe('method lifecycle', () => {
       const res = await t
         .http()
         .post(`/api/studies/${study.id}/approve`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion, justification: `  ${JUSTIFICATION}  ` })
         .expect(200);
       expect(res.body).toMatchObject({ status: 'approved', signature: { meaning: 'reviewed-and-approved', justification: JUSTIFICATION } });
@@ -110,13 +94,13 @@ describe('method lifecycle', () => {
       const signatures = await t
         .http()
         .get(`/api/studies/${study.id}/signatures`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(200);
       expect(signatures.body).toEqual([expect.objectContaining({ justification: JUSTIFICATION })]);
       const history = await t
         .http()
         .get(`/api/studies/${study.id}/history`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(200);
       expect(history.body).toEqual(
         expect.arrayContaining([expect.objectContaining({ action: 'study.approved', detail: `Justification: ${JUSTIFICATION}` })]),
@@ -133,7 +117,7 @@ describe('method lifecycle', () => {
       const res = await t
         .http()
         .post(`/api/studies/${study.id}/approve`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion })
         .expect(200);
       expect(res.body.signature.justification).toBeNull();
@@ -148,7 +132,7 @@ describe('method lifecycle', () => {
       const res = await t
         .http()
         .post('/api/runs')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send(runBody(study.methodVersionId, 'Run on an unjustified version'))
         .expect(422);
       expect(res.body.errors).toEqual([expect.objectContaining({ field: 'methodVersionId', code: 'not_usable' })]);
@@ -159,7 +143,7 @@ describe('method lifecycle', () => {
       const options = await t
         .http()
         .get(`/api/method-versions/${study.methodVersionId}/run-options`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(200);
       expect(options.body).toMatchObject({ usable: false, reason: res.body.errors[0].message });
     });
@@ -169,13 +153,13 @@ describe('method lifecycle', () => {
       await t
         .http()
         .post(`/api/studies/${study.id}/approve`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion, justification: JUSTIFICATION })
         .expect(200);
       await t
         .http()
         .post('/api/runs')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send(runBody(study.methodVersionId, 'Run on a justified version'))
         .expect(201);
     });
@@ -189,7 +173,7 @@ describe('method lifecycle', () => {
       const method = await t
         .http()
         .post('/api/methods')
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({
           name: 'Thermometer check by lifecycle',
           analyte: 'Temperature',
@@ -204,7 +188,7 @@ describe('method lifecycle', () => {
       const created = await t
         .http()
         .post(`/api/methods/${methodId}/versions`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send({ changeSummary: 'New probe of another make.', changeKind: 'instrument', revalidationScope: ['recovery', 'linearity'] })
         .expect(201);
       expect(created.body).toMatchObject({
@@ -218,7 +202,7 @@ describe('method lifecycle', () => {
     });
 
     it('should refuse a new version without the kind of change or with an unknown one, or an unknown family (422)', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const missing = await t.http().post(`/api/methods/${methodId}/versions`).set(headers).send({ changeSummary: 'No kind.' }).expect(422);
       expect(missing.body.errors).toEqual([expect.objectContaining({ field: 'changeKind' })]);
       const unknown = await t
@@ -235,7 +219,7 @@ describe('method lifecycle', () => {
       const res = await t
         .http()
         .patch(`/api/method-versions/${v2.id}`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({ lockVersion: v2.lockVersion, status: 'active' })
         .expect(422);
       expect(res.body.errors).toEqual([expect.objectContaining({ field: 'status', code: 'not_covered' })]);
@@ -250,26 +234,26 @@ describe('method lifecycle', () => {
       await t
         .http()
         .patch(`/api/method-versions/${v2.id}`)
-        .set(await auth(DEMO.admin))
+        .set(await signedIn(t, DEMO.admin))
         .send(body)
         .expect(403);
       await t
         .http()
         .patch(`/api/method-versions/${v2.id}`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send(body)
         .expect(403);
       const short = await t
         .http()
         .patch(`/api/method-versions/${v2.id}`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({ ...body, activationJustification: 'Trust me.', password: undefined })
         .expect(422);
       expect(short.body.errors.map((e: { field: string }) => e.field)).toEqual(['activationJustification', 'password']);
       await t
         .http()
         .patch(`/api/method-versions/${v2.id}`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({ ...body, password: 'not-the-password' })
         .expect(401);
       expect(rows('SELECT status FROM method_versions WHERE id = ?', v2.id)).toEqual([{ status: 'draft' }]);
@@ -279,7 +263,7 @@ describe('method lifecycle', () => {
       const res = await t
         .http()
         .patch(`/api/method-versions/${v2.id}`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({ lockVersion: v2.lockVersion, status: 'active', activationJustification: JUSTIFICATION, password: DEMO_PASSWORD })
         .expect(200);
       expect(res.body).toMatchObject({ status: 'active', activationJustification: JUSTIFICATION });
@@ -297,7 +281,7 @@ describe('method lifecycle', () => {
     });
 
     it('should activate without justification once an approved study of the version shows the scope again', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const v3 = (
         await t
           .http()
@@ -340,7 +324,7 @@ describe('method lifecycle', () => {
     });
 
     it('should store the recovery equivalence margin and refuse one at or below 0 (422)', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       for (const margin of [0, -2]) {
         const res = await t
           .http()

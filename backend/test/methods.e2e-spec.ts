@@ -1,25 +1,15 @@
-import { createRequire } from 'node:module';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readRows, signedIn } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 type Row = Record<string, unknown>;
-type Database = { prepare(sql: string): { all(...params: unknown[]): Row[] }; close(): void };
-const Sqlite = createRequire(import.meta.url)('better-sqlite3') as new (path: string, options: { readonly: boolean }) => Database;
 
 const NITRATE = 'Nitrate in drinking water by ion chromatography';
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
 
 describe('methods, versions and criteria templates', () => {
   let t: TestApp;
-  const auth = async (email: string) => ({ Authorization: `Bearer ${await t.tokenFor(email)}` });
-  const rows = (sql: string, ...params: unknown[]) => {
-    const db = new Sqlite(t.databasePath, { readonly: true });
-    try {
-      return db.prepare(sql).all(...params);
-    } finally {
-      db.close();
-    }
-  };
+  const rows = (sql: string, ...params: unknown[]) => readRows(t, sql, ...params);
   const newMethod = (name: string, extra: Row = {}) => ({
     name,
     analyte: 'Sulfate',
@@ -45,7 +35,7 @@ describe('methods, versions and criteria templates', () => {
       const res = await t
         .http()
         .get('/api/criteria-templates')
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(200);
       expect(res.body.map((template: Row) => template.key)).toEqual(['assay', 'impurity', 'residue', 'environmental']);
       for (const template of res.body) {
@@ -91,7 +81,7 @@ describe('methods, versions and criteria templates', () => {
       const res = await t
         .http()
         .get('/api/methods')
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(200);
       expect(res.body).toHaveLength(4);
       const nitrate = res.body.find((method: Row) => method.name === NITRATE);
@@ -134,7 +124,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should give one method, one version with its method, 404 for an unknown id and 400 for a malformed one', async () => {
-      const headers = await auth(DEMO.analyst);
+      const headers = await signedIn(t, DEMO.analyst);
       const [nitrate] = (await t.http().get('/api/methods').set(headers)).body.filter((m: Row) => m.name === NITRATE);
       const one = await t.http().get(`/api/methods/${nitrate.id}`).set(headers).expect(200);
       expect(one.body).toEqual(nitrate);
@@ -164,7 +154,7 @@ describe('methods, versions and criteria templates', () => {
       await t
         .http()
         .post('/api/methods')
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .send(newMethod('Refused method'))
         .expect(403);
       expect(rows('SELECT id FROM methods WHERE name = ?', 'Refused method')).toHaveLength(0);
@@ -175,13 +165,13 @@ describe('methods, versions and criteria templates', () => {
         await t
           .http()
           .get('/api/criteria-templates')
-          .set(await auth(DEMO.quality))
+          .set(await signedIn(t, DEMO.quality))
       ).body;
       const environmental = templates.find((template: Row) => template.key === 'environmental');
       const res = await t
         .http()
         .post('/api/methods')
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send(newMethod('Sulfate in groundwater by IC'))
         .expect(201);
       expect(res.body).toMatchObject({ name: 'Sulfate in groundwater by IC', purpose: 'environmental' });
@@ -204,7 +194,7 @@ describe('methods, versions and criteria templates', () => {
       const res = await t
         .http()
         .post('/api/methods')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send(
           newMethod('Chloride in groundwater by IC', {
             criteria,
@@ -228,7 +218,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should answer missing and malformed fields with 422 and one message per field, saving nothing', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const before = rows('SELECT COUNT(*) AS n FROM methods')[0].n;
       const missing = await t.http().post('/api/methods').set(headers).send({}).expect(422);
       expect(missing.body.errors.map((e: Row) => e.field).sort()).toEqual([
@@ -285,7 +275,7 @@ describe('methods, versions and criteria templates', () => {
       const res = await t
         .http()
         .post('/api/methods')
-        .set(await auth(DEMO.admin))
+        .set(await signedIn(t, DEMO.admin))
         .send(newMethod(NITRATE.toUpperCase()))
         .expect(409);
       expect(res.body).toMatchObject({ statusCode: 409, errors: [{ field: 'name', code: 'exists', message: expect.any(String) }] });
@@ -301,7 +291,7 @@ describe('methods, versions and criteria templates', () => {
       const res = await t
         .http()
         .post('/api/methods')
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send(newMethod('Fluoride in drinking water by IC'))
         .expect(201);
       methodId = res.body.id;
@@ -309,7 +299,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should add a draft version numbered after the highest, copying criteria and settings, and leave earlier versions alone', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const first = (await t.http().get(`/api/method-versions/${firstVersionId}`).set(headers)).body;
       const res = await t
         .http()
@@ -328,7 +318,7 @@ describe('methods, versions and criteria templates', () => {
       const third = await t
         .http()
         .post(`/api/methods/${methodId}/versions`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send({ changeSummary: 'Analyst proposal.', changeKind: 'criteria', criteria })
         .expect(201);
       expect(third.body).toMatchObject({ number: 3, status: 'draft', criteria, createdBy: { name: 'Alma Ruiz' } });
@@ -339,7 +329,7 @@ describe('methods, versions and criteria templates', () => {
       const missing = await t
         .http()
         .post(`/api/methods/${methodId}/versions`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({})
         .expect(422);
       expect(missing.body.errors).toEqual([
@@ -349,14 +339,14 @@ describe('methods, versions and criteria templates', () => {
       await t
         .http()
         .post(`/api/methods/${methodId}/versions`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .send({ changeSummary: 'x', changeKind: 'other' })
         .expect(403);
       await t.http().post(`/api/methods/${methodId}/versions`).send({ changeSummary: 'x', changeKind: 'other' }).expect(401);
       await t
         .http()
         .post(`/api/methods/${UNKNOWN_ID}/versions`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .send({ changeSummary: 'x', changeKind: 'other' })
         .expect(404);
       expect(rows('SELECT number FROM method_versions WHERE method_id = ? ORDER BY number', methodId).map((r) => r.number)).toEqual([
@@ -365,7 +355,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should change a draft’s criteria and record the change, old and new, in the audit trail', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const before = (await t.http().get(`/api/method-versions/${firstVersionId}`).set(headers)).body;
       const criteria = [...before.criteria, { figure: 'detection.epaMdl.mdl', op: '<=', value: 0.05, label: 'MDL at most 0.05 mg/L' }];
       const res = await t
@@ -383,7 +373,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should refuse a stale lockVersion with 409 and let exactly one of two simultaneous edits win', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const { lockVersion } = (await t.http().get(`/api/method-versions/${firstVersionId}`).set(headers)).body;
       await t
         .http()
@@ -404,7 +394,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should let an analyst edit only drafts they proposed and never change a status', async () => {
-      const analyst = await auth(DEMO.analyst);
+      const analyst = await signedIn(t, DEMO.analyst);
       const versions = (await t.http().get(`/api/methods/${methodId}`).set(analyst)).body.versions;
       const own = versions.find((v: Row) => v.number === 3);
       const others = versions.find((v: Row) => v.number === 2);
@@ -430,7 +420,7 @@ describe('methods, versions and criteria templates', () => {
       await t
         .http()
         .patch(`/api/method-versions/${own.id}`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .send({ lockVersion: own.lockVersion + 1, changeSummary: 'x' })
         .expect(403);
       expect(rows('SELECT status, change_summary FROM method_versions WHERE id = ?', own.id)[0]).toEqual({
@@ -440,7 +430,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should activate a draft, retire the previously active version, freeze both and never bring a retired version back', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const version = (id: string) =>
         t
           .http()
@@ -500,7 +490,7 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should answer 422 without a lockVersion, 404 for an unknown version and 401 anonymously', async () => {
-      const headers = await auth(DEMO.quality);
+      const headers = await signedIn(t, DEMO.quality);
       const res = await t.http().patch(`/api/method-versions/${firstVersionId}`).set(headers).send({ changeSummary: 'x' }).expect(422);
       expect(res.body.errors[0]).toMatchObject({ field: 'lockVersion', message: 'Send the lockVersion you read.' });
       await t.http().patch(`/api/method-versions/${firstVersionId}`).set(headers).send({ lockVersion: 1, status: 'archived' }).expect(422);

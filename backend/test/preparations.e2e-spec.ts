@@ -3,7 +3,8 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, calibrationData, openDatabaseFile } from './support/review-fixtures.js';
+import { bearer, calibrationData } from './support/review-fixtures.js';
+import { binary, readRows } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -53,14 +54,7 @@ describe('standard preparations', () => {
   let reviewer: string;
   let quality: string;
   const materials: Record<string, { id: string; lockVersion: number; certifiedValue: number; standardUncertainty: number }> = {};
-  const query = <T>(sql: string, ...params: unknown[]) => {
-    const db = openDatabaseFile(t, { readonly: true });
-    try {
-      return db.prepare(sql).all(...params) as T[];
-    } finally {
-      db.close();
-    }
-  };
+  const query = <T>(sql: string, ...params: unknown[]) => readRows(t, sql, ...params) as T[];
   const count = () => query<{ n: number }>('SELECT COUNT(*) AS n FROM standard_preparations')[0].n;
   const preview = (body: unknown, token = analyst) =>
     t
@@ -287,17 +281,7 @@ describe('standard preparations', () => {
       expect(study.data.standards[0].preparationId).toBe(prep.id);
 
       // The draft report prints the chain material and lot → stock → working standards with each u.
-      const pdf = await t
-        .http()
-        .get(`/api/studies/${study.id}/report`)
-        .set(bearer(analyst))
-        .buffer(true)
-        .parse((res, done) => {
-          const chunks: Buffer[] = [];
-          res.on('data', (c: Buffer) => chunks.push(c));
-          res.on('end', () => done(null, Buffer.concat(chunks)));
-        })
-        .expect(200);
+      const pdf = await t.http().get(`/api/studies/${study.id}/report`).set(bearer(analyst)).buffer(true).parse(binary).expect(200);
       const dir = mkdtempSync(join(tmpdir(), 'meritline-prep-'));
       try {
         const file = join(dir, 'report.pdf');

@@ -1,5 +1,5 @@
-import { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { bearer, outboxMessages, sqlQuery } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 /* The demo nitrate runs are invented: five released runs set the baseline, the later runs drift upwards. */
@@ -12,26 +12,13 @@ describe('QC trends across runs', () => {
   let quality: string;
   let methodId: string;
   let versionId: string;
-  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
   const trends = (series: string, token = analyst, extra = '') =>
-    t.http().get(`/api/methods/${methodId}/qc-trends?series=${series}${extra}`).set(auth(token));
-  async function outbox(subject: string, atLeast = 1) {
-    for (let i = 0; i < 50; i++) {
-      const rows = await query<{ subject: string; text: string; to_addresses: string }>('select * from outbox_messages where subject = ?', [
-        subject,
-      ]);
-      if (rows.length >= atLeast) return rows;
-      await new Promise((resolve) => setTimeout(resolve, 100));
-    }
-    return query<{ subject: string; text: string; to_addresses: string }>('select * from outbox_messages where subject = ?', [subject]);
-  }
-
+    t.http().get(`/api/methods/${methodId}/qc-trends?series=${series}${extra}`).set(bearer(token));
   beforeAll(async () => {
     t = await createTestApp();
     [analyst, quality] = await Promise.all([t.tokenFor(DEMO.analyst), t.tokenFor(DEMO.quality)]);
-    [{ id: methodId }] = await query<{ id: string }>('select id from methods where name = ?', [NITRATE]);
-    [{ id: versionId }] = await query<{ id: string }>("select id from method_versions where method_id = ? and status = 'active'", [
+    [{ id: methodId }] = await sqlQuery<{ id: string }>(t, 'select id from methods where name = ?', [NITRATE]);
+    [{ id: versionId }] = await sqlQuery<{ id: string }>(t, "select id from method_versions where method_id = ? and status = 'active'", [
       methodId,
     ]);
   });
@@ -63,13 +50,15 @@ describe('QC trends across runs', () => {
   it('should e-mail each signal once to the quality managers and record what was sent', async () => {
     await trends('slope').expect(200);
     const subject = `Control chart signal: ${NITRATE}, version 2`;
-    const notices = await query<{ rule: string; recipients: string; subject: string }>('select * from qc_signal_notices where series = ?', [
-      'slope',
-    ]);
+    const notices = await sqlQuery<{ rule: string; recipients: string; subject: string }>(
+      t,
+      'select * from qc_signal_notices where series = ?',
+      ['slope'],
+    );
     expect(notices.length).toBeGreaterThan(0);
     expect(notices.some((n) => n.rule === 'sevenOnOneSide')).toBe(true);
     expect(JSON.parse(notices[0].recipients)).toEqual([DEMO.quality]);
-    const mails = await outbox(subject, notices.length);
+    const mails = await outboxMessages(t, subject, notices.length);
     expect(mails).toHaveLength(notices.length);
     expect(mails.some((m) => m.text.includes('seven points in a row on one side of the mean'))).toBe(true);
   });
@@ -88,20 +77,21 @@ describe('QC trends across runs', () => {
     await trends('slope', await t.tokenFor(DEMO.admin)).expect(403);
     const bad = await trends('colour').expect(422);
     expect(bad.body.errors[0].field).toBe('series');
-    const [{ id: other }] = await query<{ id: string }>('select id from method_versions where method_id <> ? limit 1', [methodId]);
+    const [{ id: other }] = await sqlQuery<{ id: string }>(t, 'select id from method_versions where method_id <> ? limit 1', [methodId]);
     const foreign = await trends('slope', analyst, `&versionId=${other}`).expect(422);
     expect(foreign.body.errors[0].field).toBe('versionId');
-    await t.http().get(`/api/methods/${UNKNOWN_ID}/qc-trends?series=slope`).set(auth(analyst)).expect(404);
+    await t.http().get(`/api/methods/${UNKNOWN_ID}/qc-trends?series=slope`).set(bearer(analyst)).expect(404);
   });
 
   describe('choosing the baseline', () => {
     const put = (body: object, token = quality, id = versionId) =>
-      t.http().put(`/api/method-versions/${id}/qc-baseline`).set(auth(token)).send(body);
+      t.http().put(`/api/method-versions/${id}/qc-baseline`).set(bearer(token)).send(body);
 
     it('should let only quality managers choose it (403) and refuse runs that are not released (422 with the field)', async () => {
       const current = (await trends('slope')).body.baseline;
       await put({ runIds: current.runIds, reason: 'x', lockVersion: 1 }, analyst).expect(403);
-      const [{ id: calculated }] = await query<{ id: string }>(
+      const [{ id: calculated }] = await sqlQuery<{ id: string }>(
+        t,
         "select id from runs where method_version_id = ? and review_status = 'calculated' limit 1",
         [versionId],
       );
@@ -122,7 +112,8 @@ describe('QC trends across runs', () => {
       }).expect(200);
       expect(res.body).toMatchObject({ lockVersion: 2, chosenBy: { name: 'Jonas Lindqvist' }, runIds: current.runIds.slice(1) });
       await put({ runIds: current.runIds, reason: 'Again', lockVersion: 1 }).expect(409);
-      const audit = await query<{ reason: string }>(
+      const audit = await sqlQuery<{ reason: string }>(
+        t,
         "select reason from audit_entries where action = 'qc-baseline.chosen' and entity_id = ? order by seq",
         [versionId],
       );

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ReferenceMaterialsService } from '../src/reference-materials/reference-materials.service.js';
-import { bearer, openDatabaseFile } from './support/review-fixtures.js';
+import { bearer } from './support/review-fixtures.js';
+import { binary, readRows } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -31,26 +32,13 @@ describe('reference materials register', () => {
   let reviewer: string;
   let quality: string;
   let admin: string;
-  const count = () => {
-    const db = openDatabaseFile(t, { readonly: true });
-    try {
-      return (db.prepare('SELECT COUNT(*) AS n FROM reference_materials').get() as { n: number }).n;
-    } finally {
-      db.close();
-    }
-  };
-  const auditOf = (id: string) => {
-    const db = openDatabaseFile(t, { readonly: true });
-    try {
-      return db.prepare('SELECT action, reason, changes FROM audit_entries WHERE entity_id = ? ORDER BY seq').all(id) as {
-        action: string;
-        reason: string | null;
-        changes: string;
-      }[];
-    } finally {
-      db.close();
-    }
-  };
+  const count = () => readRows(t, 'SELECT COUNT(*) AS n FROM reference_materials')[0].n as number;
+  const auditOf = (id: string) =>
+    readRows(t, 'SELECT action, reason, changes FROM audit_entries WHERE entity_id = ? ORDER BY seq', id) as {
+      action: string;
+      reason: string | null;
+      changes: string;
+    }[];
   const create = async (extra: Record<string, unknown> = {}) =>
     (await t.http().post('/api/reference-materials').set(bearer(quality)).send(material(extra)).expect(201)).body;
 
@@ -271,17 +259,7 @@ describe('reference materials register', () => {
       await t.http().put(url).set(bearer(quality)).field('lockVersion', '1').attach('file', PDF, 'Certificate WM-CU.pdf').expect(200)
     ).body;
     expect(uploaded.certificate).toMatchObject({ fileName: 'Certificate WM-CU.pdf', sizeBytes: PDF.length });
-    const download = await t
-      .http()
-      .get(url)
-      .set(bearer(reviewer))
-      .buffer(true)
-      .parse((res, done) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('end', () => done(null, Buffer.concat(chunks)));
-      })
-      .expect(200);
+    const download = await t.http().get(url).set(bearer(reviewer)).buffer(true).parse(binary).expect(200);
     expect(download.headers['content-type']).toBe('application/pdf');
     expect(Buffer.compare(download.body as Buffer, PDF)).toBe(0);
     expect(auditOf(created.id).at(-1)!.action).toBe('reference-material.certificate-uploaded');

@@ -1,4 +1,4 @@
-import { execFileSync, spawnSync } from 'node:child_process';
+import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -14,6 +14,7 @@ import { createSelfSignedP12 } from '../src/reports/signing/self-signed-certific
 import { ValidationReport } from '../src/reports/validation-report.entity.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 import { createStudy } from './support/review-fixtures.js';
+import { binary, pdfsig, scratchFolder } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /* eslint-disable @typescript-eslint/no-explicit-any -- reference files and API bodies are plain JSON */
@@ -29,24 +30,8 @@ const OUTPUT = fileURLToPath(new URL('../test-output/', import.meta.url));
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
 const DEMO_APPROVED_TITLE = 'Nitrate by IC after the column change';
 
-type BodyParser = Parameters<ReturnType<ReturnType<TestApp['http']>['get']>['parse']>[0];
-const binary: BodyParser = (res, done) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
-
-const scratch = mkdtempSync(join(tmpdir(), 'meritline-reports-'));
-const saved = (name: string, bytes: Buffer) => {
-  const file = join(scratch, name);
-  writeFileSync(file, bytes);
-  return file;
-};
-/** pdfsig exits 0 for valid and broken signatures alike, so its words are what count. */
-const pdfsig = (file: string) => {
-  const run = spawnSync('pdfsig', [file], { encoding: 'utf8' });
-  return `${run.stdout}${run.stderr}`;
-};
+const scratch = scratchFolder('meritline-reports-');
+const saved = scratch.saved;
 const pdftotext = (file: string, page?: number) =>
   execFileSync('pdftotext', [...(page ? ['-f', String(page), '-l', String(page)] : []), file, '-'], { encoding: 'utf8' }).replace(
     /\s+/g,
@@ -54,7 +39,7 @@ const pdftotext = (file: string, page?: number) =>
   );
 const pageCount = (file: string) => Number(/Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [file], { encoding: 'utf8' }))?.[1]);
 
-afterAll(() => rmSync(scratch, { recursive: true, force: true }));
+afterAll(scratch.remove);
 
 /** The textbook data do not meet every criterion of the method version, so approving them needs a written reason. */
 const JUSTIFICATION = 'Textbook calibration used to check the report layout, not for routine use.';
@@ -265,7 +250,7 @@ describe('validation reports', () => {
     });
 
     it('should attach the study data, whose SHA-256 is the printed hash and from which the CLI recomputes the result', () => {
-      const dir = join(scratch, 'attachment');
+      const dir = join(scratch.dir, 'attachment');
       mkdirSync(dir, { recursive: true });
       execFileSync('pdfdetach', ['-saveall', '-o', dir, reportFile]);
       const data = readFileSync(join(dir, 'study-data.json'));
@@ -282,7 +267,7 @@ describe('validation reports', () => {
         [1, 'report-page-1'],
         [calibrationPage, 'report-page-calibration'],
       ] as const) {
-        const prefix = join(scratch, name);
+        const prefix = join(scratch.dir, name);
         execFileSync('pdftoppm', ['-png', '-r', '60', '-f', String(page), '-l', String(page), '-singlefile', reportFile, prefix]);
         copyFileSync(`${prefix}.png`, join(OUTPUT, `${name}.png`));
         expect(statSync(join(OUTPUT, `${name}.png`)).size).toBeGreaterThan(10_000);

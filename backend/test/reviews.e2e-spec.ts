@@ -9,6 +9,7 @@ import {
   openDatabaseFile,
   userId,
 } from './support/review-fixtures.js';
+import { studyAction } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 
@@ -26,6 +27,7 @@ describe('review and sign-off', () => {
   const token: Record<keyof typeof DEMO, string> = { analyst: '', analyst2: '', reviewer: '', quality: '', admin: '' };
 
   const as = (who: keyof typeof DEMO) => bearer(token[who]);
+  const act = (id: string, action: string, who: keyof typeof DEMO, body: object) => studyAction(t, id, action, as(who), body);
   const newMail = async (action: () => Promise<unknown>): Promise<Mail[]> => {
     const outbox = async () => (await t.http().get('/api/outbox').set(as('admin')).expect(200)).body as Mail[];
     const seen = new Set((await outbox()).map((m) => m.id));
@@ -52,15 +54,10 @@ describe('review and sign-off', () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = databaseState(t, study.id);
       await t.http().post(`/api/studies/${study.id}/submit`).send({ password: DEMO_PASSWORD }).expect(401);
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(403);
-      const other = await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst2'))
-        .send({ password: DEMO_PASSWORD })
-        .expect(403);
+      await act(study.id, 'submit', 'reviewer', { password: DEMO_PASSWORD }).expect(403);
+      const other = await act(study.id, 'submit', 'analyst2', { password: DEMO_PASSWORD }).expect(403);
       expect(other.body.message).toMatch(/only the author/i);
-      await t.http().post(`/api/studies/${UNKNOWN_ID}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(404);
+      await act(UNKNOWN_ID, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(404);
       await t.http().post('/api/studies/not-a-uuid/submit').set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(400);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -68,26 +65,16 @@ describe('review and sign-off', () => {
     it('should answer missing or malformed fields with 422 and one message per field', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = databaseState(t, study.id);
-      const res = await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ comment: 'x'.repeat(2001), lockVersion: 0 })
-        .expect(422);
+      const res = await act(study.id, 'submit', 'analyst', { comment: 'x'.repeat(2001), lockVersion: 0 }).expect(422);
       expect(res.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['comment', 'lockVersion', 'password']);
-      await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ password: DEMO_PASSWORD, approve: true })
-        .expect(422);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD, approve: true }).expect(422);
       expect(databaseState(t, study.id)).toEqual(before);
     });
 
     it('should refuse a study whose results cannot be computed with 422 listing why', async () => {
       const study = await createStudy(t, { author: DEMO.analyst, withoutResult: true });
       const before = databaseState(t, study.id);
-      const res = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(422);
+      const res = await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(422);
       expect(res.body.errors).toEqual([{ field: 'standards', code: 'too_few', message: expect.stringMatching(/at least 3 standards/) }]);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -95,12 +82,7 @@ describe('review and sign-off', () => {
     it('should refuse a wrong password with 401, sign nothing and record the failed signature', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = databaseState(t, study.id);
-      const res = await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ password: 'not-my-password' })
-        .expect(401);
+      const res = await act(study.id, 'submit', 'analyst', { password: 'not-my-password' }).expect(401);
       expect(res.body.message).toBe('Password not correct; nothing was signed.');
       expect(databaseState(t, study.id)).toEqual(before);
       const audit = await t.http().get(`/api/audit?record=study:${study.id}`).set(as('quality')).expect(200);
@@ -111,12 +93,7 @@ describe('review and sign-off', () => {
     it('should refuse a stale lock version with 409', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = databaseState(t, study.id);
-      const res = await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 })
-        .expect(409);
+      const res = await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 }).expect(409);
       expect(res.body.message).toMatch(/changed since you opened it/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -125,12 +102,11 @@ describe('review and sign-off', () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       let res: { body: Record<string, unknown> } = { body: {} };
       const mails = await newMail(async () => {
-        res = await t
-          .http()
-          .post(`/api/studies/${study.id}/submit`)
-          .set(as('analyst'))
-          .send({ password: DEMO_PASSWORD, comment: 'Ready for review.', lockVersion: study.lockVersion })
-          .expect(200);
+        res = await act(study.id, 'submit', 'analyst', {
+          password: DEMO_PASSWORD,
+          comment: 'Ready for review.',
+          lockVersion: study.lockVersion,
+        }).expect(200);
       });
       expect(res.body).toMatchObject({
         status: 'submitted',
@@ -143,7 +119,7 @@ describe('review and sign-off', () => {
       expect(mails[0].text).toContain(`/studies/${study.id}`);
       const notices = await t.http().get('/api/notifications').set(as('reviewer')).expect(200);
       expect(notices.body.items[0]).toMatchObject({ kind: 'study.submitted', link: `/studies/${study.id}`, readAt: null });
-      const again = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(409);
+      const again = await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(409);
       expect(again.body.message).toMatch(/only a draft or a returned study/);
     });
   });
@@ -157,34 +133,29 @@ describe('review and sign-off', () => {
 
     it('should refuse to approve or return a draft with 409', async () => {
       const before = databaseState(t, study.id);
-      const approve = await t
-        .http()
-        .post(`/api/studies/${study.id}/approve`)
-        .set(as('reviewer'))
-        .send({ password: DEMO_PASSWORD })
-        .expect(409);
+      const approve = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(409);
       expect(approve.body.message).toMatch(/a draft; only a submitted study can be approved/);
-      await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment: 'Not yet.' }).expect(409);
+      await act(study.id, 'return', 'reviewer', { comment: 'Not yet.' }).expect(409);
       expect(databaseState(t, study.id)).toEqual(before);
     });
 
     it('should refuse a return without a comment (422), by an analyst (403), anonymously (401) and for an unknown study (404)', async () => {
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
       const before = databaseState(t, study.id);
-      const missing = await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({}).expect(422);
+      const missing = await act(study.id, 'return', 'reviewer', {}).expect(422);
       expect(missing.body.errors[0]).toMatchObject({ field: 'comment' });
-      const blank = await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment: '   ' }).expect(422);
+      const blank = await act(study.id, 'return', 'reviewer', { comment: '   ' }).expect(422);
       expect(blank.body.errors[0]).toMatchObject({ field: 'comment', message: 'Say what the author should change before resubmitting.' });
-      await t.http().post(`/api/studies/${study.id}/return`).set(as('analyst')).send({ comment: 'Self-return' }).expect(403);
+      await act(study.id, 'return', 'analyst', { comment: 'Self-return' }).expect(403);
       await t.http().post(`/api/studies/${study.id}/return`).send({ comment: 'Anonymous' }).expect(401);
-      await t.http().post(`/api/studies/${UNKNOWN_ID}/return`).set(as('reviewer')).send({ comment: 'Who?' }).expect(404);
-      await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment: 'Stale', lockVersion: 1 }).expect(409);
+      await act(UNKNOWN_ID, 'return', 'reviewer', { comment: 'Who?' }).expect(404);
+      await act(study.id, 'return', 'reviewer', { comment: 'Stale', lockVersion: 1 }).expect(409);
       expect(databaseState(t, study.id)).toEqual(before);
     });
 
     it('should return a submitted study to its author with the comment by e-mail and in the app', async () => {
       const comment = 'The 8 mg/L duplicate reads 0.2 % high; re-measure it or give a reason.';
-      const mails = await newMail(() => t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment }).expect(200));
+      const mails = await newMail(() => act(study.id, 'return', 'reviewer', { comment }).expect(200));
       expect(recipients(mails)).toEqual([DEMO.analyst]);
       expect(mails[0].subject).toBe(`Study returned for changes: ${study.title}`);
       expect(mails[0].text).toContain(comment);
@@ -206,12 +177,7 @@ describe('review and sign-off', () => {
       });
       const diffBefore = await t.http().get(`/api/studies/${study.id}/diff`).set(as('reviewer')).expect(200);
       expect(diffBefore.body).toEqual({});
-      await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ password: DEMO_PASSWORD, comment: 'Re-measured the top standard.' })
-        .expect(200);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD, comment: 'Re-measured the top standard.' }).expect(200);
       const diff = await t.http().get(`/api/studies/${study.id}/diff`).set(as('reviewer')).expect(200);
       expect(diff.body.settings).toEqual([{ field: 'weighting', from: 'none', to: '1/x' }]);
       const standards = diff.body.sections.find((s: { section: string }) => s.section === 'standards');
@@ -261,9 +227,9 @@ describe('review and sign-off', () => {
 
     it('should refuse the approval of a study by someone who edited its data (403)', async () => {
       const edited = await createStudy(t, { author: DEMO.analyst, editors: [DEMO.reviewer] });
-      await t.http().post(`/api/studies/${edited.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
+      await act(edited.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
       const before = databaseState(t, edited.id);
-      await t.http().post(`/api/studies/${edited.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(403);
+      await act(edited.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(403);
       expect(databaseState(t, edited.id)).toEqual(before);
       const queue = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
       expect(queue.body.map((q: { id: string }) => q.id)).not.toContain(edited.id);
@@ -271,19 +237,14 @@ describe('review and sign-off', () => {
 
     it('should refuse an approval with a wrong password (401) or a missing one (422) and change nothing', async () => {
       const before = databaseState(t, study.id);
-      const wrong = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: 'guess' }).expect(401);
+      const wrong = await act(study.id, 'approve', 'reviewer', { password: 'guess' }).expect(401);
       expect(wrong.body.message).toBe('Password not correct; nothing was signed.');
-      const missing = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: '' }).expect(422);
+      const missing = await act(study.id, 'approve', 'reviewer', { password: '' }).expect(422);
       expect(missing.body.errors[0]).toMatchObject({ field: 'password', message: 'Enter your password to sign.' });
-      await t.http().post(`/api/studies/${study.id}/approve`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(403);
+      await act(study.id, 'approve', 'analyst', { password: DEMO_PASSWORD }).expect(403);
       await t.http().post(`/api/studies/${study.id}/approve`).send({ password: DEMO_PASSWORD }).expect(401);
-      await t.http().post(`/api/studies/${UNKNOWN_ID}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(404);
-      const stale = await t
-        .http()
-        .post(`/api/studies/${study.id}/approve`)
-        .set(as('reviewer'))
-        .send({ password: DEMO_PASSWORD, lockVersion: 1 })
-        .expect(409);
+      await act(UNKNOWN_ID, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(404);
+      const stale = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD, lockVersion: 1 }).expect(409);
       expect(stale.body.message).toMatch(/changed since you opened it/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -291,12 +252,7 @@ describe('review and sign-off', () => {
     it('should approve with a reviewer signature and e-mail the author and the quality managers', async () => {
       let res: { body: Record<string, unknown> } = { body: {} };
       const mails = await newMail(async () => {
-        res = await t
-          .http()
-          .post(`/api/studies/${study.id}/approve`)
-          .set(as('reviewer'))
-          .send({ password: DEMO_PASSWORD, comment: 'Checked all sections.' })
-          .expect(200);
+        res = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD, comment: 'Checked all sections.' }).expect(200);
       });
       expect(res.body).toMatchObject({
         status: 'approved',
@@ -319,9 +275,9 @@ describe('review and sign-off', () => {
 
     it('should keep an approved study locked against further transitions (409)', async () => {
       const before = databaseState(t, study.id);
-      await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(409);
-      await t.http().post(`/api/studies/${study.id}/return`).set(as('quality')).send({ comment: 'Reopen' }).expect(409);
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(409);
+      await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(409);
+      await act(study.id, 'return', 'quality', { comment: 'Reopen' }).expect(409);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(409);
       const current = await t.http().get(`/api/studies/${study.id}`).set(as('analyst')).expect(200);
       const edit = await t
         .http()
@@ -334,12 +290,7 @@ describe('review and sign-off', () => {
     });
 
     it('should tell the whole story in the history, oldest first', async () => {
-      await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('reviewer'))
-        .send({ section: 'standards', body: 'Top standard now fine.' })
-        .expect(409);
+      await act(study.id, 'comments', 'reviewer', { section: 'standards', body: 'Top standard now fine.' }).expect(409);
       const res = await t.http().get(`/api/studies/${study.id}/history`).set(as('analyst')).expect(200);
       const timeline = res.body as { at: string; kind: string; action: string; valid?: boolean }[];
       expect(timeline.map((item) => item.at)).toEqual([...timeline.map((item) => item.at)].sort());
@@ -363,22 +314,17 @@ describe('review and sign-off', () => {
         await t.http().get(`/api/studies/${study.id}/${route}`).set(as('admin')).expect(200);
         await t.http().get(`/api/studies/${UNKNOWN_ID}/${route}`).set(as('reviewer')).expect(404);
       }
-      await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('admin'))
-        .send({ section: 'standards', body: 'Looks fine.' })
-        .expect(403);
+      await act(study.id, 'comments', 'admin', { section: 'standards', body: 'Looks fine.' }).expect(403);
     });
   });
 
   describe('release by a quality manager', () => {
     it('should keep the study submitted after the first approval and make it approved only after a release', async () => {
       const study = await createStudy(t, { author: DEMO.analyst, requiresQualityRelease: true });
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
       let first: { body: Record<string, unknown> } = { body: {} };
       const mails = await newMail(async () => {
-        first = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(200);
+        first = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(200);
       });
       expect(first.body).toMatchObject({ status: 'submitted', stage: 'release', approvedAt: null });
       expect(recipients(mails)).toEqual([DEMO.quality]);
@@ -394,22 +340,12 @@ describe('review and sign-off', () => {
       });
 
       const before = databaseState(t, study.id);
-      const again = await t
-        .http()
-        .post(`/api/studies/${study.id}/approve`)
-        .set(as('reviewer'))
-        .send({ password: DEMO_PASSWORD })
-        .expect(403);
+      const again = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(403);
       expect(again.body.message).toMatch(/awaits release by a quality manager/);
       expect(databaseState(t, study.id)).toEqual(before);
 
       const released = await newMail(async () => {
-        const res = await t
-          .http()
-          .post(`/api/studies/${study.id}/approve`)
-          .set(as('quality'))
-          .send({ password: DEMO_PASSWORD })
-          .expect(200);
+        const res = await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(200);
         expect(res.body).toMatchObject({
           status: 'approved',
           signature: { meaning: 'released', signerRole: 'quality_manager', signerName: 'Jonas Lindqvist' },
@@ -422,16 +358,11 @@ describe('review and sign-off', () => {
 
     it('should refuse a release by the quality manager who gave the first approval (403)', async () => {
       const study = await createStudy(t, { author: DEMO.analyst, requiresQualityRelease: true });
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
-      const first = await t
-        .http()
-        .post(`/api/studies/${study.id}/approve`)
-        .set(as('quality'))
-        .send({ password: DEMO_PASSWORD })
-        .expect(200);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
+      const first = await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(200);
       expect(first.body.signature.signerRole).toBe('reviewer');
       const before = databaseState(t, study.id);
-      const res = await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(403);
+      const res = await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(403);
       expect(res.body.message).toMatch(/different quality manager/);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -440,10 +371,10 @@ describe('review and sign-off', () => {
   describe('concurrent approvals', () => {
     it('should let exactly one of two simultaneous approvals through and answer the other with 409', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
-      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
       const answers = await Promise.all([
-        t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }),
-        t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }),
+        act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }),
+        act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }),
       ]);
       expect(answers.map((a) => a.status).sort()).toEqual([200, 409]);
       const signatures = await t.http().get(`/api/studies/${study.id}/signatures`).set(as('analyst')).expect(200);
@@ -456,8 +387,8 @@ describe('review and sign-off', () => {
     it('should list submitted studies awaiting the caller, oldest first, and refuse analysts and anonymous callers', async () => {
       const older = await createStudy(t, { author: DEMO.analyst });
       const newer = await createStudy(t, { author: DEMO.analyst2 });
-      await t.http().post(`/api/studies/${older.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
-      await t.http().post(`/api/studies/${newer.id}/submit`).set(as('analyst2')).send({ password: DEMO_PASSWORD }).expect(200);
+      await act(older.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
+      await act(newer.id, 'submit', 'analyst2', { password: DEMO_PASSWORD }).expect(200);
       const res = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
       const ids = res.body.map((q: { id: string }) => q.id);
       expect(ids.indexOf(older.id)).toBeLessThan(ids.indexOf(newer.id));
@@ -511,19 +442,15 @@ describe('review and sign-off', () => {
     });
 
     it('should pin comments to a section, thread replies under them and resolve the thread', async () => {
-      const first = await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('reviewer'))
-        .send({ section: 'blanks', body: 'Only four blanks: is that the plan?' })
-        .expect(201);
+      const first = await act(study.id, 'comments', 'reviewer', { section: 'blanks', body: 'Only four blanks: is that the plan?' }).expect(
+        201,
+      );
       expect(first.body).toMatchObject({ section: 'blanks', threadId: null, authorName: 'Priya Nair', resolved: false });
-      const reply = await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('analyst'))
-        .send({ section: 'results', body: 'Yes, per the method version.', threadId: first.body.id })
-        .expect(201);
+      const reply = await act(study.id, 'comments', 'analyst', {
+        section: 'results',
+        body: 'Yes, per the method version.',
+        threadId: first.body.id,
+      }).expect(201);
       expect(reply.body).toMatchObject({ section: 'blanks', threadId: first.body.id });
       const resolved = await t
         .http()
@@ -544,26 +471,11 @@ describe('review and sign-off', () => {
 
     it('should refuse bad comments with 422 field messages and change nothing', async () => {
       const before = databaseState(t, study.id);
-      const bad = await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('reviewer'))
-        .send({ section: 'appendix', body: ' ' })
-        .expect(422);
+      const bad = await act(study.id, 'comments', 'reviewer', { section: 'appendix', body: ' ' }).expect(422);
       expect(bad.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['body', 'section']);
-      const thread = await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('reviewer'))
-        .send({ section: 'blanks', body: 'Reply', threadId: UNKNOWN_ID })
-        .expect(422);
+      const thread = await act(study.id, 'comments', 'reviewer', { section: 'blanks', body: 'Reply', threadId: UNKNOWN_ID }).expect(422);
       expect(thread.body.errors[0]).toMatchObject({ field: 'threadId', code: 'unknown_thread' });
-      await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('reviewer'))
-        .send({ section: 'blanks', body: 'x'.repeat(4001) })
-        .expect(422);
+      await act(study.id, 'comments', 'reviewer', { section: 'blanks', body: 'x'.repeat(4001) }).expect(422);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('reviewer')).send({ resolved: 'yes' }).expect(422);
       expect(databaseState(t, study.id)).toEqual(before);
     });
@@ -571,8 +483,8 @@ describe('review and sign-off', () => {
     it('should refuse comments to anonymous callers (401), admins (403), unknown studies and comments (404)', async () => {
       const before = databaseState(t, study.id);
       await t.http().post(`/api/studies/${study.id}/comments`).send({ section: 'blanks', body: 'Hi' }).expect(401);
-      await t.http().post(`/api/studies/${study.id}/comments`).set(as('admin')).send({ section: 'blanks', body: 'Hi' }).expect(403);
-      await t.http().post(`/api/studies/${UNKNOWN_ID}/comments`).set(as('reviewer')).send({ section: 'blanks', body: 'Hi' }).expect(404);
+      await act(study.id, 'comments', 'admin', { section: 'blanks', body: 'Hi' }).expect(403);
+      await act(UNKNOWN_ID, 'comments', 'reviewer', { section: 'blanks', body: 'Hi' }).expect(404);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('reviewer')).send({ resolved: true }).expect(404);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).send({ resolved: true }).expect(401);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('admin')).send({ resolved: true }).expect(403);

@@ -1,10 +1,6 @@
-import { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { canonicalJson, ENGINE_VERSION, evaluateStudy, type StudyInput } from '@meritline/shared';
-import { MethodVersion } from '../src/methods/method-version.entity.js';
-import { Method } from '../src/methods/method.entity.js';
-import { ValidationStudy } from '../src/studies/validation-study.entity.js';
-import { User } from '../src/users/user.entity.js';
+import type { StudyInput } from '@meritline/shared';
+import { addValidatedVersion, bearer, outboxMessages, postRun, releaseRun, runAction, sqlQuery, submitRun } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /*
@@ -22,8 +18,6 @@ describe('second-person release of routine runs', () => {
   let reviewer: string;
   let quality: string;
   let versionId: string;
-  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
 
   const runInput = (title: string, checkY = 13.1) => ({
     methodVersionId: versionId,
@@ -36,34 +30,22 @@ describe('second-person release of routine runs', () => {
     },
   });
   async function newRun(title: string, checkY?: number, token = analyst): Promise<{ id: string; status: string }> {
-    const res = await t.http().post('/api/runs').set(auth(token)).send(runInput(title, checkY)).expect(201);
-    return res.body;
+    return (await postRun(t, token, runInput(title, checkY)).expect(201)).body;
   }
-  const review = async (id: string) => (await t.http().get(`/api/runs/${id}/review`).set(auth(analyst)).expect(200)).body;
-  const act = (id: string, action: string, token: string, body: object) =>
-    t.http().post(`/api/runs/${id}/${action}`).set(auth(token)).send(body);
+  const review = async (id: string) => (await t.http().get(`/api/runs/${id}/review`).set(bearer(analyst)).expect(200)).body;
+  const act = (id: string, action: string, token: string, body: object) => runAction(t, id, action, token, body);
   async function submitted(title: string, checkY?: number) {
     const run = await newRun(title, checkY);
-    const res = await act(run.id, 'submit', analyst, { password: DEMO_PASSWORD, version: 1 }).expect(200);
-    return { id: run.id, version: res.body.lockVersion as number };
+    return { id: run.id, version: await submitRun(t, run.id, analyst) };
   }
   async function released(title: string) {
     const run = await submitted(title);
-    const res = await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: run.version }).expect(200);
-    return { id: run.id, version: res.body.lockVersion as number };
+    return { id: run.id, version: await releaseRun(t, run.id, reviewer, run.version) };
   }
   const auditOf = (id: string) =>
-    query<{ action: string; reason: string | null }>('select action, reason from audit_entries where entity_id = ? order by rowid', [id]);
-  async function outbox(subject: string) {
-    for (let i = 0; i < 50; i++) {
-      const rows = await query<{ subject: string; text: string; to_addresses: string }>('select * from outbox_messages where subject = ?', [
-        subject,
-      ]);
-      if (rows.length) return rows;
-      await new Promise((resolve) => setTimeout(resolve, 100));
-    }
-    return [];
-  }
+    sqlQuery<{ action: string; reason: string | null }>(t, 'select action, reason from audit_entries where entity_id = ? order by rowid', [
+      id,
+    ]);
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -73,43 +55,11 @@ describe('second-person release of routine runs', () => {
       t.tokenFor(DEMO.reviewer),
       t.tokenFor(DEMO.quality),
     ]);
-    const dataSource = t.app.get(DataSource);
-    const author = await dataSource.getRepository(User).findOneByOrFail({ email: DEMO.quality });
-    const method = await dataSource.getRepository(Method).save({
-      name: 'Fluorescein',
-      analyte: 'fluorescein',
-      matrix: 'water',
-      technique: 'fluorimetry',
-      xUnit: 'pg/ml',
-      yUnit: 'intensity',
-      purpose: 'assay',
-      createdById: author.id,
-    });
-    const version = await dataSource.getRepository(MethodVersion).save({
-      methodId: method.id,
-      number: 1,
-      changeSummary: 'First version',
-      status: 'active',
-      criteria: [],
-      settings: { requiresQualityRelease: false, checkTolerancePct: 10, onePointMaxInterceptPct: 2 },
-      createdById: author.id,
-    });
     const study: StudyInput = { model: 'linear', units: { x: 'pg/ml', y: 'intensity' }, standards: pairs };
-    await dataSource.getRepository(ValidationStudy).save({
-      methodVersionId: version.id,
-      title: 'Fluorescein validation',
-      status: 'approved',
-      data: study as Record<string, unknown>,
-      result: evaluateStudy(study) as unknown as Record<string, unknown>,
-      resultErrors: null,
-      engineVersion: ENGINE_VERSION,
-      dataHash: canonicalJson(study).slice(0, 64),
-      meta: {},
-      authorId: author.id,
-      editorIds: [author.id],
-      copiedFromId: null,
-      submittedAt: new Date(),
-      approvedAt: new Date(),
+    const version = await addValidatedVersion(t, {
+      name: 'Fluorescein',
+      method: { analyte: 'fluorescein', technique: 'fluorimetry', xUnit: 'pg/ml', yUnit: 'intensity' },
+      study,
     });
     versionId = version.id;
   });
@@ -121,7 +71,7 @@ describe('second-person release of routine runs', () => {
     const run = await newRun('Batch 1');
     expect(run.status).toBe('accepted');
     expect(await review(run.id)).toMatchObject({ reviewStatus: 'calculated', lockVersion: 1, signatures: [], supersededById: null });
-    const res = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(auth(analyst)).expect(409);
+    const res = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(bearer(analyst)).expect(409);
     expect(res.body.message).toMatch(/only after a second person has released the run/);
   });
 
@@ -141,21 +91,21 @@ describe('second-person release of routine runs', () => {
       }),
     ]);
     expect((await auditOf(run.id)).map((a) => a.action)).toEqual(['run.created', 'signature.failed', 'run.submitted']);
-    const mails = await outbox('Run awaiting release: Batch 2');
+    const mails = await outboxMessages(t, 'Run awaiting release: Batch 2');
     expect(mails.map((m) => JSON.parse(m.to_addresses)[0]).sort()).toEqual([DEMO.quality, DEMO.reviewer].sort());
     expect(mails[0].text).toContain(`/runs/${run.id}`);
-    const notices = await t.http().get('/api/notifications').set(auth(reviewer)).expect(200);
+    const notices = await t.http().get('/api/notifications').set(bearer(reviewer)).expect(200);
     expect(JSON.stringify(notices.body)).toContain('submitted the run “Batch 2” for release');
 
-    const queue = await t.http().get('/api/reviews/queue').set(auth(reviewer)).expect(200);
+    const queue = await t.http().get('/api/reviews/queue').set(bearer(reviewer)).expect(200);
     expect(queue.body).toContainEqual(
       expect.objectContaining({ kind: 'run', id: run.id, status: 'submitted', verdict: 'accepted', authorName: 'Alma Ruiz' }),
     );
-    const onlyRuns = await t.http().get('/api/reviews/queue?kind=run').set(auth(reviewer)).expect(200);
+    const onlyRuns = await t.http().get('/api/reviews/queue?kind=run').set(bearer(reviewer)).expect(200);
     expect(onlyRuns.body.every((item: { kind: string }) => item.kind === 'run')).toBe(true);
-    const onlyStudies = await t.http().get('/api/reviews/queue?kind=study').set(auth(reviewer)).expect(200);
+    const onlyStudies = await t.http().get('/api/reviews/queue?kind=study').set(bearer(reviewer)).expect(200);
     expect(onlyStudies.body.map((item: { id: string }) => item.id)).not.toContain(run.id);
-    const bad = await t.http().get('/api/reviews/queue?kind=batch').set(auth(reviewer)).expect(422);
+    const bad = await t.http().get('/api/reviews/queue?kind=batch').set(bearer(reviewer)).expect(422);
     expect(bad.body.errors[0].field).toBe('kind');
   });
 
@@ -178,11 +128,11 @@ describe('second-person release of routine runs', () => {
       ['reviewed-and-released', 'Priya Nair'],
     ]);
     expect((await auditOf(run.id)).map((a) => a.action)).toEqual(['run.created', 'run.submitted', 'run.released']);
-    const mails = await outbox('Run released: Batch 4');
+    const mails = await outboxMessages(t, 'Run released: Batch 4');
     expect(mails.map((m) => JSON.parse(m.to_addresses)[0])).toEqual([DEMO.analyst]);
-    const csv = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(auth(analyst)).expect(200);
+    const csv = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(bearer(analyst)).expect(200);
     expect(csv.text).toContain('S-1');
-    const queue = await t.http().get('/api/reviews/queue?kind=run').set(auth(reviewer)).expect(200);
+    const queue = await t.http().get('/api/reviews/queue?kind=run').set(bearer(reviewer)).expect(200);
     expect(queue.body.map((item: { id: string }) => item.id)).not.toContain(run.id);
 
     const again = await act(run.id, 'release', quality, { password: DEMO_PASSWORD, version: run.version }).expect(409);
@@ -198,8 +148,7 @@ describe('second-person release of routine runs', () => {
     expect(wrongRole.body.statusCode).toBe(403);
 
     // A user with both roles performs and submits a run, then tries to release it.
-    const dataSource = t.app.get(DataSource);
-    await dataSource.query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst', 'reviewer']), DEMO.analyst2]);
+    await sqlQuery(t, `update users set roles = ? where email = ?`, [JSON.stringify(['analyst', 'reviewer']), DEMO.analyst2]);
     const both = await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: DEMO_PASSWORD }).expect(200);
     const own = await newRun('Batch 5b', undefined, both.body.accessToken);
     const ownSub = await act(own.id, 'submit', both.body.accessToken, { password: DEMO_PASSWORD, version: 1 }).expect(200);
@@ -207,9 +156,9 @@ describe('second-person release of routine runs', () => {
       403,
     );
     expect(self.body.message).toMatch(/You performed this run, so you cannot release it/);
-    const ownQueue = await t.http().get('/api/reviews/queue?kind=run').set(auth(both.body.accessToken)).expect(200);
+    const ownQueue = await t.http().get('/api/reviews/queue?kind=run').set(bearer(both.body.accessToken)).expect(200);
     expect(ownQueue.body.map((item: { id: string }) => item.id)).not.toContain(own.id);
-    await dataSource.query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst']), DEMO.analyst2]);
+    await sqlQuery(t, `update users set roles = ? where email = ?`, [JSON.stringify(['analyst']), DEMO.analyst2]);
 
     const stale = await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: 1 }).expect(409);
     expect(stale.body.message).toMatch(/changed since you opened it/);
@@ -218,12 +167,12 @@ describe('second-person release of routine runs', () => {
 
   it('should refuse to release a run its check standards rejected (422 with the reason)', async () => {
     const run = await submitted('Batch 6 rejected', 20);
-    expect((await t.http().get(`/api/runs/${run.id}`).set(auth(analyst)).expect(200)).body.status).toBe('rejected');
+    expect((await t.http().get(`/api/runs/${run.id}`).set(bearer(analyst)).expect(200)).body.status).toBe('rejected');
     const res = await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: run.version }).expect(422);
     expect(res.body.message).toMatch(/rejected by its check standards/);
     expect(res.body.errors[0]).toMatchObject({ field: 'status', code: 'rejected' });
     expect((await review(run.id)).reviewStatus).toBe('submitted');
-    const exported = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(auth(analyst)).expect(409);
+    const exported = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(bearer(analyst)).expect(409);
     expect(exported.body.message).toMatch(/released/);
   });
 
@@ -239,19 +188,19 @@ describe('second-person release of routine runs', () => {
     expect(res.body).toMatchObject({ reviewStatus: 'returned', returnComment: 'Check the dilution of S-1.' });
     const audit = await auditOf(run.id);
     expect(audit.at(-1)).toEqual({ action: 'run.returned', reason: 'Check the dilution of S-1.' });
-    const mails = await outbox('Run returned: Batch 7');
+    const mails = await outboxMessages(t, 'Run returned: Batch 7');
     expect(mails[0].text).toContain('Check the dilution of S-1.');
-    await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(auth(analyst)).expect(409);
+    await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(bearer(analyst)).expect(409);
     const again = await act(run.id, 'submit', analyst, { password: DEMO_PASSWORD, version: res.body.lockVersion }).expect(200);
     expect(again.body.reviewStatus).toBe('submitted');
   });
 
   it('should replace a released run by a correction with a reason, keeping both', async () => {
     const run = await released('Batch 8');
-    const runsBefore = (await query<{ n: number }>('select count(*) as n from runs'))[0].n;
+    const runsBefore = (await sqlQuery<{ n: number }>(t, 'select count(*) as n from runs'))[0].n;
     const noReason = await act(run.id, 'supersede', analyst, runInput('Batch 8 corrected')).expect(422);
     expect(noReason.body.errors.map((e: { field: string }) => e.field)).toEqual(['reason']);
-    expect((await query<{ n: number }>('select count(*) as n from runs'))[0].n).toBe(runsBefore);
+    expect((await sqlQuery<{ n: number }>(t, 'select count(*) as n from runs'))[0].n).toBe(runsBefore);
 
     const res = await act(run.id, 'supersede', analyst, { ...runInput('Batch 8 corrected'), reason: 'Wrong vial read as S-1.' }).expect(
       201,
@@ -264,7 +213,7 @@ describe('second-person release of routine runs', () => {
     expect(old.signatures).toHaveLength(2);
     expect((await auditOf(run.id)).at(-1)).toEqual({ action: 'run.superseded', reason: 'Wrong vial read as S-1.' });
     expect((await auditOf(res.body.id)).map((a) => a.action)).toEqual(['run.created']);
-    const exported = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(auth(analyst)).expect(409);
+    const exported = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(bearer(analyst)).expect(409);
     expect(exported.body.message).toMatch(/replaced by a correction/);
     await act(run.id, 'supersede', analyst, { ...runInput('Batch 8 again'), reason: 'Again' }).expect(409);
     await act(res.body.id, 'supersede', analyst, { ...runInput('Not released'), reason: 'Not yet released' }).expect(409);
@@ -275,6 +224,6 @@ describe('second-person release of routine runs', () => {
     const unknown = '00000000-0000-4000-8000-000000000000';
     await act(unknown, 'submit', analyst, { password: DEMO_PASSWORD, version: 1 }).expect(404);
     await act(unknown, 'release', reviewer, { password: DEMO_PASSWORD, version: 1 }).expect(404);
-    await t.http().get(`/api/runs/${unknown}/review`).set(auth(analyst)).expect(404);
+    await t.http().get(`/api/runs/${unknown}/review`).set(bearer(analyst)).expect(404);
   });
 });

@@ -3,13 +3,9 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
-import { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { canonicalJson, ENGINE_VERSION, evaluateStudy, topDownUncertainty, type StudyInput } from '@meritline/shared';
-import { MethodVersion } from '../src/methods/method-version.entity.js';
-import { Method } from '../src/methods/method.entity.js';
-import { ValidationStudy } from '../src/studies/validation-study.entity.js';
-import { User } from '../src/users/user.entity.js';
+import { evaluateStudy, topDownUncertainty, type StudyInput } from '@meritline/shared';
+import { addValidatedVersion, bearer, binary, postRun, releaseRun, runAction, sqlQuery, submitRun } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /*
@@ -23,12 +19,6 @@ const Y = [2.1, 5.0, 9.0, 12.6, 17.3, 21.0, 24.7];
 const pairs = X.map((x, i) => ({ x, y: Y[i] }));
 const OUTPUT = fileURLToPath(new URL('../test-output/', import.meta.url));
 
-type BodyParser = Parameters<ReturnType<ReturnType<TestApp['http']>['get']>['parse']>[0];
-const binary: BodyParser = (res, done) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (chunk: Buffer) => chunks.push(chunk));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
 const pdfsig = (file: string) => {
   const run = spawnSync('pdfsig', [file], { encoding: 'utf8' });
   return `${run.stdout}${run.stderr}`;
@@ -41,8 +31,6 @@ describe('signed results report of a routine run', () => {
   let reviewer: string;
   let versionId: string;
   let plainVersionId: string;
-  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
 
   const runInput = (methodVersionId: string, title: string, checkY = 13.1) => ({
     methodVersionId,
@@ -60,49 +48,20 @@ describe('signed results report of a routine run', () => {
     },
   });
   async function newRun(methodVersionId: string, title: string, checkY?: number) {
-    const res = await t
-      .http()
-      .post('/api/runs')
-      .set(auth(analyst))
-      .send(runInput(methodVersionId, title, checkY))
-      .expect(201);
+    const res = await postRun(t, analyst, runInput(methodVersionId, title, checkY)).expect(201);
     return res.body as {
       id: string;
       result: { unknowns: { id: string; reported: string; uncertainty: { value: { U: number } | null; basis: string } }[] };
     };
   }
-  const act = (id: string, action: string, token: string, body: object) =>
-    t.http().post(`/api/runs/${id}/${action}`).set(auth(token)).send(body);
   async function released(methodVersionId: string, title: string) {
     const run = await newRun(methodVersionId, title);
-    const sub = await act(run.id, 'submit', analyst, { password: DEMO_PASSWORD, version: 1 }).expect(200);
-    await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: sub.body.lockVersion }).expect(200);
+    await releaseRun(t, run.id, reviewer, await submitRun(t, run.id, analyst));
     return run;
   }
-  const report = (id: string, token = analyst) => t.http().get(`/api/runs/${id}/report`).set(auth(token)).buffer(true).parse(binary);
+  const report = (id: string, token = analyst) => t.http().get(`/api/runs/${id}/report`).set(bearer(token)).buffer(true).parse(binary);
 
   async function seedVersion(name: string, withUncertainty: boolean): Promise<string> {
-    const dataSource = t.app.get(DataSource);
-    const author = await dataSource.getRepository(User).findOneByOrFail({ email: DEMO.quality });
-    const method = await dataSource.getRepository(Method).save({
-      name,
-      analyte: 'fluorescein',
-      matrix: 'water',
-      technique: 'fluorimetry',
-      xUnit: 'pg/ml',
-      yUnit: 'intensity',
-      purpose: 'assay',
-      createdById: author.id,
-    });
-    const version = await dataSource.getRepository(MethodVersion).save({
-      methodId: method.id,
-      number: 1,
-      changeSummary: 'First version',
-      status: 'active',
-      criteria: [],
-      settings: { requiresQualityRelease: false, checkTolerancePct: 10, onePointMaxInterceptPct: 2 },
-      createdById: author.id,
-    });
     const study: StudyInput = { model: 'linear', units: { x: 'pg/ml', y: 'intensity' }, standards: pairs };
     const result = evaluateStudy(study);
     if (withUncertainty) {
@@ -114,22 +73,8 @@ describe('signed results report of a routine run', () => {
         { relativeAbove: 5 },
       );
     }
-    await dataSource.getRepository(ValidationStudy).save({
-      methodVersionId: version.id,
-      title: `${name} validation`,
-      status: 'approved',
-      data: study as Record<string, unknown>,
-      result: result as unknown as Record<string, unknown>,
-      resultErrors: null,
-      engineVersion: ENGINE_VERSION,
-      dataHash: canonicalJson(study).slice(0, 64),
-      meta: {},
-      authorId: author.id,
-      editorIds: [author.id],
-      copiedFromId: null,
-      submittedAt: new Date(),
-      approvedAt: new Date(),
-    });
+    const method = { analyte: 'fluorescein', technique: 'fluorimetry', xUnit: 'pg/ml', yUnit: 'intensity' };
+    const version = await addValidatedVersion(t, { name, method, study, result });
     return version.id;
   }
 
@@ -168,15 +113,15 @@ describe('signed results report of a routine run', () => {
 
   it('should refuse the report of a run that is not released (409 with the reason) and store nothing', async () => {
     const run = await newRun(versionId, 'Not yet released');
-    const res = await t.http().get(`/api/runs/${run.id}/report`).set(auth(analyst)).expect(409);
+    const res = await t.http().get(`/api/runs/${run.id}/report`).set(bearer(analyst)).expect(409);
     expect(res.body.message).toMatch(/only after a second person has released the run/);
-    expect(await query('select id from run_results_reports where run_id = ?', [run.id])).toEqual([]);
+    expect(await sqlQuery(t, 'select id from run_results_reports where run_id = ?', [run.id])).toEqual([]);
   });
 
   it('should refuse the report of a run its check standards rejected (409)', async () => {
     const run = await newRun(versionId, 'Rejected batch', 16);
-    const sub = await act(run.id, 'submit', analyst, { password: DEMO_PASSWORD, version: 1 }).expect(200);
-    const refused = await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: sub.body.lockVersion }).expect(422);
+    const version = await submitRun(t, run.id, analyst);
+    const refused = await runAction(t, run.id, 'release', reviewer, { password: DEMO_PASSWORD, version }).expect(422);
     expect(refused.body.errors[0].field).toBe('status');
     await report(run.id).expect(409);
   });
@@ -195,7 +140,7 @@ describe('signed results report of a routine run', () => {
       ...runInput(versionId, 'Controls'),
       data: { ...runInput(versionId, 'Controls').data, ...controls },
     });
-    const preview = (controls: object) => t.http().post('/api/runs/preview').set(auth(analyst)).send(withControls(controls));
+    const preview = (controls: object) => t.http().post('/api/runs/preview').set(bearer(analyst)).send(withControls(controls));
 
     // Miller & Miller line: b = 1.93, a = 1.52, s_y/x = 0.433; LOD = 3.3·s_y/x / b ≈ 0.74 pg/ml (ICH Q2(R2)).
     it('should accept a run whose blank stays below the LOD and whose QC sample recovers within the window', async () => {
@@ -221,13 +166,12 @@ describe('signed results report of a routine run', () => {
     });
 
     it('should print the blanks, the QC samples and their window on the run sheet', async () => {
-      const saved = await t
-        .http()
-        .post('/api/runs')
-        .set(auth(analyst))
-        .send(withControls({ blanks: [{ id: 'MB-1', y: [2.5] }], qcSamples: [{ id: 'QC-6', known: 6, y: [13.1] }] }))
-        .expect(201);
-      const sheet = await t.http().get(`/api/runs/${saved.body.id}/sheet`).set(auth(analyst)).buffer(true).parse(binary).expect(200);
+      const saved = await postRun(
+        t,
+        analyst,
+        withControls({ blanks: [{ id: 'MB-1', y: [2.5] }], qcSamples: [{ id: 'QC-6', known: 6, y: [13.1] }] }),
+      ).expect(201);
+      const sheet = await t.http().get(`/api/runs/${saved.body.id}/sheet`).set(bearer(analyst)).buffer(true).parse(binary).expect(200);
       const file = `${OUTPUT}run-sheet-controls.pdf`;
       writeFileSync(file, sheet.body as Buffer);
       const text = pdftotext(file);
@@ -242,14 +186,9 @@ describe('signed results report of a routine run', () => {
       expect(bad.body.errors.map((e: { field: string }) => e.field)).toEqual(['data.blanks[0].limit', 'data.qcSamples[0].known']);
       const empty = await preview({ qcSamples: [{ id: 'QC-6', known: 6, y: [] }] }).expect(422);
       expect(empty.body.errors[0].field).toBe('data.qcSamples[0].y');
-      const count = (await query('select id from runs')).length;
-      await t
-        .http()
-        .post('/api/runs')
-        .set(auth(analyst))
-        .send(withControls({ blanks: 'none' }))
-        .expect(422);
-      expect(await query('select id from runs')).toHaveLength(count);
+      const count = (await sqlQuery(t, 'select id from runs')).length;
+      await postRun(t, analyst, withControls({ blanks: 'none' })).expect(422);
+      expect(await sqlQuery(t, 'select id from runs')).toHaveLength(count);
     });
   });
 
@@ -287,8 +226,8 @@ describe('signed results report of a routine run', () => {
     it('should store the report once: the same bytes again, one row, one audit entry', async () => {
       const again = await report(runId).expect(200);
       expect(Buffer.compare(again.body as Buffer, pdf)).toBe(0);
-      expect(await query('select id from run_results_reports where run_id = ?', [runId])).toHaveLength(1);
-      expect(await query("select seq from audit_entries where action = 'run-report.issued'")).toHaveLength(1);
+      expect(await sqlQuery(t, 'select id from run_results_reports where run_id = ?', [runId])).toHaveLength(1);
+      expect(await sqlQuery(t, "select seq from audit_entries where action = 'run-report.issued'")).toHaveLength(1);
     });
 
     it('should be recognised by the public verify route, and a changed copy should not', async () => {
@@ -303,7 +242,7 @@ describe('signed results report of a routine run', () => {
     });
 
     it('should export CSV and XLSX with the report columns leading', async () => {
-      const csv = await t.http().get(`/api/runs/${runId}/export?format=csv`).set(auth(analyst)).expect(200);
+      const csv = await t.http().get(`/api/runs/${runId}/export?format=csv`).set(bearer(analyst)).expect(200);
       const rows = Papa.parse<Record<string, string>>(csv.text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true });
       expect(rows.meta.fields!.slice(0, 14)).toEqual([
         'Sample',
@@ -329,7 +268,7 @@ describe('signed results report of a routine run', () => {
         'Released by': 'Priya Nair',
       });
       expect(rows.data[2]).toMatchObject({ Sample: 'S-3', Result: '< 2.2', 'Expanded uncertainty U': '' });
-      const xlsx = await t.http().get(`/api/runs/${runId}/export?format=xlsx`).set(auth(analyst)).buffer(true).parse(binary).expect(200);
+      const xlsx = await t.http().get(`/api/runs/${runId}/export?format=xlsx`).set(bearer(analyst)).buffer(true).parse(binary).expect(200);
       const workbook = new ExcelJS.Workbook();
       await workbook.xlsx.load(xlsx.body as ArrayBuffer);
       const header = (workbook.getWorksheet('Results')!.getRow(1).values as string[]).slice(1, 15);

@@ -4,15 +4,11 @@ import { execFileSync } from 'node:child_process';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { canonicalJson, ENGINE_VERSION, evaluateStudy, type StudyInput } from '@meritline/shared';
-import { MethodVersion } from '../src/methods/method-version.entity.js';
-import { Method } from '../src/methods/method.entity.js';
-import { ValidationStudy } from '../src/studies/validation-study.entity.js';
-import { User } from '../src/users/user.entity.js';
+import { ENGINE_VERSION, type StudyInput } from '@meritline/shared';
 import { runCsv } from '../src/runs/run-export.js';
 import { RunsService } from '../src/runs/runs.service.js';
+import { addValidatedVersion, bearer, binary, postRun, sqlQuery, type ValidatedVersion } from './support/flows.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const OUTPUT = fileURLToPath(new URL('../test-output', import.meta.url));
@@ -62,72 +58,14 @@ describe('routine runs', () => {
   let admin: string;
   const versions: Record<string, string> = {};
 
-  async function addVersion(
-    key: string,
-    options: {
-      method: Partial<Method>;
-      study?: StudyInput;
-      status?: MethodVersion['status'];
-      studyStatus?: ValidationStudy['status'];
-      onePointMaxInterceptPct?: number;
-    },
-  ) {
-    const dataSource = t.app.get(DataSource);
-    const author = await dataSource.getRepository(User).findOneByOrFail({ email: DEMO.quality });
-    const method = await dataSource.getRepository(Method).save({
-      name: `${key} method`,
-      analyte: 'analyte',
-      matrix: 'water',
-      technique: 'photometry',
-      xUnit: 'mg/L',
-      yUnit: 'AU',
-      purpose: 'assay',
-      createdById: author.id,
-      ...options.method,
-    });
-    const version = await dataSource.getRepository(MethodVersion).save({
-      methodId: method.id,
-      number: 1,
-      changeSummary: 'First version',
-      status: options.status ?? 'active',
-      criteria: [],
-      settings: { requiresQualityRelease: false, checkTolerancePct: 10, onePointMaxInterceptPct: options.onePointMaxInterceptPct ?? 2 },
-      createdById: author.id,
-    });
-    if (options.study) {
-      const result = evaluateStudy(options.study);
-      await dataSource.getRepository(ValidationStudy).save({
-        methodVersionId: version.id,
-        title: `${key} validation`,
-        status: options.studyStatus ?? 'approved',
-        data: options.study as Record<string, unknown>,
-        result: result as unknown as Record<string, unknown>,
-        resultErrors: null,
-        engineVersion: ENGINE_VERSION,
-        dataHash: canonicalJson(options.study).slice(0, 64),
-        meta: {},
-        authorId: author.id,
-        editorIds: [author.id],
-        copiedFromId: null,
-        submittedAt: new Date(),
-        approvedAt: (options.studyStatus ?? 'approved') === 'approved' ? new Date() : null,
-      });
-    }
-    versions[key] = version.id;
-    return version;
-  }
+  const addVersion = async (key: string, options: Omit<ValidatedVersion, 'name' | 'studyTitle'>) => {
+    versions[key] = (await addValidatedVersion(t, { name: `${key} method`, studyTitle: `${key} validation`, ...options })).id;
+  };
 
-  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const post = (body: unknown, token = analyst) =>
-    t
-      .http()
-      .post('/api/runs')
-      .set(auth(token))
-      .send(body as object);
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
+  const post = (body: unknown, token = analyst) => postRun(t, token, body);
   const tableCounts = async () => ({
-    runs: (await query<{ n: number }>('select count(*) as n from runs'))[0].n,
-    audit: (await query<{ n: number }>('select count(*) as n from audit_entries'))[0].n,
+    runs: (await sqlQuery<{ n: number }>(t, 'select count(*) as n from runs'))[0].n,
+    audit: (await sqlQuery<{ n: number }>(t, 'select count(*) as n from audit_entries'))[0].n,
   });
   /** Sends a refused request and checks that neither the runs nor the audit trail changed. */
   async function refused(body: unknown, status: number, token = analyst) {
@@ -197,7 +135,7 @@ describe('routine runs', () => {
 
   describe('run options', () => {
     it('should refuse one-point where the validation intercept is significant (Miller & Miller fluorescence, t = 5.15) and give the reason', async () => {
-      const res = await t.http().get(`/api/method-versions/${versions.fluorescence}/run-options`).set(auth(analyst)).expect(200);
+      const res = await t.http().get(`/api/method-versions/${versions.fluorescence}/run-options`).set(bearer(analyst)).expect(200);
       const models = Object.fromEntries(res.body.models.map((m: { model: string }) => [m.model, m]));
       expect(models['one-point']).toMatchObject({ allowed: false, reason: expect.stringMatching(/differs significantly from zero/) });
       expect(models['two-point'].allowed).toBe(true);
@@ -211,10 +149,10 @@ describe('routine runs', () => {
     });
 
     it('should offer one-point where the intercept is not significant and within the limit, and refuse it above a stricter limit', async () => {
-      const open = await t.http().get(`/api/method-versions/${versions.absorbance}/run-options`).set(auth(reviewer)).expect(200);
+      const open = await t.http().get(`/api/method-versions/${versions.absorbance}/run-options`).set(bearer(reviewer)).expect(200);
       expect(open.body.models.find((m: { model: string }) => m.model === 'one-point')).toEqual({ model: 'one-point', allowed: true });
       // a/(a + b·x_max) = 0.013286/(0.013286 + 0.72543) = 1.8 % of the top response.
-      const strict = await t.http().get(`/api/method-versions/${versions.absorbanceStrict}/run-options`).set(auth(quality)).expect(200);
+      const strict = await t.http().get(`/api/method-versions/${versions.absorbanceStrict}/run-options`).set(bearer(quality)).expect(200);
       expect(strict.body.models.find((m: { model: string }) => m.model === 'one-point')).toMatchObject({
         allowed: false,
         reason: expect.stringMatching(/1\.8 % of the top standard's response, above this version's limit of 1 %/),
@@ -222,11 +160,11 @@ describe('routine runs', () => {
     });
 
     it('should offer only the validated quadratic and weighting on curved and weighted versions', async () => {
-      const curved = await t.http().get(`/api/method-versions/${versions.pontius}/run-options`).set(auth(analyst)).expect(200);
+      const curved = await t.http().get(`/api/method-versions/${versions.pontius}/run-options`).set(bearer(analyst)).expect(200);
       expect(curved.body.models.filter((m: { allowed: boolean }) => m.allowed)).toEqual([
         { model: 'quadratic', allowed: true, weighting: 'none' },
       ]);
-      const weighted = await t.http().get(`/api/method-versions/${versions.weighted}/run-options`).set(auth(analyst)).expect(200);
+      const weighted = await t.http().get(`/api/method-versions/${versions.weighted}/run-options`).set(bearer(analyst)).expect(200);
       expect(weighted.body.models.find((m: { model: string }) => m.model === 'linear')).toEqual({
         model: 'linear',
         allowed: true,
@@ -240,12 +178,12 @@ describe('routine runs', () => {
         ['retired', /is retired/],
         ['unvalidated', /no approved validation study/],
       ] as const) {
-        const res = await t.http().get(`/api/method-versions/${versions[key]}/run-options`).set(auth(analyst)).expect(200);
+        const res = await t.http().get(`/api/method-versions/${versions[key]}/run-options`).set(bearer(analyst)).expect(200);
         expect(res.body.usable).toBe(false);
         expect(res.body.reason).toMatch(pattern);
         expect(res.body.models.every((m: { allowed: boolean }) => !m.allowed)).toBe(true);
       }
-      const choices = await t.http().get('/api/runs/method-choices').set(auth(analyst)).expect(200);
+      const choices = await t.http().get('/api/runs/method-choices').set(bearer(analyst)).expect(200);
       const all = choices.body.flatMap((m: { versions: { id: string; usable: boolean }[] }) => m.versions);
       expect(all.find((v: { id: string }) => v.id === versions.retired).usable).toBe(false);
       expect(all.find((v: { id: string }) => v.id === versions.absorbance).usable).toBe(true);
@@ -253,11 +191,11 @@ describe('routine runs', () => {
 
     it('should answer 404 for an unknown version and 401/403 for the wrong caller', async () => {
       const unknown = '00000000-0000-4000-8000-000000000000';
-      await t.http().get(`/api/method-versions/${unknown}/run-options`).set(auth(analyst)).expect(404);
-      await t.http().get(`/api/method-versions/${unknown}/control-chart`).set(auth(analyst)).expect(404);
+      await t.http().get(`/api/method-versions/${unknown}/run-options`).set(bearer(analyst)).expect(404);
+      await t.http().get(`/api/method-versions/${unknown}/control-chart`).set(bearer(analyst)).expect(404);
       await t.http().get(`/api/method-versions/${versions.absorbance}/run-options`).expect(401);
       await t.http().get(`/api/method-versions/${versions.absorbance}/control-chart`).expect(401);
-      await t.http().get(`/api/method-versions/${versions.absorbance}/run-options`).set(auth(admin)).expect(403);
+      await t.http().get(`/api/method-versions/${versions.absorbance}/run-options`).set(bearer(admin)).expect(403);
     });
   });
 
@@ -304,7 +242,8 @@ describe('routine runs', () => {
     });
 
     it('should record the creation in the audit trail', async () => {
-      const rows = await query<{ entityId: string; actorName: string }>(
+      const rows = await sqlQuery<{ entityId: string; actorName: string }>(
+        t,
         "select actor_name as actorName, entity_id as entityId from audit_entries where action = 'run.created'",
       );
       expect(rows).toContainEqual(expect.objectContaining({ entityId: linearRunId, actorName: 'Alma Ruiz' }));
@@ -601,22 +540,22 @@ describe('routine runs', () => {
       await refused(fluorescenceRun(), 403, reviewer);
       await refused(fluorescenceRun(), 403, admin);
       await t.http().get('/api/runs').expect(401);
-      await t.http().get('/api/runs').set(auth(admin)).expect(403);
-      await t.http().post('/api/runs/preview').set(auth(quality)).send(fluorescenceRun()).expect(403);
+      await t.http().get('/api/runs').set(bearer(admin)).expect(403);
+      await t.http().post('/api/runs/preview').set(bearer(quality)).send(fluorescenceRun()).expect(403);
     });
   });
 
   describe('reading runs back', () => {
     it('should preview a run without saving it', async () => {
       const before = await tableCounts();
-      const res = await t.http().post('/api/runs/preview').set(auth(analyst)).send(fluorescenceRun()).expect(200);
+      const res = await t.http().post('/api/runs/preview').set(bearer(analyst)).send(fluorescenceRun()).expect(200);
       expect(res.body.result.unknowns[0].reported).toBe('6.21 ± 0.36 pg/ml');
       expect(res.body).not.toHaveProperty('id');
       expect(await tableCounts()).toEqual(before);
     });
 
     it('should list runs newest first, filtered by version, method and status, page by page', async () => {
-      const all = await t.http().get('/api/runs').query({ methodVersionId: versions.fluorescence }).set(auth(reviewer)).expect(200);
+      const all = await t.http().get('/api/runs').query({ methodVersionId: versions.fluorescence }).set(bearer(reviewer)).expect(200);
       expect(all.body.total).toBe(3);
       expect(all.body.items.map((r: { status: string }) => r.status)).toEqual(['accepted', 'rejected', 'accepted']);
       expect(all.body.items[0]).toMatchObject({
@@ -631,24 +570,24 @@ describe('routine runs', () => {
         .http()
         .get('/api/runs')
         .query({ methodVersionId: versions.fluorescence, status: 'rejected' })
-        .set(auth(analyst))
+        .set(bearer(analyst))
         .expect(200);
       expect(rejected.body.total).toBe(1);
-      const [{ id: methodId }] = await query<{ id: string }>('select method_id as id from method_versions where id = ?', [
+      const [{ id: methodId }] = await sqlQuery<{ id: string }>(t, 'select method_id as id from method_versions where id = ?', [
         versions.absorbance,
       ]);
-      const byMethod = await t.http().get('/api/runs').query({ methodId, pageSize: 2, page: 2 }).set(auth(analyst)).expect(200);
+      const byMethod = await t.http().get('/api/runs').query({ methodId, pageSize: 2, page: 2 }).set(bearer(analyst)).expect(200);
       expect(byMethod.body).toMatchObject({ total: 3, page: 2, pageSize: 2 });
       expect(byMethod.body.items).toHaveLength(1);
-      const bad = await t.http().get('/api/runs').query({ status: 'pending', pageSize: 1000 }).set(auth(analyst)).expect(422);
+      const bad = await t.http().get('/api/runs').query({ status: 'pending', pageSize: 1000 }).set(bearer(analyst)).expect(422);
       expect(fieldsOf(bad.body).sort()).toEqual(['pageSize', 'status']);
     });
 
     it('should answer 404 for an unknown run and 400 for a malformed id', async () => {
-      await t.http().get('/api/runs/00000000-0000-4000-8000-000000000000').set(auth(analyst)).expect(404);
-      await t.http().get('/api/runs/00000000-0000-4000-8000-000000000000/export?format=csv').set(auth(analyst)).expect(404);
-      await t.http().get('/api/runs/00000000-0000-4000-8000-000000000000/sheet').set(auth(analyst)).expect(404);
-      await t.http().get('/api/runs/not-a-uuid').set(auth(analyst)).expect(400);
+      await t.http().get('/api/runs/00000000-0000-4000-8000-000000000000').set(bearer(analyst)).expect(404);
+      await t.http().get('/api/runs/00000000-0000-4000-8000-000000000000/export?format=csv').set(bearer(analyst)).expect(404);
+      await t.http().get('/api/runs/00000000-0000-4000-8000-000000000000/sheet').set(bearer(analyst)).expect(404);
+      await t.http().get('/api/runs/not-a-uuid').set(bearer(analyst)).expect(400);
     });
   });
 
@@ -657,26 +596,26 @@ describe('routine runs', () => {
     let rejectedId: string;
 
     beforeAll(async () => {
-      const list = await t.http().get('/api/runs').query({ methodVersionId: versions.fluorescence }).set(auth(analyst)).expect(200);
+      const list = await t.http().get('/api/runs').query({ methodVersionId: versions.fluorescence }).set(bearer(analyst)).expect(200);
       runId = list.body.items.find((r: { status: string }) => r.status === 'accepted').id;
       rejectedId = list.body.items.find((r: { status: string }) => r.status === 'rejected').id;
       // Results leave Meritline only from a run a second person released.
       const submitted = await t
         .http()
         .post(`/api/runs/${runId}/submit`)
-        .set(auth(analyst))
+        .set(bearer(analyst))
         .send({ password: DEMO_PASSWORD, version: 1 })
         .expect(200);
       await t
         .http()
         .post(`/api/runs/${runId}/release`)
-        .set(auth(reviewer))
+        .set(bearer(reviewer))
         .send({ password: DEMO_PASSWORD, version: submitted.body.lockVersion })
         .expect(200);
     });
 
     it('should export the results as CSV with units in the headers and one row per unknown', async () => {
-      const res = await t.http().get(`/api/runs/${runId}/export`).query({ format: 'csv' }).set(auth(reviewer)).expect(200);
+      const res = await t.http().get(`/api/runs/${runId}/export`).query({ format: 'csv' }).set(bearer(reviewer)).expect(200);
       expect(res.headers['content-type']).toMatch(/^text\/csv/);
       expect(res.headers['content-disposition']).toMatch(/attachment; filename="run-fluorescein-batch-7-\d{4}-\d{2}-\d{2}\.csv"/);
       const parsed = Papa.parse<Record<string, string>>(res.text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true });
@@ -685,7 +624,7 @@ describe('routine runs', () => {
       expect(parsed.data[0]).toMatchObject({ Sample: 'S-1', Replicates: '4', Reported: '6.21 ± 0.36 pg/ml', Reportable: 'yes' });
       expect(parsed.data[1]).toMatchObject({ Sample: 'S-2', Reported: '< 2.2 pg/ml', Flags: 'below LOD; below LOQ' });
       // A rejected run is never released, so its export is refused; the CSV it would give still marks every row not reportable.
-      const refusedExport = await t.http().get(`/api/runs/${rejectedId}/export?format=csv`).set(auth(analyst)).expect(409);
+      const refusedExport = await t.http().get(`/api/runs/${rejectedId}/export?format=csv`).set(bearer(analyst)).expect(409);
       expect(refusedExport.body.message).toMatch(/released/);
       const rejected = { text: runCsv(await t.app.get(RunsService).findOne(rejectedId), []) };
       const rows = Papa.parse<Record<string, string>>(rejected.text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: true }).data;
@@ -693,17 +632,7 @@ describe('routine runs', () => {
     });
 
     it('should export an XLSX workbook that reads back with exceljs', async () => {
-      const res = await t
-        .http()
-        .get(`/api/runs/${runId}/export?format=xlsx`)
-        .set(auth(analyst))
-        .buffer(true)
-        .parse((response, done) => {
-          const chunks: Buffer[] = [];
-          response.on('data', (chunk: Buffer) => chunks.push(chunk));
-          response.on('end', () => done(null, Buffer.concat(chunks)));
-        })
-        .expect(200);
+      const res = await t.http().get(`/api/runs/${runId}/export?format=xlsx`).set(bearer(analyst)).buffer(true).parse(binary).expect(200);
       const workbook = new ExcelJS.Workbook();
       await workbook.xlsx.load(res.body as ArrayBuffer);
       expect(workbook.worksheets.map((s) => s.name)).toEqual(['Results', 'Check standards', 'Standards', 'Run']);
@@ -712,21 +641,11 @@ describe('routine runs', () => {
       const row = Object.fromEntries(header.map((h, i) => [h, results.getRow(2).getCell(i + 1).value]));
       expect(row).toMatchObject({ Sample: 'S-1', Reported: '6.21 ± 0.36 pg/ml', 'Concentration (pg/ml)': 6.20722 });
       expect(workbook.getWorksheet('Check standards')!.getRow(2).getCell(1).value).toBe('CCV-1');
-      await t.http().get(`/api/runs/${runId}/export?format=pdf`).set(auth(analyst)).expect(422);
+      await t.http().get(`/api/runs/${runId}/export?format=pdf`).set(bearer(analyst)).expect(422);
     });
 
     it('should print a run sheet whose text carries the title, a reported unknown and the caution', async () => {
-      const res = await t
-        .http()
-        .get(`/api/runs/${runId}/sheet`)
-        .set(auth(quality))
-        .buffer(true)
-        .parse((response, done) => {
-          const chunks: Buffer[] = [];
-          response.on('data', (chunk: Buffer) => chunks.push(chunk));
-          response.on('end', () => done(null, Buffer.concat(chunks)));
-        })
-        .expect(200);
+      const res = await t.http().get(`/api/runs/${runId}/sheet`).set(bearer(quality)).buffer(true).parse(binary).expect(200);
       expect(res.headers['content-type']).toBe('application/pdf');
       mkdirSync(OUTPUT, { recursive: true });
       const file = join(OUTPUT, 'run-sheet.pdf');
@@ -737,28 +656,28 @@ describe('routine runs', () => {
       expect(text).toMatch(/Run accepted/);
       expect(text).toMatch(/regulations that apply/);
       await t.http().get(`/api/runs/${runId}/sheet`).expect(401);
-      await t.http().get(`/api/runs/${runId}/sheet`).set(auth(admin)).expect(403);
+      await t.http().get(`/api/runs/${runId}/sheet`).set(bearer(admin)).expect(403);
     });
   });
 
   describe('slope control chart', () => {
     it('should chart the seeded nitrate runs of the active version, with the rejected run left off and the recent drift flagged', async () => {
-      const choices = await t.http().get('/api/runs/method-choices').set(auth(quality)).expect(200);
+      const choices = await t.http().get('/api/runs/method-choices').set(bearer(quality)).expect(200);
       const nitrate = choices.body.find((m: { name: string }) => m.name === 'Nitrate in drinking water by ion chromatography');
       const active = nitrate.versions.find((v: { status: string }) => v.status === 'active');
-      const runs = await t.http().get('/api/runs').query({ methodVersionId: active.id, pageSize: 100 }).set(auth(quality)).expect(200);
+      const runs = await t.http().get('/api/runs').query({ methodVersionId: active.id, pageSize: 100 }).set(bearer(quality)).expect(200);
       expect(runs.body.items.filter((r: { status: string }) => r.status === 'rejected')).toHaveLength(1);
-      const chart = await t.http().get(`/api/method-versions/${active.id}/control-chart`).set(auth(quality)).expect(200);
+      const chart = await t.http().get(`/api/method-versions/${active.id}/control-chart`).set(bearer(quality)).expect(200);
       expect(chart.body.n).toBe(runs.body.total - 1);
       expect(chart.body.limits.action[0]).toBeLessThan(chart.body.mean);
       expect(chart.body.points.at(-1).flags).toContain('sevenOnOneSide');
-      const options = await t.http().get(`/api/method-versions/${active.id}/run-options`).set(auth(analyst)).expect(200);
+      const options = await t.http().get(`/api/method-versions/${active.id}/run-options`).set(bearer(analyst)).expect(200);
       expect(options.body).toMatchObject({ usable: true, checkTolerancePct: 10 });
       expect(options.body.models.find((m: { model: string }) => m.model === 'one-point').allowed).toBe(true);
     });
 
     it('should give no limits below three accepted runs, with a message', async () => {
-      const res = await t.http().get(`/api/method-versions/${versions.absorbanceChart}/control-chart`).set(auth(analyst)).expect(200);
+      const res = await t.http().get(`/api/method-versions/${versions.absorbanceChart}/control-chart`).set(bearer(analyst)).expect(200);
       expect(res.body).toMatchObject({
         n: 0,
         limits: null,
@@ -800,7 +719,7 @@ describe('routine runs', () => {
           unknowns: [{ id: 'U', y: [0.3] }],
         },
       }).expect(201);
-      const res = await t.http().get(`/api/method-versions/${versions.absorbanceChart}/control-chart`).set(auth(reviewer)).expect(200);
+      const res = await t.http().get(`/api/method-versions/${versions.absorbanceChart}/control-chart`).set(bearer(reviewer)).expect(200);
       const slopes = top.map((y) => y / 10);
       const mean = slopes.reduce((a, b) => a + b, 0) / slopes.length;
       const sd = Math.sqrt(slopes.reduce((ss, s) => ss + (s - mean) ** 2, 0) / (slopes.length - 1));

@@ -1,17 +1,15 @@
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { canonicalJson, ENGINE_VERSION } from '@meritline/shared';
+import { listMethods, readRows, signedIn } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 type Row = Record<string, unknown>;
-type Database = { prepare(sql: string): { all(...params: unknown[]): Row[] }; close(): void };
-const Sqlite = createRequire(import.meta.url)('better-sqlite3') as new (path: string, options: { readonly: boolean }) => Database;
 
 /* eslint-disable @typescript-eslint/no-explicit-any -- reference files are plain JSON */
 const reference = (name: string): any => JSON.parse(readFileSync(new URL(`../../reference-checks/data/${name}`, import.meta.url), 'utf8'));
@@ -58,15 +56,7 @@ describe('validation studies', () => {
   let t: TestApp;
   const versions: Record<string, string> = {};
   const seeded: Record<string, Row> = {};
-  const auth = async (email: string) => ({ Authorization: `Bearer ${await t.tokenFor(email)}` });
-  const rows = (sql: string, ...params: unknown[]) => {
-    const db = new Sqlite(t.databasePath, { readonly: true });
-    try {
-      return db.prepare(sql).all(...params);
-    } finally {
-      db.close();
-    }
-  };
+  const rows = (sql: string, ...params: unknown[]) => readRows(t, sql, ...params);
   const stored = (id: string) =>
     rows('SELECT data, data_hash, lock_version, title, status, editor_ids FROM validation_studies WHERE id = ?', id)[0];
   const studyCount = () => rows('SELECT COUNT(*) AS n FROM validation_studies')[0].n;
@@ -74,25 +64,20 @@ describe('validation studies', () => {
     t
       .http()
       .post('/api/studies')
-      .set(await auth(DEMO.analyst))
+      .set(await signedIn(t, DEMO.analyst))
       .send(body)
       .expect(status);
 
   beforeAll(async () => {
     t = await createTestApp();
-    const methods = (
-      await t
-        .http()
-        .get('/api/methods')
-        .set(await auth(DEMO.analyst))
-    ).body;
+    const methods = await listMethods(t, DEMO.analyst);
     for (const method of methods)
       for (const version of method.versions) versions[`${method.analyte.split(' ')[0].toLowerCase()} v${version.number}`] = version.id;
     const page = (
       await t
         .http()
         .get('/api/studies?pageSize=100')
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
     ).body;
     for (const study of page.items) seeded[study.title] = study;
   });
@@ -104,7 +89,7 @@ describe('validation studies', () => {
       const res = await t
         .http()
         .get('/api/studies')
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(200);
       expect(res.body).toMatchObject({ total: 10, page: 1, pageSize: 20 });
       expect(res.body.items.map((s: Row) => s.title).sort()).toEqual(Object.values(TITLES).sort());
@@ -129,7 +114,7 @@ describe('validation studies', () => {
     });
 
     it('should page and sort on the server', async () => {
-      const headers = await auth(DEMO.reviewer);
+      const headers = await signedIn(t, DEMO.reviewer);
       const titles = (await t.http().get('/api/studies?sort=title&order=asc&pageSize=100').set(headers).expect(200)).body.items.map(
         (s: Row) => s.title,
       );
@@ -147,7 +132,7 @@ describe('validation studies', () => {
     });
 
     it('should filter by status, method, version, author, mine, title text and date range', async () => {
-      const analyst = await auth(DEMO.analyst);
+      const analyst = await signedIn(t, DEMO.analyst);
       const count = async (query: string) => (await t.http().get(`/api/studies?${query}`).set(analyst).expect(200)).body.total;
       expect(await count('status=draft')).toBe(3);
       expect(await count(`methodVersionId=${versions['nitrate v2']}`)).toBe(2);
@@ -167,7 +152,7 @@ describe('validation studies', () => {
     });
 
     it('should answer bad query parameters with 422 naming the parameter', async () => {
-      const headers = await auth(DEMO.analyst);
+      const headers = await signedIn(t, DEMO.analyst);
       for (const [query, field] of [
         ['pageSize=101', 'pageSize'],
         ['page=0', 'page'],
@@ -193,7 +178,7 @@ describe('validation studies', () => {
         await t
           .http()
           .post('/api/studies')
-          .set(await auth(email))
+          .set(await signedIn(t, email))
           .send(body)
           .expect(403);
       expect(studyCount()).toBe(10);
@@ -284,13 +269,13 @@ describe('validation studies', () => {
         await t
           .http()
           .get(`/api/method-versions/${versions['tartrazine v1']}`)
-          .set(await auth(DEMO.analyst))
+          .set(await signedIn(t, DEMO.analyst))
       ).body;
       const analyst = (
         await t
           .http()
           .get('/api/auth/me')
-          .set(await auth(DEMO.analyst))
+          .set(await signedIn(t, DEMO.analyst))
       ).body;
       expect(res.body).toMatchObject({
         title: 'Fluorescein check',
@@ -358,7 +343,7 @@ describe('validation studies', () => {
           await t
             .http()
             .get(`/api/studies/${id}`)
-            .set(await auth(DEMO.reviewer))
+            .set(await signedIn(t, DEMO.reviewer))
             .expect(200)
         ).body;
         const dir = mkdtempSync(join(tmpdir(), 'meritline-cli-'));
@@ -380,12 +365,12 @@ describe('validation studies', () => {
       await t
         .http()
         .get(`/api/studies/${UNKNOWN_ID}`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(404);
       await t
         .http()
         .get('/api/studies/42')
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .expect(400);
     });
   });
@@ -402,7 +387,7 @@ describe('validation studies', () => {
       const res = await t
         .http()
         .patch(`/api/studies/${studyId}`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send({ lockVersion: 1, title: 'Editable study, renamed', meta: { conclusion: 'Pending.' } })
         .expect(200);
       expect(res.body).toMatchObject({
@@ -421,13 +406,13 @@ describe('validation studies', () => {
       await t
         .http()
         .patch(`/api/studies/${studyId}`)
-        .set(await auth(DEMO.reviewer))
+        .set(await signedIn(t, DEMO.reviewer))
         .send({ lockVersion: 2, title: 'x' })
         .expect(403);
       const other = await t
         .http()
         .patch(`/api/studies/${studyId}`)
-        .set(await auth(DEMO.analyst2))
+        .set(await signedIn(t, DEMO.analyst2))
         .send({ lockVersion: 2, title: 'Mine now' })
         .expect(403);
       expect(other.body.message).toBe('Only the author of a study may change it.');
@@ -435,7 +420,7 @@ describe('validation studies', () => {
     });
 
     it('should answer 409 for a submitted or approved study, 409 for a stale lockVersion, 422 without one and 404 for an unknown id', async () => {
-      const alma = await auth(DEMO.analyst);
+      const alma = await signedIn(t, DEMO.analyst);
       const submitted = await t
         .http()
         .patch(`/api/studies/${seeded[TITLES.dye].id}`)
@@ -458,7 +443,7 @@ describe('validation studies', () => {
     });
 
     it('should let exactly one of two simultaneous data edits win and store the winner’s data and result', async () => {
-      const alma = await auth(DEMO.analyst);
+      const alma = await signedIn(t, DEMO.analyst);
       const { lock_version: lockVersion } = stored(studyId);
       const edit = (blank: number) => ({ ...completeData(), blanks: [blank, blank + 0.1, blank + 0.2] });
       const [a, b] = await Promise.all([
@@ -489,7 +474,7 @@ describe('validation studies', () => {
       const res = await t
         .http()
         .patch(`/api/studies/${studyId}`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .send({ lockVersion: before.lock_version, data })
         .expect(422);
       expect(res.body.errors).toEqual([expect.objectContaining({ field: 'standards[0].excluded.reason' })]);
@@ -497,7 +482,7 @@ describe('validation studies', () => {
     });
 
     it('should record each newly excluded standard with its reason and each re-included one', async () => {
-      const alma = await auth(DEMO.analyst);
+      const alma = await signedIn(t, DEMO.analyst);
       const current = (await t.http().get(`/api/studies/${studyId}`).set(alma)).body;
       const data = structuredClone(current.data);
       data.standards[2].excluded = { reason: 'Cuvette scratched.' };
@@ -524,7 +509,7 @@ describe('validation studies', () => {
     });
 
     it('should keep a draft whose data become incomplete, with no result and the reasons', async () => {
-      const alma = await auth(DEMO.analyst);
+      const alma = await signedIn(t, DEMO.analyst);
       const { lock_version: lockVersion } = stored(studyId);
       const res = await t
         .http()
@@ -536,7 +521,7 @@ describe('validation studies', () => {
     });
 
     it('should ask for a reason before changing the data of a returned study, and add the editor', async () => {
-      const tomasz = await auth(DEMO.analyst2);
+      const tomasz = await signedIn(t, DEMO.analyst2);
       const study = (await t.http().get(`/api/studies/${seeded[TITLES.pesticideReturned].id}`).set(tomasz)).body;
       const before = stored(study.id);
       const data = structuredClone(study.data);
@@ -591,40 +576,40 @@ describe('validation studies', () => {
       await t
         .http()
         .delete(`/api/studies/${draft.id}`)
-        .set(await auth(DEMO.quality))
+        .set(await signedIn(t, DEMO.quality))
         .expect(403);
       await t
         .http()
         .delete(`/api/studies/${draft.id}`)
-        .set(await auth(DEMO.analyst2))
+        .set(await signedIn(t, DEMO.analyst2))
         .expect(403);
       await t
         .http()
         .delete(`/api/studies/${seeded[TITLES.dye].id}`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(409);
       const returned = await t
         .http()
         .delete(`/api/studies/${seeded[TITLES.pesticideReturned].id}`)
-        .set(await auth(DEMO.analyst2))
+        .set(await signedIn(t, DEMO.analyst2))
         .expect(409);
       expect(returned.body.message).toMatch(/Only a draft/);
       await t
         .http()
         .delete(`/api/studies/${UNKNOWN_ID}`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(404);
       expect(stored(draft.id)).toBeDefined();
 
       await t
         .http()
         .delete(`/api/studies/${draft.id}`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(204);
       await t
         .http()
         .get(`/api/studies/${draft.id}`)
-        .set(await auth(DEMO.analyst))
+        .set(await signedIn(t, DEMO.analyst))
         .expect(404);
       expect(rows(`SELECT action FROM audit_entries WHERE entity_id = ? ORDER BY seq`, draft.id).map((e) => e.action)).toEqual([
         'study.created',

@@ -57,6 +57,11 @@ test('an analyst calibrates a run with two points, then with one point, and expo
   await expect(runs.getByRole('row').filter({ hasText: 'Rejected' })).toHaveCount(1);
   await shot(page, 'list');
 
+  // The preview runs the shared calculation in the browser: typing sends no run to the server.
+  const previewRequests: string[] = [];
+  page.on('request', (request) => {
+    if (request.url().includes('/api/runs/preview')) previewRequests.push(request.url());
+  });
   await page.getByRole('link', { name: 'New run' }).click();
   await chooseVersion(page);
   await expect(page.getByTestId('validation-summary')).toContainText('Nitrate by IC after the column change');
@@ -73,6 +78,7 @@ test('an analyst calibrates a run with two points, then with one point, and expo
   await expect(samples.getByRole('row', { name: /W-2811/ })).toContainText('mg/L');
   await expect(samples.getByRole('row', { name: /W-2813/ })).toContainText('below the LOQ');
   await shot(page, 'new-two-point');
+  expect(previewRequests).toEqual([]);
 
   await page.getByRole('button', { name: 'Save run' }).click();
   await expect(page.getByRole('heading', { level: 1, name: 'Nitrate in drinking water, two-point batch' })).toBeVisible();

@@ -1,7 +1,7 @@
+import type { RunUnknown } from '@meritline/shared';
 import { screen, within } from '@testing-library/react';
 import { ControlsTables } from '@/features/runs/components/controls-table';
 import { ResultsTable } from '@/features/runs/components/results-table';
-import type { RunUnknown } from '@/features/runs/api/types';
 import { renderWithProviders } from './render';
 
 // Invented sample, diluted 1:10: the line reads 32.254 mg/L; the result is ten times that.

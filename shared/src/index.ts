@@ -61,7 +61,8 @@ export * from './api/reference-materials.js';
 export * from './api/preparations.js';
 export { routineUncertainty } from './engine/routine-uncertainty.js';
 export type * from './api/runs.js';
-export { QC_SERIES, QC_SERIES_LABELS, IMPORT_MAPPING_FIELDS, IMPORT_MAPPING_LABELS, RUN_MODELS } from './api/runs.js';
+export { QC_SERIES, QC_SERIES_LABELS, IMPORT_MAPPING_FIELDS, IMPORT_MAPPING_LABELS, RUN_MODELS, RUN_DATA_KEYS } from './api/runs.js';
+export * from './runs/index.js';
 export {
   controlLimits,
   controlSignals,

@@ -13,13 +13,13 @@ import {
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBearerAuth, ApiConsumes, ApiTags } from '@nestjs/swagger';
-import { Role, type ImportMappingDto, type InstrumentImportResult } from '@meritline/shared';
+import { Role, type ImportMappingDto, type InstrumentImportResult, type RunControlChartDto, type RunOptionsDto } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { MAX_IMPORT_BYTES } from '../studies/import-table.js';
 import { PutImportMappingDto } from './dto/import-mapping.dto.js';
 import { InstrumentImportService } from './instrument-import.service.js';
-import { RunsService, type RunControlChart, type RunOptions } from './runs.service.js';
+import { RunsService } from './runs.service.js';
 
 /** What routine runs need to know about a method version. */
 @ApiTags('runs')
@@ -33,12 +33,12 @@ export class MethodVersionRunsController {
   ) {}
 
   @Get('run-options')
-  runOptions(@Param('id', ParseUUIDPipe) id: string): Promise<RunOptions> {
+  runOptions(@Param('id', ParseUUIDPipe) id: string): Promise<RunOptionsDto> {
     return this.runsService.runOptions(id);
   }
 
   @Get('control-chart')
-  controlChart(@Param('id', ParseUUIDPipe) id: string): Promise<RunControlChart> {
+  controlChart(@Param('id', ParseUUIDPipe) id: string): Promise<RunControlChartDto> {
     return this.runsService.controlChart(id);
   }
 

@@ -1,11 +1,15 @@
-import { ROLE_LABELS, RUN_SIGNATURE_MEANING_LABELS, type Role, type RunSignatureMeaning, type RunUnknown } from '@meritline/shared';
+import {
+  formatRunSignificant,
+  ROLE_LABELS,
+  RUN_CAUTION,
+  runDecimalsFor,
+  RUN_SIGNATURE_MEANING_LABELS,
+  type Role,
+  type RunDto,
+  type RunSignatureMeaning,
+  type RunUnknown,
+} from '@meritline/shared';
 import { colors, createPdfComposer, formatDate, formatDateTime, sizes } from '../reports/pdf/index.js';
-import { decimalsFor, formatSignificant } from './report-format.js';
-import type { RunDto } from './runs.service.js';
-
-/** Said on every exported and printed run: the software computes, the laboratory decides. */
-export const RUN_CAUTION =
-  'Results are reported under the laboratory’s own procedures and the regulations that apply to the sample (for drinking water and released products, the limits and reporting rules of the competent authority). A qualified person reviews them before release. The results of a rejected run are not reportable.';
 
 /** Key of the PDF information entry naming the results report, so a changed copy can still be recognised. */
 export const RESULTS_REPORT_ID_INFO_KEY = 'MeritlineResultsReportId';
@@ -42,10 +46,10 @@ export function resultCells(u: RunUnknown, unit: string): { result: string; U: s
   if (u.reported.startsWith('<') || u.reported.startsWith('>')) return { result: stripUnit(u.reported, unit), U: '' };
   if (U !== undefined && U > 0) {
     const half = Number(U.toPrecision(2));
-    const decimals = decimalsFor(half, 2);
+    const decimals = runDecimalsFor(half, 2);
     return { result: u.x0.toFixed(decimals), U: half.toFixed(decimals) };
   }
-  return { result: formatSignificant(u.x0, 3), U: '' };
+  return { result: formatRunSignificant(u.x0, 3), U: '' };
 }
 
 export const releaseSignature = (signatures: ReportSignature[]): ReportSignature | null =>

@@ -1,8 +1,7 @@
-import { type RunUnknown } from '@meritline/shared';
+import { RUN_CAUTION, type RunDto, type RunUnknown } from '@meritline/shared';
 import ExcelJS from 'exceljs';
 import { toCsv } from '../common/csv.js';
-import { reportRows, RUN_CAUTION, type ReportSignature } from './results-report.js';
-import type { RunDto } from './runs.service.js';
+import { reportRows, type ReportSignature } from './results-report.js';
 
 export const FLAG_LABELS: Record<RunUnknown['flags'][number], string> = {
   belowLod: 'below LOD',

@@ -1,13 +1,11 @@
 import { ConflictException, ForbiddenException, Injectable, Logger, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { createHash } from 'node:crypto';
 import { DataSource, In, type EntityManager } from 'typeorm';
 import {
-  canonicalJson,
-  ENGINE_VERSION,
   Role,
   RunReviewStatus,
   RUN_REVIEW_STATUS_LABELS,
+  type RunDto,
   type RunQueueItemDto,
   type RunReviewDto,
   type RunSignatureMeaning,
@@ -22,10 +20,11 @@ import { NotificationsService } from '../notifications/notifications.service.js'
 import { User } from '../users/user.entity.js';
 import { UsersService } from '../users/users.service.js';
 import type { ReturnRunDto, SignRunDto, SupersedeRunDto } from './dto/run-signing.dto.js';
+import { runContentHash, saveCalculatedRun } from './run-record.js';
 import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
 import { QcTrendsService } from './qc-trends.service.js';
-import { RunsService, type RunDto } from './runs.service.js';
+import { RunsService } from './runs.service.js';
 
 export const WRONG_RUN_PASSWORD = 'Password not correct; nothing was signed.';
 
@@ -42,12 +41,6 @@ interface PendingMail {
 }
 
 const statusWords = (run: Run) => RUN_REVIEW_STATUS_LABELS[run.reviewStatus].toLowerCase();
-
-function runContentHash(run: Pick<Run, 'data' | 'result'>): string {
-  return createHash('sha256')
-    .update(canonicalJson({ data: run.data, result: run.result }))
-    .digest('hex');
-}
 
 /** Submission, second-person release, return and correction of routine runs. */
 @Injectable()
@@ -175,42 +168,14 @@ export class RunReleaseService {
     const evaluation = await this.runsService.preview(dto);
     let deliver: () => Promise<void> = async () => {};
     const createdId = await writeTransaction(this.dataSource, async (manager) => {
-      const saved = await manager.save(
-        manager.create(Run, {
-          methodVersionId: old.methodVersionId,
-          title: dto.title.trim(),
-          status: evaluation.status,
-          model: evaluation.data.model as string,
-          data: evaluation.data,
-          result: evaluation.result as unknown as Record<string, unknown>,
-          rejectionReasons: evaluation.rejectionReasons,
-          engineVersion: ENGINE_VERSION,
-          dataHash: createHash('sha256').update(canonicalJson(evaluation.data)).digest('hex'),
-          authorId: actor.id,
-          createdAt: new Date(),
-          reviewStatus: RunReviewStatus.Calculated,
-          lockVersion: 1,
-          supersedesId: old.id,
-          supersedeReason: reason,
-        }),
-      );
-      await this.audit.record(
-        {
-          actor,
-          action: 'run.created',
-          entity: 'run',
-          entityId: saved.id,
-          changes: {
-            methodVersionId: { from: null, to: saved.methodVersionId },
-            model: { from: null, to: saved.model },
-            status: { from: null, to: saved.status },
-            dataHash: { from: null, to: saved.dataHash },
-            supersedesId: { from: null, to: old.id },
-          },
-          reason,
-        },
-        manager,
-      );
+      const saved = await saveCalculatedRun(manager, this.audit, {
+        methodVersionId: old.methodVersionId,
+        title: dto.title.trim(),
+        evaluation,
+        author: actor,
+        createdAt: new Date(),
+        supersedes: { id: old.id, reason },
+      });
       await this.guardedUpdate(manager, old, {
         reviewStatus: RunReviewStatus.Superseded,
         supersededById: saved.id,

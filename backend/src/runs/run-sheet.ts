@@ -1,4 +1,4 @@
-import { type DetectionApproach, type RunResult, type ValidationBasis } from '@meritline/shared';
+import { RUN_CAUTION, type DetectionApproach, type RunDto, type RunResult, type ValidationBasis } from '@meritline/shared';
 import {
   colors,
   createPdfComposer,
@@ -11,8 +11,6 @@ import {
   type PlotPoint,
 } from '../reports/pdf/index.js';
 import { APPROACH_LABELS } from '../reports/report-figures.js';
-import { RUN_CAUTION } from './results-report.js';
-import type { RunDto } from './runs.service.js';
 
 const MODEL_NAMES: Record<string, string> = {
   'one-point': 'One-point (line through the origin)',

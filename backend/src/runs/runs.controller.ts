@@ -1,7 +1,7 @@
 import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query, Res, StreamableFile } from '@nestjs/common';
 import { ApiBearerAuth, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
-import { Role, type RunReviewDto } from '@meritline/shared';
+import { Role, type RunDto, type RunMethodChoiceDto, type RunPageDto, type RunPreviewDto, type RunReviewDto } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { CreateRunDto } from './dto/create-run.dto.js';
@@ -10,7 +10,7 @@ import { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
 import { ReturnRunDto, SignRunDto, SupersedeRunDto } from './dto/run-signing.dto.js';
 import { RunReleaseService } from './run-release.service.js';
 import { RunReportService } from './run-report.service.js';
-import { RunsService, type MethodChoice, type RunDto, type RunFile, type RunPage, type RunPreview } from './runs.service.js';
+import { RunsService, type RunFile } from './runs.service.js';
 
 function send(res: Response, file: RunFile): StreamableFile {
   res.set({ 'Content-Type': file.contentType, 'Content-Disposition': `attachment; filename="${file.filename}"` });
@@ -29,13 +29,13 @@ export class RunsController {
   ) {}
 
   @Get()
-  list(@Query() query: ListRunsQueryDto): Promise<RunPage> {
+  list(@Query() query: ListRunsQueryDto): Promise<RunPageDto> {
     return this.runsService.list(query);
   }
 
   /** Methods with their versions, each marked usable for runs or not (and why). */
   @Get('method-choices')
-  methodChoices(): Promise<MethodChoice[]> {
+  methodChoices(): Promise<RunMethodChoiceDto[]> {
     return this.runsService.methodChoices();
   }
 
@@ -49,7 +49,7 @@ export class RunsController {
   @Post('preview')
   @Roles(Role.Analyst)
   @HttpCode(200)
-  preview(@Body() dto: CreateRunDto): Promise<RunPreview> {
+  preview(@Body() dto: CreateRunDto): Promise<RunPreviewDto> {
     return this.runsService.preview(dto);
   }
 

@@ -1,17 +1,26 @@
 import { ConflictException, Inject, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
-import { createHash } from 'node:crypto';
 import { DataSource, In, Repository, type FindOptionsWhere } from 'typeorm';
 import {
-  canonicalJson,
-  ENGINE_VERSION,
+  evaluateRun,
+  modelChoices,
+  qcWindow,
+  runContextOf,
+  slopeControlChart,
   StudyValidationError,
+  validationBasis,
   type EvaluationResult,
-  type RunStatus,
-  type ModelChoice,
+  type RunContext,
+  type RunControlChartDto,
+  type RunDto,
+  type RunMethodChoiceDto,
+  type RunMethodDto,
+  type RunModel,
+  type RunOptionsDto,
+  type RunPageDto,
+  type RunPreviewDto,
+  type RunRecordedData,
   type RunResult,
-  type ValidatedRange,
-  type ValidationBasis,
 } from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -24,98 +33,14 @@ import { approvingSignature, failsCriteria } from '../reviews/signatures.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 import { User } from '../users/user.entity.js';
-import { modelChoices, qcWindow, validationBasis } from './calibration-choices.js';
-import { controlChart, type ControlChart } from './control-chart.js';
 import type { CreateRunDto } from './dto/create-run.dto.js';
 import type { ExportFormat } from './dto/export-run.query.dto.js';
 import type { ListRunsQueryDto } from './dto/list-runs.query.dto.js';
-import { evaluateRun, type RunContext } from './run-calculation.js';
 import { runCsv, runWorkbook } from './run-export.js';
 import { runSheet } from './run-sheet.js';
+import { saveCalculatedRun } from './run-record.js';
 import { RunSignature } from './run-signature.entity.js';
 import { Run } from './run.entity.js';
-import type { RunEvaluation } from './run-types.js';
-
-export interface MethodSummary {
-  id: string;
-  name: string;
-  analyte: string;
-  matrix: string;
-  xUnit: string;
-  yUnit: string;
-}
-
-export interface RunOptions {
-  methodVersionId: string;
-  lockVersion: number;
-  versionNumber: number;
-  status: MethodVersion['status'];
-  method: MethodSummary;
-  /** False when no run may be made on the version; `reason` says why. */
-  usable: boolean;
-  reason: string | null;
-  models: ModelChoice[];
-  validationStudyId: string | null;
-  lod: number | null;
-  loq: number | null;
-  validatedRange: ValidatedRange | null;
-  checkTolerancePct: number;
-  onePointMaxInterceptPct: number;
-  validation: ValidationBasis | null;
-}
-
-export interface RunDto {
-  id: string;
-  methodVersionId: string;
-  versionNumber: number;
-  method: MethodSummary;
-  title: string;
-  status: RunStatus;
-  model: string;
-  data: Record<string, unknown>;
-  result: RunResult;
-  rejectionReasons: string[];
-  engineVersion: string;
-  dataHash: string;
-  author: { id: string; name: string };
-  createdAt: string;
-}
-
-export interface RunSummaryDto {
-  id: string;
-  title: string;
-  status: RunStatus;
-  reviewStatus: Run['reviewStatus'];
-  model: string;
-  methodVersionId: string;
-  versionNumber: number;
-  method: Pick<MethodSummary, 'id' | 'name' | 'analyte'>;
-  author: { id: string; name: string };
-  createdAt: string;
-  slope: number | null;
-  unknownCount: number;
-  checkCount: number;
-}
-
-export interface RunPage {
-  items: RunSummaryDto[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
-
-export interface RunPreview {
-  status: RunStatus;
-  result: RunResult;
-  rejectionReasons: string[];
-  data: Record<string, unknown>;
-}
-
-export interface MethodChoice extends MethodSummary {
-  versions: { id: string; number: number; status: MethodVersion['status']; usable: boolean; reason: string | null }[];
-}
-
-export type RunControlChart = ControlChart & { methodVersionId: string; slopeUnit: string };
 
 export interface RunFile {
   body: Buffer;
@@ -140,7 +65,7 @@ function fileName(run: RunDto, extension: string): string {
   return `run-${slug}-${run.createdAt.slice(0, 10)}.${extension}`;
 }
 
-const toMethodSummary = (m: Method): MethodSummary => ({
+const toMethodSummary = (m: Method): RunMethodDto => ({
   id: m.id,
   name: m.name,
   analyte: m.analyte,
@@ -197,7 +122,7 @@ export class RunsService {
     return fit;
   }
 
-  private async optionsFor(version: MethodVersion): Promise<RunOptions> {
+  private async optionsFor(version: MethodVersion): Promise<RunOptionsDto> {
     const study = await this.approvedStudy(version.id);
     const fit = study ? (await this.fitForUse([study])).has(study.id) : false;
     const basis = study?.result
@@ -227,16 +152,17 @@ export class RunsService {
       checkTolerancePct: settings.checkTolerancePct,
       onePointMaxInterceptPct: settings.onePointMaxInterceptPct,
       validation: basis,
+      qcWindow: qcWindow(version.criteria, settings),
     };
   }
 
-  async runOptions(methodVersionId: string): Promise<RunOptions> {
+  async runOptions(methodVersionId: string): Promise<RunOptionsDto> {
     const version = await this.findVersion(methodVersionId);
     if (!version) throw new NotFoundException('Method version not found.');
     return this.optionsFor(version);
   }
 
-  async methodChoices(): Promise<MethodChoice[]> {
+  async methodChoices(): Promise<RunMethodChoiceDto[]> {
     const versions = await this.versions.find({ relations: { method: true }, order: { number: 'ASC' } });
     const approved = await this.studies.find({
       where: { status: 'approved' },
@@ -246,7 +172,7 @@ export class RunsService {
     const latest = new Map<string, (typeof approved)[number]>();
     for (const study of approved) if (!latest.has(study.methodVersionId)) latest.set(study.methodVersionId, study);
     const fit = await this.fitForUse([...latest.values()]);
-    const byMethod = new Map<string, MethodChoice>();
+    const byMethod = new Map<string, RunMethodChoiceDto>();
     for (const version of versions) {
       const entry = byMethod.get(version.methodId) ?? { ...toMethodSummary(version.method), versions: [] };
       const study = latest.get(version.id);
@@ -268,21 +194,12 @@ export class RunsService {
       );
     }
     const options = await this.optionsFor(version);
-    if (!options.usable || !options.validation) throw refuse(options.reason ?? 'This version cannot be used for runs.');
-    const { method, settings } = version;
-    return {
-      version,
-      context: {
-        basis: options.validation,
-        choices: options.models,
-        settings,
-        units: { x: method.xUnit, y: method.yUnit },
-        qcWindow: qcWindow(version.criteria, settings),
-      },
-    };
+    const context = options.usable ? runContextOf(options) : null;
+    if (!context) throw refuse(options.reason ?? 'This version cannot be used for runs.');
+    return { version, context };
   }
 
-  private calculate(dto: CreateRunDto, context: RunContext): RunEvaluation {
+  private calculate(dto: CreateRunDto, context: RunContext): RunPreviewDto {
     try {
       return evaluateRun(dto.data, context);
     } catch (error) {
@@ -291,7 +208,7 @@ export class RunsService {
     }
   }
 
-  async preview(dto: CreateRunDto): Promise<RunPreview> {
+  async preview(dto: CreateRunDto): Promise<RunPreviewDto> {
     const { context } = await this.contextFor(dto);
     return this.calculate(dto, context);
   }
@@ -299,40 +216,16 @@ export class RunsService {
   async create(dto: CreateRunDto, actor: AuthUser): Promise<RunDto> {
     const { version, context } = await this.contextFor(dto);
     const evaluation = this.calculate(dto, context);
-    const run = await writeTransaction(this.dataSource, async (manager) => {
-      const saved = await manager.save(
-        manager.create(Run, {
-          methodVersionId: version.id,
-          title: dto.title.trim(),
-          status: evaluation.status,
-          model: evaluation.data.model as string,
-          data: evaluation.data,
-          result: evaluation.result as unknown as Record<string, unknown>,
-          rejectionReasons: evaluation.rejectionReasons,
-          engineVersion: ENGINE_VERSION,
-          dataHash: createHash('sha256').update(canonicalJson(evaluation.data)).digest('hex'),
-          authorId: actor.id,
-          // Millisecond time keeps runs of the same second in order (the column default has whole seconds on SQLite).
-          createdAt: new Date(),
-        }),
-      );
-      await this.audit.record(
-        {
-          actor,
-          action: 'run.created',
-          entity: 'run',
-          entityId: saved.id,
-          changes: {
-            methodVersionId: { from: null, to: version.id },
-            model: { from: null, to: saved.model },
-            status: { from: null, to: saved.status },
-            dataHash: { from: null, to: saved.dataHash },
-          },
-        },
-        manager,
-      );
-      return saved;
-    });
+    const run = await writeTransaction(this.dataSource, (manager) =>
+      saveCalculatedRun(manager, this.audit, {
+        methodVersionId: version.id,
+        title: dto.title.trim(),
+        evaluation,
+        author: actor,
+        // Millisecond time keeps runs of the same second in order (the column default has whole seconds on SQLite).
+        createdAt: new Date(),
+      }),
+    );
     return this.toDto(run, version, { id: actor.id, name: actor.name });
   }
 
@@ -344,8 +237,8 @@ export class RunsService {
       method: toMethodSummary(version.method),
       title: run.title,
       status: run.status,
-      model: run.model,
-      data: run.data,
+      model: run.model as RunModel,
+      data: run.data as RunRecordedData,
       result: run.result as unknown as RunResult,
       rejectionReasons: run.rejectionReasons,
       engineVersion: run.engineVersion,
@@ -368,7 +261,7 @@ export class RunsService {
     return this.toDto(run, run.methodVersion, authors.get(run.authorId) ?? { id: run.authorId, name: 'Unknown user' });
   }
 
-  async list(query: ListRunsQueryDto): Promise<RunPage> {
+  async list(query: ListRunsQueryDto): Promise<RunPageDto> {
     const where: FindOptionsWhere<Run> = {};
     if (query.methodVersionId) where.methodVersionId = query.methodVersionId;
     if (query.status) where.status = query.status;
@@ -389,7 +282,7 @@ export class RunsService {
           title: run.title,
           status: run.status,
           reviewStatus: run.reviewStatus,
-          model: run.model,
+          model: run.model as RunModel,
           methodVersionId: run.methodVersionId,
           versionNumber: run.methodVersion.number,
           method: { id: run.methodVersion.method.id, name: run.methodVersion.method.name, analyte: run.methodVersion.method.analyte },
@@ -406,15 +299,15 @@ export class RunsService {
     };
   }
 
-  async controlChart(methodVersionId: string): Promise<RunControlChart> {
+  async controlChart(methodVersionId: string): Promise<RunControlChartDto> {
     const version = await this.findVersion(methodVersionId);
     if (!version) throw new NotFoundException('Method version not found.');
     const accepted = await this.runs.find({ where: { methodVersionId, status: 'accepted' }, order: { createdAt: 'ASC', id: 'ASC' } });
-    const chart = controlChart(
+    const chart = slopeControlChart(
       accepted.flatMap((run) => {
         const slope = (run.result as unknown as RunResult).calibration?.slope;
         return typeof slope === 'number'
-          ? [{ runId: run.id, title: run.title, createdAt: run.createdAt.toISOString(), model: run.model, slope }]
+          ? [{ runId: run.id, title: run.title, createdAt: run.createdAt.toISOString(), model: run.model as RunModel, slope }]
           : [];
       }),
     );

@@ -23,6 +23,7 @@ import { User } from '../users/user.entity.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { withMethodDefaults, type StudyData } from './study-evaluation.js';
 import { importSection } from './study-import.js';
+import { saveNewStudy } from './study-record.js';
 import { ValidationStudy } from './validation-study.entity.js';
 
 const LOCKED_STATUSES = ['submitted', 'approved'];
@@ -258,8 +259,10 @@ export class StudiesService {
       const data = withMethodDefaults(dto.data, version, version.method);
       await this.assertPreparationsUsable(manager, data);
       const evaluation = await this.workers.evaluate(data);
-      const study = await manager.save(
-        manager.create(ValidationStudy, {
+      const study = await saveNewStudy(
+        manager,
+        this.audit,
+        {
           methodVersionId: version.id,
           title: dto.title,
           status: 'draft',
@@ -271,21 +274,8 @@ export class StudiesService {
           copiedFromId: null,
           submittedAt: null,
           approvedAt: null,
-        }),
-      );
-      await this.audit.record(
-        {
-          actor,
-          action: 'study.created',
-          entity: 'study',
-          entityId: study.id,
-          changes: {
-            title: { from: null, to: study.title },
-            methodVersionId: { from: null, to: version.id },
-            dataHash: { from: null, to: study.dataHash },
-          },
         },
-        manager,
+        actor,
       );
       return study.id;
     });

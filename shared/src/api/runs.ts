@@ -1,4 +1,7 @@
-import type { CalibrationModel, Weighting } from '../study.js';
+import type { CalibrationModel, Units, Weighting } from '../study.js';
+import type { RunReviewStatus, RunStatus } from '../run-status.js';
+import type { UserRef } from './common.js';
+import type { MethodVersionStatus } from './methods.js';
 import type { DetectionApproach, EvaluationResult, UnknownResult } from '../result.js';
 import type { UncertaintyResult } from '../uncertainty-types.js';
 import type { RoutineUncertainty } from '../engine/routine-uncertainty.js';
@@ -290,4 +293,150 @@ export interface RunResult extends Omit<EvaluationResult, 'unknowns' | 'checks'>
   blanks?: RunBlankResult[];
   qcSamples?: RunQcSampleResult[];
   qcWindow?: RunQcWindow;
+}
+
+/** The method version settings a run's calculation depends on. */
+export interface RunSettings {
+  checkTolerancePct: number;
+  onePointMaxInterceptPct: number;
+}
+
+/** The keys a run's data may have. */
+export const RUN_DATA_KEYS = ['model', 'weighting', 'twoPoint', 'standards', 'checks', 'unknowns', 'blanks', 'qcSamples'] as const;
+
+/** A run's measurements and calibration choice, as the API takes them. */
+export type RunData = {
+  model: RunModel;
+  weighting?: Weighting;
+  twoPoint?: { bracketing: boolean };
+  standards: { x: number; y: number; sd?: number; excluded?: { reason: string } }[];
+  checks: { id: string; nominal: number; y: number[] }[];
+  unknowns: { id: string; y: number[]; dilution?: number }[];
+  blanks?: RunBlankInput[];
+  qcSamples?: RunQcSampleInput[];
+};
+
+/** The run data as calculated and stored: as given, with the units, weighting and confidence level the calculation used. */
+export type RunRecordedData = RunData & { units: Units; weighting: Weighting; confidence: number };
+
+/** POST /api/runs and POST /api/runs/preview */
+export interface CreateRunRequest {
+  methodVersionId: string;
+  title: string;
+  data: RunData;
+  /** The method version's lock version as loaded; a changed version answers 409. */
+  methodVersionLockVersion?: number;
+}
+
+/** The calculation of a run: what POST /api/runs/preview answers and the browser's preview shows. */
+export interface RunPreviewDto {
+  status: RunStatus;
+  result: RunResult;
+  rejectionReasons: string[];
+  data: RunRecordedData;
+}
+
+/** The method a run belongs to. */
+export interface RunMethodDto {
+  id: string;
+  name: string;
+  analyte: string;
+  matrix: string;
+  xUnit: string;
+  yUnit: string;
+}
+
+/** GET /api/method-versions/:id/run-options: what a run on the version may do, and what its calculation needs. */
+export interface RunOptionsDto {
+  methodVersionId: string;
+  lockVersion: number;
+  versionNumber: number;
+  status: MethodVersionStatus;
+  method: RunMethodDto;
+  /** False when no run may be made on the version; `reason` says why. */
+  usable: boolean;
+  reason: string | null;
+  models: ModelChoice[];
+  validationStudyId: string | null;
+  lod: number | null;
+  loq: number | null;
+  validatedRange: ValidatedRange | null;
+  checkTolerancePct: number;
+  onePointMaxInterceptPct: number;
+  validation: ValidationBasis | null;
+  qcWindow: RunQcWindow;
+}
+
+/** GET /api/runs/method-choices */
+export interface RunMethodChoiceDto extends RunMethodDto {
+  versions: { id: string; number: number; status: MethodVersionStatus; usable: boolean; reason: string | null }[];
+}
+
+/** GET /api/runs/:id */
+export interface RunDto extends RunPreviewDto {
+  id: string;
+  methodVersionId: string;
+  versionNumber: number;
+  method: RunMethodDto;
+  title: string;
+  model: RunModel;
+  engineVersion: string;
+  dataHash: string;
+  author: UserRef;
+  createdAt: string;
+}
+
+export interface RunSummaryDto {
+  id: string;
+  title: string;
+  status: RunStatus;
+  reviewStatus: RunReviewStatus;
+  model: RunModel;
+  methodVersionId: string;
+  versionNumber: number;
+  method: Pick<RunMethodDto, 'id' | 'name' | 'analyte'>;
+  author: UserRef;
+  createdAt: string;
+  slope: number | null;
+  unknownCount: number;
+  checkCount: number;
+}
+
+/** GET /api/runs */
+export interface RunPageDto {
+  items: RunSummaryDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export type SlopeControlFlag = 'beyondWarning' | 'beyondAction' | 'sevenOnOneSide';
+
+export interface SlopeControlPointInput {
+  runId: string;
+  title: string;
+  createdAt: string;
+  model: RunModel;
+  slope: number;
+}
+
+export interface SlopeControlPoint extends SlopeControlPointInput {
+  flags: SlopeControlFlag[];
+}
+
+/** The Shewhart chart of the calibration slope of a version's accepted runs. */
+export interface SlopeControlChart {
+  points: SlopeControlPoint[];
+  mean: number | null;
+  sd: number | null;
+  limits: { warning: [number, number]; action: [number, number] } | null;
+  n: number;
+  /** Why there are no limits, or which drift signals were found. */
+  message: string | null;
+}
+
+/** GET /api/method-versions/:id/control-chart */
+export interface RunControlChartDto extends SlopeControlChart {
+  methodVersionId: string;
+  slopeUnit: string;
 }

@@ -5,3 +5,4 @@ export * from './sections.js';
 export * from './comparisons.js';
 export * from './study-changes.js';
 export * from './audit.js';
+export * from './runs.js';

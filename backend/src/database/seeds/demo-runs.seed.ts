@@ -1,12 +1,10 @@
-import { createHash } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
-import { canonicalJson, ENGINE_VERSION, Role, RunReviewStatus, type EvaluationResult } from '@meritline/shared';
+import { evaluateRun, Role, runContextFor, RunReviewStatus, validationBasis, type EvaluationResult } from '@meritline/shared';
 import { AuditService } from '../../audit/audit.service.js';
 import { MethodVersion } from '../../methods/method-version.entity.js';
 import { Method } from '../../methods/method.entity.js';
-import { modelChoices, qcWindow, validationBasis } from '../../runs/calibration-choices.js';
-import { evaluateRun } from '../../runs/run-calculation.js';
 import { QcBaseline } from '../../runs/qc-baseline.entity.js';
+import { runContentHash, saveCalculatedRun } from '../../runs/run-record.js';
 import { RunSignature } from '../../runs/run-signature.entity.js';
 import { Run } from '../../runs/run.entity.js';
 import { ValidationStudy } from '../../studies/validation-study.entity.js';
@@ -234,9 +232,7 @@ async function releaseAsBaseline(manager: EntityManager, version: MethodVersion,
   const audit = new AuditService(manager.connection);
   for (const run of runs) {
     const author = await manager.findOneByOrFail(User, { id: run.authorId });
-    const hash = createHash('sha256')
-      .update(canonicalJson({ data: run.data, result: run.result }))
-      .digest('hex');
+    const hash = runContentHash(run);
     const submittedAt = new Date(run.createdAt.getTime() + 3_600_000);
     const releasedAt = new Date(run.createdAt.getTime() + 7_200_000);
     await manager.update(Run, { id: run.id }, { reviewStatus: RunReviewStatus.Released, submittedAt, releasedAt, lockVersion: 3 });
@@ -293,13 +289,7 @@ async function seedVersionRuns(manager: EntityManager, version: MethodVersion, r
   if (!basis) return [];
   const saved: Run[] = [];
   const method = await manager.findOneByOrFail(Method, { id: version.methodId });
-  const context = {
-    basis,
-    choices: modelChoices(basis, version.settings, method.yUnit),
-    settings: version.settings,
-    units: { x: method.xUnit, y: method.yUnit },
-    qcWindow: qcWindow(version.criteria, version.settings),
-  };
+  const context = runContextFor(basis, version, { x: method.xUnit, y: method.yUnit });
   const audit = new AuditService(manager.connection);
   for (const [i, demo] of runs.entries()) {
     const author = await manager.findOneByOrFail(User, { email: demo.author });
@@ -307,36 +297,14 @@ async function seedVersionRuns(manager: EntityManager, version: MethodVersion, r
     const model = context.choices.find((c) => c.model === demo.model)?.allowed ? demo.model : 'linear';
     const evaluation = evaluateRun(runData(demo, model, firstIndex + i, basis.validatedRange?.high ?? 50), context);
     const date = daysAgo(demo.daysAgo, 15 - (i % 5));
-    const run = await manager.save(
-      manager.create(Run, {
+    saved.push(
+      await saveCalculatedRun(manager, audit, {
         methodVersionId: version.id,
         title: `Nitrate in drinking water, batch ${date.toISOString().slice(0, 10)}`,
-        status: evaluation.status,
-        model,
-        data: evaluation.data,
-        result: evaluation.result as unknown as Record<string, unknown>,
-        rejectionReasons: evaluation.rejectionReasons,
-        engineVersion: ENGINE_VERSION,
-        dataHash: createHash('sha256').update(canonicalJson(evaluation.data)).digest('hex'),
-        authorId: author.id,
+        evaluation,
+        author,
         createdAt: date,
       }),
-    );
-    saved.push(run);
-    await audit.record(
-      {
-        actor: author,
-        action: 'run.created',
-        entity: 'run',
-        entityId: run.id,
-        changes: {
-          methodVersionId: { from: null, to: version.id },
-          model: { from: null, to: run.model },
-          status: { from: null, to: run.status },
-          dataHash: { from: null, to: run.dataHash },
-        },
-      },
-      manager,
     );
   }
   return saved;

@@ -3,7 +3,7 @@ import type { StudyMeta, StudyStatus } from '@meritline/shared';
 import { AuditService } from '../../audit/audit.service.js';
 import { MethodVersion } from '../../methods/method-version.entity.js';
 import { evaluateStudyData, withMethodDefaults, type StudyData } from '../../studies/study-evaluation.js';
-import { ValidationStudy } from '../../studies/validation-study.entity.js';
+import { saveNewStudy } from '../../studies/study-record.js';
 import { User } from '../../users/user.entity.js';
 import { daysAgo, DEMO_METHODS } from './demo-methods.seed.js';
 
@@ -430,8 +430,10 @@ export async function seedDemoStudies(manager: EntityManager) {
     const version = versions.find((v) => v.method.name === demo.method && v.number === demo.version) as MethodVersion;
     const author = users.find((user) => user.email === demo.author) as User;
     const data = withMethodDefaults(demo.data, version, version.method);
-    const study = await manager.save(
-      manager.create(ValidationStudy, {
+    await saveNewStudy(
+      manager,
+      audit,
+      {
         methodVersionId: version.id,
         title: demo.title,
         status: demo.status,
@@ -445,17 +447,8 @@ export async function seedDemoStudies(manager: EntityManager) {
         approvedAt: demo.approvedDaysAgo === undefined ? null : daysAgo(demo.approvedDaysAgo),
         createdAt: daysAgo(demo.createdDaysAgo),
         updatedAt: daysAgo(demo.updatedDaysAgo),
-      }),
-    );
-    await audit.record(
-      {
-        actor: author,
-        action: 'study.created',
-        entity: 'study',
-        entityId: study.id,
-        changes: { title: { from: null, to: study.title }, dataHash: { from: null, to: study.dataHash } },
       },
-      manager,
+      author,
     );
   }
 }

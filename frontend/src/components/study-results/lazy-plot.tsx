@@ -11,7 +11,7 @@ export function preloadPlotly() {
   void loadPlotly();
 }
 
-export interface PlotPoint {
+export interface PlotClickPoint {
   customdata?: unknown;
 }
 
@@ -21,7 +21,7 @@ export interface LazyPlotProps {
   data: Data[];
   layout: Partial<Layout>;
   height: number;
-  onPointClick?: (point: PlotPoint) => void;
+  onPointClick?: (point: PlotClickPoint) => void;
 }
 
 // Laboratory data stays in the app: no logo link, no cloud button, nothing fetched from Plotly's servers.
@@ -74,7 +74,7 @@ export function LazyPlot({ label, data, layout, height, onPointClick }: LazyPlot
           style={{ width: '100%', height: `${height}px` }}
           onClick={
             onPointClick
-              ? (event: { points?: PlotPoint[] }) => {
+              ? (event: { points?: PlotClickPoint[] }) => {
                   const point = event.points?.[0];
                   if (point) onPointClick(point);
                 }

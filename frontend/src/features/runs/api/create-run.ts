@@ -1,9 +1,9 @@
+import type { CreateRunRequest, ModelChoice, RunDto, RunData, RunModel } from '@meritline/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api, ApiError, isApiError } from '@/lib/api-client';
 import { parseBlanks, parseChecks, parseQcSamples, parseStandards, parseUnknowns, type ParsedTable } from '../utils/measurement-text';
 import { runsQueries } from './runs-queries';
-import type { CreateRunInput, ModelChoice, Run, RunData, RunModel } from './types';
 
 export interface RunFormValues {
   methodVersionId: string;
@@ -70,7 +70,7 @@ export function standardLevels(standards: RunData['standards']): number[] {
  * The run as the API takes it. Standards a one- or two-point calibration does not use stay in the
  * data, left out with the reason, so the record shows everything that was measured.
  */
-export function buildRunInput(values: RunFormValues, choice: ModelChoice | undefined, lockVersion?: number): CreateRunInput | null {
+export function buildRunInput(values: RunFormValues, choice: ModelChoice | undefined, lockVersion?: number): CreateRunRequest | null {
   const standards = parseStandards(values.standards);
   const checks = parseChecks(values.checks);
   const unknowns = parseUnknowns(values.unknowns);
@@ -147,9 +147,9 @@ export function toFormError(error: unknown): unknown {
 export function useCreateRun() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: async (input: CreateRunInput) => {
+    mutationFn: async (input: CreateRunRequest) => {
       try {
-        return await api.post<Run>('/runs', input);
+        return await api.post<RunDto>('/runs', input);
       } catch (error) {
         throw toFormError(error);
       }

@@ -3,7 +3,7 @@ import { api } from '@/lib/api-client';
 
 const base = (versionId: string) => `/method-versions/${encodeURIComponent(versionId)}`;
 
-export function readInstrumentExport(versionId: string, file: File): Promise<InstrumentImportResult> {
+export function uploadInstrumentExport(versionId: string, file: File): Promise<InstrumentImportResult> {
   const form = new FormData();
   form.append('file', file);
   return api.post<InstrumentImportResult>(`${base(versionId)}/instrument-import`, form);

@@ -1,7 +1,16 @@
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
-import type { ImportMappingDto, QcSeries, QcTrendsDto } from '@meritline/shared';
+import type {
+  ImportMappingDto,
+  QcSeries,
+  QcTrendsDto,
+  RunControlChartDto,
+  RunMethodChoiceDto,
+  RunDto,
+  RunOptionsDto,
+  RunPageDto,
+} from '@meritline/shared';
 import { api } from '@/lib/api-client';
-import type { ControlChart, CreateRunInput, MethodChoice, Run, RunFilters, RunOptions, RunPage, RunPreview } from './types';
+import type { RunFilters } from './types';
 
 const search = (filters: RunFilters) => {
   const params = new URLSearchParams();
@@ -16,30 +25,31 @@ export const runsQueries = {
   list: (filters: RunFilters) =>
     queryOptions({
       queryKey: [...runsQueries.lists(), filters],
-      queryFn: ({ signal }) => api.get<RunPage>(`/runs${search(filters)}`, { signal }),
+      queryFn: ({ signal }) => api.get<RunPageDto>(`/runs${search(filters)}`, { signal }),
       placeholderData: keepPreviousData,
     }),
   detail: (runId: string) =>
     queryOptions({
       queryKey: [...runsQueries.all, 'detail', runId],
-      queryFn: ({ signal }) => api.get<Run>(`/runs/${encodeURIComponent(runId)}`, { signal }),
+      queryFn: ({ signal }) => api.get<RunDto>(`/runs/${encodeURIComponent(runId)}`, { signal }),
       // Runs never change once saved.
       staleTime: Infinity,
     }),
   methodChoices: () =>
     queryOptions({
       queryKey: [...runsQueries.all, 'method-choices'],
-      queryFn: ({ signal }) => api.get<MethodChoice[]>('/runs/method-choices', { signal }),
+      queryFn: ({ signal }) => api.get<RunMethodChoiceDto[]>('/runs/method-choices', { signal }),
     }),
   options: (methodVersionId: string) =>
     queryOptions({
       queryKey: [...runsQueries.all, 'options', methodVersionId],
-      queryFn: ({ signal }) => api.get<RunOptions>(`/method-versions/${encodeURIComponent(methodVersionId)}/run-options`, { signal }),
+      queryFn: ({ signal }) => api.get<RunOptionsDto>(`/method-versions/${encodeURIComponent(methodVersionId)}/run-options`, { signal }),
     }),
   controlChart: (methodVersionId: string) =>
     queryOptions({
       queryKey: [...runsQueries.all, 'control-chart', methodVersionId],
-      queryFn: ({ signal }) => api.get<ControlChart>(`/method-versions/${encodeURIComponent(methodVersionId)}/control-chart`, { signal }),
+      queryFn: ({ signal }) =>
+        api.get<RunControlChartDto>(`/method-versions/${encodeURIComponent(methodVersionId)}/control-chart`, { signal }),
     }),
   importMapping: (methodVersionId: string) =>
     queryOptions({
@@ -55,14 +65,5 @@ export const runsQueries = {
           `/methods/${encodeURIComponent(methodId)}/qc-trends?series=${series}${versionId ? `&versionId=${encodeURIComponent(versionId)}` : ''}`,
           { signal },
         ),
-    }),
-  /** The server's full result for unsaved data: the same calculation as saving, nothing stored. */
-  preview: (input: CreateRunInput) =>
-    queryOptions({
-      queryKey: [...runsQueries.all, 'preview', input],
-      queryFn: ({ signal }) => api.post<RunPreview>('/runs/preview', input, { signal }),
-      placeholderData: keepPreviousData,
-      retry: false,
-      staleTime: Infinity,
     }),
 };

@@ -1,8 +1,7 @@
-import { formatNumber } from '@meritline/shared';
+import { formatNumber, type RunCheck } from '@meritline/shared';
 import { useMemo } from 'react';
 import { Badge } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import type { RunCheck } from '../api/types';
 import { headerWithUnit } from './column-header';
 
 const column = dataTableColumns<RunCheck>();

@@ -11,7 +11,7 @@ import { useFormikContext } from 'formik';
 import { useState } from 'react';
 import { isApiError } from '@/lib/api-client';
 import type { RunFormValues } from '../api/create-run';
-import { readInstrumentExport, saveImportMapping } from '../api/instrument-import';
+import { uploadInstrumentExport, saveImportMapping } from '../api/instrument-import';
 import { runsQueries } from '../api/runs-queries';
 import { blanksText, checksText, qcSamplesText, standardsText, unknownsText } from '../utils/measurement-text';
 
@@ -72,7 +72,7 @@ export function InstrumentImport({ versionId }: { versionId: string }) {
     setProblems([]);
     setDone(null);
     try {
-      const result = await readInstrumentExport(versionId, chosen);
+      const result = await uploadInstrumentExport(versionId, chosen);
       setColumns(result.columns);
       if (result.status === 'needs-mapping') setChoice(guess(result.columns));
       else {

@@ -1,6 +1,6 @@
+import type { ModelChoice, RunModel } from '@meritline/shared';
 import { Field, HStack, NativeSelect, RadioCard, SimpleGrid, Stack, Switch, Text } from '@chakra-ui/react';
 import { WEIGHTING_LABELS } from '@/components/study-results';
-import type { ModelChoice, RunModel } from '../api/types';
 
 const MODELS: Record<RunModel, { title: string; cost: string }> = {
   'one-point': {

@@ -1,8 +1,7 @@
-import { formatNumber } from '@meritline/shared';
+import { formatNumber, type OnePointBias } from '@meritline/shared';
 import { useMemo } from 'react';
 import { Stack, Text } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import type { OnePointBias } from '../api/types';
 import { headerWithUnit } from './column-header';
 
 type Item = OnePointBias['items'][number];

@@ -1,8 +1,7 @@
 import { Badge, Stack, Text } from '@chakra-ui/react';
-import { roundToInterval, formatNumber } from '@meritline/shared';
+import { roundToInterval, formatNumber, type RunUnknown } from '@meritline/shared';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import type { RunUnknown } from '../api/types';
 import { headerWithUnit } from './column-header';
 
 const column = dataTableColumns<RunUnknown>();

@@ -1,13 +1,22 @@
-import { formatNumber } from '@meritline/shared';
-import { Alert, Box, DataList, Heading, List, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
+import {
+  evaluateRun,
+  formatNumber,
+  runContextOf,
+  StudyValidationError,
+  type CreateRunRequest,
+  type FieldError,
+  type RunMethodChoiceDto,
+  type RunModel,
+  type RunOptionsDto,
+  type RunPreviewDto,
+} from '@meritline/shared';
+import { Alert, DataList, Heading, List, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useFormikContext } from 'formik';
-import { useEffect } from 'react';
+import { useEffect, useMemo } from 'react';
 import { FormField } from '@/components/form/form-field';
-import { isApiError } from '@/lib/api-client';
 import { buildRunInput, formFieldOf, standardLevels, type RunFormValues } from '../api/create-run';
 import { runsQueries } from '../api/runs-queries';
-import type { MethodChoice, RunModel, RunOptions } from '../api/types';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { parseBlanks, parseChecks, parseQcSamples, parseStandards, parseUnknowns } from '../utils/measurement-text';
 import { MeasurementField } from './measurement-field';
@@ -22,7 +31,7 @@ function plural(n: number, one: string, many = `${one}s`) {
   return `${n} ${n === 1 ? one : many}`;
 }
 
-function ValidationSummary({ options }: { options: RunOptions }) {
+function ValidationSummary({ options }: { options: RunOptionsDto }) {
   const { validation, method } = options;
   if (!validation) return null;
   return (
@@ -55,26 +64,39 @@ function ValidationSummary({ options }: { options: RunOptions }) {
   );
 }
 
-/** The server's result for the data as typed, refreshed a moment after the typing stops. */
-function RunPreview({ options }: { options: RunOptions }) {
+type LocalPreview = { run: RunPreviewDto; errors?: never } | { run?: never; errors: FieldError[] };
+
+/** The run calculated in the browser with the server's own code (shared), so nothing goes over the wire while typing. */
+function calculate(input: CreateRunRequest, options: RunOptionsDto): LocalPreview {
+  const context = runContextOf(options);
+  if (!context) return { errors: [{ field: '', code: 'not_usable', message: options.reason ?? 'This version cannot be used for runs.' }] };
+  try {
+    // As the server reads it: the data after a JSON round trip.
+    return { run: evaluateRun(JSON.parse(JSON.stringify(input.data)), context) };
+  } catch (error) {
+    if (error instanceof StudyValidationError) return { errors: error.errors };
+    return { errors: [{ field: '', code: 'failed', message: error instanceof Error ? error.message : String(error) }] };
+  }
+}
+
+/** The result for the data as typed, refreshed a moment after the typing stops. */
+function RunPreview({ version }: { version: RunOptionsDto }) {
   const { values } = useFormikContext<RunFormValues>();
   const settled = useDebouncedValue(values);
-  const choice = options.models.find((m) => m.model === settled.model);
-  const input = choice?.allowed ? buildRunInput({ ...settled, title: 'Preview' }, choice) : null;
-  const preview = useQuery({
-    ...runsQueries.preview(input ?? { methodVersionId: '', title: '', data: null as never }),
-    enabled: input !== null,
-  });
+  const preview = useMemo(() => {
+    const choice = version.models.find((m) => m.model === settled.model);
+    const input = choice?.allowed ? buildRunInput({ ...settled, title: 'Preview' }, choice) : null;
+    return input ? calculate(input, version) : null;
+  }, [settled, version]);
 
   let body;
-  if (!input) {
+  if (!preview) {
     body = (
       <Text color="fg.muted">
         The preview appears once the method, the calibration, the standards, the check standards and the samples are entered.
       </Text>
     );
-  } else if (preview.isError && !preview.isPlaceholderData) {
-    const errors = isApiError(preview.error) ? (preview.error.body.errors ?? []) : [];
+  } else if (preview.errors) {
     body = (
       <Alert.Root status="warning" variant="surface">
         <Alert.Indicator />
@@ -82,7 +104,7 @@ function RunPreview({ options }: { options: RunOptions }) {
           <Alert.Title>The run cannot be calculated from these data yet</Alert.Title>
           <Alert.Description>
             <List.Root ps="4">
-              {(errors.length ? errors : [{ field: '', message: preview.error.message }]).map((e) => {
+              {preview.errors.map((e) => {
                 const { row } = formFieldOf(e.field);
                 return <List.Item key={e.field + e.message}>{row ? `${row}: ${e.message}` : e.message}</List.Item>;
               })}
@@ -91,20 +113,16 @@ function RunPreview({ options }: { options: RunOptions }) {
         </Alert.Content>
       </Alert.Root>
     );
-  } else if (!preview.data) {
-    body = <Skeleton height="40" borderRadius="l3" />;
   } else {
     body = (
-      <Box opacity={preview.isPlaceholderData ? 0.6 : 1} transition="opacity 0.2s">
-        <RunResultView
-          preview
-          status={preview.data.status}
-          result={preview.data.result}
-          rejectionReasons={preview.data.rejectionReasons}
-          data={preview.data.data}
-          units={{ x: options.method.xUnit, y: options.method.yUnit }}
-        />
-      </Box>
+      <RunResultView
+        preview
+        status={preview.run.status}
+        result={preview.run.result}
+        rejectionReasons={preview.run.rejectionReasons}
+        data={preview.run.data}
+        units={{ x: version.method.xUnit, y: version.method.yUnit }}
+      />
     );
   }
   return (
@@ -113,7 +131,7 @@ function RunPreview({ options }: { options: RunOptions }) {
         Preview
       </Heading>
       <Text color="fg.muted" fontSize="sm">
-        Calculated by the server exactly as it will be saved; nothing is stored until you save the run.
+        Calculated with the same code the server uses when it saves the run; nothing is stored until you save it.
       </Text>
       {body}
     </Stack>
@@ -121,7 +139,7 @@ function RunPreview({ options }: { options: RunOptions }) {
 }
 
 /** Method version, calibration and measurements of a new run, with a live preview of its result. */
-export function RunFormFields({ methods }: { methods: readonly MethodChoice[] }) {
+export function RunFormFields({ methods }: { methods: readonly RunMethodChoiceDto[] }) {
   const { values, setFieldValue } = useFormikContext<RunFormValues>();
   const options = useQuery({ ...runsQueries.options(values.methodVersionId), enabled: values.methodVersionId !== '' });
   const standards = parseStandards(values.standards).rows;
@@ -236,7 +254,7 @@ export function RunFormFields({ methods }: { methods: readonly MethodChoice[] })
         />
       </SimpleGrid>
 
-      {options.data?.usable && <RunPreview options={options.data} />}
+      {options.data?.usable && <RunPreview version={options.data} />}
     </Stack>
   );
 }

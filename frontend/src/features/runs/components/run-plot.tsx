@@ -1,9 +1,8 @@
-import { type EvaluationResult, formatNumber, type StudyInput } from '@meritline/shared';
+import { type EvaluationResult, formatNumber, type StudyInput, type RunData, type RunResult } from '@meritline/shared';
 import type { Data } from 'plotly.js-dist-min';
 import { calibrationFigure } from '@/components/study-results';
 import { PLOT_COLOURS } from '@/components/study-results/calibration-plot';
 import { LazyPlot } from '@/components/study-results/lazy-plot';
-import type { RunData, RunResult } from '../api/types';
 
 function responseAt(result: RunResult, x: number): number {
   const c = result.calibration!;

@@ -1,15 +1,11 @@
 import { Alert, Box, DataList, Heading, List, Stack, Text } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
-import { formatR2, type RunStatus, formatNumber } from '@meritline/shared';
-import type { RunData, RunResult } from '../api/types';
+import { formatR2, RUN_CAUTION, type RunStatus, formatNumber, type RunData, type RunResult } from '@meritline/shared';
 import { ChecksTable } from './checks-table';
 import { ControlsTables } from './controls-table';
 import { OnePointBiasTable } from './one-point-bias';
 import { ResultsTable } from './results-table';
 import { RunPlot } from './run-plot';
-
-export const RUN_CAUTION =
-  'Results are reported under the laboratory’s own procedures and the regulations that apply to the sample (for drinking water and released products, the limits and reporting rules of the competent authority), after review by a qualified person. The results of a rejected run are not reportable.';
 
 /** The basis of the results' uncertainty in words, once per distinct basis. */
 function uncertaintyBases(result: RunResult): string[] {
@@ -137,7 +133,7 @@ export function RunResultView({ status, result, rejectionReasons, data, units, p
         <ChecksTable checks={result.checks} xUnit={units.x} yUnit={units.y} />
       </Section>
 
-      {(result.blanks?.length || result.qcSamples?.length) && (
+      {(result.blanks?.length ?? 0) + (result.qcSamples?.length ?? 0) > 0 && (
         <Section title="Method blanks and QC samples">
           <ControlsTables blanks={result.blanks ?? []} qcSamples={result.qcSamples ?? []} window={result.qcWindow} xUnit={units.x} />
         </Section>

@@ -1,9 +1,8 @@
-import { formatNumber, formatDateTime } from '@meritline/shared';
+import { formatNumber, formatDateTime, type RunModel, type RunSummaryDto } from '@meritline/shared';
 import { Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
 import { paths } from '@/lib/config/paths';
-import type { RunModel, RunSummary } from '../api/types';
 import { RunStatusBadge } from './run-status-badge';
 
 const MODEL_NAMES: Record<RunModel, string> = {
@@ -13,7 +12,7 @@ const MODEL_NAMES: Record<RunModel, string> = {
   quadratic: 'Quadratic',
 };
 
-const column = dataTableColumns<RunSummary>();
+const column = dataTableColumns<RunSummaryDto>();
 
 export const runsColumns = column.columns([
   column.accessor('title', {

@@ -1,8 +1,8 @@
+import type { RunMethodChoiceDto } from '@meritline/shared';
 import { Field, NativeSelect } from '@chakra-ui/react';
-import type { MethodChoice } from '../api/types';
 
 export interface VersionSelectProps {
-  methods: readonly MethodChoice[];
+  methods: readonly RunMethodChoiceDto[];
   /** A method id, a version id, or '' for everything. */
   value: string;
   onChange: (value: string) => void;

@@ -1,3 +1,4 @@
+import type { RunDto } from '@meritline/shared';
 import { Button } from '@chakra-ui/react';
 import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router';
@@ -9,12 +10,11 @@ import { toaster } from '@/components/ui/toaster';
 import { paths } from '@/lib/config/paths';
 import { buildRunInput, emptyRunForm, runFormSchema, useCreateRun, type RunFormValues } from '../api/create-run';
 import { runsQueries } from '../api/runs-queries';
-import type { Run } from '../api/types';
 import { RunFormFields } from '../components/run-form-fields';
 import { blanksText, checksText, qcSamplesText, standardsText, unknownsText } from '../utils/measurement-text';
 
 /** A saved run's data as a starting point: a correction or a second calibration is always a new run. */
-function valuesFrom(run: Run): RunFormValues {
+function valuesFrom(run: RunDto): RunFormValues {
   const standards = run.data.standards.map(({ x, y, sd }) => (sd !== undefined ? { x, y, sd } : { x, y }));
   const calibrant = run.model === 'one-point' ? run.data.standards.find((s) => !s.excluded)?.x : undefined;
   return {

@@ -1,5 +1,5 @@
 import { Button, Field, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
-import type { RunStatus } from '@meritline/shared';
+import { RUN_CAUTION, type RunStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { DataTable } from '@/components/data-table';
@@ -8,7 +8,6 @@ import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { runsQueries } from '../api/runs-queries';
 import type { RunFilters } from '../api/types';
-import { RUN_CAUTION } from '../components/run-result-view';
 import { runsColumns } from '../components/runs-columns';
 import { VersionFilter } from '../components/version-filter';
 

@@ -1,5 +1,5 @@
+import type { RunData } from '@meritline/shared';
 import Papa from 'papaparse';
-import type { RunData } from '../api/types';
 
 export interface ParsedTable<T> {
   rows: T[];

@@ -1,26 +1,4 @@
-export type ControlFlag = 'beyondWarning' | 'beyondAction' | 'sevenOnOneSide';
-
-export interface ControlPointInput {
-  runId: string;
-  title: string;
-  createdAt: string;
-  model: string;
-  slope: number;
-}
-
-export interface ControlPoint extends ControlPointInput {
-  flags: ControlFlag[];
-}
-
-export interface ControlChart {
-  points: ControlPoint[];
-  mean: number | null;
-  sd: number | null;
-  limits: { warning: [number, number]; action: [number, number] } | null;
-  n: number;
-  /** Why there are no limits, or which drift signals were found. */
-  message: string | null;
-}
+import type { SlopeControlChart, SlopeControlFlag, SlopeControlPointInput } from '../api/runs.js';
 
 export const MIN_RUNS_FOR_LIMITS = 3;
 const RUN_LENGTH = 7;
@@ -30,7 +8,7 @@ const RUN_LENGTH = 7;
  * mean ± 3 s, and a drift signal for 7 points in a row on one side of the mean
  * (ISO 7870-2:2023 and common practice in laboratory quality control).
  */
-export function controlChart(inputs: readonly ControlPointInput[]): ControlChart {
+export function slopeControlChart(inputs: readonly SlopeControlPointInput[]): SlopeControlChart {
   const n = inputs.length;
   const slopes = inputs.map((p) => p.slope);
   const mean = n > 0 ? slopes.reduce((a, b) => a + b, 0) / n : null;
@@ -48,7 +26,7 @@ export function controlChart(inputs: readonly ControlPointInput[]): ControlChart
   let side = 0;
   let streak = 0;
   const points = inputs.map((p) => {
-    const flags: ControlFlag[] = [];
+    const flags: SlopeControlFlag[] = [];
     const deviation = Math.abs(p.slope - mean);
     if (deviation > 3 * sd) flags.push('beyondAction');
     else if (deviation > 2 * sd) flags.push('beyondWarning');

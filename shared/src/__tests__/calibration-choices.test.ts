@@ -1,6 +1,6 @@
-import { type ValidationBasis } from '@meritline/shared';
 import { describe, expect, it } from 'vitest';
-import { modelChoices } from './calibration-choices.js';
+import type { ValidationBasis } from '../api/runs.js';
+import { modelChoices } from '../runs/calibration-choices.js';
 
 const settings = { checkTolerancePct: 10, onePointMaxInterceptPct: 2 };
 

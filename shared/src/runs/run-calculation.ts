@@ -1,37 +1,30 @@
 import {
-  evaluateStudy,
-  routineUncertainty,
-  StudyValidationError,
-  type RunBlankInput,
-  type RunBlankResult,
-  type RunQcSampleInput,
-  type RunQcSampleResult,
-  type RunQcWindow,
-  type RunResultUncertainty,
-  type CalibrationResult,
-  type FieldError,
-  type StudyInput,
-  type Units,
+  RUN_DATA_KEYS,
   RUN_MODELS,
   type ModelChoice,
   type OnePointBias,
+  type RunBlankInput,
+  type RunBlankResult,
   type RunCheck,
   type RunFlag,
   type RunModel,
+  type RunPreviewDto,
+  type RunQcSampleInput,
+  type RunQcSampleResult,
+  type RunRecordedData,
+  type RunResultUncertainty,
   type RunUnknown,
   type ValidationBasis,
-} from '@meritline/shared';
-import { formatPct, formatSignificant, formatWithInterval, withUnit } from './report-format.js';
-import { RUN_DATA_KEYS, type RunEvaluation, type RunSettings } from './run-types.js';
-
-export interface RunContext {
-  basis: ValidationBasis;
-  choices: ModelChoice[];
-  settings: RunSettings;
-  units: Units;
-  /** The recovery window of QC samples of known value. */
-  qcWindow: RunQcWindow;
-}
+} from '../api/runs.js';
+import type { FieldError } from '../api/common.js';
+import { withUnit } from '../catalogue/format.js';
+import { routineUncertainty } from '../engine/routine-uncertainty.js';
+import { StudyValidationError } from '../errors.js';
+import { evaluateStudy } from '../evaluate.js';
+import type { CalibrationResult } from '../result.js';
+import type { StudyInput } from '../study.js';
+import type { RunContext } from './run-context.js';
+import { formatRunInterval, formatRunPct, formatRunSignificant } from './reported-numbers.js';
 
 const MAX_ROWS = 500;
 const MAX_READINGS = 100;
@@ -171,14 +164,14 @@ export function uncertaintyBasisText(basis: ValidationBasis, unit: string | unde
   const k = `k = ${u.coverageFactor}`;
   const parts: string[] = [];
   if (u.absolute) {
-    const level = u.absolute.below !== null && u.relative ? ` below ${withUnit(formatSignificant(u.absolute.below, 3), unit)}` : '';
+    const level = u.absolute.below !== null && u.relative ? ` below ${withUnit(formatRunSignificant(u.absolute.below, 3), unit)}` : '';
     parts.push(
-      `${withUnit(formatSignificant(u.absolute.U, 2), unit)} absolute${level} in the measured solution, times the dilution factor`,
+      `${withUnit(formatRunSignificant(u.absolute.U, 2), unit)} absolute${level} in the measured solution, times the dilution factor`,
     );
   }
   if (u.relative) {
-    const level = u.relative.from !== null && u.absolute ? ` at and above ${withUnit(formatSignificant(u.relative.from, 3), unit)}` : '';
-    parts.push(`${formatSignificant(u.relative.UPct, 2)} % of the result${level}`);
+    const level = u.relative.from !== null && u.absolute ? ` at and above ${withUnit(formatRunSignificant(u.relative.from, 3), unit)}` : '';
+    parts.push(`${formatRunSignificant(u.relative.UPct, 2)} % of the result${level}`);
   }
   return `Expanded uncertainty U (${k}) from the top-down uncertainty of the validation study “${basis.studyTitle}” (intermediate precision and bias): ${parts.join('; ')}.`;
 }
@@ -199,7 +192,7 @@ function readUnknown(
   const { lod, loq, validatedRange: range } = basis;
   const flags: RunFlag[] = [];
   const remarks: string[] = [];
-  const inSample = (x: number) => withUnit(formatSignificant(x, 2), unit);
+  const inSample = (x: number) => withUnit(formatRunSignificant(x, 2), unit);
   if (lod !== null && x0Undiluted < lod) {
     flags.push('belowLod');
     remarks.push(`Not detected: below the LOD (${inSample(lod)} in the measured solution).`);
@@ -215,13 +208,13 @@ function readUnknown(
     flags.push('aboveTopStandard');
     suggestedDilution = suggestDilution(x0Undiluted, calibration.xMax, u.dilution);
     remarks.push(
-      `Above the top standard (${withUnit(formatSignificant(calibration.xMax, 3), unit)}): dilute and measure again, e.g. at a total dilution factor of ${suggestedDilution}.`,
+      `Above the top standard (${withUnit(formatRunSignificant(calibration.xMax, 3), unit)}): dilute and measure again, e.g. at a total dilution factor of ${suggestedDilution}.`,
     );
   }
   if (range && !belowLimits && (x0Undiluted < range.low || x0Undiluted > range.high)) {
     flags.push('outsideValidatedRange');
     remarks.push(
-      `Outside the validated range (${formatSignificant(range.low, 3)} to ${withUnit(formatSignificant(range.high, 3), unit)}).`,
+      `Outside the validated range (${formatRunSignificant(range.low, 3)} to ${withUnit(formatRunSignificant(range.high, 3), unit)}).`,
     );
   }
   if (!reportable) remarks.push('Not reportable: the run was rejected.');
@@ -232,11 +225,11 @@ function readUnknown(
 
   let reported: string;
   const limit = loq ?? lod;
-  if (belowLimits && limit !== null) reported = `< ${withUnit(formatSignificant(limit * u.dilution, 2), unit)}`;
-  else if (flags.includes('aboveTopStandard')) reported = `> ${withUnit(formatSignificant(calibration.xMax * u.dilution, 3), unit)}`;
-  else if (expanded) reported = formatWithInterval(u.x0, expanded.U, unit);
-  else if (u.ci) reported = formatWithInterval(u.x0, (u.ci[1] - u.ci[0]) / 2, unit);
-  else reported = withUnit(formatSignificant(u.x0, 3), unit);
+  if (belowLimits && limit !== null) reported = `< ${withUnit(formatRunSignificant(limit * u.dilution, 2), unit)}`;
+  else if (flags.includes('aboveTopStandard')) reported = `> ${withUnit(formatRunSignificant(calibration.xMax * u.dilution, 3), unit)}`;
+  else if (expanded) reported = formatRunInterval(u.x0, expanded.U, unit);
+  else if (u.ci) reported = formatRunInterval(u.x0, (u.ci[1] - u.ci[0]) / 2, unit);
+  else reported = withUnit(formatRunSignificant(u.x0, 3), unit);
 
   return { ...u, x0Undiluted, flags, reported, remarks, suggestedDilution, reportable, uncertainty };
 }
@@ -277,7 +270,7 @@ function checkOutcome(
 }
 
 /** Calibrates a routine run, reads its unknowns and judges its check standards. */
-export function evaluateRun(input: unknown, context: RunContext): RunEvaluation {
+export function evaluateRun(input: unknown, context: RunContext): RunPreviewDto {
   if (!isObject(input)) throw new StudyValidationError([{ field: 'data', code: 'not_object', message: 'The run data must be an object.' }]);
   const { model, choice } = checkRunShape(input, context.choices);
   const { basis, settings, units, qcWindow } = context;
@@ -292,7 +285,7 @@ export function evaluateRun(input: unknown, context: RunContext): RunEvaluation 
         message: `${controls.blanks[missingLimit].id}: the validation has no LOD, so give the limit the blank must stay below.`,
       },
     ]);
-  const data: Json = {
+  const data = {
     units,
     model,
     weighting: choice.weighting ?? 'none',
@@ -303,7 +296,7 @@ export function evaluateRun(input: unknown, context: RunContext): RunEvaluation 
     unknowns: input.unknowns,
     ...(controls.blanks.length ? { blanks: controls.blanks } : {}),
     ...(controls.qcSamples.length ? { qcSamples: controls.qcSamples } : {}),
-  };
+  } as RunRecordedData;
   const unknownCount = Array.isArray(input.unknowns) ? input.unknowns.length : 0;
   const engineInput = {
     ...data,
@@ -331,7 +324,7 @@ export function evaluateRun(input: unknown, context: RunContext): RunEvaluation 
     .filter((c) => !c.pass)
     .map(
       (c) =>
-        `Check standard ${c.id} recovered ${formatPct(c.recoveryPct)} of its nominal ${withUnit(String(c.nominal), units.x)}, outside the acceptance window of ${100 - tolerancePct} to ${100 + tolerancePct} %.`,
+        `Check standard ${c.id} recovered ${formatRunPct(c.recoveryPct)} of its nominal ${withUnit(String(c.nominal), units.x)}, outside the acceptance window of ${100 - tolerancePct} to ${100 + tolerancePct} %.`,
     );
   const read = engine.unknowns ?? [];
   const blanks: RunBlankResult[] = controls.blanks.map((b, i) => {
@@ -348,11 +341,11 @@ export function evaluateRun(input: unknown, context: RunContext): RunEvaluation 
   });
   for (const b of blanks.filter((b) => !b.pass))
     rejectionReasons.push(
-      `Method blank ${b.id} read ${withUnit(formatSignificant(b.found, 3), units.x)}, not below ${b.limitBasis === 'lod' ? 'the LOD of the validation' : 'its set limit'} of ${withUnit(formatSignificant(b.limit, 3), units.x)}: the run may be contaminated.`,
+      `Method blank ${b.id} read ${withUnit(formatRunSignificant(b.found, 3), units.x)}, not below ${b.limitBasis === 'lod' ? 'the LOD of the validation' : 'its set limit'} of ${withUnit(formatRunSignificant(b.limit, 3), units.x)}: the run may be contaminated.`,
     );
   for (const q of qcSamples.filter((q) => !q.pass))
     rejectionReasons.push(
-      `QC sample ${q.id} recovered ${formatPct(q.recoveryPct)} of its known ${withUnit(String(q.known), units.x)}, outside the window of ${qcWindow.low} to ${qcWindow.high} % (${qcWindow.basis}).`,
+      `QC sample ${q.id} recovered ${formatRunPct(q.recoveryPct)} of its known ${withUnit(String(q.known), units.x)}, outside the window of ${qcWindow.low} to ${qcWindow.high} % (${qcWindow.basis}).`,
     );
   const status = rejectionReasons.length === 0 ? 'accepted' : 'rejected';
   const unknowns = read.slice(0, unknownCount).map((u) => readUnknown(u, calibration, basis, units.x, status === 'accepted'));

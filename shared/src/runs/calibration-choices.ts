@@ -1,14 +1,6 @@
-import {
-  type DetectionApproach,
-  type DetectionResult,
-  type EvaluationResult,
-  type RunQcWindow,
-  type ModelChoice,
-  type ValidatedRange,
-  type ValidationBasis,
-} from '@meritline/shared';
-import { formatSignificant } from './report-format.js';
-import type { RunSettings } from './run-types.js';
+import type { ModelChoice, RunQcWindow, RunSettings, ValidatedRange, ValidationBasis } from '../api/runs.js';
+import type { DetectionApproach, DetectionResult, EvaluationResult } from '../result.js';
+import { formatRunSignificant } from './reported-numbers.js';
 
 const STRAIGHT_LINE_MODELS = ['linear', 'linear-through-origin'];
 
@@ -104,16 +96,16 @@ function onePointChoice(basis: ValidationBasis, settings: RunSettings, yUnit: st
       'The validation has no intercept test (it needs at least 3 standards at 2 or more concentrations), so a line through the origin is not justified.',
     );
   }
-  const intercept = `${formatSignificant(test.intercept, 3)}${yUnit ? ` ${yUnit}` : ''}`;
+  const intercept = `${formatRunSignificant(test.intercept, 3)}${yUnit ? ` ${yUnit}` : ''}`;
   if (test.significant) {
     return refuse(
-      `The validation's intercept (${intercept}) differs significantly from zero (p = ${formatSignificant(test.p, 2)}): a line forced through the origin would bias the results.`,
+      `The validation's intercept (${intercept}) differs significantly from zero (p = ${formatRunSignificant(test.p, 2)}): a line forced through the origin would bias the results.`,
     );
   }
   const pct = Math.abs(test.interceptPctOfTopResponse);
   if (pct > settings.onePointMaxInterceptPct) {
     return refuse(
-      `The validation's intercept is ${formatSignificant(pct, 2)} % of the top standard's response, above this version's limit of ${settings.onePointMaxInterceptPct} %.`,
+      `The validation's intercept is ${formatRunSignificant(pct, 2)} % of the top standard's response, above this version's limit of ${settings.onePointMaxInterceptPct} %.`,
     );
   }
   return { model: 'one-point', allowed: true };
