@@ -12,11 +12,12 @@ import {
   UseInterceptors,
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
-import { ApiBearerAuth, ApiBody, ApiConsumes, ApiOkResponse, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { ApiBody, ApiConsumes, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { Throttle } from '@nestjs/throttler';
 import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
+import { ApiConflict, ApiError, ApiFile, ApiRecord, ApiSignedIn, ApiThrottled } from '../common/openapi/api-responses.js';
 import { ReportVerificationDto } from './dto/report-verification.dto.js';
 import { MAX_REPORT_BYTES, type ReportVerification } from '@meritline/shared';
 import { ReportsService } from './reports.service.js';
@@ -27,12 +28,10 @@ export class ReportsController {
   constructor(private readonly reports: ReportsService) {}
 
   @Get('studies/:id/report')
-  @ApiBearerAuth()
-  @ApiProduces('application/pdf')
-  @ApiOkResponse({
-    description: 'The signed report of an approved study (always the same bytes), or an unsigned draft preview.',
-    schema: { type: 'string', format: 'binary' },
-  })
+  @ApiSignedIn()
+  @ApiFile('The signed report of an approved study (always the same bytes), or an unsigned draft preview.', 'application/pdf')
+  @ApiRecord('study')
+  @ApiConflict('Only an approved study gets a signed report.')
   async download(
     @Param('id', ParseUUIDPipe) id: string,
     @CurrentUser() user: AuthUser,
@@ -61,6 +60,9 @@ export class ReportsController {
     },
   })
   @ApiOkResponse({ type: ReportVerificationDto })
+  @ApiError(400, 'No file attached as the form field "file".')
+  @ApiError(413, 'The file is larger than 20 MB.')
+  @ApiThrottled()
   verify(@UploadedFile() file: Express.Multer.File | undefined): Promise<ReportVerification> {
     if (!file) throw new BadRequestException('Attach the PDF to check as the form field "file".');
     return this.reports.verify(file.buffer);

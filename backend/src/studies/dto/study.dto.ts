@@ -4,7 +4,6 @@ import { MethodVersionSettingsViewDto, UserRefDto } from '../../methods/dto/meth
 import {
   IMPORT_SECTIONS,
   STUDY_STATUSES,
-  type FieldError,
   type ImportPreviewDto as ImportPreviewContract,
   type ImportSection,
   type MethodVersionStatus,
@@ -16,12 +15,7 @@ import {
   type StudySummaryDto as StudySummaryContract,
 } from '@meritline/shared';
 import { StudyMetaDto } from './study-meta.dto.js';
-
-export class FieldErrorDto implements FieldError {
-  @ApiProperty({ example: 'standards[3].x' }) field: string;
-  @ApiProperty({ example: 'not_finite' }) code: string;
-  @ApiProperty() message: string;
-}
+import { FieldErrorDto } from '../../common/dto/api-error.dto.js';
 
 export class StudyMethodDto implements StudyMethod {
   @ApiProperty() id: string;
