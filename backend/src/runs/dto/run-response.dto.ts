@@ -1,4 +1,4 @@
-import { ApiProperty, ApiPropertyOptional, PickType } from '@nestjs/swagger';
+import { ApiProperty, ApiPropertyOptional, OmitType, PickType } from '@nestjs/swagger';
 import {
   IMPORT_MAPPING_FIELDS,
   QC_SERIES,
@@ -16,7 +16,7 @@ import {
   type RunStatus,
 } from '@meritline/shared';
 import { described, describedList } from '../../common/openapi/api-responses.js';
-import { UserRefDto } from '../../methods/dto/method.dto.js';
+import { MethodSummaryDto, UserRefDto } from '../../methods/dto/method.dto.js';
 import type {
   MethodChoice,
   MethodSummary,
@@ -32,14 +32,7 @@ const RUN_STATUSES: RunStatus[] = ['accepted', 'rejected'];
 const VERSION_STATUSES = ['draft', 'active', 'retired'] as const;
 type VersionStatus = (typeof VERSION_STATUSES)[number];
 
-export class RunMethodDto implements MethodSummary {
-  @ApiProperty() id: string;
-  @ApiProperty() name: string;
-  @ApiProperty() analyte: string;
-  @ApiProperty() matrix: string;
-  @ApiProperty() xUnit: string;
-  @ApiProperty() yUnit: string;
-}
+export class RunMethodDto extends OmitType(MethodSummaryDto, ['technique', 'purpose'] as const) implements MethodSummary {}
 
 class RunMethodRefDto extends PickType(RunMethodDto, ['id', 'name', 'analyte'] as const) {}
 
