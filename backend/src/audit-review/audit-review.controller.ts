@@ -5,6 +5,7 @@ import { Role, type AuditPersonDto, type AuditReviewDto, type AuditTrailPageDto,
 import { AuditService } from '../audit/audit.service.js';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { download } from '../common/files.js';
 import { ApiError, ApiFile, ApiInvalid, ApiPasswordRefused, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
@@ -81,12 +82,8 @@ export class AuditReviewController {
             contactInfo: `${this.config.publicUrl}/verify`,
             signingTime: exportedAt,
           });
-    res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(file, {
-      type: query.format === 'csv' ? 'text/csv; charset=utf-8' : 'application/pdf',
-      disposition: `attachment; filename="${auditExtractFileName(exportedAt, query.format)}"`,
-      length: file.length,
-    });
+    const type = query.format === 'csv' ? 'text/csv; charset=utf-8' : 'application/pdf';
+    return download(res, file, type, auditExtractFileName(exportedAt, query.format));
   }
 
   @Get('reviews')

@@ -4,6 +4,7 @@ import { Role } from '@meritline/shared';
 import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { download } from '../common/files.js';
 import { ApiError, ApiInvalid, ApiRecord, ApiSignature, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreateAssessmentDto } from './dto/assessment.dto.js';
 import { CompareVersionsQueryDto } from './dto/compare-query.dto.js';
@@ -53,11 +54,6 @@ export class ComparisonsController {
   ): Promise<StreamableFile> {
     const file = await this.comparisons.assess(id, dto, actor);
     res.setHeader('X-Assessment-Id', file.id);
-    res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(file.pdf, {
-      type: 'application/pdf',
-      disposition: `attachment; filename="${file.fileName}"`,
-      length: file.pdf.length,
-    });
+    return download(res, file.pdf, 'application/pdf', file.fileName);
   }
 }

@@ -4,6 +4,7 @@ import type { Response } from 'express';
 import { Role, type QualificationRunDetailDto, type QualificationRunDto } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { download } from '../common/files.js';
 import { ApiFile, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { QualificationRunDetailResponseDto, QualificationRunResponseDto } from './dto/qualification-run.dto.js';
 import { QualificationService } from './qualification.service.js';
@@ -33,11 +34,6 @@ export class QualificationController {
   @ApiRecord('self-qualification')
   async report(@Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
     const file = await this.qualification.report(id);
-    res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(file.pdf, {
-      type: 'application/pdf',
-      disposition: `attachment; filename="${file.fileName}"`,
-      length: file.pdf.length,
-    });
+    return download(res, file.pdf, 'application/pdf', file.fileName);
   }
 }

@@ -1,25 +1,11 @@
-import {
-  Body,
-  Controller,
-  Get,
-  HttpCode,
-  Param,
-  ParseUUIDPipe,
-  Patch,
-  Post,
-  Put,
-  Res,
-  StreamableFile,
-  UploadedFile,
-  UseInterceptors,
-} from '@nestjs/common';
-import { FileInterceptor } from '@nestjs/platform-express';
-import { ApiBody, ApiConsumes, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Put, Res, StreamableFile, UploadedFile } from '@nestjs/common';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { MAX_CERTIFICATE_BYTES, Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
-import { ApiChange, ApiConflict, ApiError, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { download, FileUpload } from '../common/files.js';
+import { ApiChange, ApiConflict, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreateReferenceMaterialDto } from './dto/create-reference-material.dto.js';
 import { LockVersionDto } from './dto/reference-material-fields.dto.js';
 import { ReferenceMaterialResponseDto } from './dto/reference-material.dto.js';
@@ -83,23 +69,11 @@ export class ReferenceMaterialsController {
 
   @Put(':id/certificate')
   @Roles(...KEEPERS)
-  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_CERTIFICATE_BYTES, files: 1 } }))
-  @ApiConsumes('multipart/form-data')
-  @ApiBody({
-    schema: {
-      type: 'object',
-      required: ['file', 'lockVersion'],
-      properties: {
-        file: { type: 'string', format: 'binary', description: 'The certificate as a PDF, at most 10 MB.' },
-        lockVersion: { type: 'integer' },
-      },
-    },
-  })
+  @FileUpload(MAX_CERTIFICATE_BYTES, 'The certificate as a PDF, at most 10 MB.', { lockVersion: { type: 'integer' } })
   @ApiOkResponse({ type: ReferenceMaterialResponseDto })
   @ApiRecord('reference material')
   @ApiInvalid('No file, or not a PDF.')
   @ApiConflict(STALE)
-  @ApiError(413, 'The file is larger than 10 MB.')
   uploadCertificate(
     @Param('id', ParseUUIDPipe) id: string,
     @UploadedFile() file: Express.Multer.File | undefined,
@@ -114,11 +88,6 @@ export class ReferenceMaterialsController {
   @ApiRecord('reference material, or no certificate uploaded')
   async certificate(@Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
     const file = await this.materials.certificate(id);
-    res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(file.pdf, {
-      type: 'application/pdf',
-      disposition: `attachment; filename="${file.fileName}"`,
-      length: file.pdf.length,
-    });
+    return download(res, file.pdf, 'application/pdf', file.fileName);
   }
 }

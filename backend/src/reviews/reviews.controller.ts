@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
+import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
 import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   type CommentDto,
@@ -12,8 +12,9 @@ import {
 } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { SigningStep } from '../common/decorators/signing-step.decorator.js';
 import { StudyDto } from '../studies/dto/study.dto.js';
-import { ApiChange, ApiInvalid, ApiRecord, ApiSignature, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { ApiChange, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CommentsService } from './comments.service.js';
 import {
   CommentResponseDto,
@@ -33,6 +34,7 @@ import { StudyHistoryService } from './study-history.service.js';
 import { RunReleaseService } from '../runs/run-release.service.js';
 
 const APPROVED = 'The study is approved: its comments no longer change.';
+const REVIEWERS = [Role.Reviewer, Role.QualityManager];
 const STUDY_READERS = [Role.Analyst, Role.Reviewer, Role.QualityManager];
 /** Administrators read a study's record too (to hand a draft to another analyst), but do not comment. */
 const STUDY_VIEWERS = [...STUDY_READERS, Role.Admin];
@@ -47,20 +49,12 @@ export class StudyReviewController {
     private readonly historyService: StudyHistoryService,
   ) {}
 
-  @Post('submit')
-  @HttpCode(200)
-  @Roles(Role.Analyst)
-  @ApiOkResponse({ type: TransitionResultResponseDto, description: 'Submitted, with the author’s signature.' })
-  @ApiSignature('study')
+  @SigningStep('submit', 'study', TransitionResultResponseDto, [Role.Analyst], 'Submitted, with the author’s signature.')
   submit(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
     return this.reviewsService.submit(id, dto, user);
   }
 
-  @Post('return')
-  @HttpCode(200)
-  @Roles(Role.Reviewer, Role.QualityManager)
-  @ApiOkResponse({ type: TransitionResultResponseDto, description: 'Returned to the author with the comment.' })
-  @ApiSignature('study')
+  @SigningStep('return', 'study', TransitionResultResponseDto, REVIEWERS, 'Returned to the author with the comment.')
   returnToAuthor(
     @Param('id', ParseUUIDPipe) id: string,
     @Body() dto: ReturnStudyDto,
@@ -69,11 +63,7 @@ export class StudyReviewController {
     return this.reviewsService.returnToAuthor(id, dto, user);
   }
 
-  @Post('approve')
-  @HttpCode(200)
-  @Roles(Role.Reviewer, Role.QualityManager)
-  @ApiOkResponse({ type: TransitionResultResponseDto, description: 'Approved (or reviewed, where a quality manager releases).' })
-  @ApiSignature('study')
+  @SigningStep('approve', 'study', TransitionResultResponseDto, REVIEWERS, 'Approved (or reviewed, where a quality manager releases).')
   approve(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
     return this.reviewsService.approve(id, dto, user);
   }
@@ -151,7 +141,7 @@ export class ReviewQueueController {
 
   /** Studies and runs awaiting the caller, each with its kind; studies first, each kind oldest first. */
   @Get('queue')
-  @Roles(Role.Reviewer, Role.QualityManager)
+  @Roles(...REVIEWERS)
   @ApiOkResponse({ type: [ReviewQueueEntryResponseDto] })
   @ApiInvalid()
   async queue(@Query() query: ReviewQueueQueryDto, @CurrentUser() user: AuthUser): Promise<ReviewQueueEntryDto[]> {

@@ -1,21 +1,9 @@
-import {
-  BadRequestException,
-  Body,
-  Controller,
-  Get,
-  HttpCode,
-  Param,
-  ParseUUIDPipe,
-  Post,
-  Put,
-  UploadedFile,
-  UseInterceptors,
-} from '@nestjs/common';
-import { FileInterceptor } from '@nestjs/platform-express';
-import { ApiBody, ApiConsumes, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { BadRequestException, Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Put, UploadedFile } from '@nestjs/common';
+import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { Role, type ImportMappingDto, type InstrumentImportResult } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { FileUpload } from '../common/files.js';
 import { ApiChange, ApiError, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import {
   ImportMappingResponseDto,
@@ -77,20 +65,11 @@ export class MethodVersionRunsController {
   @Post('instrument-import')
   @Roles(Role.Analyst)
   @HttpCode(200)
-  @ApiConsumes('multipart/form-data')
-  @ApiBody({
-    schema: {
-      type: 'object',
-      required: ['file'],
-      properties: { file: { type: 'string', format: 'binary', description: 'The instrument export, CSV or XLSX.' } },
-    },
-  })
+  @FileUpload(MAX_IMPORT_BYTES, 'The instrument export, CSV or XLSX, at most 5 MB.')
   @ApiOkResponse({ type: InstrumentImportResponseDto, description: 'Nothing is stored.' })
   @ApiRecord('method version')
   @ApiError(400, 'No file attached as the form field "file".')
   @ApiInvalid('A file that cannot be read, or values that do not fit the run: the row and column are named.')
-  @ApiError(413, 'The file is larger than the import limit.')
-  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_IMPORT_BYTES, files: 1 } }))
   readExport(
     @Param('id', ParseUUIDPipe) id: string,
     @UploadedFile() file: Express.Multer.File | undefined,

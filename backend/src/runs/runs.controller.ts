@@ -4,7 +4,9 @@ import type { Response } from 'express';
 import { Role, type RunReviewDto } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
-import { ApiConflict, ApiError, ApiFile, ApiInvalid, ApiRecord, ApiSignature, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { SigningStep } from '../common/decorators/signing-step.decorator.js';
+import { download } from '../common/files.js';
+import { ApiConflict, ApiError, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import {
   MethodChoiceResponseDto,
   RunPageResponseDto,
@@ -20,10 +22,7 @@ import { RunReleaseService } from './run-release.service.js';
 import { RunReportService } from './run-report.service.js';
 import { RunsService, type MethodChoice, type RunDto, type RunFile, type RunPage, type RunPreview } from './runs.service.js';
 
-function send(res: Response, file: RunFile): StreamableFile {
-  res.set({ 'Content-Type': file.contentType, 'Content-Disposition': `attachment; filename="${file.filename}"` });
-  return new StreamableFile(file.body);
-}
+const send = (res: Response, file: RunFile): StreamableFile => download(res, file.body, file.contentType, file.filename);
 
 @ApiTags('runs')
 @ApiSignedIn()
@@ -103,7 +102,6 @@ export class RunsController {
     @CurrentUser() actor: AuthUser,
     @Res({ passthrough: true }) res: Response,
   ): Promise<StreamableFile> {
-    res.setHeader('Cache-Control', 'private, no-store');
     return send(res, await this.reports.reportFile(id, actor));
   }
 
@@ -116,30 +114,18 @@ export class RunsController {
   }
 
   /** The analyst signs the run as performed and submits it for release. */
-  @Post(':id/submit')
-  @Roles(Role.Analyst)
-  @HttpCode(200)
-  @ApiOkResponse({ type: RunReviewResponseDto })
-  @ApiSignature('run')
+  @SigningStep(':id/submit', 'run', RunReviewResponseDto, [Role.Analyst])
   submit(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignRunDto, @CurrentUser() actor: AuthUser): Promise<RunReviewDto> {
     return this.release.submit(id, dto, actor);
   }
 
   /** A second person signs the run as reviewed and released. */
-  @Post(':id/release')
-  @Roles(Role.Reviewer)
-  @HttpCode(200)
-  @ApiOkResponse({ type: RunReviewResponseDto })
-  @ApiSignature('run')
+  @SigningStep(':id/release', 'run', RunReviewResponseDto, [Role.Reviewer])
   releaseRun(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignRunDto, @CurrentUser() actor: AuthUser): Promise<RunReviewDto> {
     return this.release.release(id, dto, actor);
   }
 
-  @Post(':id/return')
-  @Roles(Role.Reviewer)
-  @HttpCode(200)
-  @ApiOkResponse({ type: RunReviewResponseDto })
-  @ApiSignature('run')
+  @SigningStep(':id/return', 'run', RunReviewResponseDto, [Role.Reviewer])
   returnRun(@Param('id', ParseUUIDPipe) id: string, @Body() dto: ReturnRunDto, @CurrentUser() actor: AuthUser): Promise<RunReviewDto> {
     return this.release.returnToAnalyst(id, dto, actor);
   }
