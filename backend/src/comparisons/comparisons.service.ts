@@ -25,7 +25,7 @@ import {
   type VersionChangeRow,
   type VersionComparisonResponse,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
@@ -202,12 +202,12 @@ export class ComparisonsService {
       action: 'signature.change-assessed',
       entity: 'method-version',
       entityId: versionId,
-      changes: {
-        assessmentId: { from: null, to: id },
-        comparedVersionId: { from: null, to: comparison.from.versionId },
-        signatureMeaning: { from: null, to: 'change assessed' },
-        sha256: { from: null, to: issued.sha256 },
-      },
+      changes: createdFields({
+        assessmentId: id,
+        comparedVersionId: comparison.from.versionId,
+        signatureMeaning: 'change assessed',
+        sha256: issued.sha256,
+      }),
       reason: statement,
     });
     const slug =

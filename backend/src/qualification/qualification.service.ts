@@ -13,7 +13,7 @@ import {
   type QualificationRunDetailDto,
   type QualificationRunDto,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
@@ -103,12 +103,12 @@ export class QualificationService {
       action: 'qualification.run',
       entity: 'qualification',
       entityId: run.id,
-      changes: {
-        checks: { from: null, to: run.total },
-        passed: { from: null, to: run.passed },
-        engineVersion: { from: null, to: installation.engineVersion },
-        reportSha256: { from: null, to: run.sha256 },
-      },
+      changes: createdFields({
+        checks: run.total,
+        passed: run.passed,
+        engineVersion: installation.engineVersion,
+        reportSha256: run.sha256,
+      }),
     });
     return { ...toDto(run), checks: summary.checks };
   }

@@ -4,7 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash, randomUUID } from 'node:crypto';
 import { DataSource, In } from 'typeorm';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
-import { AuditService, type AuditRecord } from '../audit/audit.service.js';
+import { createdFields, AuditService, type AuditRecord } from '../audit/audit.service.js';
 import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -91,12 +91,12 @@ export class ReportsService {
         action: 'report.issued',
         entity: 'validation-report',
         entityId: report.id,
-        changes: {
-          studyId: { from: null, to: study.id },
-          methodVersionId: { from: null, to: study.methodVersionId },
-          sha256: { from: null, to: report.sha256 },
-          sizeBytes: { from: null, to: report.sizeBytes },
-        },
+        changes: createdFields({
+          studyId: study.id,
+          methodVersionId: study.methodVersionId,
+          sha256: report.sha256,
+          sizeBytes: report.sizeBytes,
+        }),
         reason: `Signed report issued for the approved study “${study.title}”.`,
       },
       () => this.findReport(studyId),

@@ -11,7 +11,7 @@ import {
   type StudyStatus,
   type TransitionResultDto,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
@@ -192,7 +192,7 @@ export class ReviewsService {
           action: 'study.created',
           entity: 'study',
           entityId: copy.id,
-          changes: { status: { from: null, to: 'draft' }, copiedFromId: { from: null, to: source.id } },
+          changes: createdFields({ status: 'draft', copiedFromId: source.id }),
           reason: `Started from the study “${source.title}”.`,
         },
         manager,

@@ -12,7 +12,7 @@ import {
   type RunReviewDto,
   type RunSignatureMeaning,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
@@ -200,13 +200,13 @@ export class RunReleaseService {
           action: 'run.created',
           entity: 'run',
           entityId: saved.id,
-          changes: {
-            methodVersionId: { from: null, to: saved.methodVersionId },
-            model: { from: null, to: saved.model },
-            status: { from: null, to: saved.status },
-            dataHash: { from: null, to: saved.dataHash },
-            supersedesId: { from: null, to: old.id },
-          },
+          changes: createdFields({
+            methodVersionId: saved.methodVersionId,
+            model: saved.model,
+            status: saved.status,
+            dataHash: saved.dataHash,
+            supersedesId: old.id,
+          }),
           reason,
         },
         manager,

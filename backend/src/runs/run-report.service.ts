@@ -2,7 +2,7 @@ import { Inject, Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { randomUUID } from 'node:crypto';
 import { DataSource } from 'typeorm';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
@@ -69,11 +69,11 @@ export class RunReportService {
         action: 'run-report.issued',
         entity: 'run-results-report',
         entityId: report.id,
-        changes: {
-          runId: { from: null, to: runId },
-          sha256: { from: null, to: report.sha256 },
-          sizeBytes: { from: null, to: report.sizeBytes },
-        },
+        changes: createdFields({
+          runId: runId,
+          sha256: report.sha256,
+          sizeBytes: report.sizeBytes,
+        }),
         reason: `Signed results report issued for the released run “${run.title}”.`,
       },
       () => repo.findOneBy({ runId }),

@@ -4,7 +4,7 @@ import { DataSource, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson, Role, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
-import { AuditService, type AuditRecord } from '../audit/audit.service.js';
+import { createdFields, AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
 import type { CriterionDto } from '../methods/dto/criterion.dto.js';
@@ -279,11 +279,11 @@ export class StudiesService {
           action: 'study.created',
           entity: 'study',
           entityId: study.id,
-          changes: {
-            title: { from: null, to: study.title },
-            methodVersionId: { from: null, to: version.id },
-            dataHash: { from: null, to: study.dataHash },
-          },
+          changes: createdFields({
+            title: study.title,
+            methodVersionId: version.id,
+            dataHash: study.dataHash,
+          }),
         },
         manager,
       );
