@@ -20,7 +20,7 @@ import { ReportsService } from '../reports/reports.service.js';
 import type { StudyDto } from '../studies/dto/study.dto.js';
 import { toStudyDto } from '../studies/studies.service.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
-import { ValidationStudy } from '../studies/validation-study.entity.js';
+import { newDraftFields, ValidationStudy } from '../studies/validation-study.entity.js';
 import type { ReturnStudyDto } from './dto/return-study.dto.js';
 import type { SignStudyDto } from './dto/sign-study.dto.js';
 import { ReviewNoticesService, type ReviewEvent } from './review-notices.service.js';
@@ -175,15 +175,11 @@ export class ReviewsService {
         repo.create({
           methodVersionId: source.methodVersionId,
           title: `${source.title} (new study)`.slice(0, 200),
-          status: 'draft',
           data: source.data,
           ...evaluation,
           meta: source.meta?.instrument ? { instrument: source.meta.instrument } : {},
-          authorId: actor.id,
-          editorIds: [actor.id],
           copiedFromId: source.id,
-          submittedAt: null,
-          approvedAt: null,
+          ...newDraftFields(actor.id),
         }),
       );
       await this.audit.record(

@@ -23,7 +23,7 @@ import { User } from '../users/user.entity.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { withMethodDefaults, type StudyData } from './study-evaluation.js';
 import { importSection } from './study-import.js';
-import { ValidationStudy } from './validation-study.entity.js';
+import { newDraftFields, ValidationStudy } from './validation-study.entity.js';
 
 const LOCKED_STATUSES = ['submitted', 'approved'];
 const DAY_MS = 86_400_000;
@@ -262,15 +262,11 @@ export class StudiesService {
         manager.create(ValidationStudy, {
           methodVersionId: version.id,
           title: dto.title,
-          status: 'draft',
           data,
           ...evaluation,
           meta: mergeMeta({}, dto.meta),
-          authorId: actor.id,
-          editorIds: [actor.id],
           copiedFromId: null,
-          submittedAt: null,
-          approvedAt: null,
+          ...newDraftFields(actor.id),
         }),
       );
       await this.audit.record(

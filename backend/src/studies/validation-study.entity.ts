@@ -42,3 +42,7 @@ export class ValidationStudy extends EvaluatedRecordColumns {
   @VersionColumn({ name: 'lock_version' })
   lockVersion: number;
 }
+
+/** The fields of a new draft: its author the only editor so far, never submitted. */
+export const newDraftFields = (authorId: string) =>
+  ({ status: 'draft', authorId, editorIds: [authorId], submittedAt: null, approvedAt: null }) satisfies Partial<ValidationStudy>;
