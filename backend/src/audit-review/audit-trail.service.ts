@@ -17,7 +17,7 @@ import {
   type AuditTrailPageDto,
 } from '@meritline/shared';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
@@ -409,12 +409,12 @@ export class AuditTrailService {
           action: 'audit.reviewed',
           entity: 'audit-review',
           entityId: review.id,
-          changes: {
-            record: { from: null, to: subject },
-            entries: { from: null, to: matching },
-            lastSeq: { from: null, to: review.lastSeq },
-            chainIntact: { from: null, to: verification.ok },
-          },
+          changes: createdFields({
+            record: subject,
+            entries: matching,
+            lastSeq: review.lastSeq,
+            chainIntact: verification.ok,
+          }),
           reason: review.comment,
         },
         manager,

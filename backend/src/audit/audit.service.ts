@@ -21,6 +21,10 @@ export interface AuditRecord {
   reason?: string | null;
 }
 
+/** The changes of a record that did not exist before: each field from nothing to its value. */
+export const createdFields = (fields: Record<string, unknown>): FieldChanges =>
+  Object.fromEntries(Object.entries(fields).map(([field, to]) => [field, { from: null, to }]));
+
 export interface AuditBreak {
   seq: number;
   reason: string;

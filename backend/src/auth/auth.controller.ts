@@ -1,11 +1,14 @@
 import { Body, Controller, Get, HttpCode, Ip, Post, Put, Req } from '@nestjs/common';
-import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { ApiAcceptedResponse, ApiNoContentResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { Role, type LoginResponse, type SessionSettingsDto, type UserDto } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { ApiError, ApiInvalid, ApiSignedIn, ApiThrottled } from '../common/openapi/api-responses.js';
+import { UserResponseDto } from '../users/dto/user.dto.js';
 import { toUserDto, UsersService } from '../users/users.service.js';
 import { AuthService, PASSWORD_RESET_ANSWER } from './auth.service.js';
+import { LoginResponseDto, PasswordResetAnswerDto, SessionSettingsResponseDto } from './dto/auth-response.dto.js';
 import { AcceptInvitationDto } from './dto/accept-invitation.dto.js';
 import { ChangePasswordDto } from './dto/change-password.dto.js';
 import { LoginDto } from './dto/login.dto.js';
@@ -15,6 +18,7 @@ import type { SessionUser } from './jwt.strategy.js';
 import { SessionSettingsService } from './session-settings.service.js';
 
 @ApiTags('auth')
+@ApiThrottled()
 @Controller('auth')
 export class AuthController {
   constructor(
@@ -25,6 +29,9 @@ export class AuthController {
   @Public()
   @Post('login')
   @HttpCode(200)
+  @ApiOkResponse({ type: LoginResponseDto })
+  @ApiError(401, 'Unknown e-mail, wrong password, or a locked or deactivated account.')
+  @ApiInvalid()
   login(@Body() dto: LoginDto, @Ip() address: string): Promise<LoginResponse> {
     return this.authService.login(dto, address);
   }
@@ -32,6 +39,9 @@ export class AuthController {
   @Public()
   @Post('accept-invitation')
   @HttpCode(200)
+  @ApiOkResponse({ type: LoginResponseDto, description: 'The password is set and the person signed in.' })
+  @ApiError(400, 'The invitation link is not valid or has expired.')
+  @ApiInvalid()
   acceptInvitation(@Body() dto: AcceptInvitationDto): Promise<LoginResponse> {
     return this.authService.acceptInvitation(dto);
   }
@@ -39,6 +49,8 @@ export class AuthController {
   @Public()
   @Post('password-reset')
   @HttpCode(202)
+  @ApiAcceptedResponse({ type: PasswordResetAnswerDto })
+  @ApiInvalid()
   requestPasswordReset(@Body() dto: PasswordResetRequestDto): Promise<typeof PASSWORD_RESET_ANSWER> {
     return this.authService.requestPasswordReset(dto.email);
   }
@@ -46,6 +58,8 @@ export class AuthController {
   @Public()
   @Post('password-reset/confirm')
   @HttpCode(204)
+  @ApiNoContentResponse({ description: 'The new password is set.' })
+  @ApiInvalid('A password the policy refuses, or a link that is unknown, used or expired.')
   confirmPasswordReset(@Body() dto: PasswordResetConfirmDto): Promise<void> {
     return this.authService.confirmPasswordReset(dto);
   }
@@ -53,45 +67,54 @@ export class AuthController {
   @Public()
   @Post('unlock/confirm')
   @HttpCode(204)
+  @ApiNoContentResponse({ description: 'The account is unlocked.' })
+  @ApiInvalid('A link that is unknown, used or expired.')
   confirmUnlock(@Body() dto: LinkTokenDto): Promise<void> {
     return this.authService.confirmUnlock(dto.token);
   }
 
-  @ApiBearerAuth()
+  @ApiSignedIn()
   @Get('me')
+  @ApiOkResponse({ type: UserResponseDto })
   async me(@CurrentUser() user: AuthUser): Promise<UserDto> {
     return toUserDto(await this.usersService.findById(user.id));
   }
 
-  @ApiBearerAuth()
+  @ApiSignedIn()
   @Post('logout')
   @HttpCode(204)
+  @ApiNoContentResponse({ description: 'The session is ended.' })
   logout(@Req() request: { user: SessionUser }): Promise<void> {
     return this.authService.logout(request.user, request.user.sessionId);
   }
 
-  @ApiBearerAuth()
+  @ApiSignedIn()
   @Post('change-password')
   @HttpCode(204)
+  @ApiNoContentResponse({ description: 'The new password is set.' })
+  @ApiInvalid('The current password is not correct, or the policy refuses the new one.')
   changePassword(@CurrentUser() user: AuthUser, @Body() dto: ChangePasswordDto): Promise<void> {
     return this.authService.changePassword(user, dto);
   }
 }
 
 @ApiTags('settings')
-@ApiBearerAuth()
+@ApiSignedIn('Administrators only.')
 @Controller('settings/session')
 export class SessionSettingsController {
   constructor(private readonly settings: SessionSettingsService) {}
 
   /** Every signed-in user reads it: the browser warns before the server's idle limit. */
   @Get()
+  @ApiOkResponse({ type: SessionSettingsResponseDto })
   get(): Promise<SessionSettingsDto> {
     return this.settings.get();
   }
 
   @Roles(Role.Admin)
   @Put()
+  @ApiOkResponse({ type: SessionSettingsResponseDto })
+  @ApiInvalid()
   update(@Body() dto: UpdateSessionSettingsDto, @CurrentUser() actor: AuthUser): Promise<SessionSettingsDto> {
     return this.settings.update({ idleMinutes: dto.idleMinutes }, actor);
   }

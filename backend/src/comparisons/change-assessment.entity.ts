@@ -1,14 +1,11 @@
-import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
-import { binaryColumnType } from '../database/column-types.js';
+import { Column, Entity } from 'typeorm';
+import { StoredPdfColumns } from '../database/signed-record-columns.js';
 
 export const CHANGE_ASSESSED = 'change-assessed';
 
-/** A quality manager's signed assessment of a method version against an earlier one; the PDF is stored once. */
+/** A quality manager's signed assessment of a method version against an earlier one. */
 @Entity('change_assessments')
-export class ChangeAssessment {
-  @PrimaryGeneratedColumn('uuid')
-  id: string;
-
+export class ChangeAssessment extends StoredPdfColumns {
   /** The newer version, the one the assessment is stored against. */
   @Column({ name: 'method_version_id', type: 'uuid' })
   methodVersionId: string;
@@ -33,19 +30,4 @@ export class ChangeAssessment {
 
   @Column({ type: 'text' })
   statement: string;
-
-  @Column({ type: binaryColumnType })
-  pdf: Buffer;
-
-  @Column({ type: 'varchar', length: 64, unique: true })
-  sha256: string;
-
-  @Column({ name: 'size_bytes', type: Number })
-  sizeBytes: number;
-
-  @Column({ name: 'signed_at', type: Date })
-  signedAt: Date;
-
-  @CreateDateColumn({ name: 'created_at' })
-  createdAt: Date;
 }

@@ -1,6 +1,6 @@
 import { ConflictException, Inject, Injectable, NotFoundException, UnauthorizedException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { createHash, randomUUID } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { DataSource, In } from 'typeorm';
 import {
   CALIBRATION_MODEL_LABELS,
@@ -25,13 +25,13 @@ import {
   type VersionChangeRow,
   type VersionComparisonResponse,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
-import { writeTransaction } from '../database/write-transaction.js';
 import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
+import { storeIssued } from '../reports/signing/store-issued.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { Method } from '../methods/method.entity.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
@@ -179,45 +179,36 @@ export class ComparisonsService {
       statement,
       comparison,
     });
-    const pdf = await this.certificate.sign(unsigned, {
-      reason: `Change assessment of ${comparison.method.name}, version ${comparison.to.number} against version ${comparison.from.number}`,
-      location: this.config.laboratoryName,
-      contactInfo: `${this.config.publicUrl}/verify`,
-      signingTime: signedAt,
+    const issued = await this.certificate.issue(
+      unsigned,
+      `Change assessment of ${comparison.method.name}, version ${comparison.to.number} against version ${comparison.from.number}`,
+      signedAt,
+    );
+    const assessment = this.dataSource.getRepository(ChangeAssessment).create({
+      id,
+      methodVersionId: versionId,
+      comparedVersionId: comparison.from.versionId,
+      fromStudyId: comparison.from.studyId,
+      toStudyId: comparison.to.studyId,
+      signerId: actor.id,
+      signerName: actor.name,
+      meaning: CHANGE_ASSESSED,
+      statement,
+      ...issued,
+      signedAt,
     });
-    const sha256 = createHash('sha256').update(pdf).digest('hex');
-    await writeTransaction(this.dataSource, async (manager) => {
-      await manager.getRepository(ChangeAssessment).insert({
-        id,
-        methodVersionId: versionId,
+    await storeIssued(this.dataSource, this.audit, ChangeAssessment, assessment, {
+      actor,
+      action: 'signature.change-assessed',
+      entity: 'method-version',
+      entityId: versionId,
+      changes: createdFields({
+        assessmentId: id,
         comparedVersionId: comparison.from.versionId,
-        fromStudyId: comparison.from.studyId,
-        toStudyId: comparison.to.studyId,
-        signerId: actor.id,
-        signerName: actor.name,
-        meaning: CHANGE_ASSESSED,
-        statement,
-        pdf,
-        sha256,
-        sizeBytes: pdf.length,
-        signedAt,
-      });
-      await this.audit.record(
-        {
-          actor,
-          action: 'signature.change-assessed',
-          entity: 'method-version',
-          entityId: versionId,
-          changes: {
-            assessmentId: { from: null, to: id },
-            comparedVersionId: { from: null, to: comparison.from.versionId },
-            signatureMeaning: { from: null, to: 'change assessed' },
-            sha256: { from: null, to: sha256 },
-          },
-          reason: statement,
-        },
-        manager,
-      );
+        signatureMeaning: 'change assessed',
+        sha256: issued.sha256,
+      }),
+      reason: statement,
     });
     const slug =
       comparison.method.name
@@ -225,7 +216,7 @@ export class ComparisonsService {
         .replace(/[^a-z0-9]+/g, '-')
         .replace(/^-+|-+$/g, '')
         .slice(0, 60) || 'method';
-    return { id, fileName: `meritline-${slug}-v${comparison.to.number}-assessment-${id.slice(0, 8)}.pdf`, pdf };
+    return { id, fileName: `meritline-${slug}-v${comparison.to.number}-assessment-${id.slice(0, 8)}.pdf`, pdf: issued.pdf };
   }
 
   async compare(query: CompareVersionsQueryDto): Promise<VersionComparisonResponse> {

@@ -1,12 +1,14 @@
 import { Body, Controller, HttpCode, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags, ApiUnprocessableEntityResponse } from '@nestjs/swagger';
+import { ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { EvaluationResult } from '@meritline/shared';
 import { Throttle } from '@nestjs/throttler';
+import { ApiInvalid, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { EvaluationResultDto } from './dto/evaluation-result.dto.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 
 /** The engine as a service: the same result as the command line gives for the same study. */
 @ApiTags('evaluate')
-@ApiBearerAuth()
+@ApiSignedIn()
 @Controller('evaluate')
 export class EvaluateController {
   constructor(private readonly workers: WorkerPoolService) {}
@@ -17,10 +19,8 @@ export class EvaluateController {
   @ApiBody({
     schema: { type: 'object', additionalProperties: true, description: 'A study in the engine’s input format (at most 5 MB of JSON).' },
   })
-  @ApiOkResponse({ schema: { type: 'object', additionalProperties: true, description: 'The engine’s result.' } })
-  @ApiUnprocessableEntityResponse({
-    description: '{ statusCode, message, errors: [{ field, code, message }] } for a study the engine cannot evaluate.',
-  })
+  @ApiOkResponse({ type: EvaluationResultDto, description: 'The engine’s result.' })
+  @ApiInvalid('A study the engine cannot evaluate: one entry per field.')
   evaluate(@Body() study: Record<string, unknown>): Promise<EvaluationResult> {
     return this.workers.engine(study);
   }

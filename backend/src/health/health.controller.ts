@@ -1,6 +1,7 @@
 import { Controller, Get } from '@nestjs/common';
-import { ApiTags } from '@nestjs/swagger';
+import { ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { SkipThrottle } from '@nestjs/throttler';
+import { HealthDto } from './dto/health.dto.js';
 import { Public } from '../common/decorators/public.decorator.js';
 
 @ApiTags('health')
@@ -9,7 +10,8 @@ export class HealthController {
   @Public()
   @SkipThrottle()
   @Get()
-  check() {
+  @ApiOkResponse({ type: HealthDto })
+  check(): HealthDto {
     return { status: 'ok' };
   }
 }

@@ -1,8 +1,9 @@
 import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post } from '@nestjs/common';
-import { ApiBearerAuth, ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { ApiChange, ApiConflict, ApiInvalid, ApiPasswordRefused, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreateMethodVersionDto } from './dto/create-method-version.dto.js';
 import { CreateMethodDto } from './dto/create-method.dto.js';
 import { CriteriaTemplateDto, MethodDto, MethodVersionDetailDto } from './dto/method.dto.js';
@@ -12,7 +13,7 @@ import { MethodsService } from './methods.service.js';
 const EDITORS = [Role.QualityManager, Role.Admin, Role.Analyst];
 
 @ApiTags('methods')
-@ApiBearerAuth()
+@ApiSignedIn()
 @Controller()
 export class MethodsController {
   constructor(private readonly methodsService: MethodsService) {}
@@ -31,6 +32,7 @@ export class MethodsController {
 
   @Get('methods/:id')
   @ApiOkResponse({ type: MethodDto })
+  @ApiRecord('method')
   findOne(@Param('id', ParseUUIDPipe) id: string): Promise<MethodDto> {
     return this.methodsService.findOne(id);
   }
@@ -38,6 +40,8 @@ export class MethodsController {
   @Post('methods')
   @Roles(...EDITORS)
   @ApiCreatedResponse({ type: MethodDto, description: 'The method with version 1 in draft. Analysts propose; quality managers activate.' })
+  @ApiInvalid()
+  @ApiConflict('A method with this name already exists.')
   create(@Body() dto: CreateMethodDto, @CurrentUser() actor: AuthUser): Promise<MethodDto> {
     return this.methodsService.create(dto, actor);
   }
@@ -48,6 +52,8 @@ export class MethodsController {
     type: MethodVersionDetailDto,
     description: 'A new draft version; criteria and settings copied from the latest version unless given.',
   })
+  @ApiRecord('method')
+  @ApiInvalid()
   createVersion(
     @Param('id', ParseUUIDPipe) id: string,
     @Body() dto: CreateMethodVersionDto,
@@ -58,6 +64,7 @@ export class MethodsController {
 
   @Get('method-versions/:id')
   @ApiOkResponse({ type: MethodVersionDetailDto })
+  @ApiRecord('method version')
   findVersion(@Param('id', ParseUUIDPipe) id: string): Promise<MethodVersionDetailDto> {
     return this.methodsService.findVersion(id);
   }
@@ -65,6 +72,11 @@ export class MethodsController {
   @Patch('method-versions/:id')
   @Roles(...EDITORS)
   @ApiOkResponse({ type: MethodVersionDetailDto })
+  @ApiChange(
+    'method version',
+    'Someone changed the version since it was loaded (stale lock version), or its status does not allow the change.',
+  )
+  @ApiPasswordRefused()
   updateVersion(
     @Param('id', ParseUUIDPipe) id: string,
     @Body() dto: UpdateMethodVersionDto,

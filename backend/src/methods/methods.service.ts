@@ -15,7 +15,7 @@ import {
   type RevalidationFamily,
 } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import { unprocessable } from '../common/validation.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -135,7 +135,7 @@ export class MethodsService {
           action: 'method.created',
           entity: 'method',
           entityId: method.id,
-          changes: { name: { from: null, to: name }, purpose: { from: null, to: purpose } },
+          changes: createdFields({ name, purpose }),
         },
         manager,
       );

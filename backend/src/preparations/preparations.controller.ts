@@ -1,31 +1,18 @@
 import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Post } from '@nestjs/common';
-import {
-  ApiBearerAuth,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiTags,
-  ApiUnauthorizedResponse,
-  ApiUnprocessableEntityResponse,
-} from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { Role } from '@meritline/shared';
-import { ApiErrorDto } from '../common/dto/api-error.dto.js';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreatePreparationDto, PreparationPreviewRequestDto } from './dto/preparation-request.dto.js';
 import { PreparationPreviewResponseDto, PreparationResponseDto } from './dto/preparation-response.dto.js';
 import { PreparationsService } from './preparations.service.js';
 
-const REFUSED = {
-  type: ApiErrorDto,
-  description:
-    'Purity outside (0, 1], a mass or volume not above zero, a negative tolerance or uncertainty, or an unknown, expired or withdrawn material: { statusCode, message, errors: [{ field, code, message }] }. Nothing is saved.',
-};
+const REFUSED =
+  'Purity outside (0, 1], a mass or volume not above zero, a negative tolerance or uncertainty, or an unknown, expired or withdrawn material: { statusCode, message, errors: [{ field, code, message }] }. Nothing is saved.';
 
 @ApiTags('preparations')
-@ApiBearerAuth()
-@ApiUnauthorizedResponse({ type: ApiErrorDto, description: 'Not signed in.' })
+@ApiSignedIn('Analysts prepare standards.')
 @Controller('preparations')
 export class PreparationsController {
   constructor(private readonly preparations: PreparationsService) {}
@@ -36,7 +23,7 @@ export class PreparationsController {
     type: PreparationPreviewResponseDto,
     description: 'Stock and working standards with u and the budget; nothing is saved.',
   })
-  @ApiUnprocessableEntityResponse(REFUSED)
+  @ApiInvalid(REFUSED)
   preview(@Body() dto: PreparationPreviewRequestDto) {
     return this.preparations.preview(dto);
   }
@@ -44,8 +31,7 @@ export class PreparationsController {
   @Post()
   @Roles(Role.Analyst)
   @ApiCreatedResponse({ type: PreparationResponseDto, description: 'Saved for good; a preparation is never changed.' })
-  @ApiForbiddenResponse({ type: ApiErrorDto, description: 'Analysts prepare standards.' })
-  @ApiUnprocessableEntityResponse(REFUSED)
+  @ApiInvalid(REFUSED)
   create(@Body() dto: CreatePreparationDto, @CurrentUser() actor: AuthUser) {
     return this.preparations.create(dto, actor);
   }
@@ -58,7 +44,7 @@ export class PreparationsController {
 
   @Get(':id')
   @ApiOkResponse({ type: PreparationResponseDto })
-  @ApiNotFoundResponse({ type: ApiErrorDto })
+  @ApiRecord('preparation')
   findOne(@Param('id', ParseUUIDPipe) id: string) {
     return this.preparations.findOne(id);
   }

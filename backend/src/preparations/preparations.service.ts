@@ -13,7 +13,7 @@ import {
   type PreparationDto,
   type PreparationPreviewDto,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
 import { writeTransaction } from '../database/write-transaction.js';
@@ -85,14 +85,14 @@ export class PreparationsService {
           action: 'preparation.created',
           entity: 'preparation',
           entityId: saved.id,
-          changes: {
-            name: { from: null, to: dto.name },
-            materialId: { from: null, to: material?.id ?? null },
-            lot: { from: null, to: material?.lot ?? null },
-            stockConcentration: { from: null, to: result.stock.concentration },
-            stockU: { from: null, to: result.stock.u },
-            steps: { from: null, to: result.steps.length },
-          },
+          changes: createdFields({
+            name: dto.name,
+            materialId: material?.id ?? null,
+            lot: material?.lot ?? null,
+            stockConcentration: result.stock.concentration,
+            stockU: result.stock.u,
+            steps: result.steps.length,
+          }),
         },
         manager,
       );

@@ -1,13 +1,16 @@
 import { Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Res, StreamableFile } from '@nestjs/common';
-import { ApiBearerAuth, ApiProduces, ApiTags } from '@nestjs/swagger';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { Role, type QualificationRunDetailDto, type QualificationRunDto } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { download } from '../common/files.js';
+import { ApiFile, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { QualificationRunDetailResponseDto, QualificationRunResponseDto } from './dto/qualification-run.dto.js';
 import { QualificationService } from './qualification.service.js';
 
 @ApiTags('qualification')
-@ApiBearerAuth()
+@ApiSignedIn('Quality managers and administrators only.')
 @Roles(Role.QualityManager, Role.Admin)
 @Controller('qualification')
 export class QualificationController {
@@ -15,24 +18,22 @@ export class QualificationController {
 
   @Post()
   @HttpCode(201)
+  @ApiCreatedResponse({ type: QualificationRunDetailResponseDto, description: 'Every check run now, with its signed report stored.' })
   run(@CurrentUser() user: AuthUser): Promise<QualificationRunDetailDto> {
     return this.qualification.run(user);
   }
 
   @Get()
+  @ApiOkResponse({ type: [QualificationRunResponseDto] })
   list(): Promise<QualificationRunDto[]> {
     return this.qualification.list();
   }
 
   @Get(':id/report')
-  @ApiProduces('application/pdf')
+  @ApiFile('The signed self-qualification report.', 'application/pdf')
+  @ApiRecord('self-qualification')
   async report(@Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
     const file = await this.qualification.report(id);
-    res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(file.pdf, {
-      type: 'application/pdf',
-      disposition: `attachment; filename="${file.fileName}"`,
-      length: file.pdf.length,
-    });
+    return download(res, file.pdf, 'application/pdf', file.fileName);
   }
 }

@@ -1,7 +1,7 @@
 import { Inject, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { execFileSync } from 'node:child_process';
-import { createHash, randomUUID } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { createRequire } from 'node:module';
 import { dirname } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -13,11 +13,11 @@ import {
   type QualificationRunDetailDto,
   type QualificationRunDto,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
-import { writeTransaction } from '../database/write-transaction.js';
 import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
+import { storeIssued } from '../reports/signing/store-issued.js';
 import { qualificationFileName, renderQualificationReport } from './qualification-report.document.js';
 import { QualificationRun } from './qualification-run.entity.js';
 
@@ -81,12 +81,11 @@ export class QualificationService {
       minDigits: summary.minDigits,
       verifyUrl: `${this.config.publicUrl}/verify`,
     });
-    const pdf = await this.certificate.sign(unsigned, {
-      reason: `Self-qualification of the calculations: ${summary.passed} of ${summary.checks.length} published checks passed`,
-      location: this.config.laboratoryName,
-      contactInfo: `${this.config.publicUrl}/verify`,
-      signingTime: ranAt,
-    });
+    const issued = await this.certificate.issue(
+      unsigned,
+      `Self-qualification of the calculations: ${summary.passed} of ${summary.checks.length} published checks passed`,
+      ranAt,
+    );
     const run = this.dataSource.getRepository(QualificationRun).create({
       id,
       ranAt,
@@ -97,27 +96,19 @@ export class QualificationService {
       passed: summary.passed,
       allPassed: summary.allPassed,
       results: { checks: summary.checks, minDigits: summary.minDigits },
-      pdf,
-      sha256: createHash('sha256').update(pdf).digest('hex'),
-      sizeBytes: pdf.length,
+      ...issued,
     });
-    await writeTransaction(this.dataSource, async (manager) => {
-      await manager.getRepository(QualificationRun).insert(run);
-      await this.audit.record(
-        {
-          actor,
-          action: 'qualification.run',
-          entity: 'qualification',
-          entityId: run.id,
-          changes: {
-            checks: { from: null, to: run.total },
-            passed: { from: null, to: run.passed },
-            engineVersion: { from: null, to: installation.engineVersion },
-            reportSha256: { from: null, to: run.sha256 },
-          },
-        },
-        manager,
-      );
+    await storeIssued(this.dataSource, this.audit, QualificationRun, run, {
+      actor,
+      action: 'qualification.run',
+      entity: 'qualification',
+      entityId: run.id,
+      changes: createdFields({
+        checks: run.total,
+        passed: run.passed,
+        engineVersion: installation.engineVersion,
+        reportSha256: run.sha256,
+      }),
     });
     return { ...toDto(run), checks: summary.checks };
   }

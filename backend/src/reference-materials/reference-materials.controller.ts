@@ -1,38 +1,11 @@
-import {
-  Body,
-  Controller,
-  Get,
-  HttpCode,
-  Param,
-  ParseUUIDPipe,
-  Patch,
-  Post,
-  Put,
-  Res,
-  StreamableFile,
-  UploadedFile,
-  UseInterceptors,
-} from '@nestjs/common';
-import { FileInterceptor } from '@nestjs/platform-express';
-import {
-  ApiBearerAuth,
-  ApiBody,
-  ApiConflictResponse,
-  ApiConsumes,
-  ApiCreatedResponse,
-  ApiForbiddenResponse,
-  ApiNotFoundResponse,
-  ApiOkResponse,
-  ApiProduces,
-  ApiTags,
-  ApiUnauthorizedResponse,
-  ApiUnprocessableEntityResponse,
-} from '@nestjs/swagger';
+import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Put, Res, StreamableFile, UploadedFile } from '@nestjs/common';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { MAX_CERTIFICATE_BYTES, Role } from '@meritline/shared';
-import { ApiErrorDto } from '../common/dto/api-error.dto.js';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { download, FileUpload } from '../common/files.js';
+import { ApiChange, ApiConflict, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreateReferenceMaterialDto } from './dto/create-reference-material.dto.js';
 import { LockVersionDto } from './dto/reference-material-fields.dto.js';
 import { ReferenceMaterialResponseDto } from './dto/reference-material.dto.js';
@@ -41,12 +14,10 @@ import { WithdrawReferenceMaterialDto } from './dto/withdraw-reference-material.
 import { ReferenceMaterialsService } from './reference-materials.service.js';
 
 const KEEPERS = [Role.QualityManager, Role.Admin];
-const INVALID = { type: ApiErrorDto, description: 'Invalid fields: { statusCode, message, errors: [{ field, code, message }] }.' };
-const STALE = { type: ApiErrorDto, description: 'Stale lock version, a withdrawn material, or a duplicate supplier, certificate and lot.' };
+const STALE = 'Stale lock version, a withdrawn material, or a duplicate supplier, certificate and lot.';
 
 @ApiTags('reference-materials')
-@ApiBearerAuth()
-@ApiUnauthorizedResponse({ type: ApiErrorDto, description: 'Not signed in.' })
+@ApiSignedIn('Only quality managers and administrators keep the register.')
 @Controller('reference-materials')
 export class ReferenceMaterialsController {
   constructor(private readonly materials: ReferenceMaterialsService) {}
@@ -65,7 +36,7 @@ export class ReferenceMaterialsController {
 
   @Get(':id')
   @ApiOkResponse({ type: ReferenceMaterialResponseDto })
-  @ApiNotFoundResponse({ type: ApiErrorDto })
+  @ApiRecord('reference material')
   findOne(@Param('id', ParseUUIDPipe) id: string) {
     return this.materials.findOne(id);
   }
@@ -73,9 +44,8 @@ export class ReferenceMaterialsController {
   @Post()
   @Roles(...KEEPERS)
   @ApiCreatedResponse({ type: ReferenceMaterialResponseDto })
-  @ApiForbiddenResponse({ type: ApiErrorDto, description: 'Only quality managers and administrators keep the register.' })
-  @ApiUnprocessableEntityResponse(INVALID)
-  @ApiConflictResponse(STALE)
+  @ApiInvalid()
+  @ApiConflict(STALE)
   create(@Body() dto: CreateReferenceMaterialDto, @CurrentUser() actor: AuthUser) {
     return this.materials.create(dto, actor);
   }
@@ -83,10 +53,7 @@ export class ReferenceMaterialsController {
   @Patch(':id')
   @Roles(...KEEPERS)
   @ApiOkResponse({ type: ReferenceMaterialResponseDto })
-  @ApiForbiddenResponse({ type: ApiErrorDto })
-  @ApiNotFoundResponse({ type: ApiErrorDto })
-  @ApiUnprocessableEntityResponse(INVALID)
-  @ApiConflictResponse(STALE)
+  @ApiChange('reference material', STALE)
   update(@Param('id', ParseUUIDPipe) id: string, @Body() dto: UpdateReferenceMaterialDto, @CurrentUser() actor: AuthUser) {
     return this.materials.update(id, dto, actor);
   }
@@ -95,33 +62,18 @@ export class ReferenceMaterialsController {
   @HttpCode(200)
   @Roles(...KEEPERS)
   @ApiOkResponse({ type: ReferenceMaterialResponseDto, description: 'Withdrawn for good; preparations from it are refused.' })
-  @ApiForbiddenResponse({ type: ApiErrorDto })
-  @ApiNotFoundResponse({ type: ApiErrorDto })
-  @ApiUnprocessableEntityResponse(INVALID)
-  @ApiConflictResponse(STALE)
+  @ApiChange('reference material', STALE)
   withdraw(@Param('id', ParseUUIDPipe) id: string, @Body() dto: WithdrawReferenceMaterialDto, @CurrentUser() actor: AuthUser) {
     return this.materials.withdraw(id, dto, actor);
   }
 
   @Put(':id/certificate')
   @Roles(...KEEPERS)
-  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: MAX_CERTIFICATE_BYTES, files: 1 } }))
-  @ApiConsumes('multipart/form-data')
-  @ApiBody({
-    schema: {
-      type: 'object',
-      required: ['file', 'lockVersion'],
-      properties: {
-        file: { type: 'string', format: 'binary', description: 'The certificate as a PDF, at most 10 MB.' },
-        lockVersion: { type: 'integer' },
-      },
-    },
-  })
+  @FileUpload(MAX_CERTIFICATE_BYTES, 'The certificate as a PDF, at most 10 MB.', { lockVersion: { type: 'integer' } })
   @ApiOkResponse({ type: ReferenceMaterialResponseDto })
-  @ApiForbiddenResponse({ type: ApiErrorDto })
-  @ApiNotFoundResponse({ type: ApiErrorDto })
-  @ApiUnprocessableEntityResponse({ type: ApiErrorDto, description: 'No file, or not a PDF.' })
-  @ApiConflictResponse(STALE)
+  @ApiRecord('reference material')
+  @ApiInvalid('No file, or not a PDF.')
+  @ApiConflict(STALE)
   uploadCertificate(
     @Param('id', ParseUUIDPipe) id: string,
     @UploadedFile() file: Express.Multer.File | undefined,
@@ -132,16 +84,10 @@ export class ReferenceMaterialsController {
   }
 
   @Get(':id/certificate')
-  @ApiProduces('application/pdf')
-  @ApiOkResponse({ description: 'The certificate as uploaded.', schema: { type: 'string', format: 'binary' } })
-  @ApiNotFoundResponse({ type: ApiErrorDto, description: 'No such material, or no certificate uploaded.' })
+  @ApiFile('The certificate as uploaded.', 'application/pdf')
+  @ApiRecord('reference material, or no certificate uploaded')
   async certificate(@Param('id', ParseUUIDPipe) id: string, @Res({ passthrough: true }) res: Response): Promise<StreamableFile> {
     const file = await this.materials.certificate(id);
-    res.setHeader('Cache-Control', 'private, no-store');
-    return new StreamableFile(file.pdf, {
-      type: 'application/pdf',
-      disposition: `attachment; filename="${file.fileName}"`,
-      length: file.pdf.length,
-    });
+    return download(res, file.pdf, 'application/pdf', file.fileName);
   }
 }

@@ -4,7 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { createHash, randomUUID } from 'node:crypto';
 import { DataSource, In } from 'typeorm';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
-import { AuditService, type AuditRecord } from '../audit/audit.service.js';
+import { createdFields, AuditService, type AuditRecord } from '../audit/audit.service.js';
 import { ChangeAssessment } from '../comparisons/change-assessment.entity.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -12,7 +12,6 @@ import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { QualificationRun } from '../qualification/qualification-run.entity.js';
 import { StudyComment } from '../reviews/study-comment.entity.js';
 import { StudySignature } from '../reviews/study-signature.entity.js';
-import { writeTransaction } from '../database/write-transaction.js';
 import { RESULTS_REPORT_ID_INFO_KEY } from '../runs/results-report.js';
 import { RunResultsReport } from '../runs/run-results-report.entity.js';
 import { Run } from '../runs/run.entity.js';
@@ -21,6 +20,7 @@ import { formatDateTime } from './pdf/index.js';
 import type { ReportContent } from './report-content.js';
 import { StandardPreparation } from '../preparations/standard-preparation.entity.js';
 import { LabCertificateService } from './signing/lab-certificate.service.js';
+import { storeIssued } from './signing/store-issued.js';
 import { reportFileName, REPORT_ID_INFO_KEY } from './validation-report.document.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { ValidationReport } from './validation-report.entity.js';
@@ -73,48 +73,36 @@ export class ReportsService {
     const reportId = randomUUID();
     const signedAt = new Date();
     const content = await this.contentOf(study, reportId, signedAt);
-    const pdf = await this.certificate.sign(await this.workers.renderReport(content), {
-      reason: `Method validation report of ${content.method.name}, version ${content.version.number}, issued by ${content.laboratoryName}`,
-      location: content.laboratoryName,
-      contactInfo: content.verifyUrl,
-      signingTime: signedAt,
-    });
-    const report = this.dataSource.getRepository(ValidationReport).create({
-      id: reportId,
-      studyId: study.id,
-      methodVersionId: study.methodVersionId,
-      pdf,
-      sha256: sha256(pdf),
-      sizeBytes: pdf.length,
+    const issued = await this.certificate.issue(
+      await this.workers.renderReport(content),
+      `Method validation report of ${content.method.name}, version ${content.version.number}, issued by ${content.laboratoryName}`,
       signedAt,
-    });
-    try {
-      await writeTransaction(this.dataSource, async (manager) => {
-        await manager.getRepository(ValidationReport).insert(report);
-        await this.audit.record(
-          {
-            actor: actor ?? SYSTEM_ACTOR,
-            action: 'report.issued',
-            entity: 'validation-report',
-            entityId: report.id,
-            changes: {
-              studyId: { from: null, to: study.id },
-              methodVersionId: { from: null, to: study.methodVersionId },
-              sha256: { from: null, to: report.sha256 },
-              sizeBytes: { from: null, to: report.sizeBytes },
-            },
-            reason: `Signed report issued for the approved study “${study.title}”.`,
-          },
-          manager,
-        );
-      });
-    } catch (error) {
-      const raced = await this.findReport(studyId);
-      if (raced) return raced;
-      throw error;
-    }
-    this.logger.log(`Issued report ${report.id} for study ${study.id} (${report.sizeBytes} bytes).`);
-    return report;
+    );
+    const report = this.dataSource
+      .getRepository(ValidationReport)
+      .create({ id: reportId, studyId: study.id, methodVersionId: study.methodVersionId, ...issued, signedAt });
+    const stored = await storeIssued(
+      this.dataSource,
+      this.audit,
+      ValidationReport,
+      report,
+      {
+        actor: actor ?? SYSTEM_ACTOR,
+        action: 'report.issued',
+        entity: 'validation-report',
+        entityId: report.id,
+        changes: createdFields({
+          studyId: study.id,
+          methodVersionId: study.methodVersionId,
+          sha256: report.sha256,
+          sizeBytes: report.sizeBytes,
+        }),
+        reason: `Signed report issued for the approved study “${study.title}”.`,
+      },
+      () => this.findReport(studyId),
+    );
+    if (stored === report) this.logger.log(`Issued report ${report.id} for study ${study.id} (${report.sizeBytes} bytes).`);
+    return stored;
   }
 
   /** The stored signed report of an approved study (issued now if it has none yet), else an unsigned draft preview. */

@@ -1,30 +1,12 @@
-import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn } from 'typeorm';
-import { binaryColumnType } from '../database/column-types.js';
+import { Column, Entity } from 'typeorm';
+import { StoredPdfColumns } from '../database/signed-record-columns.js';
 
-/** The signed PDF issued for an approved study, stored once; re-downloads return these bytes. */
+/** The signed PDF issued for an approved study. */
 @Entity('validation_reports')
-export class ValidationReport {
-  @PrimaryGeneratedColumn('uuid')
-  id: string;
-
+export class ValidationReport extends StoredPdfColumns {
   @Column({ name: 'study_id', type: 'uuid', unique: true })
   studyId: string;
 
   @Column({ name: 'method_version_id', type: 'uuid' })
   methodVersionId: string;
-
-  @Column({ type: binaryColumnType })
-  pdf: Buffer;
-
-  @Column({ type: 'varchar', length: 64, unique: true })
-  sha256: string;
-
-  @Column({ name: 'size_bytes', type: Number })
-  sizeBytes: number;
-
-  @Column({ name: 'signed_at', type: Date })
-  signedAt: Date;
-
-  @CreateDateColumn({ name: 'created_at' })
-  createdAt: Date;
 }

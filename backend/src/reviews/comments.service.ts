@@ -1,7 +1,7 @@
 import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
 import type { CreateCommentDto } from './dto/create-comment.dto.js';
@@ -85,7 +85,7 @@ export class CommentsService {
           action: 'study-comment.created',
           entity: 'study-comment',
           entityId: comment.id,
-          changes: { studyId: { from: null, to: studyId }, section: { from: null, to: section }, body: { from: null, to: comment.body } },
+          changes: createdFields({ studyId, section, body: comment.body }),
         },
         manager,
       );

@@ -1,5 +1,5 @@
-import { Body, Controller, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
-import { ApiBearerAuth, ApiTags } from '@nestjs/swagger';
+import { Body, Controller, Get, Param, ParseUUIDPipe, Patch, Post, Query } from '@nestjs/common';
+import { ApiCreatedResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import {
   type CommentDto,
   type HistoryItemDto,
@@ -12,8 +12,18 @@ import {
 } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
-import type { StudyDto } from '../studies/dto/study.dto.js';
+import { SigningStep } from '../common/decorators/signing-step.decorator.js';
+import { StudyDto } from '../studies/dto/study.dto.js';
+import { ApiChange, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CommentsService } from './comments.service.js';
+import {
+  CommentResponseDto,
+  HistoryItemResponseDto,
+  ReviewQueueEntryResponseDto,
+  SignatureResponseDto,
+  StudyDiffResponseDto,
+  TransitionResultResponseDto,
+} from './dto/review-response.dto.js';
 import { CreateCommentDto } from './dto/create-comment.dto.js';
 import { ReturnStudyDto } from './dto/return-study.dto.js';
 import { ReviewQueueQueryDto } from './dto/review-queue.query.dto.js';
@@ -23,12 +33,14 @@ import { ReviewsService } from './reviews.service.js';
 import { StudyHistoryService } from './study-history.service.js';
 import { RunReleaseService } from '../runs/run-release.service.js';
 
+const APPROVED = 'The study is approved: its comments no longer change.';
+const REVIEWERS = [Role.Reviewer, Role.QualityManager];
 const STUDY_READERS = [Role.Analyst, Role.Reviewer, Role.QualityManager];
 /** Administrators read a study's record too (to hand a draft to another analyst), but do not comment. */
 const STUDY_VIEWERS = [...STUDY_READERS, Role.Admin];
 
 @ApiTags('reviews')
-@ApiBearerAuth()
+@ApiSignedIn()
 @Controller('studies/:id')
 export class StudyReviewController {
   constructor(
@@ -37,16 +49,12 @@ export class StudyReviewController {
     private readonly historyService: StudyHistoryService,
   ) {}
 
-  @Post('submit')
-  @HttpCode(200)
-  @Roles(Role.Analyst)
+  @SigningStep('submit', 'study', TransitionResultResponseDto, [Role.Analyst], 'Submitted, with the author’s signature.')
   submit(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
     return this.reviewsService.submit(id, dto, user);
   }
 
-  @Post('return')
-  @HttpCode(200)
-  @Roles(Role.Reviewer, Role.QualityManager)
+  @SigningStep('return', 'study', TransitionResultResponseDto, REVIEWERS, 'Returned to the author with the comment.')
   returnToAuthor(
     @Param('id', ParseUUIDPipe) id: string,
     @Body() dto: ReturnStudyDto,
@@ -55,51 +63,63 @@ export class StudyReviewController {
     return this.reviewsService.returnToAuthor(id, dto, user);
   }
 
-  @Post('approve')
-  @HttpCode(200)
-  @Roles(Role.Reviewer, Role.QualityManager)
+  @SigningStep('approve', 'study', TransitionResultResponseDto, REVIEWERS, 'Approved (or reviewed, where a quality manager releases).')
   approve(@Param('id', ParseUUIDPipe) id: string, @Body() dto: SignStudyDto, @CurrentUser() user: AuthUser): Promise<TransitionResultDto> {
     return this.reviewsService.approve(id, dto, user);
   }
 
   @Post('copy')
   @Roles(Role.Analyst)
+  @ApiCreatedResponse({ type: StudyDto, description: 'A new draft with the data of the study.' })
+  @ApiRecord('study')
   copy(@Param('id', ParseUUIDPipe) id: string, @CurrentUser() user: AuthUser): Promise<StudyDto> {
     return this.reviewsService.copy(id, user);
   }
 
   @Get('signatures')
   @Roles(...STUDY_VIEWERS)
+  @ApiOkResponse({ type: [SignatureResponseDto] })
+  @ApiRecord('study')
   signatures(@Param('id', ParseUUIDPipe) id: string): Promise<SignatureDto[]> {
     return this.reviewsService.listSignatures(id);
   }
 
   @Get('history')
   @Roles(...STUDY_VIEWERS)
+  @ApiOkResponse({ type: [HistoryItemResponseDto] })
+  @ApiRecord('study')
   history(@Param('id', ParseUUIDPipe) id: string): Promise<HistoryItemDto[]> {
     return this.historyService.history(id);
   }
 
   @Get('diff')
   @Roles(...STUDY_VIEWERS)
+  @ApiOkResponse({ type: StudyDiffResponseDto, description: 'What changed between the last two submissions; null before a resubmission.' })
+  @ApiRecord('study')
   diff(@Param('id', ParseUUIDPipe) id: string): Promise<StudyDiffDto | null> {
     return this.historyService.diff(id);
   }
 
   @Get('comments')
   @Roles(...STUDY_VIEWERS)
+  @ApiOkResponse({ type: [CommentResponseDto] })
+  @ApiRecord('study')
   comments(@Param('id', ParseUUIDPipe) id: string): Promise<CommentDto[]> {
     return this.commentsService.list(id);
   }
 
   @Post('comments')
   @Roles(...STUDY_READERS)
+  @ApiCreatedResponse({ type: CommentResponseDto })
+  @ApiChange('study', APPROVED)
   comment(@Param('id', ParseUUIDPipe) id: string, @Body() dto: CreateCommentDto, @CurrentUser() user: AuthUser): Promise<CommentDto> {
     return this.commentsService.create(id, dto, user);
   }
 
   @Patch('comments/:commentId')
   @Roles(...STUDY_READERS)
+  @ApiOkResponse({ type: CommentResponseDto })
+  @ApiChange('study or comment', APPROVED)
   updateComment(
     @Param('id', ParseUUIDPipe) id: string,
     @Param('commentId', ParseUUIDPipe) commentId: string,
@@ -111,7 +131,7 @@ export class StudyReviewController {
 }
 
 @ApiTags('reviews')
-@ApiBearerAuth()
+@ApiSignedIn()
 @Controller('reviews')
 export class ReviewQueueController {
   constructor(
@@ -121,7 +141,9 @@ export class ReviewQueueController {
 
   /** Studies and runs awaiting the caller, each with its kind; studies first, each kind oldest first. */
   @Get('queue')
-  @Roles(Role.Reviewer, Role.QualityManager)
+  @Roles(...REVIEWERS)
+  @ApiOkResponse({ type: [ReviewQueueEntryResponseDto] })
+  @ApiInvalid()
   async queue(@Query() query: ReviewQueueQueryDto, @CurrentUser() user: AuthUser): Promise<ReviewQueueEntryDto[]> {
     const studies: ReviewQueueEntryDto[] =
       query.kind === 'run'

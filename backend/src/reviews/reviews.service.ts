@@ -11,7 +11,7 @@ import {
   type StudyStatus,
   type TransitionResultDto,
 } from '@meritline/shared';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
@@ -20,7 +20,7 @@ import { ReportsService } from '../reports/reports.service.js';
 import type { StudyDto } from '../studies/dto/study.dto.js';
 import { toStudyDto } from '../studies/studies.service.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
-import { ValidationStudy } from '../studies/validation-study.entity.js';
+import { newDraftFields, ValidationStudy } from '../studies/validation-study.entity.js';
 import type { ReturnStudyDto } from './dto/return-study.dto.js';
 import type { SignStudyDto } from './dto/sign-study.dto.js';
 import { ReviewNoticesService, type ReviewEvent } from './review-notices.service.js';
@@ -175,15 +175,11 @@ export class ReviewsService {
         repo.create({
           methodVersionId: source.methodVersionId,
           title: `${source.title} (new study)`.slice(0, 200),
-          status: 'draft',
           data: source.data,
           ...evaluation,
           meta: source.meta?.instrument ? { instrument: source.meta.instrument } : {},
-          authorId: actor.id,
-          editorIds: [actor.id],
           copiedFromId: source.id,
-          submittedAt: null,
-          approvedAt: null,
+          ...newDraftFields(actor.id),
         }),
       );
       await this.audit.record(
@@ -192,7 +188,7 @@ export class ReviewsService {
           action: 'study.created',
           entity: 'study',
           entityId: copy.id,
-          changes: { status: { from: null, to: 'draft' }, copiedFromId: { from: null, to: source.id } },
+          changes: createdFields({ status: 'draft', copiedFromId: source.id }),
           reason: `Started from the study “${source.title}”.`,
         },
         manager,

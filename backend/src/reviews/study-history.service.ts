@@ -1,5 +1,12 @@
 import { Injectable } from '@nestjs/common';
-import { describeStudyChange, type FieldChanges, type HistoryItemDto, type SignatureMeaning, type StudyDiffDto } from '@meritline/shared';
+import {
+  describeStudyChange,
+  STUDY_SECTION_LABELS,
+  type FieldChanges,
+  type HistoryItemDto,
+  type SignatureMeaning,
+  type StudyDiffDto,
+} from '@meritline/shared';
 import { AuditService } from '../audit/audit.service.js';
 import { CommentsService } from './comments.service.js';
 import { ReviewsService } from './reviews.service.js';
@@ -25,16 +32,6 @@ const MEANING_WORDS: Record<SignatureMeaning, string> = {
   authored: 'Signed as author',
   'reviewed-and-approved': 'Signed as reviewer: reviewed and approved',
   released: 'Signed as quality manager: released',
-};
-
-const SECTION_WORDS: Record<string, string> = {
-  setup: 'Setup',
-  standards: 'Standards',
-  blanks: 'Blanks',
-  recovery: 'Recovery',
-  precision: 'Precision',
-  results: 'Results',
-  conclusion: 'Conclusion',
 };
 
 const UNSAID = new Set(['status', 'dataHash', 'meta', 'authorId', 'methodVersionId', 'copiedFromId']);
@@ -102,7 +99,7 @@ export class StudyHistoryService {
         kind: 'comment',
         action: comment.threadId ? 'comment.reply' : 'comment.created',
         actorName: comment.authorName,
-        summary: `${comment.threadId ? 'Reply' : 'Comment'} on ${SECTION_WORDS[comment.section] ?? comment.section}`,
+        summary: `${comment.threadId ? 'Reply' : 'Comment'} on ${STUDY_SECTION_LABELS[comment.section] ?? comment.section}`,
         detail: comment.body,
         changes: null,
       })),

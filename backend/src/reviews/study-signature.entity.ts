@@ -1,38 +1,16 @@
-import { Column, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
-import type { Role, SignatureMeaning } from '@meritline/shared';
+import { Column, Entity, JoinColumn, ManyToOne } from 'typeorm';
+import type { SignatureMeaning } from '@meritline/shared';
+import { SignatureColumns } from '../database/signed-record-columns.js';
 import { ValidationStudy } from '../studies/validation-study.entity.js';
 
-/** An electronic signature: who, as what, meaning what, when, over which content. */
 @Entity('study_signatures')
-export class StudySignature {
-  @PrimaryGeneratedColumn('uuid')
-  id: string;
-
+export class StudySignature extends SignatureColumns<SignatureMeaning> {
   @Column({ name: 'study_id', type: 'uuid' })
   studyId: string;
 
   @ManyToOne(() => ValidationStudy, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'study_id' })
   study: ValidationStudy;
-
-  @Column({ name: 'signer_id', type: 'uuid' })
-  signerId: string;
-
-  @Column({ name: 'signer_name', type: 'varchar', length: 120 })
-  signerName: string;
-
-  @Column({ name: 'signer_role', type: 'varchar', length: 20 })
-  signerRole: Role;
-
-  @Column({ type: 'varchar', length: 30 })
-  meaning: SignatureMeaning;
-
-  @Column({ name: 'signed_at', type: Date })
-  signedAt: Date;
-
-  /** SHA-256 of the canonical JSON of { data, result } at signing. */
-  @Column({ name: 'content_hash', type: 'varchar', length: 64 })
-  contentHash: string;
 
   @Column({ type: 'text', nullable: true })
   comment: string | null;

@@ -1,19 +1,17 @@
 import { Inject, Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { createHash, randomUUID } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { DataSource } from 'typeorm';
-import { AuditService } from '../audit/audit.service.js';
+import { createdFields, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
-import { writeTransaction } from '../database/write-transaction.js';
 import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
+import { storeIssued } from '../reports/signing/store-issued.js';
 import { renderResultsReport, type ReportSignature } from './results-report.js';
 import { RunReleaseService } from './run-release.service.js';
 import { RunResultsReport } from './run-results-report.entity.js';
 import { RunSignature } from './run-signature.entity.js';
 import { RunsService, type RunFile } from './runs.service.js';
-
-const sha256 = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 
 /** The signed results report of a released, accepted run: rendered, signed and stored the first time, the same bytes ever after. */
 @Injectable()
@@ -55,46 +53,32 @@ export class RunReportService {
       issuedAt: signedAt,
       signatures: await this.signaturesOf(runId),
     });
-    const pdf = await this.certificate.sign(unsigned, {
-      reason: `Results of the routine run "${run.title}" (${run.method.name}, version ${run.versionNumber}), issued by ${this.config.laboratoryName}`,
-      location: this.config.laboratoryName,
-      contactInfo: verifyUrl,
-      signingTime: signedAt,
-    });
-    const report = repo.create({
-      id: reportId,
-      runId,
-      methodVersionId: run.methodVersionId,
-      pdf,
-      sha256: sha256(pdf),
-      sizeBytes: pdf.length,
+    const issued = await this.certificate.issue(
+      unsigned,
+      `Results of the routine run "${run.title}" (${run.method.name}, version ${run.versionNumber}), issued by ${this.config.laboratoryName}`,
       signedAt,
-    });
-    try {
-      await writeTransaction(this.dataSource, async (manager) => {
-        await manager.getRepository(RunResultsReport).insert(report);
-        await this.audit.record(
-          {
-            actor,
-            action: 'run-report.issued',
-            entity: 'run-results-report',
-            entityId: report.id,
-            changes: {
-              runId: { from: null, to: runId },
-              sha256: { from: null, to: report.sha256 },
-              sizeBytes: { from: null, to: report.sizeBytes },
-            },
-            reason: `Signed results report issued for the released run “${run.title}”.`,
-          },
-          manager,
-        );
-      });
-    } catch (error) {
-      const raced = await repo.findOneBy({ runId });
-      if (raced) return raced;
-      throw error;
-    }
-    this.logger.log(`Issued results report ${report.id} for run ${runId} (${report.sizeBytes} bytes).`);
-    return report;
+    );
+    const report = repo.create({ id: reportId, runId, methodVersionId: run.methodVersionId, ...issued, signedAt });
+    const stored = await storeIssued(
+      this.dataSource,
+      this.audit,
+      RunResultsReport,
+      report,
+      {
+        actor,
+        action: 'run-report.issued',
+        entity: 'run-results-report',
+        entityId: report.id,
+        changes: createdFields({
+          runId: runId,
+          sha256: report.sha256,
+          sizeBytes: report.sizeBytes,
+        }),
+        reason: `Signed results report issued for the released run “${run.title}”.`,
+      },
+      () => repo.findOneBy({ runId }),
+    );
+    if (stored === report) this.logger.log(`Issued results report ${report.id} for run ${runId} (${report.sizeBytes} bytes).`);
+    return stored;
   }
 }

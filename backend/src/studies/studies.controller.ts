@@ -16,20 +16,19 @@ import {
 } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import {
-  ApiBearerAuth,
   ApiBody,
   ApiConsumes,
   ApiCreatedResponse,
   ApiExtraModels,
   ApiNoContentResponse,
   ApiOkResponse,
-  ApiProduces,
   ApiTags,
   getSchemaPath,
 } from '@nestjs/swagger';
 import { IMPORT_SECTIONS, type ImportSection, Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
+import { ApiChange, ApiConflict, ApiError, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreateStudyDto } from './dto/create-study.dto.js';
 import { ImportStudyDto } from './dto/import-study.dto.js';
 import { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
@@ -41,19 +40,21 @@ import { importTemplate } from './study-import.js';
 import { StudiesService } from './studies.service.js';
 
 @ApiTags('studies')
-@ApiBearerAuth()
+@ApiSignedIn()
 @Controller()
 export class StudiesController {
   constructor(private readonly studiesService: StudiesService) {}
 
   @Get('studies')
   @ApiOkResponse({ type: StudyPageDto })
+  @ApiInvalid()
   findPage(@Query() query: ListStudiesQueryDto, @CurrentUser() user: AuthUser): Promise<StudyPageDto> {
     return this.studiesService.findPage(query, user);
   }
 
   @Get('studies/:id')
   @ApiOkResponse({ type: StudyDto })
+  @ApiRecord('study')
   findOne(@Param('id', ParseUUIDPipe) id: string): Promise<StudyDto> {
     return this.studiesService.findOne(id);
   }
@@ -64,6 +65,8 @@ export class StudiesController {
     type: StudyDto,
     description: 'A draft, with the server’s result (or the reasons the data cannot be evaluated yet).',
   })
+  @ApiInvalid()
+  @ApiError(404, 'No such method version.')
   create(@Body() dto: CreateStudyDto, @CurrentUser() actor: AuthUser): Promise<StudyDto> {
     return this.studiesService.create(dto, actor);
   }
@@ -71,6 +74,7 @@ export class StudiesController {
   @Patch('studies/:id')
   @Roles(Role.Analyst)
   @ApiOkResponse({ type: StudyDto })
+  @ApiChange('study', 'Someone changed the study since it was loaded (stale lock version), or it is locked while under review.')
   update(@Param('id', ParseUUIDPipe) id: string, @Body() dto: UpdateStudyDto, @CurrentUser() actor: AuthUser): Promise<StudyDto> {
     return this.studiesService.update(id, dto, actor);
   }
@@ -79,6 +83,7 @@ export class StudiesController {
   @Roles(Role.Admin)
   @HttpCode(200)
   @ApiOkResponse({ type: StudyDto, description: 'The draft, now written by the analyst named; audited with the reason.' })
+  @ApiChange('study', 'Stale lock version, or the study is no longer a draft.')
   reassign(@Param('id', ParseUUIDPipe) id: string, @Body() dto: ReassignStudyDto, @CurrentUser() actor: AuthUser): Promise<StudyDto> {
     return this.studiesService.reassign(id, dto, actor);
   }
@@ -87,6 +92,8 @@ export class StudiesController {
   @Roles(Role.Analyst)
   @HttpCode(204)
   @ApiNoContentResponse({ description: 'The author’s own draft is deleted.' })
+  @ApiRecord('study')
+  @ApiConflict('Only a draft can be deleted.')
   remove(@Param('id', ParseUUIDPipe) id: string, @CurrentUser() actor: AuthUser): Promise<void> {
     return this.studiesService.remove(id, actor);
   }
@@ -103,6 +110,8 @@ export class StudiesController {
       'dryRun: the preview (errors listed); otherwise the study with the section replaced. A real import with any error answers 422 and saves nothing.',
     schema: { oneOf: [{ $ref: getSchemaPath(ImportPreviewDto) }, { $ref: getSchemaPath(StudyDto) }] },
   })
+  @ApiChange('study')
+  @ApiError(413, 'The file is larger than the import limit.')
   importFile(
     @Param('id', ParseUUIDPipe) id: string,
     @UploadedFile() file: Express.Multer.File | undefined,
@@ -113,8 +122,8 @@ export class StudiesController {
   }
 
   @Get('import-templates/:section')
-  @ApiProduces('text/csv')
-  @ApiOkResponse({ description: 'A CSV template for the section: the header and two rows of invented numbers.' })
+  @ApiFile('A CSV template for the section: the header and two rows of invented numbers.', 'text/csv')
+  @ApiError(404, 'No import template for this section.')
   template(@Param('section') section: string): StreamableFile {
     if (!IMPORT_SECTIONS.includes(section as ImportSection)) {
       throw new NotFoundException(`There is no import template for “${section}”; the sections are ${IMPORT_SECTIONS.join(', ')}.`);

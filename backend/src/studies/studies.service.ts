@@ -4,7 +4,7 @@ import { DataSource, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson, Role, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
-import { AuditService, type AuditRecord } from '../audit/audit.service.js';
+import { createdFields, AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { unprocessable } from '../common/validation.js';
 import type { CriterionDto } from '../methods/dto/criterion.dto.js';
@@ -24,7 +24,7 @@ import { WorkerPoolService } from '../workers/worker-pool.service.js';
 import { withMethodDefaults, type StudyData } from './study-evaluation.js';
 import { importSection } from './study-import.js';
 import { saveNewStudy } from './study-record.js';
-import { ValidationStudy } from './validation-study.entity.js';
+import { newDraftFields, ValidationStudy } from './validation-study.entity.js';
 
 const LOCKED_STATUSES = ['submitted', 'approved'];
 const DAY_MS = 86_400_000;
@@ -265,15 +265,11 @@ export class StudiesService {
         {
           methodVersionId: version.id,
           title: dto.title,
-          status: 'draft',
           data,
           ...evaluation,
           meta: mergeMeta({}, dto.meta),
-          authorId: actor.id,
-          editorIds: [actor.id],
           copiedFromId: null,
-          submittedAt: null,
-          approvedAt: null,
+          ...newDraftFields(actor.id),
         },
         actor,
       );

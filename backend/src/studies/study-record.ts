@@ -1,5 +1,5 @@
 import type { DeepPartial, EntityManager } from 'typeorm';
-import type { AuditService } from '../audit/audit.service.js';
+import { createdFields, type AuditService } from '../audit/audit.service.js';
 import { ValidationStudy } from './validation-study.entity.js';
 
 /** Stores a new validation study and its audit entry in the caller's transaction. */
@@ -16,11 +16,7 @@ export async function saveNewStudy(
       action: 'study.created',
       entity: 'study',
       entityId: study.id,
-      changes: {
-        title: { from: null, to: study.title },
-        methodVersionId: { from: null, to: fields.methodVersionId },
-        dataHash: { from: null, to: study.dataHash },
-      },
+      changes: createdFields({ title: study.title, methodVersionId: fields.methodVersionId, dataHash: study.dataHash }),
     },
     manager,
   );

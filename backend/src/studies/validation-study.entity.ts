@@ -1,29 +1,12 @@
 import type { StudyMeta, StudyStatus } from '@meritline/shared';
-import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn, VersionColumn } from 'typeorm';
-import { MethodVersion } from '../methods/method-version.entity.js';
+import { Column, Entity, JoinColumn, ManyToOne, UpdateDateColumn, VersionColumn } from 'typeorm';
+import { EvaluatedRecordColumns } from '../methods/evaluated-record-columns.js';
 import { User } from '../users/user.entity.js';
 
 @Entity('validation_studies')
-export class ValidationStudy {
-  @PrimaryGeneratedColumn('uuid')
-  id: string;
-
-  @Column({ name: 'method_version_id', type: 'uuid' })
-  methodVersionId: string;
-
-  @ManyToOne(() => MethodVersion, { onDelete: 'RESTRICT' })
-  @JoinColumn({ name: 'method_version_id' })
-  methodVersion: MethodVersion;
-
-  @Column({ type: 'varchar', length: 200 })
-  title: string;
-
+export class ValidationStudy extends EvaluatedRecordColumns {
   @Column({ type: 'varchar', length: 12 })
   status: StudyStatus;
-
-  /** The study in the engine's input format. */
-  @Column({ type: 'simple-json' })
-  data: Record<string, unknown>;
 
   /** The engine's result for exactly `data`; null while the data cannot be evaluated yet. */
   @Column({ type: 'simple-json', nullable: true })
@@ -33,18 +16,8 @@ export class ValidationStudy {
   @Column({ name: 'result_errors', type: 'simple-json', nullable: true })
   resultErrors: { field: string; code: string; message: string }[] | null;
 
-  @Column({ name: 'engine_version', type: 'varchar', length: 20 })
-  engineVersion: string;
-
-  /** SHA-256 of the canonical JSON of `data`. */
-  @Column({ name: 'data_hash', type: 'varchar', length: 64 })
-  dataHash: string;
-
   @Column({ type: 'simple-json' })
   meta: StudyMeta;
-
-  @Column({ name: 'author_id', type: 'uuid' })
-  authorId: string;
 
   @ManyToOne(() => User, { onDelete: 'RESTRICT' })
   @JoinColumn({ name: 'author_id' })
@@ -63,12 +36,13 @@ export class ValidationStudy {
   @Column({ name: 'approved_at', type: Date, nullable: true })
   approvedAt: Date | null;
 
-  @CreateDateColumn({ name: 'created_at' })
-  createdAt: Date;
-
   @UpdateDateColumn({ name: 'updated_at' })
   updatedAt: Date;
 
   @VersionColumn({ name: 'lock_version' })
   lockVersion: number;
 }
+
+/** The fields of a new draft: its author the only editor so far, never submitted. */
+export const newDraftFields = (authorId: string) =>
+  ({ status: 'draft', authorId, editorIds: [authorId], submittedAt: null, approvedAt: null }) satisfies Partial<ValidationStudy>;

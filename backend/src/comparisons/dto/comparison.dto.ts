@@ -14,13 +14,6 @@ import type {
 
 const free = (description: string) => ({ type: 'object', additionalProperties: true, description }) as const;
 
-export class ApiErrorDto {
-  @ApiProperty() statusCode: number;
-  @ApiProperty() message: string;
-  @ApiProperty({ required: false, description: '[{ field, code, message }], one entry per refused field.', type: 'array', items: free('') })
-  errors?: { field: string; code: string; message: string }[];
-}
-
 export class MethodRefDto {
   @ApiProperty() id: string;
   @ApiProperty() name: string;

@@ -3,21 +3,19 @@ import {
   colors,
   formatEstimate,
   formatFixed,
-  formatInteger,
   formatInterval,
   formatLevel,
   formatNumber,
   formatPercent,
   formatPercentValue,
-  formatPValue,
   NOT_AVAILABLE,
   type PdfComposer,
   type PlotLayer,
   pText,
-  type TableRow,
   withUnit,
 } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
+import { anovaTable, type AnovaLine } from './anova.js';
 import { traceabilitySection } from './traceability.js';
 import { confidenceWords, MODEL_WORDS, notEvaluated, plural, sectionWarnings, WEIGHTING_WORDS, xUnit, yUnit } from './common.js';
 import { numbered } from './numbering.js';
@@ -117,61 +115,28 @@ function coefficients(pdf: PdfComposer, result: EvaluationResult, c: Calibration
   );
 }
 
-function anovaTable(pdf: PdfComposer, result: EvaluationResult, c: CalibrationResult): void {
+function regressionAnova(pdf: PdfComposer, result: EvaluationResult, c: CalibrationResult): void {
   if (!c.anova) return;
   const a = c.anova;
   const lof = result.lackOfFit;
-  const rows: TableRow[] = [
-    {
-      cells: [
-        'Regression',
-        formatInteger(a.dfRegression),
-        formatNumber(a.ssRegression, 5),
-        formatNumber(a.msRegression, 5),
-        formatNumber(a.F, 4),
-        formatPValue(a.p),
-      ],
-    },
-    { cells: ['Residual', formatInteger(a.dfResidual), formatNumber(a.ssResidual, 5), formatNumber(a.msResidual, 5), '', ''] },
+  const lines: AnovaLine[] = [
+    { source: 'Regression', df: a.dfRegression, ss: a.ssRegression, ms: a.msRegression, test: { F: a.F, p: a.p } },
+    { source: 'Residual', df: a.dfResidual, ss: a.ssResidual, ms: a.msResidual },
   ];
   if (lof) {
-    rows.push({
-      cells: [
-        '   Lack of fit',
-        formatInteger(lof.dfLackOfFit),
-        formatNumber(lof.ssLackOfFit, 5),
-        formatNumber(lof.ssLackOfFit / lof.dfLackOfFit, 5),
-        formatNumber(lof.F, 4),
-        formatPValue(lof.p),
-      ],
-    });
-    rows.push({
-      cells: [
-        '   Pure error',
-        formatInteger(lof.dfPureError),
-        formatNumber(lof.ssPureError, 5),
-        formatNumber(lof.ssPureError / lof.dfPureError, 5),
-        '',
-        '',
-      ],
-    });
+    lines.push(
+      {
+        source: '   Lack of fit',
+        df: lof.dfLackOfFit,
+        ss: lof.ssLackOfFit,
+        ms: lof.ssLackOfFit / lof.dfLackOfFit,
+        test: { F: lof.F, p: lof.p },
+      },
+      { source: '   Pure error', df: lof.dfPureError, ss: lof.ssPureError, ms: lof.ssPureError / lof.dfPureError },
+    );
   }
-  rows.push({
-    cells: ['Total', formatInteger(a.dfRegression + a.dfResidual), formatNumber(a.ssRegression + a.ssResidual, 5), '', '', ''],
-    bold: true,
-  });
-  pdf.table({
-    caption: 'Analysis of variance of the regression',
-    columns: [
-      { header: 'Source', width: 1.6 },
-      { header: 'df', width: 0.6, align: 'right' },
-      { header: 'Sum of squares', width: 1.5, align: 'right' },
-      { header: 'Mean square', width: 1.5, align: 'right' },
-      { header: 'F', width: 1.1, align: 'right' },
-      { header: 'p', width: 0.9, align: 'right' },
-    ],
-    rows,
-  });
+  lines.push({ source: 'Total', df: a.dfRegression + a.dfResidual, ss: a.ssRegression + a.ssResidual, bold: true });
+  anovaTable(pdf, 'Analysis of variance of the regression', lines, 5);
 }
 
 function linearityInWords(pdf: PdfComposer, result: EvaluationResult, x: string, y: string): void {
@@ -416,7 +381,7 @@ export function calibrationSection(pdf: PdfComposer, content: ReportContent): vo
   const y = yUnit(content);
   modelParagraph(pdf, result, c, x);
   coefficients(pdf, result, c, x, y);
-  anovaTable(pdf, result, c);
+  regressionAnova(pdf, result, c);
   linearityInWords(pdf, result, x, y);
   plots(pdf, result, c, x, y);
   levelTables(pdf, c, x, y);

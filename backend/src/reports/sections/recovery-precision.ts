@@ -1,7 +1,6 @@
 import type { EvaluationResult, RecoveryGroup } from '@meritline/shared';
 import {
   formatFixed,
-  formatInteger,
   formatInterval,
   formatNumber,
   formatPercent,
@@ -14,6 +13,7 @@ import {
 } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { confidenceWords, notEvaluated, sectionWarnings, xUnit } from './common.js';
+import { anovaTable } from './anova.js';
 import { numbered } from './numbering.js';
 
 function groupRow(group: RecoveryGroup, label: string): string[] {
@@ -103,32 +103,16 @@ function precision(pdf: PdfComposer, content: ReportContent, result: EvaluationR
     rows: p.series.map((s) => [s.group, String(s.n), formatNumber(s.mean, 5), formatNumber(s.sd, 3)]),
   });
   const total = (p.ssBetween ?? 0) + p.ssWithin;
-  const rows: TableRow[] = [
-    {
-      cells: [
-        'Between series',
-        formatInteger(p.dfBetween),
-        formatNumber(p.ssBetween, 4),
-        formatNumber(p.msBetween, 4),
-        formatNumber(p.F, 4),
-        formatPValue(p.p),
-      ],
-    },
-    { cells: ['Within series', formatInteger(p.dfWithin), formatNumber(p.ssWithin, 4), formatNumber(p.msWithin, 4), '', ''] },
-    { cells: ['Total', formatInteger(p.N - 1), formatNumber(total, 4), '', '', ''], bold: true },
-  ];
-  pdf.table({
-    caption: 'One-way analysis of variance (ISO 5725-2)',
-    columns: [
-      { header: 'Source', width: 1.4 },
-      { header: 'df', width: 0.5, align: 'right' },
-      { header: 'Sum of squares', width: 1.2, align: 'right' },
-      { header: 'Mean square', width: 1.2, align: 'right' },
-      { header: 'F', width: 0.9, align: 'right' },
-      { header: 'p', width: 0.8, align: 'right' },
+  anovaTable(
+    pdf,
+    'One-way analysis of variance (ISO 5725-2)',
+    [
+      { source: 'Between series', df: p.dfBetween, ss: p.ssBetween, ms: p.msBetween, test: { F: p.F, p: p.p } },
+      { source: 'Within series', df: p.dfWithin, ss: p.ssWithin, ms: p.msWithin },
+      { source: 'Total', df: p.N - 1, ss: total, bold: true },
     ],
-    rows,
-  });
+    4,
+  );
   const pairs: [string, string][] = [
     [
       'Results',

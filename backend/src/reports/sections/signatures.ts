@@ -1,4 +1,4 @@
-import { ROLE_LABELS, type SignatureMeaning } from '@meritline/shared';
+import { ROLE_LABELS, STUDY_SECTION_LABELS, type SignatureMeaning, type StudySection } from '@meritline/shared';
 import { colors, formatDateTime, sizes, type PdfComposer } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { numbered } from './numbering.js';
@@ -7,16 +7,6 @@ const MEANING_WORDS: Record<SignatureMeaning, string> = {
   authored: 'Performed the study and submitted it for review',
   'reviewed-and-approved': 'Reviewed the study and approved it',
   released: 'Released the study for use (quality)',
-};
-
-const SECTION_WORDS: Record<string, string> = {
-  setup: 'Set-up',
-  standards: 'Standards',
-  blanks: 'Blanks',
-  recovery: 'Recovery',
-  precision: 'Precision',
-  results: 'Results',
-  conclusion: 'Conclusion',
 };
 
 export function signaturesSection(pdf: PdfComposer, content: ReportContent): void {
@@ -82,7 +72,7 @@ export function signaturesSection(pdf: PdfComposer, content: ReportContent): voi
         { header: 'Status', width: 0.8 },
       ],
       rows: [...ordered, ...orphans].map((c) => [
-        SECTION_WORDS[c.section] ?? c.section,
+        STUDY_SECTION_LABELS[c.section as StudySection] ?? c.section,
         c.authorName,
         formatDateTime(c.createdAt),
         c.threadId ? `Reply: ${c.body}` : c.body,

@@ -1,10 +1,17 @@
 import { Inject, Injectable, Logger, ServiceUnavailableException, type OnModuleInit } from '@nestjs/common';
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { appConfig, type AppConfigType } from '../../config/app.config.js';
 import { createSelfSignedP12, readP12 } from './self-signed-certificate.js';
 import { signPdf, type SignatureDetails } from './sign-pdf.js';
+
+/** A signed PDF with the SHA-256 and size it is stored and checked by. */
+export interface IssuedPdf {
+  pdf: Buffer;
+  sha256: string;
+  sizeBytes: number;
+}
 
 interface LoadedCertificate {
   p12: Buffer;
@@ -46,6 +53,17 @@ export class LabCertificateService implements OnModuleInit {
       );
     }
     return signPdf(pdf, this.certificate.p12, this.certificate.passphrase, { ...details, name: this.certificate.commonName });
+  }
+
+  /** Signs a document the laboratory issues: its name as the location, its verify page as the contact. */
+  async issue(unsigned: Buffer, reason: string, signingTime: Date): Promise<IssuedPdf> {
+    const pdf = await this.sign(unsigned, {
+      reason,
+      location: this.config.laboratoryName,
+      contactInfo: `${this.config.publicUrl}/verify`,
+      signingTime,
+    });
+    return { pdf, sha256: createHash('sha256').update(pdf).digest('hex'), sizeBytes: pdf.length };
   }
 
   private loadConfigured(path: string): LoadedCertificate {

@@ -1,13 +1,10 @@
-import { ApiProperty, OmitType } from '@nestjs/swagger';
-import { CriterionDto } from '../../methods/dto/criterion.dto.js';
-import { MethodVersionSettingsViewDto, UserRefDto } from '../../methods/dto/method.dto.js';
+import { ApiProperty, OmitType, PickType } from '@nestjs/swagger';
+import { MethodSummaryDto, MethodVersionDto, UserRefDto } from '../../methods/dto/method.dto.js';
 import {
   IMPORT_SECTIONS,
   STUDY_STATUSES,
-  type FieldError,
   type ImportPreviewDto as ImportPreviewContract,
   type ImportSection,
-  type MethodVersionStatus,
   type StudyDto as StudyContract,
   type StudyMethod,
   type StudyMethodVersion,
@@ -16,30 +13,13 @@ import {
   type StudySummaryDto as StudySummaryContract,
 } from '@meritline/shared';
 import { StudyMetaDto } from './study-meta.dto.js';
+import { FieldErrorDto } from '../../common/dto/api-error.dto.js';
 
-export class FieldErrorDto implements FieldError {
-  @ApiProperty({ example: 'standards[3].x' }) field: string;
-  @ApiProperty({ example: 'not_finite' }) code: string;
-  @ApiProperty() message: string;
-}
+export class StudyMethodDto extends OmitType(MethodSummaryDto, ['purpose'] as const) implements StudyMethod {}
 
-export class StudyMethodDto implements StudyMethod {
-  @ApiProperty() id: string;
-  @ApiProperty() name: string;
-  @ApiProperty() analyte: string;
-  @ApiProperty() matrix: string;
-  @ApiProperty() technique: string;
-  @ApiProperty() xUnit: string;
-  @ApiProperty() yUnit: string;
-}
-
-export class StudyMethodVersionDto implements StudyMethodVersion {
-  @ApiProperty() id: string;
-  @ApiProperty() number: number;
-  @ApiProperty({ enum: ['draft', 'active', 'retired'] }) status: MethodVersionStatus;
-  @ApiProperty({ type: [CriterionDto] }) criteria: CriterionDto[];
-  @ApiProperty({ type: MethodVersionSettingsViewDto }) settings: MethodVersionSettingsViewDto;
-}
+export class StudyMethodVersionDto
+  extends PickType(MethodVersionDto, ['id', 'number', 'status', 'criteria', 'settings'] as const)
+  implements StudyMethodVersion {}
 
 export class StudyDto implements Omit<StudyContract, 'result'> {
   @ApiProperty() id: string;
