@@ -52,7 +52,13 @@ test('the administrator’s dialogs: invite, edit, deactivate, give a draft to a
 
   const row = page.getByRole('row', { name: /Tomasz Weber/ });
   await look(page, row.getByRole('button', { name: 'Edit Tomasz Weber' }), 'Edit Tomasz Weber', 'edit-user');
-  await look(page, row.getByRole('button', { name: 'Deactivate Tomasz Weber' }), 'Deactivate Tomasz Weber?', 'deactivate-user', 'alertdialog');
+  await look(
+    page,
+    row.getByRole('button', { name: 'Deactivate Tomasz Weber' }),
+    'Deactivate Tomasz Weber?',
+    'deactivate-user',
+    'alertdialog',
+  );
 
   const studies = await apiGet<Listed>(page, '/studies?pageSize=50');
   const draft = studies.items.find((s) => s.status === 'draft')!;
