@@ -1,8 +1,9 @@
 import { Avatar, Box, Button, CloseButton, Drawer, Flex, HStack, IconButton, Link, Menu, Portal, Stack, Text } from '@chakra-ui/react';
 import type { Role, CurrentUser } from '@meritline/shared';
 import { useState, type ReactNode } from 'react';
-import { BrandMark } from '@/components/brand-mark';
 import { NavLink, Link as RouterLink } from 'react-router';
+import { BrandMark } from '@/components/brand-mark';
+import { LineIcon } from '@/components/line-icon';
 import { ColorModeButton } from '@/components/ui/color-mode';
 import { NotificationsBell } from '@/features/notifications/components/notifications-bell';
 import { paths } from '@/lib/config/paths';
@@ -184,17 +185,8 @@ function UserMenu({ user, onSignOut }: { user: CurrentUser; onSignOut: () => voi
 
 function MenuIcon() {
   return (
-    <svg
-      viewBox="0 0 24 24"
-      width="1.2em"
-      height="1.2em"
-      fill="none"
-      stroke="currentColor"
-      strokeWidth="2"
-      strokeLinecap="round"
-      aria-hidden="true"
-    >
+    <LineIcon size="1.2em">
       <path d="M4 7h16M4 12h16M4 17h16" />
-    </svg>
+    </LineIcon>
   );
 }

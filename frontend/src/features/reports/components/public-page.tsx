@@ -1,7 +1,7 @@
 import { Box, Button, Container, HStack } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
-import { BrandMark, usePageTitle } from '@/components/brand-mark';
 import { Link } from 'react-router';
+import { BrandMark, usePageTitle } from '@/components/brand-mark';
 import { ColorModeButton } from '@/components/ui/color-mode';
 import { paths } from '@/lib/config/paths';
 import { useSessionToken } from '@/lib/session-token';
