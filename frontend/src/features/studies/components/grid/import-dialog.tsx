@@ -1,7 +1,7 @@
 import type { ImportPreviewDto, ImportSection, StudyDto } from '@meritline/shared';
 import { Alert, Button, Field, HStack, List, NativeSelect, SimpleGrid, Spinner, Stack, Table, Text } from '@chakra-ui/react';
-import { DialogCancel, DialogShell } from '@/components/dialog-shell';
 import { useState } from 'react';
+import { DialogCancel, DialogShell } from '@/components/dialog-shell';
 import { isApiError } from '@/lib/api-client';
 import { useApplyImport, usePreviewImport } from '../../api/import-study-file';
 

@@ -1,6 +1,7 @@
-import { Button, Field, SegmentGroup, Stack, Table, Text, Textarea } from '@chakra-ui/react';
-import { DialogCancel, DialogShell } from '@/components/dialog-shell';
+import { Button, Field, Stack, Table, Text, Textarea } from '@chakra-ui/react';
 import { useDeferredValue, useState } from 'react';
+import { DialogCancel, DialogShell } from '@/components/dialog-shell';
+import { FillModeChoice, type FillMode } from './fill-mode-choice';
 import { rowsFromPaste } from '../../utils/grid-paste';
 import { rowProblems, type GridColumn, type GridRow } from '../../utils/grid-sections';
 
@@ -8,7 +9,7 @@ export interface PasteDialogProps {
   sectionName: string;
   columns: readonly GridColumn[];
   hasRows: boolean;
-  onPaste: (rows: GridRow[], mode: 'replace' | 'append') => void;
+  onPaste: (rows: GridRow[], mode: FillMode) => void;
   disabled?: boolean;
 }
 
@@ -16,7 +17,7 @@ export interface PasteDialogProps {
 export function PasteDialog({ sectionName, columns, hasRows, onPaste, disabled }: PasteDialogProps) {
   const [open, setOpen] = useState(false);
   const [text, setText] = useState('');
-  const [mode, setMode] = useState<'replace' | 'append'>('replace');
+  const [mode, setMode] = useState<FillMode>('replace');
   const deferredText = useDeferredValue(text);
   const parsed = rowsFromPaste(columns, deferredText);
   const problems = parsed.rows.filter((row) => Object.keys(rowProblems(row, columns)).length > 0).length;
@@ -99,17 +100,7 @@ export function PasteDialog({ sectionName, columns, hasRows, onPaste, disabled }
             </Table.ScrollArea>
           </Stack>
         )}
-        {hasRows && (
-          <SegmentGroup.Root value={mode} onValueChange={(e) => setMode(e.value as 'replace' | 'append')} size="sm">
-            <SegmentGroup.Indicator />
-            <SegmentGroup.Items
-              items={[
-                { value: 'replace', label: 'Replace the rows in the grid' },
-                { value: 'append', label: 'Add after the rows in the grid' },
-              ]}
-            />
-          </SegmentGroup.Root>
-        )}
+        {hasRows && <FillModeChoice value={mode} onChange={setMode} appendLabel={'Add after the rows in the grid'} />}
       </Stack>
     </DialogShell>
   );

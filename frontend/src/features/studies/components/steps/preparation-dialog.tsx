@@ -1,8 +1,9 @@
 import { formatEstimate, type PreparationDto } from '@meritline/shared';
-import { Alert, Button, SegmentGroup, Spinner, Stack, Table, Text } from '@chakra-ui/react';
-import { DialogCancel, DialogShell } from '@/components/dialog-shell';
+import { Alert, Button, Spinner, Stack, Table, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
+import { DialogCancel, DialogShell } from '@/components/dialog-shell';
+import { FillModeChoice, type FillMode } from '../grid/fill-mode-choice';
 import { preparationChoicesQueries } from '../../api/preparation-choices-queries';
 import type { GridRow } from '../../utils/grid-sections';
 import { standardsFromPreparation } from '../../utils/preparation-standards';
@@ -11,7 +12,7 @@ export interface PreparationDialogProps {
   xUnit: string | undefined;
   /** Standards rows already holding something. */
   filledRows: number;
-  onFill: (rows: GridRow[], mode: 'replace' | 'append') => void;
+  onFill: (rows: GridRow[], mode: FillMode) => void;
   disabled?: boolean;
 }
 
@@ -21,7 +22,7 @@ const materialWords = (p: PreparationDto) => (p.material ? `${p.material.name}, 
 export function PreparationDialog({ xUnit, filledRows, onFill, disabled }: PreparationDialogProps) {
   const [open, setOpen] = useState(false);
   const [chosen, setChosen] = useState<PreparationDto | null>(null);
-  const [mode, setMode] = useState<'replace' | 'append'>('replace');
+  const [mode, setMode] = useState<FillMode>('replace');
   const preparations = useQuery({ ...preparationChoicesQueries.list(), enabled: open });
   const fill = chosen ? standardsFromPreparation(chosen, xUnit) : null;
 
@@ -127,15 +128,7 @@ export function PreparationDialog({ xUnit, filledRows, onFill, disabled }: Prepa
               The grid already holds {filledRows} row{filledRows === 1 ? '' : 's'}. Keep {filledRows === 1 ? 'it' : 'them'} or replace{' '}
               {filledRows === 1 ? 'it' : 'them'}?
             </Text>
-            <SegmentGroup.Root value={mode} onValueChange={(e) => setMode(e.value as 'replace' | 'append')} size="sm">
-              <SegmentGroup.Indicator />
-              <SegmentGroup.Items
-                items={[
-                  { value: 'replace', label: 'Replace the rows in the grid' },
-                  { value: 'append', label: 'Keep them and add after' },
-                ]}
-              />
-            </SegmentGroup.Root>
+            <FillModeChoice value={mode} onChange={setMode} appendLabel={'Keep them and add after'} />
           </Stack>
         )}
       </Stack>
