@@ -1,21 +1,9 @@
 import { expect, test, type Locator, type Page } from '@playwright/test';
-import { mainNavigation, signIn } from './support';
+import { apiGet, mainNavigation, signIn } from './support';
 
 // Every dialog opens from its button with its title as its accessible name, gets the focus, shows its words and
 // closes on Escape without changing anything; a screenshot of each lands in test-output/screenshots/dialog-*.png.
 test.setTimeout(300_000);
-
-const TOKEN_KEY = 'meritline.session-token';
-
-async function apiGet<T>(page: Page, path: string): Promise<T> {
-  return page.evaluate(
-    async ({ path, key }) => {
-      const res = await fetch(`/api${path}`, { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
-      return res.json();
-    },
-    { path, key: TOKEN_KEY },
-  ) as Promise<T>;
-}
 
 interface Listed {
   items: { id: string; title: string; status: string; author: { name: string } }[];

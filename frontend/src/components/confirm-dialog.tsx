@@ -1,6 +1,6 @@
 import { Alert, Button, Stack } from '@chakra-ui/react';
 import { useState, type ReactElement, type ReactNode } from 'react';
-import { DialogCancel, DialogShell, type DialogShellProps } from './dialog-shell';
+import { DialogCancel, DialogShell, useDialogOpen, type DialogShellProps } from './dialog-shell';
 import { toFormErrors } from './form/form-errors';
 
 export interface ConfirmDialogProps extends Pick<DialogShellProps, 'title' | 'size'> {
@@ -36,14 +36,12 @@ export function ConfirmDialog({
   open: controlledOpen,
   onOpenChange,
 }: ConfirmDialogProps) {
-  const [ownOpen, setOwnOpen] = useState(false);
   const [pending, setPending] = useState(false);
   const [problem, setProblem] = useState<string>();
-  const open = controlledOpen ?? ownOpen;
+  const [open, setDialogOpen] = useDialogOpen(controlledOpen, onOpenChange);
   const setOpen = (next: boolean) => {
-    setOwnOpen(next);
     setProblem(undefined);
-    onOpenChange?.(next);
+    setDialogOpen(next);
   };
 
   const confirm = async () => {

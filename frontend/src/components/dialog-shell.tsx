@@ -1,5 +1,5 @@
 import { Button, CloseButton, Dialog, Portal } from '@chakra-ui/react';
-import type { ReactElement, ReactNode } from 'react';
+import { useState, type ReactElement, type ReactNode } from 'react';
 
 export interface DialogShellProps {
   open: boolean;
@@ -75,4 +75,14 @@ export function DialogCancel({ label = 'Cancel' }: { label?: string }) {
       <Button variant="outline">{label}</Button>
     </Dialog.ActionTrigger>
   );
+}
+
+/** Open state the dialog keeps itself, unless the caller passes `open` to hold it; `onOpenChange` hears every change. */
+export function useDialogOpen(open: boolean | undefined, onOpenChange: ((open: boolean) => void) | undefined) {
+  const [ownOpen, setOwnOpen] = useState(false);
+  const setOpen = (next: boolean) => {
+    setOwnOpen(next);
+    onOpenChange?.(next);
+  };
+  return [open ?? ownOpen, setOpen] as const;
 }

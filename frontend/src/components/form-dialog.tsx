@@ -1,6 +1,6 @@
 import type { FormikValues } from 'formik';
-import { useState, type ReactElement, type ReactNode } from 'react';
-import { DialogCancel, DialogShell, type DialogShellProps } from './dialog-shell';
+import type { ReactElement, ReactNode } from 'react';
+import { DialogCancel, DialogShell, useDialogOpen, type DialogShellProps } from './dialog-shell';
 import { Form, type FormProps } from './form/form';
 
 export interface FormDialogProps<Values extends FormikValues>
@@ -35,12 +35,7 @@ export function FormDialog<Values extends FormikValues>({
   onSubmit,
   ...form
 }: FormDialogProps<Values>) {
-  const [ownOpen, setOwnOpen] = useState(false);
-  const open = controlledOpen ?? ownOpen;
-  const setOpen = (next: boolean) => {
-    setOwnOpen(next);
-    onOpenChange?.(next);
-  };
+  const [open, setOpen] = useDialogOpen(controlledOpen, onOpenChange);
 
   return (
     <DialogShell
