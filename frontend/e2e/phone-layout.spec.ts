@@ -1,5 +1,5 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test';
-import { DEMO_ACCOUNTS, signIn } from './support';
+import { apiGet, DEMO_ACCOUNTS, signIn } from './support';
 
 // A phone held upright: 390 × 844 CSS pixels. Nothing may make the page wider than the screen;
 // wide tables scroll inside their own box.
@@ -7,19 +7,6 @@ const WIDTH = 390;
 test.use({ viewport: { width: WIDTH, height: 844 } });
 test.setTimeout(600_000);
 const expect = baseExpect.configure({ timeout: 30_000 });
-
-const TOKEN_KEY = 'meritline.session-token';
-
-/** GET on the API with the signed-in user's token, for the ids of seeded records. */
-async function apiGet<T>(page: Page, path: string): Promise<T> {
-  return page.evaluate(
-    async ({ path, key }) => {
-      const res = await fetch(`/api${path}`, { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
-      return res.json();
-    },
-    { path, key: TOKEN_KEY },
-  ) as Promise<T>;
-}
 
 /** The widths of the page and of any element sticking out past the right edge, for the failure message. */
 async function overflow(page: Page) {

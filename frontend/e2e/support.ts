@@ -30,3 +30,16 @@ export async function signOut(page: Page) {
 }
 
 export const mainNavigation = (page: Page) => page.getByRole('navigation', { name: 'Main' });
+
+const TOKEN_KEY = 'meritline.session-token';
+
+/** GET on the API with the signed-in user's token, for the ids of seeded records. */
+export async function apiGet<T>(page: Page, path: string): Promise<T> {
+  return page.evaluate(
+    async ({ path, key }) => {
+      const res = await fetch(`/api${path}`, { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
+      return res.json();
+    },
+    { path, key: TOKEN_KEY },
+  ) as Promise<T>;
+}

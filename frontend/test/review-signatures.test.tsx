@@ -1,10 +1,9 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { SignDialog } from '@/features/reviews/components/sign-dialog';
-import { MEANINGS } from '@/features/reviews/components/signature-meanings';
 import { BrokenSignatureWarning, SignaturesPanel } from '@/features/reviews/components/signatures-panel';
 import type { Signature } from '@/features/reviews/api/review-types';
 import { getSessionToken, setSessionToken } from '@/lib/session-token';
 import { renderWithProviders, stubApi } from './render';
+import { ApproveDialog } from './fixtures';
 
 const STUDY = '3f1a2b4c-5d6e-4f70-8a9b-0c1d2e3f4a5b';
 
@@ -63,18 +62,7 @@ describe('electronic signatures on the review page', () => {
         body: { statusCode: 401, message: 'Password not correct; nothing was signed.' },
       },
     });
-    const { user } = renderWithProviders(
-      <SignDialog
-        studyId={STUDY}
-        lockVersion={4}
-        action="approve"
-        meaning={MEANINGS.reviewed}
-        title="Approve the study"
-        triggerLabel="Approve"
-        submitLabel="Sign and approve"
-        successTitle="Approved"
-      />,
-    );
+    const { user } = renderWithProviders(<ApproveDialog studyId={STUDY} lockVersion={4} />);
     await user.click(screen.getByRole('button', { name: 'Approve' }));
     const dialog = await screen.findByRole('dialog');
     expect(within(dialog).getByText('By signing you confirm you reviewed this study and approve its results.')).toBeInTheDocument();

@@ -1,10 +1,9 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { studyReviewQueries } from '@/features/reviews/api/review-queries';
-import { SignDialog } from '@/features/reviews/components/sign-dialog';
-import { MEANINGS } from '@/features/reviews/components/signature-meanings';
 import { setSessionToken } from '@/lib/session-token';
 import { renderWithProviders, stubApi } from './render';
+import { ApproveDialog } from './fixtures';
 
 const STUDY = '7a4c2f8e-9d1b-4e5a-8c3f-2b6d9e0a1c47';
 const JUSTIFICATION = 'Recovery at the lowest level is outside the range, but routine samples lie well above it.';
@@ -17,18 +16,7 @@ function renderApproval(pass: boolean) {
       body: { id: STUDY, status: 'approved', stage: null, lockVersion: 5, signature: null },
     },
   });
-  const view = renderWithProviders(
-    <SignDialog
-      studyId={STUDY}
-      lockVersion={4}
-      action="approve"
-      meaning={MEANINGS.reviewed}
-      title="Approve the study"
-      triggerLabel="Approve"
-      submitLabel="Sign and approve"
-      successTitle="Approved"
-    />,
-  );
+  const view = renderWithProviders(<ApproveDialog studyId={STUDY} lockVersion={4} />);
   view.queryClient.setQueryData(studyReviewQueries.detail(STUDY).queryKey, {
     id: STUDY,
     result: { verdict: { pass, criteria: [] } },

@@ -2,6 +2,7 @@ import { screen, waitFor } from '@testing-library/react';
 import { routes } from '@/app/router';
 import { setSessionToken } from '@/lib/session-token';
 import { renderRoutes, stubApi } from './render';
+import { activeVersion, nitrateMethod } from './fixtures';
 
 // Plotly does not run in jsdom; the steps used here draw nothing anyway.
 vi.mock('@/components/study-results/plotly-chart', () => ({ default: () => null }));
@@ -14,22 +15,8 @@ const study = {
   title: 'Nitrate by IC: repeatability check',
   status: 'draft',
   methodVersionId: 'mv-2',
-  method: {
-    id: 'm-1',
-    name: 'Nitrate in drinking water by ion chromatography',
-    analyte: 'Nitrate',
-    matrix: 'Drinking water',
-    technique: 'IC',
-    xUnit: 'mg/L',
-    yUnit: 'µS·min',
-  },
-  methodVersion: {
-    id: 'mv-2',
-    number: 2,
-    status: 'active',
-    criteria: [],
-    settings: { requiresQualityRelease: false, checkTolerancePct: 10, onePointMaxInterceptPct: 5 },
-  },
+  method: nitrateMethod,
+  methodVersion: activeVersion,
   data: {
     units: { x: 'mg/L', y: 'µS·min' },
     criteria: [],

@@ -1,10 +1,9 @@
 import { evaluateStudy } from '@meritline/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { routes } from '@/app/router';
-import { SignDialog } from '@/features/reviews/components/sign-dialog';
-import { MEANINGS } from '@/features/reviews/components/signature-meanings';
 import { setSessionToken } from '@/lib/session-token';
 import { renderRoutes, renderWithProviders, stubApi } from './render';
+import { ApproveDialog, activeVersion, nitrateMethod } from './fixtures';
 
 // Plotly does not run in jsdom; the plots are not what these tests look at.
 vi.mock('@/components/study-results/plotly-chart', () => ({ default: () => null }));
@@ -39,22 +38,8 @@ const study = (overrides: Record<string, unknown> = {}) => ({
   title: 'Nitrate by IC: validation',
   status: 'returned',
   methodVersionId: 'mv-2',
-  method: {
-    id: 'm-1',
-    name: 'Nitrate in drinking water',
-    analyte: 'Nitrate',
-    matrix: 'Water',
-    technique: 'IC',
-    xUnit: 'mg/L',
-    yUnit: 'µS·min',
-  },
-  methodVersion: {
-    id: 'mv-2',
-    number: 2,
-    status: 'active',
-    criteria: [],
-    settings: { requiresQualityRelease: false, checkTolerancePct: 10, onePointMaxInterceptPct: 5 },
-  },
+  method: nitrateMethod,
+  methodVersion: activeVersion,
   data,
   result: evaluateStudy(data as never),
   resultErrors: null,
@@ -209,18 +194,7 @@ describe('the review page shows the reviewer what the author saw', () => {
   it('tells the approver how many comments are still open and lists them', async () => {
     setSessionToken('token');
     stubApi({ 'GET /api/studies/st-1/comments': { body: comments } });
-    const { user } = renderWithProviders(
-      <SignDialog
-        studyId="st-1"
-        lockVersion={7}
-        action="approve"
-        meaning={MEANINGS.reviewed}
-        title="Approve the study"
-        triggerLabel="Approve"
-        submitLabel="Sign and approve"
-        successTitle="Approved"
-      />,
-    );
+    const { user } = renderWithProviders(<ApproveDialog studyId="st-1" lockVersion={7} />);
     await user.click(screen.getByRole('button', { name: 'Approve' }));
     const note = await screen.findByTestId('open-comments-note');
     expect(note).toHaveTextContent('2 comments are still open.');

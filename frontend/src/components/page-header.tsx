@@ -1,5 +1,6 @@
 import { Box, Heading, HStack, Stack, Text } from '@chakra-ui/react';
-import { useEffect, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
+import { usePageTitle } from './brand-mark';
 
 export interface PageHeaderProps {
   title: string;
@@ -11,9 +12,7 @@ export interface PageHeaderProps {
 }
 
 export function PageHeader({ title, section, description, actions }: PageHeaderProps) {
-  useEffect(() => {
-    document.title = `${title} · Meritline`;
-  }, [title]);
+  usePageTitle(title);
 
   return (
     <HStack as="header" justify="space-between" align="flex-end" gap="6" wrap="wrap" mb="8">

@@ -1,8 +1,9 @@
-import { Alert, Button, CloseButton, Dialog, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
-import { useState } from 'react';
+import { Alert, Button, Stack, Text } from '@chakra-ui/react';
+import type { ReactNode } from 'react';
 import * as yup from 'yup';
-import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
+import { TextareaField } from '@/components/form/textarea-field';
+import { FormDialog } from './form-dialog';
 
 export interface SignatureValues {
   password: string;
@@ -27,6 +28,38 @@ export interface SignatureDialogProps {
 
 const initialValues: SignatureValues = { password: '', comment: '' };
 
+/** What a signature means and what is recorded with it, above the password of every signing dialog. */
+export function SignatureNotice({ meaning, recorded, children }: { meaning: string; recorded: ReactNode; children?: ReactNode }) {
+  return (
+    <Stack gap="4" mb="5">
+      <Alert.Root status="info" variant="subtle">
+        <Alert.Indicator />
+        <Alert.Content>
+          <Alert.Title>What your signature means</Alert.Title>
+          <Alert.Description>{meaning}</Alert.Description>
+        </Alert.Content>
+      </Alert.Root>
+      <Text fontSize="sm" color="fg.muted">
+        {recorded}
+      </Text>
+      {children}
+    </Stack>
+  );
+}
+
+export function SignaturePasswordField() {
+  return (
+    <FormField
+      name="password"
+      label="Your password"
+      type="password"
+      autoComplete="current-password"
+      required
+      helperText="Re-enter the password you sign in with."
+    />
+  );
+}
+
 /** An electronic signature: the meaning in words and the password re-entered. */
 export function SignatureDialog({
   title,
@@ -39,7 +72,6 @@ export function SignatureDialog({
   triggerVariant = 'solid',
   onSign,
 }: SignatureDialogProps) {
-  const [open, setOpen] = useState(false);
   const limited = yup.string().trim().max(2000, 'Keep the comment under 2000 characters.');
   const comment = commentMinLength ? limited.min(commentMinLength, `Write at least ${commentMinLength} characters.`) : limited;
   const schema = yup.object({
@@ -48,65 +80,22 @@ export function SignatureDialog({
   });
 
   return (
-    <Dialog.Root open={open} onOpenChange={(event) => setOpen(event.open)} size="md">
-      <Dialog.Trigger asChild>
-        <Button variant={triggerVariant}>{triggerLabel}</Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>{title}</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body pb="6">
-              <Stack gap="4" mb="5">
-                <Alert.Root status="info" variant="subtle">
-                  <Alert.Indicator />
-                  <Alert.Content>
-                    <Alert.Title>What your signature means</Alert.Title>
-                    <Alert.Description>{meaning}</Alert.Description>
-                  </Alert.Content>
-                </Alert.Root>
-                <Text fontSize="sm" color="fg.muted">
-                  Your name, role, the time and a fingerprint of the data and results are recorded with the signature.
-                </Text>
-              </Stack>
-              <Form
-                initialValues={initialValues}
-                validationSchema={schema}
-                onSubmit={async (values) => {
-                  await onSign(values);
-                  setOpen(false);
-                }}
-                submitLabel={submitLabel}
-                secondaryAction={
-                  <Dialog.ActionTrigger asChild>
-                    <Button variant="outline">Cancel</Button>
-                  </Dialog.ActionTrigger>
-                }
-              >
-                <FormField
-                  name="password"
-                  label="Your password"
-                  type="password"
-                  autoComplete="current-password"
-                  required
-                  helperText="Re-enter the password you sign in with."
-                />
-                {commentLabel && (
-                  <FormField name="comment" label={commentLabel} required={commentRequired}>
-                    {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={3} />}
-                  </FormField>
-                )}
-              </Form>
-            </Dialog.Body>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+    <FormDialog
+      trigger={<Button variant={triggerVariant}>{triggerLabel}</Button>}
+      title={title}
+      notice={
+        <SignatureNotice
+          meaning={meaning}
+          recorded="Your name, role, the time and a fingerprint of the data and results are recorded with the signature."
+        />
+      }
+      initialValues={initialValues}
+      validationSchema={schema}
+      onSubmit={onSign}
+      submitLabel={submitLabel}
+    >
+      <SignaturePasswordField />
+      {commentLabel && <TextareaField name="comment" label={commentLabel} required={commentRequired} />}
+    </FormDialog>
   );
 }

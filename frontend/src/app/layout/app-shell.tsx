@@ -2,6 +2,8 @@ import { Avatar, Box, Button, CloseButton, Drawer, Flex, HStack, IconButton, Lin
 import type { Role, CurrentUser } from '@meritline/shared';
 import { useState, type ReactNode } from 'react';
 import { NavLink, Link as RouterLink } from 'react-router';
+import { BrandMark } from '@/components/brand-mark';
+import { LineIcon } from '@/components/line-icon';
 import { ColorModeButton } from '@/components/ui/color-mode';
 import { NotificationsBell } from '@/features/notifications/components/notifications-bell';
 import { paths } from '@/lib/config/paths';
@@ -129,22 +131,7 @@ function Wordmark({ onRail = false }: { onRail?: boolean }) {
   return (
     <Link asChild textDecoration="none" _hover={{ textDecoration: 'none' }} color={onRail ? 'fg.rail' : 'fg'}>
       <RouterLink to={paths.home.getHref()} aria-label="Meritline overview">
-        <HStack gap="2.5">
-          <svg viewBox="0 0 32 32" width="26" height="26" aria-hidden="true">
-            <rect width="32" height="32" rx="7" fill={onRail ? 'rgba(255,255,255,0.1)' : 'var(--chakra-colors-spruce-700)'} />
-            <path
-              d="M7 23V9l9 9 9-9v14"
-              fill="none"
-              stroke="var(--chakra-colors-amber-400)"
-              strokeWidth="3"
-              strokeLinecap="round"
-              strokeLinejoin="round"
-            />
-          </svg>
-          <Text as="span" fontWeight="700" fontSize="lg" letterSpacing="-0.01em">
-            Meritline
-          </Text>
-        </HStack>
+        <BrandMark onRail={onRail} />
       </RouterLink>
     </Link>
   );
@@ -198,17 +185,8 @@ function UserMenu({ user, onSignOut }: { user: CurrentUser; onSignOut: () => voi
 
 function MenuIcon() {
   return (
-    <svg
-      viewBox="0 0 24 24"
-      width="1.2em"
-      height="1.2em"
-      fill="none"
-      stroke="currentColor"
-      strokeWidth="2"
-      strokeLinecap="round"
-      aria-hidden="true"
-    >
+    <LineIcon size="1.2em">
       <path d="M4 7h16M4 12h16M4 17h16" />
-    </svg>
+    </LineIcon>
   );
 }

@@ -16,6 +16,8 @@ export interface FormProps<Values extends FormikValues> {
   secondaryAction?: ReactNode;
   resetOnSuccess?: boolean;
   submitFullWidth?: boolean;
+  /** A red submit button, for what cannot be taken back. */
+  destructive?: boolean;
   id?: string;
 }
 
@@ -28,6 +30,7 @@ export function Form<Values extends FormikValues>({
   secondaryAction,
   resetOnSuccess = false,
   submitFullWidth = false,
+  destructive = false,
   id,
 }: FormProps<Values>) {
   const handleSubmit = async (values: Values, helpers: FormikHelpers<Values>) => {
@@ -59,7 +62,12 @@ export function Form<Values extends FormikValues>({
             {children}
             <HStack justify="flex-end" gap="3" pt="1">
               {secondaryAction}
-              <Button type="submit" loading={isSubmitting} width={submitFullWidth ? 'full' : undefined}>
+              <Button
+                type="submit"
+                loading={isSubmitting}
+                width={submitFullWidth ? 'full' : undefined}
+                colorPalette={destructive ? 'red' : undefined}
+              >
                 {submitLabel}
               </Button>
             </HStack>

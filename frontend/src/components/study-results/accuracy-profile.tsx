@@ -15,9 +15,9 @@ import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PLOT_COLOURS } from './calibration-plot';
 import { FiguresTable, type FigureRow } from './figures-table';
-import { criteriaForFigure, criteriaUnder, type JudgedCriterion } from './judge-criteria';
+import { criteriaForFigure, criteriaUnder } from './judge-criteria';
 import { LazyPlot } from './lazy-plot';
-import type { StudyUnits } from './types';
+import type { JudgedFiguresProps, StudyUnits } from './types';
 
 const betaWords = (beta: number) => `${formatLevel(beta * 100)} %`;
 
@@ -153,15 +153,7 @@ function profileColumns(units: StudyUnits) {
   ]);
 }
 
-export function AccuracyProfileTables({
-  result,
-  units,
-  judged,
-}: {
-  result: EvaluationResult;
-  units: StudyUnits;
-  judged: readonly JudgedCriterion[];
-}) {
+export function AccuracyProfileTables({ result, units, judged }: JudgedFiguresProps) {
   const columns = useMemo(() => profileColumns(units), [units]);
   const profile = result.accuracyProfile;
   if (!profile) return null;
@@ -209,15 +201,7 @@ export function truenessSentence(t: TruenessResult, unit: string | undefined): s
   );
 }
 
-export function TruenessSummary({
-  result,
-  units,
-  judged,
-}: {
-  result: EvaluationResult;
-  units: StudyUnits;
-  judged: readonly JudgedCriterion[];
-}) {
+export function TruenessSummary({ result, units, judged }: JudgedFiguresProps) {
   const t = result.trueness;
   if (!t) return null;
   const x = (v: number, digits = 4) => withUnit(formatNumber(v, digits), units.x);

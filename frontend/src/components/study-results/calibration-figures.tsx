@@ -14,7 +14,7 @@ import { CriterionMark } from './criterion-mark';
 import { FiguresTable, type FigureRow } from './figures-table';
 import { MODEL_LABELS, slopeUnit, WEIGHTING_LABELS } from './format';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
-import type { StudyUnits } from './types';
+import type { JudgedFiguresProps, StudyUnits } from './types';
 
 const pct = (confidence: number) => `${formatLevel(confidence * 100)} %`;
 
@@ -168,27 +168,11 @@ export function linearityRows(result: EvaluationResult, units: StudyUnits, judge
   return rows;
 }
 
-export function CalibrationTable({
-  result,
-  units,
-  judged,
-}: {
-  result: EvaluationResult;
-  units: StudyUnits;
-  judged: readonly JudgedCriterion[];
-}) {
+export function CalibrationTable({ result, units, judged }: JudgedFiguresProps) {
   return <FiguresTable label="Calibration line" rows={calibrationRows(result, units, judged)} />;
 }
 
-export function LinearityTable({
-  result,
-  units,
-  judged,
-}: {
-  result: EvaluationResult;
-  units: StudyUnits;
-  judged: readonly JudgedCriterion[];
-}) {
+export function LinearityTable({ result, units, judged }: JudgedFiguresProps) {
   return (
     <FiguresTable
       label="Linearity and intercept tests"

@@ -3,7 +3,7 @@ import { Text } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
 import { criteriaUnder, type JudgedCriterion } from './judge-criteria';
-import type { StudyUnits } from './types';
+import type { JudgedFiguresProps, StudyUnits } from './types';
 
 interface DetectionRow {
   approach: DetectionApproach;
@@ -118,15 +118,7 @@ export function detectionRows(result: EvaluationResult, units: StudyUnits, judge
 }
 
 /** Every detection approach the data allows, side by side, in concentration units. */
-export function DetectionTable({
-  result,
-  units,
-  judged,
-}: {
-  result: EvaluationResult;
-  units: StudyUnits;
-  judged: readonly JudgedCriterion[];
-}) {
+export function DetectionTable({ result, units, judged }: JudgedFiguresProps) {
   return (
     <DataTable
       label="Detection and quantitation limits"

@@ -2,7 +2,7 @@ import { type EvaluationResult, formatNumber, formatPercent, formatPValue, type 
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { FiguresTable, type FigureRow } from './figures-table';
 import { criteriaForFigure, type JudgedCriterion } from './judge-criteria';
-import type { StudyUnits } from './types';
+import type { JudgedFiguresProps, StudyUnits } from './types';
 
 interface AnovaRow {
   source: string;
@@ -82,15 +82,7 @@ export function precisionRows(result: EvaluationResult, units: StudyUnits, judge
   return rows;
 }
 
-export function PrecisionFiguresTable({
-  result,
-  units,
-  judged,
-}: {
-  result: EvaluationResult;
-  units: StudyUnits;
-  judged: readonly JudgedCriterion[];
-}) {
+export function PrecisionFiguresTable({ result, units, judged }: JudgedFiguresProps) {
   return <FiguresTable label="Precision" rows={precisionRows(result, units, judged)} />;
 }
 

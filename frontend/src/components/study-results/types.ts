@@ -1,4 +1,5 @@
 import type { CriterionDefinition, EvaluationResult, StudyInput } from '@meritline/shared';
+import type { JudgedCriterion } from './judge-criteria';
 
 export type { CriterionDefinition };
 
@@ -13,4 +14,11 @@ export interface StudyResultsProps {
   result: EvaluationResult;
   units: StudyUnits;
   criteria: readonly CriterionDefinition[];
+}
+
+/** What a figures table takes: the result, its units and the criteria already judged against it. */
+export interface JudgedFiguresProps {
+  result: EvaluationResult;
+  units: StudyUnits;
+  judged: readonly JudgedCriterion[];
 }

@@ -2,7 +2,6 @@ import { Stack, Text } from '@chakra-ui/react';
 import {
   formatLevel,
   figureLabel,
-  type EvaluationResult,
   type TopDownLevelResult,
   type UnknownResult,
   formatNumber,
@@ -12,8 +11,8 @@ import {
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { FiguresTable, type FigureRow } from './figures-table';
-import { criteriaForFigure, criteriaUnder, type JudgedCriterion } from './judge-criteria';
-import type { StudyUnits } from './types';
+import { criteriaForFigure, criteriaUnder } from './judge-criteria';
+import type { JudgedFiguresProps, StudyUnits } from './types';
 
 const level = dataTableColumns<TopDownLevelResult>();
 
@@ -93,15 +92,7 @@ function calibrationColumns(units: StudyUnits) {
 }
 
 /** Top-down uncertainty by level (u(Rw), u(bias), uc, U), with the calibration's own u(x₀) beside it for comparison. */
-export function UncertaintyTables({
-  result,
-  units,
-  judged,
-}: {
-  result: EvaluationResult;
-  units: StudyUnits;
-  judged: readonly JudgedCriterion[];
-}) {
+export function UncertaintyTables({ result, units, judged }: JudgedFiguresProps) {
   const u = result.uncertainty;
   const columns = useMemo(() => uncertaintyColumns(units, u?.coverageFactor ?? 2), [units, u?.coverageFactor]);
   const sampleColumns = useMemo(() => calibrationColumns(units), [units]);

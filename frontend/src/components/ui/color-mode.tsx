@@ -1,5 +1,6 @@
 import { IconButton, type IconButtonProps } from '@chakra-ui/react';
 import { ThemeProvider, useTheme, type ThemeProviderProps } from 'next-themes';
+import { LineIcon } from '@/components/line-icon';
 
 export function ColorModeProvider(props: ThemeProviderProps) {
   return <ThemeProvider attribute="class" disableTransitionOnChange {...props} />;
@@ -16,37 +17,18 @@ export function useColorMode() {
 
 function SunIcon() {
   return (
-    <svg
-      viewBox="0 0 24 24"
-      width="1em"
-      height="1em"
-      fill="none"
-      stroke="currentColor"
-      strokeWidth="2"
-      strokeLinecap="round"
-      aria-hidden="true"
-    >
+    <LineIcon>
       <circle cx="12" cy="12" r="4" />
       <path d="M12 2v2M12 20v2M4.9 4.9l1.4 1.4M17.7 17.7l1.4 1.4M2 12h2M20 12h2M4.9 19.1l1.4-1.4M17.7 6.3l1.4-1.4" />
-    </svg>
+    </LineIcon>
   );
 }
 
 function MoonIcon() {
   return (
-    <svg
-      viewBox="0 0 24 24"
-      width="1em"
-      height="1em"
-      fill="none"
-      stroke="currentColor"
-      strokeWidth="2"
-      strokeLinecap="round"
-      strokeLinejoin="round"
-      aria-hidden="true"
-    >
+    <LineIcon>
       <path d="M20 14.5A8 8 0 0 1 9.5 4a8 8 0 1 0 10.5 10.5z" />
-    </svg>
+    </LineIcon>
   );
 }
 

@@ -1,5 +1,6 @@
-import { Box, Flex, Heading, HStack, Stack, Text } from '@chakra-ui/react';
-import { useEffect, type ReactNode } from 'react';
+import { Box, Flex, Heading, Stack, Text } from '@chakra-ui/react';
+import type { ReactNode } from 'react';
+import { BrandMark, usePageTitle } from '@/components/brand-mark';
 import { ColorModeButton } from '@/components/ui/color-mode';
 
 export interface AuthLayoutProps {
@@ -10,9 +11,7 @@ export interface AuthLayoutProps {
 
 /** The frame of the pages a visitor sees before signing in. */
 export function AuthLayout({ title, intro, children }: AuthLayoutProps) {
-  useEffect(() => {
-    document.title = `${title} · Meritline`;
-  }, [title]);
+  usePageTitle(title);
 
   return (
     <Flex minH="100dvh" direction={{ base: 'column', lg: 'row' }} bg="bg.canvas">
@@ -25,22 +24,7 @@ export function AuthLayout({ title, intro, children }: AuthLayoutProps) {
         justify="space-between"
         gap="10"
       >
-        <HStack gap="3">
-          <svg viewBox="0 0 32 32" width="34" height="34" aria-hidden="true">
-            <rect width="32" height="32" rx="7" fill="rgba(255,255,255,0.1)" />
-            <path
-              d="M7 23V9l9 9 9-9v14"
-              fill="none"
-              stroke="var(--chakra-colors-amber-400)"
-              strokeWidth="3"
-              strokeLinecap="round"
-              strokeLinejoin="round"
-            />
-          </svg>
-          <Text fontWeight="700" fontSize="2xl" letterSpacing="-0.01em">
-            Meritline
-          </Text>
-        </HStack>
+        <BrandMark size={34} fontSize="2xl" gap="3" />
         <Stack gap="4" maxW="md" display={{ base: 'none', lg: 'flex' }}>
           <Text textStyle="sectionLabel" color="amber.300">
             Calibration and method validation

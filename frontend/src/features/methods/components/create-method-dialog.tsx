@@ -1,10 +1,10 @@
 import type { CriteriaTemplateDto } from '@meritline/shared';
-import { Alert, Button, CloseButton, Dialog, Input, NativeSelect, Portal, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
+import { Alert, Button, Input, NativeSelect, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useFormikContext } from 'formik';
 import { useId, useState } from 'react';
 import { useNavigate } from 'react-router';
-import { Form } from '@/components/form/form';
+import { FormDialog } from '@/components/form-dialog';
 import { FormField } from '@/components/form/form-field';
 import { toaster } from '@/components/ui/toaster';
 import { paths } from '@/lib/config/paths';
@@ -63,94 +63,66 @@ export function CreateMethodDialog({ proposal }: { proposal: boolean }) {
   const techniqueList = useId();
 
   return (
-    <Dialog.Root open={open} onOpenChange={(e) => setOpen(e.open)} size="lg" scrollBehavior="inside">
-      <Dialog.Trigger asChild>
-        <Button>{proposal ? 'Propose a method' : 'New method'}</Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>{proposal ? 'Propose a method' : 'New method'}</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body pb="6">
-              <Dialog.Description mb="5" color="fg.muted">
-                The method starts with version 1 as a draft. Its acceptance criteria come from the set you choose and can be edited while
-                the version is a draft.
-              </Dialog.Description>
-              <Form
-                initialValues={initialValues}
-                validationSchema={createMethodSchema}
-                onSubmit={async (values) => {
-                  const template = templates.data?.find((t) => t.key === values.purpose);
-                  const method = await createMethod.mutateAsync({ ...values, criteria: template?.criteria });
-                  setOpen(false);
-                  toaster.create({ type: 'success', title: `${method.name} created`, description: 'Version 1 is a draft.' });
-                  void navigate(paths.methodDetail.getHref(method.id));
-                }}
-                submitLabel={proposal ? 'Propose the method' : 'Create the method'}
-                secondaryAction={
-                  <Dialog.ActionTrigger asChild>
-                    <Button variant="outline">Cancel</Button>
-                  </Dialog.ActionTrigger>
-                }
-              >
-                <FormField name="name" label="Method name" required placeholder="Nitrate in drinking water by ion chromatography" />
-                <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
-                  <FormField name="analyte" label="Analyte" required />
-                  <FormField name="matrix" label="Matrix" required placeholder="drinking water" />
-                </SimpleGrid>
-                <FormField
-                  name="technique"
-                  label="Technique"
-                  required
-                  helperText="Choose a suggestion or type your own, up to 80 characters."
-                >
-                  {(field) => (
-                    <>
-                      <Input {...field} value={String(field.value ?? '')} list={techniqueList} autoComplete="off" maxLength={80} />
-                      <datalist id={techniqueList}>
-                        {TECHNIQUES.map((t) => (
-                          <option key={t} value={t} />
-                        ))}
-                      </datalist>
-                    </>
-                  )}
-                </FormField>
-                <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
-                  <FormField name="xUnit" label="Concentration unit (x)" required placeholder="mg/L" />
-                  <FormField name="yUnit" label="Response unit (y)" required placeholder="AU, counts, µS·min" />
-                </SimpleGrid>
-                {templates.isPending ? (
-                  <Skeleton height="16" />
-                ) : (
-                  <FormField name="purpose" label="Starting acceptance criteria" required>
-                    {(field) => (
-                      <NativeSelect.Root>
-                        <NativeSelect.Field {...field} value={String(field.value ?? '')}>
-                          <option value="">Choose a set…</option>
-                          {(templates.data ?? []).map((t) => (
-                            <option key={t.key} value={t.key}>
-                              {t.name}
-                            </option>
-                          ))}
-                        </NativeSelect.Field>
-                        <NativeSelect.Indicator />
-                      </NativeSelect.Root>
-                    )}
-                  </FormField>
-                )}
-                <TemplatePreview templates={templates.data ?? []} />
-                <FormField name="changeSummary" label="Note for version 1" placeholder="First version" />
-              </Form>
-            </Dialog.Body>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+    <FormDialog
+      open={open}
+      onOpenChange={setOpen}
+      trigger={<Button>{proposal ? 'Propose a method' : 'New method'}</Button>}
+      title={proposal ? 'Propose a method' : 'New method'}
+      description="The method starts with version 1 as a draft. Its acceptance criteria come from the set you choose and can be edited while the version is a draft."
+      size="lg"
+      scrollBehavior="inside"
+      initialValues={initialValues}
+      validationSchema={createMethodSchema}
+      onSubmit={async (values) => {
+        const template = templates.data?.find((t) => t.key === values.purpose);
+        const method = await createMethod.mutateAsync({ ...values, criteria: template?.criteria });
+        toaster.create({ type: 'success', title: `${method.name} created`, description: 'Version 1 is a draft.' });
+        void navigate(paths.methodDetail.getHref(method.id));
+      }}
+      submitLabel={proposal ? 'Propose the method' : 'Create the method'}
+    >
+      <FormField name="name" label="Method name" required placeholder="Nitrate in drinking water by ion chromatography" />
+      <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
+        <FormField name="analyte" label="Analyte" required />
+        <FormField name="matrix" label="Matrix" required placeholder="drinking water" />
+      </SimpleGrid>
+      <FormField name="technique" label="Technique" required helperText="Choose a suggestion or type your own, up to 80 characters.">
+        {(field) => (
+          <>
+            <Input {...field} value={String(field.value ?? '')} list={techniqueList} autoComplete="off" maxLength={80} />
+            <datalist id={techniqueList}>
+              {TECHNIQUES.map((t) => (
+                <option key={t} value={t} />
+              ))}
+            </datalist>
+          </>
+        )}
+      </FormField>
+      <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
+        <FormField name="xUnit" label="Concentration unit (x)" required placeholder="mg/L" />
+        <FormField name="yUnit" label="Response unit (y)" required placeholder="AU, counts, µS·min" />
+      </SimpleGrid>
+      {templates.isPending ? (
+        <Skeleton height="16" />
+      ) : (
+        <FormField name="purpose" label="Starting acceptance criteria" required>
+          {(field) => (
+            <NativeSelect.Root>
+              <NativeSelect.Field {...field} value={String(field.value ?? '')}>
+                <option value="">Choose a set…</option>
+                {(templates.data ?? []).map((t) => (
+                  <option key={t.key} value={t.key}>
+                    {t.name}
+                  </option>
+                ))}
+              </NativeSelect.Field>
+              <NativeSelect.Indicator />
+            </NativeSelect.Root>
+          )}
+        </FormField>
+      )}
+      <TemplatePreview templates={templates.data ?? []} />
+      <FormField name="changeSummary" label="Note for version 1" placeholder="First version" />
+    </FormDialog>
   );
 }

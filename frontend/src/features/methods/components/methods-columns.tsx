@@ -1,7 +1,8 @@
 import type { MethodDto } from '@meritline/shared';
-import { Badge, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import { Badge, HStack, Link, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns } from '@/components/data-table';
+import { NameCell } from '@/components/name-cell';
 import { paths } from '@/lib/config/paths';
 import { VersionStatusBadge } from './version-status-badge';
 
@@ -12,14 +13,14 @@ export const methodsColumns = column.columns([
     header: 'Method',
     sortFn: 'text',
     cell: (info) => (
-      <Stack gap="0" whiteSpace="normal" minW="14rem">
-        <Link asChild fontWeight="600" color="brand.fg">
-          <RouterLink to={paths.methodDetail.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
-        </Link>
-        <Text fontSize="sm" color="fg.muted">
-          {info.row.original.analyte} in {info.row.original.matrix}
-        </Text>
-      </Stack>
+      <NameCell
+        name={
+          <Link asChild fontWeight="600" color="brand.fg">
+            <RouterLink to={paths.methodDetail.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
+          </Link>
+        }
+        detail={`${info.row.original.analyte} in ${info.row.original.matrix}`}
+      />
     ),
   }),
   column.accessor('technique', {

@@ -1,7 +1,6 @@
-import { Button, CloseButton, Dialog, Heading, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
-import { useState } from 'react';
-import { Form } from '@/components/form/form';
-import { FormField } from '@/components/form/form-field';
+import { Button, Heading, Stack, Text } from '@chakra-ui/react';
+import { FormDialog } from '@/components/form-dialog';
+import { TextareaField } from '@/components/form/textarea-field';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import {
@@ -30,7 +29,6 @@ export interface VersionFormDialogProps {
 }
 
 export function VersionFormDialog({ method, mode, version, triggerLabel, proposal = false }: VersionFormDialogProps) {
-  const [open, setOpen] = useState(false);
   const createVersion = useCreateVersion(method.id);
   const updateVersion = useUpdateVersion(version);
   const nextNumber = Math.max(...method.versions.map((v) => v.number)) + 1;
@@ -58,7 +56,6 @@ export function VersionFormDialog({ method, mode, version, triggerLabel, proposa
       else await createVersion.mutateAsync(values);
     } catch (error) {
       if (isApiError(error) && error.status === 409) {
-        setOpen(false);
         toaster.create({
           type: 'warning',
           title: 'Version not saved',
@@ -68,71 +65,49 @@ export function VersionFormDialog({ method, mode, version, triggerLabel, proposa
       }
       throw error;
     }
-    setOpen(false);
     toaster.create({ type: 'success', title: mode === 'edit' ? `Version ${version.number} saved` : `Draft version ${nextNumber} created` });
   };
 
   return (
-    <Dialog.Root open={open} onOpenChange={(e) => setOpen(e.open)} size="xl" scrollBehavior="inside">
-      <Dialog.Trigger asChild>
+    <FormDialog
+      trigger={
         <Button size="sm" variant={mode === 'edit' ? 'outline' : 'solid'}>
           {triggerLabel}
         </Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>{title}</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body pb="6">
-              <Dialog.Description mb="5" color="fg.muted">
-                {mode === 'new'
-                  ? `${method.name}. The new version starts as a draft with the criteria and settings of version ${version.number}; ${
-                      proposal ? 'a quality manager decides whether it becomes active.' : 'activate it when it is ready.'
-                    }`
-                  : `${method.name}. Criteria and settings can change only while the version is a draft.`}
-              </Dialog.Description>
-              <Form
-                initialValues={initialValues}
-                validationSchema={mode === 'new' ? newVersionFormSchema : versionFormSchema}
-                onSubmit={submit}
-                submitLabel={mode === 'edit' ? 'Save the draft' : 'Create the draft'}
-                secondaryAction={
-                  <Dialog.ActionTrigger asChild>
-                    <Button variant="outline">Cancel</Button>
-                  </Dialog.ActionTrigger>
-                }
-              >
-                <FormField name="changeSummary" label="What changes, and why" required>
-                  {(field) => <Textarea {...field} value={String(field.value ?? '')} rows={2} autoresize />}
-                </FormField>
-                <ChangeControlFields recordsChange={recordsChange} />
-                <Stack gap="2">
-                  <Heading as="h3" size="sm">
-                    Acceptance criteria
-                  </Heading>
-                  <Text fontSize="sm" color="fg.muted">
-                    Each criterion names a figure of the study result and the limit it must meet. The verdict of a study passes only when
-                    every criterion holds.
-                  </Text>
-                  <CriteriaEditor />
-                </Stack>
-                <Stack gap="2">
-                  <Heading as="h3" size="sm">
-                    Settings
-                  </Heading>
-                  <SettingsFields />
-                </Stack>
-              </Form>
-            </Dialog.Body>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+      }
+      title={title}
+      description={
+        mode === 'new'
+          ? `${method.name}. The new version starts as a draft with the criteria and settings of version ${version.number}; ${
+              proposal ? 'a quality manager decides whether it becomes active.' : 'activate it when it is ready.'
+            }`
+          : `${method.name}. Criteria and settings can change only while the version is a draft.`
+      }
+      size="xl"
+      scrollBehavior="inside"
+      initialValues={initialValues}
+      validationSchema={mode === 'new' ? newVersionFormSchema : versionFormSchema}
+      onSubmit={submit}
+      submitLabel={mode === 'edit' ? 'Save the draft' : 'Create the draft'}
+    >
+      <TextareaField name="changeSummary" label="What changes, and why" required rows={2} autoresize />
+      <ChangeControlFields recordsChange={recordsChange} />
+      <Stack gap="2">
+        <Heading as="h3" size="sm">
+          Acceptance criteria
+        </Heading>
+        <Text fontSize="sm" color="fg.muted">
+          Each criterion names a figure of the study result and the limit it must meet. The verdict of a study passes only when every
+          criterion holds.
+        </Text>
+        <CriteriaEditor />
+      </Stack>
+      <Stack gap="2">
+        <Heading as="h3" size="sm">
+          Settings
+        </Heading>
+        <SettingsFields />
+      </Stack>
+    </FormDialog>
   );
 }

@@ -1,4 +1,4 @@
-import { Alert, Button, CloseButton, Dialog, Field, Input, List, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
+import { Alert, Button, Field, Input, List, Text, Textarea } from '@chakra-ui/react';
 import {
   MIN_JUSTIFICATION_LENGTH,
   REVALIDATION_FAMILY_LABELS,
@@ -7,6 +7,7 @@ import {
   type MethodVersionDto,
 } from '@meritline/shared';
 import { useId, useState } from 'react';
+import { ConfirmDialog } from '@/components/confirm-dialog';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import { useSession } from '@/lib/auth';
@@ -34,10 +35,8 @@ export function VersionStatusAction({
   version: MethodVersionDto;
   /** The number of the version now active, which activation retires. */ replaces?: number;
 }) {
-  const [open, setOpen] = useState(false);
   const [justification, setJustification] = useState('');
   const [password, setPassword] = useState('');
-  const [problem, setProblem] = useState<string | null>(null);
   const ids = useId();
   const { user } = useSession();
   const changeStatus = useChangeVersionStatus(version);
@@ -49,154 +48,90 @@ export function VersionStatusAction({
   const isQualityManager = user?.roles.includes(Role.QualityManager) ?? false;
   const justificationShort = justification.trim().length < MIN_JUSTIFICATION_LENGTH;
 
-  const confirm = (signature?: ActivationSignature) =>
-    changeStatus.mutate(
-      { status: action.to, signature },
-      {
-        onSuccess: () => {
-          setOpen(false);
-          toaster.create({
-            type: 'success',
-            title: `Version ${version.number} is now ${action.to}${signature ? ', with your signed justification' : ''}`,
-          });
-        },
-        onError: (error) => {
-          if (isApiError(error) && error.status === 401) {
-            setProblem('Password not correct; the version was not activated.');
-            return;
-          }
-          if (isApiError(error) && error.status === 422) {
-            setProblem(error.message);
-            return;
-          }
-          setOpen(false);
-          if (isApiError(error) && error.status === 409) {
-            toaster.create({
-              type: 'warning',
-              title: 'Not changed',
-              description: 'Someone else changed this version first. The page now shows the current state.',
-            });
-          }
-        },
-      },
-    );
+  const confirm = async (signature?: ActivationSignature) => {
+    try {
+      await changeStatus.mutateAsync({ status: action.to, signature });
+    } catch (error) {
+      if (!isApiError(error) || error.status !== 409) throw error;
+      toaster.create({
+        type: 'warning',
+        title: 'Not changed',
+        description: 'Someone else changed this version first. The page now shows the current state.',
+      });
+      return;
+    }
+    toaster.create({
+      type: 'success',
+      title: `Version ${version.number} is now ${action.to}${signature ? ', with your signed justification' : ''}`,
+    });
+  };
+  const signing = uncovered && isQualityManager;
 
   return (
-    <Dialog.Root
-      open={open}
-      onOpenChange={(e) => {
-        setOpen(e.open);
-        setProblem(null);
-        setPassword('');
-      }}
-      role="alertdialog"
-    >
-      <Dialog.Trigger asChild>
+    <ConfirmDialog
+      onOpenChange={() => setPassword('')}
+      size="md"
+      trigger={
         <Button size="sm" variant={activating ? 'solid' : 'outline'} colorPalette={action.to === 'retired' ? 'red' : undefined}>
           {action.label} version {version.number}
         </Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>
-                {action.label} version {version.number}?
-              </Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body>
-              <Stack gap="3">
-                <Text>{action.explain}</Text>
-                {activating && replaces !== undefined && <Text>Version {replaces}, active until now, will be retired.</Text>}
-                {uncovered && (
-                  <Alert.Root status="warning" variant="subtle">
-                    <Alert.Indicator />
-                    <Alert.Content>
-                      <Alert.Title>Not yet shown again</Alert.Title>
-                      <Alert.Description>
-                        No approved study of this version shows these figures again, as the change requires:
-                        <List.Root ms="5" mt="1">
-                          {version.coverage.missing.map((family) => (
-                            <List.Item key={family}>{REVALIDATION_FAMILY_LABELS[family]}</List.Item>
-                          ))}
-                        </List.Root>
-                        {isQualityManager
-                          ? 'You may activate it all the same with a written justification, signed with your password.'
-                          : 'Approve a study covering them first; only a quality manager may activate without one, with a signed justification.'}
-                      </Alert.Description>
-                    </Alert.Content>
-                  </Alert.Root>
-                )}
-                {uncovered && isQualityManager && (
-                  <>
-                    <Field.Root required invalid={justification.length > 0 && justificationShort}>
-                      <Field.Label htmlFor={`${ids}-justification`}>
-                        Justification for activating without coverage
-                        <Field.RequiredIndicator />
-                      </Field.Label>
-                      <Textarea
-                        id={`${ids}-justification`}
-                        value={justification}
-                        onChange={(e) => setJustification(e.target.value)}
-                        rows={3}
-                      />
-                      <Field.HelperText>At least {MIN_JUSTIFICATION_LENGTH} characters; kept in the audit trail.</Field.HelperText>
-                    </Field.Root>
-                    <Field.Root required>
-                      <Field.Label htmlFor={`${ids}-password`}>
-                        Your password
-                        <Field.RequiredIndicator />
-                      </Field.Label>
-                      <Input
-                        id={`${ids}-password`}
-                        type="password"
-                        autoComplete="current-password"
-                        value={password}
-                        onChange={(e) => setPassword(e.target.value)}
-                      />
-                      <Field.HelperText>Your signature means: activated with justification.</Field.HelperText>
-                    </Field.Root>
-                  </>
-                )}
-                {problem && (
-                  <Alert.Root status="error" variant="subtle">
-                    <Alert.Indicator />
-                    <Alert.Description>{problem}</Alert.Description>
-                  </Alert.Root>
-                )}
-              </Stack>
-            </Dialog.Body>
-            <Dialog.Footer>
-              <Dialog.ActionTrigger asChild>
-                <Button variant="outline">Cancel</Button>
-              </Dialog.ActionTrigger>
-              {uncovered ? (
-                isQualityManager && (
-                  <Button
-                    onClick={() => confirm({ activationJustification: justification.trim(), password })}
-                    loading={changeStatus.isPending}
-                    disabled={justificationShort || !password}
-                  >
-                    Sign and activate with justification
-                  </Button>
-                )
-              ) : (
-                <Button
-                  onClick={() => confirm()}
-                  loading={changeStatus.isPending}
-                  colorPalette={action.to === 'retired' ? 'red' : undefined}
-                >
-                  {action.label}
-                </Button>
-              )}
-            </Dialog.Footer>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+      }
+      title={`${action.label} version ${version.number}?`}
+      confirmLabel={signing ? 'Sign and activate with justification' : uncovered ? undefined : action.label}
+      destructive={action.to === 'retired'}
+      confirmDisabled={signing && (justificationShort || !password)}
+      onConfirm={() => (signing ? confirm({ activationJustification: justification.trim(), password }) : confirm())}
+      describeError={(error) =>
+        isApiError(error) && error.status === 401 ? 'Password not correct; the version was not activated.' : undefined
+      }
+    >
+      <Text>{action.explain}</Text>
+      {activating && replaces !== undefined && <Text>Version {replaces}, active until now, will be retired.</Text>}
+      {uncovered && (
+        <Alert.Root status="warning" variant="subtle">
+          <Alert.Indicator />
+          <Alert.Content>
+            <Alert.Title>Not yet shown again</Alert.Title>
+            <Alert.Description>
+              No approved study of this version shows these figures again, as the change requires:
+              <List.Root ms="5" mt="1">
+                {version.coverage.missing.map((family) => (
+                  <List.Item key={family}>{REVALIDATION_FAMILY_LABELS[family]}</List.Item>
+                ))}
+              </List.Root>
+              {isQualityManager
+                ? 'You may activate it all the same with a written justification, signed with your password.'
+                : 'Approve a study covering them first; only a quality manager may activate without one, with a signed justification.'}
+            </Alert.Description>
+          </Alert.Content>
+        </Alert.Root>
+      )}
+      {signing && (
+        <>
+          <Field.Root required invalid={justification.length > 0 && justificationShort}>
+            <Field.Label htmlFor={`${ids}-justification`}>
+              Justification for activating without coverage
+              <Field.RequiredIndicator />
+            </Field.Label>
+            <Textarea id={`${ids}-justification`} value={justification} onChange={(e) => setJustification(e.target.value)} rows={3} />
+            <Field.HelperText>At least {MIN_JUSTIFICATION_LENGTH} characters; kept in the audit trail.</Field.HelperText>
+          </Field.Root>
+          <Field.Root required>
+            <Field.Label htmlFor={`${ids}-password`}>
+              Your password
+              <Field.RequiredIndicator />
+            </Field.Label>
+            <Input
+              id={`${ids}-password`}
+              type="password"
+              autoComplete="current-password"
+              value={password}
+              onChange={(e) => setPassword(e.target.value)}
+            />
+            <Field.HelperText>Your signature means: activated with justification.</Field.HelperText>
+          </Field.Root>
+        </>
+      )}
+    </ConfirmDialog>
   );
 }

@@ -3,6 +3,7 @@ import { Box, Button, Float, HStack, IconButton, Popover, Portal, Stack, Text } 
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useNavigate } from 'react-router';
+import { LineIcon } from '@/components/line-icon';
 import { useMarkAllRead, useMarkRead } from '../api/mark-read';
 import { notificationsQueries, type NotificationItem } from '../api/notifications-queries';
 
@@ -111,19 +112,9 @@ export function NotificationsBell() {
 
 function BellIcon() {
   return (
-    <svg
-      viewBox="0 0 24 24"
-      width="1.2em"
-      height="1.2em"
-      fill="none"
-      stroke="currentColor"
-      strokeWidth="2"
-      strokeLinecap="round"
-      strokeLinejoin="round"
-      aria-hidden="true"
-    >
+    <LineIcon size="1.2em">
       <path d="M6 8a6 6 0 1 1 12 0c0 7 3 9 3 9H3s3-2 3-9" />
       <path d="M10.3 21a1.94 1.94 0 0 0 3.4 0" />
-    </svg>
+    </LineIcon>
   );
 }

@@ -1,8 +1,9 @@
-import { Button, CloseButton, Dialog, NativeSelect, Portal, Text, Textarea } from '@chakra-ui/react';
+import { Button, NativeSelect } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
-import { Form } from '@/components/form/form';
+import { FormDialog } from '@/components/form-dialog';
 import { FormField } from '@/components/form/form-field';
+import { TextareaField } from '@/components/form/textarea-field';
 import { toaster } from '@/components/ui/toaster';
 import { analystChoicesQuery, reassignSchema, useReassignStudy, type ReassignValues } from '../api/reassign-study';
 import type { StudyView } from '../api/review-types';
@@ -17,64 +18,37 @@ export function ReassignDialog({ study }: { study: Pick<StudyView, 'id' | 'lockV
   const choices = (analysts.data ?? []).filter((u) => u.id !== study.author.id);
 
   return (
-    <Dialog.Root open={open} onOpenChange={(event) => setOpen(event.open)} size="md">
-      <Dialog.Trigger asChild>
-        <Button variant="outline">Give to another analyst…</Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>Give the draft to another analyst</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body pb="6">
-              <Text mb="5" color="fg.muted">
-                {study.author.name} writes this draft now. The analyst you choose becomes its author and the only one who may change it; the
-                change and your reason are kept in the audit trail.
-              </Text>
-              <Form
-                initialValues={initialValues}
-                validationSchema={reassignSchema}
-                onSubmit={async (values) => {
-                  await reassign.mutateAsync({ values, lockVersion: study.lockVersion });
-                  setOpen(false);
-                  const name = choices.find((u) => u.id === values.authorId)?.name ?? 'the analyst chosen';
-                  toaster.create({ type: 'success', title: `The draft is now ${name}’s` });
-                }}
-                submitLabel="Give the draft"
-                secondaryAction={
-                  <Dialog.ActionTrigger asChild>
-                    <Button variant="outline">Cancel</Button>
-                  </Dialog.ActionTrigger>
-                }
-              >
-                <FormField name="authorId" label="New author" required>
-                  {(field) => (
-                    <NativeSelect.Root disabled={analysts.isPending}>
-                      <NativeSelect.Field {...field} value={field.value as string}>
-                        <option value="">{analysts.isPending ? 'Loading the analysts…' : 'Choose an analyst'}</option>
-                        {choices.map((u) => (
-                          <option key={u.id} value={u.id}>
-                            {u.name}
-                          </option>
-                        ))}
-                      </NativeSelect.Field>
-                      <NativeSelect.Indicator />
-                    </NativeSelect.Root>
-                  )}
-                </FormField>
-                <FormField name="reason" label="Why the draft changes hands" required>
-                  {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={3} maxLength={500} />}
-                </FormField>
-              </Form>
-            </Dialog.Body>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+    <FormDialog
+      open={open}
+      onOpenChange={setOpen}
+      trigger={<Button variant="outline">Give to another analyst…</Button>}
+      title="Give the draft to another analyst"
+      description={`${study.author.name} writes this draft now. The analyst you choose becomes its author and the only one who may change it; the change and your reason are kept in the audit trail.`}
+      initialValues={initialValues}
+      validationSchema={reassignSchema}
+      onSubmit={async (values) => {
+        await reassign.mutateAsync({ values, lockVersion: study.lockVersion });
+        const name = choices.find((u) => u.id === values.authorId)?.name ?? 'the analyst chosen';
+        toaster.create({ type: 'success', title: `The draft is now ${name}’s` });
+      }}
+      submitLabel="Give the draft"
+    >
+      <FormField name="authorId" label="New author" required>
+        {(field) => (
+          <NativeSelect.Root disabled={analysts.isPending}>
+            <NativeSelect.Field {...field} value={field.value as string}>
+              <option value="">{analysts.isPending ? 'Loading the analysts…' : 'Choose an analyst'}</option>
+              {choices.map((u) => (
+                <option key={u.id} value={u.id}>
+                  {u.name}
+                </option>
+              ))}
+            </NativeSelect.Field>
+            <NativeSelect.Indicator />
+          </NativeSelect.Root>
+        )}
+      </FormField>
+      <TextareaField name="reason" label="Why the draft changes hands" required maxLength={500} />
+    </FormDialog>
   );
 }

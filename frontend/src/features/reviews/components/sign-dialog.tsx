@@ -1,10 +1,10 @@
-import { Alert, Button, CloseButton, Dialog, Portal, Stack, Text, Textarea } from '@chakra-ui/react';
+import { Alert, Button } from '@chakra-ui/react';
 import { MIN_JUSTIFICATION_LENGTH } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
-import { useState } from 'react';
 import * as yup from 'yup';
-import { Form } from '@/components/form/form';
-import { FormField } from '@/components/form/form-field';
+import { FormDialog } from '@/components/form-dialog';
+import { TextareaField } from '@/components/form/textarea-field';
+import { SignatureNotice, SignaturePasswordField } from '@/components/signature-dialog';
 import { toaster } from '@/components/ui/toaster';
 import { studyReviewQueries } from '../api/review-queries';
 import { signSchema, useSignStudy, type SignValues, type SigningAction } from '../api/sign-study';
@@ -47,7 +47,6 @@ export function SignDialog({
   successTitle,
   onSigned,
 }: SignDialogProps) {
-  const [open, setOpen] = useState(false);
   const sign = useSignStudy(studyId, action);
   // The study page has loaded the study already; read it from the cache rather than ask again.
   const study = useQuery({ ...studyReviewQueries.detail(studyId), enabled: false });
@@ -56,108 +55,73 @@ export function SignDialog({
   const openComments = action === 'approve' ? openThreads(comments.data ?? []) : [];
 
   return (
-    <Dialog.Root open={open} onOpenChange={(event) => setOpen(event.open)} size="md">
-      <Dialog.Trigger asChild>
-        <Button>{triggerLabel}</Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>{title}</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body pb="6">
-              <Stack gap="4" mb="5">
-                <Alert.Root status="info" variant="subtle">
-                  <Alert.Indicator />
-                  <Alert.Content>
-                    <Alert.Title>What your signature means</Alert.Title>
-                    <Alert.Description>{meaning}</Alert.Description>
-                  </Alert.Content>
-                </Alert.Root>
-                <Text fontSize="sm" color="fg.muted">
-                  Your name, role, the time (UTC) and a fingerprint of the study’s data and results are recorded with the signature.
-                  {action === 'approve' && ` ${APPROVAL_CAUTION}`}
-                </Text>
-                {action === 'approve' && comments.data && (
-                  <Alert.Root status={openComments.length ? 'warning' : 'success'} variant="subtle" data-testid="open-comments-note">
-                    <Alert.Indicator />
-                    <Alert.Content minW="0">
-                      <Alert.Title>
-                        {openComments.length === 0
-                          ? 'No comment is open.'
-                          : openComments.length === 1
-                            ? 'One comment is still open.'
-                            : `${openComments.length} comments are still open.`}
-                      </Alert.Title>
-                      {openComments.length > 0 && (
-                        <Alert.Description>
-                          <OpenCommentList comments={openComments} />
-                        </Alert.Description>
-                      )}
-                    </Alert.Content>
-                  </Alert.Root>
+    <FormDialog
+      trigger={<Button>{triggerLabel}</Button>}
+      title={title}
+      notice={
+        <SignatureNotice
+          meaning={meaning}
+          recorded={
+            <>
+              Your name, role, the time (UTC) and a fingerprint of the study’s data and results are recorded with the signature.
+              {action === 'approve' && ` ${APPROVAL_CAUTION}`}
+            </>
+          }
+        >
+          {action === 'approve' && comments.data && (
+            <Alert.Root status={openComments.length ? 'warning' : 'success'} variant="subtle" data-testid="open-comments-note">
+              <Alert.Indicator />
+              <Alert.Content minW="0">
+                <Alert.Title>
+                  {openComments.length === 0
+                    ? 'No comment is open.'
+                    : openComments.length === 1
+                      ? 'One comment is still open.'
+                      : `${openComments.length} comments are still open.`}
+                </Alert.Title>
+                {openComments.length > 0 && (
+                  <Alert.Description>
+                    <OpenCommentList comments={openComments} />
+                  </Alert.Description>
                 )}
-                {needsJustification && (
-                  <Alert.Root status="warning" variant="subtle">
-                    <Alert.Indicator />
-                    <Alert.Content>
-                      <Alert.Title>This study does not meet all its acceptance criteria</Alert.Title>
-                      <Alert.Description>{FAILED_VERDICT_CAUTION}</Alert.Description>
-                    </Alert.Content>
-                  </Alert.Root>
-                )}
-              </Stack>
-              <Form
-                key={needsJustification ? 'justified' : 'plain'}
-                initialValues={initialValues}
-                validationSchema={needsJustification ? justifiedSignSchema : signSchema}
-                onSubmit={async (values) => {
-                  const result = await sign.mutateAsync({ values, lockVersion });
-                  setOpen(false);
-                  toaster.create({
-                    type: 'success',
-                    title: result.stage === 'release' ? 'Approved; now awaiting release by a quality manager' : successTitle,
-                  });
-                  onSigned?.();
-                }}
-                submitLabel={submitLabel}
-                secondaryAction={
-                  <Dialog.ActionTrigger asChild>
-                    <Button variant="outline">Cancel</Button>
-                  </Dialog.ActionTrigger>
-                }
-              >
-                <FormField
-                  name="password"
-                  label="Your password"
-                  type="password"
-                  autoComplete="current-password"
-                  required
-                  helperText="Re-enter the password you sign in with."
-                />
-                {needsJustification && (
-                  <FormField
-                    name="justification"
-                    label="Justification for approving although criteria are not met"
-                    required
-                    helperText="Printed with your signature in the report and kept in the review history."
-                  >
-                    {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={4} />}
-                  </FormField>
-                )}
-                <FormField name="comment" label="Comment (optional)">
-                  {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={3} />}
-                </FormField>
-              </Form>
-            </Dialog.Body>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+              </Alert.Content>
+            </Alert.Root>
+          )}
+          {needsJustification && (
+            <Alert.Root status="warning" variant="subtle">
+              <Alert.Indicator />
+              <Alert.Content>
+                <Alert.Title>This study does not meet all its acceptance criteria</Alert.Title>
+                <Alert.Description>{FAILED_VERDICT_CAUTION}</Alert.Description>
+              </Alert.Content>
+            </Alert.Root>
+          )}
+        </SignatureNotice>
+      }
+      formKey={needsJustification ? 'justified' : 'plain'}
+      initialValues={initialValues}
+      validationSchema={needsJustification ? justifiedSignSchema : signSchema}
+      onSubmit={async (values) => {
+        const result = await sign.mutateAsync({ values, lockVersion });
+        toaster.create({
+          type: 'success',
+          title: result.stage === 'release' ? 'Approved; now awaiting release by a quality manager' : successTitle,
+        });
+        onSigned?.();
+      }}
+      submitLabel={submitLabel}
+    >
+      <SignaturePasswordField />
+      {needsJustification && (
+        <TextareaField
+          name="justification"
+          label="Justification for approving although criteria are not met"
+          required
+          rows={4}
+          helperText="Printed with your signature in the report and kept in the review history."
+        />
+      )}
+      <TextareaField name="comment" label="Comment (optional)" />
+    </FormDialog>
   );
 }

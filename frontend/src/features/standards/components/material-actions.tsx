@@ -1,7 +1,6 @@
-import { Button, CloseButton, Dialog, FileUpload, HStack, Portal, Text } from '@chakra-ui/react';
+import { Button, FileUpload, HStack } from '@chakra-ui/react';
 import { Role, hasAnyRole, type ReferenceMaterialDto } from '@meritline/shared';
-import { useState } from 'react';
-import { Form } from '@/components/form/form';
+import { FormDialog } from '@/components/form-dialog';
 import { FormField } from '@/components/form/form-field';
 import { toaster } from '@/components/ui/toaster';
 import { useSession } from '@/lib/auth';
@@ -75,53 +74,27 @@ function CertificateUpload({ material }: { material: ReferenceMaterialDto }) {
 }
 
 function WithdrawDialog({ material }: { material: ReferenceMaterialDto }) {
-  const [open, setOpen] = useState(false);
   const withdraw = useWithdrawReferenceMaterial();
   return (
-    <Dialog.Root open={open} onOpenChange={(e) => setOpen(e.open)} role="alertdialog" size="md">
-      <Dialog.Trigger asChild>
+    <FormDialog
+      role="alertdialog"
+      trigger={
         <Button size="xs" variant="ghost" colorPalette="red" aria-label={`Withdraw ${material.name}, lot ${material.lot}`}>
           Withdraw
         </Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>
-                Withdraw {material.name}, lot {material.lot}?
-              </Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body pb="6">
-              <Text mb="4">
-                No new standard can be prepared from it, and studies can no longer name preparations made from it. It stays in the register
-                for the record; this cannot be undone.
-              </Text>
-              <Form
-                initialValues={{ reason: '' }}
-                validationSchema={withdrawSchema}
-                onSubmit={async ({ reason }) => {
-                  await withdraw.mutateAsync({ id: material.id, body: { reason, lockVersion: material.lockVersion } });
-                  setOpen(false);
-                  toaster.create({ type: 'success', title: `${material.name}, lot ${material.lot}, withdrawn` });
-                }}
-                submitLabel="Withdraw"
-                secondaryAction={
-                  <Dialog.ActionTrigger asChild>
-                    <Button variant="outline">Cancel</Button>
-                  </Dialog.ActionTrigger>
-                }
-              >
-                <FormField name="reason" label="Reason" required placeholder="Container damaged; contents possibly contaminated." />
-              </Form>
-            </Dialog.Body>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+      }
+      title={`Withdraw ${material.name}, lot ${material.lot}?`}
+      description="No new standard can be prepared from it, and studies can no longer name preparations made from it. It stays in the register for the record; this cannot be undone."
+      initialValues={{ reason: '' }}
+      validationSchema={withdrawSchema}
+      onSubmit={async ({ reason }) => {
+        await withdraw.mutateAsync({ id: material.id, body: { reason, lockVersion: material.lockVersion } });
+        toaster.create({ type: 'success', title: `${material.name}, lot ${material.lot}, withdrawn` });
+      }}
+      submitLabel="Withdraw"
+      destructive
+    >
+      <FormField name="reason" label="Reason" required placeholder="Container damaged; contents possibly contaminated." />
+    </FormDialog>
   );
 }

@@ -1,8 +1,7 @@
-import { Button, CloseButton, Dialog, Input, NativeSelect, Portal, SimpleGrid, Text } from '@chakra-ui/react';
+import { Button, Input, NativeSelect, SimpleGrid } from '@chakra-ui/react';
 import { CERTIFIED_VALUE_KIND_LABELS, type ReferenceMaterialDto } from '@meritline/shared';
 import { useFormikContext } from 'formik';
-import { useState } from 'react';
-import { Form } from '@/components/form/form';
+import { FormDialog } from '@/components/form-dialog';
 import { FormField } from '@/components/form/form-field';
 import { toaster } from '@/components/ui/toaster';
 import {
@@ -82,73 +81,49 @@ function CertifiedValueFields() {
 }
 
 export function MaterialFormDialog({ material }: { material?: ReferenceMaterialDto }) {
-  const [open, setOpen] = useState(false);
   const save = useSaveReferenceMaterial();
-  const title = material ? `Edit ${material.name}` : 'Register a reference material';
 
   return (
-    <Dialog.Root open={open} onOpenChange={(e) => setOpen(e.open)} size="lg" scrollBehavior="inside">
-      <Dialog.Trigger asChild>
-        {material ? (
+    <FormDialog
+      trigger={
+        material ? (
           <Button size="xs" variant="outline" aria-label={`Edit ${material.name}, lot ${material.lot}`}>
             Edit
           </Button>
         ) : (
           <Button>Register a material</Button>
-        )}
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>{title}</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body pb="6">
-              <Text mb="5" color="fg.muted">
-                Copy the values from the certificate of analysis. Every change is kept in the audit trail.
-              </Text>
-              <Form
-                initialValues={material ? materialValues(material) : emptyMaterial}
-                validationSchema={materialSchema}
-                onSubmit={async (values) => {
-                  const body = toRequest(values);
-                  const saved = await save.mutateAsync({
-                    id: material?.id,
-                    body: material ? { ...body, lockVersion: material.lockVersion } : body,
-                  });
-                  setOpen(false);
-                  toaster.create({ type: 'success', title: material ? `${saved.name} saved` : `${saved.name} registered` });
-                }}
-                submitLabel={material ? 'Save the changes' : 'Register'}
-                secondaryAction={
-                  <Dialog.ActionTrigger asChild>
-                    <Button variant="outline">Cancel</Button>
-                  </Dialog.ActionTrigger>
-                }
-              >
-                <FormField name="name" label="Material" required placeholder="Cadmium granules, 99.99 %" />
-                <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
-                  <FormField name="analyte" label="Analyte" required />
-                  <FormField name="supplier" label="Supplier" required />
-                  <FormField name="lot" label="Lot" required />
-                  <FormField name="certificateNumber" label="Certificate number" required />
-                </SimpleGrid>
-                <CertifiedValueFields />
-                <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
-                  <DateField name="receivedOn" label="Received" required />
-                  <DateField name="openedOn" label="Opened" />
-                  <DateField name="expiresOn" label="Use until" required helperText="The last day it may be used." />
-                </SimpleGrid>
-                <FormField name="storage" label="Storage" placeholder="Desiccator, room temperature" />
-              </Form>
-            </Dialog.Body>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+        )
+      }
+      title={material ? `Edit ${material.name}` : 'Register a reference material'}
+      description="Copy the values from the certificate of analysis. Every change is kept in the audit trail."
+      size="lg"
+      scrollBehavior="inside"
+      initialValues={material ? materialValues(material) : emptyMaterial}
+      validationSchema={materialSchema}
+      onSubmit={async (values) => {
+        const body = toRequest(values);
+        const saved = await save.mutateAsync({
+          id: material?.id,
+          body: material ? { ...body, lockVersion: material.lockVersion } : body,
+        });
+        toaster.create({ type: 'success', title: material ? `${saved.name} saved` : `${saved.name} registered` });
+      }}
+      submitLabel={material ? 'Save the changes' : 'Register'}
+    >
+      <FormField name="name" label="Material" required placeholder="Cadmium granules, 99.99 %" />
+      <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
+        <FormField name="analyte" label="Analyte" required />
+        <FormField name="supplier" label="Supplier" required />
+        <FormField name="lot" label="Lot" required />
+        <FormField name="certificateNumber" label="Certificate number" required />
+      </SimpleGrid>
+      <CertifiedValueFields />
+      <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
+        <DateField name="receivedOn" label="Received" required />
+        <DateField name="openedOn" label="Opened" />
+        <DateField name="expiresOn" label="Use until" required helperText="The last day it may be used." />
+      </SimpleGrid>
+      <FormField name="storage" label="Storage" placeholder="Desiccator, room temperature" />
+    </FormDialog>
   );
 }

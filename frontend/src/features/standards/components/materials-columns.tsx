@@ -1,6 +1,7 @@
 import { Stack, Text } from '@chakra-ui/react';
 import type { ReferenceMaterialDto } from '@meritline/shared';
 import { dataTableColumns } from '@/components/data-table';
+import { NameCell } from '@/components/name-cell';
 import { certifiedValueWords } from './certified-value';
 import { MaterialActions } from './material-actions';
 import { MaterialStatus } from './material-status';
@@ -12,12 +13,7 @@ export const materialsColumns = column.columns([
     header: 'Material',
     sortFn: 'text',
     cell: (info) => (
-      <Stack gap="0" whiteSpace="normal" minW="13rem">
-        <Text fontWeight="600">{info.getValue()}</Text>
-        <Text fontSize="sm" color="fg.muted">
-          {info.row.original.analyte} · {info.row.original.supplier}
-        </Text>
-      </Stack>
+      <NameCell name={info.getValue()} detail={`${info.row.original.analyte} · ${info.row.original.supplier}`} minW="13rem" />
     ),
   }),
   column.accessor('lot', {

@@ -1,6 +1,7 @@
 import { formatDateTime, type PreparationDto } from '@meritline/shared';
 import { Stack, Text } from '@chakra-ui/react';
 import { dataTableColumns } from '@/components/data-table';
+import { NameCell } from '@/components/name-cell';
 import { concentrationWords } from './concentration-words';
 
 const column = dataTableColumns<PreparationDto>();
@@ -9,16 +10,10 @@ export const preparationsColumns = column.columns([
   column.accessor('name', {
     header: 'Preparation',
     sortFn: 'text',
-    cell: (info) => (
-      <Stack gap="0" whiteSpace="normal" minW="14rem">
-        <Text fontWeight="600">{info.getValue()}</Text>
-        <Text fontSize="sm" color="fg.muted">
-          {info.row.original.material
-            ? `${info.row.original.material.name}, lot ${info.row.original.material.lot}`
-            : 'Purity entered by hand'}
-        </Text>
-      </Stack>
-    ),
+    cell: (info) => {
+      const { material } = info.row.original;
+      return <NameCell name={info.getValue()} detail={material ? `${material.name}, lot ${material.lot}` : 'Purity entered by hand'} />;
+    },
   }),
   column.accessor((p) => p.result.stock.concentration, {
     id: 'stock',

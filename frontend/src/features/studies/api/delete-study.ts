@@ -7,5 +7,6 @@ export function useDeleteStudy() {
   return useMutation({
     mutationFn: (id: string) => api.delete<void>(`/studies/${encodeURIComponent(id)}`),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: studiesQueries.all }),
+    meta: { inlineErrors: true },
   });
 }

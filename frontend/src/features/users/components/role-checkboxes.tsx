@@ -1,6 +1,7 @@
 import { Checkbox, CheckboxGroup, Stack, Text } from '@chakra-ui/react';
 import { ALL_ROLES, Role, ROLE_LABELS } from '@meritline/shared';
 import { useId } from 'react';
+import { FormField } from '@/components/form/form-field';
 
 const ROLE_HINTS: Record<Role, string> = {
   [Role.Analyst]: 'Runs validation studies and routine batches.',
@@ -42,5 +43,20 @@ export function RoleCheckboxes({ value, onChange, onBlur }: RoleCheckboxesProps)
         ))}
       </Stack>
     </CheckboxGroup>
+  );
+}
+
+/** The roles of an account as a field of the Form wrapper. */
+export function RolesField() {
+  return (
+    <FormField name="roles" label="Roles" required>
+      {(field, helpers) => (
+        <RoleCheckboxes
+          value={field.value as string[]}
+          onChange={(roles) => void helpers.setValue(roles)}
+          onBlur={() => void helpers.setTouched(true)}
+        />
+      )}
+    </FormField>
   );
 }

@@ -1,21 +1,7 @@
 import type { ImportPreviewDto, ImportSection, StudyDto } from '@meritline/shared';
-import {
-  Alert,
-  Button,
-  CloseButton,
-  Dialog,
-  Field,
-  HStack,
-  List,
-  NativeSelect,
-  Portal,
-  SimpleGrid,
-  Spinner,
-  Stack,
-  Table,
-  Text,
-} from '@chakra-ui/react';
+import { Alert, Button, Field, HStack, List, NativeSelect, SimpleGrid, Spinner, Stack, Table, Text } from '@chakra-ui/react';
 import { useState } from 'react';
+import { DialogCancel, DialogShell } from '@/components/dialog-shell';
 import { isApiError } from '@/lib/api-client';
 import { useApplyImport, usePreviewImport } from '../../api/import-study-file';
 
@@ -162,161 +148,147 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
   const count = data?.rowCount ?? 0;
 
   return (
-    <Dialog.Root
+    <DialogShell
       open={open}
-      onOpenChange={(e) => {
-        setOpen(e.open);
-        if (!e.open) reset();
+      onOpenChange={(next) => {
+        setOpen(next);
+        if (!next) reset();
       }}
       size="xl"
       scrollBehavior="inside"
-    >
-      <Dialog.Trigger asChild>
+      trigger={
         <Button size="sm" variant="outline" disabled={disabled}>
           Upload CSV or Excel
         </Button>
-      </Dialog.Trigger>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>Upload {sectionName}</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body>
-              <Stack gap="5">
-                <Text fontSize="sm" color="fg.muted">
-                  A CSV file (separated by commas, semicolons or tabs) or an Excel workbook (.xlsx, first sheet), with a first row naming
-                  the columns. Meritline reads the file and shows what it found before anything changes. Importing replaces the{' '}
-                  {sectionName} of this study.
-                </Text>
-                <Field.Root>
-                  <Field.Label>File</Field.Label>
-                  <input
-                    type="file"
-                    accept=".csv,.txt,.tsv,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
-                    aria-label="File to upload"
-                    onChange={(e) => choose(e.target.files?.[0])}
-                  />
-                </Field.Root>
-                {preview.isPending && (
-                  <HStack gap="2" role="status">
-                    <Spinner size="sm" />
-                    <Text>Reading the file…</Text>
-                  </HStack>
-                )}
-                {previewError && (
-                  <Alert.Root status="error">
-                    <Alert.Indicator />
-                    <Alert.Content>
-                      <Alert.Title>{previewError.body.message}</Alert.Title>
-                      {previewError.body.errors?.map((e, i) => (
-                        <Alert.Description key={i}>{e.message}</Alert.Description>
-                      ))}
-                    </Alert.Content>
-                  </Alert.Root>
-                )}
-                {data && (
-                  <Stack gap="4">
-                    <Stack gap="2">
-                      <Text fontWeight="600">Columns</Text>
-                      <Text fontSize="sm" color="fg.muted">
-                        Which column of the file holds what. Meritline guessed from the column names; change any that is wrong.
-                      </Text>
-                      <SimpleGrid columns={{ base: 1, md: 3 }} gap="3">
-                        {fields.map((f) => (
-                          <Field.Root key={f.key} required={f.required}>
-                            <Field.Label>
-                              {f.label}
-                              {f.required && <Field.RequiredIndicator />}
-                            </Field.Label>
-                            <NativeSelect.Root size="sm" disabled={preview.isPending}>
-                              <NativeSelect.Field value={data.mapping[f.key] ?? ''} onChange={(e) => remap(f.key, e.target.value)}>
-                                <option value="">Not in the file</option>
-                                {data.columns.map((column) => (
-                                  <option key={column} value={column}>
-                                    {column}
-                                  </option>
-                                ))}
-                              </NativeSelect.Field>
-                              <NativeSelect.Indicator />
-                            </NativeSelect.Root>
-                          </Field.Root>
+      }
+      title={`Upload ${sectionName}`}
+      footer={
+        <>
+          <DialogCancel />
+          <Button
+            onClick={() => void importRows()}
+            disabled={!data || data.errors.length > 0 || preview.isPending}
+            loading={apply.isPending}
+          >
+            Import {count > 0 ? `${count} row${count === 1 ? '' : 's'}` : ''}
+          </Button>
+        </>
+      }
+    >
+      <Stack gap="5">
+        <Text fontSize="sm" color="fg.muted">
+          A CSV file (separated by commas, semicolons or tabs) or an Excel workbook (.xlsx, first sheet), with a first row naming the
+          columns. Meritline reads the file and shows what it found before anything changes. Importing replaces the {sectionName} of this
+          study.
+        </Text>
+        <Field.Root>
+          <Field.Label>File</Field.Label>
+          <input
+            type="file"
+            accept=".csv,.txt,.tsv,.xlsx,text/csv,application/vnd.openxmlformats-officedocument.spreadsheetml.sheet"
+            aria-label="File to upload"
+            onChange={(e) => choose(e.target.files?.[0])}
+          />
+        </Field.Root>
+        {preview.isPending && (
+          <HStack gap="2" role="status">
+            <Spinner size="sm" />
+            <Text>Reading the file…</Text>
+          </HStack>
+        )}
+        {previewError && (
+          <Alert.Root status="error">
+            <Alert.Indicator />
+            <Alert.Content>
+              <Alert.Title>{previewError.body.message}</Alert.Title>
+              {previewError.body.errors?.map((e, i) => (
+                <Alert.Description key={i}>{e.message}</Alert.Description>
+              ))}
+            </Alert.Content>
+          </Alert.Root>
+        )}
+        {data && (
+          <Stack gap="4">
+            <Stack gap="2">
+              <Text fontWeight="600">Columns</Text>
+              <Text fontSize="sm" color="fg.muted">
+                Which column of the file holds what. Meritline guessed from the column names; change any that is wrong.
+              </Text>
+              <SimpleGrid columns={{ base: 1, md: 3 }} gap="3">
+                {fields.map((f) => (
+                  <Field.Root key={f.key} required={f.required}>
+                    <Field.Label>
+                      {f.label}
+                      {f.required && <Field.RequiredIndicator />}
+                    </Field.Label>
+                    <NativeSelect.Root size="sm" disabled={preview.isPending}>
+                      <NativeSelect.Field value={data.mapping[f.key] ?? ''} onChange={(e) => remap(f.key, e.target.value)}>
+                        <option value="">Not in the file</option>
+                        {data.columns.map((column) => (
+                          <option key={column} value={column}>
+                            {column}
+                          </option>
                         ))}
-                      </SimpleGrid>
-                    </Stack>
-                    {data.errors.length > 0 ? (
-                      <Alert.Root status="error">
-                        <Alert.Indicator />
-                        <Alert.Content>
-                          <Alert.Title>
-                            The file cannot be imported as it is ({data.errors.length} problem{data.errors.length === 1 ? '' : 's'}).
-                            Correct the mapping above or the file.
-                          </Alert.Title>
-                          <List.Root as="ul" ps="4" fontSize="sm">
-                            {data.errors.map((e, i) => (
-                              <List.Item key={i}>{e.message}</List.Item>
+                      </NativeSelect.Field>
+                      <NativeSelect.Indicator />
+                    </NativeSelect.Root>
+                  </Field.Root>
+                ))}
+              </SimpleGrid>
+            </Stack>
+            {data.errors.length > 0 ? (
+              <Alert.Root status="error">
+                <Alert.Indicator />
+                <Alert.Content>
+                  <Alert.Title>
+                    The file cannot be imported as it is ({data.errors.length} problem{data.errors.length === 1 ? '' : 's'}). Correct the
+                    mapping above or the file.
+                  </Alert.Title>
+                  <List.Root as="ul" ps="4" fontSize="sm">
+                    {data.errors.map((e, i) => (
+                      <List.Item key={i}>{e.message}</List.Item>
+                    ))}
+                  </List.Root>
+                </Alert.Content>
+              </Alert.Root>
+            ) : (
+              table && (
+                <Stack gap="2">
+                  <Text fontWeight="600">
+                    {count} row{count === 1 ? '' : 's'} read{table.body.length > 10 ? '; the first 10:' : ':'}
+                  </Text>
+                  <Table.ScrollArea position="relative" borderWidth="1px" borderColor="border" borderRadius="l2">
+                    <Table.Root size="sm" aria-label="Rows found in the file">
+                      <Table.Header>
+                        <Table.Row>
+                          {table.headers.map((h) => (
+                            <Table.ColumnHeader key={h}>{h}</Table.ColumnHeader>
+                          ))}
+                        </Table.Row>
+                      </Table.Header>
+                      <Table.Body>
+                        {table.body.slice(0, 10).map((row, i) => (
+                          <Table.Row key={i}>
+                            {row.map((cell, j) => (
+                              <Table.Cell key={j}>{cell}</Table.Cell>
                             ))}
-                          </List.Root>
-                        </Alert.Content>
-                      </Alert.Root>
-                    ) : (
-                      table && (
-                        <Stack gap="2">
-                          <Text fontWeight="600">
-                            {count} row{count === 1 ? '' : 's'} read{table.body.length > 10 ? '; the first 10:' : ':'}
-                          </Text>
-                          <Table.ScrollArea position="relative" borderWidth="1px" borderColor="border" borderRadius="l2">
-                            <Table.Root size="sm" aria-label="Rows found in the file">
-                              <Table.Header>
-                                <Table.Row>
-                                  {table.headers.map((h) => (
-                                    <Table.ColumnHeader key={h}>{h}</Table.ColumnHeader>
-                                  ))}
-                                </Table.Row>
-                              </Table.Header>
-                              <Table.Body>
-                                {table.body.slice(0, 10).map((row, i) => (
-                                  <Table.Row key={i}>
-                                    {row.map((cell, j) => (
-                                      <Table.Cell key={j}>{cell}</Table.Cell>
-                                    ))}
-                                  </Table.Row>
-                                ))}
-                              </Table.Body>
-                            </Table.Root>
-                          </Table.ScrollArea>
-                        </Stack>
-                      )
-                    )}
-                  </Stack>
-                )}
-                {applyError && (
-                  <Alert.Root status="error">
-                    <Alert.Indicator />
-                    <Alert.Description>{applyError}</Alert.Description>
-                  </Alert.Root>
-                )}
-              </Stack>
-            </Dialog.Body>
-            <Dialog.Footer>
-              <Dialog.ActionTrigger asChild>
-                <Button variant="outline">Cancel</Button>
-              </Dialog.ActionTrigger>
-              <Button
-                onClick={() => void importRows()}
-                disabled={!data || data.errors.length > 0 || preview.isPending}
-                loading={apply.isPending}
-              >
-                Import {count > 0 ? `${count} row${count === 1 ? '' : 's'}` : ''}
-              </Button>
-            </Dialog.Footer>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+                          </Table.Row>
+                        ))}
+                      </Table.Body>
+                    </Table.Root>
+                  </Table.ScrollArea>
+                </Stack>
+              )
+            )}
+          </Stack>
+        )}
+        {applyError && (
+          <Alert.Root status="error">
+            <Alert.Indicator />
+            <Alert.Description>{applyError}</Alert.Description>
+          </Alert.Root>
+        )}
+      </Stack>
+    </DialogShell>
   );
 }

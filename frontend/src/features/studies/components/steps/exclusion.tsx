@@ -1,5 +1,8 @@
-import { Button, CloseButton, Dialog, Field, Portal, Text, Textarea } from '@chakra-ui/react';
-import { useRef, useState } from 'react';
+import { Button } from '@chakra-ui/react';
+import { useState } from 'react';
+import * as yup from 'yup';
+import { FormDialog } from '@/components/form-dialog';
+import { TextareaField } from '@/components/form/textarea-field';
 import { toaster } from '@/components/ui/toaster';
 import type { StudyDraftController } from '../../hooks/use-study-draft';
 import type { GridRow } from '../../utils/grid-sections';
@@ -54,9 +57,6 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
   const words = WORDS[section];
   const describe = words.describe;
   const [target, setTarget] = useState<GridRow | null>(null);
-  const [reason, setReason] = useState('');
-  const [touched, setTouched] = useState(false);
-  const reasonInput = useRef<HTMLTextAreaElement>(null);
   const rows = controller.draft.data.sheets[section];
 
   const setExcluded = (rowId: string, excluded: { reason: string } | undefined) =>
@@ -82,58 +82,32 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
       });
       return;
     }
-    setReason('');
-    setTouched(false);
     setTarget(row);
   };
 
-  const trimmed = reason.trim();
-  const invalid = trimmed.length < 3;
-  const confirm = () => {
-    setTouched(true);
-    if (!target || invalid) return;
-    setExcluded(target.id, { reason: trimmed });
-    setTarget(null);
-  };
+  const reasonSchema = yup.object({
+    reason: yup
+      .string()
+      .trim()
+      .required(`Say why the ${words.noun} is excluded (at least 3 characters).`)
+      .min(3, `Say why the ${words.noun} is excluded (at least 3 characters).`),
+  });
 
   const dialog = (
-    <Dialog.Root open={target !== null} onOpenChange={(e) => !e.open && setTarget(null)} initialFocusEl={() => reasonInput.current}>
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>
-                Exclude the {words.noun} {target ? describe(target) : ''}?
-              </Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body>
-              <Text mb="4" color="fg.muted">
-                {words.consequence} Exclude only for an assignable cause, such as a bubble in the cell, a spilt vial or a failed injection;
-                the reason goes on record and can be read by the reviewer.
-              </Text>
-              <Field.Root invalid={touched && invalid} required>
-                <Field.Label>
-                  Reason
-                  <Field.RequiredIndicator />
-                </Field.Label>
-                <Textarea ref={reasonInput} value={reason} onChange={(e) => setReason(e.target.value)} rows={2} />
-                {touched && invalid && <Field.ErrorText>Say why the {words.noun} is excluded (at least 3 characters).</Field.ErrorText>}
-              </Field.Root>
-            </Dialog.Body>
-            <Dialog.Footer>
-              <Button variant="outline" onClick={() => setTarget(null)}>
-                Cancel
-              </Button>
-              <Button onClick={confirm}>Exclude the {words.noun}</Button>
-            </Dialog.Footer>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+    <FormDialog
+      open={target !== null}
+      onOpenChange={(open) => !open && setTarget(null)}
+      title={`Exclude the ${words.noun} ${target ? describe(target) : ''}?`}
+      description={`${words.consequence} Exclude only for an assignable cause, such as a bubble in the cell, a spilt vial or a failed injection; the reason goes on record and can be read by the reviewer.`}
+      initialValues={{ reason: '' }}
+      validationSchema={reasonSchema}
+      onSubmit={({ reason }) => {
+        if (target) setExcluded(target.id, { reason });
+      }}
+      submitLabel={`Exclude the ${words.noun}`}
+    >
+      <TextareaField name="reason" label="Reason" required rows={2} />
+    </FormDialog>
   );
 
   const rowActions = (row: GridRow) => (

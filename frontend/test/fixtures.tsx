@@ -1,0 +1,38 @@
+import { SignDialog } from '@/features/reviews/components/sign-dialog';
+import { MEANINGS } from '@/features/reviews/components/signature-meanings';
+
+// Invented records of the demo laboratory, shared by the component tests.
+
+export const nitrateMethod = {
+  id: 'm-1',
+  name: 'Nitrate in drinking water by ion chromatography',
+  analyte: 'Nitrate',
+  matrix: 'Drinking water',
+  technique: 'IC',
+  xUnit: 'mg/L',
+  yUnit: 'µS·min',
+};
+
+export const activeVersion = {
+  id: 'mv-2',
+  number: 2,
+  status: 'active',
+  criteria: [],
+  settings: { requiresQualityRelease: false, checkTolerancePct: 10, onePointMaxInterceptPct: 5 },
+};
+
+/** The reviewer's approval dialog of a study, as the study page shows it. */
+export function ApproveDialog({ studyId, lockVersion }: { studyId: string; lockVersion: number }) {
+  return (
+    <SignDialog
+      studyId={studyId}
+      lockVersion={lockVersion}
+      action="approve"
+      meaning={MEANINGS.reviewed}
+      title="Approve the study"
+      triggerLabel="Approve"
+      submitLabel="Sign and approve"
+      successTitle="Approved"
+    />
+  );
+}
