@@ -2,6 +2,7 @@ import { Body, Controller, HttpCode, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags, ApiUnprocessableEntityResponse } from '@nestjs/swagger';
 import type { EvaluationResult } from '@meritline/shared';
 import { Throttle } from '@nestjs/throttler';
+import { unprocessable } from '../common/validation.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 
 /** The engine as a service: the same result as the command line gives for the same study. */
@@ -21,7 +22,13 @@ export class EvaluateController {
   @ApiUnprocessableEntityResponse({
     description: '{ statusCode, message, errors: [{ field, code, message }] } for a study the engine cannot evaluate.',
   })
-  evaluate(@Body() study: Record<string, unknown>): Promise<EvaluationResult> {
-    return this.workers.engine(study);
+  evaluate(@Body() study: unknown): Promise<EvaluationResult> {
+    // No DTO stands in front of the engine: a body that is not a JSON object (or not JSON at all) stops here.
+    if (study === null || typeof study !== 'object' || Array.isArray(study)) {
+      throw unprocessable([
+        { field: 'body', code: 'notAnObject', message: 'Send the study as a JSON object (Content-Type: application/json).' },
+      ]);
+    }
+    return this.workers.engine(study as Record<string, unknown>);
   }
 }
