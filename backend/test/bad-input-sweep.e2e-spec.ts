@@ -1,6 +1,7 @@
 import { readFileSync } from 'node:fs';
 import fc from 'fast-check';
 import { DataSource, MoreThan } from 'typeorm';
+import type { Test } from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { METHOD_CHANGE_KINDS, MIN_JUSTIFICATION_LENGTH, Role } from '@meritline/shared';
 import { AuditEntry } from '../src/audit/audit-entry.entity.js';
@@ -246,6 +247,15 @@ function parentOf(root: Json, path: Path): Record<string | number, Json> {
 }
 const valueAt = (root: Json, path: Path): Json => path.reduce<Json>((node, key) => (node as Record<string | number, Json>)[key], root);
 const isObject = (value: Json): value is { [key: string]: Json } => value !== null && typeof value === 'object' && !Array.isArray(value);
+/** A value of another JSON type than the one given. */
+function otherType(value: Json): Json {
+  if (typeof value === 'string') return 12_345;
+  if (typeof value === 'number') return String(value);
+  if (typeof value === 'boolean') return 'true';
+  if (Array.isArray(value)) return { 0: value[0] ?? null };
+  if (value === null) return 0;
+  return 'an object was expected';
+}
 const LOCK_FIELDS = ['lockVersion', 'version', 'methodVersionLockVersion'];
 
 function applyMutations(base: Record<string, Json>, mutations: Mutation[]): Json {
@@ -822,72 +832,99 @@ describe('bad-input sweep over every write route', () => {
           query: badQuery,
         });
 
+        const others = IDENTITIES.filter((identity) => !allowed(spec, identity));
+        let turn = 0;
+        /** Every admitted identity, and in turn each of the others: all of them over a handful of cases. */
+        const identitiesOfCase = () => [
+          ...IDENTITIES.filter((identity) => allowed(spec, identity)),
+          ...(others.length ? [others[turn++ % others.length]] : []),
+        ];
+
+        const send = async (identity: Identity, url: string, prepare: (req: Test) => Test, sent: string) => {
+          // Signing out as a real user would end the session the rest of the sweep signs in with.
+          if (spec.path === '/api/auth/logout' && identity !== 'anonymous' && identity !== 'forged') return;
+          let req = t.http()[spec.method](url);
+          if (tokens[identity]) req = req.set('Authorization', `Bearer ${tokens[identity]}`);
+          req = prepare(req);
+          const before = await fingerprint();
+          const res = await req;
+          stats.requests++;
+          statusCounts.set(res.status, (statusCounts.get(res.status) ?? 0) + 1);
+          const what = `${name} as ${identity} → ${res.status}; ${url.slice(0, 200)} ${sent}`;
+          if (res.status >= 500) stats.serverErrors++;
+          expect(res.status, `${what}\n${res.text.slice(0, 500)}`).toBeLessThan(500);
+          if (res.status < 400) {
+            stats.accepted++;
+            if (!allowed(spec, identity)) expect.fail(`${what}: accepted from an identity the route does not admit`);
+            await settle();
+            return;
+          }
+          stats.refusals++;
+          // The body is parsed before anyone is identified, so an unreadable body may be refused first.
+          if (!allowed(spec, identity) && ![400, 413, 415, 422, 429].includes(res.status)) {
+            expect(res.status, what).toBe(identity === 'anonymous' || identity === 'forged' ? 401 : 403);
+          }
+          expectRefusalBody(res, what);
+          await expectUnchanged(before, res.status, what);
+        };
+        const sendJson = (identity: Identity, url: string, body: Json, rawPlan: Raw | null) => {
+          const { text, contentType } = encode(body, rawPlan);
+          const sent = text.length > 400 ? `${text.slice(0, 200)}…(${text.length} chars)…${text.slice(-100)}` : text;
+          return send(identity, url, (req) => req.set('Content-Type', contentType).send(text), sent);
+        };
+
+        // First each field of a well-formed body in turn: null, then a value of another type.
+        if (spec.body) {
+          const identity = IDENTITIES.find((candidate) => allowed(spec, candidate) && candidate !== 'forged') ?? 'anonymous';
+          for (const params of realParams.slice(0, 1)) {
+            const base = await spec.body({ params, password: 'not-the-password' });
+            for (const path of pathsOf(base)) {
+              const current = valueAt(base, path);
+              for (const value of [null, otherType(current)]) {
+                const body = structuredClone(base) as Json;
+                parentOf(body, path)[path[path.length - 1]] = value;
+                await sendJson(identity, fill(spec.path, params), body, null);
+              }
+            }
+          }
+        }
+
         const outcome = await fc.check(
           fc.asyncProperty(cases, async (c) => {
-            for (const identity of IDENTITIES) {
+            for (const identity of identitiesOfCase()) {
               const url = fill(spec.path, c.params) + (c.query ?? '');
-              let req = t.http()[spec.method](url);
-              if (tokens[identity]) req = req.set('Authorization', `Bearer ${tokens[identity]}`);
-              // Signing out as a real user would end the session the rest of the sweep signs in with.
-              if (spec.path === '/api/auth/logout' && tokens[identity] && identity !== 'forged') continue;
               const input = { params: c.params, password: c.password };
-              let sent: string;
-              if (spec.multipart) {
-                const base = await spec.multipart(input);
-                const fields = { ...base.fields } as Record<string, string>;
-                const keys = Object.keys(fields);
-                for (const pick of c.multipart.drop) if (keys.length) delete fields[keys[pick % keys.length]];
-                for (const [key, value] of c.multipart.fields) fields[key] = typeof value === 'string' ? value : JSON.stringify(value);
-                if (c.multipart.stale && fields.lockVersion) fields.lockVersion = String(Number(fields.lockVersion) - 1);
-                const file = base.file;
-                sent = `multipart ${JSON.stringify(fields).slice(0, 300)} file=${c.multipart.file}`;
-                if (c.multipart.file === 'json-instead') req = req.send(fields);
-                else if (c.multipart.file === 'broken')
-                  req = req
-                    .set('Content-Type', 'multipart/form-data; boundary=sweep')
-                    .send('--sweep\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\n\r\nx,y\r\n1,');
-                else {
-                  for (const [key, value] of Object.entries(fields)) req = req.field(key, value);
-                  if (file && c.multipart.file !== 'none') {
-                    const content =
-                      c.multipart.file === 'empty'
-                        ? Buffer.alloc(0)
-                        : c.multipart.file === 'random'
-                          ? Buffer.from(c.multipart.random)
-                          : file.content;
-                    const field = c.multipart.file === 'wrong-field' ? 'attachment' : file.field;
-                    const filename = c.multipart.file === 'odd-name' ? `../../${'é'.repeat(300)}\ud800.csv` : file.name;
-                    req = req.attach(field, content, filename);
-                    if (c.multipart.file === 'two') req = req.attach(field, content, file.name);
-                  }
-                }
-              } else {
+              if (!spec.multipart) {
                 const base = spec.body ? await spec.body(input) : {};
-                const body = applyMutations(base, c.plan.mutations);
-                const { text, contentType } = encode(body, c.plan.raw);
-                sent = text.length > 400 ? `${text.slice(0, 200)}…(${text.length} chars)…${text.slice(-100)}` : text;
-                req = req.set('Content-Type', contentType).send(text);
-              }
-              const before = await fingerprint();
-              const res = await req;
-              stats.requests++;
-              statusCounts.set(res.status, (statusCounts.get(res.status) ?? 0) + 1);
-              const what = `${name} as ${identity} → ${res.status}; ${url.slice(0, 200)} ${sent}`;
-              if (res.status >= 500) stats.serverErrors++;
-              expect(res.status, `${what}\n${res.text.slice(0, 500)}`).toBeLessThan(500);
-              if (res.status < 400) {
-                stats.accepted++;
-                if (!allowed(spec, identity)) expect.fail(`${what}: accepted from an identity the route does not admit`);
-                await settle();
+                await sendJson(identity, url, applyMutations(base, c.plan.mutations), c.plan.raw);
                 continue;
               }
-              stats.refusals++;
-              // The body is parsed before anyone is identified, so an unreadable body may be refused first.
-              if (!allowed(spec, identity) && ![400, 413, 415, 422, 429].includes(res.status)) {
-                expect(res.status, what).toBe(identity === 'anonymous' || identity === 'forged' ? 401 : 403);
-              }
-              expectRefusalBody(res, what);
-              await expectUnchanged(before, res.status, what);
+              const base = await spec.multipart(input);
+              const fields = { ...base.fields } as Record<string, string>;
+              const keys = Object.keys(fields);
+              for (const pick of c.multipart.drop) if (keys.length) delete fields[keys[pick % keys.length]];
+              for (const [key, value] of c.multipart.fields) fields[key] = typeof value === 'string' ? value : JSON.stringify(value);
+              if (c.multipart.stale && fields.lockVersion) fields.lockVersion = String(Number(fields.lockVersion) - 1);
+              const file = base.file;
+              const how = c.multipart.file;
+              await send(
+                identity,
+                url,
+                (req) => {
+                  if (how === 'json-instead') return req.send(fields);
+                  if (how === 'broken')
+                    return req
+                      .set('Content-Type', 'multipart/form-data; boundary=sweep')
+                      .send('--sweep\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\n\r\nx,y\r\n1,');
+                  for (const [key, value] of Object.entries(fields)) req = req.field(key, value);
+                  if (!file || how === 'none') return req;
+                  const content = how === 'empty' ? Buffer.alloc(0) : how === 'random' ? Buffer.from(c.multipart.random) : file.content;
+                  const field = how === 'wrong-field' ? 'attachment' : file.field;
+                  req = req.attach(field, content, how === 'odd-name' ? `../../${'é'.repeat(300)}\ud800.csv` : file.name);
+                  return how === 'two' ? req.attach(field, content, file.name) : req;
+                },
+                `multipart ${JSON.stringify(fields).slice(0, 300)} file=${how}`,
+              );
             }
           }),
           { seed: SEED, numRuns: spec.runs ?? RUNS, endOnFailure: true },

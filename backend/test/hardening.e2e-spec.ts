@@ -213,6 +213,14 @@ describe('null for optional fields', () => {
     expect(after.find((u) => u.id === other.id)!.name).toBe(other.name);
   });
 
+  it('should name a field whose key is empty when refusing it as unknown', async () => {
+    const admin = bearer(await t.tokenFor(DEMO.admin));
+    const res = await t.http().put('/api/settings/session').set(admin).send({ idleMinutes: 30, '': 1 }).expect(422);
+    expect(res.body.errors).toEqual([
+      { field: '""', code: 'whitelistValidation', message: '"" is not a field of this request; leave it out.' },
+    ]);
+  });
+
   it('should refuse an unpaired surrogate in an invitation e-mail with 422', async () => {
     const admin = await t.tokenFor(DEMO.admin);
     const res = await t
