@@ -144,7 +144,7 @@ type Mutation =
   | { kind: 'extra'; pick: number; key: string; value: Json }
   | { kind: 'stale'; delta: number }
   | { kind: 'replace'; value: Json };
-type Raw = { kind: 'literal'; pick: number; text: string } | { kind: 'text'; text: string; contentType: string };
+type Raw = { kind: 'literal'; pick: number; text: string } | { kind: 'text'; text: string; contentType: string; encoding: string | null };
 
 const mutation: fc.Arbitrary<Mutation> = fc.oneof(
   fc.record({ kind: fc.constant('drop' as const), pick: fc.nat() }),
@@ -184,7 +184,10 @@ const raw: fc.Arbitrary<Raw> = fc.oneof(
         'application/json; charset=latin1',
         'text/plain',
         'application/x-www-form-urlencoded',
+        'application/json; charset=utf-16',
       ),
+      // Declared compressed but sent plain (or in an encoding nobody reads).
+      encoding: fc.constantFrom(null, null, 'gzip', 'deflate', 'br', 'x-unknown'),
     }),
   },
 );
@@ -293,9 +296,9 @@ function applyMutations(base: Record<string, Json>, mutations: Mutation[]): Json
 }
 
 /** The body as text, with a literal JSON.stringify cannot produce put at one place (or instead of it all). */
-function encode(body: Json, rawPlan: Raw | null): { text: string; contentType: string } {
+function encode(body: Json, rawPlan: Raw | null): { text: string; contentType: string; encoding?: string | null } {
   if (!rawPlan) return { text: JSON.stringify(body), contentType: 'application/json' };
-  if (rawPlan.kind === 'text') return { text: rawPlan.text, contentType: rawPlan.contentType };
+  if (rawPlan.kind === 'text') return { text: rawPlan.text, contentType: rawPlan.contentType, encoding: rawPlan.encoding };
   const marker = '\u0001raw\u0001';
   let target: Json;
   const paths = pathsOf(body);
@@ -821,6 +824,7 @@ describe('bad-input sweep over every write route', () => {
           ),
           drop: fc.array(fc.nat(), { maxLength: 2 }),
           stale: fc.boolean(),
+          twice: fc.boolean(),
           file: fc.constantFrom('keep', 'none', 'empty', 'random', 'wrong-field', 'two', 'odd-name', 'json-instead', 'broken'),
           random: fc.uint8Array({ maxLength: 256 }),
         });
@@ -868,9 +872,14 @@ describe('bad-input sweep over every write route', () => {
           await expectUnchanged(before, res.status, what);
         };
         const sendJson = (identity: Identity, url: string, body: Json, rawPlan: Raw | null) => {
-          const { text, contentType } = encode(body, rawPlan);
+          const { text, contentType, encoding } = encode(body, rawPlan);
           const sent = text.length > 400 ? `${text.slice(0, 200)}…(${text.length} chars)…${text.slice(-100)}` : text;
-          return send(identity, url, (req) => req.set('Content-Type', contentType).send(text), sent);
+          return send(
+            identity,
+            url,
+            (req) => (encoding ? req.set('Content-Encoding', encoding) : req).set('Content-Type', contentType).send(text),
+            encoding ? `${sent} (Content-Encoding: ${encoding})` : sent,
+          );
         };
 
         // First each field of a well-formed body in turn: null, then a value of another type.
@@ -917,6 +926,8 @@ describe('bad-input sweep over every write route', () => {
                       .set('Content-Type', 'multipart/form-data; boundary=sweep')
                       .send('--sweep\r\nContent-Disposition: form-data; name="file"; filename="a.csv"\r\n\r\nx,y\r\n1,');
                   for (const [key, value] of Object.entries(fields)) req = req.field(key, value);
+                  // A field sent twice arrives as a list.
+                  if (c.multipart.twice) for (const [key, value] of Object.entries(fields).slice(0, 1)) req = req.field(key, value);
                   if (!file || how === 'none') return req;
                   const content = how === 'empty' ? Buffer.alloc(0) : how === 'random' ? Buffer.from(c.multipart.random) : file.content;
                   const field = how === 'wrong-field' ? 'attachment' : file.field;
