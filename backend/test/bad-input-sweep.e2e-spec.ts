@@ -25,7 +25,7 @@ import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test
  * SWEEP_SEED replays a run, SWEEP_ROUTE="PATCH /api/studies/:id" narrows it to one route, SWEEP_RUNS sets the cases per route.
  */
 const SEED = Number(process.env.SWEEP_SEED ?? 20_261_205);
-const RUNS = Number(process.env.SWEEP_RUNS ?? 10);
+const RUNS = Number(process.env.SWEEP_RUNS ?? 8);
 const ONLY = process.env.SWEEP_ROUTE;
 
 /** Wrong passwords at sign-in and at signing are recorded on purpose: the trail shows attempts, not only changes. */
