@@ -4,7 +4,7 @@ import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import helmet from 'helmet';
 import { loadAppConfig } from './config/app.config.js';
-import { jsonBodyGuard } from './common/json-body-guard.js';
+import { bodyParserErrors, jsonBodyGuard } from './common/json-body-guard.js';
 import { validationPipe } from './common/validation.js';
 
 export const JSON_BODY_LIMIT = '5mb';
@@ -46,6 +46,7 @@ export function configureApp(app: NestExpressApplication) {
   app.setGlobalPrefix('api');
   app.useGlobalPipes(validationPipe);
   app.useBodyParser('json', { limit: JSON_BODY_LIMIT });
+  app.use(bodyParserErrors);
   app.use(jsonBodyGuard);
   app.set('trust proxy', 'loopback');
   app.disable('x-powered-by');

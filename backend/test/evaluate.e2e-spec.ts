@@ -36,6 +36,19 @@ describe('POST /api/evaluate', () => {
   });
   afterAll(() => t.close());
 
+  it('should answer 422 naming the body, not 500, when the body is not a JSON object', async () => {
+    const token = await t.tokenFor(DEMO.analyst);
+    for (const [contentType, body] of [
+      ['text/plain', '{a:1}'],
+      ['application/x-www-form-urlencoded', 'standards=1'],
+      ['application/json', '[{"x":1,"y":2}]'],
+    ]) {
+      const res = await t.http().post('/api/evaluate').set('Authorization', `Bearer ${token}`).set('Content-Type', contentType).send(body);
+      expect(res.status, contentType).toBe(422);
+      expect(res.body.errors[0]).toMatchObject({ field: 'body', code: 'notAnObject' });
+    }
+  });
+
   it('should refuse anonymous callers', async () => {
     await t.http().post('/api/evaluate').send({ standards: [] }).expect(401);
   });

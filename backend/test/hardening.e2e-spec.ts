@@ -32,6 +32,30 @@ describe('hardening against hostile input', () => {
     expect(res.body.errors[0].field).toBe('data.rows[1].b');
   });
 
+  it('should say in words why an unreadable body or a missing session is refused, in the one error body', async () => {
+    const token = await t.tokenFor(DEMO.analyst);
+    const post = () => t.http().post('/api/evaluate').set('Authorization', `Bearer ${token}`);
+    const malformed = await post().set('Content-Type', 'application/json').send('{"a":').expect(400);
+    expect(malformed.body.message).toMatch(/^The request body is not valid JSON: /);
+    const compressed = await post().set('Content-Type', 'application/json').set('Content-Encoding', 'gzip').send('{"a":1}').expect(400);
+    expect(compressed.body).toMatchObject({
+      statusCode: 400,
+      message: expect.stringMatching(/cannot be decompressed as its Content-Encoding/),
+    });
+    const latin1 = await post().set('Content-Type', 'application/json; charset=latin1').send('{"a":1}').expect(415);
+    expect(latin1.body.message).toMatch(/UTF-8/);
+    const large = await post()
+      .set('Content-Type', 'application/json')
+      .send(`{"a":"${'x'.repeat(5_300_000)}"}`)
+      .expect(413);
+    expect(large.body.message).toBe('The request body is larger than the 5 MB allowed.');
+    for (const authorization of [undefined, 'Bearer not-a-token']) {
+      const req = t.http().post('/api/evaluate');
+      const res = await (authorization ? req.set('Authorization', authorization) : req).send({}).expect(401);
+      expect(res.body).toEqual({ statusCode: 401, message: 'Sign in first: the request carries no valid session token.' });
+    }
+  });
+
   it('should keep a properly paired surrogate (an emoji) and accept it', async () => {
     const res = await raw('/api/auth/login', JSON.stringify({ email: 'nobody😀@meritline.test', password: 'x' }));
     expect(res.status).toBe(401);
@@ -211,6 +235,14 @@ describe('null for optional fields', () => {
     }
     const after = (await t.http().get('/api/users').set(admin).expect(200)).body as { id: string; name: string }[];
     expect(after.find((u) => u.id === other.id)!.name).toBe(other.name);
+  });
+
+  it('should name a field whose key is empty when refusing it as unknown', async () => {
+    const admin = bearer(await t.tokenFor(DEMO.admin));
+    const res = await t.http().put('/api/settings/session').set(admin).send({ idleMinutes: 30, '': 1 }).expect(422);
+    expect(res.body.errors).toEqual([
+      { field: '""', code: 'whitelistValidation', message: '"" is not a field of this request; leave it out.' },
+    ]);
   });
 
   it('should refuse an unpaired surrogate in an invitation e-mail with 422', async () => {

@@ -195,6 +195,19 @@ describe('standard preparations', () => {
       });
       expect((await preview(fromMaterial(materials.Lead.id)).expect(422)).body.errors[0]).toMatchObject({ code: 'not_purity' });
     });
+
+    it('should answer 422 naming the field for null in place of an optional source or stock value, never 500', async () => {
+      const nulls: [Record<string, unknown>, string][] = [
+        [{ ...fromMaterial(materials.Cadmium.id), source: { materialId: null } }, 'source.materialId'],
+        [{ ...fromMaterial(materials.Cadmium.id), source: { purity: null, uPurity: 0.0001 } }, 'source.purity'],
+        [{ ...fromMaterial(materials.Cadmium.id), stock: { ...fromMaterial(materials.Cadmium.id).stock, uMass: null } }, 'stock.uMass'],
+      ];
+      for (const [body, field] of nulls) {
+        const res = await preview(body);
+        expect(res.status, field).toBe(422);
+        expect(res.body.errors[0].field).toBe(field);
+      }
+    });
   });
 
   describe('POST /api/preparations, GET /api/preparations[/:id]', () => {

@@ -69,3 +69,26 @@ export function jsonBodyGuard(req: Request, res: Response, next: NextFunction): 
   req.body = value;
   next();
 }
+
+type BodyError = Error & { status?: number; type?: string; code?: string; charset?: string; limit?: number };
+
+/** The body parser's refusals in words a caller can act on. */
+export function bodyErrorMessage(error: BodyError): string {
+  if (error.type === 'entity.parse.failed') return `The request body is not valid JSON: ${error.message}`;
+  if (error.type === 'charset.unsupported') return `Send the body as UTF-8 JSON; the charset "${error.charset ?? ''}" is not read.`;
+  if (error.type === 'entity.too.large')
+    return `The request body is larger than the ${Math.round((error.limit ?? 0) / 1_048_576)} MB allowed.`;
+  // zlib's own words ("incorrect header check") do not say that the body is not what its Content-Encoding declares.
+  if (error.code?.startsWith('Z_')) return `The request body cannot be decompressed as its Content-Encoding declares (${error.message}).`;
+  return error.message;
+}
+
+/**
+ * Refusals of the body parser, in the one error body. They happen before any route is chosen, where the
+ * app's exception filter is not reached (Nest would answer with the parser's bare words).
+ */
+export function bodyParserErrors(error: BodyError, _req: Request, res: Response, next: NextFunction): void {
+  const status = error?.status;
+  if (typeof status !== 'number' || status < 400 || status >= 500) return next(error);
+  res.status(status).json({ statusCode: status, message: bodyErrorMessage(error) });
+}

@@ -4,6 +4,7 @@ import type { EvaluationResult } from '@meritline/shared';
 import { Throttle } from '@nestjs/throttler';
 import { ApiInvalid, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { EvaluationResultDto } from './dto/evaluation-result.dto.js';
+import { unprocessable } from '../common/validation.js';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 
 /** The engine as a service: the same result as the command line gives for the same study. */
@@ -21,7 +22,13 @@ export class EvaluateController {
   })
   @ApiOkResponse({ type: EvaluationResultDto, description: 'The engine’s result.' })
   @ApiInvalid('A study the engine cannot evaluate: one entry per field.')
-  evaluate(@Body() study: Record<string, unknown>): Promise<EvaluationResult> {
-    return this.workers.engine(study);
+  evaluate(@Body() study: unknown): Promise<EvaluationResult> {
+    // No DTO stands in front of the engine: a body that is not a JSON object (or not JSON at all) stops here.
+    if (study === null || typeof study !== 'object' || Array.isArray(study)) {
+      throw unprocessable([
+        { field: 'body', code: 'notAnObject', message: 'Send the study as a JSON object (Content-Type: application/json).' },
+      ]);
+    }
+    return this.workers.engine(study as Record<string, unknown>);
   }
 }

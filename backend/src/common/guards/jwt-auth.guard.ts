@@ -1,4 +1,4 @@
-import { Injectable, type ExecutionContext } from '@nestjs/common';
+import { Injectable, UnauthorizedException, type ExecutionContext } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
 import { IS_PUBLIC_KEY } from '../decorators/public.decorator.js';
@@ -12,5 +12,12 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
   canActivate(context: ExecutionContext) {
     const isPublic = this.reflector.getAllAndOverride<boolean>(IS_PUBLIC_KEY, [context.getHandler(), context.getClass()]);
     return isPublic ? true : super.canActivate(context);
+  }
+
+  /** Passport's bare "Unauthorized" for a missing, malformed or forged token says nothing a caller can act on. */
+  handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
+    if (error) throw error;
+    if (!user) throw new UnauthorizedException('Sign in first: the request carries no valid session token.');
+    return user;
   }
 }

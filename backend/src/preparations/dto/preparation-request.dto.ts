@@ -1,7 +1,7 @@
 import { applyDecorators } from '@nestjs/common';
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { ArrayMaxSize, IsArray, IsIn, IsNumber, IsObject, IsOptional, IsUUID, Max, Min, ValidateNested } from 'class-validator';
+import { ArrayMaxSize, IsArray, IsIn, IsNumber, IsObject, IsUUID, Max, Min, ValidateNested } from 'class-validator';
 import {
   MASS_UNITS,
   MAX_DILUTION_STEPS,
@@ -11,6 +11,7 @@ import {
   type PreparationStock,
   type ToleranceDistribution,
 } from '@meritline/shared';
+import { IfPresent } from '../../common/validation.js';
 import { RequiredText } from '../../methods/dto/text.decorators.js';
 
 const FINITE = { allowNaN: false, allowInfinity: false };
@@ -21,12 +22,12 @@ const Quantity = (max = 1e9) =>
     Min(-max, { message: `Enter a number between ${-max} and ${max}.` }),
     Max(max, { message: `Enter a number between ${-max} and ${max}.` }),
   );
-const OptionalQuantity = (max = 1e9) => applyDecorators(IsOptional(), Quantity(max));
+const OptionalQuantity = (max = 1e9) => applyDecorators(IfPresent(), Quantity(max));
 const Distribution = () => IsIn(TOLERANCE_DISTRIBUTIONS, { message: 'Choose rectangular or triangular.' });
 
 export class PreparationSourceDto {
   @ApiPropertyOptional({ description: 'A registered reference material certified for purity; or give purity and uPurity.' })
-  @IsOptional()
+  @IfPresent()
   @IsUUID('all', { message: 'Choose a registered reference material.' })
   materialId?: string;
 
