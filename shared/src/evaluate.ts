@@ -20,7 +20,8 @@ function hasNonFinite(node: object): boolean {
   if (Array.isArray(node)) {
     for (let i = 0; i < node.length; i++) {
       const value: unknown = node[i];
-      if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value)) return true;
+      if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value))
+        return true;
     }
     return false;
   }
@@ -28,7 +29,8 @@ function hasNonFinite(node: object): boolean {
   for (const key in record) {
     if (!Object.hasOwn(record, key)) continue;
     const value = record[key];
-    if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value)) return true;
+    if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value))
+      return true;
   }
   return false;
 }
@@ -107,7 +109,7 @@ export function evaluateParsedStudy(study: Study): EvaluationResult {
     mandel: fit ? mandel(fit, warn) : null,
     interceptTest: fit ? interceptTest(fit, warn) : null,
     throughOrigin: fit ? throughOrigin(fit, unknowns, warn) : null,
-    homoscedasticity: fit ? homoscedasticity(fit, study.standards ?? [], warn) : null,
+    homoscedasticity: fit ? homoscedasticity(fit, warn) : null,
     unknowns: unknowns.length > 0 ? unknowns : null,
     checks: readChecks(study, fit),
     detection: detectionResult,

@@ -84,11 +84,14 @@ function makeWeights(points: readonly FitPoint[], weighting: Weighting): { w: Ar
     const power = weighting === '1/x' ? 1 : 2;
     rawAt = (at) => at ** -power;
   }
-  const raw = points.map((p) => (weighting === '1/s2' ? (p.sd as number) ** -2 : rawAt(p.x)));
+  const n = points.length;
+  const w = new Float64Array(n);
+  for (let i = 0; i < n; i++) w[i] = weighting === '1/s2' ? (points[i].sd as number) ** -2 : rawAt(points[i].x);
   let total = 0;
-  for (const r of raw) total += r;
-  const scale = total / points.length;
-  return { w: raw.map((r) => r / scale), weightAt: (at: number) => rawAt(at) / scale };
+  for (let i = 0; i < n; i++) total += w[i];
+  const scale = total / n;
+  for (let i = 0; i < n; i++) w[i] = w[i] / scale;
+  return { w, weightAt: (at: number) => rawAt(at) / scale };
 }
 
 function interval(centre: number, halfWidth: number): Interval {
@@ -99,29 +102,35 @@ function fail(code: string, message: string, field = 'standards'): never {
   throw StudyValidationError.single(field, code, message);
 }
 
-function usedPoints(standards: readonly StandardPoint[]): {
+interface UsedPoints {
   points: FitPoint[];
   indices: number[];
   xs: number[];
   ys: number[];
   excluded: ExcludedStandard[];
-} {
-  const points: FitPoint[] = [];
-  const indices: number[] = [];
-  const xs: number[] = [];
-  const ys: number[] = [];
+}
+
+function usedPoints(standards: readonly StandardPoint[]): UsedPoints {
+  const total = standards.length;
+  const points = new Array<FitPoint>(total);
+  const indices = new Array<number>(total);
+  const xs = new Array<number>(total);
+  const ys = new Array<number>(total);
   const excluded: ExcludedStandard[] = [];
-  for (let index = 0; index < standards.length; index++) {
+  let used = 0;
+  for (let index = 0; index < total; index++) {
     const s = standards[index];
     if (s.excluded) {
       excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
       continue;
     }
-    points.push(s);
-    indices.push(index);
-    xs.push(s.x);
-    ys.push(s.y);
+    points[used] = s;
+    indices[used] = index;
+    xs[used] = s.x;
+    ys[used] = s.y;
+    used++;
   }
+  for (const list of [points, indices, xs, ys]) list.length = used;
   return { points, indices, xs, ys, excluded };
 }
 
@@ -182,15 +191,16 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
   return below ? first : segments[segments.length - 1];
 }
 
-function levelSummaries(levels: Grouping<number>, ys: readonly number[], backCalculated: BackCalculatedPoint[]): CalibrationLevel[] {
+/** `xBacks` holds NaN where a standard has no back-calculated x. */
+function levelSummaries(levels: Grouping<number>, ys: readonly number[], xBacks: Float64Array): CalibrationLevel[] {
   return sortedGroups(levels).map((g) => {
     const x = levels.keys[g];
     const n = levels.start[g + 1] - levels.start[g];
     const levelYs = groupValues(levels, g, (i) => ys[i]);
     const backs: number[] = [];
     for (let m = levels.start[g]; m < levels.start[g + 1]; m++) {
-      const xBack = backCalculated[levels.members[m]].xBack;
-      if (xBack !== null) backs.push(xBack);
+      const xBack = xBacks[levels.members[m]];
+      if (!Number.isNaN(xBack)) backs.push(xBack);
     }
     const xBackMean = backs.length === n ? mean(backs) : null;
     const backSd = backs.length === n ? sd(backs) : null;
@@ -436,7 +446,7 @@ interface FittedCurve {
   model: CalibrationModel;
   weighting: Weighting;
   confidence: number;
-  used: ReturnType<typeof usedPoints>;
+  used: UsedPoints;
   xMin: number;
   xMax: number;
   w: ArrayLike<number>;
@@ -445,11 +455,10 @@ interface FittedCurve {
 }
 
 /** The curve through the standards that are not excluded, without its per-point tables. */
-function fitCurve(standards: readonly StandardPoint[], options: FitOptions): FittedCurve {
+function fitCurve(used: UsedPoints, options: FitOptions): FittedCurve {
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
-  const used = usedPoints(standards);
   const { points, xs, ys } = used;
   if (points.length === 0) fail('too_few', 'no standards to calibrate with');
   const levels = new Set(xs).size;
@@ -478,9 +487,10 @@ function backCalculate(curve: Curve, y: number): number | null {
   return xBack !== null && Number.isFinite(xBack) ? xBack : null;
 }
 
-/** Σ|%RE| of the back-calculated standards under a calibration of these options (the tables are not built). */
-export function sumAbsRePct(standards: readonly StandardPoint[], options: FitOptions = {}): number {
-  const { used, curve } = fitCurve(standards, options);
+/** Σ|%RE| of the back-calculated standards of the fit's points under another weighting (the tables are not built). */
+export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
+  const used = { points: fit.points, indices: fit.indices, xs: fit.xs, ys: fit.ys, excluded: fit.calibration.excluded };
+  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence });
   let total = 0;
   for (let i = 0; i < used.xs.length; i++) {
     const x = used.xs[i];
@@ -492,14 +502,16 @@ export function sumAbsRePct(standards: readonly StandardPoint[], options: FitOpt
 
 /** Fits a calibration of the chosen model to the standards that are not excluded. */
 export function fitCalibration(standards: readonly StandardPoint[], options: FitOptions = {}): CalibrationFit {
-  const { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve } = fitCurve(standards, options);
+  const { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve } = fitCurve(usedPoints(standards), options);
   const { points, indices, xs, ys, excluded } = used;
   const n = points.length;
 
   const backCalculated = new Array<BackCalculatedPoint>(n);
+  const xBacks = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const x = xs[i];
     const xBack = backCalculate(curve, ys[i]);
+    xBacks[i] = xBack ?? NaN;
     backCalculated[i] = { index: indices[i], x, y: ys[i], xBack, rePct: xBack === null || x === 0 ? null : (100 * (xBack - x)) / x };
   }
   const levels = groupPositions(n, (i) => xs[i]);
@@ -517,7 +529,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     xMax,
     residuals: curve.core ? curve.core.residuals : points.map((p) => p.y - curve.predict(p.x)),
     backCalculated,
-    levels: levelSummaries(levels, ys, backCalculated),
+    levels: levelSummaries(levels, ys, xBacks),
     segments: curve.segments,
     excluded,
   };

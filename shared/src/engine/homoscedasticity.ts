@@ -1,5 +1,5 @@
 import type { HomoscedasticityResult } from '../result.js';
-import { CANDIDATE_WEIGHTINGS, type CandidateWeighting, type StandardPoint } from '../study.js';
+import { CANDIDATE_WEIGHTINGS, type CandidateWeighting } from '../study.js';
 import { sumAbsRePct, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { groupValues, sortedGroups, variance } from './stats.js';
@@ -11,9 +11,9 @@ function sumAbsRe(fit: CalibrationFit): number {
   return total;
 }
 
-function sumAbsReOrNull(standards: readonly StandardPoint[], fit: CalibrationFit, weighting: CandidateWeighting): number | null {
+function sumAbsReOrNull(fit: CalibrationFit, weighting: CandidateWeighting): number | null {
   try {
-    return sumAbsRePct(standards, { model: fit.model, weighting, confidence: fit.confidence });
+    return sumAbsRePct(fit, weighting);
   } catch {
     return null;
   }
@@ -24,7 +24,7 @@ function sumAbsReOrNull(standards: readonly StandardPoint[], fit: CalibrationFit
  * practice), and the weighting with the smallest Σ|%RE| of the back-calculated standards
  * (common practice in bioanalysis).
  */
-export function homoscedasticity(fit: CalibrationFit, standards: readonly StandardPoint[], warn: Warn): HomoscedasticityResult | null {
+export function homoscedasticity(fit: CalibrationFit, warn: Warn): HomoscedasticityResult | null {
   if (fit.model !== 'linear' && fit.model !== 'quadratic') {
     warn('homoscedasticity', 'not_applicable', `no weighting check for a ${fit.model} calibration`);
     return null;
@@ -53,7 +53,7 @@ export function homoscedasticity(fit: CalibrationFit, standards: readonly Standa
       weighting === fit.weighting
         ? sumAbsRe(fit)
         : weighting === 'none' || fit.calibration.xMin > 0
-          ? sumAbsReOrNull(standards, fit, weighting)
+          ? sumAbsReOrNull(fit, weighting)
           : null;
   }
   let smallest: CandidateWeighting | null = null;

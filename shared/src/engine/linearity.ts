@@ -2,7 +2,7 @@ import type { LackOfFitResult, MandelResult } from '../result.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { fitQuadratic } from './quadratic.js';
-import { fitLine } from './regression.js';
+import { fitLine, type RegressionCore } from './regression.js';
 import { groupValues, mean } from './stats.js';
 import type { Warn } from './warnings.js';
 
@@ -64,8 +64,10 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
     return null;
   }
   const weights = fit.model === 'linear-through-origin' ? new Float64Array(n).fill(1) : Float64Array.from(xs, (x) => fit.weightAt(x));
-  const line = fitLine(xs, ys, weights);
-  const quad = fitQuadratic(xs, ys, weights);
+  // The fit's own core where it is the same least-squares problem (same points, same weights).
+  const sameWeights = fit.weighting !== '1/s2';
+  const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights);
+  const quad = fit.model === 'quadratic' && sameWeights ? (fit.core as RegressionCore) : fitQuadratic(xs, ys, weights);
   if (quad.ssResidual === 0) {
     warn('mandel', 'exact_fit', "the quadratic passes exactly through the standards; Mandel's F is undefined");
     return null;
