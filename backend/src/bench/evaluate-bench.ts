@@ -7,7 +7,7 @@
  */
 import 'reflect-metadata';
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { Agent, request } from 'node:http';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -79,12 +79,20 @@ function send(agent: Agent, port: number, method: string, path: string, token?: 
 interface LoopFigures {
   perSecond: number;
   medianMs: number;
+  /** Server process CPU time (user + system, every thread) per request: the figure other load on the machine does not inflate. */
+  serverCpuMs: number;
+}
+
+/** CPU time of a process so far, in ms (Linux /proc; clock ticks of 10 ms). */
+function cpuMsOf(pid: number): number {
+  const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+  return (Number(fields[11]) + Number(fields[12])) * 10;
 }
 
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)] ?? NaN;
 
 /** `concurrency` keep-alive loops, each sending the next request when the last answer is in. */
-async function loop(port: number, concurrency: number, call: (agent: Agent) => Promise<Answer>): Promise<LoopFigures> {
+async function loop(port: number, pid: number, concurrency: number, call: (agent: Agent) => Promise<Answer>): Promise<LoopFigures> {
   const agent = new Agent({ keepAlive: true, maxSockets: concurrency });
   const run = async (until: number, latencies: number[] | null) => {
     while (performance.now() < until) {
@@ -96,11 +104,13 @@ async function loop(port: number, concurrency: number, call: (agent: Agent) => P
   const warmUntil = performance.now() + WARM_UP_MS;
   await Promise.all(Array.from({ length: concurrency }, () => run(warmUntil, null)));
   const latencies: number[] = [];
+  const cpuStart = cpuMsOf(pid);
   const start = performance.now();
   await Promise.all(Array.from({ length: concurrency }, () => run(start + MEASURE_MS, latencies)));
   const elapsed = performance.now() - start;
+  const serverCpuMs = (cpuMsOf(pid) - cpuStart) / latencies.length;
   agent.destroy();
-  return { perSecond: (latencies.length * 1000) / elapsed, medianMs: median(latencies) };
+  return { perSecond: (latencies.length * 1000) / elapsed, medianMs: median(latencies), serverCpuMs };
 }
 
 /** The slowest health answer, polled back to back, while `heavy` is served. */
@@ -179,20 +189,31 @@ async function main(): Promise<void> {
         .map((l) => l.toFixed(1))
         .join(' ')}; ${MEASURE_MS / 1000} s per figure after ${WARM_UP_MS / 1000} s warm-up; evaluate answer ${answer.body.length} bytes`,
     );
-    console.log('route | concurrency | requests/s | median ms');
+    console.log('route | concurrency | requests/s | median ms | server CPU ms per request');
     const tiny = JSON.stringify({ standards: [1, 2, 3].map((x) => ({ x, y: 0.1 + 2 * x })) });
     for (const concurrency of [1, 8]) {
-      const health = await loop(port, concurrency, (a) => send(a, port, 'GET', '/api/health'));
-      const evaluate = await loop(port, concurrency, (a) => send(a, port, 'POST', '/api/evaluate', token, study));
-      console.log(`GET /api/health | ${concurrency} | ${health.perSecond.toFixed(0)} | ${health.medianMs.toFixed(2)}`);
-      console.log(`POST /api/evaluate | ${concurrency} | ${evaluate.perSecond.toFixed(0)} | ${evaluate.medianMs.toFixed(2)}`);
-      console.log(`evaluate ÷ health at concurrency ${concurrency}: ${((100 * evaluate.perSecond) / health.perSecond).toFixed(1)} %`);
+      const health = await loop(port, child.pid as number, concurrency, (a) => send(a, port, 'GET', '/api/health'));
+      const evaluate = await loop(port, child.pid as number, concurrency, (a) => send(a, port, 'POST', '/api/evaluate', token, study));
+      console.log(
+        `GET /api/health | ${concurrency} | ${health.perSecond.toFixed(0)} | ${health.medianMs.toFixed(2)} | ${health.serverCpuMs.toFixed(2)}`,
+      );
+      console.log(
+        `POST /api/evaluate | ${concurrency} | ${evaluate.perSecond.toFixed(0)} | ${evaluate.medianMs.toFixed(2)} | ${evaluate.serverCpuMs.toFixed(2)}`,
+      );
+      console.log(
+        `evaluate ÷ health at concurrency ${concurrency}: ${((100 * evaluate.perSecond) / health.perSecond).toFixed(1)} % of the requests per second, ` +
+          `${((100 * health.serverCpuMs) / evaluate.serverCpuMs).toFixed(1)} % by server CPU per request`,
+      );
     }
     // Where the difference goes: a signed-in route without a body, then the evaluate route with the smallest study.
-    const me = await loop(port, 1, (a) => send(a, port, 'GET', '/api/auth/me', token));
-    const small = await loop(port, 1, (a) => send(a, port, 'POST', '/api/evaluate', token, tiny));
-    console.log(`GET /api/auth/me (signed in, no body) | 1 | ${me.perSecond.toFixed(0)} | ${me.medianMs.toFixed(2)}`);
-    console.log(`POST /api/evaluate, 3 standards | 1 | ${small.perSecond.toFixed(0)} | ${small.medianMs.toFixed(2)}`);
+    const me = await loop(port, child.pid as number, 1, (a) => send(a, port, 'GET', '/api/auth/me', token));
+    const small = await loop(port, child.pid as number, 1, (a) => send(a, port, 'POST', '/api/evaluate', token, tiny));
+    console.log(
+      `GET /api/auth/me (signed in, no body) | 1 | ${me.perSecond.toFixed(0)} | ${me.medianMs.toFixed(2)} | ${me.serverCpuMs.toFixed(2)}`,
+    );
+    console.log(
+      `POST /api/evaluate, 3 standards | 1 | ${small.perSecond.toFixed(0)} | ${small.medianMs.toFixed(2)} | ${small.serverCpuMs.toFixed(2)}`,
+    );
 
     const studies = await send(agent, port, 'GET', '/api/studies', token);
     const firstId = studies.status === 200 ? (JSON.parse(studies.body) as { items: { id: string }[] }).items[0]?.id : undefined;

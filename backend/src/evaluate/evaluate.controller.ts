@@ -1,6 +1,5 @@
-import { Body, Controller, HttpCode, Post } from '@nestjs/common';
+import { Body, Controller, Header, HttpCode, Post } from '@nestjs/common';
 import { ApiBearerAuth, ApiBody, ApiOkResponse, ApiTags, ApiUnprocessableEntityResponse } from '@nestjs/swagger';
-import type { EvaluationResult } from '@meritline/shared';
 import { Throttle } from '@nestjs/throttler';
 import { WorkerPoolService } from '../workers/worker-pool.service.js';
 
@@ -13,6 +12,7 @@ export class EvaluateController {
 
   @Post()
   @HttpCode(200)
+  @Header('Content-Type', 'application/json; charset=utf-8')
   @Throttle({ default: { limit: 120, ttl: 60_000 } })
   @ApiBody({
     schema: { type: 'object', additionalProperties: true, description: 'A study in the engine’s input format (at most 5 MB of JSON).' },
@@ -21,7 +21,7 @@ export class EvaluateController {
   @ApiUnprocessableEntityResponse({
     description: '{ statusCode, message, errors: [{ field, code, message }] } for a study the engine cannot evaluate.',
   })
-  evaluate(@Body() study: Record<string, unknown>): Promise<EvaluationResult> {
+  evaluate(@Body() study: Record<string, unknown>): Promise<string> {
     return this.workers.engine(study);
   }
 }
