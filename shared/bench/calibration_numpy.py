@@ -18,6 +18,9 @@ import numpy as np
 from scipy import stats
 
 
+WARM_UP = 3
+
+
 def standards(n):
     i = np.arange(n, dtype=np.float64)
     x = 1 + (np.arange(n) % 1000) / 10
@@ -111,7 +114,8 @@ def calibrate(x, y, confidence=0.95):
 def main():
     n, runs = int(sys.argv[1]), int(sys.argv[2])
     x, y = standards(n)
-    calibrate(x, y)
+    for _ in range(WARM_UP):
+        calibrate(x, y)
     times, cpu = [], []
     for _ in range(runs):
         start, start_cpu = time.perf_counter(), time.process_time()

@@ -89,6 +89,7 @@ function cpuMsOf(pid: number): number {
   return (Number(fields[11]) + Number(fields[12])) * 10;
 }
 
+const print = (line: string) => process.stdout.write(`${line}\n`);
 const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)] ?? NaN;
 
 /** `concurrency` keep-alive loops, each sending the next request when the last answer is in. */
@@ -184,23 +185,23 @@ async function main(): Promise<void> {
     const answer = await send(agent, port, 'POST', '/api/evaluate', token, study);
     if (answer.status !== 200) throw new Error(`evaluate answered ${answer.status}: ${answer.body.slice(0, 300)}`);
 
-    console.log(
+    print(
       `node ${process.version}, ${cpus().length} cores, load average ${loadavg()
         .map((l) => l.toFixed(1))
         .join(' ')}; ${MEASURE_MS / 1000} s per figure after ${WARM_UP_MS / 1000} s warm-up; evaluate answer ${answer.body.length} bytes`,
     );
-    console.log('route | concurrency | requests/s | median ms | server CPU ms per request');
+    print('route | concurrency | requests/s | median ms | server CPU ms per request');
     const tiny = JSON.stringify({ standards: [1, 2, 3].map((x) => ({ x, y: 0.1 + 2 * x })) });
     for (const concurrency of [1, 8]) {
       const health = await loop(port, child.pid as number, concurrency, (a) => send(a, port, 'GET', '/api/health'));
       const evaluate = await loop(port, child.pid as number, concurrency, (a) => send(a, port, 'POST', '/api/evaluate', token, study));
-      console.log(
+      print(
         `GET /api/health | ${concurrency} | ${health.perSecond.toFixed(0)} | ${health.medianMs.toFixed(2)} | ${health.serverCpuMs.toFixed(2)}`,
       );
-      console.log(
+      print(
         `POST /api/evaluate | ${concurrency} | ${evaluate.perSecond.toFixed(0)} | ${evaluate.medianMs.toFixed(2)} | ${evaluate.serverCpuMs.toFixed(2)}`,
       );
-      console.log(
+      print(
         `evaluate ÷ health at concurrency ${concurrency}: ${((100 * evaluate.perSecond) / health.perSecond).toFixed(1)} % of the requests per second, ` +
           `${((100 * health.serverCpuMs) / evaluate.serverCpuMs).toFixed(1)} % by server CPU per request`,
       );
@@ -208,16 +209,16 @@ async function main(): Promise<void> {
     // Where the difference goes: a signed-in route without a body, then the evaluate route with the smallest study.
     const me = await loop(port, child.pid as number, 1, (a) => send(a, port, 'GET', '/api/auth/me', token));
     const small = await loop(port, child.pid as number, 1, (a) => send(a, port, 'POST', '/api/evaluate', token, tiny));
-    console.log(
+    print(
       `GET /api/auth/me (signed in, no body) | 1 | ${me.perSecond.toFixed(0)} | ${me.medianMs.toFixed(2)} | ${me.serverCpuMs.toFixed(2)}`,
     );
-    console.log(
+    print(
       `POST /api/evaluate, 3 standards | 1 | ${small.perSecond.toFixed(0)} | ${small.medianMs.toFixed(2)} | ${small.serverCpuMs.toFixed(2)}`,
     );
 
     const studies = await send(agent, port, 'GET', '/api/studies', token);
     const firstId = studies.status === 200 ? (JSON.parse(studies.body) as { items: { id: string }[] }).items[0]?.id : undefined;
-    if (!firstId) console.log(`no study to render a report of (GET /api/studies answered ${studies.status})`);
+    if (!firstId) print(`no study to render a report of (GET /api/studies answered ${studies.status})`);
     const heavy: [string, () => Promise<Answer>][] = [
       ['5,000-standard evaluation', () => send(new Agent(), port, 'POST', '/api/evaluate', token, heavyStudy())],
       ...(firstId
@@ -227,11 +228,11 @@ async function main(): Promise<void> {
           ][])
         : []),
     ];
-    console.log('heavy request | its time ms | slowest health answer meanwhile ms | health answers meanwhile');
+    print('heavy request | its time ms | slowest health answer meanwhile ms | health answers meanwhile');
     for (const [name, call] of heavy) {
       await healthDuring(port, call);
       const figures = await healthDuring(port, call);
-      console.log(`${name} | ${figures.heavyMs.toFixed(0)} | ${figures.maxHealthMs.toFixed(1)} | ${figures.polls}`);
+      print(`${name} | ${figures.heavyMs.toFixed(0)} | ${figures.maxHealthMs.toFixed(1)} | ${figures.polls}`);
     }
     agent.destroy();
   } finally {
