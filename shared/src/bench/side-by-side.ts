@@ -1,6 +1,6 @@
 /**
  * The engine beside an independent numpy/scipy calculation (`shared/bench/calibration_numpy.py`) on the same
- * generated standards: medians of 5 runs after 3 warm-up runs, each side in its own child process so that its
+ * generated standards: medians of 5 runs after a warm-up of 3 to 20 runs, each side in its own child process so that its
  * peak resident memory can be read. Installs python3-numpy and python3-scipy with apt-get when they are missing.
  */
 import { execFileSync, spawnSync } from 'node:child_process';
@@ -17,8 +17,8 @@ import { parseStudy } from '../validate.js';
 
 const SIZES = [1_000, 10_000, 100_000, 1_000_000];
 const RUNS = 5;
-/** Runs before the measured ones on each side (the JIT compiler and numpy's first calls settle). */
-const WARM_UP = 3;
+/** Runs before the measured ones on each side: at least 3, then up to 20 within 2 s (the JIT compiler settles after some 15 runs). */
+const WARM_UP = { minRuns: 3, maxRuns: 20, ms: 2000 };
 const here = dirname(fileURLToPath(import.meta.url));
 const pythonScript = join(here, '../../bench/calibration_numpy.py');
 
@@ -51,7 +51,8 @@ function child(what: string, n: number, runs: number): void {
     return { fit: null, result };
   };
   const run = what === 'engine' ? evaluate : calibrationOnly;
-  for (let r = 0; r < WARM_UP; r++) run();
+  const warmUpStart = performance.now();
+  for (let r = 0; r < WARM_UP.maxRuns && (r < WARM_UP.minRuns || performance.now() - warmUpStart < WARM_UP.ms); r++) run();
   const times: number[] = [];
   const cpu: number[] = [];
   for (let r = 0; r < runs; r++) {
@@ -103,7 +104,9 @@ function main(): void {
   console.log(
     `node ${process.version}, load average ${loadavg()
       .map((l) => l.toFixed(1))
-      .join(' ')}; medians of ${RUNS} runs after ${WARM_UP} warm-up runs`,
+      .join(
+        ' ',
+      )}; medians of ${RUNS} runs after a warm-up of ${WARM_UP.minRuns} to ${WARM_UP.maxRuns} runs (at most ${WARM_UP.ms / 1000} s)`,
   );
   console.log('wall-clock median ms (CPU median ms); engine: full evaluation, and its calibration + lack of fit + limits alone');
   console.log('standards | engine, full | engine, calibration part | numpy/scipy | full ÷ numpy, wall (CPU) | peak RSS engine / numpy');
