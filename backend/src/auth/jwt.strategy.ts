@@ -4,6 +4,7 @@ import { ExtractJwt, Strategy } from 'passport-jwt';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { UsersService } from '../users/users.service.js';
+import { jwtVerificationKey } from './jwt-key.js';
 import { SESSION_ENDED, SessionsService, type TokenPayload } from './sessions.service.js';
 
 export type SessionUser = AuthUser & { sessionId: string };
@@ -15,7 +16,14 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
     private readonly usersService: UsersService,
     private readonly sessions: SessionsService,
   ) {
-    super({ jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(), ignoreExpiration: false, secretOrKey: config.jwtSecret });
+    const key = jwtVerificationKey(config.jwtSecret);
+    super({
+      jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
+      ignoreExpiration: false,
+      // passport-jwt hands the key to jsonwebtoken as it is; its types predate key objects.
+      secretOrKeyProvider: (_request: unknown, _token: unknown, done: (error: null, key: Buffer) => void) =>
+        done(null, key as unknown as Buffer),
+    });
   }
 
   /** Reads the user and the session on every request so sign-out, deactivation, password and role changes take effect at once. */

@@ -5,8 +5,9 @@ export const MAX_JSON_DEPTH = 64;
 
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
-const childPath = (parent: string, key: string | number) =>
-  typeof key === 'number' ? `${parent}[${key}]` : parent ? `${parent}.${key}` : key;
+/** The path of a value from the keys that lead to it, built only for a refusal. */
+const pathOf = (trail: readonly (string | number)[]) =>
+  trail.reduce<string>((parent, key) => (typeof key === 'number' ? `${parent}[${key}]` : parent ? `${parent}.${key}` : key), '');
 
 /**
  * Checks a parsed JSON body before any route sees it: no nesting beyond MAX_JSON_DEPTH, no number beyond the
@@ -15,12 +16,13 @@ const childPath = (parent: string, key: string | number) =>
  */
 export function checkJsonBody(body: unknown): { value: unknown; error: FieldError | null } {
   let error: FieldError | null = null;
-  const visit = (value: unknown, path: string, depth: number): unknown => {
+  const trail: (string | number)[] = [];
+  const visit = (value: unknown, depth: number): unknown => {
     if (error) return value;
     if (typeof value === 'string') {
       if (LONE_SURROGATE.test(value)) {
         error = {
-          field: path || 'body',
+          field: pathOf(trail) || 'body',
           code: 'unpairedSurrogate',
           message: 'The text contains an invalid character (an unpaired UTF-16 surrogate).',
         };
@@ -30,32 +32,39 @@ export function checkJsonBody(body: unknown): { value: unknown; error: FieldErro
     }
     if (typeof value === 'number') {
       if (!Number.isFinite(value))
-        error = { field: path || 'body', code: 'numberOutOfRange', message: 'The number is too large to be represented.' };
+        error = { field: pathOf(trail) || 'body', code: 'numberOutOfRange', message: 'The number is too large to be represented.' };
       return value;
     }
     if (value === null || typeof value !== 'object') return value;
     if (depth >= MAX_JSON_DEPTH) {
       error = {
-        field: path || 'body',
+        field: pathOf(trail) || 'body',
         code: 'tooDeep',
         message: `The request nests objects or lists more than ${MAX_JSON_DEPTH} levels deep.`,
       };
       return value;
     }
     if (Array.isArray(value)) {
-      for (let i = 0; i < value.length && !error; i++) value[i] = visit(value[i], childPath(path, i), depth + 1);
+      for (let i = 0; i < value.length && !error; i++) {
+        trail.push(i);
+        value[i] = visit(value[i], depth + 1);
+        trail.pop();
+      }
       return value;
     }
     const record = value as Record<string, unknown>;
     const out: Record<string, unknown> = {};
     for (const key of Object.keys(record)) {
       if (error) break;
-      const name = visit(key, childPath(path, key), depth + 1) as string;
-      out[name] = visit(record[key], childPath(path, name), depth + 1);
+      trail.push(key);
+      const name = visit(key, depth + 1) as string;
+      trail[trail.length - 1] = name;
+      out[name] = visit(record[key], depth + 1);
+      trail.pop();
     }
     return out;
   };
-  const value = visit(body, '', 0);
+  const value = visit(body, 0);
   return { value, error };
 }
 

@@ -1,6 +1,5 @@
-import { Body, Controller, HttpCode, Post } from '@nestjs/common';
+import { Body, Controller, Header, HttpCode, Post } from '@nestjs/common';
 import { ApiBody, ApiOkResponse, ApiTags } from '@nestjs/swagger';
-import type { EvaluationResult } from '@meritline/shared';
 import { Throttle } from '@nestjs/throttler';
 import { ApiInvalid, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { EvaluationResultDto } from './dto/evaluation-result.dto.js';
@@ -16,13 +15,14 @@ export class EvaluateController {
 
   @Post()
   @HttpCode(200)
+  @Header('Content-Type', 'application/json; charset=utf-8')
   @Throttle({ default: { limit: 120, ttl: 60_000 } })
   @ApiBody({
     schema: { type: 'object', additionalProperties: true, description: 'A study in the engine’s input format (at most 5 MB of JSON).' },
   })
   @ApiOkResponse({ type: EvaluationResultDto, description: 'The engine’s result.' })
   @ApiInvalid('A study the engine cannot evaluate: one entry per field.')
-  evaluate(@Body() study: unknown): Promise<EvaluationResult> {
+  evaluate(@Body() study: unknown): Promise<string> {
     // No DTO stands in front of the engine: a body that is not a JSON object (or not JSON at all) stops here.
     if (study === null || typeof study !== 'object' || Array.isArray(study)) {
       throw unprocessable([

@@ -1,5 +1,5 @@
 import { HttpException } from '@nestjs/common';
-import { evaluateStudy, StudyValidationError, type EvaluationResult, type StudyFieldError } from '@meritline/shared';
+import { evaluateStudy, StudyValidationError, type StudyFieldError } from '@meritline/shared';
 import type { ReportContent } from '../reports/report-content.js';
 import { renderValidationReport } from '../reports/validation-report.document.js';
 import { readImportTable, type ImportTable } from '../studies/import-table.js';
@@ -14,7 +14,8 @@ export type HeavyTask =
 
 export interface HeavyResults {
   evaluate: StudyEvaluation;
-  engine: EvaluationResult;
+  /** The result as JSON text: one flat string crosses the thread boundary, not a graph of thousands of objects. */
+  engine: string;
   'render-report': Uint8Array;
   'read-table': ImportTable;
 }
@@ -31,7 +32,7 @@ async function perform(task: HeavyTask): Promise<unknown> {
     case 'evaluate':
       return evaluateStudyData(task.data);
     case 'engine':
-      return evaluateStudy(task.study);
+      return JSON.stringify(evaluateStudy(task.study));
     case 'render-report':
       return renderValidationReport(task.content);
     case 'read-table':

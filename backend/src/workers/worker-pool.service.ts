@@ -2,7 +2,6 @@ import { Injectable, Logger, type OnModuleDestroy } from '@nestjs/common';
 import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { fileURLToPath } from 'node:url';
-import type { EvaluationResult } from '@meritline/shared';
 import { Piscina } from 'piscina';
 import type { ReportContent } from '../reports/report-content.js';
 import type { ImportTable } from '../studies/import-table.js';
@@ -42,8 +41,8 @@ export class WorkerPoolService implements OnModuleDestroy {
     return this.run({ kind: 'evaluate', data });
   }
 
-  /** The engine's result alone, as the command line gives it. */
-  engine(study: Record<string, unknown>): Promise<EvaluationResult> {
+  /** The engine's result alone, as the command line gives it, in JSON text. */
+  engine(study: Record<string, unknown>): Promise<string> {
     if (listEntries(study) <= INLINE_EVALUATION_ROWS) return this.inline({ kind: 'engine', study });
     return this.run({ kind: 'engine', study });
   }

@@ -12,7 +12,7 @@ import type { CalibrationModel, StandardPoint, Weighting } from '../study.js';
 import { fUpper, studentQuantile } from './distributions.js';
 import { fitQuadratic, type QuadraticCore } from './quadratic.js';
 import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
-import { groupBy, linspace, mean, sd, sumSquaredDeviations } from './stats.js';
+import { groupBy, groupPositions, groupValues, linspace, mean, sd, sortedGroups, sumSquaredDeviations, type Grouping } from './stats.js';
 
 export interface FitOptions {
   model?: CalibrationModel;
@@ -36,6 +36,11 @@ export interface CalibrationFit {
   points: FitPoint[];
   /** Position of each point in the study's `standards` array. */
   indices: number[];
+  /** x and y of each point. */
+  xs: number[];
+  ys: number[];
+  /** The points grouped by x (the standard levels), in order of first appearance. */
+  levels: Grouping<number>;
   calibration: CalibrationResult;
   /** Regression core (null for one- and two-point calibrations). */
   core: RegressionCore | null;
@@ -79,11 +84,14 @@ function makeWeights(points: readonly FitPoint[], weighting: Weighting): { w: Ar
     const power = weighting === '1/x' ? 1 : 2;
     rawAt = (at) => at ** -power;
   }
-  const raw = points.map((p) => (weighting === '1/s2' ? (p.sd as number) ** -2 : rawAt(p.x)));
+  const n = points.length;
+  const w = new Float64Array(n);
+  for (let i = 0; i < n; i++) w[i] = weighting === '1/s2' ? (points[i].sd as number) ** -2 : rawAt(points[i].x);
   let total = 0;
-  for (const r of raw) total += r;
-  const scale = total / points.length;
-  return { w: raw.map((r) => r / scale), weightAt: (at: number) => rawAt(at) / scale };
+  for (let i = 0; i < n; i++) total += w[i];
+  const scale = total / n;
+  for (let i = 0; i < n; i++) w[i] = w[i] / scale;
+  return { w, weightAt: (at: number) => rawAt(at) / scale };
 }
 
 function interval(centre: number, halfWidth: number): Interval {
@@ -94,29 +102,35 @@ function fail(code: string, message: string, field = 'standards'): never {
   throw StudyValidationError.single(field, code, message);
 }
 
-function usedPoints(standards: readonly StandardPoint[]): {
+interface UsedPoints {
   points: FitPoint[];
   indices: number[];
   xs: number[];
   ys: number[];
   excluded: ExcludedStandard[];
-} {
-  const points: FitPoint[] = [];
-  const indices: number[] = [];
-  const xs: number[] = [];
-  const ys: number[] = [];
+}
+
+function usedPoints(standards: readonly StandardPoint[]): UsedPoints {
+  const total = standards.length;
+  const points = new Array<FitPoint>(total);
+  const indices = new Array<number>(total);
+  const xs = new Array<number>(total);
+  const ys = new Array<number>(total);
   const excluded: ExcludedStandard[] = [];
-  for (let index = 0; index < standards.length; index++) {
+  let used = 0;
+  for (let index = 0; index < total; index++) {
     const s = standards[index];
     if (s.excluded) {
       excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
       continue;
     }
-    points.push(s);
-    indices.push(index);
-    xs.push(s.x);
-    ys.push(s.y);
+    points[used] = s;
+    indices[used] = index;
+    xs[used] = s.x;
+    ys[used] = s.y;
+    used++;
   }
+  for (const list of [points, indices, xs, ys]) list.length = used;
   return { points, indices, xs, ys, excluded };
 }
 
@@ -177,24 +191,29 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
   return below ? first : segments[segments.length - 1];
 }
 
-function levelSummaries(backCalculated: BackCalculatedPoint[]): CalibrationLevel[] {
-  return [...groupBy(backCalculated, (p) => p.x).entries()]
-    .sort(([a], [b]) => a - b)
-    .map(([x, group]) => {
-      const ys = group.map((g) => g.y);
-      const backs = group.map((g) => g.xBack).filter((v): v is number => v !== null);
-      const xBackMean = backs.length === group.length ? mean(backs) : null;
-      const backSd = backs.length === group.length ? sd(backs) : null;
-      return {
-        x,
-        n: group.length,
-        yMean: mean(ys),
-        ySd: sd(ys),
-        xBackMean,
-        rePct: xBackMean === null || x === 0 ? null : (100 * (xBackMean - x)) / x,
-        rsdPct: backSd === null || xBackMean === null || xBackMean === 0 ? null : (100 * backSd) / Math.abs(xBackMean),
-      };
-    });
+/** `xBacks` holds NaN where a standard has no back-calculated x. */
+function levelSummaries(levels: Grouping<number>, ys: readonly number[], xBacks: Float64Array): CalibrationLevel[] {
+  return sortedGroups(levels).map((g) => {
+    const x = levels.keys[g];
+    const n = levels.start[g + 1] - levels.start[g];
+    const levelYs = groupValues(levels, g, (i) => ys[i]);
+    const backs: number[] = [];
+    for (let m = levels.start[g]; m < levels.start[g + 1]; m++) {
+      const xBack = xBacks[levels.members[m]];
+      if (!Number.isNaN(xBack)) backs.push(xBack);
+    }
+    const xBackMean = backs.length === n ? mean(backs) : null;
+    const backSd = backs.length === n ? sd(backs) : null;
+    return {
+      x,
+      n,
+      yMean: mean(levelYs),
+      ySd: sd(levelYs),
+      xBackMean,
+      rePct: xBackMean === null || x === 0 ? null : (100 * (xBackMean - x)) / x,
+      rsdPct: backSd === null || xBackMean === null || xBackMean === 0 ? null : (100 * backSd) / Math.abs(xBackMean),
+    };
+  });
 }
 
 function band(core: RegressionCore, t: number, x: number, predict: (x: number) => number, weightAt: (x: number) => number): BandPoint {
@@ -423,12 +442,24 @@ function checkWeighting(model: CalibrationModel, weighting: Weighting, points: F
   }
 }
 
-/** Fits a calibration of the chosen model to the standards that are not excluded. */
-export function fitCalibration(standards: readonly StandardPoint[], options: FitOptions = {}): CalibrationFit {
+interface FittedCurve {
+  model: CalibrationModel;
+  weighting: Weighting;
+  confidence: number;
+  used: UsedPoints;
+  xMin: number;
+  xMax: number;
+  w: ArrayLike<number>;
+  weightAt: (x: number) => number;
+  curve: Curve;
+}
+
+/** The curve through the standards that are not excluded, without its per-point tables. */
+function fitCurve(used: UsedPoints, options: FitOptions): FittedCurve {
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
-  const { points, indices, xs, ys, excluded } = usedPoints(standards);
+  const { points, xs, ys } = used;
   if (points.length === 0) fail('too_few', 'no standards to calibrate with');
   const levels = new Set(xs).size;
   let xMin = Infinity;
@@ -447,25 +478,50 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
         ? twoPointCurve(points, levels, options.twoPoint?.bracketing === true)
         : regressionCurve(model, xs, ys, w, levels, xMin, xMax);
   assertComputable([curve.slope, curve.intercept]);
+  return { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve };
+}
 
-  const backCalculated: BackCalculatedPoint[] = points.map((p, i) => {
-    const xBack = curve.inverse(p.y);
-    const finite = xBack !== null && Number.isFinite(xBack) ? xBack : null;
-    return {
-      index: indices[i],
-      x: p.x,
-      y: p.y,
-      xBack: finite,
-      rePct: finite === null || p.x === 0 ? null : (100 * (finite - p.x)) / p.x,
-    };
-  });
+/** x back-calculated from y, or null where the curve gives no finite x. */
+function backCalculate(curve: Curve, y: number): number | null {
+  const xBack = curve.inverse(y);
+  return xBack !== null && Number.isFinite(xBack) ? xBack : null;
+}
+
+/** Σ|%RE| of the back-calculated standards of the fit's points under another weighting (the tables are not built). */
+export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
+  const used = { points: fit.points, indices: fit.indices, xs: fit.xs, ys: fit.ys, excluded: fit.calibration.excluded };
+  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence });
+  let total = 0;
+  for (let i = 0; i < used.xs.length; i++) {
+    const x = used.xs[i];
+    const xBack = backCalculate(curve, used.ys[i]);
+    if (xBack !== null && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
+  }
+  return total;
+}
+
+/** Fits a calibration of the chosen model to the standards that are not excluded. */
+export function fitCalibration(standards: readonly StandardPoint[], options: FitOptions = {}): CalibrationFit {
+  const { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve } = fitCurve(usedPoints(standards), options);
+  const { points, indices, xs, ys, excluded } = used;
+  const n = points.length;
+
+  const backCalculated = new Array<BackCalculatedPoint>(n);
+  const xBacks = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const x = xs[i];
+    const xBack = backCalculate(curve, ys[i]);
+    xBacks[i] = xBack ?? NaN;
+    backCalculated[i] = { index: indices[i], x, y: ys[i], xBack, rePct: xBack === null || x === 0 ? null : (100 * (xBack - x)) / x };
+  }
+  const levels = groupPositions(n, (i) => xs[i]);
   const statistics = curve.core
     ? regressionStatistics(curve.core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt, w)
     : noRegressionStatistics(xs, ys);
   const calibration: CalibrationResult = {
     model,
     weighting,
-    n: points.length,
+    n,
     slope: curve.slope,
     intercept: curve.intercept,
     ...statistics,
@@ -473,7 +529,7 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     xMax,
     residuals: curve.core ? curve.core.residuals : points.map((p) => p.y - curve.predict(p.x)),
     backCalculated,
-    levels: levelSummaries(backCalculated),
+    levels: levelSummaries(levels, ys, xBacks),
     segments: curve.segments,
     excluded,
   };
@@ -483,6 +539,9 @@ export function fitCalibration(standards: readonly StandardPoint[], options: Fit
     confidence,
     points,
     indices,
+    xs,
+    ys,
+    levels,
     calibration,
     core: curve.core,
     segments: curve.segments,

@@ -22,16 +22,12 @@ const ICH_LOQ = 10;
 /** The unweighted straight line over the standards: the fit the zero-concentration approaches need. */
 function unweightedLine(fit: CalibrationFit, warn: Warn): RegressionCore | null {
   if (fit.model === 'linear' && fit.weighting === 'none' && fit.core) return fit.core;
-  const xs = fit.points.map((p) => p.x);
-  if (!fit.core || xs.length < 3 || new Set(xs).size < 2) return null;
+  const { xs, ys } = fit;
+  if (!fit.core || xs.length < 3 || fit.levels.keys.length < 2) return null;
   const which = fit.weighting === 'none' ? 'iso11843 and hubauxVos use' : 'sdResidual, iso11843 and hubauxVos use';
   const basis = fit.weighting === 'none' ? fit.model : `${fit.weighting}-weighted ${fit.model}`;
   warn('detection', 'unweighted_line', `${which} the unweighted straight line over the same standards, not the ${basis} fit`);
-  return fitLine(
-    xs,
-    fit.points.map((p) => p.y),
-    xs.map(() => 1),
-  );
+  return fitLine(xs, ys, new Float64Array(xs.length).fill(1));
 }
 
 function sdResidual(fit: CalibrationFit, line: RegressionCore | null): LimitPair | null {

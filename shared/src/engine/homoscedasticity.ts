@@ -1,8 +1,8 @@
 import type { HomoscedasticityResult } from '../result.js';
-import { CANDIDATE_WEIGHTINGS, type CandidateWeighting, type StandardPoint } from '../study.js';
-import { fitCalibration, type CalibrationFit } from './calibration.js';
+import { CANDIDATE_WEIGHTINGS, type CandidateWeighting } from '../study.js';
+import { sumAbsRePct, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
-import { groupBy, variance } from './stats.js';
+import { groupValues, sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
 
 function sumAbsRe(fit: CalibrationFit): number {
@@ -11,9 +11,9 @@ function sumAbsRe(fit: CalibrationFit): number {
   return total;
 }
 
-function sumAbsReOrNull(standards: readonly StandardPoint[], fit: CalibrationFit, weighting: CandidateWeighting): number | null {
+function sumAbsReOrNull(fit: CalibrationFit, weighting: CandidateWeighting): number | null {
   try {
-    return sumAbsRe(fitCalibration(standards, { model: fit.model, weighting, confidence: fit.confidence }));
+    return sumAbsRePct(fit, weighting);
   } catch {
     return null;
   }
@@ -24,20 +24,22 @@ function sumAbsReOrNull(standards: readonly StandardPoint[], fit: CalibrationFit
  * practice), and the weighting with the smallest Σ|%RE| of the back-calculated standards
  * (common practice in bioanalysis).
  */
-export function homoscedasticity(fit: CalibrationFit, standards: readonly StandardPoint[], warn: Warn): HomoscedasticityResult | null {
+export function homoscedasticity(fit: CalibrationFit, warn: Warn): HomoscedasticityResult | null {
   if (fit.model !== 'linear' && fit.model !== 'quadratic') {
     warn('homoscedasticity', 'not_applicable', `no weighting check for a ${fit.model} calibration`);
     return null;
   }
-  const levels = [...groupBy(fit.points, (p) => p.x).entries()].sort(([a], [b]) => a - b);
-  const [xLow, low] = levels[0];
-  const [xHigh, high] = levels[levels.length - 1];
+  const sorted = sortedGroups(fit.levels);
+  const [lowest, highest] = [sorted[0], sorted[sorted.length - 1]];
+  const [xLow, xHigh] = [fit.levels.keys[lowest], fit.levels.keys[highest]];
+  const low = groupValues(fit.levels, lowest, (i) => fit.ys[i]);
+  const high = groupValues(fit.levels, highest, (i) => fit.ys[i]);
   if (low.length < 2 || high.length < 2) {
     warn('homoscedasticity', 'too_few', 'the variance check needs at least 2 replicates at the lowest and the highest level');
     return null;
   }
-  const sLow = variance(low.map((p) => p.y)) ?? 0;
-  const sHigh = variance(high.map((p) => p.y)) ?? 0;
+  const sLow = variance(low) ?? 0;
+  const sHigh = variance(high) ?? 0;
   if (sLow === 0) {
     warn('homoscedasticity', 'no_scatter', 'the replicates at the lowest level agree exactly; the variance ratio is undefined');
     return null;
@@ -51,7 +53,7 @@ export function homoscedasticity(fit: CalibrationFit, standards: readonly Standa
       weighting === fit.weighting
         ? sumAbsRe(fit)
         : weighting === 'none' || fit.calibration.xMin > 0
-          ? sumAbsReOrNull(standards, fit, weighting)
+          ? sumAbsReOrNull(fit, weighting)
           : null;
   }
   let smallest: CandidateWeighting | null = null;

@@ -6,13 +6,9 @@ import type { Warn } from './warnings.js';
 
 function lineWithIntercept(fit: CalibrationFit): RegressionCore | null {
   if (fit.core && fit.model !== 'linear-through-origin') return fit.core;
-  const xs = fit.points.map((p) => p.x);
-  if (xs.length < 3 || new Set(xs).size < 2) return null;
-  return fitLine(
-    xs,
-    fit.points.map((p) => p.y),
-    xs.map(() => 1),
-  );
+  const { xs, ys } = fit;
+  if (xs.length < 3 || fit.levels.keys.length < 2) return null;
+  return fitLine(xs, ys, new Float64Array(xs.length).fill(1));
 }
 
 /** Is the intercept distinguishable from zero? t = a/s_a with the fit's residual df. */
@@ -46,15 +42,12 @@ export function interceptTest(fit: CalibrationFit, warn: Warn): InterceptTestRes
  * one-point and regression calibrations agree only when the intercept is zero (common practice).
  */
 export function throughOrigin(fit: CalibrationFit, unknowns: readonly UnknownResult[], warn: Warn): ThroughOriginResult | null {
-  const xs = fit.points.map((p) => p.x);
+  const { xs, ys } = fit;
   if (xs.length < 2 || xs.every((x) => x === 0)) {
     warn('throughOrigin', 'too_few', 'the line through the origin needs at least 2 standards with x above zero');
     return null;
   }
-  const line = fitThroughOrigin(
-    xs,
-    fit.points.map((p) => p.y),
-  );
+  const line = fitThroughOrigin(xs, ys);
   return {
     slope: line.b,
     seSlope: line.seB,

@@ -2,8 +2,8 @@ import type { LackOfFitResult, MandelResult } from '../result.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { fitQuadratic } from './quadratic.js';
-import { fitLine } from './regression.js';
-import { groupBy, mean } from './stats.js';
+import { fitLine, type RegressionCore } from './regression.js';
+import { groupValues, mean } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const PARAMETERS: Record<string, number> = { linear: 2, 'linear-through-origin': 1, quadratic: 3 };
@@ -16,18 +16,19 @@ export function lackOfFit(fit: CalibrationFit, warn: Warn): LackOfFitResult | nu
     warn('lackOfFit', 'not_applicable', `no lack-of-fit test for a ${fit.model} calibration`);
     return null;
   }
-  const levels = groupBy(fit.points, (pt) => pt.x);
-  const k = levels.size;
+  const levels = fit.levels;
+  const k = levels.keys.length;
   const n = fit.points.length;
   if (n - k < 1 || k - p < 1) {
     warn('lackOfFit', 'too_few', `the lack-of-fit test needs replicated standards and at least ${p + 1} distinct x`);
     return null;
   }
   let ssPureError = 0;
-  for (const group of levels.values()) {
-    const centre = mean(group.map((pt) => pt.y));
-    const w = fit.weightAt(group[0].x);
-    for (const pt of group) ssPureError += w * (pt.y - centre) ** 2;
+  for (let g = 0; g < k; g++) {
+    const ys = groupValues(levels, g, (i) => fit.ys[i]);
+    const centre = mean(ys);
+    const w = fit.weightAt(levels.keys[g]);
+    for (const y of ys) ssPureError += w * (y - centre) ** 2;
   }
   const dfPureError = n - k;
   const dfLackOfFit = k - p;
@@ -56,16 +57,17 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
     warn('mandel', 'not_applicable', `no Mandel test for a ${fit.model} calibration`);
     return null;
   }
-  const xs = fit.points.map((pt) => pt.x);
-  const ys = fit.points.map((pt) => pt.y);
+  const { xs, ys } = fit;
   const n = xs.length;
-  if (new Set(xs).size < 4 || n < 4) {
+  if (fit.levels.keys.length < 4 || n < 4) {
     warn('mandel', 'too_few', "Mandel's test needs at least 4 distinct x");
     return null;
   }
-  const weights = fit.model === 'linear-through-origin' ? xs.map(() => 1) : xs.map((x) => fit.weightAt(x));
-  const line = fitLine(xs, ys, weights);
-  const quad = fitQuadratic(xs, ys, weights);
+  const weights = fit.model === 'linear-through-origin' ? new Float64Array(n).fill(1) : Float64Array.from(xs, (x) => fit.weightAt(x));
+  // The fit's own core where it is the same least-squares problem (same points, same weights).
+  const sameWeights = fit.weighting !== '1/s2';
+  const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights);
+  const quad = fit.model === 'quadratic' && sameWeights ? (fit.core as RegressionCore) : fitQuadratic(xs, ys, weights);
   if (quad.ssResidual === 0) {
     warn('mandel', 'exact_fit', "the quadratic passes exactly through the standards; Mandel's F is undefined");
     return null;

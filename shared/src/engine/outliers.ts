@@ -2,7 +2,7 @@ import type { OutlierFlag } from '../result.js';
 import { blankValue, type Study } from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, studentQuantile } from './distributions.js';
-import { groupBy, mean, sd, variance } from './stats.js';
+import { groupBy, groupValues, mean, sd, sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const ALPHA = 0.05;
@@ -120,11 +120,15 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
     const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
     sets.push({ name: 'blanks', values: used.map((b) => b.value), indices: used.map((b) => b.index) });
   }
-  const indexed = fit ? fit.points.map((p, i) => ({ x: p.x, y: p.y, index: fit.indices[i] })) : [];
-  const levels = [...groupBy(indexed, (p) => p.x).entries()].sort(([a], [b]) => a - b);
-  for (const [x, points] of levels) {
-    sets.push({ name: `standards x=${x}`, values: points.map((p) => p.y), indices: points.map((p) => p.index) });
-  }
+  const levels = fit
+    ? sortedGroups(fit.levels).map((g) => ({
+        x: fit.levels.keys[g],
+        values: groupValues(fit.levels, g, (i) => fit.ys[i]),
+        indices: groupValues(fit.levels, g, (i) => fit.indices[i]),
+      }))
+    : [];
+  // testSet needs 3 values; naming a set formats its x, which costs more than testing it when levels are many.
+  for (const { x, values, indices } of levels) if (values.length >= 3) sets.push({ name: `standards x=${x}`, values, indices });
   if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
   const series = [
     ...groupBy(
@@ -146,7 +150,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
 
   cochran(
     'standard levels',
-    levels.map(([, points], index) => ({ values: points.map((p) => p.y), index })),
+    levels.map(({ values }, index) => ({ values, index })),
     flags,
   );
   cochran(

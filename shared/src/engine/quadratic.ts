@@ -2,34 +2,37 @@ import { cleanResidual, type RegressionCore } from './regression.js';
 import { weightedMean } from './stats.js';
 
 /**
- * Householder QR least squares for a tall matrix (rows × p, row-major copy is overwritten).
+ * Householder QR least squares for a tall matrix held by columns (each of length rows; overwritten, as is rhs).
  * Returns the coefficients and the upper-triangular R.
  */
-function householderLeastSquares(matrix: number[][], rhs: number[], p: number): { beta: number[]; r: number[][] } {
-  const m = matrix.length;
+function householderLeastSquares(columns: Float64Array[], rhs: Float64Array): { beta: number[]; r: number[][] } {
+  const p = columns.length;
+  const m = rhs.length;
+  const v = new Float64Array(m);
   for (let k = 0; k < p; k++) {
+    const column = columns[k];
     let norm = 0;
-    for (let i = k; i < m; i++) norm = Math.hypot(norm, matrix[i][k]);
+    for (let i = k; i < m; i++) norm = Math.hypot(norm, column[i]);
     if (norm === 0) continue;
-    const alpha = matrix[k][k] > 0 ? -norm : norm;
-    const v = new Array<number>(m).fill(0);
-    for (let i = k; i < m; i++) v[i] = matrix[i][k];
+    const alpha = column[k] > 0 ? -norm : norm;
+    for (let i = k; i < m; i++) v[i] = column[i];
     v[k] -= alpha;
     let vv = 0;
     for (let i = k; i < m; i++) vv += v[i] * v[i];
     if (vv === 0) continue;
     for (let j = k; j < p; j++) {
+      const target = columns[j];
       let dot = 0;
-      for (let i = k; i < m; i++) dot += v[i] * matrix[i][j];
+      for (let i = k; i < m; i++) dot += v[i] * target[i];
       const f = (2 * dot) / vv;
-      for (let i = k; i < m; i++) matrix[i][j] -= f * v[i];
+      for (let i = k; i < m; i++) target[i] -= f * v[i];
     }
     let dot = 0;
     for (let i = k; i < m; i++) dot += v[i] * rhs[i];
     const f = (2 * dot) / vv;
     for (let i = k; i < m; i++) rhs[i] -= f * v[i];
   }
-  const r = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => (j >= i ? matrix[i][j] : 0)));
+  const r = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => (j >= i ? columns[j][i] : 0)));
   const beta = new Array<number>(p).fill(0);
   for (let i = p - 1; i >= 0; i--) {
     let acc = rhs[i];
@@ -65,18 +68,23 @@ export function fitQuadratic(x: readonly number[], y: readonly number[], w: Arra
   const n = x.length;
   let sumWeights = 0;
   for (let i = 0; i < n; i++) sumWeights += w[i];
-  const ones = new Array<number>(n).fill(1);
-  const centre = weightedMean(x, ones, n);
+  const centre = weightedMean(x, new Float64Array(n).fill(1), n);
   let scale = 0;
   for (const v of x) scale = Math.max(scale, Math.abs(v - centre));
   if (scale === 0) scale = 1;
-  const z = x.map((v) => (v - centre) / scale);
-  const matrix = z.map((zi, i) => {
+  const z = new Float64Array(n);
+  const columns = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+  const rhs = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    const zi = (x[i] - centre) / scale;
     const sw = Math.sqrt(w[i]);
-    return [sw, sw * zi, sw * zi * zi];
-  });
-  const rhs = y.map((yi, i) => Math.sqrt(w[i]) * yi);
-  const { beta, r } = householderLeastSquares(matrix, rhs, 3);
+    z[i] = zi;
+    columns[0][i] = sw;
+    columns[1][i] = sw * zi;
+    columns[2][i] = sw * zi * zi;
+    rhs[i] = sw * y[i];
+  }
+  const { beta, r } = householderLeastSquares(columns, rhs);
   const [c0, c1, c2] = beta;
 
   const residuals = new Array<number>(n);

@@ -106,7 +106,8 @@ export function fitThroughOrigin(x: readonly number[], y: readonly number[]): Re
   }
   const df = n - 1;
   const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
-  const xMean = weightedMean(x, new Array<number>(n).fill(1), n);
+  const ones = new Float64Array(n).fill(1);
+  const xMean = weightedMean(x, ones, n);
   let sxx = 0;
   for (const v of x) sxx += (v - xMean) * (v - xMean);
   return {
@@ -124,7 +125,7 @@ export function fitThroughOrigin(x: readonly number[], y: readonly number[]): Re
     ssRegression: b * sxy0,
     dfRegression: 1,
     xMean,
-    yMean: weightedMean(y, new Array<number>(n).fill(1), n),
+    yMean: weightedMean(y, ones, n),
     sxx,
     sumWeights: n,
     residuals,

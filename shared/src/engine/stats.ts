@@ -60,3 +60,47 @@ export function linspace(lo: number, hi: number, count: number): number[] {
   for (let i = 0; i < count; i++) out[i] = i === count - 1 ? hi : lo + ((hi - lo) * i) / (count - 1);
   return out;
 }
+
+/** Positions 0…n−1 grouped by key: groups in order of first appearance, positions ascending within each group. */
+export interface Grouping<K> {
+  keys: K[];
+  /** Group g holds members[start[g]] … members[start[g + 1] − 1]. */
+  start: Int32Array;
+  members: Int32Array;
+}
+
+export function groupPositions<K>(n: number, keyAt: (position: number) => K): Grouping<K> {
+  const ids = new Map<K, number>();
+  const keys: K[] = [];
+  const groupOf = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    const key = keyAt(i);
+    let id = ids.get(key);
+    if (id === undefined) {
+      id = keys.length;
+      ids.set(key, id);
+      keys.push(key);
+    }
+    groupOf[i] = id;
+  }
+  keys.splice(0, keys.length, ...ids.keys());
+  const start = new Int32Array(keys.length + 1);
+  for (let i = 0; i < n; i++) start[groupOf[i] + 1]++;
+  for (let g = 0; g < keys.length; g++) start[g + 1] += start[g];
+  const next = start.slice(0, keys.length);
+  const members = new Int32Array(n);
+  for (let i = 0; i < n; i++) members[next[groupOf[i]]++] = i;
+  return { keys, start, members };
+}
+
+/** The values at the members of group g, in position order. */
+export function groupValues<K>(grouping: Grouping<K>, g: number, valueAt: (position: number) => number): number[] {
+  const out: number[] = [];
+  for (let m = grouping.start[g]; m < grouping.start[g + 1]; m++) out.push(valueAt(grouping.members[m]));
+  return out;
+}
+
+/** Group ids sorted by their numeric key, ascending. */
+export function sortedGroups(grouping: Grouping<number>): number[] {
+  return grouping.keys.map((_, g) => g).sort((a, b) => grouping.keys[a] - grouping.keys[b]);
+}

@@ -8,6 +8,7 @@ import {
   type ThrottlerModuleOptions,
   type ThrottlerStorage,
 } from '@nestjs/throttler';
+import { jwtVerificationKey } from '../../auth/jwt-key.js';
 import { appConfig, type AppConfigType } from '../../config/app.config.js';
 
 /**
@@ -25,7 +26,7 @@ export class AccountThrottlerGuard extends ThrottlerGuard {
     @Inject(appConfig.KEY) config: AppConfigType,
   ) {
     super(options, storage, reflector);
-    this.tokens = new JwtService({ secret: config.jwtSecret });
+    this.tokens = new JwtService({ secret: jwtVerificationKey(config.jwtSecret) });
   }
 
   protected override async getTracker(req: { headers?: Record<string, unknown>; ip?: string }): Promise<string> {

@@ -1,0 +1,134 @@
+/**
+ * The engine beside an independent numpy/scipy calculation (`shared/bench/calibration_numpy.py`) on the same
+ * generated standards: medians of 5 runs after a warm-up of 3 to 20 runs, each side in its own child process so that its
+ * peak resident memory can be read. Installs python3-numpy and python3-scipy with apt-get when they are missing.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { loadavg } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { fitCalibration } from '../engine/calibration.js';
+import { detection } from '../engine/detection.js';
+import { lackOfFit } from '../engine/linearity.js';
+import { collectWarnings } from '../engine/warnings.js';
+import { evaluateParsedStudy } from '../evaluate.js';
+import type { StandardPoint } from '../study.js';
+import { parseStudy } from '../validate.js';
+
+const SIZES = [1_000, 10_000, 100_000, 1_000_000];
+const RUNS = 5;
+/** Runs before the measured ones on each side: at least 3, then up to 20 within 2 s (the JIT compiler settles after some 15 runs). */
+const WARM_UP = { minRuns: 3, maxRuns: 20, ms: 2000 };
+const here = dirname(fileURLToPath(import.meta.url));
+const pythonScript = join(here, '../../bench/calibration_numpy.py');
+
+interface Measured {
+  times: number[];
+  /** Process CPU time (user + system, every thread) of each run. */
+  cpu: number[];
+  maxRssKb: number;
+  figures: Record<string, number | null>;
+}
+
+/** The same standards as the Python side: 1,000 levels, replicated from 2,000 standards on. */
+function standards(n: number): StandardPoint[] {
+  return Array.from({ length: n }, (_, i) => {
+    const x = 1 + (i % 1000) / 10;
+    return { x, y: 0.5 + 2 * x + 0.01 * Math.sin(i) };
+  });
+}
+
+/** Child mode: `side-by-side.js engine|calibration N RUNS` prints one JSON line like the Python script. */
+function child(what: string, n: number, runs: number): void {
+  const study = { ...parseStudy({ standards: standards(3) }), standards: standards(n) };
+  const { warn } = collectWarnings();
+  const calibrationOnly = () => {
+    const fit = fitCalibration(study.standards);
+    return { fit, lackOfFit: lackOfFit(fit, warn), detection: detection(fit, undefined, undefined, study.alpha, [], warn) };
+  };
+  const evaluate = () => {
+    const result = evaluateParsedStudy(study);
+    return { fit: null, result };
+  };
+  const run = what === 'engine' ? evaluate : calibrationOnly;
+  const warmUpStart = performance.now();
+  for (let r = 0; r < WARM_UP.maxRuns && (r < WARM_UP.minRuns || performance.now() - warmUpStart < WARM_UP.ms); r++) run();
+  const times: number[] = [];
+  const cpu: number[] = [];
+  for (let r = 0; r < runs; r++) {
+    const start = performance.now();
+    const startCpu = process.cpuUsage();
+    run();
+    times.push(performance.now() - start);
+    const used = process.cpuUsage(startCpu);
+    cpu.push((used.user + used.system) / 1000);
+  }
+  const result = evaluateParsedStudy(study);
+  const sdResidual = result.detection?.sdResidual as { lod: number } | null | undefined;
+  const figures = {
+    slope: result.calibration?.slope ?? null,
+    intercept: result.calibration?.intercept ?? null,
+    sYX: result.calibration?.sYX ?? null,
+    ssPureError: result.lackOfFit?.ssPureError ?? null,
+    lod: sdResidual?.lod ?? null,
+    level0RePct: result.calibration?.levels[0].rePct ?? null,
+  };
+  console.log(JSON.stringify({ times, cpu, maxRssKb: process.resourceUsage().maxRSS, figures }));
+}
+
+function ensureNumpy(): void {
+  const probe = spawnSync('python3', ['-c', 'import numpy, scipy'], { stdio: 'ignore' });
+  if (probe.status === 0) return;
+  if (process.getuid?.() !== 0) throw new Error('python3-numpy and python3-scipy are missing: apt-get install python3-numpy python3-scipy');
+  console.log('Installing python3-numpy and python3-scipy…');
+  execFileSync('apt-get', ['update', '-qq'], { stdio: 'inherit' });
+  execFileSync('apt-get', ['install', '-y', '-qq', '--no-install-recommends', 'python3-numpy', 'python3-scipy'], {
+    stdio: 'inherit',
+    env: { ...process.env, DEBIAN_FRONTEND: 'noninteractive' },
+  });
+}
+
+function measure(command: string, args: string[]): Measured {
+  const out = execFileSync(command, args, { encoding: 'utf8', maxBuffer: 1 << 20 });
+  return JSON.parse(out.trim().split('\n').pop() as string) as Measured;
+}
+
+const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+const ms = (v: number) => (v < 10 ? v.toFixed(2) : v.toFixed(0));
+const mb = (kb: number) => `${Math.round(kb / 1024)} MB`;
+
+function main(): void {
+  ensureNumpy();
+  const script = fileURLToPath(import.meta.url);
+  const node = [...process.execArgv, script];
+  console.log(
+    `node ${process.version}, load average ${loadavg()
+      .map((l) => l.toFixed(1))
+      .join(
+        ' ',
+      )}; medians of ${RUNS} runs after a warm-up of ${WARM_UP.minRuns} to ${WARM_UP.maxRuns} runs (at most ${WARM_UP.ms / 1000} s)`,
+  );
+  console.log('wall-clock median ms (CPU median ms); engine: full evaluation, and its calibration + lack of fit + limits alone');
+  console.log('standards | engine, full | engine, calibration part | numpy/scipy | full ÷ numpy, wall (CPU) | peak RSS engine / numpy');
+  for (const n of SIZES) {
+    const engine = measure(process.execPath, [...node, 'engine', String(n), String(RUNS)]);
+    const calibration = measure(process.execPath, [...node, 'calibration', String(n), String(RUNS)]);
+    const numpy = measure('python3', [pythonScript, String(n), String(RUNS)]);
+    for (const [key, value] of Object.entries(numpy.figures)) {
+      const ours = engine.figures[key];
+      if (value !== null && (ours === null || Math.abs(ours - value) > 1e-8 * Math.max(1, Math.abs(value)))) {
+        console.log(`  ${key} differs at ${n}: engine ${ours}, numpy ${value}`);
+      }
+    }
+    const both = (m: Measured) => `${ms(median(m.times))} (${ms(median(m.cpu))})`;
+    const ratio = (a: number[], b: number[]) => (median(a) / median(b)).toFixed(2);
+    console.log(
+      `${n.toLocaleString('en')} | ${both(engine)} | ${both(calibration)} | ${both(numpy)} | ` +
+        `${ratio(engine.times, numpy.times)}× (${ratio(engine.cpu, numpy.cpu)}×) | ${mb(engine.maxRssKb)} / ${mb(numpy.maxRssKb)}`,
+    );
+  }
+}
+
+const [mode, size, runs] = process.argv.slice(2);
+if (mode) child(mode, Number(size), Number(runs));
+else main();
