@@ -28,8 +28,21 @@ export interface BuiltServer {
   stop: (signal?: NodeJS.Signals) => Promise<Exit>;
 }
 
+const tail = (text: string) => text.slice(-3000);
+
 /** Spawns the built server with exactly these settings (plus PATH) and resolves once /api/health answers. */
 export async function startBuiltServer(env: Record<string, string>, timeoutMs = 60_000): Promise<BuiltServer> {
+  // Other programs on the machine may take the free port before the server binds it: try another one.
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await startOnce(env, timeoutMs);
+    } catch (error) {
+      if (env.PORT || attempt >= 3 || !/EADDRINUSE/.test((error as Error).message)) throw error;
+    }
+  }
+}
+
+async function startOnce(env: Record<string, string>, timeoutMs: number): Promise<BuiltServer> {
   const port = env.PORT ? Number(env.PORT) : await freePort();
   const child = spawn(process.execPath, [BUILT_MAIN], {
     env: { PATH: process.env.PATH ?? '', ...env, PORT: String(port) },
@@ -54,7 +67,7 @@ export async function startBuiltServer(env: Record<string, string>, timeoutMs = 
   };
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    if (gone) throw new Error(`The built server stopped (${JSON.stringify(gone)}):\n${output}`);
+    if (gone) throw new Error(`The built server stopped (${JSON.stringify(gone)}):\n${tail(output)}`);
     const up = await fetch(`${base}/api/health`)
       .then((r) => r.ok)
       .catch(() => false);
@@ -62,7 +75,7 @@ export async function startBuiltServer(env: Record<string, string>, timeoutMs = 
     await new Promise((resolve) => setTimeout(resolve, 200));
   }
   await server.stop('SIGKILL');
-  throw new Error(`The built server did not answer within ${timeoutMs} ms:\n${output}`);
+  throw new Error(`The built server did not answer within ${timeoutMs} ms:\n${tail(output)}`);
 }
 
 /** Runs the built server expecting it to refuse to start: resolves with its exit and what it printed. */
