@@ -74,8 +74,8 @@ export async function crashTrial(options: { trial: number; killAfterMs: number; 
     };
     const writers = Array.from({ length: options.writers ?? 6 }, (_, w) => writer(w));
     await new Promise((resolve) => setTimeout(resolve, options.killAfterMs));
-    await first.stop('SIGKILL');
     killed = true;
+    await first.stop('SIGKILL');
     await Promise.all(writers);
 
     const restartedAt = Date.now();
