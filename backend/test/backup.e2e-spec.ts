@@ -1,5 +1,5 @@
 import { spawn } from 'node:child_process';
-import { cpSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { createHash } from 'node:crypto';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
@@ -204,5 +204,10 @@ describe('online backup and verified restore (SQLite)', () => {
     } finally {
       await server.stop();
     }
+
+    // Over the stopped installation with --force: the database replaced is kept beside, and the restored one verifies.
+    const forced = await cli(['restore', '--from', backupDir, '--force'], env);
+    expect(forced.code, forced.output).toBe(0);
+    expect(readdirSync(target).filter((f) => f.startsWith('db.sqlite.before-restore-'))).toHaveLength(1);
   }, 120_000);
 });

@@ -115,7 +115,7 @@ describe('the built server with the compose settings (SQLite in place of Postgre
   const dir = mkdtempSync(join(tmpdir(), 'meritline-production-'));
   const certificate = join(dir, 'lab-certificate.p12');
   writeFileSync(certificate, createSelfSignedP12('Production trial laboratory', 'trial-passphrase'));
-  const production = async () => ({
+  const production = async (): Promise<Record<string, string>> => ({
     ...appEnv,
     DATABASE_URL: `sqlite:${join(dir, 'production.sqlite')}`,
     DATA_DIR: dir,
