@@ -35,7 +35,13 @@ type Outcome = { name: string; status: number | 'cut-off'; id?: string };
  * its first version and an audit entry in one transaction, with some refused duplicates between them),
  * SIGKILLs the process mid-load, restarts it on the same file and checks what survived.
  */
-export async function crashTrial(options: { trial: number; killAfterMs: number; writers?: number }): Promise<CrashTrialResult> {
+export async function crashTrial(options: {
+  trial: number;
+  /** Kill this long after the first acknowledged writes, so a slow, busy machine still kills mid-load. */
+  killAfterMs: number;
+  acknowledgedBeforeKill?: number;
+  writers?: number;
+}): Promise<CrashTrialResult> {
   const dir = mkdtempSync(join(tmpdir(), 'meritline-crash-'));
   const env = { NODE_ENV: 'test', DATABASE_URL: `sqlite:${join(dir, 'crash.sqlite')}`, DATA_DIR: dir, SMTP_URL: '' };
   try {
@@ -43,6 +49,12 @@ export async function crashTrial(options: { trial: number; killAfterMs: number; 
     const token = await signIn(first.base, 'analyst@meritline.test', DEMO_PASSWORD);
     const outcomes: Outcome[] = [];
     let killed = false;
+    let loadRunning: () => void = () => undefined;
+    const enoughAcknowledged = new Promise<void>((resolve) => (loadRunning = resolve));
+    const record = (outcome: Outcome) => {
+      outcomes.push(outcome);
+      if (outcomes.filter((o) => o.status === 201).length >= (options.acknowledgedBeforeKill ?? 1)) loadRunning();
+    };
     const create = async (name: string): Promise<Outcome> => {
       try {
         const res = await fetch(`${first.base}/api/methods`, {
@@ -68,11 +80,14 @@ export async function crashTrial(options: { trial: number; killAfterMs: number; 
       for (let i = 0; !killed; i++) {
         const name = `Crash trial ${options.trial} writer ${w} method ${i}`;
         const created = await create(name);
-        outcomes.push(created);
-        if (i % 4 === 3 && created.status === 201 && !killed) outcomes.push(await create(name));
+        record(created);
+        if (i % 4 === 3 && created.status === 201 && !killed) record(await create(name));
       }
     };
     const writers = Array.from({ length: options.writers ?? 6 }, (_, w) => writer(w));
+    let fallback: NodeJS.Timeout | undefined;
+    await Promise.race([enoughAcknowledged, new Promise((resolve) => (fallback = setTimeout(resolve, 60_000)))]);
+    clearTimeout(fallback);
     await new Promise((resolve) => setTimeout(resolve, options.killAfterMs));
     killed = true;
     await first.stop('SIGKILL');
