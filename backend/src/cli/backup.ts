@@ -251,8 +251,10 @@ async function main() {
     options: { to: { type: 'string' }, from: { type: 'string' }, force: { type: 'boolean', default: false } },
   });
   const config = loadAppConfig();
-  if (command === 'backup' && values.to) return backup(config, resolve(values.to));
-  if (command === 'restore' && values.from) return restore(config, resolve(values.from), values.force);
+  // npm runs scripts from the project folder; folders given on the command line are meant from where it was typed.
+  const here = process.env.INIT_CWD ?? process.cwd();
+  if (command === 'backup' && values.to) return backup(config, resolve(here, values.to));
+  if (command === 'restore' && values.from) return restore(config, resolve(here, values.from), values.force);
   throw new BackupError(USAGE);
 }
 
