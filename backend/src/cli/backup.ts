@@ -120,6 +120,9 @@ function pgTool(name: 'pg_dump' | 'pg_restore', args: string[]) {
 }
 
 async function backup(config: AppConfig, to: string) {
+  if (config.database.type === 'sqlite' && !existsSync(config.database.path)) {
+    throw new BackupError(`There is no database at ${config.database.path}: check DATABASE_URL.`);
+  }
   if (existsSync(to) && readdirSync(to).length) throw new BackupError(`${to} is not empty; give a new folder for the backup.`);
   mkdirSync(to, { recursive: true });
   // Read before the database snapshot: every checkpoint then names entries that the snapshot holds.
