@@ -9,6 +9,8 @@ export default defineConfig({
     env: onPostgres ? { DATABASE_URL: process.env.TEST_POSTGRES_URL ?? '' } : {},
     environment: 'node',
     include: ['test/**/*.e2e-spec.ts'],
+    // Serving the built frontend does not touch the database: once, on SQLite, is enough.
+    exclude: onPostgres ? ['test/static-assets.e2e-spec.ts'] : [],
     testTimeout: 30_000,
     hookTimeout: 60_000,
     fileParallelism: false,

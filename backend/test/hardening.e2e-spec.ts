@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditService, auditHash } from '../src/audit/audit.service.js';
 import { AuditEntry as AuditEntryEntity } from '../src/audit/audit-entry.entity.js';
 import { toCsv } from '../src/common/csv.js';
-import { bearer, createStudy, dataSourceOf, withDatabase } from './support/review-fixtures.js';
+import { bearer, createStudy, dataSourceOf, queryDatabase, withDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, postgresServerUrl, type TestApp } from './support/test-app.js';
 
 describe('hardening against hostile input', () => {
@@ -20,10 +20,10 @@ describe('hardening against hostile input', () => {
   };
 
   it('should refuse an unpaired surrogate in a login e-mail with 422 and the field, writing nothing to the audit trail', async () => {
-    const before = (await dataSourceOf(t).query('SELECT COUNT(*) AS n FROM audit_entries'))[0].n;
+    const before = (await queryDatabase<{ n: number }>(t, 'SELECT COUNT(*) AS n FROM audit_entries'))[0].n;
     const res = await raw('/api/auth/login', '{"email":"\\ud800x","password":"x"}').expect(422);
     expect(res.body.errors[0]).toMatchObject({ field: 'email', code: 'unpairedSurrogate' });
-    expect((await dataSourceOf(t).query('SELECT COUNT(*) AS n FROM audit_entries'))[0].n).toBe(before);
+    expect((await queryDatabase<{ n: number }>(t, 'SELECT COUNT(*) AS n FROM audit_entries'))[0].n).toBe(before);
   });
 
   it('should refuse an unpaired surrogate deep in a body and name its path', async () => {

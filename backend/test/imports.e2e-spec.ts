@@ -211,7 +211,9 @@ describe('importing CSV and XLSX files into a study', () => {
       ).status,
     ).toBe(401);
     expect((await upload(studyId, file, 's.csv', { section: 'standards', dryRun: true }, DEMO.reviewer)).status).toBe(403);
-    expect((await upload(studyId, file, 's.csv', { section: 'standards', lockVersion: await lockOf(studyId) }, DEMO.analyst2)).status).toBe(403);
+    expect((await upload(studyId, file, 's.csv', { section: 'standards', lockVersion: await lockOf(studyId) }, DEMO.analyst2)).status).toBe(
+      403,
+    );
     expect((await upload(UNKNOWN_ID, file, 's.csv', { section: 'standards', dryRun: true })).status).toBe(404);
     const page = (
       await t
@@ -232,7 +234,10 @@ describe('importing CSV and XLSX files into a study', () => {
         .send({ methodVersionId: dyeVersionId, title: 'All sections', data: BASE_DATA })
         .expect(201)
     ).body.id;
-    const unknowns = await upload(id, fixture('unknowns-replicates.csv'), 'unknowns.csv', { section: 'unknowns', lockVersion: await lockOf(id) });
+    const unknowns = await upload(id, fixture('unknowns-replicates.csv'), 'unknowns.csv', {
+      section: 'unknowns',
+      lockVersion: await lockOf(id),
+    });
     expect(unknowns.status).toBe(200);
     expect(unknowns.body.data.unknowns[0]).toEqual({ id: 'S-3101 orange soda', y: [0.3171, 0.3165], dilution: 5 });
     expect(unknowns.body.result.unknowns).toHaveLength(3);
@@ -242,9 +247,9 @@ describe('importing CSV and XLSX files into a study', () => {
       (await upload(id, recovery, 'recovery.csv', { section: 'recovery', lockVersion: await lockOf(id) })).body.result.recovery.items,
     ).toHaveLength(4);
     const precision = Buffer.from('day;value\nday 1;5,02\nday 1;4,99\nday 2;5,05\nday 2;5,01\n');
-    expect((await upload(id, precision, 'precision.csv', { section: 'precision', lockVersion: await lockOf(id) })).body.result.precision.k).toBe(
-      2,
-    );
+    expect(
+      (await upload(id, precision, 'precision.csv', { section: 'precision', lockVersion: await lockOf(id) })).body.result.precision.k,
+    ).toBe(2);
     const spikes = Buffer.from(
       `spiked,blank\n${[0.21, 0.18, 0.2, 0.22, 0.19, 0.2, 0.21].map((v, i) => `${v},${i % 2 ? 'ND' : '0.01'}`).join('\n')}\n`,
     );
@@ -254,9 +259,9 @@ describe('importing CSV and XLSX files into a study', () => {
       blanks: [0.01, null, 0.01, null, 0.01, null, 0.01],
     });
     expect(low.body.result.detection.epaMdl.nSpiked).toBe(7);
-    const actions = (await rows(`SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'study.imported' ORDER BY seq`, id)).map(
-      (e) => JSON.parse(e.changes as string).section.to,
-    );
+    const actions = (
+      await rows(`SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'study.imported' ORDER BY seq`, id)
+    ).map((e) => JSON.parse(e.changes as string).section.to);
     expect(actions).toEqual(['unknowns', 'recovery', 'precision', 'lowSpikes']);
   });
 

@@ -1,5 +1,5 @@
-import { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 /* An invented instrument export on the demo nitrate line (about 0.0031 + 0.1523 µS·min per mg/L), in a layout of its own. */
@@ -29,7 +29,7 @@ describe('instrument exports mapped once per method version', () => {
   let reviewer: string;
   let versionId: string;
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
+  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
   const upload = (text: string, token = analyst, id = versionId) =>
     t.http().post(`/api/method-versions/${id}/instrument-import`).set(auth(token)).attach('file', Buffer.from(text, 'utf8'), 'export.csv');
   const put = (body: object, token = analyst) =>

@@ -99,7 +99,9 @@ describe('method lifecycle', () => {
         .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion, justification: `  ${JUSTIFICATION}  ` })
         .expect(200);
       expect(res.body).toMatchObject({ status: 'approved', signature: { meaning: 'reviewed-and-approved', justification: JUSTIFICATION } });
-      expect(await rows('SELECT justification FROM study_signatures WHERE study_id = ?', study.id)).toEqual([{ justification: JUSTIFICATION }]);
+      expect(await rows('SELECT justification FROM study_signatures WHERE study_id = ?', study.id)).toEqual([
+        { justification: JUSTIFICATION },
+      ]);
       const signatures = await t
         .http()
         .get(`/api/studies/${study.id}/signatures`)

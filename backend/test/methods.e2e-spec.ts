@@ -186,7 +186,11 @@ describe('methods, versions and criteria templates', () => {
         createdBy: { name: 'Jonas Lindqvist' },
         studyCount: 0,
       });
-      const audit = await rows(`SELECT action FROM audit_entries WHERE entity_id IN (?, ?) ORDER BY seq`, res.body.id, res.body.versions[0].id);
+      const audit = await rows(
+        `SELECT action FROM audit_entries WHERE entity_id IN (?, ?) ORDER BY seq`,
+        res.body.id,
+        res.body.versions[0].id,
+      );
       expect(audit.map((entry) => entry.action)).toEqual(['method.created', 'method-version.created']);
     });
 
@@ -350,9 +354,9 @@ describe('methods, versions and criteria templates', () => {
         .set(await auth(DEMO.quality))
         .send({ changeSummary: 'x', changeKind: 'other' })
         .expect(404);
-      expect((await rows('SELECT number FROM method_versions WHERE method_id = ? ORDER BY number', methodId)).map((r) => r.number)).toEqual([
-        1, 2, 3,
-      ]);
+      expect((await rows('SELECT number FROM method_versions WHERE method_id = ? ORDER BY number', methodId)).map((r) => r.number)).toEqual(
+        [1, 2, 3],
+      );
     });
 
     it('should change a draft’s criteria and record the change, old and new, in the audit trail', async () => {
@@ -482,11 +486,13 @@ describe('methods, versions and criteria templates', () => {
         { number: 2, status: 'active' },
         { number: 3, status: 'draft' },
       ]);
-      const actions = (await rows(
-        `SELECT action FROM audit_entries WHERE entity = 'method-version' AND entity_id IN (?, ?) ORDER BY seq`,
-        firstVersionId,
-        v2.id,
-      )).map((r) => r.action);
+      const actions = (
+        await rows(
+          `SELECT action FROM audit_entries WHERE entity = 'method-version' AND entity_id IN (?, ?) ORDER BY seq`,
+          firstVersionId,
+          v2.id,
+        )
+      ).map((r) => r.action);
       expect(actions).toEqual(expect.arrayContaining(['method-version.activated', 'method-version.retired']));
     });
 

@@ -1,5 +1,5 @@
-import { DataSource } from 'typeorm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 /* The demo nitrate runs are invented: five released runs set the baseline, the later runs drift upwards. */
@@ -13,7 +13,7 @@ describe('QC trends across runs', () => {
   let methodId: string;
   let versionId: string;
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
+  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
   const trends = (series: string, token = analyst, extra = '') =>
     t.http().get(`/api/methods/${methodId}/qc-trends?series=${series}${extra}`).set(auth(token));
   async function outbox(subject: string, atLeast = 1) {

@@ -5,6 +5,7 @@ import { MethodVersion } from '../src/methods/method-version.entity.js';
 import { Method } from '../src/methods/method.entity.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 import { User } from '../src/users/user.entity.js';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /*
@@ -23,7 +24,7 @@ describe('second-person release of routine runs', () => {
   let quality: string;
   let versionId: string;
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
+  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
 
   const runInput = (title: string, checkY = 13.1) => ({
     methodVersionId: versionId,
@@ -53,7 +54,7 @@ describe('second-person release of routine runs', () => {
     return { id: run.id, version: res.body.lockVersion as number };
   }
   const auditOf = (id: string) =>
-    query<{ action: string; reason: string | null }>('select action, reason from audit_entries where entity_id = ? order by rowid', [id]);
+    query<{ action: string; reason: string | null }>('select action, reason from audit_entries where entity_id = ? order by seq', [id]);
   async function outbox(subject: string) {
     for (let i = 0; i < 50; i++) {
       const rows = await query<{ subject: string; text: string; to_addresses: string }>('select * from outbox_messages where subject = ?', [
@@ -198,8 +199,7 @@ describe('second-person release of routine runs', () => {
     expect(wrongRole.body.statusCode).toBe(403);
 
     // A user with both roles performs and submits a run, then tries to release it.
-    const dataSource = t.app.get(DataSource);
-    await dataSource.query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst', 'reviewer']), DEMO.analyst2]);
+    await query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst', 'reviewer']), DEMO.analyst2]);
     const both = await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: DEMO_PASSWORD }).expect(200);
     const own = await newRun('Batch 5b', undefined, both.body.accessToken);
     const ownSub = await act(own.id, 'submit', both.body.accessToken, { password: DEMO_PASSWORD, version: 1 }).expect(200);
@@ -209,7 +209,7 @@ describe('second-person release of routine runs', () => {
     expect(self.body.message).toMatch(/You performed this run, so you cannot release it/);
     const ownQueue = await t.http().get('/api/reviews/queue?kind=run').set(auth(both.body.accessToken)).expect(200);
     expect(ownQueue.body.map((item: { id: string }) => item.id)).not.toContain(own.id);
-    await dataSource.query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst']), DEMO.analyst2]);
+    await query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst']), DEMO.analyst2]);
 
     const stale = await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: 1 }).expect(409);
     expect(stale.body.message).toMatch(/changed since you opened it/);

@@ -10,6 +10,7 @@ import { MethodVersion } from '../src/methods/method-version.entity.js';
 import { Method } from '../src/methods/method.entity.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 import { User } from '../src/users/user.entity.js';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /*
@@ -42,7 +43,7 @@ describe('signed results report of a routine run', () => {
   let versionId: string;
   let plainVersionId: string;
   const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
+  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
 
   const runInput = (methodVersionId: string, title: string, checkY = 13.1) => ({
     methodVersionId,

@@ -13,6 +13,7 @@ import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 import { User } from '../src/users/user.entity.js';
 import { runCsv } from '../src/runs/run-export.js';
 import { RunsService } from '../src/runs/runs.service.js';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const OUTPUT = fileURLToPath(new URL('../test-output', import.meta.url));
@@ -124,7 +125,7 @@ describe('routine runs', () => {
       .post('/api/runs')
       .set(auth(token))
       .send(body as object);
-  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => t.app.get(DataSource).query(sql, parameters);
+  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
   const tableCounts = async () => ({
     runs: (await query<{ n: number }>('select count(*) as n from runs'))[0].n,
     audit: (await query<{ n: number }>('select count(*) as n from audit_entries'))[0].n,
@@ -305,7 +306,7 @@ describe('routine runs', () => {
 
     it('should record the creation in the audit trail', async () => {
       const rows = await query<{ entityId: string; actorName: string }>(
-        "select actor_name as actorName, entity_id as entityId from audit_entries where action = 'run.created'",
+        'select actor_name as "actorName", entity_id as "entityId" from audit_entries where action = \'run.created\'',
       );
       expect(rows).toContainEqual(expect.objectContaining({ entityId: linearRunId, actorName: 'Alma Ruiz' }));
     });

@@ -172,7 +172,9 @@ describe.skipIf(!postgresServerUrl)('two server processes writing to one Postgre
       Promise.all(
         submitted
           .slice(10)
-          .map((s, i) => call(i, 'POST', `/api/studies/${s.id}/comments`, 'reviewer', { section: 'standards', body: `Checked on node ${i % 2}.` })),
+          .map((s, i) =>
+            call(i, 'POST', `/api/studies/${s.id}/comments`, 'reviewer', { section: 'standards', body: `Checked on node ${i % 2}.` }),
+          ),
       ),
     ]);
     expect(statuses(comments)).toEqual(Array(50).fill(201));

@@ -14,7 +14,8 @@ export function typeormOptions(database: DatabaseConfig): DataSourceOptions {
     synchronize: false,
     logging: ['error' as const],
   };
-  if (database.type === 'postgres') return { ...common, type: 'postgres', url: database.url, uuidExtension: 'pgcrypto', poolSize: POSTGRES_POOL_SIZE };
+  if (database.type === 'postgres')
+    return { ...common, type: 'postgres', url: database.url, uuidExtension: 'pgcrypto', poolSize: POSTGRES_POOL_SIZE };
   return {
     ...common,
     type: 'better-sqlite3',

@@ -11,7 +11,7 @@ import type { TestApp } from './test-app.js';
 
 /** better-sqlite3 ships no types; the tests need only these calls to reach the file behind the API. */
 interface SqliteFile {
-  prepare(sql: string): { all(...params: unknown[]): unknown[]; run(...params: unknown[]): { changes: number } };
+  prepare(sql: string): { reader: boolean; all(...params: unknown[]): unknown[]; run(...params: unknown[]): { changes: number } };
   close(): void;
 }
 const Sqlite = createRequire(import.meta.url)('better-sqlite3') as new (path: string, options?: { readonly?: boolean }) => SqliteFile;
@@ -36,7 +36,12 @@ export async function openDatabase(t: TestApp, options: { readonly?: boolean } =
   if (t.databaseUrl.startsWith('sqlite:')) {
     const db = new Sqlite(t.databaseUrl.slice('sqlite:'.length), options);
     return {
-      all: <T>(sql: string, ...params: unknown[]) => Promise.resolve(db.prepare(sql).all(...params) as T[]),
+      all: <T>(sql: string, ...params: unknown[]) => {
+        const statement = db.prepare(sql);
+        if (statement.reader) return Promise.resolve(statement.all(...params) as T[]);
+        statement.run(...params);
+        return Promise.resolve([]);
+      },
       get: <T>(sql: string, ...params: unknown[]) => Promise.resolve(db.prepare(sql).all(...params)[0] as T | undefined),
       run: (sql: string, ...params: unknown[]) => Promise.resolve(db.prepare(sql).run(...params).changes),
       close: () => Promise.resolve(db.close()),
@@ -64,7 +69,11 @@ export async function openDatabase(t: TestApp, options: { readonly?: boolean } =
 }
 
 /** One piece of work on the database behind the API, closing the connection afterwards. */
-export async function withDatabase<T>(t: TestApp, work: (db: DirectDatabase) => Promise<T>, options: { readonly?: boolean } = {}): Promise<T> {
+export async function withDatabase<T>(
+  t: TestApp,
+  work: (db: DirectDatabase) => Promise<T>,
+  options: { readonly?: boolean } = {},
+): Promise<T> {
   const db = await openDatabase(t, options);
   try {
     return await work(db);
@@ -73,9 +82,9 @@ export async function withDatabase<T>(t: TestApp, work: (db: DirectDatabase) => 
   }
 }
 
-/** The rows of one read-only query on the database behind the API. */
+/** One statement on the database behind the API, through a connection of its own; its rows, if any. */
 export function queryDatabase<T = Record<string, unknown>>(t: TestApp, sql: string, ...params: unknown[]): Promise<T[]> {
-  return withDatabase(t, (db) => db.all<T>(sql, ...params), { readonly: true });
+  return withDatabase(t, (db) => db.all<T>(sql, ...params));
 }
 
 /** Invented calibration (Riverbend demo scenario): nitrate by UV absorbance, duplicate standards at five levels. */
@@ -178,7 +187,10 @@ export function databaseState(t: TestApp, studyId: string) {
     async (db) => {
       const count = async (table: string) => (await db.get<{ n: number }>(`SELECT COUNT(*) AS n FROM ${table}`))!.n;
       return {
-        study: await db.get('SELECT status, lock_version, data, result, submitted_at, approved_at FROM validation_studies WHERE id = ?', studyId),
+        study: await db.get(
+          'SELECT status, lock_version, data, result, submitted_at, approved_at FROM validation_studies WHERE id = ?',
+          studyId,
+        ),
         signatures: await count('study_signatures'),
         comments: await count('study_comments'),
         notifications: await count('notifications'),
