@@ -6,8 +6,8 @@ const activeManager = new AsyncLocalStorage<EntityManager>();
 
 /** Connections per server process on PostgreSQL. */
 export const POSTGRES_POOL_SIZE = 10;
-// Write transactions take at most half the pool: a transaction waiting for the audit chain's lock holds its connection, and the one holding
-// the lock may still read through the pool (outside its transaction) before it commits.
+// Write transactions take at most half the pool: one waiting for the audit chain's lock holds its connection,
+// and the one holding the lock may still read through the pool (outside its transaction) before it commits.
 const POSTGRES_CONCURRENT_WRITES = POSTGRES_POOL_SIZE / 2;
 let postgresWriters = 0;
 const waitingWriters: (() => void)[] = [];
