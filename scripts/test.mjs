@@ -10,7 +10,8 @@ const steps = [
   { name: 'reference checks', cmd: ['npm', 'run', '-s', 'test', '-w', 'reference-checks'] },
   { name: 'unit: backend', cmd: ['npm', 'run', '-s', 'test', '-w', 'backend'] },
   { name: 'unit: frontend', cmd: ['npm', 'run', '-s', 'test', '-w', 'frontend'] },
-  { name: 'API end-to-end', cmd: ['npm', 'run', '-s', 'test:e2e', '-w', 'backend'], services: () => startPostgres() },
+  { name: 'API end-to-end', cmd: ['npm', 'run', '-s', 'test:e2e', '-w', 'backend'] },
+  { name: 'API end-to-end (PostgreSQL)', cmd: ['npm', 'run', '-s', 'test:e2e:postgres', '-w', 'backend'], services: () => startPostgres() },
   { name: 'browser end-to-end', cmd: ['npm', 'run', '-s', 'test:browser', '-w', 'frontend'] },
 ];
 
@@ -35,7 +36,7 @@ function runStep(step) {
   try {
     postgres = step.services?.() ?? null;
   } catch (error) {
-    log(`Could not start PostgreSQL for the scale-out tests: ${error.message}`);
+    log(`Could not start PostgreSQL for the API tests on PostgreSQL: ${error.message}`);
     return Promise.resolve({ ...step, ok: false, seconds: 0, passed: 0, failed: 1 });
   }
   return new Promise((resolve) => {
@@ -86,9 +87,9 @@ for (const step of steps) {
 
 const passed = results.reduce((sum, r) => sum + r.passed, 0);
 const failed = results.reduce((sum, r) => sum + r.failed + (r.ok || r.failed ? 0 : 1), 0);
-console.log('\nStep                    Result   Tests   Time');
+console.log(`\n${'Step'.padEnd(30)}Result   Tests   Time`);
 for (const r of results) {
-  console.log(`${r.name.padEnd(24)}${(r.ok ? 'ok' : 'FAILED').padEnd(9)}${String(r.passed).padStart(5)}   ${r.seconds.toFixed(1)} s`);
+  console.log(`${r.name.padEnd(30)}${(r.ok ? 'ok' : 'FAILED').padEnd(9)}${String(r.passed).padStart(5)}   ${r.seconds.toFixed(1)} s`);
 }
 console.log(`Total time ${((Date.now() - startedAt) / 1000).toFixed(0)} s`);
 console.log(`meritline: ${passed} passed, ${failed} failed`);

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEntry } from '../src/audit/audit-entry.entity.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
-import { bearer, createStudy, dataSourceOf, openDatabaseFile } from './support/review-fixtures.js';
+import { bearer, createStudy, dataSourceOf, withDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 describe('the audit trail and signature integrity', () => {
@@ -66,15 +66,12 @@ describe('the audit trail and signature integrity', () => {
     const before = await t.http().get(`/api/studies/${studyId}/signatures`).set(quality).expect(200);
     expect(before.body.map((s: { valid: boolean }) => s.valid)).toEqual([true, true]);
 
-    const db = openDatabaseFile(t);
-    try {
-      const row = db.prepare('SELECT data FROM validation_studies WHERE id = ?').get(studyId) as { data: string };
+    await withDatabase(t, async (db) => {
+      const row = (await db.get<{ data: string }>('SELECT data FROM validation_studies WHERE id = ?', studyId))!;
       const data = JSON.parse(row.data) as { standards: { x: number; y: number }[] };
       data.standards[4].y = Number((data.standards[4].y + 0.01).toFixed(4));
-      expect(db.prepare('UPDATE validation_studies SET data = ? WHERE id = ?').run(JSON.stringify(data), studyId).changes).toBe(1);
-    } finally {
-      db.close();
-    }
+      expect(await db.run('UPDATE validation_studies SET data = ? WHERE id = ?', JSON.stringify(data), studyId)).toBe(1);
+    });
 
     const after = await t.http().get(`/api/studies/${studyId}/signatures`).set(quality).expect(200);
     expect(after.body.map((s: { valid: boolean }) => s.valid)).toEqual([false, false]);
@@ -85,12 +82,7 @@ describe('the audit trail and signature integrity', () => {
   });
 
   it('should report the chain broken at the row edited directly in the database file', async () => {
-    const db = openDatabaseFile(t);
-    try {
-      expect(db.prepare("UPDATE audit_entries SET reason = 'x' WHERE seq = 3").run().changes).toBe(1);
-    } finally {
-      db.close();
-    }
+    expect(await withDatabase(t, (db) => db.run("UPDATE audit_entries SET reason = 'x' WHERE seq = 3"))).toBe(1);
     const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
     expect(res.body).toMatchObject({ ok: false, brokenAt: 3, reason: 'content does not match its hash' });
   });

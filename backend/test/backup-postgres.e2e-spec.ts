@@ -1,7 +1,7 @@
 import { spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -66,7 +66,7 @@ describe.skipIf(!serverUrl)('online backup (pg_dump) and verified restore (pg_re
     // Entities read DATABASE_URL at import time (binary column type), so import after setting it.
     const support = await import('./support/test-app.js');
     t = await support.createTestApp({ DATABASE_URL: databaseUrl(source) });
-    const dataDir = dirname(t.databasePath);
+    const dataDir = t.dataDir;
     live = { NODE_ENV: 'test', DATABASE_URL: databaseUrl(source), DATA_DIR: dataDir };
     key = readFileSync(join(dataDir, 'audit-hmac-key'), 'utf8').trim();
     const { AuditService } = await import('../src/audit/audit.service.js');

@@ -3,14 +3,14 @@ import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, wri
 import { createHash } from 'node:crypto';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
-import { dirname, join } from 'node:path';
+import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditService } from '../src/audit/audit.service.js';
 import { signIn, startBuiltServer } from '../src/bench/built-server.js';
 import type { BackupManifest } from '../src/cli/backup.js';
 import { bearer, createStudy } from './support/review-fixtures.js';
-import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
+import { createTestApp, DEMO, DEMO_PASSWORD, postgresServerUrl, type TestApp } from './support/test-app.js';
 
 const CLI = fileURLToPath(new URL('../dist/cli/backup.js', import.meta.url));
 const Sqlite = createRequire(import.meta.url)('better-sqlite3') as new (
@@ -51,7 +51,7 @@ interface AuditRow {
   hash: string;
 }
 
-describe('online backup and verified restore (SQLite)', () => {
+describe.skipIf(postgresServerUrl)('online backup and verified restore (SQLite)', () => {
   let t: TestApp;
   let live: Record<string, string>;
   let key: string;
@@ -59,8 +59,9 @@ describe('online backup and verified restore (SQLite)', () => {
   let manifest: BackupManifest;
   let ackedBeforeBackup: number;
   const work = mkdtempSync(join(tmpdir(), 'meritline-backup-'));
+  const databasePath = () => t.databaseUrl.slice('sqlite:'.length);
   const as = async (email: string) => bearer(await t.tokenFor(email));
-  const maxSeq = () => readOne<{ n: number }>(t.databasePath, 'SELECT max(seq) AS n FROM audit_entries').n;
+  const maxSeq = () => readOne<{ n: number }>(databasePath(), 'SELECT max(seq) AS n FROM audit_entries').n;
   const createMethod = async (name: string) =>
     t
       .http()
@@ -88,8 +89,8 @@ describe('online backup and verified restore (SQLite)', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    const dataDir = dirname(t.databasePath);
-    live = { NODE_ENV: 'test', DATABASE_URL: `sqlite:${t.databasePath}`, DATA_DIR: dataDir };
+    const dataDir = t.dataDir;
+    live = { NODE_ENV: 'test', DATABASE_URL: `sqlite:${databasePath()}`, DATA_DIR: dataDir };
     key = readFileSync(join(dataDir, 'audit-hmac-key'), 'utf8').trim();
     await approveNewStudy();
     await createMethod('Backup trial method before');
@@ -197,7 +198,7 @@ describe('online backup and verified restore (SQLite)', () => {
       };
       const entryAt = (path: string) =>
         readOne<AuditRow>(path, 'SELECT seq, action, entity_id, hash FROM audit_entries WHERE seq = ?', manifest.auditEntries);
-      const original = entryAt(t.databasePath);
+      const original = entryAt(databasePath());
       expect(newest.items[0]).toMatchObject({ seq: original.seq + 1, action: 'auth.signed-in' });
       expect(newest.items[1]).toMatchObject({ seq: original.seq, action: original.action, entityId: original.entity_id });
       expect(entryAt(join(target, 'db.sqlite')).hash).toBe(original.hash);

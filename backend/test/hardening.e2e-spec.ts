@@ -2,8 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditService, auditHash } from '../src/audit/audit.service.js';
 import { AuditEntry as AuditEntryEntity } from '../src/audit/audit-entry.entity.js';
 import { toCsv } from '../src/common/csv.js';
-import { bearer, createStudy, dataSourceOf, openDatabaseFile } from './support/review-fixtures.js';
-import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
+import { bearer, createStudy, dataSourceOf, queryDatabase, withDatabase } from './support/review-fixtures.js';
+import { createTestApp, DEMO, postgresServerUrl, type TestApp } from './support/test-app.js';
 
 describe('hardening against hostile input', () => {
   let t: TestApp;
@@ -20,10 +20,10 @@ describe('hardening against hostile input', () => {
   };
 
   it('should refuse an unpaired surrogate in a login e-mail with 422 and the field, writing nothing to the audit trail', async () => {
-    const before = (await dataSourceOf(t).query('SELECT COUNT(*) AS n FROM audit_entries'))[0].n;
+    const before = (await queryDatabase<{ n: number }>(t, 'SELECT COUNT(*) AS n FROM audit_entries'))[0].n;
     const res = await raw('/api/auth/login', '{"email":"\\ud800x","password":"x"}').expect(422);
     expect(res.body.errors[0]).toMatchObject({ field: 'email', code: 'unpairedSurrogate' });
-    expect((await dataSourceOf(t).query('SELECT COUNT(*) AS n FROM audit_entries'))[0].n).toBe(before);
+    expect((await queryDatabase<{ n: number }>(t, 'SELECT COUNT(*) AS n FROM audit_entries'))[0].n).toBe(before);
   });
 
   it('should refuse an unpaired surrogate deep in a body and name its path', async () => {
@@ -112,20 +112,21 @@ describe('hardening against hostile input', () => {
     expect(res.body.message).toMatch(/another administrator/i);
   });
 
-  it('should run SQLite with synchronous=FULL (2) under WAL', async () => {
+  it('should commit durably: SQLite with synchronous=FULL (2) under WAL, PostgreSQL with synchronous_commit on', async () => {
+    if (postgresServerUrl) {
+      const [setting] = await dataSourceOf(t).query('SHOW synchronous_commit');
+      expect(setting.synchronous_commit).toBe('on');
+      return;
+    }
     const [row] = await dataSourceOf(t).query('PRAGMA synchronous');
     expect(row.synchronous).toBe(2);
   });
 
   it('should report every audit entry edited in the database file, not only the first', async () => {
-    const db = openDatabaseFile(t);
-    try {
-      const count = (db.prepare('SELECT COUNT(*) AS n FROM audit_entries').get() as { n: number }).n;
-      expect(count).toBeGreaterThanOrEqual(3);
-      db.prepare("UPDATE audit_entries SET reason = 'x' WHERE seq IN (1, 3)").run();
-    } finally {
-      db.close();
-    }
+    await withDatabase(t, async (db) => {
+      expect((await db.get<{ n: number }>('SELECT COUNT(*) AS n FROM audit_entries'))!.n).toBeGreaterThanOrEqual(3);
+      await db.run("UPDATE audit_entries SET reason = 'x' WHERE seq IN (1, 3)");
+    });
     const quality = bearer(await t.tokenFor(DEMO.quality));
     const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
     expect(res.body).toMatchObject({ ok: false, brokenAt: 1 });
@@ -269,23 +270,18 @@ describe('the audit chain anchored by signed checkpoints', () => {
 
   // What someone with write access to the database file would do: edit a row and recompute every hash after it.
   const rechain = async (fromSeq: number, edit: string) => {
-    let db = openDatabaseFile(t);
-    db.prepare(edit).run();
-    db.close();
+    await withDatabase(t, (db) => db.run(edit));
     const entries = await dataSourceOf(t)
       .getRepository(AuditEntryEntity)
       .find({ order: { seq: 'ASC' } });
-    db = openDatabaseFile(t);
-    try {
+    await withDatabase(t, async (db) => {
       let prev = entries[fromSeq - 2].hash;
       for (const entry of entries.slice(fromSeq - 1)) {
         const hash = auditHash({ ...entry, prevHash: prev });
-        db.prepare('UPDATE audit_entries SET prev_hash = ?, hash = ? WHERE seq = ?').run(prev, hash, entry.seq);
+        await db.run('UPDATE audit_entries SET prev_hash = ?, hash = ? WHERE seq = ?', prev, hash, entry.seq);
         prev = hash;
       }
-    } finally {
-      db.close();
-    }
+    });
   };
 
   it('should detect a row edited with the chain recomputed, against the checkpoint', async () => {
@@ -298,13 +294,10 @@ describe('the audit chain anchored by signed checkpoints', () => {
   });
 
   it('should detect the last rows deleted, against the checkpoint', async () => {
-    const db = openDatabaseFile(t);
-    try {
-      const { n } = db.prepare('SELECT MAX(seq) AS n FROM audit_entries').get() as { n: number };
-      db.prepare('DELETE FROM audit_entries WHERE seq > ?').run(n - 2);
-    } finally {
-      db.close();
-    }
+    await withDatabase(t, async (db) => {
+      const { n } = (await db.get<{ n: number }>('SELECT MAX(seq) AS n FROM audit_entries'))!;
+      await db.run('DELETE FROM audit_entries WHERE seq > ?', n - 2);
+    });
     const res = await t.http().get('/api/audit/verify').set(quality).expect(200);
     expect(res.body.ok).toBe(false);
     expect(res.body.broken.map((b: { reason: string }) => b.reason).join(' ')).toMatch(/entries removed/);

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateStudy, STUDY_LIMITS } from '@meritline/shared';
 import { INLINE_EVALUATION_ROWS } from '../src/workers/worker-pool.service.js';
-import { createStudy, dataSourceOf } from './support/review-fixtures.js';
+import { createStudy, queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 /** A straight line with a little scatter, as many standards as asked (invented numbers). */
@@ -31,7 +31,11 @@ describe('bounds on a study and heavy work off the main thread', () => {
       .send({ lockVersion: study.lockVersion, data: { standards: standards(STUDY_LIMITS.rows + 1) } })
       .expect(422);
     expect(res.body.errors[0]).toMatchObject({ field: 'standards', code: 'too_many' });
-    const [row] = await dataSourceOf(t).query('SELECT lock_version AS lockVersion FROM validation_studies WHERE id = ?', [study.id]);
+    const [row] = await queryDatabase<{ lockVersion: number }>(
+      t,
+      'SELECT lock_version AS "lockVersion" FROM validation_studies WHERE id = ?',
+      study.id,
+    );
     expect(row.lockVersion).toBe(study.lockVersion);
   });
 

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
-import { calibrationData, createStudy, dataSourceOf, databaseState, evaluated, userId } from './support/review-fixtures.js';
-import { readRows, signedIn } from './support/flows.js';
+import { signedIn } from './support/flows.js';
+import { calibrationData, createStudy, dataSourceOf, databaseState, evaluated, queryDatabase, userId } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const JUSTIFICATION = 'Recovery at the lowest level is outside the range, but routine samples lie well above it.';
@@ -27,7 +27,7 @@ function runBody(methodVersionId: string, title: string) {
 
 describe('method lifecycle', () => {
   let t: TestApp;
-  const rows = (sql: string, ...params: unknown[]) => readRows(t, sql, ...params);
+  const rows = (sql: string, ...params: unknown[]) => queryDatabase(t, sql, ...params);
 
   async function failingStudy(status: ValidationStudy['status']) {
     const study = await createStudy(t, { author: DEMO.analyst, status });
@@ -52,7 +52,7 @@ describe('method lifecycle', () => {
         .set(await signedIn(t, DEMO.analyst))
         .expect(200);
       const approved = new Set(
-        rows(`SELECT method_version_id FROM validation_studies WHERE status = 'approved'`).map((r) => r.method_version_id),
+        (await rows(`SELECT method_version_id FROM validation_studies WHERE status = 'approved'`)).map((r) => r.method_version_id),
       );
       const active = (res.body as { versions: { id: string; status: string; usable: boolean; reason: string | null }[] }[])
         .flatMap((method) => method.versions)
@@ -66,7 +66,7 @@ describe('method lifecycle', () => {
     it('should refuse the approval without a written justification (422, field justification) and change nothing', async () => {
       const study = await failingStudy('submitted');
       expect((study.result as { verdict: { pass: boolean } }).verdict.pass).toBe(false);
-      const before = databaseState(t, study.id);
+      const before = await databaseState(t, study.id);
       for (const justification of [undefined, 'Fine by me.']) {
         const res = await t
           .http()
@@ -78,7 +78,7 @@ describe('method lifecycle', () => {
           expect.objectContaining({ field: 'justification', code: justification ? 'too_short' : 'required' }),
         ]);
       }
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should approve with a justification, store it with the signature and show it among the signatures', async () => {
@@ -90,7 +90,9 @@ describe('method lifecycle', () => {
         .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion, justification: `  ${JUSTIFICATION}  ` })
         .expect(200);
       expect(res.body).toMatchObject({ status: 'approved', signature: { meaning: 'reviewed-and-approved', justification: JUSTIFICATION } });
-      expect(rows('SELECT justification FROM study_signatures WHERE study_id = ?', study.id)).toEqual([{ justification: JUSTIFICATION }]);
+      expect(await rows('SELECT justification FROM study_signatures WHERE study_id = ?', study.id)).toEqual([
+        { justification: JUSTIFICATION },
+      ]);
       const signatures = await t
         .http()
         .get(`/api/studies/${study.id}/signatures`)
@@ -105,7 +107,7 @@ describe('method lifecycle', () => {
       expect(history.body).toEqual(
         expect.arrayContaining([expect.objectContaining({ action: 'study.approved', detail: `Justification: ${JUSTIFICATION}` })]),
       );
-      const [entry] = rows(
+      const [entry] = await rows(
         `SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'signature.reviewed-and-approved'`,
         res.body.signature.id,
       );
@@ -127,8 +129,8 @@ describe('method lifecycle', () => {
   describe('routine runs', () => {
     it('should refuse a run on a version whose approved study fails its criteria without a justification (422, nothing saved)', async () => {
       const study = await failingStudy('approved');
-      const count = () => rows('SELECT COUNT(*) AS n FROM runs')[0].n;
-      const before = { runs: count(), audit: rows('SELECT COUNT(*) AS n FROM audit_entries')[0].n };
+      const count = async () => (await rows('SELECT COUNT(*) AS n FROM runs'))[0].n;
+      const before = { runs: await count(), audit: (await rows('SELECT COUNT(*) AS n FROM audit_entries'))[0].n };
       const res = await t
         .http()
         .post('/api/runs')
@@ -139,7 +141,7 @@ describe('method lifecycle', () => {
       expect(res.body.errors[0].message).toMatch(
         /does not meet all its acceptance criteria and was approved without a written justification/,
       );
-      expect({ runs: count(), audit: rows('SELECT COUNT(*) AS n FROM audit_entries')[0].n }).toEqual(before);
+      expect({ runs: await count(), audit: (await rows('SELECT COUNT(*) AS n FROM audit_entries'))[0].n }).toEqual(before);
       const options = await t
         .http()
         .get(`/api/method-versions/${study.methodVersionId}/run-options`)
@@ -212,7 +214,7 @@ describe('method lifecycle', () => {
         .send({ changeSummary: 'Bad scope.', changeKind: 'other', revalidationScope: ['colour'] })
         .expect(422);
       expect(unknown.body.errors).toEqual([expect.objectContaining({ field: 'revalidationScope' })]);
-      expect(rows('SELECT COUNT(*) AS n FROM method_versions WHERE method_id = ?', methodId)[0].n).toBe(2);
+      expect((await rows('SELECT COUNT(*) AS n FROM method_versions WHERE method_id = ?', methodId))[0].n).toBe(2);
     });
 
     it('should refuse activation without an approved study covering the scope (422 with the reason) and change nothing', async () => {
@@ -224,7 +226,7 @@ describe('method lifecycle', () => {
         .expect(422);
       expect(res.body.errors).toEqual([expect.objectContaining({ field: 'status', code: 'not_covered' })]);
       expect(res.body.message).toMatch(/missing: linearity, recovery/);
-      expect(rows('SELECT status, lock_version FROM method_versions WHERE id = ?', v2.id)).toEqual([
+      expect(await rows('SELECT status, lock_version FROM method_versions WHERE id = ?', v2.id)).toEqual([
         { status: 'draft', lock_version: v2.lockVersion },
       ]);
     });
@@ -256,7 +258,7 @@ describe('method lifecycle', () => {
         .set(await signedIn(t, DEMO.quality))
         .send({ ...body, password: 'not-the-password' })
         .expect(401);
-      expect(rows('SELECT status FROM method_versions WHERE id = ?', v2.id)).toEqual([{ status: 'draft' }]);
+      expect(await rows('SELECT status FROM method_versions WHERE id = ?', v2.id)).toEqual([{ status: 'draft' }]);
     });
 
     it('should activate with a justification under the re-entered password and record it in the audit trail', async () => {
@@ -267,7 +269,7 @@ describe('method lifecycle', () => {
         .send({ lockVersion: v2.lockVersion, status: 'active', activationJustification: JUSTIFICATION, password: DEMO_PASSWORD })
         .expect(200);
       expect(res.body).toMatchObject({ status: 'active', activationJustification: JUSTIFICATION });
-      const entries = rows(
+      const entries = await rows(
         `SELECT actor_id, changes, reason FROM audit_entries WHERE entity_id = ? AND action = 'method-version.activated-with-justification'`,
         v2.id,
       );

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { readRows, signedIn } from './support/flows.js';
+import { signedIn } from './support/flows.js';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 type Row = Record<string, unknown>;
@@ -9,7 +10,8 @@ const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
 
 describe('methods, versions and criteria templates', () => {
   let t: TestApp;
-  const rows = (sql: string, ...params: unknown[]) => readRows(t, sql, ...params);
+  const auth = async (email: string) => ({ Authorization: `Bearer ${await t.tokenFor(email)}` });
+  const rows = (sql: string, ...params: unknown[]) => queryDatabase(t, sql, ...params);
   const newMethod = (name: string, extra: Row = {}) => ({
     name,
     analyte: 'Sulfate',
@@ -157,7 +159,7 @@ describe('methods, versions and criteria templates', () => {
         .set(await signedIn(t, DEMO.reviewer))
         .send(newMethod('Refused method'))
         .expect(403);
-      expect(rows('SELECT id FROM methods WHERE name = ?', 'Refused method')).toHaveLength(0);
+      expect(await rows('SELECT id FROM methods WHERE name = ?', 'Refused method')).toHaveLength(0);
     });
 
     it('should create a method with version 1 in draft and the template’s criteria and settings', async () => {
@@ -185,7 +187,11 @@ describe('methods, versions and criteria templates', () => {
         createdBy: { name: 'Jonas Lindqvist' },
         studyCount: 0,
       });
-      const audit = rows(`SELECT action FROM audit_entries WHERE entity_id IN (?, ?) ORDER BY seq`, res.body.id, res.body.versions[0].id);
+      const audit = await rows(
+        `SELECT action FROM audit_entries WHERE entity_id IN (?, ?) ORDER BY seq`,
+        res.body.id,
+        res.body.versions[0].id,
+      );
       expect(audit.map((entry) => entry.action)).toEqual(['method.created', 'method-version.created']);
     });
 
@@ -218,8 +224,8 @@ describe('methods, versions and criteria templates', () => {
     });
 
     it('should answer missing and malformed fields with 422 and one message per field, saving nothing', async () => {
-      const headers = await signedIn(t, DEMO.quality);
-      const before = rows('SELECT COUNT(*) AS n FROM methods')[0].n;
+      const headers = await auth(DEMO.quality);
+      const before = (await rows('SELECT COUNT(*) AS n FROM methods'))[0].n;
       const missing = await t.http().post('/api/methods').set(headers).send({}).expect(422);
       expect(missing.body.errors.map((e: Row) => e.field).sort()).toEqual([
         'analyte',
@@ -268,7 +274,7 @@ describe('methods, versions and criteria templates', () => {
         .set(headers)
         .send(newMethod('Extra field', { secret: true }))
         .expect(422);
-      expect(rows('SELECT COUNT(*) AS n FROM methods')[0].n).toBe(before);
+      expect((await rows('SELECT COUNT(*) AS n FROM methods'))[0].n).toBe(before);
     });
 
     it('should refuse a name already taken (in any letter case) with 409 on the name field', async () => {
@@ -279,7 +285,7 @@ describe('methods, versions and criteria templates', () => {
         .send(newMethod(NITRATE.toUpperCase()))
         .expect(409);
       expect(res.body).toMatchObject({ statusCode: 409, errors: [{ field: 'name', code: 'exists', message: expect.any(String) }] });
-      expect(rows('SELECT id FROM methods WHERE UPPER(name) = ?', NITRATE.toUpperCase())).toHaveLength(1);
+      expect(await rows('SELECT id FROM methods WHERE UPPER(name) = ?', NITRATE.toUpperCase())).toHaveLength(1);
     });
   });
 
@@ -349,9 +355,9 @@ describe('methods, versions and criteria templates', () => {
         .set(await signedIn(t, DEMO.quality))
         .send({ changeSummary: 'x', changeKind: 'other' })
         .expect(404);
-      expect(rows('SELECT number FROM method_versions WHERE method_id = ? ORDER BY number', methodId).map((r) => r.number)).toEqual([
-        1, 2, 3,
-      ]);
+      expect((await rows('SELECT number FROM method_versions WHERE method_id = ? ORDER BY number', methodId)).map((r) => r.number)).toEqual(
+        [1, 2, 3],
+      );
     });
 
     it('should change a draft’s criteria and record the change, old and new, in the audit trail', async () => {
@@ -365,7 +371,7 @@ describe('methods, versions and criteria templates', () => {
         .send({ lockVersion: before.lockVersion, criteria })
         .expect(200);
       expect(res.body).toMatchObject({ criteria, lockVersion: before.lockVersion + 1, status: 'draft' });
-      const [entry] = rows(
+      const [entry] = await rows(
         `SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'method-version.criteria-changed'`,
         firstVersionId,
       );
@@ -387,7 +393,7 @@ describe('methods, versions and criteria templates', () => {
       ]);
       expect([a.status, b.status].sort()).toEqual([200, 409]);
       const winner = a.status === 200 ? 'Edit A.' : 'Edit B.';
-      expect(rows('SELECT change_summary, lock_version FROM method_versions WHERE id = ?', firstVersionId)[0]).toEqual({
+      expect((await rows('SELECT change_summary, lock_version FROM method_versions WHERE id = ?', firstVersionId))[0]).toEqual({
         change_summary: winner,
         lock_version: lockVersion + 1,
       });
@@ -423,7 +429,7 @@ describe('methods, versions and criteria templates', () => {
         .set(await signedIn(t, DEMO.reviewer))
         .send({ lockVersion: own.lockVersion + 1, changeSummary: 'x' })
         .expect(403);
-      expect(rows('SELECT status, change_summary FROM method_versions WHERE id = ?', own.id)[0]).toEqual({
+      expect((await rows('SELECT status, change_summary FROM method_versions WHERE id = ?', own.id))[0]).toEqual({
         status: 'draft',
         change_summary: 'Analyst proposal, reworded.',
       });
@@ -476,15 +482,17 @@ describe('methods, versions and criteria templates', () => {
         .send({ lockVersion: activated.body.lockVersion, status: 'draft' })
         .expect(409);
       expect(skip.body.errors[0].field).toBe('status');
-      expect(rows('SELECT number, status FROM method_versions WHERE method_id = ? ORDER BY number', methodId)).toEqual([
+      expect(await rows('SELECT number, status FROM method_versions WHERE method_id = ? ORDER BY number', methodId)).toEqual([
         { number: 1, status: 'retired' },
         { number: 2, status: 'active' },
         { number: 3, status: 'draft' },
       ]);
-      const actions = rows(
-        `SELECT action FROM audit_entries WHERE entity = 'method-version' AND entity_id IN (?, ?) ORDER BY seq`,
-        firstVersionId,
-        v2.id,
+      const actions = (
+        await rows(
+          `SELECT action FROM audit_entries WHERE entity = 'method-version' AND entity_id IN (?, ?) ORDER BY seq`,
+          firstVersionId,
+          v2.id,
+        )
       ).map((r) => r.action);
       expect(actions).toEqual(expect.arrayContaining(['method-version.activated', 'method-version.retired']));
     });

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, createStudy, openDatabaseFile } from './support/review-fixtures.js';
+import { bearer, createStudy, queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -83,12 +83,7 @@ describe('in-app notifications', () => {
     await t.http().post(`/api/notifications/${theirs.id}/read`).set(analyst).expect(404);
     await t.http().post(`/api/notifications/${UNKNOWN_ID}/read`).set(analyst).expect(404);
     await t.http().post('/api/notifications/not-an-id/read').set(analyst).expect(400);
-    const db = openDatabaseFile(t, { readonly: true });
-    try {
-      expect(db.prepare('SELECT read_at FROM notifications WHERE id = ?').get(theirs.id)).toEqual({ read_at: null });
-    } finally {
-      db.close();
-    }
+    expect(await queryDatabase(t, 'SELECT read_at FROM notifications WHERE id = ?', theirs.id)).toEqual([{ read_at: null }]);
   });
 
   it('should mark all of the caller’s notices read and no one else’s', async () => {

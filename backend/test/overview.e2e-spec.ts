@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { RunReviewStatus, type OverviewDto } from '@meritline/shared';
-import { bearer, dataSourceOf } from './support/review-fixtures.js';
+import { bearer, dataSourceOf, queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 import { Run } from '../src/runs/run.entity.js';
 
@@ -68,9 +68,11 @@ describe('the overview of waiting work', () => {
   });
 
   it('should list the control-chart signals e-mailed to the quality managers, in words, for them only', async () => {
-    const [{ id: methodId }] = await dataSourceOf(t).query('select id from methods where name = ?', [
-      'Nitrate in drinking water by ion chromatography',
-    ]);
+    const [{ id: methodId }] = await queryDatabase<{ id: string }>(
+      t,
+      'select id from methods where name = ?',
+      ...['Nitrate in drinking water by ion chromatography'],
+    );
     await t
       .http()
       .get(`/api/methods/${methodId}/qc-trends?series=slope`)

@@ -3,8 +3,8 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, calibrationData } from './support/review-fixtures.js';
-import { binary, readRows } from './support/flows.js';
+import { binary } from './support/flows.js';
+import { bearer, calibrationData, queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -54,8 +54,8 @@ describe('standard preparations', () => {
   let reviewer: string;
   let quality: string;
   const materials: Record<string, { id: string; lockVersion: number; certifiedValue: number; standardUncertainty: number }> = {};
-  const query = <T>(sql: string, ...params: unknown[]) => readRows(t, sql, ...params) as T[];
-  const count = () => query<{ n: number }>('SELECT COUNT(*) AS n FROM standard_preparations')[0].n;
+  const query = <T>(sql: string, ...params: unknown[]) => queryDatabase<T>(t, sql, ...params);
+  const count = async () => (await query<{ n: number }>('SELECT COUNT(*) AS n FROM standard_preparations'))[0].n;
   const preview = (body: unknown, token = analyst) =>
     t
       .http()
@@ -105,7 +105,7 @@ describe('standard preparations', () => {
     });
 
     it('should give the QUAM A1 cadmium stock, u_c and every budget contribution, and save nothing', async () => {
-      const before = count();
+      const before = await count();
       const uPurity = q.P.half_width / Math.sqrt(3); // rectangular, as QUAM A1.4 treats the purity tolerance
       const res = await preview({ source: { purity: q.P.value, uPurity }, stock: quamStock, steps: [] }, reviewer).expect(200);
       const { stock } = res.body;
@@ -126,7 +126,7 @@ describe('standard preparations', () => {
       relClose(contribution('volumeTemperature'), published.V_temperature);
       relClose(stock.budget.find((b: { quantity: string }) => b.quantity === 'volume').u, q.V.u_mL);
       expect(res.body.steps).toEqual([]);
-      expect(count()).toBe(before);
+      expect(await count()).toBe(before);
     });
 
     it('should carry the stock through two dilutions, u combined in quadrature (GUM 5.1.6; a/√3 and a/√6, common practice)', async () => {
@@ -213,7 +213,7 @@ describe('standard preparations', () => {
   describe('POST /api/preparations, GET /api/preparations[/:id]', () => {
     it('should save for analysts only, audited, and refuse others (401, 403) and bad input (422) saving nothing', async () => {
       const body = { name: 'Cadmium 1000 mg/L and working standards', ...fromMaterial(materials.Cadmium.id) };
-      const before = count();
+      const before = await count();
       await t.http().post('/api/preparations').send(body).expect(401);
       await t.http().post('/api/preparations').set(bearer(quality)).send(body).expect(403);
       await t.http().post('/api/preparations').set(bearer(reviewer)).send(body).expect(403);
@@ -230,14 +230,14 @@ describe('standard preparations', () => {
         .set(bearer(analyst))
         .send({ ...body, stock: { ...body.stock, volume: -1 } })
         .expect(422);
-      expect(count()).toBe(before);
+      expect(await count()).toBe(before);
 
       const saved = (await t.http().post('/api/preparations').set(bearer(analyst)).send(body).expect(201)).body;
       expect(saved).toMatchObject({ name: body.name, material: { id: materials.Cadmium.id }, createdBy: { name: 'Alma Ruiz' } });
       expect(saved.result.steps).toHaveLength(2);
       expect(saved.source.purity).toBe(materials.Cadmium.certifiedValue);
-      expect(count()).toBe(before + 1);
-      const audit = query<{ action: string }>('SELECT action FROM audit_entries WHERE entity_id = ?', saved.id);
+      expect(await count()).toBe(before + 1);
+      const audit = await query<{ action: string }>('SELECT action FROM audit_entries WHERE entity_id = ?', saved.id);
       expect(audit.map((a) => a.action)).toEqual(['preparation.created']);
 
       const one = (await t.http().get(`/api/preparations/${saved.id}`).set(bearer(reviewer)).expect(200)).body;
@@ -272,8 +272,8 @@ describe('standard preparations', () => {
         const d = calibrationData();
         return { ...d, standards: d.standards!.map((s, i) => (i < 2 ? { ...s, preparationId } : s)) };
       };
-      const studies = () => query<{ n: number }>('SELECT COUNT(*) AS n FROM validation_studies')[0].n;
-      const before = studies();
+      const studies = async () => (await query<{ n: number }>('SELECT COUNT(*) AS n FROM validation_studies'))[0].n;
+      const before = await studies();
       const unknown = await t
         .http()
         .post('/api/studies')
@@ -281,7 +281,7 @@ describe('standard preparations', () => {
         .send({ methodVersionId: versionId, title: 'With an unknown preparation', data: data(UNKNOWN_ID) })
         .expect(422);
       expect(unknown.body.errors[0]).toMatchObject({ field: 'standards[0].preparationId', code: 'not_found' });
-      expect(studies()).toBe(before);
+      expect(await studies()).toBe(before);
 
       const study = (
         await t
@@ -329,7 +329,7 @@ describe('standard preparations', () => {
         .expect(422);
       expect(again.body.errors[0]).toMatchObject({ field: 'standards[0].preparationId', code: 'material_expired' });
       expect(again.body.errors[0].message).toContain(`expired on ${day(-3)}`);
-      expect(studies()).toBe(before + 1);
+      expect(await studies()).toBe(before + 1);
     });
   });
 });

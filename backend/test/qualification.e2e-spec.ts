@@ -5,7 +5,7 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ENGINE_VERSION, QUALIFICATION_CHECKS, type QualificationRunDetailDto } from '@meritline/shared';
 import { bearer } from './support/review-fixtures.js';
-import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
+import { createTestApp, DEMO, postgresServerUrl, type TestApp } from './support/test-app.js';
 
 type BodyParser = Parameters<ReturnType<ReturnType<TestApp['http']>['get']>['parse']>[0];
 const binary: BodyParser = (res, done) => {
@@ -46,7 +46,7 @@ describe('self-qualification of the calculations', () => {
     run = (await t.http().post('/api/qualification').set(as('quality')).expect(201)).body;
     expect(run).toMatchObject({ total: QUALIFICATION_CHECKS.length, passed: QUALIFICATION_CHECKS.length, failed: 0, allPassed: true });
     expect(run.installation).toMatchObject({ engineVersion: ENGINE_VERSION, nodeVersion: process.version, productVersion: '0.1.0' });
-    expect(run.installation.databaseKind).toMatch(/^SQLite \d+\.\d+/);
+    expect(run.installation.databaseKind).toMatch(postgresServerUrl ? /^PostgreSQL \d+\.\d+/ : /^SQLite \d+\.\d+/);
     expect(run.checks.map((c) => c.id)).toEqual(QUALIFICATION_CHECKS.map((c) => c.id));
     expect(run.minDigits).toBeGreaterThanOrEqual(9);
     const list = await t.http().get('/api/qualification').set(as('admin')).expect(200);

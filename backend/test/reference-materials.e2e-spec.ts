@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ReferenceMaterialsService } from '../src/reference-materials/reference-materials.service.js';
-import { bearer } from './support/review-fixtures.js';
-import { binary, readRows } from './support/flows.js';
+import { binary } from './support/flows.js';
+import { bearer, queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -32,13 +32,13 @@ describe('reference materials register', () => {
   let reviewer: string;
   let quality: string;
   let admin: string;
-  const count = () => readRows(t, 'SELECT COUNT(*) AS n FROM reference_materials')[0].n as number;
+  const count = async () => (await queryDatabase<{ n: number }>(t, 'SELECT COUNT(*) AS n FROM reference_materials'))[0].n;
   const auditOf = (id: string) =>
-    readRows(t, 'SELECT action, reason, changes FROM audit_entries WHERE entity_id = ? ORDER BY seq', id) as {
-      action: string;
-      reason: string | null;
-      changes: string;
-    }[];
+    queryDatabase<{ action: string; reason: string | null; changes: string }>(
+      t,
+      'SELECT action, reason, changes FROM audit_entries WHERE entity_id = ? ORDER BY seq',
+      id,
+    );
   const create = async (extra: Record<string, unknown> = {}) =>
     (await t.http().post('/api/reference-materials').set(bearer(quality)).send(material(extra)).expect(201)).body;
 
@@ -97,19 +97,19 @@ describe('reference materials register', () => {
   });
 
   it('should let quality managers and administrators register a material, audited, and refuse analysts and reviewers (403)', async () => {
-    const before = count();
+    const before = await count();
     await t.http().post('/api/reference-materials').set(bearer(analyst)).send(material()).expect(403);
     await t.http().post('/api/reference-materials').set(bearer(reviewer)).send(material()).expect(403);
-    expect(count()).toBe(before);
+    expect(await count()).toBe(before);
 
     const created = await create();
     expect(created).toMatchObject({ status: 'in-use', lockVersion: 1, unit: 'g/g', certificate: null, standardUncertainty: 0.00005 });
     const byAdmin = (await t.http().post('/api/reference-materials').set(bearer(admin)).send(material()).expect(201)).body;
-    expect(count()).toBe(before + 2);
-    const [entry] = auditOf(created.id);
+    expect(await count()).toBe(before + 2);
+    const [entry] = await auditOf(created.id);
     expect(entry.action).toBe('reference-material.created');
     expect(JSON.parse(entry.changes).lot).toEqual({ from: null, to: created.lot });
-    expect(auditOf(byAdmin.id).map((e) => e.action)).toEqual(['reference-material.created']);
+    expect((await auditOf(byAdmin.id)).map((e) => e.action)).toEqual(['reference-material.created']);
   });
 
   it.each([
@@ -127,10 +127,10 @@ describe('reference materials register', () => {
     ['valueKind', { valueKind: 'solution' }, 'isIn'],
     ['storage', { storage: 'x'.repeat(501) }, 'maxLength'],
   ])('should refuse a bad %s with 422 and save nothing (%j)', async (field, extra, code) => {
-    const before = count();
+    const before = await count();
     const res = await t.http().post('/api/reference-materials').set(bearer(quality)).send(material(extra)).expect(422);
     expect(res.body.errors).toContainEqual(expect.objectContaining({ field, code }));
-    expect(count()).toBe(before);
+    expect(await count()).toBe(before);
   });
 
   it('should accept a content with a stated standard uncertainty and refuse a duplicate lot (409)', async () => {
@@ -177,7 +177,7 @@ describe('reference materials register', () => {
     await t.http().patch(`/api/reference-materials/${created.id}`).set(bearer(quality)).send({ lockVersion: 2, name: null }).expect(422);
     await t.http().patch(`/api/reference-materials/${created.id}`).set(bearer(quality)).send({ storage: 'no lock' }).expect(422);
     await t.http().patch(`/api/reference-materials/${UNKNOWN_ID}`).set(bearer(quality)).send({ lockVersion: 1 }).expect(404);
-    const entries = auditOf(created.id);
+    const entries = await auditOf(created.id);
     expect(entries.map((e) => e.action)).toEqual(['reference-material.created', 'reference-material.updated']);
     expect(JSON.parse(entries[1].changes).storage).toEqual({ from: 'Dry, room temperature', to: 'Desiccator' });
   });
@@ -225,7 +225,7 @@ describe('reference materials register', () => {
       .set(bearer(quality))
       .send({ reason: 'again', lockVersion: 2 })
       .expect(409);
-    const last = auditOf(created.id).at(-1)!;
+    const last = (await auditOf(created.id)).at(-1)!;
     expect(last).toMatchObject({ action: 'reference-material.withdrawn', reason: 'Cracked bottle' });
   });
 
@@ -262,7 +262,7 @@ describe('reference materials register', () => {
     const download = await t.http().get(url).set(bearer(reviewer)).buffer(true).parse(binary).expect(200);
     expect(download.headers['content-type']).toBe('application/pdf');
     expect(Buffer.compare(download.body as Buffer, PDF)).toBe(0);
-    expect(auditOf(created.id).at(-1)!.action).toBe('reference-material.certificate-uploaded');
+    expect((await auditOf(created.id)).at(-1)!.action).toBe('reference-material.certificate-uploaded');
     await t.http().get(`/api/reference-materials/${UNKNOWN_ID}/certificate`).set(bearer(analyst)).expect(404);
   });
 
@@ -286,6 +286,6 @@ describe('reference materials register', () => {
     expect(zinc[0].to).toEqual([DEMO.quality]);
     const nitrate = await mails(subjectOf('Sodium nitrate, dried', 18));
     expect(nitrate).toHaveLength(1);
-    expect(auditOf(soon.id).map((e) => e.action)).toContain('reference-material.expiry-notice-sent');
+    expect((await auditOf(soon.id)).map((e) => e.action)).toContain('reference-material.expiry-notice-sent');
   });
 });

@@ -6,7 +6,7 @@ import {
   databaseState,
   dataSourceOf,
   evaluated,
-  openDatabaseFile,
+  queryDatabase,
   userId,
 } from './support/review-fixtures.js';
 import { studyAction } from './support/flows.js';
@@ -52,39 +52,54 @@ describe('review and sign-off', () => {
   describe('submitting', () => {
     it('should refuse anonymous callers (401), other roles (403), other analysts (403) and unknown studies (404)', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
-      const before = databaseState(t, study.id);
+      const before = await databaseState(t, study.id);
       await t.http().post(`/api/studies/${study.id}/submit`).send({ password: DEMO_PASSWORD }).expect(401);
       await act(study.id, 'submit', 'reviewer', { password: DEMO_PASSWORD }).expect(403);
       const other = await act(study.id, 'submit', 'analyst2', { password: DEMO_PASSWORD }).expect(403);
       expect(other.body.message).toMatch(/only the author/i);
       await act(UNKNOWN_ID, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(404);
       await t.http().post('/api/studies/not-a-uuid/submit').set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(400);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should answer missing or malformed fields with 422 and one message per field', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
-      const before = databaseState(t, study.id);
-      const res = await act(study.id, 'submit', 'analyst', { comment: 'x'.repeat(2001), lockVersion: 0 }).expect(422);
+      const before = await databaseState(t, study.id);
+      const res = await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ comment: 'x'.repeat(2001), lockVersion: 0 })
+        .expect(422);
       expect(res.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['comment', 'lockVersion', 'password']);
-      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD, approve: true }).expect(422);
-      expect(databaseState(t, study.id)).toEqual(before);
+      await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ password: DEMO_PASSWORD, approve: true })
+        .expect(422);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should refuse a study whose results cannot be computed with 422 listing why', async () => {
       const study = await createStudy(t, { author: DEMO.analyst, withoutResult: true });
-      const before = databaseState(t, study.id);
-      const res = await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(422);
+      const before = await databaseState(t, study.id);
+      const res = await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(422);
       expect(res.body.errors).toEqual([{ field: 'standards', code: 'too_few', message: expect.stringMatching(/at least 3 standards/) }]);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should refuse a wrong password with 401, sign nothing and record the failed signature', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
-      const before = databaseState(t, study.id);
-      const res = await act(study.id, 'submit', 'analyst', { password: 'not-my-password' }).expect(401);
+      const before = await databaseState(t, study.id);
+      const res = await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ password: 'not-my-password' })
+        .expect(401);
       expect(res.body.message).toBe('Password not correct; nothing was signed.');
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
       const audit = await t.http().get(`/api/audit?record=study:${study.id}`).set(as('quality')).expect(200);
       expect(audit.body.items[0]).toMatchObject({ action: 'signature.failed', actorName: 'Alma Ruiz' });
       await t.http().get('/api/auth/me').set(as('analyst')).expect(200);
@@ -92,10 +107,15 @@ describe('review and sign-off', () => {
 
     it('should refuse a stale lock version with 409', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
-      const before = databaseState(t, study.id);
-      const res = await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 }).expect(409);
+      const before = await databaseState(t, study.id);
+      const res = await t
+        .http()
+        .post(`/api/studies/${study.id}/submit`)
+        .set(as('analyst'))
+        .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 })
+        .expect(409);
       expect(res.body.message).toMatch(/changed since you opened it/);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should submit with an authored signature, e-mail every reviewer but the author and notify them in the app', async () => {
@@ -132,25 +152,30 @@ describe('review and sign-off', () => {
     });
 
     it('should refuse to approve or return a draft with 409', async () => {
-      const before = databaseState(t, study.id);
-      const approve = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(409);
+      const before = await databaseState(t, study.id);
+      const approve = await t
+        .http()
+        .post(`/api/studies/${study.id}/approve`)
+        .set(as('reviewer'))
+        .send({ password: DEMO_PASSWORD })
+        .expect(409);
       expect(approve.body.message).toMatch(/a draft; only a submitted study can be approved/);
-      await act(study.id, 'return', 'reviewer', { comment: 'Not yet.' }).expect(409);
-      expect(databaseState(t, study.id)).toEqual(before);
+      await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment: 'Not yet.' }).expect(409);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should refuse a return without a comment (422), by an analyst (403), anonymously (401) and for an unknown study (404)', async () => {
-      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
-      const before = databaseState(t, study.id);
-      const missing = await act(study.id, 'return', 'reviewer', {}).expect(422);
+      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
+      const before = await databaseState(t, study.id);
+      const missing = await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({}).expect(422);
       expect(missing.body.errors[0]).toMatchObject({ field: 'comment' });
       const blank = await act(study.id, 'return', 'reviewer', { comment: '   ' }).expect(422);
       expect(blank.body.errors[0]).toMatchObject({ field: 'comment', message: 'Say what the author should change before resubmitting.' });
       await act(study.id, 'return', 'analyst', { comment: 'Self-return' }).expect(403);
       await t.http().post(`/api/studies/${study.id}/return`).send({ comment: 'Anonymous' }).expect(401);
-      await act(UNKNOWN_ID, 'return', 'reviewer', { comment: 'Who?' }).expect(404);
-      await act(study.id, 'return', 'reviewer', { comment: 'Stale', lockVersion: 1 }).expect(409);
-      expect(databaseState(t, study.id)).toEqual(before);
+      await t.http().post(`/api/studies/${UNKNOWN_ID}/return`).set(as('reviewer')).send({ comment: 'Who?' }).expect(404);
+      await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment: 'Stale', lockVersion: 1 }).expect(409);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should return a submitted study to its author with the comment by e-mail and in the app', async () => {
@@ -210,13 +235,13 @@ describe('review and sign-off', () => {
         .accessToken;
       const own = await createStudy(t, { author: DEMO.analyst2 });
       await t.http().post(`/api/studies/${own.id}/submit`).set(bearer(both)).send({ password: DEMO_PASSWORD }).expect(200);
-      const before = databaseState(t, own.id);
+      const before = await databaseState(t, own.id);
       const res = await t.http().post(`/api/studies/${own.id}/approve`).set(bearer(both)).send({ password: DEMO_PASSWORD }).expect(403);
       expect(res.body.message).toMatch(/second person/);
       await t.http().post(`/api/studies/${own.id}/return`).set(bearer(both)).send({ comment: 'Returning my own' }).expect(403);
       const queue = await t.http().get('/api/reviews/queue').set(bearer(both)).expect(200);
       expect(queue.body.map((q: { id: string }) => q.id)).not.toContain(own.id);
-      expect(databaseState(t, own.id)).toEqual(before);
+      expect(await databaseState(t, own.id)).toEqual(before);
       await t
         .http()
         .patch(`/api/users/${analyst2Id}`)
@@ -227,17 +252,17 @@ describe('review and sign-off', () => {
 
     it('should refuse the approval of a study by someone who edited its data (403)', async () => {
       const edited = await createStudy(t, { author: DEMO.analyst, editors: [DEMO.reviewer] });
-      await act(edited.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
-      const before = databaseState(t, edited.id);
-      await act(edited.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(403);
-      expect(databaseState(t, edited.id)).toEqual(before);
+      await t.http().post(`/api/studies/${edited.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
+      const before = await databaseState(t, edited.id);
+      await t.http().post(`/api/studies/${edited.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(403);
+      expect(await databaseState(t, edited.id)).toEqual(before);
       const queue = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
       expect(queue.body.map((q: { id: string }) => q.id)).not.toContain(edited.id);
     });
 
     it('should refuse an approval with a wrong password (401) or a missing one (422) and change nothing', async () => {
-      const before = databaseState(t, study.id);
-      const wrong = await act(study.id, 'approve', 'reviewer', { password: 'guess' }).expect(401);
+      const before = await databaseState(t, study.id);
+      const wrong = await t.http().post(`/api/studies/${study.id}/approve`).set(as('reviewer')).send({ password: 'guess' }).expect(401);
       expect(wrong.body.message).toBe('Password not correct; nothing was signed.');
       const missing = await act(study.id, 'approve', 'reviewer', { password: '' }).expect(422);
       expect(missing.body.errors[0]).toMatchObject({ field: 'password', message: 'Enter your password to sign.' });
@@ -246,7 +271,7 @@ describe('review and sign-off', () => {
       await act(UNKNOWN_ID, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(404);
       const stale = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD, lockVersion: 1 }).expect(409);
       expect(stale.body.message).toMatch(/changed since you opened it/);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should approve with a reviewer signature and e-mail the author and the quality managers', async () => {
@@ -265,19 +290,14 @@ describe('review and sign-off', () => {
       expect(mails[0].text).toMatch(/does not replace/);
       const notices = await t.http().get('/api/notifications').set(as('quality')).expect(200);
       expect(notices.body.items[0]).toMatchObject({ kind: 'study.approved' });
-      const db = openDatabaseFile(t, { readonly: true });
-      try {
-        expect(db.prepare('SELECT COUNT(*) AS n FROM validation_reports WHERE study_id = ?').get(study.id)).toEqual({ n: 1 });
-      } finally {
-        db.close();
-      }
+      expect(await queryDatabase(t, 'SELECT COUNT(*) AS n FROM validation_reports WHERE study_id = ?', study.id)).toEqual([{ n: 1 }]);
     });
 
     it('should keep an approved study locked against further transitions (409)', async () => {
-      const before = databaseState(t, study.id);
-      await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(409);
-      await act(study.id, 'return', 'quality', { comment: 'Reopen' }).expect(409);
-      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(409);
+      const before = await databaseState(t, study.id);
+      await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(409);
+      await t.http().post(`/api/studies/${study.id}/return`).set(as('quality')).send({ comment: 'Reopen' }).expect(409);
+      await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(409);
       const current = await t.http().get(`/api/studies/${study.id}`).set(as('analyst')).expect(200);
       const edit = await t
         .http()
@@ -286,7 +306,7 @@ describe('review and sign-off', () => {
         .send({ title: 'Changed afterwards', lockVersion: current.body.lockVersion })
         .expect(409);
       expect(edit.body.message).toMatch(/approved/);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should tell the whole story in the history, oldest first', async () => {
@@ -339,10 +359,15 @@ describe('review and sign-off', () => {
         methodVersionNumber: 1,
       });
 
-      const before = databaseState(t, study.id);
-      const again = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(403);
+      const before = await databaseState(t, study.id);
+      const again = await t
+        .http()
+        .post(`/api/studies/${study.id}/approve`)
+        .set(as('reviewer'))
+        .send({ password: DEMO_PASSWORD })
+        .expect(403);
       expect(again.body.message).toMatch(/awaits release by a quality manager/);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
 
       const released = await newMail(async () => {
         const res = await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(200);
@@ -361,10 +386,10 @@ describe('review and sign-off', () => {
       await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
       const first = await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(200);
       expect(first.body.signature.signerRole).toBe('reviewer');
-      const before = databaseState(t, study.id);
-      const res = await act(study.id, 'approve', 'quality', { password: DEMO_PASSWORD }).expect(403);
+      const before = await databaseState(t, study.id);
+      const res = await t.http().post(`/api/studies/${study.id}/approve`).set(as('quality')).send({ password: DEMO_PASSWORD }).expect(403);
       expect(res.body.message).toMatch(/different quality manager/);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
   });
 
@@ -379,7 +404,7 @@ describe('review and sign-off', () => {
       expect(answers.map((a) => a.status).sort()).toEqual([200, 409]);
       const signatures = await t.http().get(`/api/studies/${study.id}/signatures`).set(as('analyst')).expect(200);
       expect(signatures.body.filter((s: { meaning: string }) => s.meaning === 'reviewed-and-approved')).toHaveLength(1);
-      expect((databaseState(t, study.id).study as { status: string }).status).toBe('approved');
+      expect(((await databaseState(t, study.id)).study as { status: string }).status).toBe('approved');
     });
   });
 
@@ -424,13 +449,13 @@ describe('review and sign-off', () => {
 
     it('should refuse a copy onto a retired method version (422), by a reviewer (403), anonymously (401) or of an unknown study (404)', async () => {
       const retired = await createStudy(t, { author: DEMO.analyst, status: 'approved', retired: true });
-      const before = databaseState(t, retired.id);
+      const before = await databaseState(t, retired.id);
       const res = await t.http().post(`/api/studies/${retired.id}/copy`).set(as('analyst')).expect(422);
       expect(res.body.errors[0]).toMatchObject({ field: 'methodVersionId', code: 'retired' });
       await t.http().post(`/api/studies/${retired.id}/copy`).set(as('reviewer')).expect(403);
       await t.http().post(`/api/studies/${retired.id}/copy`).expect(401);
       await t.http().post(`/api/studies/${UNKNOWN_ID}/copy`).set(as('analyst')).expect(404);
-      expect(databaseState(t, retired.id)).toEqual(before);
+      expect(await databaseState(t, retired.id)).toEqual(before);
     });
   });
 
@@ -470,25 +495,30 @@ describe('review and sign-off', () => {
     });
 
     it('should refuse bad comments with 422 field messages and change nothing', async () => {
-      const before = databaseState(t, study.id);
-      const bad = await act(study.id, 'comments', 'reviewer', { section: 'appendix', body: ' ' }).expect(422);
+      const before = await databaseState(t, study.id);
+      const bad = await t
+        .http()
+        .post(`/api/studies/${study.id}/comments`)
+        .set(as('reviewer'))
+        .send({ section: 'appendix', body: ' ' })
+        .expect(422);
       expect(bad.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['body', 'section']);
       const thread = await act(study.id, 'comments', 'reviewer', { section: 'blanks', body: 'Reply', threadId: UNKNOWN_ID }).expect(422);
       expect(thread.body.errors[0]).toMatchObject({ field: 'threadId', code: 'unknown_thread' });
       await act(study.id, 'comments', 'reviewer', { section: 'blanks', body: 'x'.repeat(4001) }).expect(422);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('reviewer')).send({ resolved: 'yes' }).expect(422);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should refuse comments to anonymous callers (401), admins (403), unknown studies and comments (404)', async () => {
-      const before = databaseState(t, study.id);
+      const before = await databaseState(t, study.id);
       await t.http().post(`/api/studies/${study.id}/comments`).send({ section: 'blanks', body: 'Hi' }).expect(401);
       await act(study.id, 'comments', 'admin', { section: 'blanks', body: 'Hi' }).expect(403);
       await act(UNKNOWN_ID, 'comments', 'reviewer', { section: 'blanks', body: 'Hi' }).expect(404);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('reviewer')).send({ resolved: true }).expect(404);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).send({ resolved: true }).expect(401);
       await t.http().patch(`/api/studies/${study.id}/comments/${UNKNOWN_ID}`).set(as('admin')).send({ resolved: true }).expect(403);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
   });
 });

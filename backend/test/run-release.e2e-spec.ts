@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StudyInput } from '@meritline/shared';
 import { addValidatedVersion, bearer, outboxMessages, postRun, releaseRun, runAction, sqlQuery, submitRun } from './support/flows.js';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /*
@@ -18,6 +19,7 @@ describe('second-person release of routine runs', () => {
   let reviewer: string;
   let quality: string;
   let versionId: string;
+  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
 
   const runInput = (title: string, checkY = 13.1) => ({
     methodVersionId: versionId,
@@ -43,9 +45,7 @@ describe('second-person release of routine runs', () => {
     return { id: run.id, version: await releaseRun(t, run.id, reviewer, run.version) };
   }
   const auditOf = (id: string) =>
-    sqlQuery<{ action: string; reason: string | null }>(t, 'select action, reason from audit_entries where entity_id = ? order by rowid', [
-      id,
-    ]);
+    query<{ action: string; reason: string | null }>('select action, reason from audit_entries where entity_id = ? order by seq', [id]);
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -148,7 +148,7 @@ describe('second-person release of routine runs', () => {
     expect(wrongRole.body.statusCode).toBe(403);
 
     // A user with both roles performs and submits a run, then tries to release it.
-    await sqlQuery(t, `update users set roles = ? where email = ?`, [JSON.stringify(['analyst', 'reviewer']), DEMO.analyst2]);
+    await query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst', 'reviewer']), DEMO.analyst2]);
     const both = await t.http().post('/api/auth/login').send({ email: DEMO.analyst2, password: DEMO_PASSWORD }).expect(200);
     const own = await newRun('Batch 5b', undefined, both.body.accessToken);
     const ownSub = await act(own.id, 'submit', both.body.accessToken, { password: DEMO_PASSWORD, version: 1 }).expect(200);
@@ -158,7 +158,7 @@ describe('second-person release of routine runs', () => {
     expect(self.body.message).toMatch(/You performed this run, so you cannot release it/);
     const ownQueue = await t.http().get('/api/reviews/queue?kind=run').set(bearer(both.body.accessToken)).expect(200);
     expect(ownQueue.body.map((item: { id: string }) => item.id)).not.toContain(own.id);
-    await sqlQuery(t, `update users set roles = ? where email = ?`, [JSON.stringify(['analyst']), DEMO.analyst2]);
+    await query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst']), DEMO.analyst2]);
 
     const stale = await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: 1 }).expect(409);
     expect(stale.body.message).toMatch(/changed since you opened it/);

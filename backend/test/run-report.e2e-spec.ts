@@ -4,8 +4,8 @@ import { fileURLToPath } from 'node:url';
 import ExcelJS from 'exceljs';
 import Papa from 'papaparse';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { evaluateStudy, topDownUncertainty, type StudyInput } from '@meritline/shared';
 import { addValidatedVersion, bearer, binary, postRun, releaseRun, runAction, sqlQuery, submitRun } from './support/flows.js';
+import { evaluateStudy, topDownUncertainty, type StudyInput } from '@meritline/shared';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /*

@@ -8,7 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ENGINE_VERSION, type StudyInput } from '@meritline/shared';
 import { runCsv } from '../src/runs/run-export.js';
 import { RunsService } from '../src/runs/runs.service.js';
-import { addValidatedVersion, bearer, binary, postRun, sqlQuery, type ValidatedVersion } from './support/flows.js';
+import { addValidatedVersion, bearer, binary, sqlQuery, type ValidatedVersion } from './support/flows.js';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const OUTPUT = fileURLToPath(new URL('../test-output', import.meta.url));
@@ -62,7 +63,14 @@ describe('routine runs', () => {
     versions[key] = (await addValidatedVersion(t, { name: `${key} method`, studyTitle: `${key} validation`, ...options })).id;
   };
 
-  const post = (body: unknown, token = analyst) => postRun(t, token, body);
+  const auth = (token: string) => ({ Authorization: `Bearer ${token}` });
+  const post = (body: unknown, token = analyst) =>
+    t
+      .http()
+      .post('/api/runs')
+      .set(auth(token))
+      .send(body as object);
+  const query = <T>(sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
   const tableCounts = async () => ({
     runs: (await sqlQuery<{ n: number }>(t, 'select count(*) as n from runs'))[0].n,
     audit: (await sqlQuery<{ n: number }>(t, 'select count(*) as n from audit_entries'))[0].n,
@@ -242,9 +250,8 @@ describe('routine runs', () => {
     });
 
     it('should record the creation in the audit trail', async () => {
-      const rows = await sqlQuery<{ entityId: string; actorName: string }>(
-        t,
-        "select actor_name as actorName, entity_id as entityId from audit_entries where action = 'run.created'",
+      const rows = await query<{ entityId: string; actorName: string }>(
+        'select actor_name as "actorName", entity_id as "entityId" from audit_entries where action = \'run.created\'',
       );
       expect(rows).toContainEqual(expect.objectContaining({ entityId: linearRunId, actorName: 'Alma Ruiz' }));
     });

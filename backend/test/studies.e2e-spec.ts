@@ -6,7 +6,8 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { canonicalJson, ENGINE_VERSION } from '@meritline/shared';
-import { listMethods, readRows, signedIn } from './support/flows.js';
+import { listMethods, signedIn } from './support/flows.js';
+import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 type Row = Record<string, unknown>;
@@ -56,10 +57,11 @@ describe('validation studies', () => {
   let t: TestApp;
   const versions: Record<string, string> = {};
   const seeded: Record<string, Row> = {};
-  const rows = (sql: string, ...params: unknown[]) => readRows(t, sql, ...params);
-  const stored = (id: string) =>
-    rows('SELECT data, data_hash, lock_version, title, status, editor_ids FROM validation_studies WHERE id = ?', id)[0];
-  const studyCount = () => rows('SELECT COUNT(*) AS n FROM validation_studies')[0].n;
+  const auth = async (email: string) => ({ Authorization: `Bearer ${await t.tokenFor(email)}` });
+  const rows = (sql: string, ...params: unknown[]) => queryDatabase(t, sql, ...params);
+  const stored = async (id: string) =>
+    (await rows('SELECT data, data_hash, lock_version, title, status, editor_ids FROM validation_studies WHERE id = ?', id))[0];
+  const studyCount = async () => (await rows('SELECT COUNT(*) AS n FROM validation_studies'))[0].n;
   const create = async (body: Row, status = 201) =>
     t
       .http()
@@ -181,7 +183,7 @@ describe('validation studies', () => {
           .set(await signedIn(t, email))
           .send(body)
           .expect(403);
-      expect(studyCount()).toBe(10);
+      expect(await studyCount()).toBe(10);
     });
 
     it('should refuse a retired or unknown method version with 422 on methodVersionId', async () => {
@@ -191,7 +193,7 @@ describe('validation studies', () => {
       ]);
       const unknown = await create({ methodVersionId: UNKNOWN_ID, title: 'Nowhere', data: completeData() }, 422);
       expect(unknown.body.errors[0]).toMatchObject({ field: 'methodVersionId', code: 'not_found' });
-      expect(studyCount()).toBe(10);
+      expect(await studyCount()).toBe(10);
     });
 
     it('should answer missing fields, bad meta and malformed study data with 422 field messages, saving nothing', async () => {
@@ -227,7 +229,7 @@ describe('validation studies', () => {
           expect.objectContaining({ field: 'recovery[0].added', code: 'not_positive' }),
         ]),
       );
-      expect(studyCount()).toBe(10);
+      expect(await studyCount()).toBe(10);
     });
 
     it('should keep an incomplete draft with no result and the engine’s reasons', async () => {
@@ -326,7 +328,7 @@ describe('validation studies', () => {
           'updatedAt',
         ].sort(),
       );
-      const audit = rows(`SELECT action FROM audit_entries WHERE entity_id = ?`, res.body.id);
+      const audit = await rows(`SELECT action FROM audit_entries WHERE entity_id = ?`, res.body.id);
       expect(audit.map((entry) => entry.action)).toEqual(['study.created']);
     });
 
@@ -383,7 +385,7 @@ describe('validation studies', () => {
     });
 
     it('should let the author change the title and meta without touching the data', async () => {
-      const before = stored(studyId);
+      const before = await stored(studyId);
       const res = await t
         .http()
         .patch(`/api/studies/${studyId}`)
@@ -396,12 +398,12 @@ describe('validation studies', () => {
         meta: { conclusion: 'Pending.' },
         dataHash: before.data_hash,
       });
-      const [entry] = rows(`SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'study.updated'`, studyId);
+      const [entry] = await rows(`SELECT changes FROM audit_entries WHERE entity_id = ? AND action = 'study.updated'`, studyId);
       expect(JSON.parse(entry.changes as string).title).toEqual({ from: 'Editable study', to: 'Editable study, renamed' });
     });
 
     it('should refuse anonymous callers (401), other roles (403) and another analyst (403), saving nothing', async () => {
-      const before = stored(studyId);
+      const before = await stored(studyId);
       await t.http().patch(`/api/studies/${studyId}`).send({ lockVersion: 2, title: 'x' }).expect(401);
       await t
         .http()
@@ -416,7 +418,7 @@ describe('validation studies', () => {
         .send({ lockVersion: 2, title: 'Mine now' })
         .expect(403);
       expect(other.body.message).toBe('Only the author of a study may change it.');
-      expect(stored(studyId)).toEqual(before);
+      expect(await stored(studyId)).toEqual(before);
     });
 
     it('should answer 409 for a submitted or approved study, 409 for a stale lockVersion, 422 without one and 404 for an unknown id', async () => {
@@ -438,13 +440,13 @@ describe('validation studies', () => {
       const missing = await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ title: 'No lock' }).expect(422);
       expect(missing.body.errors[0].field).toBe('lockVersion');
       await t.http().patch(`/api/studies/${UNKNOWN_ID}`).set(alma).send({ lockVersion: 1, title: 'x' }).expect(404);
-      expect(stored(studyId).title).toBe('Editable study, renamed');
-      expect(rows('SELECT title FROM validation_studies WHERE id = ?', seeded[TITLES.dye].id)[0].title).toBe(TITLES.dye);
+      expect((await stored(studyId)).title).toBe('Editable study, renamed');
+      expect((await rows('SELECT title FROM validation_studies WHERE id = ?', seeded[TITLES.dye].id))[0].title).toBe(TITLES.dye);
     });
 
     it('should let exactly one of two simultaneous data edits win and store the winner’s data and result', async () => {
-      const alma = await signedIn(t, DEMO.analyst);
-      const { lock_version: lockVersion } = stored(studyId);
+      const alma = await auth(DEMO.analyst);
+      const { lock_version: lockVersion } = await stored(studyId);
       const edit = (blank: number) => ({ ...completeData(), blanks: [blank, blank + 0.1, blank + 0.2] });
       const [a, b] = await Promise.all([
         t
@@ -460,7 +462,7 @@ describe('validation studies', () => {
       ]);
       expect([a.status, b.status].sort()).toEqual([200, 409]);
       const winner = a.status === 200 ? a.body : b.body;
-      const row = stored(studyId);
+      const row = await stored(studyId);
       expect(row.lock_version).toBe((lockVersion as number) + 1);
       expect(JSON.parse(row.data as string).blanks).toEqual(winner.data.blanks);
       expect(row.data_hash).toBe(createHash('sha256').update(canonicalJson(winner.data)).digest('hex'));
@@ -468,7 +470,7 @@ describe('validation studies', () => {
     });
 
     it('should answer malformed data with the engine’s field errors and keep the stored study as it was', async () => {
-      const before = stored(studyId);
+      const before = await stored(studyId);
       const data = completeData();
       (data.standards[0] as Row).excluded = { reason: '' };
       const res = await t
@@ -478,7 +480,7 @@ describe('validation studies', () => {
         .send({ lockVersion: before.lock_version, data })
         .expect(422);
       expect(res.body.errors).toEqual([expect.objectContaining({ field: 'standards[0].excluded.reason' })]);
-      expect(stored(studyId)).toEqual(before);
+      expect(await stored(studyId)).toEqual(before);
     });
 
     it('should record each newly excluded standard with its reason and each re-included one', async () => {
@@ -496,7 +498,7 @@ describe('validation studies', () => {
       expect(excluded.body.result.calibration.excluded.map((e: Row) => e.index)).toEqual([2, 4]);
       delete data.standards[2].excluded;
       await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion: excluded.body.lockVersion, data }).expect(200);
-      const entries = rows(
+      const entries = await rows(
         `SELECT action, reason, changes FROM audit_entries WHERE entity_id = ? AND action LIKE 'study.point-%' ORDER BY seq`,
         studyId,
       );
@@ -509,8 +511,8 @@ describe('validation studies', () => {
     });
 
     it('should keep a draft whose data become incomplete, with no result and the reasons', async () => {
-      const alma = await signedIn(t, DEMO.analyst);
-      const { lock_version: lockVersion } = stored(studyId);
+      const alma = await auth(DEMO.analyst);
+      const { lock_version: lockVersion } = await stored(studyId);
       const res = await t
         .http()
         .patch(`/api/studies/${studyId}`)
@@ -523,7 +525,7 @@ describe('validation studies', () => {
     it('should ask for a reason before changing the data of a returned study, and add the editor', async () => {
       const tomasz = await signedIn(t, DEMO.analyst2);
       const study = (await t.http().get(`/api/studies/${seeded[TITLES.pesticideReturned].id}`).set(tomasz)).body;
-      const before = stored(study.id);
+      const before = await stored(study.id);
       const data = structuredClone(study.data);
       data.standards[0].excluded = { reason: 'Re-injected: the first injection of the lowest standard was contaminated.' };
       const refused = await t
@@ -539,14 +541,14 @@ describe('validation studies', () => {
           message: 'Say why the study changes after it was returned; the reason is kept with the change.',
         },
       ]);
-      expect(stored(study.id)).toEqual(before);
+      expect(await stored(study.id)).toEqual(before);
       await t
         .http()
         .patch(`/api/studies/${study.id}`)
         .set(tomasz)
         .send({ lockVersion: study.lockVersion, title: `${study.title} (rev. 2)` })
         .expect(422);
-      expect(stored(study.id)).toEqual(before);
+      expect(await stored(study.id)).toEqual(before);
       const titleOnly = await t
         .http()
         .patch(`/api/studies/${study.id}`)
@@ -561,7 +563,7 @@ describe('validation studies', () => {
         .expect(200);
       expect(res.body.status).toBe('returned');
       expect(res.body.editorIds).toEqual([study.author.id]);
-      const [entry] = rows(
+      const [entry] = await rows(
         `SELECT reason FROM audit_entries WHERE entity_id = ? AND action = 'study.updated' ORDER BY seq DESC LIMIT 1`,
         study.id,
       );
@@ -599,7 +601,7 @@ describe('validation studies', () => {
         .delete(`/api/studies/${UNKNOWN_ID}`)
         .set(await signedIn(t, DEMO.analyst))
         .expect(404);
-      expect(stored(draft.id)).toBeDefined();
+      expect(await stored(draft.id)).toBeDefined();
 
       await t
         .http()
@@ -611,7 +613,7 @@ describe('validation studies', () => {
         .get(`/api/studies/${draft.id}`)
         .set(await signedIn(t, DEMO.analyst))
         .expect(404);
-      expect(rows(`SELECT action FROM audit_entries WHERE entity_id = ? ORDER BY seq`, draft.id).map((e) => e.action)).toEqual([
+      expect((await rows(`SELECT action FROM audit_entries WHERE entity_id = ? ORDER BY seq`, draft.id)).map((e) => e.action)).toEqual([
         'study.created',
         'study.deleted',
       ]);

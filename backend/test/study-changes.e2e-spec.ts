@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { bearer, createStudy, databaseState, openDatabaseFile, userId } from './support/review-fixtures.js';
+import { bearer, createStudy, databaseState, queryDatabase, userId } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -29,17 +29,13 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
     (await t.http().get(`/api/studies/${id}`).set(as(who)).expect(200)).body as Study;
   const patch = (id: string, who: keyof typeof DEMO, body: Record<string, unknown>) =>
     t.http().patch(`/api/studies/${id}`).set(as(who)).send(body);
-  const auditOf = (id: string, action: string) => {
-    const db = openDatabaseFile(t, { readonly: true });
-    try {
-      return db.prepare('SELECT changes, reason FROM audit_entries WHERE entity_id = ? AND action = ? ORDER BY seq').all(id, action) as {
-        changes: string;
-        reason: string | null;
-      }[];
-    } finally {
-      db.close();
-    }
-  };
+  const auditOf = (id: string, action: string) =>
+    queryDatabase<{ changes: string; reason: string | null }>(
+      t,
+      'SELECT changes, reason FROM audit_entries WHERE entity_id = ? AND action = ? ORDER BY seq',
+      id,
+      action,
+    );
   const history = async (id: string) =>
     (await t.http().get(`/api/studies/${id}/history`).set(as('reviewer')).expect(200)).body as {
       action: string;
@@ -56,7 +52,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
   describe('after a study was returned', () => {
     it('should refuse a change of the conclusion, the title or the data without a reason (422 on reason) and save nothing', async () => {
       const study = await get((await createStudy(t, { author: DEMO.analyst, status: 'returned' })).id);
-      const before = databaseState(t, study.id);
+      const before = await databaseState(t, study.id);
       const data = structuredClone(study.data);
       data.standards[1].y = 0.13;
       for (const body of [
@@ -68,7 +64,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
         const res = await patch(study.id, 'analyst', { lockVersion: study.lockVersion, ...body }).expect(422);
         expect(res.body.errors).toEqual([expect.objectContaining({ field: 'reason', code: 'required' })]);
       }
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
       expect((await get(study.id)).meta.conclusion).toBeUndefined();
     });
 
@@ -139,7 +135,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
     it('should let only the author change a draft or a returned study (403 for others, who still read it)', async () => {
       for (const status of ['draft', 'returned'] as const) {
         const study = await get((await createStudy(t, { author: DEMO.analyst, status })).id);
-        const before = databaseState(t, study.id);
+        const before = await databaseState(t, study.id);
         const other = await patch(study.id, 'analyst2', {
           lockVersion: study.lockVersion,
           title: 'Taken over',
@@ -148,7 +144,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
         expect(other.body.message).toMatch(/only the author/i);
         await patch(study.id, 'reviewer', { lockVersion: study.lockVersion, title: 'Taken over' }).expect(403);
         await patch(study.id, 'admin', { lockVersion: study.lockVersion, title: 'Taken over' }).expect(403);
-        expect(databaseState(t, study.id)).toEqual(before);
+        expect(await databaseState(t, study.id)).toEqual(before);
         expect((await get(study.id, 'analyst2')).status).toBe(status);
       }
     });
@@ -163,16 +159,16 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
     it('should refuse anonymous callers (401), everyone but an administrator (403) and unknown studies (404)', async () => {
       const study = await get((await createStudy(t, { author: DEMO.analyst })).id);
       const body = { authorId: await userId(t, DEMO.analyst2), reason: 'Alma is on leave.', lockVersion: study.lockVersion };
-      const before = databaseState(t, study.id);
+      const before = await databaseState(t, study.id);
       await reassign(study.id, body).expect(401);
       for (const who of ['analyst', 'analyst2', 'reviewer', 'quality'] as const) await reassign(study.id, body, who).expect(403);
       await reassign(UNKNOWN_ID, body, 'admin').expect(404);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
     });
 
     it('should answer bad input with 422 per field, a stale lock version or a study past draft with 409, and save nothing', async () => {
       const study = await get((await createStudy(t, { author: DEMO.analyst })).id);
-      const before = databaseState(t, study.id);
+      const before = await databaseState(t, study.id);
       const missing = await reassign(study.id, { reason: ' ', authorId: 'nobody' }, 'admin').expect(422);
       expect(missing.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['authorId', 'lockVersion', 'reason']);
       const lockVersion = study.lockVersion;
@@ -185,7 +181,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
       expect(same.body.errors).toEqual([expect.objectContaining({ field: 'authorId', code: 'same_author' })]);
       const analyst2 = await userId(t, DEMO.analyst2);
       await reassign(study.id, { authorId: analyst2, reason: 'Away.', lockVersion: lockVersion + 1 }, 'admin').expect(409);
-      expect(databaseState(t, study.id)).toEqual(before);
+      expect(await databaseState(t, study.id)).toEqual(before);
       const submitted = await get((await createStudy(t, { author: DEMO.analyst, status: 'submitted' })).id);
       const locked = await reassign(
         submitted.id,
@@ -205,7 +201,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
       ).expect(200);
       expect(res.body).toMatchObject({ author: { id: analyst2 }, status: 'draft', lockVersion: study.lockVersion + 1 });
       expect(res.body.editorIds).toContain(analyst2);
-      const [entry] = auditOf(study.id, 'study.reassigned');
+      const [entry] = await auditOf(study.id, 'study.reassigned');
       expect(entry.reason).toBe('Alma is on leave until March; Tomasz finishes the study.');
       expect(JSON.parse(entry.changes).authorId).toEqual({ from: study.author.id, to: analyst2 });
       const item = (await history(study.id)).find((h) => h.action === 'study.reassigned');
@@ -228,7 +224,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
       expect(res.body.result.recovery.overall).toMatchObject({ n: 2 });
       expect(res.body.result.recovery.overall.meanPct).toBeCloseTo(100, 10);
       expect(res.body.result.recovery.excluded).toEqual([{ index: 2, label: 'S3', value: 0.61, reason }]);
-      const [entry] = auditOf(study.id, 'study.point-excluded');
+      const [entry] = await auditOf(study.id, 'study.point-excluded');
       expect(entry.reason).toBe(reason);
       expect(JSON.parse(entry.changes)).toEqual({ 'recovery[2].excluded': { from: null, to: { reason } } });
       const bad = await patch(study.id, 'analyst', {
@@ -257,7 +253,7 @@ describe('changes to a study: reasons, record, author and exclusions', () => {
       expect(res.body.result.warnings).toContainEqual(
         expect.objectContaining({ section: 'detection', code: 'excluded', message: `1 method blank excluded by the analyst: ${reason}` }),
       );
-      const entry = auditOf(study.id, 'study.point-excluded').find((e) => e.changes.includes('blanks[6]'));
+      const entry = (await auditOf(study.id, 'study.point-excluded')).find((e) => e.changes.includes('blanks[6]'));
       expect(entry?.reason).toBe(reason);
       expect(JSON.parse(entry!.changes)).toEqual({ 'blanks[6].excluded': { from: null, to: { reason } } });
       const item = (await history(study.id)).find((h) => h.action === 'study.point-excluded');

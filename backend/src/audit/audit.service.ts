@@ -11,6 +11,8 @@ import { writeTransaction } from '../database/write-transaction.js';
 import { AuditEntry, type FieldChanges } from './audit-entry.entity.js';
 
 export const GENESIS_HASH = '0'.repeat(64);
+/** The PostgreSQL advisory lock key that serialises appends to the chain (any fixed number no other lock uses). */
+const AUDIT_CHAIN_LOCK = 7_204_311_889;
 
 export interface AuditRecord {
   actor: { id: string; name: string } | { id: null; name: string };
@@ -137,17 +139,13 @@ export class AuditService implements OnApplicationBootstrap, OnApplicationShutdo
     if (record.action === 'study.approved' && this.config) {
       void this.checkpoint().catch((e: Error) => this.logger.error(`Audit checkpoint failed: ${e.message}`));
     }
-    for (let attempt = 0; ; attempt++) {
-      try {
-        return await (manager ? this.append(record, manager) : writeTransaction(this.dataSource, (m) => this.append(record, m)));
-      } catch (error) {
-        if (attempt >= 5 || !/unique|duplicate|constraint/i.test((error as Error).message)) throw error;
-        this.logger.warn('Audit sequence taken by a concurrent writer; retrying.');
-      }
-    }
+    return manager ? this.append(record, manager) : writeTransaction(this.dataSource, (m) => this.append(record, m));
   }
 
   private async append(record: AuditRecord, manager: EntityManager): Promise<AuditEntry> {
+    // SQLite writes take turns in this process (writeTransaction). PostgreSQL may have several server processes
+    // writing at once: the chain head is locked until this transaction ends, so the next entry reads it committed.
+    if (manager.connection.options.type === 'postgres') await manager.query('SELECT pg_advisory_xact_lock($1)', [AUDIT_CHAIN_LOCK]);
     const repo = manager.getRepository(AuditEntry);
     const [last] = await repo.find({ order: { seq: 'DESC' }, take: 1 });
     const entry = repo.create({

@@ -2,6 +2,7 @@ import type { DataSourceOptions } from 'typeorm';
 import type { DatabaseConfig } from '../config/app.config.js';
 import { entities } from './entities.js';
 import { migrations } from './migrations/index.js';
+import { POSTGRES_POOL_SIZE } from './write-transaction.js';
 import { AuditEntrySubscriber } from '../audit/audit-entry.subscriber.js';
 
 export function typeormOptions(database: DatabaseConfig): DataSourceOptions {
@@ -13,7 +14,8 @@ export function typeormOptions(database: DatabaseConfig): DataSourceOptions {
     synchronize: false,
     logging: ['error' as const],
   };
-  if (database.type === 'postgres') return { ...common, type: 'postgres', url: database.url, uuidExtension: 'pgcrypto' };
+  if (database.type === 'postgres')
+    return { ...common, type: 'postgres', url: database.url, uuidExtension: 'pgcrypto', poolSize: POSTGRES_POOL_SIZE };
   return {
     ...common,
     type: 'better-sqlite3',

@@ -8,7 +8,7 @@ import { MethodVersion } from '../../src/methods/method-version.entity.js';
 import { Method } from '../../src/methods/method.entity.js';
 import { ValidationStudy } from '../../src/studies/validation-study.entity.js';
 import { User } from '../../src/users/user.entity.js';
-import { bearer, openDatabaseFile } from './review-fixtures.js';
+import { bearer, queryDatabase } from './review-fixtures.js';
 import { DEMO, DEMO_PASSWORD, type TestApp } from './test-app.js';
 
 export { bearer };
@@ -20,15 +20,8 @@ export const signedIn = async (t: TestApp, email: string) => bearer(await t.toke
 
 type Row = Record<string, unknown>;
 
-/** Rows read from the database file itself, read-only, as someone with file access could. */
-export function readRows(t: TestApp, sql: string, ...params: unknown[]): Row[] {
-  const db = openDatabaseFile(t, { readonly: true });
-  try {
-    return db.prepare(sql).all(...params) as Row[];
-  } finally {
-    db.close();
-  }
-}
+/** Rows read from the database itself (the SQLite file or a PostgreSQL connection of its own), as someone with direct access could. */
+export const readRows = (t: TestApp, sql: string, ...params: unknown[]): Promise<Row[]> => queryDatabase(t, sql, ...params);
 
 /** GET /api/methods as a demo user. */
 export async function listMethods<T = MethodDto>(t: TestApp, email: string): Promise<T[]> {
@@ -41,9 +34,8 @@ export async function listMethods<T = MethodDto>(t: TestApp, email: string): Pro
   ).body as T[];
 }
 
-/** Raw SQL against the app's own connection, for checking what was (not) stored. */
-export const sqlQuery = <T>(t: TestApp, sql: string, parameters: unknown[] = []): Promise<T[]> =>
-  t.app.get(DataSource).query(sql, parameters);
+/** Raw SQL (`?` placeholders on both databases), for checking what was (not) stored. */
+export const sqlQuery = <T>(t: TestApp, sql: string, parameters: unknown[] = []): Promise<T[]> => queryDatabase<T>(t, sql, ...parameters);
 
 type BodyParser = Parameters<ReturnType<ReturnType<TestApp['http']>['get']>['parse']>[0];
 

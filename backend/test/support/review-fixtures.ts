@@ -1,5 +1,6 @@
 import { createHash, randomUUID } from 'node:crypto';
 import { createRequire } from 'node:module';
+import pg from 'pg';
 import { DataSource } from 'typeorm';
 import { canonicalJson, ENGINE_VERSION, evaluateStudy, type StudyInput } from '@meritline/shared';
 import { MethodVersion } from '../../src/methods/method-version.entity.js';
@@ -9,19 +10,81 @@ import { User } from '../../src/users/user.entity.js';
 import type { TestApp } from './test-app.js';
 
 /** better-sqlite3 ships no types; the tests need only these calls to reach the file behind the API. */
-export interface SqliteFile {
-  prepare(sql: string): {
-    get(...params: unknown[]): unknown;
-    all(...params: unknown[]): unknown[];
-    run(...params: unknown[]): { changes: number };
-  };
+interface SqliteFile {
+  prepare(sql: string): { reader: boolean; all(...params: unknown[]): unknown[]; run(...params: unknown[]): { changes: number } };
   close(): void;
 }
-const Database = createRequire(import.meta.url)('better-sqlite3') as new (path: string, options?: { readonly?: boolean }) => SqliteFile;
+const Sqlite = createRequire(import.meta.url)('better-sqlite3') as new (path: string, options?: { readonly?: boolean }) => SqliteFile;
 
-/** Opens the test database directly, as someone with file access could, bypassing the API. */
-export function openDatabaseFile(t: TestApp, options: { readonly?: boolean } = {}): SqliteFile {
-  return new Database(t.databasePath, options);
+/** The database behind the API, in plain SQL with `?` placeholders, the same on SQLite and PostgreSQL. */
+export interface DirectDatabase {
+  all<T = Record<string, unknown>>(sql: string, ...params: unknown[]): Promise<T[]>;
+  get<T = Record<string, unknown>>(sql: string, ...params: unknown[]): Promise<T | undefined>;
+  /** Returns the number of rows changed. */
+  run(sql: string, ...params: unknown[]): Promise<number>;
+  close(): Promise<void>;
+}
+
+// COUNT(*) is a bigint and arrives as a string from pg; the tests compare it with numbers as on SQLite.
+const pgTypes = {
+  getTypeParser: (oid: number, format?: 'text' | 'binary') =>
+    oid === pg.types.builtins.INT8 || oid === pg.types.builtins.NUMERIC ? Number : pg.types.getTypeParser(oid, format),
+} as pg.CustomTypesConfig;
+
+/** Opens the test database directly, as someone with access to the file or the database server could, bypassing the API. */
+export async function openDatabase(t: TestApp, options: { readonly?: boolean } = {}): Promise<DirectDatabase> {
+  if (t.databaseUrl.startsWith('sqlite:')) {
+    const db = new Sqlite(t.databaseUrl.slice('sqlite:'.length), options);
+    return {
+      all: <T>(sql: string, ...params: unknown[]) => {
+        const statement = db.prepare(sql);
+        if (statement.reader) return Promise.resolve(statement.all(...params) as T[]);
+        statement.run(...params);
+        return Promise.resolve([]);
+      },
+      get: <T>(sql: string, ...params: unknown[]) => Promise.resolve(db.prepare(sql).all(...params)[0] as T | undefined),
+      run: (sql: string, ...params: unknown[]) => Promise.resolve(db.prepare(sql).run(...params).changes),
+      close: () => Promise.resolve(db.close()),
+    };
+  }
+  const client = new pg.Client({
+    connectionString: t.databaseUrl,
+    types: pgTypes,
+    ...(options.readonly ? { options: '-c default_transaction_read_only=on' } : {}),
+  });
+  await client.connect();
+  const query = (sql: string, params: unknown[]) => {
+    let n = 0;
+    return client.query(
+      sql.replace(/\?/g, () => `$${++n}`),
+      params,
+    );
+  };
+  return {
+    all: async <T>(sql: string, ...params: unknown[]) => (await query(sql, params)).rows as T[],
+    get: async <T>(sql: string, ...params: unknown[]) => (await query(sql, params)).rows[0] as T | undefined,
+    run: async (sql: string, ...params: unknown[]) => (await query(sql, params)).rowCount ?? 0,
+    close: () => client.end(),
+  };
+}
+
+/** One piece of work on the database behind the API, closing the connection afterwards. */
+export async function withDatabase<T>(
+  t: TestApp,
+  work: (db: DirectDatabase) => Promise<T>,
+  options: { readonly?: boolean } = {},
+): Promise<T> {
+  const db = await openDatabase(t, options);
+  try {
+    return await work(db);
+  } finally {
+    await db.close();
+  }
+}
+
+/** One statement on the database behind the API, through a connection of its own; its rows, if any. */
+export function queryDatabase<T = Record<string, unknown>>(t: TestApp, sql: string, ...params: unknown[]): Promise<T[]> {
+  return withDatabase(t, (db) => db.all<T>(sql, ...params));
 }
 
 /** Invented calibration (Riverbend demo scenario): nitrate by UV absorbance, duplicate standards at five levels. */
@@ -119,22 +182,24 @@ export async function createStudy(t: TestApp, options: StudyFixtureOptions): Pro
 
 /** Counts and states that a refused request must leave as they were. */
 export function databaseState(t: TestApp, studyId: string) {
-  const db = openDatabaseFile(t, { readonly: true });
-  try {
-    const count = (table: string) => (db.prepare(`SELECT COUNT(*) AS n FROM ${table}`).get() as { n: number }).n;
-    return {
-      study: db
-        .prepare('SELECT status, lock_version, data, result, submitted_at, approved_at FROM validation_studies WHERE id = ?')
-        .get(studyId),
-      signatures: count('study_signatures'),
-      comments: count('study_comments'),
-      notifications: count('notifications'),
-      studies: count('validation_studies'),
-      outbox: count('outbox_messages'),
-    };
-  } finally {
-    db.close();
-  }
+  return withDatabase(
+    t,
+    async (db) => {
+      const count = async (table: string) => (await db.get<{ n: number }>(`SELECT COUNT(*) AS n FROM ${table}`))!.n;
+      return {
+        study: await db.get(
+          'SELECT status, lock_version, data, result, submitted_at, approved_at FROM validation_studies WHERE id = ?',
+          studyId,
+        ),
+        signatures: await count('study_signatures'),
+        comments: await count('study_comments'),
+        notifications: await count('notifications'),
+        studies: await count('validation_studies'),
+        outbox: await count('outbox_messages'),
+      };
+    },
+    { readonly: true },
+  );
 }
 
 export function bearer(token: string) {
