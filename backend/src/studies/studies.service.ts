@@ -1,11 +1,12 @@
 import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, type EntityManager } from 'typeorm';
+import { DataSource, In, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson, Role, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
 import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { decodeCursor, keysetPage } from '../common/keyset.js';
 import { unprocessable } from '../common/validation.js';
 import type { CriterionDto } from '../methods/dto/criterion.dto.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
@@ -37,7 +38,6 @@ const iso = (date: Date | null) => date?.toISOString() ?? null;
 export function toStudySummary(study: ValidationStudy): StudySummaryDto {
   const { methodVersion: version, author } = study;
   const { method } = version;
-  const verdict = (study.result as { verdict?: { pass?: boolean | null } } | null)?.verdict;
   return {
     id: study.id,
     title: study.title,
@@ -71,9 +71,12 @@ export function toStudySummary(study: ValidationStudy): StudySummaryDto {
     updatedAt: study.updatedAt.toISOString(),
     submittedAt: iso(study.submittedAt),
     approvedAt: iso(study.approvedAt),
-    verdictPass: verdict?.pass ?? null,
+    verdictPass: verdictOf(study.result),
   };
 }
+
+const verdictOf = (result: Record<string, unknown> | null | undefined): boolean | null =>
+  (result as { verdict?: { pass?: boolean | null } } | null | undefined)?.verdict?.pass ?? null;
 
 export function toStudyDto(study: ValidationStudy): StudyDto {
   const { verdictPass: _verdictPass, ...summary } = toStudySummary(study);
@@ -173,9 +176,10 @@ export class StudiesService {
   ) {}
 
   async findPage(query: ListStudiesQueryDto, user: AuthUser): Promise<StudyPageDto> {
-    const page = query.page ?? 1;
     const pageSize = query.pageSize ?? 20;
-    const order = query.order === 'asc' ? 'ASC' : 'DESC';
+    const sort = query.sort ?? 'updatedAt';
+    const order = query.order ?? 'desc';
+    const cursor = decodeCursor(query.cursor, sort, order);
     const qb = this.dataSource
       .getRepository(ValidationStudy)
       .createQueryBuilder('study')
@@ -187,7 +191,6 @@ export class StudiesService {
         'study.title',
         'study.status',
         'study.methodVersionId',
-        'study.result',
         'study.resultErrors',
         'study.engineVersion',
         'study.dataHash',
@@ -228,13 +231,16 @@ export class StudiesService {
       });
     }
     if (query.q) qb.andWhere(`LOWER(study.title) LIKE :q ESCAPE '\\'`, { q: `%${query.q.toLowerCase().replace(/[\\%_]/g, '\\$&')}%` });
-    const [studies, total] = await qb
-      .orderBy(`study.${query.sort ?? 'updatedAt'}`, order)
-      .addOrderBy('study.id', order)
-      .offset((page - 1) * pageSize)
-      .limit(pageSize)
-      .getManyAndCount();
-    return { items: studies.map(toStudySummary), total, page, pageSize };
+    const { rows, ...page } = await keysetPage(qb, { alias: 'study', sortProperty: sort, sort, order, cursor, pageSize });
+    const verdicts = await this.verdictsOf(rows.map((study) => study.id));
+    return { ...page, pageSize, items: rows.map((study) => ({ ...toStudySummary(study), verdictPass: verdicts.get(study.id) ?? null })) };
+  }
+
+  /** The verdict lives in the result; it is read for the page's rows only. */
+  private async verdictsOf(ids: string[]): Promise<Map<string, boolean | null>> {
+    if (!ids.length) return new Map();
+    const rows = await this.dataSource.getRepository(ValidationStudy).find({ where: { id: In(ids) }, select: { id: true, result: true } });
+    return new Map(rows.map((study) => [study.id, verdictOf(study.result)]));
   }
 
   async findOne(id: ValidationStudy['id'], manager: EntityManager = this.dataSource.manager): Promise<StudyDto> {

@@ -13,6 +13,7 @@ import { QcTrends1796429841749 } from './1796429841749-qc-trends.js';
 import { RunImportMappings1796430502016 } from './1796430502016-run-import-mappings.js';
 import { AuditReview1796428669934 } from './1796428669934-audit-review.js';
 import { QualificationRuns1796428669935 } from './1796428669935-qualification-runs.js';
+import { ListKeysetIndexes1796439581141 } from './1796439581141-list-keyset-indexes.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -30,4 +31,5 @@ export const migrations = [
   RunImportMappings1796430502016,
   AuditReview1796428669934,
   QualificationRuns1796428669935,
+  ListKeysetIndexes1796439581141,
 ];
