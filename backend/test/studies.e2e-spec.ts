@@ -153,15 +153,15 @@ describe('validation studies', () => {
 
     it('should walk every sort forward and back by cursor without duplicates or gaps, filters kept', async () => {
       const headers = await auth(DEMO.analyst);
-      const list = async (query: Record<string, string | number>) =>
+      const list = async (query: Record<string, unknown>) =>
         (await t.http().get('/api/studies').query(query).set(headers).expect(200)).body as {
-          items: Row[];
+          items: { id: string }[];
           nextCursor: string | null;
           prevCursor: string | null;
         };
       for (const sort of ['updatedAt', 'createdAt', 'title', 'status'])
         for (const order of ['asc', 'desc'])
-          for (const filter of [{}, { status: 'draft' }, { q: 'nitrate' }]) {
+          for (const filter of [{}, { status: 'draft' }, { q: 'nitrate' }] as Record<string, string>[]) {
             const base = { sort, order, ...filter };
             const whole = (await list({ ...base, pageSize: 100 })).items.map((s) => s.id);
             const pages: string[][] = [];
