@@ -185,7 +185,9 @@ describe('validation studies', () => {
     it('should refuse a cursor it cannot read, one made for another sort and one whose row is gone, naming the cursor', async () => {
       const headers = await auth(DEMO.analyst);
       const { nextCursor } = (await t.http().get('/api/studies?pageSize=2').set(headers).expect(200)).body;
-      const gone = Buffer.from(JSON.stringify(['00000000-0000-4000-8000-000000000000', 'after', 'updatedAt', 'desc'])).toString('base64url');
+      const gone = Buffer.from(JSON.stringify(['00000000-0000-4000-8000-000000000000', 'after', 'updatedAt', 'desc'])).toString(
+        'base64url',
+      );
       for (const query of [
         { cursor: 'not-a-cursor' },
         { cursor: Buffer.from('{"id":1}').toString('base64url') },

@@ -182,8 +182,8 @@ export class AuditService implements OnApplicationBootstrap, OnApplicationShutdo
     if (forged) broken.push({ seq: 0, reason: `${forged} checkpoint(s) in the checkpoint file do not carry a valid signature` });
     const heads = new Map<number, AuditCheckpoint>();
     for (const c of checkpoints) heads.set(c.rows, c);
-    const batch = 2000;
-    for (let after = 0; ; ) {
+    const batch = 500;
+    for (let after = 0; ;) {
       const entries = await repo.find({ where: { seq: MoreThan(after) }, order: { seq: 'ASC' }, take: batch });
       for (const entry of entries) {
         rows++;

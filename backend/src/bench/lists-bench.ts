@@ -29,6 +29,7 @@ const { values: args } = parseArgs({
     queue: { type: 'string', default: '300' },
     audit: { type: 'string', default: '1000000' },
     requests: { type: 'string', default: '50' },
+    keep: { type: 'boolean', default: false },
   },
 });
 const SIZES = {
@@ -38,8 +39,11 @@ const SIZES = {
   audit: Number(args.audit),
   requests: Number(args.requests),
 };
+const print = (line: string) => process.stdout.write(`${line}\n`);
 const PASSWORD = 'meritline-demo';
 const DAY_MS = 86_400_000;
+/** Requests per list before timing starts (JIT, page cache). */
+const WARM_UP = 10;
 
 type Row = Record<string, unknown>;
 
@@ -129,19 +133,26 @@ async function buildData(ds: DataSource) {
   );
   const [run] = (await ds.query(`SELECT * FROM runs ORDER BY LENGTH(result) DESC LIMIT 1`)) as Row[];
   const runQueueEvery = Math.max(1, Math.floor(SIZES.runs / Math.max(1, Math.floor(SIZES.queue / 3))));
-  await cloneRows(ds, 'runs', { ...run, supersedes_id: null, superseded_by_id: null }, SIZES.runs, (i) => {
-    const created = new Date(now - (SIZES.runs - i) * 60_000);
-    const submitted = i % runQueueEvery === 0;
-    return {
-      title: `Bench batch ${String(i).padStart(6, '0')}`,
-      status: i % 7 === 0 ? 'rejected' : 'accepted',
-      author_id: authors[i % authors.length],
-      created_at: when(ds, created),
-      review_status: submitted ? 'submitted' : 'calculated',
-      submitted_at: submitted ? when(ds, created) : null,
-      released_at: null,
-    };
-  }, postgres);
+  await cloneRows(
+    ds,
+    'runs',
+    { ...run, supersedes_id: null, superseded_by_id: null },
+    SIZES.runs,
+    (i) => {
+      const created = new Date(now - (SIZES.runs - i) * 60_000);
+      const submitted = i % runQueueEvery === 0;
+      return {
+        title: `Bench batch ${String(i).padStart(6, '0')}`,
+        status: i % 7 === 0 ? 'rejected' : 'accepted',
+        author_id: authors[i % authors.length],
+        created_at: when(ds, created),
+        review_status: submitted ? 'submitted' : 'calculated',
+        submitted_at: submitted ? when(ds, created) : null,
+        released_at: null,
+      };
+    },
+    postgres,
+  );
 
   const repo = ds.getRepository(AuditEntry);
   const [last] = await repo.find({ order: { seq: 'DESC' }, take: 1 });
@@ -149,7 +160,7 @@ async function buildData(ds: DataSource) {
   let prevHash = last?.hash ?? GENESIS_HASH;
   const atColumn = repo.metadata.findColumnWithPropertyName('at')!;
   const start = now - SIZES.audit * 1000;
-  for (let done = 0; done < SIZES.audit; ) {
+  for (let done = 0; done < SIZES.audit;) {
     const rows: Row[] = [];
     for (const end = Math.min(SIZES.audit, done + 20_000); done < end; done++) {
       seq++;
@@ -192,12 +203,12 @@ const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.lengt
 async function timeRequests(base: string, path: string, token: string) {
   const times: number[] = [];
   let bytes = 0;
-  for (let i = 0; i < SIZES.requests + 3; i++) {
+  for (let i = 0; i < SIZES.requests + WARM_UP; i++) {
     const started = performance.now();
     const res = await fetch(`${base}${path}`, { headers: { Authorization: `Bearer ${token}` } });
     const body = await res.text();
     if (!res.ok) throw new Error(`${path}: ${res.status} ${body.slice(0, 300)}`);
-    if (i >= 3) times.push(performance.now() - started);
+    if (i >= WARM_UP) times.push(performance.now() - started);
     bytes = body.length;
   }
   times.sort((a, b) => a - b);
@@ -232,7 +243,7 @@ async function measure(databaseUrl: string, label: string) {
   const ds = app.get(DataSource);
   const built = await buildData(ds);
   const buildSeconds = (performance.now() - builtAt) / 1000;
-  console.log(`${label}: built in ${buildSeconds.toFixed(0)} s (result JSON ${built.resultBytes} bytes, ${built.queued} studies queued)`);
+  print(`${label}: built in ${buildSeconds.toFixed(0)} s (result JSON ${built.resultBytes} bytes, ${built.queued} studies queued)`);
 
   const analyst = await login(base, 'analyst@meritline.test');
   const reviewer = await login(base, 'reviewer@meritline.test');
@@ -253,7 +264,13 @@ async function measure(databaseUrl: string, label: string) {
     'title',
     'asc',
   );
-  const runCursor = await deepCursor(ds, 'SELECT id FROM runs ORDER BY created_at DESC, id DESC LIMIT 1 OFFSET $OFFSET', deepRuns, 'createdAt', 'desc');
+  const runCursor = await deepCursor(
+    ds,
+    'SELECT id FROM runs ORDER BY created_at DESC, id DESC LIMIT 1 OFFSET $OFFSET',
+    deepRuns,
+    'createdAt',
+    'desc',
+  );
   const queueCursor = await deepCursor(
     ds,
     `SELECT id FROM validation_studies WHERE status = 'submitted' ORDER BY submitted_at ASC, id ASC LIMIT 1 OFFSET $OFFSET`,
@@ -279,7 +296,9 @@ async function measure(databaseUrl: string, label: string) {
   const latencies: Record<string, { p50: number; p95: number; bytes: number }> = {};
   for (const [name, path, token] of lists) {
     latencies[name] = await timeRequests(base, path, token);
-    console.log(`${label}: ${name}: p50 ${latencies[name].p50.toFixed(1)} ms, p95 ${latencies[name].p95.toFixed(1)} ms`);
+    print(
+      `${label}: ${name}: p50 ${latencies[name].p50.toFixed(1)} ms, p95 ${latencies[name].p95.toFixed(1)} ms, ${latencies[name].bytes} bytes`,
+    );
   }
 
   let peakRss = process.memoryUsage().rss;
@@ -304,7 +323,7 @@ async function measure(databaseUrl: string, label: string) {
   verifying = false;
   await poll;
   clearInterval(sampler);
-  console.log(
+  print(
     `${label}: audit verify ${verification.rows} rows ok=${verification.ok} in ${verifySeconds.toFixed(1)} s, ` +
       `RSS ${(rssBefore / 2 ** 20).toFixed(0)} → peak ${(peakRss / 2 ** 20).toFixed(0)} MB, health max ${maxHealthMs.toFixed(0)} ms over ${healthChecks} checks`,
   );
@@ -334,7 +353,8 @@ async function main() {
   try {
     results.push(await measure(`sqlite:${join(sqliteDir, 'bench.sqlite')}`, 'SQLite'));
   } finally {
-    rmSync(sqliteDir, { recursive: true, force: true });
+    if (args.keep) print(`SQLite database kept in ${sqliteDir}`);
+    else rmSync(sqliteDir, { recursive: true, force: true });
   }
   const postgresUrl = process.env.TEST_POSTGRES_URL;
   if (postgresUrl) {
@@ -359,7 +379,7 @@ async function main() {
   };
   mkdirSync('test-output', { recursive: true });
   writeFileSync('test-output/lists-bench.json', `${JSON.stringify(report, null, 2)}\n`);
-  console.log(JSON.stringify(report, null, 2));
+  print(JSON.stringify(report, null, 2));
 }
 
 await main();

@@ -52,8 +52,11 @@ export interface KeysetOptions<E> {
   order: 'asc' | 'desc';
   cursor: KeysetCursor | null;
   pageSize: number;
-  /** Off where the caller filters rows further and reports no total. */
-  count?: boolean;
+  /**
+   * The rows to count: the same filters on the main table alone, so the count reads no joined rows (SQLite
+   * would otherwise walk every row's overflow pages to reach the join columns). null: no count.
+   */
+  countQuery: SelectQueryBuilder<ObjectLiteral> | null;
 }
 
 export interface KeysetRows<E> {
@@ -85,7 +88,7 @@ export async function cappedCount(qb: SelectQueryBuilder<ObjectLiteral>): Promis
  */
 export async function keysetPage<E extends { id: string }>(qb: SelectQueryBuilder<E>, options: KeysetOptions<E>): Promise<KeysetRows<E>> {
   const { alias, sortProperty, sort, order, cursor, pageSize } = options;
-  const counted = options.count === false ? { total: 0, totalIsCapped: false } : await cappedCount(qb);
+  const counted = options.countQuery ? await cappedCount(options.countQuery) : { total: 0, totalIsCapped: false };
   const backwards = cursor?.dir === 'before';
   const ascending = (order === 'asc') !== backwards;
   const sortExpression = `${alias}.${sortProperty}`;

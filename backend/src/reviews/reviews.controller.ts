@@ -134,7 +134,9 @@ export class ReviewQueueController {
       items.push(...studies.map((item: QueueItemDto) => ({ kind: 'study' as const, ...item })));
     }
     if (query.kind !== 'study' && items.length < wanted) {
-      items.push(...(await this.runRelease.queueFor(user, { after: cursor?.sort === 'run' ? cursor.id : null, limit: wanted - items.length })));
+      items.push(
+        ...(await this.runRelease.queueFor(user, { after: cursor?.sort === 'run' ? cursor.id : null, limit: wanted - items.length })),
+      );
     }
     const page = items.slice(0, pageSize);
     const last = page[page.length - 1];

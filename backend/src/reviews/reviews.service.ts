@@ -243,7 +243,7 @@ export class ReviewsService {
         order: 'asc',
         cursor,
         pageSize: QUEUE_BATCH,
-        count: false,
+        countQuery: null,
       });
       const ids = batch.rows.map((s) => s.id);
       const signatures = ids.length ? await this.signatures.find({ where: { studyId: In(ids) } }) : [];

@@ -289,7 +289,7 @@ export class RunReleaseService {
         order: 'asc',
         cursor,
         pageSize: QUEUE_BATCH,
-        count: false,
+        countQuery: null,
       });
       mine.push(...batch.rows.filter((run) => run.authorId !== user.id));
       cursor = batch.nextCursor ? { id: batch.rows[batch.rows.length - 1].id, dir: 'after', sort: 'run', order: 'asc' } : null;

@@ -387,9 +387,16 @@ export class RunsService {
         'method.name',
         'method.analyte',
       ]);
-    if (query.methodVersionId) qb.andWhere('run.methodVersionId = :methodVersionId', { methodVersionId: query.methodVersionId });
-    if (query.status) qb.andWhere('run.status = :status', { status: query.status });
-    if (query.methodId) qb.andWhere('version.methodId = :methodId', { methodId: query.methodId });
+    const countQuery = this.runs.createQueryBuilder('run').select('run.id');
+    for (const filtered of [qb, countQuery]) {
+      if (query.methodVersionId) filtered.andWhere('run.methodVersionId = :methodVersionId', { methodVersionId: query.methodVersionId });
+      if (query.status) filtered.andWhere('run.status = :status', { status: query.status });
+      if (query.methodId) {
+        filtered.andWhere('run.methodVersionId IN (SELECT mv.id FROM method_versions mv WHERE mv.method_id = :methodId)', {
+          methodId: query.methodId,
+        });
+      }
+    }
     const { rows: runs, ...page } = await keysetPage(qb, {
       alias: 'run',
       sortProperty: 'createdAt',
@@ -397,6 +404,7 @@ export class RunsService {
       order: 'desc',
       cursor,
       pageSize: query.pageSize,
+      countQuery,
     });
     const authors = await this.authorsOf(runs);
     const results = runs.length

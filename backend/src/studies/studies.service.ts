@@ -1,6 +1,6 @@
 import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, In, type EntityManager } from 'typeorm';
+import { DataSource, type EntityManager, type SelectQueryBuilder } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson, Role, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
@@ -218,8 +218,19 @@ export class StudiesService {
         'author.id',
         'author.name',
       ]);
+    const countQuery = this.dataSource.getRepository(ValidationStudy).createQueryBuilder('study').select('study.id');
+    for (const filtered of [qb, countQuery]) this.filterStudies(filtered, query, user);
+    const { rows, ...page } = await keysetPage(qb, { alias: 'study', sortProperty: sort, sort, order, cursor, pageSize, countQuery });
+    const verdicts = await this.verdictsOf(rows.map((study) => study.id));
+    return { ...page, pageSize, items: rows.map((study) => ({ ...toStudySummary(study), verdictPass: verdicts.get(study.id) ?? null })) };
+  }
+
+  private filterStudies(qb: SelectQueryBuilder<ValidationStudy>, query: ListStudiesQueryDto, user: AuthUser) {
     if (query.status) qb.andWhere('study.status = :status', { status: query.status });
-    if (query.methodId) qb.andWhere('version.methodId = :methodId', { methodId: query.methodId });
+    if (query.methodId)
+      qb.andWhere('study.methodVersionId IN (SELECT mv.id FROM method_versions mv WHERE mv.method_id = :methodId)', {
+        methodId: query.methodId,
+      });
     if (query.methodVersionId) qb.andWhere('study.methodVersionId = :methodVersionId', { methodVersionId: query.methodVersionId });
     const authorId = query.mine ? user.id : query.authorId;
     if (authorId) qb.andWhere('study.authorId = :authorId', { authorId });
@@ -231,16 +242,23 @@ export class StudiesService {
       });
     }
     if (query.q) qb.andWhere(`LOWER(study.title) LIKE :q ESCAPE '\\'`, { q: `%${query.q.toLowerCase().replace(/[\\%_]/g, '\\$&')}%` });
-    const { rows, ...page } = await keysetPage(qb, { alias: 'study', sortProperty: sort, sort, order, cursor, pageSize });
-    const verdicts = await this.verdictsOf(rows.map((study) => study.id));
-    return { ...page, pageSize, items: rows.map((study) => ({ ...toStudySummary(study), verdictPass: verdicts.get(study.id) ?? null })) };
   }
 
-  /** The verdict lives in the result; it is read for the page's rows only. */
+  /** The verdict lives in the result; the database extracts it for the page's rows only, without shipping the result. */
   private async verdictsOf(ids: string[]): Promise<Map<string, boolean | null>> {
     if (!ids.length) return new Map();
-    const rows = await this.dataSource.getRepository(ValidationStudy).find({ where: { id: In(ids) }, select: { id: true, result: true } });
-    return new Map(rows.map((study) => [study.id, verdictOf(study.result)]));
+    const pass =
+      this.dataSource.options.type === 'postgres'
+        ? `CAST(study.result AS json) #>> '{verdict,pass}'`
+        : `json_extract(study.result, '$.verdict.pass')`;
+    const rows = await this.dataSource
+      .getRepository(ValidationStudy)
+      .createQueryBuilder('study')
+      .select('study.id', 'id')
+      .addSelect(pass, 'pass')
+      .where('study.id IN (:...ids)', { ids })
+      .getRawMany<{ id: string; pass: string | number | boolean | null }>();
+    return new Map(rows.map((row) => [row.id, row.pass === null ? null : row.pass === true || row.pass === 1 || row.pass === 'true']));
   }
 
   async findOne(id: ValidationStudy['id'], manager: EntityManager = this.dataSource.manager): Promise<StudyDto> {

@@ -1,4 +1,5 @@
 import type {
+  KeysetPage,
   MethodVersionStatus,
   ModelChoice,
   OnePointBias,
@@ -97,18 +98,14 @@ export interface RunSummary {
   checkCount: number;
 }
 
-export interface RunPage {
-  items: RunSummary[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+/** Newest first, paged by cursor. */
+export type RunPage = KeysetPage<RunSummary>;
 
 export interface RunFilters {
   methodId?: string;
   methodVersionId?: string;
   status?: RunStatus;
-  page?: number;
+  cursor?: string;
   pageSize?: number;
 }
 
