@@ -3,19 +3,21 @@
  * trail (bulk inserts, the audit chain hashed as the service hashes it), starts the app in-process on a port
  * and times the first and a deep page of each list, then the verification of the whole trail while the health
  * route is polled. Usage: node dist/bench/lists-bench.js [--studies 10000] [--runs 10000] [--queue 300]
- * [--audit 1000000] [--requests 50]. Runs on SQLite; on PostgreSQL too when TEST_POSTGRES_URL is set.
+ * [--audit 1000000] [--requests 50] [--keep] [--postgres-only]. Runs on SQLite; on PostgreSQL too when
+ * TEST_POSTGRES_URL is set (a database of its own per run).
  */
 import 'reflect-metadata';
 import { NestFactory } from '@nestjs/core';
 import type { NestExpressApplication } from '@nestjs/platform-express';
+import { spawnSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
 import pg from 'pg';
 import { DataSource } from 'typeorm';
-import { AppModule } from '../app.module.js';
 import { AuditEntry } from '../audit/audit-entry.entity.js';
 import { auditHash, GENESIS_HASH } from '../audit/audit.service.js';
 import { encodeCursor } from '../common/keyset.js';
@@ -30,6 +32,7 @@ const { values: args } = parseArgs({
     audit: { type: 'string', default: '1000000' },
     requests: { type: 'string', default: '50' },
     keep: { type: 'boolean', default: false },
+    'postgres-only': { type: 'boolean', default: false },
   },
 });
 const SIZES = {
@@ -236,6 +239,8 @@ async function measure(databaseUrl: string, label: string) {
   const dir = mkdtempSync(join(tmpdir(), 'meritline-lists-bench-'));
   Object.assign(process.env, { NODE_ENV: 'test', DATABASE_URL: databaseUrl, DATA_DIR: dir, SMTP_URL: '' });
   const builtAt = performance.now();
+  // Imported once the URL is set: entity column types follow the database of the process.
+  const { AppModule } = await import('../app.module.js');
   const app = configureApp(await NestFactory.create<NestExpressApplication>(AppModule, { bodyParser: false, logger: ['error'] }));
   await app.listen(0, '127.0.0.1');
   const address = app.getHttpServer().address() as { port: number };
@@ -349,15 +354,24 @@ async function measure(databaseUrl: string, label: string) {
 
 async function main() {
   const results = [];
-  const sqliteDir = mkdtempSync(join(tmpdir(), 'meritline-lists-sqlite-'));
-  try {
-    results.push(await measure(`sqlite:${join(sqliteDir, 'bench.sqlite')}`, 'SQLite'));
-  } finally {
-    if (args.keep) print(`SQLite database kept in ${sqliteDir}`);
-    else rmSync(sqliteDir, { recursive: true, force: true });
+  if (!args['postgres-only']) {
+    const sqliteDir = mkdtempSync(join(tmpdir(), 'meritline-lists-sqlite-'));
+    try {
+      results.push(await measure(`sqlite:${join(sqliteDir, 'bench.sqlite')}`, 'SQLite'));
+    } finally {
+      if (args.keep) print(`SQLite database kept in ${sqliteDir}`);
+      else rmSync(sqliteDir, { recursive: true, force: true });
+    }
   }
   const postgresUrl = process.env.TEST_POSTGRES_URL;
-  if (postgresUrl) {
+  if (postgresUrl && !args['postgres-only']) {
+    // A process of its own: the entities were already bound to SQLite in this one.
+    const child = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), ...process.argv.slice(2), '--postgres-only'], {
+      stdio: 'inherit',
+    });
+    if (child.status !== 0) throw new Error(`the PostgreSQL run failed (${child.status})`);
+  }
+  if (postgresUrl && args['postgres-only']) {
     const name = `meritline_lists_bench_${Date.now()}`;
     const admin = new pg.Client({ connectionString: postgresUrl });
     await admin.connect();
@@ -378,7 +392,7 @@ async function main() {
     results,
   };
   mkdirSync('test-output', { recursive: true });
-  writeFileSync('test-output/lists-bench.json', `${JSON.stringify(report, null, 2)}\n`);
+  writeFileSync(`test-output/lists-bench${args['postgres-only'] ? '-postgres' : ''}.json`, `${JSON.stringify(report, null, 2)}\n`);
   print(JSON.stringify(report, null, 2));
 }
 

@@ -9,11 +9,13 @@ interface CursorPagerProps {
   /** 1-based position of the page, kept beside the cursor for the words only. */
   pageNumber: number;
   fetching?: boolean;
+  /** The rows shown belong to the query before (a new sort or filter is loading): their cursors do not apply. */
+  stale?: boolean;
   onMove: (cursor: string | undefined, pageNumber: number) => void;
 }
 
 /** Previous and next for a list paged by cursor, with the rows shown and the (capped) count. */
-export function CursorPager({ noun, page, pageNumber, fetching, onMove }: CursorPagerProps) {
+export function CursorPager({ noun, page, pageNumber, fetching, stale, onMove }: CursorPagerProps) {
   const number = page.prevCursor ? Math.max(2, pageNumber) : 1;
   if (!page.items.length && number === 1) return null;
   const first = (number - 1) * page.pageSize + 1;
@@ -30,12 +32,17 @@ export function CursorPager({ noun, page, pageNumber, fetching, onMove }: Cursor
         <Button
           size="sm"
           variant="outline"
-          disabled={!page.prevCursor}
+          disabled={stale || !page.prevCursor}
           onClick={() => onMove(number - 1 <= 1 ? undefined : (page.prevCursor ?? undefined), number - 1)}
         >
           Previous
         </Button>
-        <Button size="sm" variant="outline" disabled={!page.nextCursor} onClick={() => onMove(page.nextCursor ?? undefined, number + 1)}>
+        <Button
+          size="sm"
+          variant="outline"
+          disabled={stale || !page.nextCursor}
+          onClick={() => onMove(page.nextCursor ?? undefined, number + 1)}
+        >
           Next
         </Button>
       </HStack>

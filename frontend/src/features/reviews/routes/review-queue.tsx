@@ -114,6 +114,7 @@ export default function ReviewQueuePage() {
             page={{ ...queue.data, prevCursor: cursors.length > 1 ? 'before' : null }}
             pageNumber={cursors.length}
             fetching={queue.isFetching}
+            stale={queue.isPlaceholderData}
             onMove={(next, page) => setCursors((trail) => (page < trail.length ? trail.slice(0, page) : [...trail, next]))}
           />
         )}

@@ -97,6 +97,7 @@ export default function RoutineBatchesPage() {
             page={runs.data}
             pageNumber={pageNumber}
             fetching={runs.isFetching}
+            stale={runs.isPlaceholderData}
             onMove={(next, page) => update({ cursor: next, page: page > 1 ? String(page) : undefined })}
           />
         )}

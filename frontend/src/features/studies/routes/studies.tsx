@@ -134,6 +134,7 @@ export default function ValidationStudiesPage() {
             page={studies.data}
             pageNumber={pageNumber}
             fetching={studies.isFetching}
+            stale={studies.isPlaceholderData}
             onMove={(cursor, page) => update({ cursor, page: page > 1 ? String(page) : undefined })}
           />
         )}
