@@ -17,7 +17,8 @@ async function fillStudyList(request: APIRequestContext) {
   const headers = await headersFor(request, 'analyst@meritline.test');
   const list = await (await request.get('/api/studies?pageSize=100', { headers })).json();
   const approved = list.items.find(
-    (study: { status: string; methodVersion: { status: string } }) => study.status === 'approved' && study.methodVersion.status !== 'retired',
+    (study: { status: string; methodVersion: { status: string } }) =>
+      study.status === 'approved' && study.methodVersion.status !== 'retired',
   );
   for (let i = list.total; i < 25; i++) expect((await request.post(`/api/studies/${approved.id}/copy`, { headers })).status()).toBe(201);
   return (await (await request.get('/api/studies?pageSize=100', { headers })).json()).total as number;

@@ -366,9 +366,13 @@ async function main() {
   const postgresUrl = process.env.TEST_POSTGRES_URL;
   if (postgresUrl && !args['postgres-only']) {
     // A process of its own: the entities were already bound to SQLite in this one.
-    const child = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), ...process.argv.slice(2), '--postgres-only'], {
-      stdio: 'inherit',
-    });
+    const child = spawnSync(
+      process.execPath,
+      [...process.execArgv, fileURLToPath(import.meta.url), ...process.argv.slice(2), '--postgres-only'],
+      {
+        stdio: 'inherit',
+      },
+    );
     if (child.status !== 0) throw new Error(`the PostgreSQL run failed (${child.status})`);
   }
   if (postgresUrl && args['postgres-only']) {
