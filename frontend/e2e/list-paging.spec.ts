@@ -67,7 +67,7 @@ test('an analyst pages through the studies with Next and Previous, sorted and fi
 
   // A filter starts again at the first page too.
   await next.click();
-  await page.getByLabel('Status').selectOption('draft');
+  await page.getByLabel('Status', { exact: true }).selectOption('draft');
   await expect(range).toHaveText(/^Studies 1–\d+ of \d+$/);
   await expect(previous).toBeDisabled();
   await shot(page, '4-studies-drafts');
