@@ -240,7 +240,7 @@ describe('review and sign-off', () => {
       expect(res.body.message).toMatch(/second person/);
       await t.http().post(`/api/studies/${own.id}/return`).set(bearer(both)).send({ comment: 'Returning my own' }).expect(403);
       const queue = await t.http().get('/api/reviews/queue').set(bearer(both)).expect(200);
-      expect(queue.body.map((q: { id: string }) => q.id)).not.toContain(own.id);
+      expect(queue.body.items.map((q: { id: string }) => q.id)).not.toContain(own.id);
       expect(await databaseState(t, own.id)).toEqual(before);
       await t
         .http()
@@ -257,7 +257,7 @@ describe('review and sign-off', () => {
       await t.http().post(`/api/studies/${edited.id}/approve`).set(as('reviewer')).send({ password: DEMO_PASSWORD }).expect(403);
       expect(await databaseState(t, edited.id)).toEqual(before);
       const queue = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
-      expect(queue.body.map((q: { id: string }) => q.id)).not.toContain(edited.id);
+      expect(queue.body.items.map((q: { id: string }) => q.id)).not.toContain(edited.id);
     });
 
     it('should refuse an approval with a wrong password (401) or a missing one (422) and change nothing', async () => {
@@ -351,9 +351,9 @@ describe('review and sign-off', () => {
       expect(mails[0].subject).toBe(`Study awaiting release: ${study.title}`);
 
       const reviewerQueue = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
-      expect(reviewerQueue.body.map((q: { id: string }) => q.id)).not.toContain(study.id);
+      expect(reviewerQueue.body.items.map((q: { id: string }) => q.id)).not.toContain(study.id);
       const qualityQueue = await t.http().get('/api/reviews/queue').set(as('quality')).expect(200);
-      expect(qualityQueue.body.find((q: { id: string }) => q.id === study.id)).toMatchObject({
+      expect(qualityQueue.body.items.find((q: { id: string }) => q.id === study.id)).toMatchObject({
         stage: 'release',
         authorName: 'Alma Ruiz',
         methodVersionNumber: 1,
@@ -415,18 +415,57 @@ describe('review and sign-off', () => {
       await act(older.id, 'submit', 'analyst', { password: DEMO_PASSWORD }).expect(200);
       await act(newer.id, 'submit', 'analyst2', { password: DEMO_PASSWORD }).expect(200);
       const res = await t.http().get('/api/reviews/queue').set(as('reviewer')).expect(200);
-      const ids = res.body.map((q: { id: string }) => q.id);
+      const ids = res.body.items.map((q: { id: string }) => q.id);
       expect(ids.indexOf(older.id)).toBeLessThan(ids.indexOf(newer.id));
-      expect(res.body.find((q: { id: string }) => q.id === newer.id)).toMatchObject({
+      expect(res.body.items.find((q: { id: string }) => q.id === newer.id)).toMatchObject({
         stage: 'review',
         authorName: 'Tomasz Weber',
         methodName: expect.stringMatching(/^Nitrate/),
         submittedAt: expect.any(String),
       });
-      const dates = res.body.map((q: { submittedAt: string }) => q.submittedAt);
+      const dates = res.body.items.map((q: { submittedAt: string }) => q.submittedAt);
       expect(dates).toEqual([...dates].sort());
       await t.http().get('/api/reviews/queue').set(as('analyst')).expect(403);
       await t.http().get('/api/reviews/queue').expect(401);
+    });
+
+    it('should page the queue by cursor, oldest first, without duplicates or gaps, and refuse a bad cursor or page size', async () => {
+      for (let i = 0; i < 4; i++) {
+        const study = await createStudy(t, { author: DEMO.analyst });
+        await t.http().post(`/api/studies/${study.id}/submit`).set(as('analyst')).send({ password: DEMO_PASSWORD }).expect(200);
+      }
+      const whole = await t.http().get('/api/reviews/queue?pageSize=100').set(as('reviewer')).expect(200);
+      expect(whole.body).toMatchObject({ nextCursor: null, pageSize: 100 });
+      const all = whole.body.items.map((q: { id: string }) => q.id);
+      expect(all.length).toBeGreaterThanOrEqual(5);
+      const walked: string[] = [];
+      let cursor: string | null = null;
+      do {
+        const page = (
+          await t
+            .http()
+            .get('/api/reviews/queue')
+            .query({ pageSize: 2, ...(cursor ? { cursor } : {}) })
+            .set(as('reviewer'))
+            .expect(200)
+        ).body as { items: { id: string }[]; nextCursor: string | null };
+        expect(page.items.length).toBeLessThanOrEqual(2);
+        walked.push(...page.items.map((q) => q.id));
+        cursor = page.nextCursor;
+      } while (cursor);
+      expect(walked).toEqual(all);
+      for (const item of whole.body.items) {
+        expect(item).not.toHaveProperty('data');
+        expect(item).not.toHaveProperty('result');
+      }
+      for (const [query, field] of [
+        ['cursor=garbage', 'cursor'],
+        ['pageSize=101', 'pageSize'],
+        ['pageSize=0', 'pageSize'],
+      ]) {
+        const res = await t.http().get(`/api/reviews/queue?${query}`).set(as('reviewer')).expect(422);
+        expect(res.body.errors[0].field).toBe(field);
+      }
     });
   });
 

@@ -98,13 +98,13 @@ describe('second-person release of routine runs', () => {
     expect(JSON.stringify(notices.body)).toContain('submitted the run “Batch 2” for release');
 
     const queue = await t.http().get('/api/reviews/queue').set(bearer(reviewer)).expect(200);
-    expect(queue.body).toContainEqual(
+    expect(queue.body.items).toContainEqual(
       expect.objectContaining({ kind: 'run', id: run.id, status: 'submitted', verdict: 'accepted', authorName: 'Alma Ruiz' }),
     );
     const onlyRuns = await t.http().get('/api/reviews/queue?kind=run').set(bearer(reviewer)).expect(200);
-    expect(onlyRuns.body.every((item: { kind: string }) => item.kind === 'run')).toBe(true);
+    expect(onlyRuns.body.items.every((item: { kind: string }) => item.kind === 'run')).toBe(true);
     const onlyStudies = await t.http().get('/api/reviews/queue?kind=study').set(bearer(reviewer)).expect(200);
-    expect(onlyStudies.body.map((item: { id: string }) => item.id)).not.toContain(run.id);
+    expect(onlyStudies.body.items.map((item: { id: string }) => item.id)).not.toContain(run.id);
     const bad = await t.http().get('/api/reviews/queue?kind=batch').set(bearer(reviewer)).expect(422);
     expect(bad.body.errors[0].field).toBe('kind');
   });
@@ -133,7 +133,7 @@ describe('second-person release of routine runs', () => {
     const csv = await t.http().get(`/api/runs/${run.id}/export?format=csv`).set(bearer(analyst)).expect(200);
     expect(csv.text).toContain('S-1');
     const queue = await t.http().get('/api/reviews/queue?kind=run').set(bearer(reviewer)).expect(200);
-    expect(queue.body.map((item: { id: string }) => item.id)).not.toContain(run.id);
+    expect(queue.body.items.map((item: { id: string }) => item.id)).not.toContain(run.id);
 
     const again = await act(run.id, 'release', quality, { password: DEMO_PASSWORD, version: run.version }).expect(409);
     expect(again.body.message).toMatch(/already released/);
@@ -157,7 +157,7 @@ describe('second-person release of routine runs', () => {
     );
     expect(self.body.message).toMatch(/You performed this run, so you cannot release it/);
     const ownQueue = await t.http().get('/api/reviews/queue?kind=run').set(bearer(both.body.accessToken)).expect(200);
-    expect(ownQueue.body.map((item: { id: string }) => item.id)).not.toContain(own.id);
+    expect(ownQueue.body.items.map((item: { id: string }) => item.id)).not.toContain(own.id);
     await query(`update users set roles = ? where email = ?`, [JSON.stringify(['analyst']), DEMO.analyst2]);
 
     const stale = await act(run.id, 'release', reviewer, { password: DEMO_PASSWORD, version: 1 }).expect(409);

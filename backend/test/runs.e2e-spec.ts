@@ -583,9 +583,32 @@ describe('routine runs', () => {
       const [{ id: methodId }] = await sqlQuery<{ id: string }>(t, 'select method_id as id from method_versions where id = ?', [
         versions.absorbance,
       ]);
-      const byMethod = await t.http().get('/api/runs').query({ methodId, pageSize: 2, page: 2 }).set(bearer(analyst)).expect(200);
-      expect(byMethod.body).toMatchObject({ total: 3, page: 2, pageSize: 2 });
+      const firstPage = await t.http().get('/api/runs').query({ methodId, pageSize: 2 }).set(bearer(analyst)).expect(200);
+      expect(firstPage.body).toMatchObject({ total: 3, totalIsCapped: false, pageSize: 2, prevCursor: null });
+      const byMethod = await t
+        .http()
+        .get('/api/runs')
+        .query({ methodId, pageSize: 2, cursor: firstPage.body.nextCursor })
+        .set(bearer(analyst))
+        .expect(200);
+      expect(byMethod.body).toMatchObject({ total: 3, pageSize: 2, nextCursor: null });
       expect(byMethod.body.items).toHaveLength(1);
+      const ids = (body: { items: { id: string }[] }) => body.items.map((run) => run.id);
+      expect(new Set([...ids(firstPage.body), ...ids(byMethod.body)]).size).toBe(3);
+      const back = await t
+        .http()
+        .get('/api/runs')
+        .query({ methodId, pageSize: 2, cursor: byMethod.body.prevCursor })
+        .set(bearer(analyst))
+        .expect(200);
+      expect(ids(back.body)).toEqual(ids(firstPage.body));
+      for (const item of firstPage.body.items) {
+        expect(item).not.toHaveProperty('data');
+        expect(item).not.toHaveProperty('result');
+      }
+      const badCursor = await t.http().get('/api/runs').query({ cursor: 'garbage' }).set(bearer(analyst)).expect(422);
+      expect(fieldsOf(badCursor.body)).toEqual(['cursor']);
+      await t.http().get('/api/runs').query({ page: 2 }).set(bearer(analyst)).expect(422);
       const bad = await t.http().get('/api/runs').query({ status: 'pending', pageSize: 1000 }).set(bearer(analyst)).expect(422);
       expect(fieldsOf(bad.body).sort()).toEqual(['pageSize', 'status']);
     });

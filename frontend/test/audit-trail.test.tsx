@@ -23,7 +23,9 @@ function signInAs(roles: Role[]) {
   setSessionToken('test-token');
   return stubApi({
     'GET /api/auth/me': { body: { id: 'u-9', email: 'quality@lab.example', name: 'Noor Quality', roles } },
-    'GET /api/audit?pageSize=25': { body: { items: [entry], total: 1, nextCursor: null, page: null, pageSize: 25, record: null } },
+    'GET /api/audit?pageSize=25': {
+      body: { items: [entry], total: 1, totalIsCapped: false, nextCursor: null, page: null, pageSize: 25, record: null },
+    },
     'GET /api/audit/people': { body: [{ id: 'u-3', name: 'Priya Nair' }] },
     'GET /api/audit/reviews': { body: [] },
     'GET /api/audit/verify': {

@@ -20,6 +20,7 @@ import { AuditEntry } from '../audit/audit-entry.entity.js';
 import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { cappedCount } from '../common/keyset.js';
 import { unprocessable } from '../common/validation.js';
 import { writeTransaction } from '../database/write-transaction.js';
 import { AuditReview } from './audit-review.entity.js';
@@ -97,7 +98,7 @@ export class AuditTrailService {
     const pageSize = query.pageSize ?? DEFAULT_PAGE_SIZE;
     const record = parseRecord(query.record);
     const qb = await this.filtered(query, user);
-    const total = await qb.clone().getCount();
+    const { total, totalIsCapped } = await cappedCount(qb);
     if (query.cursor !== undefined) qb.andWhere('a.seq < :cursor', { cursor: query.cursor });
     if (query.page !== undefined) qb.skip((query.page - 1) * pageSize);
     const rows = await qb
@@ -109,6 +110,7 @@ export class AuditTrailService {
     return {
       items: items.map((entry) => toEntryDto(entry, names)),
       total,
+      totalIsCapped,
       nextCursor: rows.length > pageSize ? items[items.length - 1].seq : null,
       page: query.page ?? null,
       pageSize,

@@ -4,7 +4,7 @@ import { createHash, createHmac, timingSafeEqual } from 'node:crypto';
 import { appendFileSync, existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
-import { DataSource, type EntityManager } from 'typeorm';
+import { DataSource, MoreThan, type EntityManager } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson } from '@meritline/shared';
 import { writeTransaction } from '../database/write-transaction.js';
@@ -173,7 +173,7 @@ export class AuditService implements OnApplicationBootstrap, OnApplicationShutdo
     });
   }
 
-  /** Walks the whole chain and reports every broken entry, not only the first. */
+  /** Walks the whole chain by seq in bounded batches and reports every broken entry, not only the first. */
   async verify(): Promise<AuditVerification> {
     const repo = this.dataSource.getRepository(AuditEntry);
     const broken: AuditBreak[] = [];
@@ -184,9 +184,9 @@ export class AuditService implements OnApplicationBootstrap, OnApplicationShutdo
     if (forged) broken.push({ seq: 0, reason: `${forged} checkpoint(s) in the checkpoint file do not carry a valid signature` });
     const heads = new Map<number, AuditCheckpoint>();
     for (const c of checkpoints) heads.set(c.rows, c);
-    const batch = 1000;
-    for (let offset = 0; ; offset += batch) {
-      const entries = await repo.find({ order: { seq: 'ASC' }, skip: offset, take: batch });
+    const batch = 500;
+    for (let after = 0; ;) {
+      const entries = await repo.find({ where: { seq: MoreThan(after) }, order: { seq: 'ASC' }, take: batch });
       for (const entry of entries) {
         rows++;
         const anchored = heads.get(entry.seq);
@@ -200,6 +200,9 @@ export class AuditService implements OnApplicationBootstrap, OnApplicationShutdo
         expectedSeq = entry.seq + 1;
       }
       if (entries.length < batch) break;
+      after = entries[entries.length - 1].seq;
+      // Let other requests in between batches: the walk over a long trail must not hold the event loop.
+      await new Promise<void>((resolve) => setImmediate(resolve));
     }
     const latest = checkpoints.reduce<AuditCheckpoint | null>((max, c) => (!max || c.rows > max.rows ? c : max), null);
     if (latest && latest.rows > expectedSeq - 1) {

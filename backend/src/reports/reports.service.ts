@@ -251,7 +251,9 @@ export class ReportsService {
     const [signatures, comments, exclusions] = await Promise.all([
       manager.getRepository(StudySignature).find({ where: { studyId: study.id }, order: { signedAt: 'ASC' } }),
       manager.getRepository(StudyComment).find({ where: { studyId: study.id }, order: { createdAt: 'ASC' } }),
-      manager.getRepository(AuditEntry).find({ where: { entityId: study.id, action: In(EXCLUSION_ACTIONS) }, order: { seq: 'ASC' } }),
+      manager
+        .getRepository(AuditEntry)
+        .find({ where: { entity: 'study', entityId: study.id, action: In(EXCLUSION_ACTIONS) }, order: { seq: 'ASC' } }),
     ]);
     const { method, ...version } = study.methodVersion;
     const preparations = await this.preparationsOf(study.data);

@@ -5,6 +5,7 @@ import {
   type HistoryItemDto,
   type QueueItemDto,
   type ReviewQueueEntryDto,
+  type ReviewQueuePageDto,
   Role,
   type SignatureDto,
   type StudyDiffDto,
@@ -19,7 +20,7 @@ import { CommentsService } from './comments.service.js';
 import {
   CommentResponseDto,
   HistoryItemResponseDto,
-  ReviewQueueEntryResponseDto,
+  ReviewQueuePageResponseDto,
   SignatureResponseDto,
   StudyDiffResponseDto,
   TransitionResultResponseDto,
@@ -27,6 +28,7 @@ import {
 import { CreateCommentDto } from './dto/create-comment.dto.js';
 import { ReturnStudyDto } from './dto/return-study.dto.js';
 import { ReviewQueueQueryDto } from './dto/review-queue.query.dto.js';
+import { decodeCursor, encodeCursor } from '../common/keyset.js';
 import { SignStudyDto } from './dto/sign-study.dto.js';
 import { UpdateCommentDto } from './dto/update-comment.dto.js';
 import { ReviewsService } from './reviews.service.js';
@@ -139,17 +141,28 @@ export class ReviewQueueController {
     private readonly runRelease: RunReleaseService,
   ) {}
 
-  /** Studies and runs awaiting the caller, each with its kind; studies first, each kind oldest first. */
+  /** Studies and runs awaiting the caller, each with its kind; studies first, each kind oldest first; paged forward by cursor. */
   @Get('queue')
   @Roles(...REVIEWERS)
-  @ApiOkResponse({ type: [ReviewQueueEntryResponseDto] })
+  @ApiOkResponse({ type: ReviewQueuePageResponseDto })
   @ApiInvalid()
-  async queue(@Query() query: ReviewQueueQueryDto, @CurrentUser() user: AuthUser): Promise<ReviewQueueEntryDto[]> {
-    const studies: ReviewQueueEntryDto[] =
-      query.kind === 'run'
-        ? []
-        : (await this.reviewsService.queueFor(user)).map((item: QueueItemDto) => ({ kind: 'study' as const, ...item }));
-    const runs = query.kind === 'study' ? [] : await this.runRelease.queueFor(user);
-    return [...studies, ...runs];
+  async queue(@Query() query: ReviewQueueQueryDto, @CurrentUser() user: AuthUser): Promise<ReviewQueuePageDto> {
+    const pageSize = query.pageSize ?? 50;
+    const cursor = decodeCursor(query.cursor, ['study', 'run'], 'asc');
+    const wanted = pageSize + 1;
+    const items: ReviewQueueEntryDto[] = [];
+    if (query.kind !== 'run' && cursor?.sort !== 'run') {
+      const studies = await this.reviewsService.queueFor(user, { after: cursor?.id ?? null, limit: wanted });
+      items.push(...studies.map((item: QueueItemDto) => ({ kind: 'study' as const, ...item })));
+    }
+    if (query.kind !== 'study' && items.length < wanted) {
+      items.push(
+        ...(await this.runRelease.queueFor(user, { after: cursor?.sort === 'run' ? cursor.id : null, limit: wanted - items.length })),
+      );
+    }
+    const page = items.slice(0, pageSize);
+    const last = page[page.length - 1];
+    const nextCursor = items.length > pageSize ? encodeCursor({ id: last.id, dir: 'after', sort: last.kind, order: 'asc' }) : null;
+    return { items: page, nextCursor, pageSize };
   }
 }

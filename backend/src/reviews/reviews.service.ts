@@ -14,6 +14,7 @@ import {
 import { createdFields, AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { keysetPage, QUEUE_BATCH, type KeysetCursor, type QueuePage } from '../common/keyset.js';
 import { unprocessable } from '../common/validation.js';
 import { writeTransaction } from '../database/write-transaction.js';
 import { ReportsService } from '../reports/reports.service.js';
@@ -199,23 +200,57 @@ export class ReviewsService {
   }
 
   /** Submitted studies the caller may act on, oldest first. */
-  async queueFor(user: AuthUser): Promise<QueueItemDto[]> {
-    const submitted = await this.studies.find({
-      where: { status: 'submitted' },
-      relations: { methodVersion: { method: true }, author: true },
-      order: { submittedAt: 'ASC' },
-    });
-    const signatures = submitted.length ? await this.signatures.find({ where: { studyId: In(submitted.map((s) => s.id)) } }) : [];
+  /**
+   * Up to `limit` submitted studies the user may act on, oldest first, after the study `after`. Read by keyset in
+   * batches without data or result; the author and editors are left out row by row.
+   */
+  async queueFor(user: AuthUser, page: QueuePage): Promise<QueueItemDto[]> {
     const isManager = user.roles.includes(Role.QualityManager);
-    return submitted.flatMap((study): QueueItemDto[] => {
-      if (study.authorId === user.id || study.editorIds.includes(user.id)) return [];
-      const firstApproval = currentRound(signatures.filter((s) => s.studyId === study.id)).find(
-        (s) => s.meaning === 'reviewed-and-approved',
-      );
-      const stage: ReviewStage = firstApproval ? 'release' : 'review';
-      if (stage === 'release' && (!isManager || firstApproval?.signerId === user.id)) return [];
-      return [
-        {
+    const items: QueueItemDto[] = [];
+    let cursor: KeysetCursor | null = page.after ? { id: page.after, dir: 'after', sort: 'study', order: 'asc' } : null;
+    do {
+      const qb = this.studies
+        .createQueryBuilder('study')
+        .innerJoin('study.methodVersion', 'version')
+        .innerJoin('version.method', 'method')
+        .innerJoin('study.author', 'author')
+        .select([
+          'study.id',
+          'study.title',
+          'study.status',
+          'study.methodVersionId',
+          'study.authorId',
+          'study.editorIds',
+          'study.submittedAt',
+          'study.lockVersion',
+          'version.id',
+          'version.number',
+          'version.methodId',
+          'method.id',
+          'method.name',
+          'author.id',
+          'author.name',
+        ])
+        .where('study.status = :status', { status: 'submitted' });
+      const batch = await keysetPage(qb, {
+        alias: 'study',
+        sortProperty: 'submittedAt',
+        sort: 'study',
+        order: 'asc',
+        cursor,
+        pageSize: QUEUE_BATCH,
+        countQuery: null,
+      });
+      const ids = batch.rows.map((s) => s.id);
+      const signatures = ids.length ? await this.signatures.find({ where: { studyId: In(ids) } }) : [];
+      for (const study of batch.rows) {
+        if (study.authorId === user.id || study.editorIds.includes(user.id)) continue;
+        const firstApproval = currentRound(signatures.filter((s) => s.studyId === study.id)).find(
+          (s) => s.meaning === 'reviewed-and-approved',
+        );
+        const stage: ReviewStage = firstApproval ? 'release' : 'review';
+        if (stage === 'release' && (!isManager || firstApproval?.signerId === user.id)) continue;
+        items.push({
           id: study.id,
           title: study.title,
           status: study.status,
@@ -228,9 +263,12 @@ export class ReviewsService {
           authorName: study.author.name,
           submittedAt: study.submittedAt?.toISOString() ?? null,
           lockVersion: study.lockVersion,
-        },
-      ];
-    });
+        });
+        if (items.length >= page.limit) return items;
+      }
+      cursor = batch.nextCursor ? { id: batch.rows[batch.rows.length - 1].id, dir: 'after', sort: 'study', order: 'asc' } : null;
+    } while (cursor);
+    return items;
   }
 
   signaturesOf(studyId: string): Promise<StudySignature[]> {

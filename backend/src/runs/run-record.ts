@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { EntityManager } from 'typeorm';
 import { canonicalJson, ENGINE_VERSION, RunReviewStatus, type RunPreviewDto } from '@meritline/shared';
-import type { AuditService } from '../audit/audit.service.js';
+import { createdFields, type AuditService } from '../audit/audit.service.js';
 import { Run } from './run.entity.js';
 
 export interface NewRun {
@@ -46,13 +46,13 @@ export async function saveCalculatedRun(manager: EntityManager, audit: AuditServ
       action: 'run.created',
       entity: 'run',
       entityId: saved.id,
-      changes: {
-        methodVersionId: { from: null, to: saved.methodVersionId },
-        model: { from: null, to: saved.model },
-        status: { from: null, to: saved.status },
-        dataHash: { from: null, to: saved.dataHash },
-        ...(supersedes ? { supersedesId: { from: null, to: supersedes.id } } : {}),
-      },
+      changes: createdFields({
+        methodVersionId: saved.methodVersionId,
+        model: saved.model,
+        status: saved.status,
+        dataHash: saved.dataHash,
+        ...(supersedes ? { supersedesId: supersedes.id } : {}),
+      }),
       ...(supersedes ? { reason: supersedes.reason } : {}),
     },
     manager,

@@ -10,9 +10,10 @@ import {
   type RunReviewDto,
   type RunSignatureMeaning,
 } from '@meritline/shared';
-import { createdFields, AuditService } from '../audit/audit.service.js';
+import { AuditService } from '../audit/audit.service.js';
 import { AuthService } from '../auth/auth.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { keysetPage, QUEUE_BATCH, type KeysetCursor, type QueuePage } from '../common/keyset.js';
 import { unprocessable } from '../common/validation.js';
 import { writeTransaction } from '../database/write-transaction.js';
 import { MailService } from '../mail/mail.service.js';
@@ -219,18 +220,52 @@ export class RunReleaseService {
   }
 
   /** Submitted runs a reviewer may release: everyone's but their own, oldest first. */
-  async queueFor(user: AuthUser): Promise<RunQueueItemDto[]> {
+  /** Up to `limit` submitted runs the reviewer did not write, oldest first, after the run `after`; read by keyset in batches. */
+  async queueFor(user: AuthUser, page: QueuePage): Promise<RunQueueItemDto[]> {
     if (!user.roles.includes(Role.Reviewer)) return [];
-    const runs = await this.dataSource.getRepository(Run).find({
-      where: { reviewStatus: RunReviewStatus.Submitted },
-      relations: { methodVersion: { method: true } },
-      order: { submittedAt: 'ASC', id: 'ASC' },
-    });
-    const mine = runs.filter((run) => run.authorId !== user.id);
-    const authorIds = [...new Set(mine.map((run) => run.authorId))];
-    const authors = authorIds.length ? await this.dataSource.getRepository(User).find({ where: { id: In(authorIds) } }) : [];
+    const mine: Run[] = [];
+    let cursor: KeysetCursor | null = page.after ? { id: page.after, dir: 'after', sort: 'run', order: 'asc' } : null;
+    do {
+      const qb = this.dataSource
+        .getRepository(Run)
+        .createQueryBuilder('run')
+        .innerJoin('run.methodVersion', 'version')
+        .innerJoin('version.method', 'method')
+        .select([
+          'run.id',
+          'run.title',
+          'run.status',
+          'run.reviewStatus',
+          'run.methodVersionId',
+          'run.authorId',
+          'run.submittedAt',
+          'run.lockVersion',
+          'version.id',
+          'version.number',
+          'version.methodId',
+          'method.id',
+          'method.name',
+        ])
+        .where('run.reviewStatus = :reviewStatus', { reviewStatus: RunReviewStatus.Submitted });
+      const batch = await keysetPage(qb, {
+        alias: 'run',
+        sortProperty: 'submittedAt',
+        sort: 'run',
+        order: 'asc',
+        cursor,
+        pageSize: QUEUE_BATCH,
+        countQuery: null,
+      });
+      mine.push(...batch.rows.filter((run) => run.authorId !== user.id));
+      cursor = batch.nextCursor ? { id: batch.rows[batch.rows.length - 1].id, dir: 'after', sort: 'run', order: 'asc' } : null;
+    } while (cursor && mine.length < page.limit);
+    const runs = mine.slice(0, page.limit);
+    const authorIds = [...new Set(runs.map((run) => run.authorId))];
+    const authors = authorIds.length
+      ? await this.dataSource.getRepository(User).find({ where: { id: In(authorIds) }, select: { id: true, name: true } })
+      : [];
     const names = new Map(authors.map((a) => [a.id, a.name]));
-    return mine.map((run) => ({
+    return runs.map((run) => ({
       kind: 'run',
       id: run.id,
       title: run.title,

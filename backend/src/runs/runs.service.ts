@@ -1,6 +1,6 @@
 import { ConflictException, Inject, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
-import { DataSource, In, Repository, type FindOptionsWhere } from 'typeorm';
+import { DataSource, In, Repository } from 'typeorm';
 import {
   evaluateRun,
   modelChoices,
@@ -25,6 +25,7 @@ import {
 import { AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
+import { decodeCursor, keysetPage } from '../common/keyset.js';
 import { unprocessable } from '../common/validation.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
 import { writeTransaction } from '../database/write-transaction.js';
@@ -262,21 +263,55 @@ export class RunsService {
   }
 
   async list(query: ListRunsQueryDto): Promise<RunPageDto> {
-    const where: FindOptionsWhere<Run> = {};
-    if (query.methodVersionId) where.methodVersionId = query.methodVersionId;
-    if (query.status) where.status = query.status;
-    if (query.methodId) where.methodVersion = { methodId: query.methodId };
-    const [runs, total] = await this.runs.findAndCount({
-      where,
-      relations: { methodVersion: { method: true } },
-      order: { createdAt: 'DESC', id: 'ASC' },
-      skip: (query.page - 1) * query.pageSize,
-      take: query.pageSize,
+    const cursor = decodeCursor(query.cursor, 'createdAt', 'desc');
+    const qb = this.runs
+      .createQueryBuilder('run')
+      .innerJoin('run.methodVersion', 'version')
+      .innerJoin('version.method', 'method')
+      .select([
+        'run.id',
+        'run.title',
+        'run.status',
+        'run.reviewStatus',
+        'run.model',
+        'run.methodVersionId',
+        'run.authorId',
+        'run.createdAt',
+        'version.id',
+        'version.number',
+        'method.id',
+        'method.name',
+        'method.analyte',
+      ]);
+    const countQuery = this.runs.createQueryBuilder('run').select('run.id');
+    for (const filtered of [qb, countQuery]) {
+      if (query.methodVersionId) filtered.andWhere('run.methodVersionId = :methodVersionId', { methodVersionId: query.methodVersionId });
+      if (query.status) filtered.andWhere('run.status = :status', { status: query.status });
+      if (query.methodId) {
+        filtered.andWhere('run.methodVersionId IN (SELECT mv.id FROM method_versions mv WHERE mv.method_id = :methodId)', {
+          methodId: query.methodId,
+        });
+      }
+    }
+    const { rows: runs, ...page } = await keysetPage(qb, {
+      alias: 'run',
+      sortProperty: 'createdAt',
+      sort: 'createdAt',
+      order: 'desc',
+      cursor,
+      pageSize: query.pageSize,
+      countQuery,
     });
     const authors = await this.authorsOf(runs);
+    const results = runs.length
+      ? await this.runs.find({ where: { id: In(runs.map((run) => run.id)) }, select: { id: true, result: true } })
+      : [];
+    const resultOf = new Map(results.map((run) => [run.id, run.result as unknown as RunResult]));
     return {
+      ...page,
+      pageSize: query.pageSize,
       items: runs.map((run) => {
-        const result = run.result as unknown as RunResult;
+        const result = resultOf.get(run.id);
         return {
           id: run.id,
           title: run.title,
@@ -288,14 +323,11 @@ export class RunsService {
           method: { id: run.methodVersion.method.id, name: run.methodVersion.method.name, analyte: run.methodVersion.method.analyte },
           author: authors.get(run.authorId) ?? { id: run.authorId, name: 'Unknown user' },
           createdAt: run.createdAt.toISOString(),
-          slope: result.calibration?.slope ?? null,
-          unknownCount: result.unknowns.length,
-          checkCount: result.checks.length,
+          slope: result?.calibration?.slope ?? null,
+          unknownCount: result?.unknowns.length ?? 0,
+          checkCount: result?.checks.length ?? 0,
         };
       }),
-      total,
-      page: query.page,
-      pageSize: query.pageSize,
     };
   }
 

@@ -1,11 +1,12 @@
 import { ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { DataSource, type EntityManager } from 'typeorm';
+import { DataSource, type EntityManager, type SelectQueryBuilder } from 'typeorm';
 import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity.js';
 import { canonicalJson, Role, type FieldError, type ImportSection, type StudyMeta } from '@meritline/shared';
 import type { FieldChanges } from '../audit/audit-entry.entity.js';
-import { createdFields, AuditService, type AuditRecord } from '../audit/audit.service.js';
+import { AuditService, type AuditRecord } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
+import { decodeCursor, keysetPage } from '../common/keyset.js';
 import { unprocessable } from '../common/validation.js';
 import type { CriterionDto } from '../methods/dto/criterion.dto.js';
 import { MethodVersion } from '../methods/method-version.entity.js';
@@ -38,7 +39,6 @@ const iso = (date: Date | null) => date?.toISOString() ?? null;
 export function toStudySummary(study: ValidationStudy): StudySummaryDto {
   const { methodVersion: version, author } = study;
   const { method } = version;
-  const verdict = (study.result as { verdict?: { pass?: boolean | null } } | null)?.verdict;
   return {
     id: study.id,
     title: study.title,
@@ -72,9 +72,12 @@ export function toStudySummary(study: ValidationStudy): StudySummaryDto {
     updatedAt: study.updatedAt.toISOString(),
     submittedAt: iso(study.submittedAt),
     approvedAt: iso(study.approvedAt),
-    verdictPass: verdict?.pass ?? null,
+    verdictPass: verdictOf(study.result),
   };
 }
+
+const verdictOf = (result: Record<string, unknown> | null | undefined): boolean | null =>
+  (result as { verdict?: { pass?: boolean | null } } | null | undefined)?.verdict?.pass ?? null;
 
 export function toStudyDto(study: ValidationStudy): StudyDto {
   const { verdictPass: _verdictPass, ...summary } = toStudySummary(study);
@@ -174,9 +177,10 @@ export class StudiesService {
   ) {}
 
   async findPage(query: ListStudiesQueryDto, user: AuthUser): Promise<StudyPageDto> {
-    const page = query.page ?? 1;
     const pageSize = query.pageSize ?? 20;
-    const order = query.order === 'asc' ? 'ASC' : 'DESC';
+    const sort = query.sort ?? 'updatedAt';
+    const order = query.order ?? 'desc';
+    const cursor = decodeCursor(query.cursor, sort, order);
     const qb = this.dataSource
       .getRepository(ValidationStudy)
       .createQueryBuilder('study')
@@ -188,7 +192,6 @@ export class StudiesService {
         'study.title',
         'study.status',
         'study.methodVersionId',
-        'study.result',
         'study.resultErrors',
         'study.engineVersion',
         'study.dataHash',
@@ -216,8 +219,19 @@ export class StudiesService {
         'author.id',
         'author.name',
       ]);
+    const countQuery = this.dataSource.getRepository(ValidationStudy).createQueryBuilder('study').select('study.id');
+    for (const filtered of [qb, countQuery]) this.filterStudies(filtered, query, user);
+    const { rows, ...page } = await keysetPage(qb, { alias: 'study', sortProperty: sort, sort, order, cursor, pageSize, countQuery });
+    const verdicts = await this.verdictsOf(rows.map((study) => study.id));
+    return { ...page, pageSize, items: rows.map((study) => ({ ...toStudySummary(study), verdictPass: verdicts.get(study.id) ?? null })) };
+  }
+
+  private filterStudies(qb: SelectQueryBuilder<ValidationStudy>, query: ListStudiesQueryDto, user: AuthUser) {
     if (query.status) qb.andWhere('study.status = :status', { status: query.status });
-    if (query.methodId) qb.andWhere('version.methodId = :methodId', { methodId: query.methodId });
+    if (query.methodId)
+      qb.andWhere('study.methodVersionId IN (SELECT mv.id FROM method_versions mv WHERE mv.method_id = :methodId)', {
+        methodId: query.methodId,
+      });
     if (query.methodVersionId) qb.andWhere('study.methodVersionId = :methodVersionId', { methodVersionId: query.methodVersionId });
     const authorId = query.mine ? user.id : query.authorId;
     if (authorId) qb.andWhere('study.authorId = :authorId', { authorId });
@@ -229,13 +243,23 @@ export class StudiesService {
       });
     }
     if (query.q) qb.andWhere(`LOWER(study.title) LIKE :q ESCAPE '\\'`, { q: `%${query.q.toLowerCase().replace(/[\\%_]/g, '\\$&')}%` });
-    const [studies, total] = await qb
-      .orderBy(`study.${query.sort ?? 'updatedAt'}`, order)
-      .addOrderBy('study.id', order)
-      .offset((page - 1) * pageSize)
-      .limit(pageSize)
-      .getManyAndCount();
-    return { items: studies.map(toStudySummary), total, page, pageSize };
+  }
+
+  /** The verdict lives in the result; the database extracts it for the page's rows only, without shipping the result. */
+  private async verdictsOf(ids: string[]): Promise<Map<string, boolean | null>> {
+    if (!ids.length) return new Map();
+    const pass =
+      this.dataSource.options.type === 'postgres'
+        ? `CAST(study.result AS json) #>> '{verdict,pass}'`
+        : `json_extract(study.result, '$.verdict.pass')`;
+    const rows = await this.dataSource
+      .getRepository(ValidationStudy)
+      .createQueryBuilder('study')
+      .select('study.id', 'id')
+      .addSelect(pass, 'pass')
+      .where('study.id IN (:...ids)', { ids })
+      .getRawMany<{ id: string; pass: string | number | boolean | null }>();
+    return new Map(rows.map((row) => [row.id, row.pass === null ? null : row.pass === true || row.pass === 1 || row.pass === 'true']));
   }
 
   async findOne(id: ValidationStudy['id'], manager: EntityManager = this.dataSource.manager): Promise<StudyDto> {

@@ -29,8 +29,9 @@ export interface AuditTrailEntryDto {
 
 export interface AuditTrailPageDto {
   items: AuditTrailEntryDto[];
-  /** Entries matching the filters, over every page. */
+  /** Entries matching the filters over every page, counted up to LIST_COUNT_CAP; when `totalIsCapped`, at least this many. */
   total: number;
+  totalIsCapped: boolean;
   /** Pass as `cursor` for the next (older) page; null on the last page. */
   nextCursor: number | null;
   page: number | null;

@@ -1,5 +1,6 @@
 import type { Role } from '../roles.js';
 import type { StudySection, StudyStatus } from './studies.js';
+import type { ReviewQueueEntryDto } from '../run-status.js';
 
 export type SignatureMeaning = 'authored' | 'reviewed-and-approved' | 'released';
 
@@ -100,4 +101,15 @@ export interface TransitionResultDto {
   submittedAt: string | null;
   approvedAt: string | null;
   signature: SignatureDto | null;
+}
+
+/**
+ * The caller's review queue, studies first, each kind oldest first, paged forward by cursor: who may act on an
+ * entry is decided row by row, so the queue tells whether more pages follow (nextCursor) but counts nothing.
+ */
+export interface ReviewQueuePageDto {
+  items: ReviewQueueEntryDto[];
+  /** null on the last page. */
+  nextCursor: string | null;
+  pageSize: number;
 }

@@ -1,6 +1,6 @@
 import type { CalibrationModel, Units, Weighting } from '../study.js';
 import type { RunReviewStatus, RunStatus } from '../run-status.js';
-import type { UserRef } from './common.js';
+import type { KeysetPage, UserRef } from './common.js';
 import type { MethodVersionStatus } from './methods.js';
 import type { DetectionApproach, EvaluationResult, UnknownResult } from '../result.js';
 import type { UncertaintyResult } from '../uncertainty-types.js';
@@ -402,13 +402,8 @@ export interface RunSummaryDto {
   checkCount: number;
 }
 
-/** GET /api/runs */
-export interface RunPageDto {
-  items: RunSummaryDto[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+/** GET /api/runs: newest first, paged by cursor. */
+export type RunPageDto = KeysetPage<RunSummaryDto>;
 
 export type SlopeControlFlag = 'beyondWarning' | 'beyondAction' | 'sevenOnOneSide';
 

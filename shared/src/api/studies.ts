@@ -1,5 +1,5 @@
 import type { EvaluationResult } from '../result.js';
-import type { FieldError, UserRef } from './common.js';
+import type { FieldError, KeysetPage, UserRef } from './common.js';
 import type { CriterionDefinition, MethodVersionSettings, MethodVersionStatus } from './methods.js';
 
 export type StudyStatus = 'draft' | 'submitted' | 'returned' | 'approved';
@@ -66,12 +66,8 @@ export type StudySummaryDto = Omit<StudyDto, 'data' | 'result'> & {
   verdictPass: boolean | null;
 };
 
-export interface StudyPageDto {
-  items: StudySummaryDto[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+/** Paged by `cursor` (keyset); the list rows carry no data or result. */
+export type StudyPageDto = KeysetPage<StudySummaryDto>;
 
 export const STUDY_SORTS = ['updatedAt', 'createdAt', 'title', 'status'] as const;
 export type StudySort = (typeof STUDY_SORTS)[number];

@@ -41,7 +41,8 @@ class AuditRecordRefDto {
 
 export class AuditTrailPageResponseDto implements AuditTrailPageDto {
   @ApiProperty({ type: [AuditTrailEntryResponseDto] }) items: AuditTrailEntryResponseDto[];
-  @ApiProperty({ description: 'Entries matching the filters, over every page.' }) total: number;
+  @ApiProperty({ description: 'Entries matching the filters over every page, counted up to the list cap.' }) total: number;
+  @ApiProperty({ description: 'True when more entries match than the cap counts (total is then a lower bound).' }) totalIsCapped: boolean;
   @ApiProperty({ type: Number, nullable: true, description: 'Pass as `cursor` for the next (older) page.' }) nextCursor: number | null;
   @ApiProperty({ type: Number, nullable: true }) page: number | null;
   @ApiProperty() pageSize: number;

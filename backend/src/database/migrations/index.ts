@@ -14,6 +14,7 @@ import { RunImportMappings1796430502016 } from './1796430502016-run-import-mappi
 import { AuditReview1796428669934 } from './1796428669934-audit-review.js';
 import { QualificationRuns1796428669935 } from './1796428669935-qualification-runs.js';
 import { QcSignalMessage1796439558943 } from './1796439558943-qc-signal-message.js';
+import { ListKeysetIndexes1796439581141 } from './1796439581141-list-keyset-indexes.js';
 
 export const migrations = [
   UsersAndOutbox1764626400000,
@@ -32,4 +33,5 @@ export const migrations = [
   AuditReview1796428669934,
   QualificationRuns1796428669935,
   QcSignalMessage1796439558943,
+  ListKeysetIndexes1796439581141,
 ];

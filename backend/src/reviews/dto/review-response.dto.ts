@@ -8,6 +8,8 @@ import {
   type FieldChanges,
   type HistoryItemDto,
   type HistoryKind,
+  type ReviewQueueEntryDto,
+  type ReviewQueuePageDto,
   type ReviewStage,
   type RunReviewStatus,
   type SectionDiff,
@@ -101,4 +103,11 @@ export class ReviewQueueEntryResponseDto {
   @ApiProperty() authorName: string;
   @ApiProperty({ type: String, format: 'date-time', nullable: true }) submittedAt: string | null;
   @ApiProperty() lockVersion: number;
+}
+
+export class ReviewQueuePageResponseDto implements ReviewQueuePageDto {
+  @ApiProperty({ type: [ReviewQueueEntryResponseDto] }) items: ReviewQueueEntryDto[];
+  @ApiProperty({ type: String, nullable: true, description: 'Pass as `cursor` for the next page; null on the last page.' })
+  nextCursor: string | null;
+  @ApiProperty() pageSize: number;
 }

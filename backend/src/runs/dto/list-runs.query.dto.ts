@@ -1,6 +1,7 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsUUID, Max, Min } from 'class-validator';
+import { IsIn, IsInt, IsOptional, IsString, IsUUID, Max, MaxLength, Min } from 'class-validator';
+import { MAX_CURSOR_LENGTH } from '../../common/keyset.js';
 import type { RunStatus } from '@meritline/shared';
 
 export class ListRunsQueryDto {
@@ -19,12 +20,11 @@ export class ListRunsQueryDto {
   @IsIn(['accepted', 'rejected'], { message: 'Status is accepted or rejected.' })
   status?: RunStatus;
 
-  @ApiPropertyOptional({ default: 1 })
+  @ApiPropertyOptional({ description: 'nextCursor or prevCursor of the page before; the first page without it.' })
   @IsOptional()
-  @Type(() => Number)
-  @IsInt()
-  @Min(1)
-  page: number = 1;
+  @IsString()
+  @MaxLength(MAX_CURSOR_LENGTH, { message: 'The page cursor is too long; start again from the first page.' })
+  cursor?: string;
 
   @ApiPropertyOptional({ default: 20 })
   @IsOptional()

@@ -77,8 +77,12 @@ export class RunSummaryResponseDto implements RunSummaryDto {
 
 export class RunPageResponseDto implements RunPageDto {
   @ApiProperty({ type: [RunSummaryResponseDto] }) items: RunSummaryResponseDto[];
-  @ApiProperty() total: number;
-  @ApiProperty() page: number;
+  @ApiProperty({ type: String, nullable: true, description: 'Pass as cursor for the next page; null on the last page.' })
+  nextCursor: string | null;
+  @ApiProperty({ type: String, nullable: true, description: 'Pass as cursor for the page before; null on the first page.' })
+  prevCursor: string | null;
+  @ApiProperty({ description: 'Matching runs, counted up to the list cap.' }) total: number;
+  @ApiProperty({ description: 'True when more runs match than the cap counts (total is then a lower bound).' }) totalIsCapped: boolean;
   @ApiProperty() pageSize: number;
 }
 

@@ -1,7 +1,8 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Transform, Type } from 'class-transformer';
-import { IsBoolean, IsIn, IsInt, IsISO8601, IsOptional, IsUUID, Max, Min } from 'class-validator';
+import { IsBoolean, IsIn, IsInt, IsISO8601, IsOptional, IsString, IsUUID, Max, MaxLength, Min } from 'class-validator';
 import { STUDY_SORTS, STUDY_STATUSES, type StudySort, type StudyStatus } from '@meritline/shared';
+import { MAX_CURSOR_LENGTH } from '../../common/keyset.js';
 import { OptionalText } from '../../methods/dto/text.decorators.js';
 
 export class ListStudiesQueryDto {
@@ -55,12 +56,11 @@ export class ListStudiesQueryDto {
   @IsIn(['desc', 'asc'], { message: 'The order is asc or desc.' })
   order?: 'asc' | 'desc';
 
-  @ApiPropertyOptional({ default: 1, minimum: 1 })
+  @ApiPropertyOptional({ description: 'nextCursor or prevCursor of the page before; the first page without it.' })
   @IsOptional()
-  @Type(() => Number)
-  @Min(1)
-  @IsInt()
-  page?: number;
+  @IsString()
+  @MaxLength(MAX_CURSOR_LENGTH, { message: 'The page cursor is too long; start again from the first page.' })
+  cursor?: string;
 
   @ApiPropertyOptional({ default: 20, minimum: 1, maximum: 100 })
   @IsOptional()

@@ -2,6 +2,7 @@ import { ApiProperty, OmitType, PickType } from '@nestjs/swagger';
 import { MethodSummaryDto, MethodVersionDto, UserRefDto } from '../../methods/dto/method.dto.js';
 import {
   IMPORT_SECTIONS,
+  LIST_COUNT_CAP,
   STUDY_STATUSES,
   type ImportPreviewDto as ImportPreviewContract,
   type ImportSection,
@@ -59,8 +60,13 @@ export class StudySummaryDto extends OmitType(StudyDto, ['data', 'result'] as co
 
 export class StudyPageDto implements StudyPageContract {
   @ApiProperty({ type: [StudySummaryDto] }) items: StudySummaryDto[];
-  @ApiProperty() total: number;
-  @ApiProperty() page: number;
+  @ApiProperty({ type: String, nullable: true, description: 'Pass as cursor for the next page; null on the last page.' })
+  nextCursor: string | null;
+  @ApiProperty({ type: String, nullable: true, description: 'Pass as cursor for the page before; null on the first page.' })
+  prevCursor: string | null;
+  @ApiProperty({ description: `Matching studies, counted up to ${LIST_COUNT_CAP}.` }) total: number;
+  @ApiProperty({ description: `True when more than ${LIST_COUNT_CAP} studies match (total is then a lower bound).` })
+  totalIsCapped: boolean;
   @ApiProperty() pageSize: number;
 }
 

@@ -193,7 +193,7 @@ export default function AuditTrailPage() {
         {total > 0 && (
           <HStack justify="space-between">
             <Text fontSize="sm" color="fg.muted" data-testid="audit-range">
-              Entries {first}–{first + shown - 1} of {total}, newest first
+              Entries {first}–{first + shown - 1} of {page.data?.totalIsCapped ? `more than ${total}` : total}, newest first
             </Text>
             <HStack gap="2">
               <Button size="sm" variant="outline" disabled={!cursors.length} onClick={() => setCursors(cursors.slice(0, -1))}>

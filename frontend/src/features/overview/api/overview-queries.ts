@@ -1,4 +1,4 @@
-import type { AuditReviewDto, OverviewDto, ReviewQueueEntryDto } from '@meritline/shared';
+import type { AuditReviewDto, OverviewDto, ReviewQueuePageDto } from '@meritline/shared';
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { reviewQueueKeys, studyKeys } from '@/lib/query-keys';
@@ -21,7 +21,7 @@ export const overviewQueries = {
   reviewQueue: () =>
     queryOptions({
       queryKey: [...reviewQueueKeys.lists(), 'overview'],
-      queryFn: ({ signal }) => api.get<ReviewQueueEntryDto[]>('/reviews/queue', { signal }),
+      queryFn: ({ signal }) => api.get<ReviewQueuePageDto>('/reviews/queue?pageSize=20', { signal }).then((page) => page.items),
     }),
   returnedStudies: () =>
     queryOptions({

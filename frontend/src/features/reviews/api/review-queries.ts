@@ -1,7 +1,8 @@
-import { queryOptions } from '@tanstack/react-query';
+import type { ReviewQueuePageDto } from '@meritline/shared';
+import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { reviewQueueKeys, studyKeys } from '@/lib/query-keys';
-import type { HistoryItem, QueueItem, Signature, StudyComment, StudyDiff, StudyView } from './review-types';
+import type { HistoryItem, ReviewQueueParams, Signature, StudyComment, StudyDiff, StudyView } from './review-types';
 
 export const studyReviewQueries = {
   ...studyKeys,
@@ -36,6 +37,15 @@ export const studyReviewQueries = {
 
 export const reviewQueueQueries = {
   ...reviewQueueKeys,
-  list: () =>
-    queryOptions({ queryKey: reviewQueueKeys.lists(), queryFn: ({ signal }) => api.get<QueueItem[]>('/reviews/queue', { signal }) }),
+  list: (params: ReviewQueueParams) =>
+    queryOptions({
+      queryKey: [...reviewQueueKeys.lists(), params],
+      queryFn: ({ signal }) => {
+        const search = new URLSearchParams({ pageSize: String(params.pageSize) });
+        if (params.kind) search.set('kind', params.kind);
+        if (params.cursor) search.set('cursor', params.cursor);
+        return api.get<ReviewQueuePageDto>(`/reviews/queue?${search.toString()}`, { signal });
+      },
+      placeholderData: keepPreviousData,
+    }),
 };

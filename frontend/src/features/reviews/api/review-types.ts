@@ -47,6 +47,12 @@ export type {
 } from '@meritline/shared';
 export type TransitionResult = Omit<TransitionResultDto, 'submittedAt' | 'approvedAt'>;
 
+export interface ReviewQueueParams {
+  kind?: 'study' | 'run';
+  cursor?: string;
+  pageSize: number;
+}
+
 export const SECTION_LABELS: Record<StudySection, string> = {
   setup: 'Setup',
   standards: 'Standards',

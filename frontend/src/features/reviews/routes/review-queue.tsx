@@ -1,17 +1,17 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, type ReviewQueueEntryDto } from '@meritline/shared';
 import { Badge, Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { Link as RouterLink } from 'react-router';
+import { CursorPager } from '@/components/cursor-pager';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { reviewQueueQueries } from '../api/review-queries';
-import type { QueueItem } from '../api/review-types';
 
 /** The queue lists validation studies and routine runs; each item says which. */
-type QueueEntry = QueueItem & { kind?: 'study' | 'run' };
+type QueueEntry = ReviewQueueEntryDto;
 type KindFilter = 'all' | 'study' | 'run';
 const KIND_FILTERS: { value: KindFilter; label: string }[] = [
   { value: 'all', label: 'Everything' },
@@ -54,7 +54,7 @@ const columns = column.columns([
     cell: (info) =>
       info.row.original.kind === 'run' ? (
         <Badge colorPalette="orange">Review and release</Badge>
-      ) : info.getValue() === 'release' ? (
+      ) : info.row.original.stage === 'release' ? (
         <Badge colorPalette="purple">Quality release</Badge>
       ) : (
         <Badge colorPalette="orange">Review</Badge>
@@ -62,10 +62,18 @@ const columns = column.columns([
   }),
 ]);
 
+const PAGE_SIZE = 25;
+
 export default function ReviewQueuePage() {
-  const queue = useQuery(reviewQueueQueries.list());
   const [kind, setKind] = useState<KindFilter>('all');
-  const items = (queue.data as QueueEntry[] | undefined)?.filter((item) => kind === 'all' || (item.kind ?? 'study') === kind);
+  // The queue pages forward only; the cursors of the pages before are kept to step back.
+  const [cursors, setCursors] = useState<(string | undefined)[]>([undefined]);
+  const cursor = cursors[cursors.length - 1];
+  const queue = useQuery(reviewQueueQueries.list({ kind: kind === 'all' ? undefined : kind, cursor, pageSize: PAGE_SIZE }));
+  const showKind = (value: KindFilter) => {
+    setKind(value);
+    setCursors([undefined]);
+  };
   return (
     <>
       <PageHeader
@@ -81,7 +89,7 @@ export default function ReviewQueuePage() {
               size="sm"
               variant={kind === filter.value ? 'solid' : 'outline'}
               aria-pressed={kind === filter.value}
-              onClick={() => setKind(filter.value)}
+              onClick={() => showKind(filter.value)}
             >
               {filter.label}
             </Button>
@@ -93,12 +101,21 @@ export default function ReviewQueuePage() {
           <DataTable
             label="Items awaiting review"
             columns={columns}
-            data={items}
-            getRowId={(item) => item.id}
+            data={queue.data?.items}
+            getRowId={(item) => `${item.kind}-${item.id}`}
             isLoading={queue.isPending}
-            pageSize={25}
             emptyTitle="Nothing waits for you"
             emptyDescription="Submitted studies and runs appear here; you are notified when one arrives."
+          />
+        )}
+        {queue.data && (
+          <CursorPager
+            noun="Items"
+            page={{ ...queue.data, prevCursor: cursors.length > 1 ? 'before' : null }}
+            pageNumber={cursors.length}
+            fetching={queue.isFetching}
+            stale={queue.isPlaceholderData}
+            onMove={(next, page) => setCursors((trail) => (page < trail.length ? trail.slice(0, page) : [...trail, next]))}
           />
         )}
         <Text fontSize="sm" color="fg.muted">

@@ -5,6 +5,6 @@ export interface RunFilters {
   methodId?: string;
   methodVersionId?: string;
   status?: RunStatus;
-  page?: number;
+  cursor?: string;
   pageSize?: number;
 }

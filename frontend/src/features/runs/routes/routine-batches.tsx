@@ -2,6 +2,7 @@ import { Button, Field, HStack, NativeSelect, Stack, Text } from '@chakra-ui/rea
 import { RUN_CAUTION, type RunStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { Link as RouterLink, useSearchParams } from 'react-router';
+import { CursorPager } from '@/components/cursor-pager';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
@@ -17,16 +18,17 @@ export default function RoutineBatchesPage() {
   const [params, setParams] = useSearchParams();
   const scope = params.get('scope') ?? '';
   const status = (params.get('status') ?? '') as RunStatus | '';
-  const page = Math.max(1, Number(params.get('page')) || 1);
+  const pageNumber = Math.max(1, Number(params.get('page')) || 1);
+  const cursor = params.get('cursor') || undefined;
   const filters: RunFilters = {
     ...(scope.startsWith('method:') ? { methodId: scope.slice('method:'.length) } : scope ? { methodVersionId: scope } : {}),
     ...(status ? { status } : {}),
-    page,
+    ...(cursor ? { cursor } : {}),
     pageSize: PAGE_SIZE,
   };
   const runs = useQuery(runsQueries.list(filters));
   const methods = useQuery(runsQueries.methodChoices());
-  const update = (changes: Record<string, string>) =>
+  const update = (changes: Record<string, string | undefined>) =>
     setParams((current) => {
       const next = new URLSearchParams(current);
       for (const [key, value] of Object.entries(changes)) {
@@ -35,8 +37,6 @@ export default function RoutineBatchesPage() {
       }
       return next;
     });
-  const total = runs.data?.total ?? 0;
-  const pages = Math.max(1, Math.ceil(total / PAGE_SIZE));
   const versionId = scope && !scope.startsWith('method:') ? scope : undefined;
 
   return (
@@ -62,13 +62,13 @@ export default function RoutineBatchesPage() {
             label="Method and version"
             methods={methods.data ?? []}
             value={scope}
-            onChange={(value) => update({ scope: value, page: '' })}
+            onChange={(value) => update({ scope: value, page: '', cursor: '' })}
             allowMethods
           />
           <Field.Root maxW="2xs">
             <Field.Label>Status</Field.Label>
             <NativeSelect.Root>
-              <NativeSelect.Field value={status} onChange={(event) => update({ status: event.currentTarget.value, page: '' })}>
+              <NativeSelect.Field value={status} onChange={(event) => update({ status: event.currentTarget.value, page: '', cursor: '' })}>
                 <option value="">Accepted and rejected</option>
                 <option value="accepted">Accepted</option>
                 <option value="rejected">Rejected</option>
@@ -90,20 +90,15 @@ export default function RoutineBatchesPage() {
             emptyDescription="Start one with “New run”: it needs an active method version with an approved validation study."
           />
         )}
-        {total > PAGE_SIZE && (
-          <HStack justify="space-between">
-            <Text fontSize="sm" color="fg.muted">
-              Page {page} of {pages}, {total} runs
-            </Text>
-            <HStack gap="2">
-              <Button size="sm" variant="outline" disabled={page <= 1} onClick={() => update({ page: String(page - 1) })}>
-                Previous
-              </Button>
-              <Button size="sm" variant="outline" disabled={page >= pages} onClick={() => update({ page: String(page + 1) })}>
-                Next
-              </Button>
-            </HStack>
-          </HStack>
+        {runs.data && (
+          <CursorPager
+            noun="Runs"
+            page={runs.data}
+            pageNumber={pageNumber}
+            fetching={runs.isFetching}
+            stale={runs.isPlaceholderData}
+            onMove={(next, page) => update({ cursor: next, page: page > 1 ? String(page) : undefined })}
+          />
         )}
         <Text fontSize="sm" color="fg.muted">
           {RUN_CAUTION}

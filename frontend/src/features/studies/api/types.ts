@@ -12,7 +12,7 @@ export interface StudyListParams {
   q?: string;
   sort: StudySort;
   order: 'asc' | 'desc';
-  page: number;
+  cursor?: string;
   pageSize: number;
 }
 

@@ -1,8 +1,9 @@
-import { Button, HStack, Stack, Text } from '@chakra-ui/react';
+import { Button, HStack, Stack } from '@chakra-ui/react';
 import { Role, STUDY_SORTS, type StudySort, type StudyStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useCallback, useMemo } from 'react';
 import { Link as RouterLink, useSearchParams } from 'react-router';
+import { CursorPager } from '@/components/cursor-pager';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
@@ -20,7 +21,6 @@ const STATUSES: StudyStatus[] = ['draft', 'submitted', 'returned', 'approved'];
 function paramsFrom(search: URLSearchParams): StudyListParams {
   const status = search.get('status') as StudyStatus | null;
   const sort = search.get('sort') as StudySort | null;
-  const page = Number(search.get('page'));
   return {
     status: status && STATUSES.includes(status) ? status : undefined,
     methodId: search.get('methodId') || undefined,
@@ -30,7 +30,7 @@ function paramsFrom(search: URLSearchParams): StudyListParams {
     q: search.get('q') || undefined,
     sort: sort && STUDY_SORTS.includes(sort) ? sort : 'updatedAt',
     order: search.get('order') === 'asc' ? 'asc' : 'desc',
-    page: Number.isInteger(page) && page > 0 ? page : 1,
+    cursor: search.get('cursor') || undefined,
     pageSize: PAGE_SIZE,
   };
 }
@@ -66,6 +66,7 @@ export default function ValidationStudiesPage() {
         from: filters.from,
         to: filters.to,
         q: filters.q,
+        cursor: undefined,
         page: undefined,
       }),
     [update],
@@ -73,7 +74,7 @@ export default function ValidationStudiesPage() {
 
   const { sort, order } = params;
   const onSort = useCallback(
-    (by: StudySort) => update({ sort: by, order: sort === by && order === 'desc' ? 'asc' : 'desc', page: undefined }),
+    (by: StudySort) => update({ sort: by, order: sort === by && order === 'desc' ? 'asc' : 'desc', cursor: undefined, page: undefined }),
     [update, sort, order],
   );
   const { user } = useSession();
@@ -83,9 +84,7 @@ export default function ValidationStudiesPage() {
     [sort, order, onSort, user?.id, analyst],
   );
 
-  const total = studies.data?.total ?? 0;
-  const first = total === 0 ? 0 : (params.page - 1) * PAGE_SIZE + 1;
-  const last = Math.min(params.page * PAGE_SIZE, total);
+  const pageNumber = Math.max(1, Number(search.get('page')) || 1);
   const filters: StudyFilters = {
     status: params.status,
     methodId: params.methodId,
@@ -129,21 +128,15 @@ export default function ValidationStudiesPage() {
             emptyDescription={search.size > 0 ? 'Change or clear the filters.' : 'Start one with “New study”.'}
           />
         )}
-        {total > 0 && (
-          <HStack justify="space-between">
-            <Text fontSize="sm" color="fg.muted" aria-live="polite">
-              Studies {first}–{last} of {total}
-              {studies.isFetching && ' · updating…'}
-            </Text>
-            <HStack gap="2">
-              <Button size="sm" variant="outline" disabled={params.page <= 1} onClick={() => update({ page: String(params.page - 1) })}>
-                Previous
-              </Button>
-              <Button size="sm" variant="outline" disabled={last >= total} onClick={() => update({ page: String(params.page + 1) })}>
-                Next
-              </Button>
-            </HStack>
-          </HStack>
+        {studies.data && (
+          <CursorPager
+            noun="Studies"
+            page={studies.data}
+            pageNumber={pageNumber}
+            fetching={studies.isFetching}
+            stale={studies.isPlaceholderData}
+            onMove={(cursor, page) => update({ cursor, page: page > 1 ? String(page) : undefined })}
+          />
         )}
       </Stack>
     </>
