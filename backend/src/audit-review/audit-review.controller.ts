@@ -6,7 +6,7 @@ import { AuditService } from '../audit/audit.service.js';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { download } from '../common/files.js';
-import { ApiError, ApiFile, ApiInvalid, ApiPasswordRefused, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { ApiRefusal, ApiFile, ApiInvalid, ApiPasswordRefused, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { LabCertificateService } from '../reports/signing/lab-certificate.service.js';
 import { auditExtractCsv, auditExtractFileName, renderAuditExtract } from './audit-extract.document.js';
@@ -34,7 +34,7 @@ export class AuditReviewController {
   @Get()
   @ApiOkResponse({ type: AuditTrailPageResponseDto })
   @ApiInvalid()
-  @ApiError(404, 'The record filtered on does not exist.')
+  @ApiRefusal(404, 'The record filtered on does not exist.')
   list(@Query() query: AuditTrailQueryDto, @CurrentUser() user: AuthUser): Promise<AuditTrailPageDto> {
     return this.trail.page(query, user);
   }
@@ -55,7 +55,7 @@ export class AuditReviewController {
   @Get('export')
   @ApiFile('The entries as CSV, or as a signed PDF extract.', 'text/csv', 'application/pdf')
   @ApiInvalid()
-  @ApiError(404, 'The record filtered on does not exist.')
+  @ApiRefusal(404, 'The record filtered on does not exist.')
   async export(
     @Query() query: AuditExportQueryDto,
     @CurrentUser() user: AuthUser,

@@ -4,7 +4,7 @@ import { Role, type LoginResponse, type SessionSettingsDto, type UserDto } from 
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
-import { ApiError, ApiInvalid, ApiSignedIn, ApiThrottled } from '../common/openapi/api-responses.js';
+import { ApiRefusal, ApiInvalid, ApiSignedIn, ApiThrottled } from '../common/openapi/api-responses.js';
 import { UserResponseDto } from '../users/dto/user.dto.js';
 import { toUserDto, UsersService } from '../users/users.service.js';
 import { AuthService, PASSWORD_RESET_ANSWER } from './auth.service.js';
@@ -30,7 +30,7 @@ export class AuthController {
   @Post('login')
   @HttpCode(200)
   @ApiOkResponse({ type: LoginResponseDto })
-  @ApiError(401, 'Unknown e-mail, wrong password, or a locked or deactivated account.')
+  @ApiRefusal(401, 'Unknown e-mail, wrong password, or a locked or deactivated account.')
   @ApiInvalid()
   login(@Body() dto: LoginDto, @Ip() address: string): Promise<LoginResponse> {
     return this.authService.login(dto, address);
@@ -40,7 +40,7 @@ export class AuthController {
   @Post('accept-invitation')
   @HttpCode(200)
   @ApiOkResponse({ type: LoginResponseDto, description: 'The password is set and the person signed in.' })
-  @ApiError(400, 'The invitation link is not valid or has expired.')
+  @ApiRefusal(400, 'The invitation link is not valid or has expired.')
   @ApiInvalid()
   acceptInvitation(@Body() dto: AcceptInvitationDto): Promise<LoginResponse> {
     return this.authService.acceptInvitation(dto);

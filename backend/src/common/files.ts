@@ -2,7 +2,7 @@ import { applyDecorators, StreamableFile, UseInterceptors } from '@nestjs/common
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBody, ApiConsumes, type SchemaObject } from '@nestjs/swagger';
 import type { Response } from 'express';
-import { ApiError } from './openapi/api-responses.js';
+import { ApiRefusal } from './openapi/api-responses.js';
 
 /** A file answered as a download that no browser or proxy keeps: signed documents, extracts and exports. */
 export function download(res: Response, body: Buffer, type: string, fileName: string): StreamableFile {
@@ -22,6 +22,6 @@ export function FileUpload(maxBytes: number, description: string, fields: Record
         properties: { file: { type: 'string', format: 'binary', description }, ...fields },
       },
     }),
-    ApiError(413, `The file is larger than ${maxBytes / 1024 / 1024} MB.`),
+    ApiRefusal(413, `The file is larger than ${maxBytes / 1024 / 1024} MB.`),
   );
 }

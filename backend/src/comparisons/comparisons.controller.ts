@@ -5,7 +5,7 @@ import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { download } from '../common/files.js';
-import { ApiError, ApiInvalid, ApiRecord, ApiSignature, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { ApiRefusal, ApiInvalid, ApiRecord, ApiSignature, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreateAssessmentDto } from './dto/assessment.dto.js';
 import { CompareVersionsQueryDto } from './dto/compare-query.dto.js';
 import { MethodTrendDto, VersionComparisonDto } from './dto/comparison.dto.js';
@@ -44,7 +44,7 @@ export class ComparisonsController {
       'The signed change assessment (PDF), stored against this version and verifiable on the verify page; its id in X-Assessment-Id.',
     schema: { type: 'string', format: 'binary' },
   })
-  @ApiError(403, 'Quality managers only.')
+  @ApiRefusal(403, 'Quality managers only.')
   @ApiSignature('method version')
   async assess(
     @Param('id', ParseUUIDPipe) id: string,

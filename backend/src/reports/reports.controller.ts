@@ -16,7 +16,7 @@ import type { Response } from 'express';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { download, FileUpload } from '../common/files.js';
-import { ApiConflict, ApiError, ApiFile, ApiRecord, ApiSignedIn, ApiThrottled } from '../common/openapi/api-responses.js';
+import { ApiConflict, ApiRefusal, ApiFile, ApiRecord, ApiSignedIn, ApiThrottled } from '../common/openapi/api-responses.js';
 import { ReportVerificationDto } from './dto/report-verification.dto.js';
 import { MAX_REPORT_BYTES, type ReportVerification } from '@meritline/shared';
 import { ReportsService } from './reports.service.js';
@@ -46,7 +46,7 @@ export class ReportsController {
   @Throttle({ default: { limit: 30, ttl: 60_000 } })
   @FileUpload(MAX_REPORT_BYTES, 'The PDF to check (at most 20 MB).')
   @ApiOkResponse({ type: ReportVerificationDto })
-  @ApiError(400, 'No file attached as the form field "file".')
+  @ApiRefusal(400, 'No file attached as the form field "file".')
   @ApiThrottled()
   verify(@UploadedFile() file: Express.Multer.File | undefined): Promise<ReportVerification> {
     if (!file) throw new BadRequestException('Attach the PDF to check as the form field "file".');

@@ -4,7 +4,7 @@ import { Role, type ImportMappingDto, type InstrumentImportResult, type RunContr
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { FileUpload } from '../common/files.js';
-import { ApiChange, ApiError, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { ApiChange, ApiRefusal, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import {
   ImportMappingResponseDto,
   InstrumentImportResponseDto,
@@ -68,7 +68,7 @@ export class MethodVersionRunsController {
   @FileUpload(MAX_IMPORT_BYTES, 'The instrument export, CSV or XLSX, at most 5 MB.')
   @ApiOkResponse({ type: InstrumentImportResponseDto, description: 'Nothing is stored.' })
   @ApiRecord('method version')
-  @ApiError(400, 'No file attached as the form field "file".')
+  @ApiRefusal(400, 'No file attached as the form field "file".')
   @ApiInvalid('A file that cannot be read, or values that do not fit the run: the row and column are named.')
   readExport(
     @Param('id', ParseUUIDPipe) id: string,

@@ -6,7 +6,7 @@ import { CurrentUser, type AuthUser } from '../common/decorators/current-user.de
 import { Roles } from '../common/decorators/roles.decorator.js';
 import { SigningStep } from '../common/decorators/signing-step.decorator.js';
 import { download } from '../common/files.js';
-import { ApiConflict, ApiError, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { ApiConflict, ApiRefusal, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import {
   MethodChoiceResponseDto,
   RunPageResponseDto,
@@ -53,7 +53,7 @@ export class RunsController {
   @Roles(Role.Analyst)
   @ApiCreatedResponse({ type: RunResponseDto, description: 'The run, calculated and saved.' })
   @ApiInvalid()
-  @ApiError(404, 'No such method version.')
+  @ApiRefusal(404, 'No such method version.')
   @ApiConflict('The method version may not be used for runs.')
   create(@Body() dto: CreateRunDto, @CurrentUser() actor: AuthUser): Promise<RunDto> {
     return this.runsService.create(dto, actor);
@@ -65,7 +65,7 @@ export class RunsController {
   @HttpCode(200)
   @ApiOkResponse({ type: RunPreviewResponseDto })
   @ApiInvalid()
-  @ApiError(404, 'No such method version.')
+  @ApiRefusal(404, 'No such method version.')
   @ApiConflict('The method version may not be used for runs.')
   preview(@Body() dto: CreateRunDto): Promise<RunPreviewDto> {
     return this.runsService.preview(dto);

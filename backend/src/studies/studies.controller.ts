@@ -28,7 +28,7 @@ import {
 import { IMPORT_SECTIONS, type ImportSection, Role } from '@meritline/shared';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
-import { ApiChange, ApiConflict, ApiError, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
+import { ApiChange, ApiConflict, ApiRefusal, ApiFile, ApiInvalid, ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { CreateStudyDto } from './dto/create-study.dto.js';
 import { ImportStudyDto } from './dto/import-study.dto.js';
 import { ListStudiesQueryDto } from './dto/list-studies.query.dto.js';
@@ -66,7 +66,7 @@ export class StudiesController {
     description: 'A draft, with the server’s result (or the reasons the data cannot be evaluated yet).',
   })
   @ApiInvalid()
-  @ApiError(404, 'No such method version.')
+  @ApiRefusal(404, 'No such method version.')
   create(@Body() dto: CreateStudyDto, @CurrentUser() actor: AuthUser): Promise<StudyDto> {
     return this.studiesService.create(dto, actor);
   }
@@ -111,7 +111,7 @@ export class StudiesController {
     schema: { oneOf: [{ $ref: getSchemaPath(ImportPreviewDto) }, { $ref: getSchemaPath(StudyDto) }] },
   })
   @ApiChange('study')
-  @ApiError(413, 'The file is larger than the import limit.')
+  @ApiRefusal(413, 'The file is larger than the import limit.')
   importFile(
     @Param('id', ParseUUIDPipe) id: string,
     @UploadedFile() file: Express.Multer.File | undefined,
@@ -123,7 +123,7 @@ export class StudiesController {
 
   @Get('import-templates/:section')
   @ApiFile('A CSV template for the section: the header and two rows of invented numbers.', 'text/csv')
-  @ApiError(404, 'No import template for this section.')
+  @ApiRefusal(404, 'No import template for this section.')
   template(@Param('section') section: string): StreamableFile {
     if (!IMPORT_SECTIONS.includes(section as ImportSection)) {
       throw new NotFoundException(`There is no import template for “${section}”; the sections are ${IMPORT_SECTIONS.join(', ')}.`);

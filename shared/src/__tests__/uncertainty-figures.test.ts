@@ -27,7 +27,7 @@ const study = {
 describe('uncertainty, accuracy-profile and trueness figures', () => {
   it('have words, units and a section in the catalogue, per level too', () => {
     expect(figureLabel('uncertainty.relative.UPct')).toBe('Expanded uncertainty U, relative (largest level)');
-    expect(figureLabel('uncertainty.byLevel.L5.uRw')).toBe('Within-laboratory reproducibility u(R_w) at level L5');
+    expect(figureLabel('uncertainty.byLevel.L5.uRw')).toBe('Within-laboratory reproducibility u(Rw) at level L5');
     expect(figureUnit('uncertainty.byLevel.L5.uBias', { x: 'mg/L' })).toBe('mg/L');
     expect(findFigure('accuracyProfile.levels.L1.upperPct')?.section).toBe('Accuracy profile');
     expect(describeCriterion({ figure: 'accuracyProfile.validFrom', op: '<=', value: 1 }, { x: 'mg/L' })).toBe(

@@ -11,7 +11,7 @@ import {
 import { ApiErrorDto } from '../dto/api-error.dto.js';
 
 /** A refusal with the one error body, as JSON even on routes that answer a file. */
-export function ApiError(status: number, description: string) {
+export function ApiRefusal(status: number, description: string) {
   return applyDecorators(
     ApiExtraModels(ApiErrorDto),
     ApiResponse({ status, description, content: { 'application/json': { schema: { $ref: getSchemaPath(ApiErrorDto) } } } }),
@@ -19,35 +19,35 @@ export function ApiError(status: number, description: string) {
 }
 
 /** Every route is throttled; the sign-in and upload routes more tightly. */
-export const ApiThrottled = () => ApiError(429, 'Too many requests; wait a minute and try again.');
+export const ApiThrottled = () => ApiRefusal(429, 'Too many requests; wait a minute and try again.');
 
 /** A route for a signed-in user (on a controller: every route of it). */
 export function ApiSignedIn(forbidden = 'The caller’s role may not do this.') {
   return applyDecorators(
     ApiBearerAuth(),
-    ApiError(401, 'Not signed in, or the session has ended.'),
-    ApiError(403, forbidden),
+    ApiRefusal(401, 'Not signed in, or the session has ended.'),
+    ApiRefusal(403, forbidden),
     ApiThrottled(),
   );
 }
 
 /** A route addressed by the id of a record. */
 export function ApiRecord(what = 'record') {
-  return applyDecorators(ApiError(400, 'The id is not a UUID.'), ApiError(404, `No such ${what}.`));
+  return applyDecorators(ApiRefusal(400, 'The id is not a UUID.'), ApiRefusal(404, `No such ${what}.`));
 }
 
 /** A route that validates its body or query: one entry per refused field, nothing saved. */
 export const ApiInvalid = (
   description = 'Invalid fields: { statusCode, message, errors: [{ field, code, message }] }; nothing is saved.',
-) => ApiError(422, description);
+) => ApiRefusal(422, description);
 
 export const ApiConflict = (description = 'Someone changed the record since it was loaded (stale lock version); nothing is saved.') =>
-  ApiError(409, description);
+  ApiRefusal(409, description);
 
 /** A change to an existing record under optimistic locking. */
 export const ApiChange = (what = 'record', conflict?: string) => applyDecorators(ApiRecord(what), ApiInvalid(), ApiConflict(conflict));
 
-export const ApiPasswordRefused = () => ApiError(401, 'Not signed in, or the password is not correct (nothing is signed).');
+export const ApiPasswordRefused = () => ApiRefusal(401, 'Not signed in, or the password is not correct (nothing is signed).');
 
 /** An electronic signature on a record: the signer re-enters the password and names the lock version seen. */
 export const ApiSignature = (what = 'record') =>
