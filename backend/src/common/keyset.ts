@@ -1,3 +1,7 @@
+import { applyDecorators } from '@nestjs/common';
+import { ApiPropertyOptional } from '@nestjs/swagger';
+import { Type } from 'class-transformer';
+import { IsInt, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
 import { LIST_COUNT_CAP } from '@meritline/shared';
 import type { ObjectLiteral, SelectQueryBuilder } from 'typeorm';
 import { unprocessable } from './validation.js';
@@ -13,6 +17,26 @@ export interface KeysetCursor {
 }
 
 export const MAX_CURSOR_LENGTH = 400;
+
+/** The `cursor` query parameter of a keyset-paged list. */
+export const CursorParam = (description: string) =>
+  applyDecorators(
+    ApiPropertyOptional({ description }),
+    IsOptional(),
+    IsString(),
+    MaxLength(MAX_CURSOR_LENGTH, { message: 'The page cursor is too long; start again from the first page.' }),
+  );
+
+/** The `pageSize` query parameter of a keyset-paged list: 1 to 100 rows. */
+export const PageSizeParam = (defaultSize: number) =>
+  applyDecorators(
+    ApiPropertyOptional({ default: defaultSize, minimum: 1, maximum: 100 }),
+    IsOptional(),
+    Type(() => Number),
+    IsInt(),
+    Min(1),
+    Max(100),
+  );
 
 export function encodeCursor(cursor: KeysetCursor): string {
   return Buffer.from(JSON.stringify([cursor.id, cursor.dir, cursor.sort, cursor.order])).toString('base64url');

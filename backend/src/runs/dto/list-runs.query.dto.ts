@@ -1,7 +1,6 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsString, IsUUID, Max, MaxLength, Min } from 'class-validator';
-import { MAX_CURSOR_LENGTH } from '../../common/keyset.js';
+import { IsIn, IsOptional, IsUUID } from 'class-validator';
+import { CursorParam, PageSizeParam } from '../../common/keyset.js';
 import type { RunStatus } from '@meritline/shared';
 
 export class ListRunsQueryDto {
@@ -20,17 +19,9 @@ export class ListRunsQueryDto {
   @IsIn(['accepted', 'rejected'], { message: 'Status is accepted or rejected.' })
   status?: RunStatus;
 
-  @ApiPropertyOptional({ description: 'nextCursor or prevCursor of the page before; the first page without it.' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(MAX_CURSOR_LENGTH, { message: 'The page cursor is too long; start again from the first page.' })
+  @CursorParam('nextCursor or prevCursor of the page before; the first page without it.')
   cursor?: string;
 
-  @ApiPropertyOptional({ default: 20 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt()
-  @Min(1)
-  @Max(100)
+  @PageSizeParam(20)
   pageSize: number = 20;
 }

@@ -1,8 +1,8 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Transform, Type } from 'class-transformer';
-import { IsBoolean, IsIn, IsInt, IsISO8601, IsOptional, IsString, IsUUID, Max, MaxLength, Min } from 'class-validator';
+import { Transform } from 'class-transformer';
+import { IsBoolean, IsIn, IsISO8601, IsOptional, IsUUID } from 'class-validator';
 import { STUDY_SORTS, STUDY_STATUSES, type StudySort, type StudyStatus } from '@meritline/shared';
-import { MAX_CURSOR_LENGTH } from '../../common/keyset.js';
+import { CursorParam, PageSizeParam } from '../../common/keyset.js';
 import { OptionalText } from '../../methods/dto/text.decorators.js';
 
 export class ListStudiesQueryDto {
@@ -56,17 +56,9 @@ export class ListStudiesQueryDto {
   @IsIn(['desc', 'asc'], { message: 'The order is asc or desc.' })
   order?: 'asc' | 'desc';
 
-  @ApiPropertyOptional({ description: 'nextCursor or prevCursor of the page before; the first page without it.' })
-  @IsOptional()
-  @IsString()
-  @MaxLength(MAX_CURSOR_LENGTH, { message: 'The page cursor is too long; start again from the first page.' })
+  @CursorParam('nextCursor or prevCursor of the page before; the first page without it.')
   cursor?: string;
 
-  @ApiPropertyOptional({ default: 20, minimum: 1, maximum: 100 })
-  @IsOptional()
-  @Type(() => Number)
-  @Max(100)
-  @Min(1)
-  @IsInt()
+  @PageSizeParam(20)
   pageSize?: number;
 }
