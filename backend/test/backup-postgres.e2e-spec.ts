@@ -1,28 +1,13 @@
-import { spawn } from 'node:child_process';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import pg from 'pg';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { signIn, startBuiltServer } from '../src/bench/built-server.js';
+import { cli } from './support/backup-cli.js';
 import type { TestApp } from './support/test-app.js';
 
 const serverUrl = process.env.TEST_POSTGRES_URL;
-const CLI = fileURLToPath(new URL('../dist/cli/backup.js', import.meta.url));
-
-function cli(args: string[], env: Record<string, string>): Promise<{ code: number | null; output: string }> {
-  return new Promise((resolve) => {
-    const child = spawn(process.execPath, [CLI, ...args], {
-      env: { PATH: process.env.PATH ?? '', ...env },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let output = '';
-    child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
-    child.stderr.on('data', (chunk: Buffer) => (output += chunk.toString()));
-    child.once('exit', (code) => resolve({ code, output }));
-  });
-}
 
 async function admin<T>(work: (client: pg.Client) => Promise<T>): Promise<T> {
   const client = new pg.Client({ connectionString: serverUrl });

@@ -1,18 +1,16 @@
-import { spawn } from 'node:child_process';
 import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { createHash } from 'node:crypto';
 import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditService } from '../src/audit/audit.service.js';
 import { signIn, startBuiltServer } from '../src/bench/built-server.js';
 import type { BackupManifest } from '../src/cli/backup.js';
 import { bearer, createStudy } from './support/review-fixtures.js';
+import { cli } from './support/backup-cli.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, postgresServerUrl, type TestApp } from './support/test-app.js';
 
-const CLI = fileURLToPath(new URL('../dist/cli/backup.js', import.meta.url));
 const Sqlite = createRequire(import.meta.url)('better-sqlite3') as new (
   path: string,
   options?: { readonly?: boolean },
@@ -28,20 +26,6 @@ function readOne<T>(path: string, sql: string, ...params: unknown[]): T {
   } finally {
     db.close();
   }
-}
-
-/** Runs the compiled backup command without blocking the event loop, so the in-process server keeps serving. */
-function cli(args: string[], env: Record<string, string>): Promise<{ code: number | null; output: string }> {
-  return new Promise((resolve) => {
-    const child = spawn(process.execPath, [CLI, ...args], {
-      env: { PATH: process.env.PATH ?? '', ...env },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let output = '';
-    child.stdout.on('data', (chunk: Buffer) => (output += chunk.toString()));
-    child.stderr.on('data', (chunk: Buffer) => (output += chunk.toString()));
-    child.once('exit', (code) => resolve({ code, output }));
-  });
 }
 
 interface AuditRow {
