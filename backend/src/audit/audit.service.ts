@@ -174,8 +174,9 @@ export class AuditService implements OnApplicationBootstrap, OnApplicationShutdo
   }
 
   /** Walks the whole chain by seq in bounded batches and reports every broken entry, not only the first. */
-  async verify(): Promise<AuditVerification> {
-    const repo = this.dataSource.getRepository(AuditEntry);
+  /** `manager`: read within that transaction (a backup verifies the very snapshot it archives). */
+  async verify(manager: EntityManager = this.dataSource.manager): Promise<AuditVerification> {
+    const repo = manager.getRepository(AuditEntry);
     const broken: AuditBreak[] = [];
     let prevHash = GENESIS_HASH;
     let expectedSeq = 1;

@@ -106,6 +106,23 @@ async function verifyDatabase(config: AppConfig, database: AppConfig['database']
   }
 }
 
+/** pg_dump reads the snapshot this transaction exports, so the chain verified here is the one in the archive. */
+async function dumpPostgres(config: AppConfig, url: string, file: string, checkpointDir: string): Promise<AuditVerification> {
+  const dataSource = new DataSource({ ...typeormOptions({ type: 'postgres', url }), migrationsRun: false });
+  await dataSource.initialize();
+  const runner = dataSource.createQueryRunner();
+  try {
+    await runner.startTransaction('REPEATABLE READ');
+    const [{ snapshot }] = (await runner.query('SELECT pg_export_snapshot() AS snapshot')) as { snapshot: string }[];
+    pgTool('pg_dump', ['--format=custom', '--no-owner', `--snapshot=${snapshot}`, `--file=${file}`, `--dbname=${url}`]);
+    return await new AuditService(dataSource, { ...config, dataDir: checkpointDir }).verify(runner.manager);
+  } finally {
+    if (runner.isTransactionActive) await runner.rollbackTransaction();
+    await runner.release();
+    await dataSource.destroy();
+  }
+}
+
 function assertChain(verification: AuditVerification) {
   if (verification.ok) return;
   const hint = verification.broken.some((b) => b.seq === 0) ? ' Is AUDIT_HMAC_KEY the key of the installation that made the backup?' : '';
@@ -128,7 +145,7 @@ async function backup(config: AppConfig, to: string) {
   // Read before the database snapshot: every checkpoint then names entries that the snapshot holds.
   const checkpoints = committedCheckpoints(config);
   writeFileSync(join(to, CHECKPOINTS), checkpoints, { mode: 0o600 });
-  let auditEntries: number | null = null;
+  let auditEntries: number;
   let dataFile: string;
   if (config.database.type === 'sqlite') {
     dataFile = SQLITE_FILE;
@@ -144,7 +161,9 @@ async function backup(config: AppConfig, to: string) {
     auditEntries = verification.rows;
   } else {
     dataFile = POSTGRES_FILE;
-    pgTool('pg_dump', ['--format=custom', '--no-owner', `--file=${join(to, dataFile)}`, `--dbname=${config.database.url}`]);
+    const verification = await dumpPostgres(config, config.database.url, join(to, dataFile), to);
+    assertChain(verification);
+    auditEntries = verification.rows;
     pgTool('pg_restore', ['--list', join(to, dataFile)]);
   }
   const manifest: BackupManifest = {
@@ -158,7 +177,7 @@ async function backup(config: AppConfig, to: string) {
   };
   writeFileSync(join(to, MANIFEST), `${JSON.stringify(manifest, null, 2)}\n`);
   say(`Backup written to ${to}`);
-  say(auditEntries === null ? '  database archive (pg_dump) listed without error' : `  audit trail verified: ${auditEntries} entries`);
+  say(`  audit trail verified: ${auditEntries} entries`);
   say(`  ${manifest.checkpoints} signed checkpoint(s) included`);
   say('Keep apart from the backup, in your secret store:');
   for (const item of KEEP_APART) say(`  - ${item}`);
