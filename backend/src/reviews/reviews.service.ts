@@ -199,7 +199,6 @@ export class ReviewsService {
     return toStudyDto(await this.findStudy(id));
   }
 
-  /** Submitted studies the caller may act on, oldest first. */
   /**
    * Up to `limit` submitted studies the user may act on, oldest first, after the study `after`. Read by keyset in
    * batches without data or result; the author and editors are left out row by row.
