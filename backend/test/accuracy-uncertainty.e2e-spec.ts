@@ -87,18 +87,21 @@ describe('accuracy profile, trueness and measurement uncertainty through the API
   });
 
   it('should give a study without options of its own the method version’s β, λ and k, and let the study’s own win', async () => {
+    const TARTRAZINE_IN_SYRUP = {
+      analyte: 'Tartrazine',
+      matrix: 'Syrup',
+      technique: 'UV-Vis',
+      xUnit: 'mg/L',
+      yUnit: 'AU',
+      purpose: 'environmental',
+    };
     const method = await t
       .http()
       .post('/api/methods')
       .set(headers)
       .send({
         name: 'Tartrazine in syrups by UV-Vis',
-        analyte: 'Tartrazine',
-        matrix: 'Syrup',
-        technique: 'UV-Vis',
-        xUnit: 'mg/L',
-        yUnit: 'AU',
-        purpose: 'environmental',
+        ...TARTRAZINE_IN_SYRUP,
         criteria: [{ figure: 'accuracyProfile.validFrom', op: '<=', value: 50 }],
         settings: { accuracyBeta: 0.95, accuracyLambdaPct: 5, coverageFactor: 3 },
       });
@@ -124,12 +127,7 @@ describe('accuracy profile, trueness and measurement uncertainty through the API
       .set(headers)
       .send({
         name: 'Tartrazine, bad settings',
-        analyte: 'Tartrazine',
-        matrix: 'Syrup',
-        technique: 'UV-Vis',
-        xUnit: 'mg/L',
-        yUnit: 'AU',
-        purpose: 'environmental',
+        ...TARTRAZINE_IN_SYRUP,
         settings: { accuracyBeta: 1.5, accuracyLambdaPct: 0, coverageFactor: 9 },
       })
       .expect(422);

@@ -14,7 +14,7 @@ import { Run } from '../src/runs/run.entity.js';
 import { RunImportMapping } from '../src/runs/run-import-mapping.entity.js';
 import { ValidationStudy } from '../src/studies/validation-study.entity.js';
 import { User } from '../src/users/user.entity.js';
-import { calibrationData } from './support/review-fixtures.js';
+import { calibrationData, NITRATE_METHOD, TWO_DILUTIONS } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
 /*
@@ -439,16 +439,7 @@ describe('bad-input sweep over every write route', () => {
   const preparation = () => ({
     source: { materialId: ids.material[0] },
     stock: { mass: 100.1, uMass: 0.05, massUnit: 'mg', volume: 100, volumeTolerance: 0.1, volumeDistribution: 'triangular' },
-    steps: [
-      {
-        aliquot: 1,
-        aliquotTolerance: 0.008,
-        aliquotDistribution: 'triangular',
-        volume: 100,
-        volumeTolerance: 0.1,
-        volumeDistribution: 'triangular',
-      },
-    ],
+    steps: [TWO_DILUTIONS[0]],
   });
   const criteria = [{ figure: 'calibration.r2', op: '>=', value: 0.995 }];
   const token = () => Buffer.from(Array.from({ length: 32 }, (_, i) => i)).toString('base64url');
@@ -609,12 +600,7 @@ describe('bad-input sweep over every write route', () => {
       who: [Role.QualityManager, Role.Admin, Role.Analyst],
       body: () => ({
         name: 'Sweep method',
-        analyte: 'Nitrate',
-        matrix: 'Drinking water',
-        technique: 'UV-Vis',
-        xUnit: 'mg/L',
-        yUnit: 'AU',
-        purpose: 'assay',
+        ...NITRATE_METHOD,
         changeSummary: 'First version',
         criteria,
         settings: { requiresQualityRelease: false, checkTolerancePct: 10, onePointMaxInterceptPct: 2, coverageFactor: 2 },

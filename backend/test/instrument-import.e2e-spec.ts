@@ -1,19 +1,10 @@
+import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { bearer, postRun, sqlQuery } from './support/flows.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 /* An invented instrument export on the demo nitrate line (about 0.0031 + 0.1523 µS·min per mg/L), in a layout of its own. */
-const EXPORT = [
-  'Inj;Sample Name;Type;Amount;Dil.;Area;Operator',
-  '1;Cal 1;Std;1;;0,1552;AR',
-  '2;Cal 50;Std;50;;7,619;AR',
-  '3;CCV 10;CCV;10;;1,527;AR',
-  '4;MB-1;Blank;;;0,0035;AR',
-  '5;QC 20;QC;20;;3,052;AR',
-  '6;W-3001 tap water;Sample;;;1,893;AR',
-  '7;W-3001 tap water;Sample;;;1,897;AR',
-  '8;W-3002 well;Sample;;2;4,709;AR',
-].join('\n');
+const EXPORT = readFileSync(new URL('./fixtures/instrument-export-semicolon.csv', import.meta.url), 'utf8');
 const MAPPING = {
   sampleId: 'Sample Name',
   sampleType: 'Type',

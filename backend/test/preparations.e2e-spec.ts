@@ -4,7 +4,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { binary } from './support/flows.js';
-import { bearer, calibrationData, queryDatabase } from './support/review-fixtures.js';
+import { bearer, calibrationData, queryDatabase, TWO_DILUTIONS } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
@@ -28,25 +28,6 @@ const quamStock = {
   temperatureRange: q.V.temperature.delta_T_degC,
   expansionCoefficient: q.V.temperature.volume_expansion_coefficient_water_per_degC,
 };
-/** Two invented serial dilutions: 1 mL to 100 mL, then 5 mL to 50 mL. */
-const twoSteps = [
-  {
-    aliquot: 1,
-    aliquotTolerance: 0.008,
-    aliquotDistribution: 'triangular',
-    volume: 100,
-    volumeTolerance: 0.1,
-    volumeDistribution: 'triangular',
-  },
-  {
-    aliquot: 5,
-    aliquotTolerance: 0.015,
-    aliquotDistribution: 'rectangular',
-    volume: 50,
-    volumeTolerance: 0.06,
-    volumeDistribution: 'triangular',
-  },
-];
 
 describe('standard preparations', () => {
   let t: TestApp;
@@ -65,7 +46,7 @@ describe('standard preparations', () => {
   const fromMaterial = (materialId: string, extra: Record<string, unknown> = {}) => ({
     source: { materialId },
     stock: { mass: 100.1, uMass: 0.05, massUnit: 'mg', volume: 100, volumeTolerance: 0.1, volumeDistribution: 'triangular' },
-    steps: twoSteps,
+    steps: TWO_DILUTIONS,
     ...extra,
   });
   const registerMaterial = async (extra: Record<string, unknown>) =>
@@ -130,7 +111,7 @@ describe('standard preparations', () => {
     });
 
     it('should carry the stock through two dilutions, u combined in quadrature (GUM 5.1.6; a/√3 and a/√6, common practice)', async () => {
-      const res = await preview({ source: { purity: q.P.value, uPurity: q.P.u }, stock: quamStock, steps: twoSteps }).expect(200);
+      const res = await preview({ source: { purity: q.P.value, uPurity: q.P.u }, stock: quamStock, steps: TWO_DILUTIONS }).expect(200);
       const { stock, steps } = res.body;
       expect(steps).toHaveLength(2);
       const c1 = (stock.concentration * 1) / 100;
@@ -162,10 +143,10 @@ describe('standard preparations', () => {
       ['stock.volumeTolerance', { stock: { ...quamStock, volumeTolerance: -0.1 } }, 'negative'],
       ['stock.massUnit', { stock: { ...quamStock, massUnit: 'kg' } }, 'isIn'],
       ['stock.volume', { stock: { ...quamStock, volume: 1e300 } }, 'max'],
-      ['steps[1].volume', { steps: [twoSteps[0], { ...twoSteps[1], volume: -50 }] }, 'not_positive'],
-      ['steps[0].aliquotTolerance', { steps: [{ ...twoSteps[0], aliquotTolerance: -0.01 }] }, 'negative'],
-      ['steps[0].aliquot', { steps: [{ ...twoSteps[0], aliquot: 200 }] }, 'out_of_range'],
-      ['steps', { steps: Array(13).fill(twoSteps[0]) }, 'arrayMaxSize'],
+      ['steps[1].volume', { steps: [TWO_DILUTIONS[0], { ...TWO_DILUTIONS[1], volume: -50 }] }, 'not_positive'],
+      ['steps[0].aliquotTolerance', { steps: [{ ...TWO_DILUTIONS[0], aliquotTolerance: -0.01 }] }, 'negative'],
+      ['steps[0].aliquot', { steps: [{ ...TWO_DILUTIONS[0], aliquot: 200 }] }, 'out_of_range'],
+      ['steps', { steps: Array(13).fill(TWO_DILUTIONS[0]) }, 'arrayMaxSize'],
       ['source', { source: {} }, 'required'],
       ['source', { source: { materialId: UNKNOWN_ID, purity: 0.9 } }, 'ambiguous'],
       ['source.materialId', { source: { materialId: UNKNOWN_ID } }, 'not_found'],

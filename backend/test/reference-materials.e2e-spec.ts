@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ReferenceMaterialsService } from '../src/reference-materials/reference-materials.service.js';
-import { binary } from './support/flows.js';
+import { binary, tokensFor } from './support/flows.js';
 import { bearer, queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
 
@@ -44,12 +44,7 @@ describe('reference materials register', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    [analyst, reviewer, quality, admin] = await Promise.all([
-      t.tokenFor(DEMO.analyst),
-      t.tokenFor(DEMO.reviewer),
-      t.tokenFor(DEMO.quality),
-      t.tokenFor(DEMO.admin),
-    ]);
+    [analyst, reviewer, quality, admin] = await tokensFor(t, DEMO.analyst, DEMO.reviewer, DEMO.quality, DEMO.admin);
   });
   afterAll(() => t.close());
 

@@ -65,19 +65,9 @@ describe('review and sign-off', () => {
     it('should answer missing or malformed fields with 422 and one message per field', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = await databaseState(t, study.id);
-      const res = await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ comment: 'x'.repeat(2001), lockVersion: 0 })
-        .expect(422);
+      const res = await act(study.id, 'submit', 'analyst', { comment: 'x'.repeat(2001), lockVersion: 0 }).expect(422);
       expect(res.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['comment', 'lockVersion', 'password']);
-      await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ password: DEMO_PASSWORD, approve: true })
-        .expect(422);
+      await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD, approve: true }).expect(422);
       expect(await databaseState(t, study.id)).toEqual(before);
     });
 
@@ -92,12 +82,7 @@ describe('review and sign-off', () => {
     it('should refuse a wrong password with 401, sign nothing and record the failed signature', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = await databaseState(t, study.id);
-      const res = await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ password: 'not-my-password' })
-        .expect(401);
+      const res = await act(study.id, 'submit', 'analyst', { password: 'not-my-password' }).expect(401);
       expect(res.body.message).toBe('Password not correct; nothing was signed.');
       expect(await databaseState(t, study.id)).toEqual(before);
       const audit = await t.http().get(`/api/audit?record=study:${study.id}`).set(as('quality')).expect(200);
@@ -108,12 +93,7 @@ describe('review and sign-off', () => {
     it('should refuse a stale lock version with 409', async () => {
       const study = await createStudy(t, { author: DEMO.analyst });
       const before = await databaseState(t, study.id);
-      const res = await t
-        .http()
-        .post(`/api/studies/${study.id}/submit`)
-        .set(as('analyst'))
-        .send({ password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 })
-        .expect(409);
+      const res = await act(study.id, 'submit', 'analyst', { password: DEMO_PASSWORD, lockVersion: study.lockVersion + 1 }).expect(409);
       expect(res.body.message).toMatch(/changed since you opened it/);
       expect(await databaseState(t, study.id)).toEqual(before);
     });
@@ -153,12 +133,7 @@ describe('review and sign-off', () => {
 
     it('should refuse to approve or return a draft with 409', async () => {
       const before = await databaseState(t, study.id);
-      const approve = await t
-        .http()
-        .post(`/api/studies/${study.id}/approve`)
-        .set(as('reviewer'))
-        .send({ password: DEMO_PASSWORD })
-        .expect(409);
+      const approve = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(409);
       expect(approve.body.message).toMatch(/a draft; only a submitted study can be approved/);
       await t.http().post(`/api/studies/${study.id}/return`).set(as('reviewer')).send({ comment: 'Not yet.' }).expect(409);
       expect(await databaseState(t, study.id)).toEqual(before);
@@ -360,12 +335,7 @@ describe('review and sign-off', () => {
       });
 
       const before = await databaseState(t, study.id);
-      const again = await t
-        .http()
-        .post(`/api/studies/${study.id}/approve`)
-        .set(as('reviewer'))
-        .send({ password: DEMO_PASSWORD })
-        .expect(403);
+      const again = await act(study.id, 'approve', 'reviewer', { password: DEMO_PASSWORD }).expect(403);
       expect(again.body.message).toMatch(/awaits release by a quality manager/);
       expect(await databaseState(t, study.id)).toEqual(before);
 
@@ -535,12 +505,7 @@ describe('review and sign-off', () => {
 
     it('should refuse bad comments with 422 field messages and change nothing', async () => {
       const before = await databaseState(t, study.id);
-      const bad = await t
-        .http()
-        .post(`/api/studies/${study.id}/comments`)
-        .set(as('reviewer'))
-        .send({ section: 'appendix', body: ' ' })
-        .expect(422);
+      const bad = await act(study.id, 'comments', 'reviewer', { section: 'appendix', body: ' ' }).expect(422);
       expect(bad.body.errors.map((e: { field: string }) => e.field).sort()).toEqual(['body', 'section']);
       const thread = await act(study.id, 'comments', 'reviewer', { section: 'blanks', body: 'Reply', threadId: UNKNOWN_ID }).expect(422);
       expect(thread.body.errors[0]).toMatchObject({ field: 'threadId', code: 'unknown_thread' });

@@ -1,6 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { StudyInput } from '@meritline/shared';
-import { addValidatedVersion, bearer, outboxMessages, postRun, releaseRun, runAction, sqlQuery, submitRun } from './support/flows.js';
+import {
+  addValidatedVersion,
+  bearer,
+  outboxMessages,
+  postRun,
+  releaseRun,
+  runAction,
+  sqlQuery,
+  submitRun,
+  tokensFor,
+} from './support/flows.js';
 import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
@@ -49,12 +59,7 @@ describe('second-person release of routine runs', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    [analyst, analyst2, reviewer, quality] = await Promise.all([
-      t.tokenFor(DEMO.analyst),
-      t.tokenFor(DEMO.analyst2),
-      t.tokenFor(DEMO.reviewer),
-      t.tokenFor(DEMO.quality),
-    ]);
+    [analyst, analyst2, reviewer, quality] = await tokensFor(t, DEMO.analyst, DEMO.analyst2, DEMO.reviewer, DEMO.quality);
     const study: StudyInput = { model: 'linear', units: { x: 'pg/ml', y: 'intensity' }, standards: pairs };
     const version = await addValidatedVersion(t, {
       name: 'Fluorescein',

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ENGINE_VERSION, type StudyInput } from '@meritline/shared';
 import { runCsv } from '../src/runs/run-export.js';
 import { RunsService } from '../src/runs/runs.service.js';
-import { addValidatedVersion, bearer, binary, sqlQuery, type ValidatedVersion } from './support/flows.js';
+import { addValidatedVersion, bearer, binary, sqlQuery, tokensFor, type ValidatedVersion } from './support/flows.js';
 import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, DEMO_PASSWORD, type TestApp } from './support/test-app.js';
 
@@ -104,12 +104,7 @@ describe('routine runs', () => {
 
   beforeAll(async () => {
     t = await createTestApp();
-    [analyst, reviewer, quality, admin] = await Promise.all([
-      t.tokenFor(DEMO.analyst),
-      t.tokenFor(DEMO.reviewer),
-      t.tokenFor(DEMO.quality),
-      t.tokenFor(DEMO.admin),
-    ]);
+    [analyst, reviewer, quality, admin] = await tokensFor(t, DEMO.analyst, DEMO.reviewer, DEMO.quality, DEMO.admin);
 
     const fluorescence: StudyInput = {
       model: 'linear',

@@ -6,6 +6,7 @@ import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { canonicalJson, ENGINE_VERSION } from '@meritline/shared';
+import { DEMO_STUDIES } from '../src/database/seeds/demo-studies.seed.js';
 import { listMethods, signedIn } from './support/flows.js';
 import { queryDatabase } from './support/review-fixtures.js';
 import { createTestApp, DEMO, type TestApp } from './support/test-app.js';
@@ -24,18 +25,6 @@ const spike = reference('recovery_examples.json').spike_recovery;
 
 const CLI = fileURLToPath(new URL('../../shared/dist/cli.js', import.meta.url));
 const UNKNOWN_ID = '00000000-0000-4000-8000-000000000000';
-const TITLES = {
-  nitrateInitial: 'Nitrate by IC: initial validation',
-  nitrateApproved: 'Nitrate by IC after the column change',
-  dye: 'Tartrazine in soft drinks: method validation',
-  pesticideReturned: 'Chlorpyrifos in apples: validation at 1–100 µg/kg',
-  nitrateDraft: 'Nitrate by IC: bottled mineral water',
-  pesticideDraft: 'Chlorpyrifos in pears: matrix extension',
-  caffeineInitial: 'Caffeine by HPLC-UV: initial validation',
-  caffeineSonication: 'Caffeine by HPLC-UV: degassing by sonication',
-  caffeineDetector: 'Caffeine by HPLC-UV: diode-array detector',
-  dyeAccuracy: 'Tartrazine in soft drinks: accuracy profile and uncertainty',
-};
 
 function completeData() {
   return {
@@ -94,7 +83,7 @@ describe('validation studies', () => {
         .set(await signedIn(t, DEMO.reviewer))
         .expect(200);
       expect(res.body).toMatchObject({ total: 10, totalIsCapped: false, pageSize: 20, nextCursor: null, prevCursor: null });
-      expect(res.body.items.map((s: Row) => s.title).sort()).toEqual(Object.values(TITLES).sort());
+      expect(res.body.items.map((s: Row) => s.title).sort()).toEqual(Object.values(DEMO_STUDIES).sort());
       for (const item of res.body.items) {
         expect(item).not.toHaveProperty('data');
         expect(item).not.toHaveProperty('result');
@@ -105,14 +94,14 @@ describe('validation studies', () => {
         });
       }
       const byTitle = (title: string) => res.body.items.find((s: Row) => s.title === title);
-      expect(byTitle(TITLES.dye)).toMatchObject({ status: 'submitted', verdictPass: true, author: { name: 'Alma Ruiz' } });
-      expect(byTitle(TITLES.nitrateApproved)).toMatchObject({
+      expect(byTitle(DEMO_STUDIES.dyeSubmitted)).toMatchObject({ status: 'submitted', verdictPass: true, author: { name: 'Alma Ruiz' } });
+      expect(byTitle(DEMO_STUDIES.nitrateApproved)).toMatchObject({
         status: 'approved',
         verdictPass: true,
         methodVersion: { number: 2, status: 'active' },
       });
-      expect(byTitle(TITLES.pesticideReturned)).toMatchObject({ status: 'returned', author: { name: 'Tomasz Weber' } });
-      expect(byTitle(TITLES.pesticideDraft)).toMatchObject({ status: 'draft', verdictPass: false });
+      expect(byTitle(DEMO_STUDIES.pesticideReturned)).toMatchObject({ status: 'returned', author: { name: 'Tomasz Weber' } });
+      expect(byTitle(DEMO_STUDIES.pesticideDraft)).toMatchObject({ status: 'draft', verdictPass: false });
     });
 
     it('should page and sort on the server', async () => {
@@ -120,7 +109,7 @@ describe('validation studies', () => {
       const titles = (await t.http().get('/api/studies?sort=title&order=asc&pageSize=100').set(headers).expect(200)).body.items.map(
         (s: Row) => s.title,
       );
-      expect(titles).toEqual([...Object.values(TITLES)].sort((a, b) => (a < b ? -1 : 1)));
+      expect(titles).toEqual([...Object.values(DEMO_STUDIES)].sort((a, b) => (a < b ? -1 : 1)));
       const first = await t.http().get('/api/studies?sort=title&order=asc&pageSize=2').set(headers).expect(200);
       expect(first.body).toMatchObject({ total: 10, pageSize: 2, prevCursor: null });
       const second = await t
@@ -196,7 +185,7 @@ describe('validation studies', () => {
       const nitrate = (await t.http().get(`/api/method-versions/${versions['nitrate v2']}`).set(analyst)).body.method.id;
       expect(await count(`methodId=${nitrate}`)).toBe(3);
       expect(await count('mine=true')).toBe(6);
-      const tomasz = (seeded[TITLES.pesticideReturned].author as Row).id;
+      const tomasz = (seeded[DEMO_STUDIES.pesticideReturned].author as Row).id;
       expect(await count(`authorId=${tomasz}`)).toBe(4);
       expect(await count('q=NITRATE')).toBe(3);
       expect(await count('q=%25')).toBe(0);
@@ -396,7 +385,7 @@ describe('validation studies', () => {
           data: { ...completeData(), weighting: '1/x', standards: completeData().standards.slice(1) },
         })
       ).body;
-      for (const id of [created.id, seeded[TITLES.pesticideReturned].id, seeded[TITLES.nitrateApproved].id]) {
+      for (const id of [created.id, seeded[DEMO_STUDIES.pesticideReturned].id, seeded[DEMO_STUDIES.nitrateApproved].id]) {
         const study = (
           await t
             .http()
@@ -418,7 +407,7 @@ describe('validation studies', () => {
 
   describe('GET /api/studies/:id', () => {
     it('should answer 401 anonymously, 404 for an unknown id and 400 for a malformed one', async () => {
-      const id = seeded[TITLES.dye].id;
+      const id = seeded[DEMO_STUDIES.dyeSubmitted].id;
       await t.http().get(`/api/studies/${id}`).expect(401);
       await t
         .http()
@@ -481,23 +470,25 @@ describe('validation studies', () => {
       const alma = await signedIn(t, DEMO.analyst);
       const submitted = await t
         .http()
-        .patch(`/api/studies/${seeded[TITLES.dye].id}`)
+        .patch(`/api/studies/${seeded[DEMO_STUDIES.dyeSubmitted].id}`)
         .set(alma)
-        .send({ lockVersion: seeded[TITLES.dye].lockVersion, title: 'x' })
+        .send({ lockVersion: seeded[DEMO_STUDIES.dyeSubmitted].lockVersion, title: 'x' })
         .expect(409);
       expect(submitted.body.message).toMatch(/locked/);
       await t
         .http()
-        .patch(`/api/studies/${seeded[TITLES.nitrateApproved].id}`)
+        .patch(`/api/studies/${seeded[DEMO_STUDIES.nitrateApproved].id}`)
         .set(alma)
-        .send({ lockVersion: seeded[TITLES.nitrateApproved].lockVersion, title: 'x' })
+        .send({ lockVersion: seeded[DEMO_STUDIES.nitrateApproved].lockVersion, title: 'x' })
         .expect(409);
       await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ lockVersion: 1, title: 'Stale' }).expect(409);
       const missing = await t.http().patch(`/api/studies/${studyId}`).set(alma).send({ title: 'No lock' }).expect(422);
       expect(missing.body.errors[0].field).toBe('lockVersion');
       await t.http().patch(`/api/studies/${UNKNOWN_ID}`).set(alma).send({ lockVersion: 1, title: 'x' }).expect(404);
       expect((await stored(studyId)).title).toBe('Editable study, renamed');
-      expect((await rows('SELECT title FROM validation_studies WHERE id = ?', seeded[TITLES.dye].id))[0].title).toBe(TITLES.dye);
+      expect((await rows('SELECT title FROM validation_studies WHERE id = ?', seeded[DEMO_STUDIES.dyeSubmitted].id))[0].title).toBe(
+        DEMO_STUDIES.dyeSubmitted,
+      );
     });
 
     it('should let exactly one of two simultaneous data edits win and store the winner’s data and result', async () => {
@@ -580,7 +571,7 @@ describe('validation studies', () => {
 
     it('should ask for a reason before changing the data of a returned study, and add the editor', async () => {
       const tomasz = await signedIn(t, DEMO.analyst2);
-      const study = (await t.http().get(`/api/studies/${seeded[TITLES.pesticideReturned].id}`).set(tomasz)).body;
+      const study = (await t.http().get(`/api/studies/${seeded[DEMO_STUDIES.pesticideReturned].id}`).set(tomasz)).body;
       const before = await stored(study.id);
       const data = structuredClone(study.data);
       data.standards[0].excluded = { reason: 'Re-injected: the first injection of the lowest standard was contaminated.' };
@@ -643,12 +634,12 @@ describe('validation studies', () => {
         .expect(403);
       await t
         .http()
-        .delete(`/api/studies/${seeded[TITLES.dye].id}`)
+        .delete(`/api/studies/${seeded[DEMO_STUDIES.dyeSubmitted].id}`)
         .set(await signedIn(t, DEMO.analyst))
         .expect(409);
       const returned = await t
         .http()
-        .delete(`/api/studies/${seeded[TITLES.pesticideReturned].id}`)
+        .delete(`/api/studies/${seeded[DEMO_STUDIES.pesticideReturned].id}`)
         .set(await signedIn(t, DEMO.analyst2))
         .expect(409);
       expect(returned.body.message).toMatch(/Only a draft/);

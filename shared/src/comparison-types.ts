@@ -9,7 +9,18 @@ export interface Unavailable {
   reason: string;
 }
 
-export interface LineParameterComparison {
+/** A two-sided t test of a difference, with the interval of the difference at 1 − α. */
+export interface TTestOutcome {
+  se: number;
+  t: number;
+  df: number;
+  p: number;
+  ci: Interval;
+  alpha: number;
+  verdict: ComparisonVerdict;
+}
+
+export interface LineParameterComparison extends TTestOutcome {
   available: true;
   parameter: 'slope' | 'intercept';
   from: number;
@@ -19,13 +30,6 @@ export interface LineParameterComparison {
   /** Slope only: 100 (to − from) / |from|, the change in sensitivity. */
   changePct: number | null;
   pooledSd: number;
-  se: number;
-  t: number;
-  df: number;
-  p: number;
-  ci: Interval;
-  alpha: number;
-  verdict: ComparisonVerdict;
 }
 
 export interface VarianceComparison {
@@ -46,18 +50,11 @@ export interface VarianceComparison {
   verdict: ComparisonVerdict;
 }
 
-export interface MeanComparison {
+export interface MeanComparison extends TTestOutcome {
   available: true;
   from: number;
   to: number;
   difference: number;
-  se: number;
-  t: number;
-  df: number;
-  p: number;
-  ci: Interval;
-  alpha: number;
-  verdict: ComparisonVerdict;
 }
 
 export interface EquivalenceTest {
@@ -120,6 +117,7 @@ export interface FigureComparison {
 
 export interface VersionComparison {
   alpha: number;
+  /** Equivalence margin of the mean recoveries, percentage points. */
   recoveryMarginPct: number;
   slope: LineParameterComparison | Unavailable;
   intercept: LineParameterComparison | Unavailable;

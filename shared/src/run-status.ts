@@ -1,4 +1,4 @@
-import type { QueueItemDto } from './api/reviews.js';
+import type { QueueEntryBase, QueueItemDto } from './api/reviews.js';
 import type { Role } from './roles.js';
 
 /** A run's check-standard verdict. */
@@ -57,21 +57,11 @@ export interface RunReviewDto {
   signatures: RunSignatureDto[];
 }
 
-export interface RunQueueItemDto {
+export interface RunQueueItemDto extends QueueEntryBase {
   kind: 'run';
-  id: string;
-  title: string;
   status: RunReviewStatus;
   /** The check-standard verdict. */
   verdict: 'accepted' | 'rejected';
-  methodId: string;
-  methodName: string;
-  methodVersionId: string;
-  methodVersionNumber: number;
-  authorId: string;
-  authorName: string;
-  submittedAt: string | null;
-  lockVersion: number;
 }
 
 export type ReviewQueueKind = 'study' | 'run';

@@ -1,34 +1,38 @@
 export type ToleranceDistribution = 'rectangular' | 'triangular';
 export type MassUnit = 'µg' | 'mg' | 'g';
 
+export interface PreparationStock {
+  mass: number;
+  /** Standard uncertainty of the weighing, in the mass unit. */
+  uMass: number;
+  massUnit: MassUnit;
+  /** mL */
+  volume: number;
+  /** Half-width of the flask tolerance, mL. */
+  volumeTolerance: number;
+  volumeDistribution: ToleranceDistribution;
+  /** Standard deviation of filling, mL. */
+  volumeRepeatability?: number;
+  /** ± temperature range, °C. */
+  temperatureRange?: number;
+  /** Volume expansion coefficient per °C; default 2.1e-4 (water). */
+  expansionCoefficient?: number;
+}
+
+export interface PreparationStep {
+  aliquot: number;
+  aliquotTolerance: number;
+  aliquotDistribution: ToleranceDistribution;
+  volume: number;
+  volumeTolerance: number;
+  volumeDistribution: ToleranceDistribution;
+}
+
 export interface PreparationInput {
   /** uPurity is a standard uncertainty (mass fraction). */
   source: { purity: number; uPurity: number };
-  stock: {
-    mass: number;
-    /** Standard uncertainty of the weighing, in the mass unit. */
-    uMass: number;
-    massUnit: MassUnit;
-    /** mL */
-    volume: number;
-    /** Half-width of the flask tolerance, mL. */
-    volumeTolerance: number;
-    volumeDistribution: ToleranceDistribution;
-    /** Standard deviation of filling, mL. */
-    volumeRepeatability?: number;
-    /** ± temperature range, °C. */
-    temperatureRange?: number;
-    /** Volume expansion coefficient per °C; default 2.1e-4 (water). */
-    expansionCoefficient?: number;
-  };
-  steps?: {
-    aliquot: number;
-    aliquotTolerance: number;
-    aliquotDistribution: ToleranceDistribution;
-    volume: number;
-    volumeTolerance: number;
-    volumeDistribution: ToleranceDistribution;
-  }[];
+  stock: PreparationStock;
+  steps?: PreparationStep[];
 }
 
 export interface BudgetEntry {

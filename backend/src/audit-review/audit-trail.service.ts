@@ -374,14 +374,7 @@ export class AuditTrailService {
     }
     const matching = await (await this.filtered(query, actor)).getCount();
     if (!(await this.auth.verifyPassword(actor.id, dto.password))) {
-      await this.audit.record({
-        actor,
-        action: 'signature.failed',
-        entity: 'audit-review',
-        entityId: null,
-        changes: { meaning: { from: null, to: 'audit trail reviewed' } },
-        reason: 'Password not correct.',
-      });
+      await this.audit.signatureRefused(actor, { entity: 'audit-review', entityId: null, meaning: 'audit trail reviewed' });
       throw new UnauthorizedException(WRONG_REVIEW_PASSWORD);
     }
     const verification = await this.audit.verify();

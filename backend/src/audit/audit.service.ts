@@ -142,6 +142,19 @@ export class AuditService implements OnApplicationBootstrap, OnApplicationShutdo
     return manager ? this.append(record, manager) : writeTransaction(this.dataSource, (m) => this.append(record, m));
   }
 
+  /** An e-signature refused for a wrong password, kept in a transaction of its own: what it would have signed does not happen. */
+  signatureRefused(actor: AuditRecord['actor'], signed: { entity: string; entityId: string | null; meaning: string }): Promise<AuditEntry> {
+    const { entity, entityId, meaning } = signed;
+    return this.record({
+      actor,
+      action: 'signature.failed',
+      entity,
+      entityId,
+      changes: { meaning: { from: null, to: meaning } },
+      reason: 'Password not correct.',
+    });
+  }
+
   private async append(record: AuditRecord, manager: EntityManager): Promise<AuditEntry> {
     // SQLite writes take turns in this process (writeTransaction). PostgreSQL may have several server processes
     // writing at once: the chain head is locked until this transaction ends, so the next entry reads it committed.

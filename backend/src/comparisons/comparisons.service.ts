@@ -157,14 +157,7 @@ export class ComparisonsService {
       throw new ConflictException('Someone changed this version since you opened the comparison; reload it and sign again.');
     }
     if (!(await this.auth.verifyPassword(actor.id, dto.password))) {
-      await this.audit.record({
-        actor,
-        action: 'signature.failed',
-        entity: 'method-version',
-        entityId: versionId,
-        changes: { meaning: { from: null, to: 'change assessed' } },
-        reason: 'Password not correct.',
-      });
+      await this.audit.signatureRefused(actor, { entity: 'method-version', entityId: versionId, meaning: 'change assessed' });
       throw new UnauthorizedException(WRONG_ASSESSMENT_PASSWORD);
     }
     const id = randomUUID();

@@ -10,6 +10,13 @@ export interface Mail {
   text: string;
 }
 
+/** A mail to one user, greeted by name and signed by Meritline. */
+export interface Letter {
+  to: Pick<User, 'email' | 'name'>;
+  subject: string;
+  lines: string[];
+}
+
 @Injectable()
 export class MailService {
   private readonly logger = new Logger(MailService.name);
@@ -35,6 +42,15 @@ export class MailService {
     } catch (error) {
       this.logger.error(`Could not send "${mail.subject}" to ${mail.to.join(', ')}: ${(error as Error).message}`);
     }
+  }
+
+  /** Sends the letters when called: after the change they announce has committed. */
+  letterDelivery(letters: readonly Letter[]): () => Promise<void> {
+    return async () => {
+      for (const { to, subject, lines } of letters) {
+        await this.send({ to: [to.email], subject, text: [`Hello ${to.name},`, '', ...lines, '', '— Meritline'].join('\n') });
+      }
+    };
   }
 
   link(path: string): string {

@@ -283,14 +283,7 @@ export class MethodsService {
     if (!dto.password) errors.push({ field: 'password', code: 'required', message: 'Enter your password to sign the activation.' });
     if (errors.length) throw unprocessable(errors, 'The activation with justification is incomplete.');
     if (!(await this.auth.verifyPassword(actor.id, dto.password as string))) {
-      await this.audit.record({
-        actor,
-        action: 'signature.failed',
-        entity: 'method-version',
-        entityId: id,
-        changes: { meaning: { from: null, to: 'activated with justification' } },
-        reason: 'Password not correct.',
-      });
+      await this.audit.signatureRefused(actor, { entity: 'method-version', entityId: id, meaning: 'activated with justification' });
       throw new UnauthorizedException(WRONG_ACTIVATION_PASSWORD);
     }
   }

@@ -4,7 +4,7 @@ import { CurrentUser, type AuthUser } from '../common/decorators/current-user.de
 import { ApiRecord, ApiSignedIn } from '../common/openapi/api-responses.js';
 import { MarkedReadDto, NotificationListResponseDto, NotificationResponseDto } from './dto/notification.dto.js';
 import { NotificationsService } from './notifications.service.js';
-import type { NotificationDto, NotificationListDto } from './notifications.types.js';
+import type { NotificationDto, NotificationListDto } from '@meritline/shared';
 
 @ApiTags('notifications')
 @ApiSignedIn()

@@ -2,7 +2,8 @@ import { Injectable, NotFoundException } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import { IsNull, Repository, type EntityManager } from 'typeorm';
 import { Notification } from './notification.entity.js';
-import type { Notice, NotificationDto, NotificationListDto } from './notifications.types.js';
+import type { NotificationDto, NotificationListDto } from '@meritline/shared';
+import type { Notice } from './notifications.types.js';
 
 const LIST_SIZE = 50;
 const MESSAGE_LENGTH = 300;

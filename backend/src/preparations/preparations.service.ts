@@ -12,6 +12,8 @@ import {
   type FieldError,
   type PreparationDto,
   type PreparationPreviewDto,
+  type PreparationStep,
+  type PreparationStock,
 } from '@meritline/shared';
 import { createdFields, AuditService } from '../audit/audit.service.js';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
@@ -143,7 +145,11 @@ export class PreparationsService {
 
   private async compute(manager: EntityManager, dto: PreparationPreviewRequestDto) {
     const { material, source } = await this.resolveSource(manager, dto.source);
-    const input: StoredPreparationInput = { source, stock: plainStock(dto.stock), steps: dto.steps.map(plainStep) };
+    const input: StoredPreparationInput = {
+      source,
+      stock: plainFields(dto.stock, STOCK_FIELDS),
+      steps: dto.steps.map((step) => plainFields(step, STEP_FIELDS)),
+    };
     const errors = preparationErrors(input);
     if (errors.length) throw unprocessable(humanizePreparationErrors(errors), 'The preparation cannot be calculated; nothing was saved.');
     const computed = preparationUncertainty(input);
@@ -187,32 +193,27 @@ export class PreparationsService {
   }
 }
 
-function plainStock(s: PreparationPreviewRequestDto['stock']): StoredPreparationInput['stock'] {
-  const {
-    mass,
-    uMass,
-    massUnit,
-    volume,
-    volumeTolerance,
-    volumeDistribution,
-    volumeRepeatability,
-    temperatureRange,
-    expansionCoefficient,
-  } = s;
-  return {
-    mass,
-    uMass,
-    massUnit,
-    volume,
-    volumeTolerance,
-    volumeDistribution,
-    ...(volumeRepeatability !== undefined ? { volumeRepeatability } : {}),
-    ...(temperatureRange !== undefined ? { temperatureRange } : {}),
-    ...(expansionCoefficient !== undefined ? { expansionCoefficient } : {}),
-  };
-}
+const STOCK_FIELDS = [
+  'mass',
+  'uMass',
+  'massUnit',
+  'volume',
+  'volumeTolerance',
+  'volumeDistribution',
+  'volumeRepeatability',
+  'temperatureRange',
+  'expansionCoefficient',
+] as const satisfies readonly (keyof PreparationStock)[];
+const STEP_FIELDS = [
+  'aliquot',
+  'aliquotTolerance',
+  'aliquotDistribution',
+  'volume',
+  'volumeTolerance',
+  'volumeDistribution',
+] as const satisfies readonly (keyof PreparationStep)[];
 
-function plainStep(s: PreparationPreviewRequestDto['steps'][number]): StoredPreparationInput['steps'][number] {
-  const { aliquot, aliquotTolerance, aliquotDistribution, volume, volumeTolerance, volumeDistribution } = s;
-  return { aliquot, aliquotTolerance, aliquotDistribution, volume, volumeTolerance, volumeDistribution };
+/** The request's fields as a plain object for the JSON column, in a fixed order, optional ones only where given. */
+function plainFields<T extends object>(dto: T, fields: readonly (keyof T)[]): T {
+  return Object.fromEntries(fields.filter((field) => dto[field] !== undefined).map((field) => [field, dto[field]])) as T;
 }

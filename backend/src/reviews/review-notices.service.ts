@@ -2,19 +2,13 @@ import { Injectable } from '@nestjs/common';
 import type { EntityManager } from 'typeorm';
 import { Role } from '@meritline/shared';
 import type { AuthUser } from '../common/decorators/current-user.decorator.js';
-import { MailService } from '../mail/mail.service.js';
+import { MailService, type Letter } from '../mail/mail.service.js';
 import { NotificationsService } from '../notifications/notifications.service.js';
 import type { ValidationStudy } from '../studies/validation-study.entity.js';
 import type { User } from '../users/user.entity.js';
 import { UsersService } from '../users/users.service.js';
 
 export type ReviewEvent = 'submitted' | 'returned' | 'approved' | 'release-pending';
-
-interface PendingMail {
-  to: User;
-  subject: string;
-  lines: string[];
-}
 
 const CAUTION =
   'Approval in Meritline supports, and does not replace, the laboratory’s own procedures, qualified review and the regulations that apply.';
@@ -41,7 +35,7 @@ export class ReviewNoticesService {
     const path = `/studies/${study.id}`;
     const link = this.mail.link(path);
     const title = `“${study.title}”`;
-    const mails: PendingMail[] = [];
+    const mails: Letter[] = [];
     let recipients: User[];
     let message: string;
 
@@ -125,11 +119,7 @@ export class ReviewNoticesService {
       { kind: `study.${event}`, message, link: path },
       manager,
     );
-    return async () => {
-      for (const { to, subject, lines } of mails) {
-        await this.mail.send({ to: [to.email], subject, text: [`Hello ${to.name},`, '', ...lines, '', '— Meritline'].join('\n') });
-      }
-    };
+    return this.mail.letterDelivery(mails);
   }
 }
 

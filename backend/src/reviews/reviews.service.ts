@@ -291,14 +291,7 @@ export class ReviewsService {
 
   private async verifyPassword(study: ValidationStudy, actor: AuthUser, password: string, meaning: SignatureMeaning) {
     if (await this.auth.verifyPassword(actor.id, password)) return;
-    await this.audit.record({
-      actor,
-      action: 'signature.failed',
-      entity: 'study',
-      entityId: study.id,
-      changes: { meaning: { from: null, to: meaning } },
-      reason: 'Password not correct.',
-    });
+    await this.audit.signatureRefused(actor, { entity: 'study', entityId: study.id, meaning });
     throw new UnauthorizedException(WRONG_PASSWORD);
   }
 

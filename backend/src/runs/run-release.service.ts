@@ -16,7 +16,7 @@ import type { AuthUser } from '../common/decorators/current-user.decorator.js';
 import { keysetPage, QUEUE_BATCH, type KeysetCursor, type QueuePage } from '../common/keyset.js';
 import { unprocessable } from '../common/validation.js';
 import { writeTransaction } from '../database/write-transaction.js';
-import { MailService } from '../mail/mail.service.js';
+import { MailService, type Letter } from '../mail/mail.service.js';
 import { NotificationsService } from '../notifications/notifications.service.js';
 import { User } from '../users/user.entity.js';
 import { UsersService } from '../users/users.service.js';
@@ -34,12 +34,6 @@ type RunReviewFields = Partial<
 >;
 
 type RunEvent = 'submitted' | 'returned' | 'released' | 'superseded';
-
-interface PendingMail {
-  to: User;
-  subject: string;
-  lines: string[];
-}
 
 const statusWords = (run: Run) => RUN_REVIEW_STATUS_LABELS[run.reviewStatus].toLowerCase();
 
@@ -298,14 +292,7 @@ export class RunReleaseService {
 
   private async verifyPassword(run: Run, actor: AuthUser, password: string, meaning: RunSignatureMeaning | null) {
     if (await this.auth.verifyPassword(actor.id, password)) return;
-    await this.audit.record({
-      actor,
-      action: 'signature.failed',
-      entity: 'run',
-      entityId: run.id,
-      changes: { meaning: { from: null, to: meaning ?? 'returned' } },
-      reason: 'Password not correct.',
-    });
+    await this.audit.signatureRefused(actor, { entity: 'run', entityId: run.id, meaning: meaning ?? 'returned' });
     throw new UnauthorizedException(WRONG_RUN_PASSWORD);
   }
 
@@ -361,7 +348,7 @@ export class RunReleaseService {
     const path = `/runs/${run.id}`;
     const link = this.mail.link(path);
     const title = `“${run.title}”`;
-    const mails: PendingMail[] = [];
+    const mails: Letter[] = [];
     let recipients: User[];
     let message: string;
     if (event === 'submitted') {
@@ -406,10 +393,6 @@ export class RunReleaseService {
       { kind: `run.${event}`, message, link: path },
       manager,
     );
-    return async () => {
-      for (const { to, subject, lines } of mails) {
-        await this.mail.send({ to: [to.email], subject, text: [`Hello ${to.name},`, '', ...lines, '', '— Meritline'].join('\n') });
-      }
-    };
+    return this.mail.letterDelivery(mails);
   }
 }

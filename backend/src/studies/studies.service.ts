@@ -38,21 +38,13 @@ const iso = (date: Date | null) => date?.toISOString() ?? null;
 
 export function toStudySummary(study: ValidationStudy): StudySummaryDto {
   const { methodVersion: version, author } = study;
-  const { method } = version;
+  const { id, name, analyte, matrix, technique, xUnit, yUnit } = version.method;
   return {
     id: study.id,
     title: study.title,
     status: study.status,
     methodVersionId: study.methodVersionId,
-    method: {
-      id: method.id,
-      name: method.name,
-      analyte: method.analyte,
-      matrix: method.matrix,
-      technique: method.technique,
-      xUnit: method.xUnit,
-      yUnit: method.yUnit,
-    },
+    method: { id, name, analyte, matrix, technique, xUnit, yUnit },
     methodVersion: {
       id: version.id,
       number: version.number,

@@ -15,6 +15,9 @@ export { bearer };
 
 /** The steps the API tests repeat: signing in, reading the database, seeding a validated version, runs and their release. */
 
+/** Tokens of several demo users, in the order named. */
+export const tokensFor = (t: TestApp, ...emails: string[]) => Promise.all(emails.map((email) => t.tokenFor(email)));
+
 /** The Authorization header of a demo user, signed in once per app. */
 export const signedIn = async (t: TestApp, email: string) => bearer(await t.tokenFor(email));
 

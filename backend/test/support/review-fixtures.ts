@@ -2,7 +2,14 @@ import { createHash, randomUUID } from 'node:crypto';
 import { createRequire } from 'node:module';
 import pg from 'pg';
 import { DataSource } from 'typeorm';
-import { canonicalJson, ENGINE_VERSION, evaluateStudy, type StudyInput } from '@meritline/shared';
+import {
+  canonicalJson,
+  ENGINE_VERSION,
+  evaluateStudy,
+  type MethodSummaryDto,
+  type PreparationStep,
+  type StudyInput,
+} from '@meritline/shared';
 import { MethodVersion } from '../../src/methods/method-version.entity.js';
 import { Method } from '../../src/methods/method.entity.js';
 import { ValidationStudy } from '../../src/studies/validation-study.entity.js';
@@ -101,6 +108,36 @@ export function calibrationData(): StudyInput {
   };
 }
 
+/** The invented nitrate method of the API tests, without its name. */
+export const NITRATE_METHOD = {
+  analyte: 'Nitrate',
+  matrix: 'Drinking water',
+  technique: 'UV-Vis',
+  xUnit: 'mg/L',
+  yUnit: 'AU',
+  purpose: 'assay',
+} satisfies Omit<MethodSummaryDto, 'id' | 'name'>;
+
+/** Two invented serial dilutions: 1 mL to 100 mL, then 5 mL to 50 mL. */
+export const TWO_DILUTIONS = [
+  {
+    aliquot: 1,
+    aliquotTolerance: 0.008,
+    aliquotDistribution: 'triangular',
+    volume: 100,
+    volumeTolerance: 0.1,
+    volumeDistribution: 'triangular',
+  },
+  {
+    aliquot: 5,
+    aliquotTolerance: 0.015,
+    aliquotDistribution: 'rectangular',
+    volume: 50,
+    volumeTolerance: 0.06,
+    volumeDistribution: 'triangular',
+  },
+] satisfies PreparationStep[];
+
 export interface StudyFixtureOptions {
   author: string;
   requiresQualityRelease?: boolean;
@@ -136,12 +173,7 @@ export async function createStudy(t: TestApp, options: StudyFixtureOptions): Pro
   const method = await ds.getRepository(Method).save(
     ds.getRepository(Method).create({
       name: `Nitrate in drinking water ${randomUUID().slice(0, 8)}`,
-      analyte: 'Nitrate',
-      matrix: 'Drinking water',
-      technique: 'UV-Vis',
-      xUnit: 'mg/L',
-      yUnit: 'AU',
-      purpose: 'assay',
+      ...NITRATE_METHOD,
       createdById: authorId,
     }),
   );

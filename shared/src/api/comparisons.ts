@@ -1,16 +1,6 @@
 import type { MethodVersionStatus } from './methods.js';
 import type { StudyStatus } from './studies.js';
-import type {
-  ComparisonVerdict,
-  DetectionComparison,
-  EquivalenceTest,
-  FigureComparison,
-  LineParameterComparison,
-  MeanComparison,
-  RangeComparison,
-  Unavailable,
-  VarianceComparison,
-} from '../comparison-types.js';
+import type { VersionComparison } from '../comparison-types.js';
 import type { Interval } from '../result.js';
 
 /** One side of a version comparison: the version and the study whose result stands for it. */
@@ -34,28 +24,21 @@ export interface VersionChangeRow {
   changed: boolean;
 }
 
-export interface VersionComparisonTests {
-  slope: LineParameterComparison | Unavailable;
-  intercept: LineParameterComparison | Unavailable;
-  residualSd: VarianceComparison | Unavailable;
-  repeatability: VarianceComparison | Unavailable;
-  intermediatePrecision: VarianceComparison | Unavailable;
-  recovery: { welch: MeanComparison | Unavailable; tost: EquivalenceTest | Unavailable; verdict: ComparisonVerdict };
-}
+export type VersionComparisonTests = Pick<
+  VersionComparison,
+  'slope' | 'intercept' | 'residualSd' | 'repeatability' | 'intermediatePrecision' | 'recovery'
+>;
 
-export interface VersionComparisonResponse {
+/** The engine's comparison of the two studies, with the versions it compares and their changes in words. `alpha` is the later study's α. */
+export interface VersionComparisonResponse extends Pick<
+  VersionComparison,
+  'alpha' | 'recoveryMarginPct' | 'figures' | 'detection' | 'range'
+> {
   method: { id: string; name: string; xUnit: string; yUnit: string };
   from: ComparedVersion;
   to: ComparedVersion;
-  /** Significance level of the tests: the later study's α. */
-  alpha: number;
-  /** Equivalence margin of the mean recoveries, percentage points. */
-  recoveryMarginPct: number;
   changes: VersionChangeRow[];
-  figures: FigureComparison[];
   tests: VersionComparisonTests;
-  detection: DetectionComparison[];
-  range: RangeComparison | Unavailable;
   /** What the comparison lacks, in words (e.g. a version without an approved study); empty when complete. */
   missing: string[];
 }

@@ -6,3 +6,4 @@ export * from './methods.js';
 export * from './studies.js';
 export * from './reviews.js';
 export * from './reports.js';
+export * from './notifications.js';

@@ -1,4 +1,4 @@
-import type { BudgetEntry, MassUnit, ToleranceDistribution } from '../uncertainty-types.js';
+import type { BudgetEntry, MassUnit, PreparationStep, PreparationStock, ToleranceDistribution } from '../uncertainty-types.js';
 
 /** Request and response bodies of /api/preparations. Volumes in mL; concentrations in the mass unit per litre. */
 
@@ -11,27 +11,6 @@ export const TOLERANCE_DISTRIBUTION_LABELS: Record<ToleranceDistribution, string
 export const MAX_DILUTION_STEPS = 12;
 
 export type PreparationSource = { purity: number; uPurity: number } | { materialId: string };
-
-export interface PreparationStock {
-  mass: number;
-  uMass: number;
-  massUnit: MassUnit;
-  volume: number;
-  volumeTolerance: number;
-  volumeDistribution: ToleranceDistribution;
-  volumeRepeatability?: number;
-  temperatureRange?: number;
-  expansionCoefficient?: number;
-}
-
-export interface PreparationStep {
-  aliquot: number;
-  aliquotTolerance: number;
-  aliquotDistribution: ToleranceDistribution;
-  volume: number;
-  volumeTolerance: number;
-  volumeDistribution: ToleranceDistribution;
-}
 
 export interface PreparationPreviewRequest {
   source: PreparationSource;

@@ -21,7 +21,8 @@ export const PURITY_UNIT = 'g/g';
 export const EXPIRY_WARNING_DAYS = 30;
 export const MAX_CERTIFICATE_BYTES = 10 * 1024 * 1024;
 
-export interface ReferenceMaterialFields {
+/** The material and its certified value, as the certificate names them. */
+export interface CertifiedMaterial {
   name: string;
   analyte: string;
   supplier: string;
@@ -30,6 +31,9 @@ export interface ReferenceMaterialFields {
   valueKind: CertifiedValueKind;
   certifiedValue: number;
   unit: string;
+}
+
+export interface ReferenceMaterialFields extends CertifiedMaterial {
   /** Expanded uncertainty U with its coverage factor k, as printed on the certificate… */
   expandedUncertainty?: number | null;
   coverageFactor?: number | null;
@@ -56,16 +60,8 @@ export interface CertificateFileDto {
   uploadedAt: string;
 }
 
-export interface ReferenceMaterialDto {
+export interface ReferenceMaterialDto extends CertifiedMaterial {
   id: string;
-  name: string;
-  analyte: string;
-  supplier: string;
-  lot: string;
-  certificateNumber: string;
-  valueKind: CertifiedValueKind;
-  certifiedValue: number;
-  unit: string;
   expandedUncertainty: number | null;
   coverageFactor: number | null;
   /** u as stated, or U/k. */

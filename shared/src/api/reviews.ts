@@ -78,11 +78,10 @@ export interface StudyDiffDto {
 
 export type ReviewStage = 'review' | 'release';
 
-export interface QueueItemDto {
+/** What every entry of the review queue shows, a study or a routine run. */
+export interface QueueEntryBase {
   id: string;
   title: string;
-  status: StudyStatus;
-  stage: ReviewStage;
   methodId: string;
   methodName: string;
   methodVersionId: string;
@@ -91,6 +90,11 @@ export interface QueueItemDto {
   authorName: string;
   submittedAt: string | null;
   lockVersion: number;
+}
+
+export interface QueueItemDto extends QueueEntryBase {
+  status: StudyStatus;
+  stage: ReviewStage;
 }
 
 export interface TransitionResultDto {

@@ -1,6 +1,6 @@
 import type { EvaluationResult } from '../result.js';
 import type { FieldError, KeysetPage, UserRef } from './common.js';
-import type { CriterionDefinition, MethodVersionSettings, MethodVersionStatus } from './methods.js';
+import type { CriterionDefinition, MethodSummaryDto, MethodVersionSettings, MethodVersionStatus } from './methods.js';
 
 export type StudyStatus = 'draft' | 'submitted' | 'returned' | 'approved';
 export const STUDY_STATUSES: readonly StudyStatus[] = ['draft', 'submitted', 'returned', 'approved'];
@@ -15,15 +15,7 @@ export interface StudyMeta {
   conclusion?: string;
 }
 
-export interface StudyMethod {
-  id: string;
-  name: string;
-  analyte: string;
-  matrix: string;
-  technique: string;
-  xUnit: string;
-  yUnit: string;
-}
+export type StudyMethod = Omit<MethodSummaryDto, 'purpose'>;
 
 export interface StudyMethodVersion {
   id: string;

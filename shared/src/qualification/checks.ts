@@ -76,17 +76,27 @@ const PARAMETER_FIELDS = {
   B2: { estimate: 'curvature', sd: 'seCurvature', words: 'quadratic coefficient' },
 } as const;
 
-function regressionChecks(ref: RegressionReference): QualificationCheckDefinition[] {
-  const cal = calibrationOf(ref);
-  const id = ref.name.toLowerCase();
-  const check = (key: string, quantity: string, expected: string | number, compute: () => number | null, tolerance = NINE_DIGITS) => ({
-    id: `${id}.${key}`,
+/** A check of one StRD set: its id and words start with the set's name, and the set's certified source stands beside it. */
+const checkOfSet =
+  (ref: { name: string; source: string }) =>
+  (
+    key: string,
+    quantity: string,
+    expected: string | number,
+    compute: () => number | null,
+    tolerance = NINE_DIGITS,
+  ): QualificationCheckDefinition => ({
+    id: `${ref.name.toLowerCase()}.${key}`,
     quantity: `${ref.name}: ${quantity}`,
     source: ref.source,
     expected: String(expected),
     tolerance,
     compute,
   });
+
+function regressionChecks(ref: RegressionReference): QualificationCheckDefinition[] {
+  const cal = calibrationOf(ref);
+  const check = checkOfSet(ref);
   const { parameters, anova } = ref.certified;
   return [
     ...Object.entries(parameters).flatMap(([name, value]) => {
@@ -110,15 +120,7 @@ function regressionChecks(ref: RegressionReference): QualificationCheckDefinitio
 
 function anovaChecks(ref: AnovaReference): QualificationCheckDefinition[] {
   const result = precisionOf(ref);
-  const id = ref.name.toLowerCase();
-  const check = (key: string, quantity: string, expected: string | number, compute: () => number | null, tolerance = NINE_DIGITS) => ({
-    id: `${id}.${key}`,
-    quantity: `${ref.name}: ${quantity}`,
-    source: ref.source,
-    expected: String(expected),
-    tolerance,
-    compute,
-  });
+  const check = checkOfSet(ref);
   const { between, within } = ref.certified;
   return [
     check('df-between', 'degrees of freedom, between groups', between.df, () => result().dfBetween, 0),

@@ -41,21 +41,9 @@ const relative = (
   compute,
 });
 
-const printed = (
-  id: string,
-  quantity: string,
-  source: string,
-  expected: string,
-  compute: () => number | null,
-  tolerance = halfLastDigit(expected),
-): Check => ({
-  id,
-  quantity,
-  source,
-  expected,
-  tolerance,
+const printed: typeof relative = (id, quantity, source, expected, compute, tolerance = halfLastDigit(expected)) => ({
+  ...relative(id, quantity, source, expected, compute, tolerance),
   toleranceKind: 'absolute',
-  compute,
 });
 
 const lazy = <T>(make: () => T): (() => T) => {

@@ -203,30 +203,10 @@ export async function seedDemoMethods(manager: EntityManager) {
         },
         manager,
       );
-      if (version.status !== 'draft') {
-        await audit.record(
-          {
-            actor: owner,
-            action: 'method-version.activated',
-            entity: 'method-version',
-            entityId: saved.id,
-            changes: { status: { from: 'draft', to: 'active' } },
-          },
-          manager,
-        );
-      }
-      if (version.status === 'retired') {
-        await audit.record(
-          {
-            actor: owner,
-            action: 'method-version.retired',
-            entity: 'method-version',
-            entityId: saved.id,
-            changes: { status: { from: 'active', to: 'retired' } },
-          },
-          manager,
-        );
-      }
+      const statusChanged = (action: 'method-version.activated' | 'method-version.retired', from: string, to: string) =>
+        audit.record({ actor: owner, action, entity: 'method-version', entityId: saved.id, changes: { status: { from, to } } }, manager);
+      if (version.status !== 'draft') await statusChanged('method-version.activated', 'draft', 'active');
+      if (version.status === 'retired') await statusChanged('method-version.retired', 'active', 'retired');
     }
   }
 }

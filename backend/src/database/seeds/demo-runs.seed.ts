@@ -34,176 +34,77 @@ interface DemoRun {
   samples: { id: string; x: number; dilution?: number }[];
 }
 
+const ANALYST = 'analyst@meritline.test';
+const SECOND_ANALYST = 'analyst2@meritline.test';
+
+/** A demo run in one row: day, author, calibration, the day's sensitivity, then its samples as [name, mg/L, dilution]. */
+const run = (
+  daysAgo: number,
+  author: string,
+  model: DemoRun['model'],
+  sensitivity: number,
+  ...samples: [id: string, x: number, dilution?: number][]
+): DemoRun => ({ daysAgo, author, model, sensitivity, samples: samples.map(([id, x, dilution]) => ({ id, x, dilution })) });
+
 const LINEAR_LEVELS = [0.5, 2.5, 10, 25, 50];
 
 // Five days below the long-run slope, then seven above it: the chart shows the drift.
 const ACTIVE_RUNS: DemoRun[] = [
+  run(
+    27,
+    ANALYST,
+    'linear',
+    0.99,
+    ['W-2701 tap water, Riverside', 11.8],
+    ['W-2702 well, Oak Farm', 31.5],
+    ['W-2703 tap water, Hill Road', 0.3],
+  ),
+  run(25, SECOND_ANALYST, 'linear', 0.994, ['W-2711 spring, Mill Brook', 6.2], ['W-2712 tap water, Station Square', 14.9]),
+  run(23, ANALYST, 'two-point', 0.997, ['W-2720 well, Marsh Lane', 58.4, 2], ['W-2721 tap water, Riverside', 12.1]),
+  run(
+    21,
+    ANALYST,
+    'linear',
+    0.992,
+    ['W-2730 borehole, Ash Farm', 44.7],
+    ['W-2731 tap water, Elm Court', 8.8],
+    ['W-2732 well, Oak Farm', 33.2],
+  ),
+  run(19, SECOND_ANALYST, 'linear', 0.995, ['W-2740 tap water, Hill Road', 0.9], ['W-2741 reservoir outlet', 4.6]),
   {
-    daysAgo: 27,
-    author: 'analyst@meritline.test',
-    model: 'linear',
-    sensitivity: 0.99,
-    samples: [
-      { id: 'W-2701 tap water, Riverside', x: 11.8 },
-      { id: 'W-2702 well, Oak Farm', x: 31.5 },
-      { id: 'W-2703 tap water, Hill Road', x: 0.3 },
-    ],
-  },
-  {
-    daysAgo: 25,
-    author: 'analyst2@meritline.test',
-    model: 'linear',
-    sensitivity: 0.994,
-    samples: [
-      { id: 'W-2711 spring, Mill Brook', x: 6.2 },
-      { id: 'W-2712 tap water, Station Square', x: 14.9 },
-    ],
-  },
-  {
-    daysAgo: 23,
-    author: 'analyst@meritline.test',
-    model: 'two-point',
-    sensitivity: 0.997,
-    samples: [
-      { id: 'W-2720 well, Marsh Lane', x: 58.4, dilution: 2 },
-      { id: 'W-2721 tap water, Riverside', x: 12.1 },
-    ],
-  },
-  {
-    daysAgo: 21,
-    author: 'analyst@meritline.test',
-    model: 'linear',
-    sensitivity: 0.992,
-    samples: [
-      { id: 'W-2730 borehole, Ash Farm', x: 44.7 },
-      { id: 'W-2731 tap water, Elm Court', x: 8.8 },
-      { id: 'W-2732 well, Oak Farm', x: 33.2 },
-    ],
-  },
-  {
-    daysAgo: 19,
-    author: 'analyst2@meritline.test',
-    model: 'linear',
-    sensitivity: 0.995,
-    samples: [
-      { id: 'W-2740 tap water, Hill Road', x: 0.9 },
-      { id: 'W-2741 reservoir outlet', x: 4.6 },
-    ],
-  },
-  {
-    daysAgo: 17,
-    author: 'analyst2@meritline.test',
-    model: 'linear',
-    sensitivity: 1.001,
+    ...run(17, SECOND_ANALYST, 'linear', 1.001, ['W-2750 tap water, Riverside', 12.3], ['W-2751 well, Marsh Lane', 29.6, 2]),
     checkFactor: 0.86,
-    samples: [
-      { id: 'W-2750 tap water, Riverside', x: 12.3 },
-      { id: 'W-2751 well, Marsh Lane', x: 29.6, dilution: 2 },
-    ],
   },
-  {
-    daysAgo: 16,
-    author: 'analyst@meritline.test',
-    model: 'linear',
-    sensitivity: 1.004,
-    samples: [
-      { id: 'W-2750 tap water, Riverside (repeat)', x: 12.3 },
-      { id: 'W-2751 well, Marsh Lane (repeat)', x: 29.6, dilution: 2 },
-    ],
-  },
-  {
-    daysAgo: 14,
-    author: 'analyst@meritline.test',
-    model: 'one-point',
-    sensitivity: 1.006,
-    samples: [
-      { id: 'W-2760 tap water, Station Square', x: 9.7 },
-      { id: 'W-2761 spring, Mill Brook', x: 6.0 },
-      { id: 'W-2762 tap water, Elm Court', x: 11.4 },
-    ],
-  },
-  {
-    daysAgo: 12,
-    author: 'analyst2@meritline.test',
-    model: 'linear',
-    sensitivity: 1.008,
-    samples: [
-      { id: 'W-2770 well, Oak Farm', x: 36.1 },
-      { id: 'W-2771 borehole, Ash Farm', x: 47.9 },
-    ],
-  },
-  {
-    daysAgo: 9,
-    author: 'analyst@meritline.test',
-    model: 'linear',
-    sensitivity: 1.008,
-    samples: [
-      { id: 'W-2780 tap water, Riverside', x: 12.6 },
-      { id: 'W-2781 new well, Birch Lane', x: 71.0 },
-    ],
-  },
-  {
-    daysAgo: 7,
-    author: 'analyst@meritline.test',
-    model: 'linear',
-    sensitivity: 1.007,
-    samples: [
-      { id: 'W-2781 new well, Birch Lane (diluted)', x: 71.0, dilution: 5 },
-      { id: 'W-2782 tap water, Hill Road', x: 0.4 },
-    ],
-  },
-  {
-    daysAgo: 4,
-    author: 'analyst2@meritline.test',
-    model: 'two-point',
-    sensitivity: 1.01,
-    samples: [
-      { id: 'W-2790 reservoir outlet', x: 4.4 },
-      { id: 'W-2791 tap water, Elm Court', x: 9.1 },
-    ],
-  },
-  {
-    daysAgo: 2,
-    author: 'analyst@meritline.test',
-    model: 'linear',
-    sensitivity: 1.012,
-    samples: [
-      { id: 'W-2800 tap water, Station Square', x: 10.2 },
-      { id: 'W-2801 well, Oak Farm', x: 34.8 },
-      { id: 'W-2802 spring, Mill Brook', x: 5.7 },
-    ],
-  },
+  run(16, ANALYST, 'linear', 1.004, ['W-2750 tap water, Riverside (repeat)', 12.3], ['W-2751 well, Marsh Lane (repeat)', 29.6, 2]),
+  run(
+    14,
+    ANALYST,
+    'one-point',
+    1.006,
+    ['W-2760 tap water, Station Square', 9.7],
+    ['W-2761 spring, Mill Brook', 6.0],
+    ['W-2762 tap water, Elm Court', 11.4],
+  ),
+  run(12, SECOND_ANALYST, 'linear', 1.008, ['W-2770 well, Oak Farm', 36.1], ['W-2771 borehole, Ash Farm', 47.9]),
+  run(9, ANALYST, 'linear', 1.008, ['W-2780 tap water, Riverside', 12.6], ['W-2781 new well, Birch Lane', 71.0]),
+  run(7, ANALYST, 'linear', 1.007, ['W-2781 new well, Birch Lane (diluted)', 71.0, 5], ['W-2782 tap water, Hill Road', 0.4]),
+  run(4, SECOND_ANALYST, 'two-point', 1.01, ['W-2790 reservoir outlet', 4.4], ['W-2791 tap water, Elm Court', 9.1]),
+  run(
+    2,
+    ANALYST,
+    'linear',
+    1.012,
+    ['W-2800 tap water, Station Square', 10.2],
+    ['W-2801 well, Oak Farm', 34.8],
+    ['W-2802 spring, Mill Brook', 5.7],
+  ),
 ];
 
 // Runs made on the first version while it was active (it has been retired since).
 const RETIRED_RUNS: DemoRun[] = [
-  {
-    daysAgo: 320,
-    author: 'analyst2@meritline.test',
-    model: 'linear',
-    sensitivity: 1.012,
-    samples: [
-      { id: 'W-1102 tap water, Riverside', x: 11.2 },
-      { id: 'W-1103 well, Oak Farm', x: 22.4 },
-    ],
-  },
-  {
-    daysAgo: 190,
-    author: 'analyst2@meritline.test',
-    model: 'linear',
-    sensitivity: 0.988,
-    samples: [
-      { id: 'W-1530 tap water, Hill Road', x: 0.8 },
-      { id: 'W-1531 well, Marsh Lane', x: 19.9 },
-    ],
-  },
-  {
-    daysAgo: 75,
-    author: 'analyst@meritline.test',
-    model: 'two-point',
-    sensitivity: 1.003,
-    samples: [{ id: 'W-2210 tap water, Riverside', x: 12.0 }],
-  },
+  run(320, SECOND_ANALYST, 'linear', 1.012, ['W-1102 tap water, Riverside', 11.2], ['W-1103 well, Oak Farm', 22.4]),
+  run(190, SECOND_ANALYST, 'linear', 0.988, ['W-1530 tap water, Hill Road', 0.8], ['W-1531 well, Marsh Lane', 19.9]),
+  run(75, ANALYST, 'two-point', 1.003, ['W-2210 tap water, Riverside', 12.0]),
 ];
 
 function runData(run: DemoRun, model: DemoRun['model'], index: number, topLevel: number) {

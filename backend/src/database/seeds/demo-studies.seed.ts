@@ -45,7 +45,8 @@ interface Scenario {
   yDecimals: number;
   xDecimals: number;
   blanks?: { n: number; sd: number };
-  recovery?: { native: number; levels: { level: string; added: number; n: number }[]; meanPct: number; sdPct: number };
+  /** Spikes added at the low, mid and high level, n samples each. */
+  recovery?: { native: number; added: [low: number, mid: number, high: number]; n: number; meanPct: number; sdPct: number };
   precision?: { days: number; n: number; mean: number; rsdPct: number; betweenRsdPct: number };
   unknowns?: { id: string; x: number; m: number; dilution?: number }[];
   lowSpikes?: { level: number; n: number; sd: number; blanks: (number | null)[] };
@@ -73,13 +74,13 @@ function studyData(s: Scenario): StudyData {
     data.blanks = Array.from({ length: n }, () => round(s.intercept + noise(sd), s.yDecimals));
   }
   if (s.recovery) {
-    const { native, levels, meanPct, sdPct } = s.recovery;
-    data.recovery = levels.flatMap(({ level, added, n }) =>
+    const { native, added, n, meanPct, sdPct } = s.recovery;
+    data.recovery = (['low', 'mid', 'high'] as const).flatMap((level, l) =>
       Array.from({ length: n }, (_, i) => ({
         id: `${level[0].toUpperCase()}${i + 1}`,
         level,
-        added,
-        found: round(native + (added * (meanPct + noise(sdPct))) / 100, s.xDecimals),
+        added: added[l],
+        found: round(native + (added[l] * (meanPct + noise(sdPct))) / 100, s.xDecimals),
         native,
       })),
     );
@@ -138,16 +139,7 @@ const nitrate = (seed: number, levels: number[]): Scenario => ({
   yDecimals: 4,
   xDecimals: 3,
   blanks: { n: 10, sd: 0.0011 },
-  recovery: {
-    native: 3.84,
-    levels: [
-      { level: 'low', added: 1, n: 3 },
-      { level: 'mid', added: 10, n: 3 },
-      { level: 'high', added: Math.max(...levels) * 0.8, n: 3 },
-    ],
-    meanPct: 99.2,
-    sdPct: 2.2,
-  },
+  recovery: { native: 3.84, added: [1, 10, Math.max(...levels) * 0.8], n: 3, meanPct: 99.2, sdPct: 2.2 },
   precision: { days: 3, n: 5, mean: 10.02, rsdPct: 1.1, betweenRsdPct: 0.7 },
   unknowns: [
     { id: 'W-2611 tap water, Riverside', x: 12.4, m: 2 },
@@ -167,16 +159,7 @@ const tartrazine: Scenario = {
   yDecimals: 4,
   xDecimals: 3,
   blanks: { n: 6, sd: 0.0004 },
-  recovery: {
-    native: 0,
-    levels: [
-      { level: 'low', added: 2, n: 3 },
-      { level: 'mid', added: 5, n: 3 },
-      { level: 'high', added: 10, n: 3 },
-    ],
-    meanPct: 100.2,
-    sdPct: 0.6,
-  },
+  recovery: { native: 0, added: [2, 5, 10], n: 3, meanPct: 100.2, sdPct: 0.6 },
   precision: { days: 3, n: 6, mean: 5.04, rsdPct: 0.7, betweenRsdPct: 0.5 },
   unknowns: [
     { id: 'S-3101 orange soda', x: 31.2, m: 3, dilution: 5 },
@@ -214,16 +197,7 @@ const chlorpyrifos = (seed: number): Scenario => ({
   yDecimals: 5,
   xDecimals: 2,
   blanks: { n: 6, sd: 0.0002 },
-  recovery: {
-    native: 0,
-    levels: [
-      { level: 'low', added: 10, n: 5 },
-      { level: 'mid', added: 50, n: 5 },
-      { level: 'high', added: 100, n: 5 },
-    ],
-    meanPct: 93,
-    sdPct: 6,
-  },
+  recovery: { native: 0, added: [10, 50, 100], n: 5, meanPct: 93, sdPct: 6 },
   precision: { days: 3, n: 4, mean: 48.6, rsdPct: 7, betweenRsdPct: 4 },
   unknowns: [
     { id: 'A-5521 apples, lot 14', x: 3.1, m: 2 },
@@ -243,16 +217,7 @@ const caffeine = (seed: number, slope: number, recoveryPct: number): Scenario =>
   responseSd: (y) => 0.6 + 0.0025 * y,
   yDecimals: 2,
   xDecimals: 2,
-  recovery: {
-    native: 0,
-    levels: [
-      { level: 'low', added: 40, n: 3 },
-      { level: 'mid', added: 80, n: 3 },
-      { level: 'high', added: 100, n: 3 },
-    ],
-    meanPct: recoveryPct,
-    sdPct: 0.7,
-  },
+  recovery: { native: 0, added: [40, 80, 100], n: 3, meanPct: recoveryPct, sdPct: 0.7 },
   precision: { days: 3, n: 5, mean: 80.2, rsdPct: 0.6, betweenRsdPct: 0.4 },
 });
 

@@ -1,5 +1,5 @@
 import { ApiProperty } from '@nestjs/swagger';
-import type { NotificationDto, NotificationListDto } from '../notifications.types.js';
+import type { NotificationDto, NotificationListDto } from '@meritline/shared';
 
 export class NotificationResponseDto implements NotificationDto {
   @ApiProperty() id: string;

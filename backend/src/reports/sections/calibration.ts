@@ -203,20 +203,15 @@ function plots(pdf: PdfComposer, result: EvaluationResult, c: CalibrationResult,
   const level = confidenceWords(result);
   const layers: PlotLayer[] = [];
   if (c.bands?.length) {
-    layers.push({
+    const bands = c.bands;
+    const band = (kind: 'prediction' | 'confidence', color: string, opacity: number): PlotLayer => ({
       type: 'band',
-      label: `${level} prediction band`,
-      color: colors.spruceLight,
-      opacity: 0.45,
-      points: c.bands.map((b) => ({ x: b.x, low: b.fit - b.predictionHalfWidth, high: b.fit + b.predictionHalfWidth })),
+      label: `${level} ${kind} band`,
+      color,
+      opacity,
+      points: bands.map((b) => ({ x: b.x, low: b.fit - b[`${kind}HalfWidth`], high: b.fit + b[`${kind}HalfWidth`] })),
     });
-    layers.push({
-      type: 'band',
-      label: `${level} confidence band`,
-      color: colors.spruceMid,
-      opacity: 0.35,
-      points: c.bands.map((b) => ({ x: b.x, low: b.fit - b.confidenceHalfWidth, high: b.fit + b.confidenceHalfWidth })),
-    });
+    layers.push(band('prediction', colors.spruceLight, 0.45), band('confidence', colors.spruceMid, 0.35));
     layers.push({ type: 'line', label: 'Fitted function', color: colors.spruce, points: c.bands.map((b) => ({ x: b.x, y: b.fit })) });
   } else {
     layers.push({ type: 'line', label: 'Fitted function', color: colors.spruce, points: fittedCurve(c) });
