@@ -13,16 +13,20 @@ export const setSheet = (
   rows: GridRow[],
 ) => controller.change((d) => ({ ...d, data: { ...d.data, sheets: { ...d.data.sheets, [section]: rows } } }));
 
-type ExcludableSection = 'standards' | 'blanks' | 'recovery' | 'precision';
+type ExcludableSection = 'standards' | 'blanks' | 'recovery' | 'precision' | 'lowSpikes';
+/** What is excluded: a whole row, or one result of a low-level spike row (its spike or its method blank). */
+type ExclusionTarget = Exclude<ExcludableSection, 'lowSpikes'> | 'lowSpikes.spiked' | 'lowSpikes.blank';
 
 interface ExclusionWords {
   /** What a row is: "standard", "spiked sample", "result". */
   noun: string;
+  /** The button's word for a row holding two results ("spike", "blank"); none for a whole row. */
+  short?: string;
   describe: (row: GridRow) => string;
   consequence: string;
 }
 
-const WORDS: Record<ExcludableSection, ExclusionWords> = {
+const WORDS: Record<ExclusionTarget, ExclusionWords> = {
   standards: {
     noun: 'standard',
     describe: (row) => `x = ${row.cells.x ?? '?'}, y = ${row.cells.y ?? '?'}`,
@@ -44,17 +48,44 @@ const WORDS: Record<ExcludableSection, ExclusionWords> = {
     describe: (row) => `${row.cells.value ?? '?'} (series ${row.cells.group || '?'})`,
     consequence: 'The result stays in the study, marked excluded, and is left out of the repeatability and intermediate precision.',
   },
+  'lowSpikes.spiked': {
+    noun: 'low-level spike result',
+    short: 'spike',
+    describe: (row) => `${row.cells.spiked ?? '?'}`,
+    consequence: 'The result stays in the study, marked excluded, and is left out of the method detection limit.',
+  },
+  'lowSpikes.blank': {
+    noun: 'method blank result',
+    short: 'blank',
+    describe: (row) => `${row.cells.blank ?? '?'}`,
+    consequence: 'The blank stays in the study, marked excluded, and is left out of the method detection limit.',
+  },
 };
 
 /** Excluding a standard takes a written reason and can be undone: the point stays in the data and leaves every computation. */
 export const useStandardExclusion = (controller: StudyDraftController) => useRowExclusion(controller, 'standards');
 
+/** A row's exclusion for the target: the row's own, or that of its cell (`column`). */
+const exclusionIn = (row: GridRow, column: string | undefined) => (column ? row.excludedCells?.[column] : row.excluded);
+
+function withExclusion(row: GridRow, column: string | undefined, excluded: { reason: string } | undefined): GridRow {
+  if (!column) {
+    const { excluded: _previous, ...rest } = row;
+    return excluded ? { ...rest, excluded } : rest;
+  }
+  const { [column]: _previous, ...others } = row.excludedCells ?? {};
+  const cells = excluded ? { ...others, [column]: excluded } : others;
+  const { excludedCells: _cells, ...rest } = row;
+  return Object.keys(cells).length > 0 ? { ...rest, excludedCells: cells } : rest;
+}
+
 /**
- * Excluding a row (a standard, a method blank, a spiked sample, a precision result) takes a written reason and can be
- * undone: the row stays in the data, marked, and leaves every computation.
+ * Excluding a row (a standard, a method blank, a spiked sample, a precision result), or one result of a low-level
+ * spike row (`column`: its spike or its method blank), takes a written reason and can be undone: the value stays
+ * in the data, marked, and leaves every computation.
  */
-export function useRowExclusion(controller: StudyDraftController, section: ExcludableSection) {
-  const words = WORDS[section];
+export function useRowExclusion(controller: StudyDraftController, section: ExcludableSection, column?: 'spiked' | 'blank') {
+  const words = WORDS[column ? (`lowSpikes.${column}` as const) : (section as Exclude<ExcludableSection, 'lowSpikes'>)];
   const describe = words.describe;
   const [target, setTarget] = useState<GridRow | null>(null);
   const rows = controller.draft.data.sheets[section];
@@ -63,17 +94,13 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
     setSheet(
       controller,
       section,
-      rows.map((row) => {
-        if (row.id !== rowId) return row;
-        const { excluded: _previous, ...rest } = row;
-        return excluded ? { ...rest, excluded } : rest;
-      }),
+      rows.map((row) => (row.id === rowId ? withExclusion(row, column, excluded) : row)),
     );
 
   const toggle = (rowId: string) => {
     const row = rows.find((r) => r.id === rowId);
     if (!row || !controller.editable) return;
-    if (row.excluded) {
+    if (exclusionIn(row, column)) {
       setExcluded(row.id, undefined);
       toaster.create({
         type: 'info',
@@ -110,17 +137,23 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
     </FormDialog>
   );
 
-  const rowActions = (row: GridRow) => (
-    <Button
-      size="xs"
-      variant="ghost"
-      onClick={() => toggle(row.id)}
-      disabled={!controller.editable}
-      title={`${row.excluded ? 'Include again' : 'Exclude'} the ${words.noun} ${describe(row)}`}
-    >
-      {row.excluded ? 'Include again' : 'Exclude…'}
-    </Button>
-  );
+  const rowActions = (row: GridRow) => {
+    // A low-level spike row may hold only one of its two results: nothing to exclude in an empty cell.
+    if (column && (row.cells[column] ?? '').trim() === '') return null;
+    const excluded = Boolean(exclusionIn(row, column));
+    const what = words.short ? ` ${words.short}` : '';
+    return (
+      <Button
+        size="xs"
+        variant="ghost"
+        onClick={() => toggle(row.id)}
+        disabled={!controller.editable}
+        title={`${excluded ? 'Include again' : 'Exclude'} the ${words.noun} ${describe(row)}`}
+      >
+        {excluded ? `Include${what} again` : `Exclude${what}…`}
+      </Button>
+    );
+  };
 
   return { toggle, dialog, rowActions };
 }
