@@ -1,4 +1,4 @@
-import { type DetectionApproach, type EvaluationResult, formatNumber, withUnit } from '@meritline/shared';
+import { type DetectionApproach, type EvaluationResult, formatLevel, formatNumber, withUnit } from '@meritline/shared';
 import { Stack, Text } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
@@ -156,7 +156,8 @@ const excludedColumns = excludedColumn.columns([
 /** The blanks, low-level spikes and MDL blanks the analyst excluded from the limits, with the reasons given. */
 export function DetectionExclusions({ result, units }: Pick<JudgedFiguresProps, 'result' | 'units'>) {
   const d = result.detection;
-  const value = (v: number | null, unit: string | undefined) => (v === null ? 'not detected' : withUnit(formatNumber(v, 5), unit));
+  // Entered values, printed as entered.
+  const value = (v: number | null, unit: string | undefined) => (v === null ? 'not detected' : withUnit(formatLevel(v), unit));
   const rows: ExcludedDetectionRow[] = [
     ...(d?.excludedBlanks ?? []).map((row) => ({
       id: `b${row.index}`,

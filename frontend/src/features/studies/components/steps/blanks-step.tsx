@@ -2,7 +2,7 @@ import { formatNumber } from '@meritline/shared';
 import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
-import { setSheet, useRowExclusion } from './exclusion';
+import { setSheet, useLowSpikeExclusion, useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
 
 const excludedNote = (rows: readonly unknown[] | undefined) => (rows?.length ? ` (${rows.length} excluded)` : '');
@@ -10,8 +10,7 @@ const excludedNote = (rows: readonly unknown[] | undefined) => (rows?.length ? `
 export function BlanksStep({ controller, live, units }: DataStepProps) {
   const { draft, server, editable, prepareImport, adopt } = controller;
   const exclusion = useRowExclusion(controller, 'blanks');
-  const spikeExclusion = useRowExclusion(controller, 'lowSpikes', 'spiked');
-  const mdlBlankExclusion = useRowExclusion(controller, 'lowSpikes', 'blank');
+  const lowSpikeExclusion = useLowSpikeExclusion(controller);
   const d = live.result?.detection;
   const x = (v: number | null | undefined) => `${formatNumber(v, 4)} ${units.x}`;
   return (
@@ -54,12 +53,7 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
             readOnly={!editable}
             prepareImport={prepareImport}
             onImported={adopt}
-            rowActions={(row) => (
-              <>
-                {spikeExclusion.rowActions(row)}
-                {mdlBlankExclusion.rowActions(row)}
-              </>
-            )}
+            rowActions={lowSpikeExclusion.rowActions}
           />
         </Stack>
       </Stack>
@@ -94,8 +88,7 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
         )}
       </LivePanel>
       {exclusion.dialog}
-      {spikeExclusion.dialog}
-      {mdlBlankExclusion.dialog}
+      {lowSpikeExclusion.dialog}
     </Grid>
   );
 }

@@ -1,4 +1,4 @@
-import { Button } from '@chakra-ui/react';
+import { Button, Menu, Portal } from '@chakra-ui/react';
 import { useState } from 'react';
 import * as yup from 'yup';
 import { FormDialog } from '@/components/form-dialog';
@@ -20,7 +20,7 @@ type ExclusionTarget = Exclude<ExcludableSection, 'lowSpikes'> | 'lowSpikes.spik
 interface ExclusionWords {
   /** What a row is: "standard", "spiked sample", "result". */
   noun: string;
-  /** The button's word for a row holding two results ("spike", "blank"); none for a whole row. */
+  /** The menu's word for one of the two results of a row ("spike", "blank"); none for a whole row. */
   short?: string;
   describe: (row: GridRow) => string;
   consequence: string;
@@ -138,10 +138,7 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
   );
 
   const rowActions = (row: GridRow) => {
-    // A low-level spike row may hold only one of its two results: nothing to exclude in an empty cell.
-    if (column && (row.cells[column] ?? '').trim() === '') return null;
     const excluded = Boolean(exclusionIn(row, column));
-    const what = words.short ? ` ${words.short}` : '';
     return (
       <Button
         size="xs"
@@ -150,10 +147,59 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
         disabled={!controller.editable}
         title={`${excluded ? 'Include again' : 'Exclude'} the ${words.noun} ${describe(row)}`}
       >
-        {excluded ? `Include${what} again` : `Exclude${what}…`}
+        {excluded ? 'Include again' : 'Exclude…'}
       </Button>
     );
   };
 
-  return { toggle, dialog, rowActions };
+  const isExcluded = (row: GridRow) => Boolean(exclusionIn(row, column));
+  const itemLabel = (row: GridRow) =>
+    `${isExcluded(row) ? 'Include' : 'Exclude'} the ${words.short ?? words.noun} ${describe(row)}${isExcluded(row) ? ' again' : '…'}`;
+
+  return { toggle, dialog, rowActions, isExcluded, itemLabel };
+}
+
+/**
+ * A low-level spike row holds a spike and a method blank, each excluded on its own: one button when the row holds
+ * one of them, a menu of both otherwise, so that the row keeps the width of the other grids' rows.
+ */
+export function useLowSpikeExclusion(controller: StudyDraftController) {
+  const spike = useRowExclusion(controller, 'lowSpikes', 'spiked');
+  const blank = useRowExclusion(controller, 'lowSpikes', 'blank');
+  const filled = (row: GridRow, key: string) => (row.cells[key] ?? '').trim() !== '';
+
+  const rowActions = (row: GridRow) => {
+    const parts = [...(filled(row, 'spiked') ? [spike] : []), ...(filled(row, 'blank') ? [blank] : [])];
+    if (parts.length < 2) return parts[0]?.rowActions(row) ?? null;
+    return (
+      <Menu.Root>
+        <Menu.Trigger asChild>
+          <Button size="xs" variant="ghost" disabled={!controller.editable}>
+            {parts.some((part) => part.isExcluded(row)) ? 'Include again…' : 'Exclude…'}
+          </Button>
+        </Menu.Trigger>
+        <Portal>
+          <Menu.Positioner>
+            <Menu.Content>
+              {parts.map((part) => (
+                <Menu.Item key={part.itemLabel(row)} value={part.itemLabel(row)} onSelect={() => part.toggle(row.id)}>
+                  {part.itemLabel(row)}
+                </Menu.Item>
+              ))}
+            </Menu.Content>
+          </Menu.Positioner>
+        </Portal>
+      </Menu.Root>
+    );
+  };
+
+  return {
+    rowActions,
+    dialog: (
+      <>
+        {spike.dialog}
+        {blank.dialog}
+      </>
+    ),
+  };
 }
