@@ -1,6 +1,7 @@
 import { evaluateStudy, type StudyInput } from '@meritline/shared';
 import { screen, within } from '@testing-library/react';
 import { DetectionExclusions } from '@/components/study-results/detection-table';
+import { DiffPanel } from '@/features/reviews/components/diff-panel';
 import { StudyDataSections } from '@/features/reviews/components/study-data-sections';
 import { renderWithProviders } from './render';
 
@@ -38,5 +39,29 @@ describe('excluded low-level spikes and MDL blanks on screen', () => {
     const blanks = screen.getByRole('table', { name: /Method blanks/ });
     expect(within(blanks).getByRole('row', { name: /0\.11/ })).toHaveTextContent('contaminated vial');
     expect(within(blanks).getByRole('row', { name: /not detected/ })).toBeInTheDocument();
+  });
+
+  it('shows the reviewer a newly excluded spike as its exclusion between two submissions', () => {
+    const diff = {
+      from: { signatureId: 'sig-1', signedAt: '2026-11-30T10:00:00.000Z' },
+      to: { signatureId: 'sig-2', signedAt: '2026-12-01T10:00:00.000Z' },
+      settings: [],
+      meta: [],
+      sections: [
+        {
+          section: 'lowSpikes.spiked',
+          added: [],
+          removed: [],
+          changed: [{ key: '#4', field: 'excluded', from: null, to: { reason: 'spiked twice' } }],
+        },
+      ],
+    };
+    renderWithProviders(<DiffPanel diff={diff} data={data} unit="mg/L" />);
+    const row = within(screen.getByRole('table', { name: 'Changes between submissions' })).getAllByRole('row')[1];
+    expect(
+      within(row)
+        .getAllByRole('cell')
+        .map((cell) => cell.textContent),
+    ).toEqual(['Low-level spikes', 'Row 4: Excluded', 'changed', '—', 'yes: spiked twice']);
   });
 });
