@@ -103,6 +103,28 @@ describe('excluded low-level spike results and MDL blanks', () => {
     ]);
   });
 
+  it('should read an imported CSV as plain results that can then be excluded, and keep exclusions when another section is imported', async () => {
+    const study = await newStudy();
+    const upload = (section: string, csv: string, lockVersion: number) =>
+      t
+        .http()
+        .post(`/api/studies/${study.id}/imports`)
+        .set(as('analyst'))
+        .attach('file', Buffer.from(csv), `${section}.csv`)
+        .field('section', section)
+        .field('lockVersion', String(lockVersion));
+    const csv = `spiked,blank\n${SPIKED.map((v, i) => `${v},${i < BLANKS.length ? (BLANKS[i] ?? 'ND') : ''}`).join('\n')}\n`;
+    const imported = await upload('lowSpikes', csv, study.lockVersion).expect(200);
+    expect(imported.body.data.lowSpikes).toEqual({ spiked: SPIKED, blanks: BLANKS });
+    const excluded = await patch(study.id, {
+      lockVersion: imported.body.lockVersion,
+      data: { ...imported.body.data, lowSpikes: withExclusions },
+    }).expect(200);
+    const blanks = await upload('blanks', 'value\n0.0011\n0.0018\n0.0009\n', excluded.body.lockVersion).expect(200);
+    expect(blanks.body.data.lowSpikes).toEqual(withExclusions);
+    expect(blanks.body.result.detection.excludedSpikes).toEqual([{ index: 3, label: 'spike 4', value: 0.43, reason: SPIKE_REASON }]);
+  });
+
   it('should answer a bad exclusion with 422 naming the field, and save nothing', async () => {
     const study = await newStudy();
     const before = await databaseState(t, study.id);
