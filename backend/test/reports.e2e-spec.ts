@@ -342,6 +342,37 @@ describe('validation reports', () => {
       expect(text).toContain('1 method blank excluded by the analyst');
     });
 
+    it('should list excluded low-level spike results and MDL blanks with their reasons and count only the rows used', async () => {
+      const created = await createStudy(t, { author: DEMO.analyst });
+      const draft = (await t.http().get(`/api/studies/${created.id}`).set(as('analyst')).expect(200)).body;
+      // Invented results (mg/L): the fourth spike was spiked twice, the second blank came from a contaminated vial.
+      const lowSpikes = {
+        spiked: [0.21, 0.18, 0.24, { value: 0.43, excluded: { reason: 'Spiked twice by mistake' } }, 0.2, 0.17, 0.22, 0.19],
+        blanks: [0.02, { value: 0.11, excluded: { reason: 'Contaminated vial' } }, 0.03, null, 0.01],
+      };
+      await t
+        .http()
+        .patch(`/api/studies/${draft.id}`)
+        .set(as('analyst'))
+        .send({ lockVersion: draft.lockVersion, data: { ...draft.data, lowSpikes } })
+        .expect(200);
+      const file = saved('draft-low-spike-exclusions.pdf', (await download(draft.id, 'analyst').expect(200)).body);
+      const text = pdftotext(file);
+      expect(text).toMatch(/Low-level spike \(row 4\)[\s\S]*Spiked twice by mistake/);
+      expect(text).toMatch(/Method blank for the MDL \(row 2\)[\s\S]*Contaminated vial/);
+      expect(text).toMatch(/from 7 spiked samples \(1 more excluded/);
+      expect(text).toMatch(/from 4 method blanks \(1 more excluded/);
+      expect(text).toMatch(/excluded: spike 4/);
+      expect(text).toContain('1 low-level spike result excluded by the analyst');
+      const page = Array.from({ length: pageCount(file) }, (_, i) => i + 1).find((p) =>
+        pdftotext(file, p).includes('Excluded replicate results'),
+      )!;
+      const prefix = join(scratch.dir, 'report-page-low-spike-exclusions');
+      execFileSync('pdftoppm', ['-png', '-r', '70', '-f', String(page), '-l', String(page), '-singlefile', file, prefix]);
+      mkdirSync(OUTPUT, { recursive: true });
+      copyFileSync(`${prefix}.png`, join(OUTPUT, 'report-page-low-spike-exclusions.png'));
+    });
+
     it('should mark every page DRAFT, carry no signature and store nothing', async () => {
       const submitted = await ds.getRepository(ValidationStudy).findOneByOrFail({ status: 'submitted' });
       const count = await reportCount();

@@ -112,6 +112,42 @@ describe('what the grid sends', () => {
     expect(draftToData(dataToDraft(stored))).toEqual(stored);
   });
 
+  it('round-trips excluded low-level spikes and MDL blanks, each with its own reason, and keeps plain values plain', () => {
+    const stored = {
+      model: 'linear',
+      weighting: 'none',
+      confidence: 0.95,
+      alpha: 0.05,
+      standards: [],
+      lowSpikes: {
+        spiked: [0.21, { value: 0.43, excluded: { reason: 'spiked twice' } }, 0.19],
+        blanks: [
+          { value: null, excluded: { reason: 'vial broken' } },
+          0.02,
+          { value: 0.11, excluded: { reason: 'contaminated vial' } },
+          0.01,
+        ],
+      },
+    };
+    const draft = dataToDraft(stored);
+    expect(draft.sheets.lowSpikes.map((row) => [row.cells, row.excludedCells])).toEqual([
+      [{ spiked: '0.21', blank: 'ND' }, { blank: { reason: 'vial broken' } }],
+      [{ spiked: '0.43', blank: '0.02' }, { spiked: { reason: 'spiked twice' } }],
+      [{ spiked: '0.19', blank: '0.11' }, { blank: { reason: 'contaminated vial' } }],
+      [{ spiked: '', blank: '0.01' }, undefined],
+    ]);
+    expect(draftToData(draft)).toEqual(stored);
+  });
+
+  it('strikes through only the excluded result of a low-level spike row and says why under it', () => {
+    const columns = sectionColumns('lowSpikes', units);
+    const row = { ...newRow({ spiked: '0.43', blank: '0.02' }), excludedCells: { spiked: { reason: 'spiked twice' } } };
+    renderWithProviders(<DataGrid label="Low-level spikes" columns={columns} rows={[row]} onRowsChange={() => undefined} />);
+    expect(screen.getByLabelText('Low-level spike result, row 1')).toHaveStyle({ textDecoration: 'line-through' });
+    expect(screen.getByLabelText('Method blank result, row 1')).not.toHaveStyle({ textDecoration: 'line-through' });
+    expect(screen.getByText('Low-level spike result excluded: spiked twice')).toBeInTheDocument();
+  });
+
   it('round-trips the accuracy design, the reference material and the options; holds back an unbalanced design', () => {
     // Invented numbers: 3 levels × 2 series × 2 replicates.
     const accuracy = [1, 5, 10].flatMap((nominal) =>

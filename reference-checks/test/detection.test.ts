@@ -1,6 +1,6 @@
 import { detectionDelta, evaluateStudy, normalQuantile } from '@meritline/shared';
 import { describe, expect, it } from 'vitest';
-import { expectRel, loadJson, standards } from './helpers.js';
+import { expectAbs, expectRel, loadCsv, loadJson, standards } from './helpers.js';
 
 const ref = loadJson('detection_limits.json');
 const miller = loadJson('calibration_miller_fluorescence.json');
@@ -100,6 +100,23 @@ describe('EPA MDL, 40 CFR 136 App. B Rev. 2 (rules from memory; synthetic exampl
     const r = mdlOf([], blanks);
     expect(r.blankRule).toBe('rank');
     expect(r.mdlBlank).toBe(ex.MDL_b);
+  });
+
+  it('an excluded spiked replicate or method blank: the MDL of the rows left (common practice: an excluded result enters no figure)', () => {
+    // Example B of the reference file is synthetic (no published MDL data set is stored); an eighth spiked result and
+    // an eighth blank, invented and gross, are excluded, so the seven left of each are example B's own.
+    const ex = epa['example_B_all_blanks_numeric (synthetic, my own numbers)'];
+    const spiked = [...ex.spiked.slice(0, 3), { value: 2.4, excluded: { reason: 'spiked twice' } }, ...ex.spiked.slice(3)];
+    const blanks = [{ value: 0.9, excluded: { reason: 'contaminated vial' } }, ...ex.blanks];
+    const d = evaluateStudy({ lowSpikes: { spiked, blanks } }).detection!;
+    expect(d.epaMdl).toEqual(mdlOf(ex.spiked, ex.blanks));
+    expectRel(d.epaMdl!.mdlSpiked, ex.MDL_s, 1e-12, 'MDL_s of the seven left');
+    expectRel(d.epaMdl!.mdlBlank, ex.MDL_b, 1e-12, 'MDL_b of the seven left');
+    // The multiplier is t(6, 0.99) of the regulation's printed table (n = 7 kept, not n = 8 entered).
+    const printed = loadCsv('epa_mdl_t_values.csv').find((row) => row.n === '7')!;
+    expectAbs(d.epaMdl!.mdlSpiked! / ex.S_s, printed.printed_table, 5e-4, 't(6, 0.99), printed');
+    expect(d.excludedSpikes).toEqual([{ index: 3, label: 'spike 4', value: 2.4, reason: 'spiked twice' }]);
+    expect(d.excludedMdlBlanks).toEqual([{ index: 0, label: 'method blank 1', value: 0.9, reason: 'contaminated vial' }]);
   });
 
   it('no blank with a numerical result: MDL_b does not apply', () => {

@@ -235,6 +235,10 @@ export interface DetectionResult {
   flagBasis: DetectionApproach | null;
   /** Method blanks the analyst excluded; none of them enters a blank-based figure or outlier test. */
   excludedBlanks: ExcludedRow[];
+  /** Low-level spike results the analyst excluded, none of them in the MDL; absent when none is. */
+  excludedSpikes?: ExcludedRow[];
+  /** Method blanks of the MDL procedure the analyst excluded (value null: no numerical result); absent when none is. */
+  excludedMdlBlanks?: ExcludedMdlBlank[];
 }
 
 export interface RecoveryItemResult {
@@ -263,6 +267,10 @@ export interface ExcludedRow {
   label: string;
   value: number;
   reason: string;
+}
+
+export interface ExcludedMdlBlank extends Omit<ExcludedRow, 'value'> {
+  value: number | null;
 }
 
 export interface RecoveryResult {

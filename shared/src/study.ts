@@ -78,10 +78,45 @@ export function usedBlanks(blanks: readonly Blank[] | undefined): number[] | und
   return blanks?.flatMap((b) => (typeof b === 'number' ? [b] : b.excluded ? [] : [b.value]));
 }
 
+/** A low-level spike result: a plain number, or the result with the analyst's reason for leaving it out. */
+export interface SpikeResult {
+  value: number;
+  excluded?: Exclusion;
+}
+export type Spike = number | SpikeResult;
+
+/** A method blank of the MDL procedure (x units; null = no numerical result), plain or with a reason for leaving it out. */
+export interface MdlBlankResult {
+  value: number | null;
+  excluded?: Exclusion;
+}
+export type MdlBlank = number | null | MdlBlankResult;
+
+export function spikeValue(spike: Spike): number {
+  return typeof spike === 'number' ? spike : spike.value;
+}
+
+export function mdlBlankValue(blank: MdlBlank): number | null {
+  return blank !== null && typeof blank === 'object' ? blank.value : blank;
+}
+
+/** The exclusion of a low-level spike or MDL blank, if the analyst left it out. */
+export function lowSpikeExclusion(entry: Spike | MdlBlank): Exclusion | undefined {
+  return entry !== null && typeof entry === 'object' ? entry.excluded : undefined;
+}
+
 export interface LowSpikes {
-  spiked: number[];
+  spiked: Spike[];
   /** Method blank results in x units; null = no numerical result. */
-  blanks?: (number | null)[];
+  blanks?: MdlBlank[];
+}
+
+/** The low-level spike and MDL blank results that enter the MDL. */
+export function usedLowSpikes(lowSpikes: LowSpikes): { spiked: number[]; blanks: (number | null)[] } {
+  return {
+    spiked: lowSpikes.spiked.filter((s) => !lowSpikeExclusion(s)).map(spikeValue),
+    blanks: (lowSpikes.blanks ?? []).filter((b) => !lowSpikeExclusion(b)).map(mdlBlankValue),
+  };
 }
 
 export interface Criterion {

@@ -11,8 +11,11 @@ import {
   type CriterionOp,
   type Exclusion,
   type LowSpikes,
+  type MdlBlank,
+  type MdlBlankResult,
   type PrecisionResult,
   type RecoveryItem,
+  type Spike,
   type StandardPoint,
   type Study,
   type UnknownSample,
@@ -259,14 +262,27 @@ function parsePrecision(c: Collector, value: unknown): PrecisionResult[] | undef
   });
 }
 
+/** One entry of a low-level spike list: a value as such, or `{ value, excluded }` (`nullable`: a blank without a number). */
+function parseLowSpikeEntry(c: Collector, item: unknown, field: string, nullable: boolean): MdlBlank {
+  const value = (v: unknown, at: string) => (nullable && v === null ? null : (c.number(v, at) ?? (nullable ? null : NaN)));
+  if (typeof item !== 'object' || item === null || Array.isArray(item)) return value(item, field);
+  c.onlyKeys(item as Json, ['value', 'excluded'], field);
+  const entry: MdlBlankResult = { value: value((item as Json).value, `${field}.value`) };
+  const excluded = parseExclusion(c, (item as Json).excluded, field);
+  if (excluded) entry.excluded = excluded;
+  return entry;
+}
+
 function parseLowSpikes(c: Collector, value: unknown): LowSpikes | undefined {
   if (value === undefined) return undefined;
   if (!c.isObject(value, 'lowSpikes')) return undefined;
   c.onlyKeys(value, ['spiked', 'blanks'], 'lowSpikes');
-  const spiked = c.numbers(value.spiked, 'lowSpikes.spiked') ?? [];
+  const spiked = c.isArray(value.spiked, 'lowSpikes.spiked')
+    ? value.spiked.map((s, i) => parseLowSpikeEntry(c, s, `lowSpikes.spiked[${i}]`, false) as Spike)
+    : [];
   const result: LowSpikes = { spiked };
   if (value.blanks !== undefined && c.isArray(value.blanks, 'lowSpikes.blanks')) {
-    result.blanks = value.blanks.map((b, i) => (b === null ? null : (c.number(b, `lowSpikes.blanks[${i}]`) ?? null)));
+    result.blanks = value.blanks.map((b, i) => parseLowSpikeEntry(c, b, `lowSpikes.blanks[${i}]`, true));
   }
   return result;
 }

@@ -63,4 +63,17 @@ describe('diffStudyData', () => {
       { section: 'lowSpikes.spiked', added: [], removed: [{ key: '#2', row: 0.21 }], changed: [] },
     ]);
   });
+
+  it('should show a low-level spike or blank newly excluded as its exclusion, not as a new value', () => {
+    const reason = { reason: 'spiked twice by mistake' };
+    const after = {
+      ...before,
+      lowSpikes: { spiked: [0.2, { value: 0.21, excluded: reason }], blanks: [{ value: null, excluded: reason }] },
+    };
+    const withBlank = { ...before, lowSpikes: { spiked: [0.2, 0.21], blanks: [null] } };
+    expect(diffStudyData(withBlank, after).sections).toEqual([
+      { section: 'lowSpikes.spiked', added: [], removed: [], changed: [{ key: '#2', field: 'excluded', from: null, to: reason }] },
+      { section: 'lowSpikes.blanks', added: [], removed: [], changed: [{ key: '#1', field: 'excluded', from: null, to: reason }] },
+    ]);
+  });
 });

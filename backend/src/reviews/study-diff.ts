@@ -23,7 +23,12 @@ function keyed(rows: unknown[]): Map<string, unknown> {
   return map;
 }
 
-function rowChanges(key: string, before: unknown, after: unknown): RowChange[] {
+/** A plain value next to its `{ value, excluded }` form is the same row: the change is its exclusion, not its value. */
+const asRecord = (row: unknown, other: unknown) => (!isRecord(row) && isRecord(other) && 'value' in other ? { value: row } : row);
+
+function rowChanges(key: string, rowBefore: unknown, rowAfter: unknown): RowChange[] {
+  const before = asRecord(rowBefore, rowAfter);
+  const after = asRecord(rowAfter, rowBefore);
   if (!isRecord(before) || !isRecord(after)) return same(before, after) ? [] : [{ key, field: 'value', from: before, to: after }];
   const fields = [...new Set([...Object.keys(before), ...Object.keys(after)])].sort();
   return fields

@@ -93,23 +93,27 @@ function mergeMeta(current: StudyMeta, update: StudyMetaDto | undefined): StudyM
 const changed = (from: unknown, to: unknown) => canonicalJson(from) !== canonicalJson(to);
 
 type ExcludableRow = { excluded?: { reason?: string } };
-const EXCLUDABLE_SECTIONS = ['standards', 'blanks', 'recovery', 'precision'] as const;
-const rowsOf = (data: StudyData, section: string): ExcludableRow[] =>
-  Array.isArray(data[section]) ? (data[section] as ExcludableRow[]) : [];
+const EXCLUDABLE_SECTIONS = ['standards', 'blanks', 'recovery', 'precision', 'lowSpikes.spiked', 'lowSpikes.blanks'] as const;
+/** The rows of a section by its path (`lowSpikes.spiked`); plain numbers and nulls are rows without an exclusion. */
+const rowsOf = (data: StudyData, section: string): (ExcludableRow | number | null)[] => {
+  const rows = section.split('.').reduce<unknown>((value, key) => (value as Record<string, unknown> | undefined)?.[key], data);
+  return Array.isArray(rows) ? (rows as (ExcludableRow | number | null)[]) : [];
+};
+const exclusionOf = (row: ExcludableRow | number | null | undefined) =>
+  row !== null && typeof row === 'object' ? row.excluded : undefined;
 
 /** One audit entry per row newly excluded (with its reason) or included again, by section and position. */
 function exclusionEntries(before: StudyData, after: StudyData, actor: AuthUser, studyId: string): AuditRecord[] {
   return EXCLUDABLE_SECTIONS.flatMap((section) => {
     const old = rowsOf(before, section);
     return rowsOf(after, section).flatMap((row, i): AuditRecord[] => {
-      const was = old[i]?.excluded?.reason;
-      const is = row?.excluded?.reason;
+      const was = exclusionOf(old[i]);
+      const is = exclusionOf(row);
       const entry = { actor, entity: 'study', entityId: studyId };
       const path = `${section}[${i}].excluded`;
-      if (is && !was)
-        return [{ ...entry, action: 'study.point-excluded', changes: { [path]: { from: null, to: row.excluded } }, reason: is }];
-      if (was && !is && old[i])
-        return [{ ...entry, action: 'study.point-included', changes: { [path]: { from: old[i].excluded, to: null } } }];
+      if (is?.reason && !was?.reason)
+        return [{ ...entry, action: 'study.point-excluded', changes: { [path]: { from: null, to: is } }, reason: is.reason }];
+      if (was?.reason && !is?.reason) return [{ ...entry, action: 'study.point-included', changes: { [path]: { from: was, to: null } } }];
       return [];
     });
   });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { describeStudyChange } from '../catalogue/index.js';
+import { auditFieldLabel, describeStudyChange } from '../catalogue/index.js';
 
 describe('changes of a study in words', () => {
   it('names the part changed and says before and after, never a path', () => {
@@ -22,5 +22,16 @@ describe('changes of a study in words', () => {
       'Recovery, row 3, excluded: nothing → excluded (vial spilt)',
     ]);
     expect(lines.join(' ')).not.toMatch(/\[|\]|meta\.|data\./);
+  });
+
+  it('says which low-level spike or MDL blank was excluded, in the audit trail and in the review', () => {
+    expect(describeStudyChange('lowSpikes.spiked[2].excluded', null, { reason: 'spiked twice' })).toBe(
+      'Low-level spikes, row 3, excluded: nothing → excluded (spiked twice)',
+    );
+    expect(describeStudyChange('data.lowSpikes.blanks[#1].excluded', { reason: 'contaminated vial' }, null)).toBe(
+      'Method blanks (detection limit), row 1, excluded: excluded (contaminated vial) → nothing',
+    );
+    expect(auditFieldLabel('lowSpikes.spiked[2].excluded')).toBe('Low-level spike 3 excluded');
+    expect(auditFieldLabel('lowSpikes.blanks[0].excluded')).toBe('Method blank (detection limit) 1 excluded');
   });
 });

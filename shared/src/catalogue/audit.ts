@@ -27,8 +27,8 @@ export const AUDIT_ACTION_LABELS: Record<string, string> = {
   'study.imported': 'Study imported',
   'study.updated': 'Study changed',
   'study.deleted': 'Study deleted',
-  'study.point-excluded': 'Standard excluded from the calculation',
-  'study.point-included': 'Standard included again',
+  'study.point-excluded': 'Point excluded from the calculation',
+  'study.point-included': 'Point included again',
   'study.submitted': 'Study submitted for review',
   'study.returned': 'Study returned for changes',
   'study.review-approved': 'Study approved by the reviewer, awaiting release',
@@ -147,6 +147,9 @@ export const AUDIT_FIELD_LABELS: Record<string, string> = {
 export function auditFieldLabel(field: string): string {
   const standard = /^standards\[(\d+)\]\.excluded$/.exec(field);
   if (standard) return `Standard ${Number(standard[1]) + 1} excluded`;
+  const lowSpike = /^lowSpikes\.(spiked|blanks)\[(\d+)\]\.excluded$/.exec(field);
+  if (lowSpike)
+    return `${lowSpike[1] === 'spiked' ? 'Low-level spike' : 'Method blank (detection limit)'} ${Number(lowSpike[2]) + 1} excluded`;
   if (AUDIT_FIELD_LABELS[field]) return AUDIT_FIELD_LABELS[field];
   const words = field
     .replace(/\[(\d+)\]/g, ' $1 ')

@@ -8,7 +8,17 @@ import type {
   Iso11843Limits,
   LimitPair,
 } from '../result.js';
-import { usedBlanks, type Blank, type Criterion, type LowSpikes } from '../study.js';
+import {
+  lowSpikeExclusion,
+  mdlBlankValue,
+  usedBlanks,
+  usedLowSpikes,
+  type Blank,
+  type Criterion,
+  type LowSpikes,
+  type MdlBlank,
+  type Spike,
+} from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { detectionDelta, studentQuantile } from './distributions.js';
 import { fitLine, type RegressionCore } from './regression.js';
@@ -123,18 +133,26 @@ function hubauxVos(line: RegressionCore | null, alpha: number, warn: Warn): Huba
   };
 }
 
-/** 40 CFR Part 136 Appendix B Rev. 2: MDL from spiked samples and from method blanks. */
+/** "(6 given)", or with exclusions "(6 used, 1 excluded)": a count rule judged on the rows used. */
+const countNote = (used: number, excluded: number) => (excluded > 0 ? `${used} used, ${excluded} excluded` : `${used} given`);
+
+/** 40 CFR Part 136 Appendix B Rev. 2: MDL from spiked samples and from method blanks; excluded rows enter neither. */
 export function epaMdl(lowSpikes: LowSpikes | undefined, warn: Warn): EpaMdlResult | null {
   if (!lowSpikes) return null;
-  const spiked = lowSpikes.spiked;
-  const blanks = lowSpikes.blanks ?? [];
+  const { spiked, blanks } = usedLowSpikes(lowSpikes);
+  const spikedOut = lowSpikes.spiked.length - spiked.length;
+  const blanksOut = (lowSpikes.blanks?.length ?? 0) - blanks.length;
   let mdlSpiked: number | null = null;
   if (spiked.length >= 2) {
     if (spiked.length < 7)
-      warn('detection', 'too_few_spikes', `the MDL procedure asks for at least 7 spiked samples (${spiked.length} given)`);
+      warn('detection', 'too_few_spikes', `the MDL procedure asks for at least 7 spiked samples (${countNote(spiked.length, spikedOut)})`);
     mdlSpiked = studentQuantile(0.99, spiked.length - 1) * (sd(spiked) ?? 0);
-  } else if (spiked.length > 0) {
-    warn('detection', 'too_few_spikes', 'MDL_s needs at least 2 spiked samples');
+  } else if (spiked.length > 0 || spikedOut > 0) {
+    warn(
+      'detection',
+      'too_few_spikes',
+      `MDL_s needs at least 2 spiked samples${spikedOut > 0 ? ` (${countNote(spiked.length, spikedOut)})` : ''}`,
+    );
   }
   let mdlBlank: number | null = null;
   let blankRule: EpaMdlResult['blankRule'] = null;
@@ -155,8 +173,14 @@ export function epaMdl(lowSpikes: LowSpikes | undefined, warn: Warn): EpaMdlResu
       blankRule = 'mean-plus-t-sd';
       mdlBlank = Math.max(mean(numeric), 0) + studentQuantile(0.99, numeric.length - 1) * (sd(numeric) ?? 0);
     } else {
-      warn('detection', 'too_few_blanks', 'MDL_b from numerical blanks needs at least 2 method blanks');
+      warn(
+        'detection',
+        'too_few_blanks',
+        `MDL_b from numerical blanks needs at least 2 method blanks${blanksOut > 0 ? ` (${countNote(blanks.length, blanksOut)})` : ''}`,
+      );
     }
+  } else if (blanksOut > 0) {
+    warn('detection', 'too_few_blanks', `MDL_b needs method blanks (${countNote(0, blanksOut)})`);
   }
   if (mdlSpiked === null && mdlBlank === null) return null;
   const governing = mdlBlank !== null && (mdlSpiked === null || mdlBlank > mdlSpiked) ? 'blank' : 'spiked';
@@ -186,6 +210,38 @@ function excludedBlanks(blanks: readonly Blank[] | undefined, warn: Warn): Exclu
   return excluded;
 }
 
+/** Low-level spike results and MDL blanks the analyst left out, warned with their count and reasons like the blanks. */
+function excludedLowSpikes(lowSpikes: LowSpikes | undefined, warn: Warn): Pick<DetectionResult, 'excludedSpikes' | 'excludedMdlBlanks'> {
+  if (!lowSpikes) return {};
+  const rows = <T extends Spike | MdlBlank>(list: readonly T[], noun: string) =>
+    list.flatMap((entry, index) => {
+      const excluded = lowSpikeExclusion(entry);
+      return excluded ? [{ index, label: `${noun} ${index + 1}`, value: mdlBlankValue(entry), reason: excluded.reason }] : [];
+    });
+  const spikes = rows(lowSpikes.spiked, 'spike') as ExcludedRow[];
+  const blanks = rows(lowSpikes.blanks ?? [], 'method blank');
+  const report = (count: number, total: number, noun: string, reasons: string[]) => {
+    if (count === 0) return;
+    const plural = count === 1 ? '' : 's';
+    warn('detection', 'excluded', `${count} ${noun}${plural} excluded by the analyst: ${[...new Set(reasons)].join('; ')}`);
+    if (count === total) warn('detection', 'all_excluded', `every ${noun} is excluded`);
+  };
+  report(
+    spikes.length,
+    lowSpikes.spiked.length,
+    'low-level spike result',
+    spikes.map((row) => row.reason),
+  );
+  report(
+    blanks.length,
+    lowSpikes.blanks?.length ?? 0,
+    'method blank of the MDL',
+    blanks.map((row) => row.reason),
+  );
+  // Present only when rows are excluded, so results of studies without exclusions keep their exact shape.
+  return { ...(spikes.length ? { excludedSpikes: spikes } : {}), ...(blanks.length ? { excludedMdlBlanks: blanks } : {}) };
+}
+
 export function detection(
   fit: CalibrationFit | null,
   allBlanks: readonly Blank[] | undefined,
@@ -195,6 +251,7 @@ export function detection(
   warn: Warn,
 ): DetectionResult | null {
   const excluded = excludedBlanks(allBlanks, warn);
+  const excludedLowSpikeRows = excludedLowSpikes(lowSpikes, warn);
   const blanks = usedBlanks(allBlanks);
   const line = fit?.core ? unweightedLine(fit, warn) : null;
   if (!fit && blanks && blanks.length > 0) warn('detection', 'no_calibration', 'blank-based limits need a calibration slope');
@@ -207,6 +264,7 @@ export function detection(
     epaMdl: epaMdl(lowSpikes, warn),
     flagBasis: null,
     excludedBlanks: excluded,
+    ...excludedLowSpikeRows,
   };
   const named = criteria
     .map((c) => c.figure.split('.'))

@@ -41,6 +41,10 @@ function limitsOf(
   }
 }
 
+/** The rows left out of the MDL; the exclusions section lists them with their reasons. */
+const excludedNote = (rows: readonly unknown[] | undefined) =>
+  rows?.length ? ` (${rows.length} more excluded, see section ${numbered('outliers', '', 2).trim()})` : '';
+
 const ORDER: DetectionApproach[] = ['sdResidual', 'sdIntercept', 'blankSd', 'iso11843', 'hubauxVos', 'epaMdl'];
 
 export function detectionSection(pdf: PdfComposer, content: ReportContent): void {
@@ -127,7 +131,8 @@ export function detectionSection(pdf: PdfComposer, content: ReportContent): void
     };
     details.push([
       'MDL (40 CFR 136 App. B)',
-      `from ${epaMdl.nSpiked} spiked samples ${withUnit(formatNumber(epaMdl.mdlSpiked, 3), x)}; from ${epaMdl.nBlanks} method blanks ${withUnit(formatNumber(epaMdl.mdlBlank, 3), x)}` +
+      `from ${epaMdl.nSpiked} spiked samples${excludedNote(detection.excludedSpikes)} ${withUnit(formatNumber(epaMdl.mdlSpiked, 3), x)}; ` +
+        `from ${epaMdl.nBlanks} method blanks${excludedNote(detection.excludedMdlBlanks)} ${withUnit(formatNumber(epaMdl.mdlBlank, 3), x)}` +
         `${epaMdl.blankRule ? ` (${rule[epaMdl.blankRule]})` : ''}; the larger, from the ${epaMdl.governing === 'spiked' ? 'spiked samples' : 'method blanks'}, governs`,
     ]);
   }

@@ -1,4 +1,4 @@
-import type { OutlierFlag } from '@meritline/shared';
+import { lowSpikeExclusion, mdlBlankValue, spikeValue, type OutlierFlag } from '@meritline/shared';
 import { formatDateTime, formatLevel, formatNumber, NOT_AVAILABLE, type PdfComposer, type TableRow } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { notEvaluated, plural, sectionWarnings, xUnit, yUnit } from './common.js';
@@ -17,12 +17,14 @@ const SET_WORDS: Record<string, string> = {
   recovery: 'spiked sample',
   precision: 'precision result',
   unknowns: 'sample',
+  'lowSpikes.spiked': 'low-level spike',
+  'lowSpikes.blanks': 'method blank for the MDL',
 };
 
 type Exclusion = ReportContent['exclusions'][number];
 
 function pointOf(text: string): { set: string; index: number } | null {
-  const match = /(standards|blanks|recovery|precision|unknowns)(?:\[|\.)(\d+)/.exec(text);
+  const match = /(lowSpikes\.spiked|lowSpikes\.blanks|standards|blanks|recovery|precision|unknowns)(?:\[|\.)(\d+)/.exec(text);
   return match ? { set: match[1], index: Number(match[2]) } : null;
 }
 
@@ -52,6 +54,7 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
       return entry.action.endsWith('excluded') && point?.set === set && point.index === index;
     });
   const data = content.study.data;
+  const withUnit = (value: number) => `${formatNumber(value, 5)} ${xUnit(content)}`;
   const replicates = [
     ...(data.blanks ?? []).flatMap((b, index) =>
       typeof b !== 'number' && b.excluded
@@ -66,6 +69,27 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
           ]
         : [],
     ),
+    ...(data.lowSpikes?.spiked ?? []).flatMap((s, index) => {
+      const excluded = lowSpikeExclusion(s);
+      return excluded
+        ? [{ set: 'lowSpikes.spiked', what: 'Low-level spike', index, value: withUnit(spikeValue(s)), reason: excluded.reason }]
+        : [];
+    }),
+    ...(data.lowSpikes?.blanks ?? []).flatMap((b, index) => {
+      const excluded = lowSpikeExclusion(b);
+      const value = mdlBlankValue(b);
+      return excluded
+        ? [
+            {
+              set: 'lowSpikes.blanks',
+              what: 'Method blank for the MDL',
+              index,
+              value: value === null ? 'no numerical result' : withUnit(value),
+              reason: excluded.reason,
+            },
+          ]
+        : [];
+    }),
     ...(data.recovery ?? []).flatMap((r, index) =>
       r.excluded
         ? [
@@ -140,7 +164,7 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
           record ? formatDateTime(record.at) : NOT_AVAILABLE,
         ];
       }),
-      note: 'Excluded results stay in the study data but enter no blank, recovery or precision figure.',
+      note: 'Excluded results stay in the study data but enter no blank, detection limit, recovery or precision figure.',
     });
   }
   if (content.exclusions.length) {

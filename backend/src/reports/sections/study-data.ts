@@ -1,4 +1,13 @@
-import { blankValue, describeCriterion, type StudyInput } from '@meritline/shared';
+import {
+  blankValue,
+  describeCriterion,
+  lowSpikeExclusion,
+  mdlBlankValue,
+  spikeValue,
+  type MdlBlank,
+  type Spike,
+  type StudyInput,
+} from '@meritline/shared';
 import { colors, NOT_AVAILABLE, type PdfComposer } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { STUDY_DATA_ATTACHMENT } from './methods.js';
@@ -53,8 +62,13 @@ export function studyDataAppendix(pdf: PdfComposer, content: ReportContent): voi
     lines.push([`Blanks (${y})`, `${list(data.blanks.map(blankValue))}${note}`]);
   }
   if (data.lowSpikes) {
-    lines.push([`Low-level spikes (${x})`, list(data.lowSpikes.spiked)]);
-    if (data.lowSpikes.blanks) lines.push([`Method blanks (${x})`, list(data.lowSpikes.blanks)]);
+    const excludedOf = (entries: readonly (Spike | MdlBlank)[], noun: string) => {
+      const excluded = entries.flatMap((entry, i) => (lowSpikeExclusion(entry) ? [`${noun} ${i + 1}`] : []));
+      return excluded.length ? `; excluded: ${excluded.join(', ')}` : '';
+    };
+    const { spiked, blanks } = data.lowSpikes;
+    lines.push([`Low-level spikes (${x})`, `${list(spiked.map(spikeValue))}${excludedOf(spiked, 'spike')}`]);
+    if (blanks) lines.push([`Method blanks (${x})`, `${list(blanks.map(mdlBlankValue))}${excludedOf(blanks, 'method blank')}`]);
   }
   for (const u of data.unknowns ?? [])
     lines.push([`Sample ${u.id} (${y})`, `${list(u.y)}${u.dilution && u.dilution !== 1 ? `; dilution ${u.dilution}` : ''}`]);

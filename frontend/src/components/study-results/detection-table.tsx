@@ -1,5 +1,5 @@
-import { type DetectionApproach, type EvaluationResult, formatNumber, withUnit } from '@meritline/shared';
-import { Text } from '@chakra-ui/react';
+import { type DetectionApproach, type EvaluationResult, formatLevel, formatNumber, withUnit } from '@meritline/shared';
+import { Stack, Text } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
 import { criteriaUnder, type JudgedCriterion } from './judge-criteria';
@@ -45,6 +45,8 @@ const columns = column.columns([
   column.display({ id: 'criterion', header: 'Criterion', cell: (info) => <CriterionCell criteria={info.row.original.criteria} /> }),
   column.display({ id: 'outcome', header: 'Outcome', cell: (info) => <OutcomeCell criteria={info.row.original.criteria} /> }),
 ]);
+
+const moreExcluded = (rows: readonly unknown[] | undefined) => (rows?.length ? ` (${rows.length} more excluded)` : '');
 
 export function detectionRows(result: EvaluationResult, units: StudyUnits, judged: readonly JudgedCriterion[]): DetectionRow[] {
   const d = result.detection;
@@ -109,7 +111,7 @@ export function detectionRows(result: EvaluationResult, units: StudyUnits, judge
       critical: '—',
       detection: x(m.mdl),
       quantitation: '—',
-      basis: `From ${m.nSpiked} low-level spikes: ${x(m.mdlSpiked)}; from ${m.nBlanks} method blanks: ${
+      basis: `From ${m.nSpiked} low-level spikes${moreExcluded(d.excludedSpikes)}: ${x(m.mdlSpiked)}; from ${m.nBlanks} method blanks${moreExcluded(d.excludedMdlBlanks)}: ${
         m.mdlBlank === null ? 'none' : x(m.mdlBlank)
       }; the higher (${m.governing === 'spiked' ? 'spikes' : 'blanks'}) governs`,
     });
@@ -127,5 +129,62 @@ export function DetectionTable({ result, units, judged }: JudgedFiguresProps) {
       getRowId={(row) => row.approach}
       emptyTitle="No detection limit could be computed"
     />
+  );
+}
+
+interface ExcludedDetectionRow {
+  id: string;
+  what: string;
+  value: string;
+  reason: string;
+}
+
+const excludedColumn = dataTableColumns<ExcludedDetectionRow>();
+const excludedColumns = excludedColumn.columns([
+  excludedColumn.accessor('what', { header: 'Result left out' }),
+  excludedColumn.accessor('value', { header: 'Value', meta: { align: 'end' } }),
+  excludedColumn.accessor('reason', {
+    header: 'Reason given',
+    cell: (info) => (
+      <Text whiteSpace="normal" minW="14rem" maxW="28rem">
+        {info.getValue()}
+      </Text>
+    ),
+  }),
+]);
+
+/** The blanks, low-level spikes and MDL blanks the analyst excluded from the limits, with the reasons given. */
+export function DetectionExclusions({ result, units }: Pick<JudgedFiguresProps, 'result' | 'units'>) {
+  const d = result.detection;
+  // Entered values, printed as entered.
+  const value = (v: number | null, unit: string | undefined) => (v === null ? 'not detected' : withUnit(formatLevel(v), unit));
+  const rows: ExcludedDetectionRow[] = [
+    ...(d?.excludedBlanks ?? []).map((row) => ({
+      id: `b${row.index}`,
+      what: `Blank, row ${row.index + 1}`,
+      value: value(row.value, units.y),
+      reason: row.reason,
+    })),
+    ...(d?.excludedSpikes ?? []).map((row) => ({
+      id: `s${row.index}`,
+      what: `Low-level spike, row ${row.index + 1}`,
+      value: value(row.value, units.x),
+      reason: row.reason,
+    })),
+    ...(d?.excludedMdlBlanks ?? []).map((row) => ({
+      id: `m${row.index}`,
+      what: `Method blank for the MDL, row ${row.index + 1}`,
+      value: value(row.value, units.x),
+      reason: row.reason,
+    })),
+  ];
+  if (rows.length === 0) return null;
+  return (
+    <Stack gap="2">
+      <Text fontWeight="600" fontSize="sm">
+        Excluded from the limits
+      </Text>
+      <DataTable label="Results excluded from the detection limits" columns={excludedColumns} data={rows} getRowId={(row) => row.id} />
+    </Stack>
   );
 }

@@ -1,7 +1,7 @@
 import { Stack } from '@chakra-ui/react';
 import { AccuracyProfilePlot, AccuracyProfileTables, TruenessSummary } from './accuracy-profile';
 import { CalibrationTable, LevelsTable, LinearityTable } from './calibration-figures';
-import { DetectionTable } from './detection-table';
+import { DetectionExclusions, DetectionTable } from './detection-table';
 import { FigureSection } from './figure-section';
 import { judgeCriteria } from './judge-criteria';
 import { OutliersTable } from './outliers-table';
@@ -57,6 +57,7 @@ export function StudyFigures({ data, result, units, criteria }: StudyResultsProp
         available={Boolean(result.detection)}
       >
         <DetectionTable result={result} units={units} judged={judged} />
+        <DetectionExclusions result={result} units={units} />
       </FigureSection>
       {result.unknowns && (
         <FigureSection id="fig-unknowns" title="Samples read off the calibration" sections={['unknowns']} result={result} available>

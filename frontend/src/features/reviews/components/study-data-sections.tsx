@@ -1,4 +1,4 @@
-import { blankValue, formatLevel, formatNumber, type StudyInput } from '@meritline/shared';
+import { blankValue, formatLevel, formatNumber, lowSpikeExclusion, mdlBlankValue, spikeValue, type StudyInput } from '@meritline/shared';
 import { Heading, Stack, Text } from '@chakra-ui/react';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
@@ -101,16 +101,19 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
         data.lowSpikes?.spiked.length &&
           section(
             'Low-level spikes (detection limit)',
-            ['#', withUnit('Spiked result', units.x)],
-            data.lowSpikes.spiked.map((v, i) => ({ id: `l${i}`, cells: [i + 1, v] })),
-            [true, true],
+            ['#', withUnit('Spiked result', units.x), 'Excluded because'],
+            data.lowSpikes.spiked.map((v, i) => ({ id: `l${i}`, cells: [i + 1, spikeValue(v), lowSpikeExclusion(v)?.reason ?? ''] })),
+            [true, true, false],
           ),
         data.lowSpikes?.blanks?.length &&
           section(
             'Method blanks (detection limit)',
-            ['#', withUnit('Blank result', units.x)],
-            data.lowSpikes.blanks.map((v, i) => ({ id: `mb${i}`, cells: [i + 1, v === null ? 'not detected' : v] })),
-            [true, true],
+            ['#', withUnit('Blank result', units.x), 'Excluded because'],
+            data.lowSpikes.blanks.map((v, i) => ({
+              id: `mb${i}`,
+              cells: [i + 1, mdlBlankValue(v) ?? 'not detected', lowSpikeExclusion(v)?.reason ?? ''],
+            })),
+            [true, true, false],
           ),
       ].filter((s): s is ReturnType<typeof section> => Boolean(s)),
     [data, units.x, units.y],

@@ -17,8 +17,10 @@ export interface GridColumn {
 export interface GridRow {
   id: string;
   cells: Record<string, string>;
-  /** Standards, recovery and precision rows: left out of every computation, with the analyst's reason. */
+  /** Standards, blanks, recovery and precision rows: left out of every computation, with the analyst's reason. */
   excluded?: { reason: string; test?: string };
+  /** Low-level spike rows hold two results (a spike, a method blank): each is left out on its own, by column key. */
+  excludedCells?: Record<string, { reason: string; test?: string }>;
   /** Standards rows: the saved standard preparation the concentration was taken from. */
   preparationId?: string;
 }
@@ -161,6 +163,12 @@ export function sectionColumns(section: ImportSection, units: SectionUnits): Gri
       ];
   }
 }
+
+/** The exclusion of one cell: the row's own, or the cell's in a section whose columns are results of their own. */
+export const cellExclusion = (row: GridRow, key: string) => row.excluded ?? row.excludedCells?.[key];
+
+/** How many results a row leaves out: 1 for an excluded row, else its excluded cells. */
+export const excludedCount = (row: GridRow) => (row.excluded ? 1 : Object.keys(row.excludedCells ?? {}).length);
 
 export const isBlankRow = (row: GridRow, columns: readonly GridColumn[]) => columns.every((c) => (row.cells[c.key] ?? '').trim() === '');
 

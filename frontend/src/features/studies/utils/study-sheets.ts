@@ -60,6 +60,11 @@ const exclusionOf = (excluded: Exclusion | undefined): Exclusion | undefined =>
   excluded ? { reason: excluded.reason, ...(excluded.test ? { test: excluded.test } : {}) } : undefined;
 const exclusionField = (row: GridRow) => (row.excluded ? { excluded: exclusionOf(row.excluded) } : {});
 
+/** A low-level spike or MDL blank as stored: a value (null: no numerical result) or the value with its exclusion. */
+type LowSpikeEntry = number | null | { value: number | null; excluded?: Exclusion };
+const entryOf = (entry: LowSpikeEntry) =>
+  entry !== null && typeof entry === 'object' ? { value: entry.value, excluded: exclusionOf(entry.excluded) } : { value: entry };
+
 const text = (value: unknown) => (value === undefined || value === null ? '' : String(value));
 const list = <T>(value: unknown): T[] => (Array.isArray(value) ? (value as T[]) : []);
 
@@ -72,12 +77,21 @@ export function dataToDraft(data: Record<string, unknown>): DataDraft {
   const unknowns = list<{ id: string; y: number[]; dilution?: number }>(data.unknowns).flatMap((u) =>
     (u.y.length > 0 ? u.y : [NaN]).map((y) => newRow({ id: u.id, y: Number.isNaN(y) ? '' : text(y), dilution: text(u.dilution) })),
   );
-  const spikes = (data.lowSpikes ?? {}) as { spiked?: number[]; blanks?: (number | null)[] };
+  const spikes = (data.lowSpikes ?? {}) as { spiked?: LowSpikeEntry[]; blanks?: LowSpikeEntry[] };
   const spiked = spikes.spiked ?? [];
   const spikeBlanks = spikes.blanks ?? [];
-  const lowSpikes = Array.from({ length: Math.max(spiked.length, spikeBlanks.length) }, (_, i) =>
-    newRow({ spiked: text(spiked[i]), blank: i < spikeBlanks.length ? (spikeBlanks[i] === null ? 'ND' : text(spikeBlanks[i])) : '' }),
-  );
+  const lowSpikes = Array.from({ length: Math.max(spiked.length, spikeBlanks.length) }, (_, i) => {
+    const spike = i < spiked.length ? entryOf(spiked[i]) : undefined;
+    const blank = i < spikeBlanks.length ? entryOf(spikeBlanks[i]) : undefined;
+    const excludedCells = {
+      ...(spike?.excluded ? { spiked: spike.excluded } : {}),
+      ...(blank?.excluded ? { blank: blank.excluded } : {}),
+    };
+    return {
+      ...newRow({ spiked: text(spike?.value), blank: blank ? (blank.value === null ? 'ND' : text(blank.value)) : '' }),
+      ...(Object.keys(excludedCells).length > 0 ? { excludedCells } : {}),
+    };
+  });
   const profile = (data.accuracyProfile ?? {}) as { beta?: number; lambda?: number };
   const uncertainty = (data.uncertainty ?? {}) as { coverageFactor?: number; relativeAbove?: number; uReferencePct?: number };
   const reference = (data.referenceMaterial ?? {}) as { certified?: number; uCertified?: number; results?: number[] };
@@ -178,12 +192,19 @@ export function draftToData({ settings, sheets, extras }: DataDraft): Record<str
   }
   if (unknowns.size > 0) data.unknowns = [...unknowns.values()];
 
+  // Like blanks, a low-level spike or MDL blank is written as a plain value unless it is excluded.
   const spikeRows = usableRows('lowSpikes', sheets.lowSpikes);
-  const spiked = spikeRows.flatMap((row) => (optionalNum(row.cells.spiked) === undefined ? [] : [num(row.cells.spiked)]));
+  const withExclusion = <T>(row: GridRow, key: string, value: T) => {
+    const excluded = exclusionOf(row.excludedCells?.[key]);
+    return excluded ? { value, excluded } : value;
+  };
+  const spiked = spikeRows.flatMap((row) =>
+    optionalNum(row.cells.spiked) === undefined ? [] : [withExclusion(row, 'spiked', num(row.cells.spiked))],
+  );
   const spikeBlanks = spikeRows.flatMap((row) => {
     const cell = (row.cells.blank ?? '').trim();
     if (cell === '') return [];
-    return [isNotDetected(cell) ? null : num(cell)];
+    return [withExclusion(row, 'blank', isNotDetected(cell) ? null : num(cell))];
   });
   if (spiked.length > 0 || spikeBlanks.length > 0) data.lowSpikes = { spiked, ...(spikeBlanks.length > 0 ? { blanks: spikeBlanks } : {}) };
 

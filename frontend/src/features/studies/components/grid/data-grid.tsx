@@ -1,7 +1,7 @@
 import { Box, chakra, IconButton, Table, Text } from '@chakra-ui/react';
 import { Fragment, useRef, useState, type ClipboardEvent, type KeyboardEvent, type ReactNode } from 'react';
 import { pasteIntoRows, isTablePaste } from '../../utils/grid-paste';
-import { isBlankRow, newRowId, rowProblems, type GridColumn, type GridRow } from '../../utils/grid-sections';
+import { cellExclusion, excludedCount, isBlankRow, newRowId, rowProblems, type GridColumn, type GridRow } from '../../utils/grid-sections';
 
 export interface DataGridProps {
   /** Names the grid for assistive technology and tests. */
@@ -87,7 +87,7 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
       text,
       { row, column },
     );
-    commit(pasted.filter((r) => !isBlankRow(r, columns) || r.excluded));
+    commit(pasted.filter((r) => !isBlankRow(r, columns) || excludedCount(r) > 0));
   };
 
   return (
@@ -138,9 +138,15 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
             {shown.map((row, r) => {
               const problems = rowProblems(row, columns);
               const spare = !readOnly && r === rows.length;
+              const reasons = row.excluded
+                ? [`Excluded: ${row.excluded.reason}`]
+                : columns.flatMap((c) => {
+                    const excluded = row.excludedCells?.[c.key];
+                    return excluded ? [`${c.label} excluded: ${excluded.reason}`] : [];
+                  });
               return (
                 <Fragment key={row.id}>
-                  <Table.Row bg={row.excluded ? 'bg.muted' : undefined} data-excluded={row.excluded ? 'true' : undefined}>
+                  <Table.Row bg={reasons.length ? 'bg.muted' : undefined} data-excluded={reasons.length ? 'true' : undefined}>
                     <Table.Cell textAlign="end" color="fg.muted" fontSize="xs" verticalAlign="top" pt="3">
                       {spare ? '+' : r + 1}
                     </Table.Cell>
@@ -159,7 +165,7 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
                             readOnly={readOnly}
                             inputMode={column.kind === 'text' ? 'text' : 'decimal'}
                             autoComplete="off"
-                            textDecoration={row.excluded ? 'line-through' : undefined}
+                            textDecoration={cellExclusion(row, column.key) ? 'line-through' : undefined}
                             onChange={(e) => setCell(r, column.key, e.target.value)}
                             onKeyDown={(e) => onKeyDown(e, r, c)}
                             onPaste={(e) => onPaste(e, r, c)}
@@ -191,13 +197,15 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
                       </Table.Cell>
                     )}
                   </Table.Row>
-                  {row.excluded && (
+                  {reasons.length > 0 && (
                     <Table.Row bg="bg.muted">
                       <Table.Cell />
                       <Table.Cell colSpan={columns.length + (readOnly ? 0 : 1)} pt="0" pb="2" px="3" fontSize="xs" color="fg.muted">
                         {/* Wraps and stays in view while the grid scrolls sideways, so that a long reason can be read on a phone. */}
                         <Box position="sticky" left="3" maxW="calc(100vw - 6rem)" whiteSpace="normal" overflowWrap="anywhere">
-                          Excluded: {row.excluded.reason}
+                          {reasons.map((reason, i) => (
+                            <Text key={i}>{reason}</Text>
+                          ))}
                         </Box>
                       </Table.Cell>
                     </Table.Row>

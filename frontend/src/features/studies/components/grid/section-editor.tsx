@@ -4,7 +4,7 @@ import type { ReactNode } from 'react';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import { downloadImportTemplate } from '../../api/import-study-file';
-import { isBlankRow, rowProblems, sectionColumns, type GridRow, type SectionUnits } from '../../utils/grid-sections';
+import { excludedCount, isBlankRow, rowProblems, sectionColumns, type GridRow, type SectionUnits } from '../../utils/grid-sections';
 import { DataGrid } from './data-grid';
 import { ImportDialog } from './import-dialog';
 import { PasteDialog } from './paste-dialog';
@@ -39,7 +39,7 @@ export function SectionEditor({
   const columns = sectionColumns(section, units);
   const filled = rows.filter((row) => !isBlankRow(row, columns));
   const withProblems = filled.filter((row) => Object.keys(rowProblems(row, columns)).length > 0).length;
-  const excluded = filled.filter((row) => row.excluded).length;
+  const excluded = filled.reduce((sum, row) => sum + excludedCount(row), 0);
 
   const downloadTemplate = () =>
     downloadImportTemplate(section).catch((error: unknown) =>

@@ -2,12 +2,15 @@ import { formatNumber } from '@meritline/shared';
 import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
 import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
-import { setSheet, useRowExclusion } from './exclusion';
+import { setSheet, useLowSpikeExclusion, useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+
+const excludedNote = (rows: readonly unknown[] | undefined) => (rows?.length ? ` (${rows.length} excluded)` : '');
 
 export function BlanksStep({ controller, live, units }: DataStepProps) {
   const { draft, server, editable, prepareImport, adopt } = controller;
   const exclusion = useRowExclusion(controller, 'blanks');
+  const lowSpikeExclusion = useLowSpikeExclusion(controller);
   const d = live.result?.detection;
   const x = (v: number | null | undefined) => `${formatNumber(v, 4)} ${units.x}`;
   return (
@@ -37,7 +40,8 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
           </Heading>
           <Text color="fg.muted">
             Results in concentration units, as for 40 CFR 136 App. B: at least seven spiked samples near the expected limit, and method
-            blank results. Write ND for a blank without a numerical result.
+            blank results. Write ND for a blank without a numerical result. A spike or blank lost to an assignable cause can be excluded
+            with a reason; the seven-sample minimum counts the results used.
           </Text>
           <SectionEditor
             studyId={server.id}
@@ -49,6 +53,7 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
             readOnly={!editable}
             prepareImport={prepareImport}
             onImported={adopt}
+            rowActions={lowSpikeExclusion.rowActions}
           />
         </Stack>
       </Stack>
@@ -69,6 +74,12 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
               <FigureLine label="ISO 11843-2 critical / detectable" value={`${x(d.iso11843.criticalX)} / ${x(d.iso11843.detectableX)}`} />
             )}
             {d.epaMdl && <FigureLine label="Method detection limit" value={x(d.epaMdl.mdl)} />}
+            {d.epaMdl && (
+              <FigureLine
+                label="Spikes / blanks used for the MDL"
+                value={`${d.epaMdl.nSpiked}${excludedNote(d.excludedSpikes)} / ${d.epaMdl.nBlanks}${excludedNote(d.excludedMdlBlanks)}`}
+              />
+            )}
           </Stack>
         ) : (
           <Text fontSize="sm" color="fg.muted">
@@ -77,6 +88,7 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
         )}
       </LivePanel>
       {exclusion.dialog}
+      {lowSpikeExclusion.dialog}
     </Grid>
   );
 }

@@ -1,4 +1,4 @@
-import { Button } from '@chakra-ui/react';
+import { Button, Menu, Portal } from '@chakra-ui/react';
 import { useState } from 'react';
 import * as yup from 'yup';
 import { FormDialog } from '@/components/form-dialog';
@@ -13,16 +13,20 @@ export const setSheet = (
   rows: GridRow[],
 ) => controller.change((d) => ({ ...d, data: { ...d.data, sheets: { ...d.data.sheets, [section]: rows } } }));
 
-type ExcludableSection = 'standards' | 'blanks' | 'recovery' | 'precision';
+type ExcludableSection = 'standards' | 'blanks' | 'recovery' | 'precision' | 'lowSpikes';
+/** What is excluded: a whole row, or one result of a low-level spike row (its spike or its method blank). */
+type ExclusionTarget = Exclude<ExcludableSection, 'lowSpikes'> | 'lowSpikes.spiked' | 'lowSpikes.blank';
 
 interface ExclusionWords {
   /** What a row is: "standard", "spiked sample", "result". */
   noun: string;
+  /** The menu's word for one of the two results of a row ("spike", "blank"); none for a whole row. */
+  short?: string;
   describe: (row: GridRow) => string;
   consequence: string;
 }
 
-const WORDS: Record<ExcludableSection, ExclusionWords> = {
+const WORDS: Record<ExclusionTarget, ExclusionWords> = {
   standards: {
     noun: 'standard',
     describe: (row) => `x = ${row.cells.x ?? '?'}, y = ${row.cells.y ?? '?'}`,
@@ -44,17 +48,44 @@ const WORDS: Record<ExcludableSection, ExclusionWords> = {
     describe: (row) => `${row.cells.value ?? '?'} (series ${row.cells.group || '?'})`,
     consequence: 'The result stays in the study, marked excluded, and is left out of the repeatability and intermediate precision.',
   },
+  'lowSpikes.spiked': {
+    noun: 'low-level spike result',
+    short: 'spike',
+    describe: (row) => `${row.cells.spiked ?? '?'}`,
+    consequence: 'The result stays in the study, marked excluded, and is left out of the method detection limit.',
+  },
+  'lowSpikes.blank': {
+    noun: 'method blank result',
+    short: 'blank',
+    describe: (row) => `${row.cells.blank ?? '?'}`,
+    consequence: 'The blank stays in the study, marked excluded, and is left out of the method detection limit.',
+  },
 };
 
 /** Excluding a standard takes a written reason and can be undone: the point stays in the data and leaves every computation. */
 export const useStandardExclusion = (controller: StudyDraftController) => useRowExclusion(controller, 'standards');
 
+/** A row's exclusion for the target: the row's own, or that of its cell (`column`). */
+const exclusionIn = (row: GridRow, column: string | undefined) => (column ? row.excludedCells?.[column] : row.excluded);
+
+function withExclusion(row: GridRow, column: string | undefined, excluded: { reason: string } | undefined): GridRow {
+  if (!column) {
+    const { excluded: _previous, ...rest } = row;
+    return excluded ? { ...rest, excluded } : rest;
+  }
+  const { [column]: _previous, ...others } = row.excludedCells ?? {};
+  const cells = excluded ? { ...others, [column]: excluded } : others;
+  const { excludedCells: _cells, ...rest } = row;
+  return Object.keys(cells).length > 0 ? { ...rest, excludedCells: cells } : rest;
+}
+
 /**
- * Excluding a row (a standard, a method blank, a spiked sample, a precision result) takes a written reason and can be
- * undone: the row stays in the data, marked, and leaves every computation.
+ * Excluding a row (a standard, a method blank, a spiked sample, a precision result), or one result of a low-level
+ * spike row (`column`: its spike or its method blank), takes a written reason and can be undone: the value stays
+ * in the data, marked, and leaves every computation.
  */
-export function useRowExclusion(controller: StudyDraftController, section: ExcludableSection) {
-  const words = WORDS[section];
+export function useRowExclusion(controller: StudyDraftController, section: ExcludableSection, column?: 'spiked' | 'blank') {
+  const words = WORDS[column ? (`lowSpikes.${column}` as const) : (section as Exclude<ExcludableSection, 'lowSpikes'>)];
   const describe = words.describe;
   const [target, setTarget] = useState<GridRow | null>(null);
   const rows = controller.draft.data.sheets[section];
@@ -63,17 +94,13 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
     setSheet(
       controller,
       section,
-      rows.map((row) => {
-        if (row.id !== rowId) return row;
-        const { excluded: _previous, ...rest } = row;
-        return excluded ? { ...rest, excluded } : rest;
-      }),
+      rows.map((row) => (row.id === rowId ? withExclusion(row, column, excluded) : row)),
     );
 
   const toggle = (rowId: string) => {
     const row = rows.find((r) => r.id === rowId);
     if (!row || !controller.editable) return;
-    if (row.excluded) {
+    if (exclusionIn(row, column)) {
       setExcluded(row.id, undefined);
       toaster.create({
         type: 'info',
@@ -110,17 +137,69 @@ export function useRowExclusion(controller: StudyDraftController, section: Exclu
     </FormDialog>
   );
 
-  const rowActions = (row: GridRow) => (
-    <Button
-      size="xs"
-      variant="ghost"
-      onClick={() => toggle(row.id)}
-      disabled={!controller.editable}
-      title={`${row.excluded ? 'Include again' : 'Exclude'} the ${words.noun} ${describe(row)}`}
-    >
-      {row.excluded ? 'Include again' : 'Exclude…'}
-    </Button>
-  );
+  const rowActions = (row: GridRow) => {
+    const excluded = Boolean(exclusionIn(row, column));
+    return (
+      <Button
+        size="xs"
+        variant="ghost"
+        onClick={() => toggle(row.id)}
+        disabled={!controller.editable}
+        title={`${excluded ? 'Include again' : 'Exclude'} the ${words.noun} ${describe(row)}`}
+      >
+        {excluded ? 'Include again' : 'Exclude…'}
+      </Button>
+    );
+  };
 
-  return { toggle, dialog, rowActions };
+  const isExcluded = (row: GridRow) => Boolean(exclusionIn(row, column));
+  const itemLabel = (row: GridRow) =>
+    `${isExcluded(row) ? 'Include' : 'Exclude'} the ${words.short ?? words.noun} ${describe(row)}${isExcluded(row) ? ' again' : '…'}`;
+
+  return { toggle, dialog, rowActions, isExcluded, itemLabel };
+}
+
+/**
+ * A low-level spike row holds a spike and a method blank, each excluded on its own: one button when the row holds
+ * one of them, a menu of both otherwise, so that the row keeps the width of the other grids' rows.
+ */
+export function useLowSpikeExclusion(controller: StudyDraftController) {
+  const spike = useRowExclusion(controller, 'lowSpikes', 'spiked');
+  const blank = useRowExclusion(controller, 'lowSpikes', 'blank');
+  const filled = (row: GridRow, key: string) => (row.cells[key] ?? '').trim() !== '';
+
+  const rowActions = (row: GridRow) => {
+    const parts = [...(filled(row, 'spiked') ? [spike] : []), ...(filled(row, 'blank') ? [blank] : [])];
+    if (parts.length < 2) return parts[0]?.rowActions(row) ?? null;
+    return (
+      <Menu.Root>
+        <Menu.Trigger asChild>
+          <Button size="xs" variant="ghost" disabled={!controller.editable}>
+            {parts.some((part) => part.isExcluded(row)) ? 'Include again…' : 'Exclude…'}
+          </Button>
+        </Menu.Trigger>
+        <Portal>
+          <Menu.Positioner>
+            <Menu.Content>
+              {parts.map((part) => (
+                <Menu.Item key={part.itemLabel(row)} value={part.itemLabel(row)} onSelect={() => part.toggle(row.id)}>
+                  {part.itemLabel(row)}
+                </Menu.Item>
+              ))}
+            </Menu.Content>
+          </Menu.Positioner>
+        </Portal>
+      </Menu.Root>
+    );
+  };
+
+  return {
+    rowActions,
+    dialog: (
+      <>
+        {spike.dialog}
+        {blank.dialog}
+      </>
+    ),
+  };
 }
