@@ -4,7 +4,7 @@ import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { jwtVerificationKey } from './jwt-key.js';
 import type { TokenPayload } from './sessions.service.js';
 
-/** `<scheme> <token>`, read as passport's header parser reads it. */
+/** `<scheme> <token>`; the scheme is matched without regard to case, as HTTP authentication schemes are. */
 const AUTHORIZATION = /(\S+)\s+(\S+)/;
 
 /**
