@@ -97,6 +97,47 @@ describe('sessions, password reset, password rules and signing locks', () => {
       await t.http().get('/api/auth/me').set(bearer(forever)).expect(401);
       await t.http().get('/api/auth/me').set(bearer(token)).expect(200);
     });
+
+    it('should refuse a signed token whose version or session does not match the user’s own', async () => {
+      const token = await signIn(DEMO.quality);
+      const other = jwt.decode(admin) as { sid: string };
+      const { sub, sid, ver, exp } = jwt.decode(token) as { sub: string; sid: string; ver: number; exp: number };
+      const secret = t.app.get<AppConfigType>(appConfig.KEY).jwtSecret;
+      for (const payload of [
+        { sub, sid, ver: ver + 1, exp },
+        { sub, sid: other.sid, ver, exp },
+        { sub, sid: 'not-a-session', ver, exp },
+      ]) {
+        const refused = await t
+          .http()
+          .get('/api/auth/me')
+          .set(bearer(jwt.sign(payload, secret)))
+          .expect(401);
+        expect(refused.body.message).toMatch(/sign in again/i);
+      }
+      await t.http().get('/api/auth/me').set(bearer(token)).expect(200);
+    });
+
+    it('should apply a role change to the very next request of a signed-in user', async () => {
+      const token = await signIn(DEMO.analyst);
+      const id = await userId(t, DEMO.analyst);
+      await t.http().get('/api/users').set(bearer(token)).expect(403);
+      await t
+        .http()
+        .patch(`/api/users/${id}`)
+        .set(bearer(admin))
+        .send({ roles: ['analyst', 'admin'] })
+        .expect(200);
+      await t.http().get('/api/users').set(bearer(token)).expect(200);
+      expect((await t.http().get('/api/auth/me').set(bearer(token)).expect(200)).body.roles).toEqual(['analyst', 'admin']);
+      await t
+        .http()
+        .patch(`/api/users/${id}`)
+        .set(bearer(admin))
+        .send({ roles: ['analyst'] })
+        .expect(200);
+      await t.http().get('/api/users').set(bearer(token)).expect(403);
+    });
   });
 
   describe('idle sign-out', () => {

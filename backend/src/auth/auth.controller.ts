@@ -14,8 +14,8 @@ import { ChangePasswordDto } from './dto/change-password.dto.js';
 import { LoginDto } from './dto/login.dto.js';
 import { LinkTokenDto, PasswordResetConfirmDto, PasswordResetRequestDto } from './dto/password-reset.dto.js';
 import { UpdateSessionSettingsDto } from './dto/session-settings.dto.js';
-import type { SessionUser } from './jwt.strategy.js';
 import { SessionSettingsService } from './session-settings.service.js';
+import type { SessionUser } from './sessions.service.js';
 
 @ApiTags('auth')
 @ApiThrottled()

@@ -1,12 +1,11 @@
 import { Module } from '@nestjs/common';
 import { JwtModule } from '@nestjs/jwt';
-import { PassportModule } from '@nestjs/passport';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { UsersModule } from '../users/users.module.js';
 import { MailModule } from '../mail/mail.module.js';
 import { AuthController, SessionSettingsController } from './auth.controller.js';
 import { AuthService } from './auth.service.js';
-import { JwtStrategy } from './jwt.strategy.js';
+import { BearerTokens } from './bearer-tokens.js';
 import { LoginAttemptsService } from './login-attempts.service.js';
 import { PasswordPolicyService } from './password-policy.service.js';
 import { SessionSettingsService } from './session-settings.service.js';
@@ -16,14 +15,14 @@ import { SessionsService } from './sessions.service.js';
   imports: [
     UsersModule,
     MailModule,
-    PassportModule,
     JwtModule.registerAsync({
       inject: [appConfig.KEY],
       useFactory: (config: AppConfigType) => ({ secret: config.jwtSecret, signOptions: { expiresIn: config.jwtExpiresIn as never } }),
     }),
   ],
   controllers: [AuthController, SessionSettingsController],
-  providers: [AuthService, JwtStrategy, LoginAttemptsService, PasswordPolicyService, SessionsService, SessionSettingsService],
-  exports: [AuthService],
+  providers: [AuthService, BearerTokens, LoginAttemptsService, PasswordPolicyService, SessionsService, SessionSettingsService],
+  // The global guards (app.module.ts) sign requests in through these two.
+  exports: [AuthService, BearerTokens, SessionsService],
 })
 export class AuthModule {}

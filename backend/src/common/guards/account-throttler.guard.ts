@@ -1,6 +1,5 @@
-import { Inject, Injectable } from '@nestjs/common';
+import { Injectable } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
-import { JwtService } from '@nestjs/jwt';
 import {
   InjectThrottlerOptions,
   InjectThrottlerStorage,
@@ -8,8 +7,7 @@ import {
   type ThrottlerModuleOptions,
   type ThrottlerStorage,
 } from '@nestjs/throttler';
-import { jwtVerificationKey } from '../../auth/jwt-key.js';
-import { appConfig, type AppConfigType } from '../../config/app.config.js';
+import { BearerTokens } from '../../auth/bearer-tokens.js';
 
 /**
  * Signed-in requests count against their account, the rest against their address: a laboratory whose
@@ -17,28 +15,18 @@ import { appConfig, type AppConfigType } from '../../config/app.config.js';
  */
 @Injectable()
 export class AccountThrottlerGuard extends ThrottlerGuard {
-  private readonly tokens: JwtService;
-
   constructor(
     @InjectThrottlerOptions() options: ThrottlerModuleOptions,
     @InjectThrottlerStorage() storage: ThrottlerStorage,
     reflector: Reflector,
-    @Inject(appConfig.KEY) config: AppConfigType,
+    private readonly tokens: BearerTokens,
   ) {
     super(options, storage, reflector);
-    this.tokens = new JwtService({ secret: jwtVerificationKey(config.jwtSecret) });
   }
 
-  protected override async getTracker(req: { headers?: Record<string, unknown>; ip?: string }): Promise<string> {
-    const header = req.headers?.authorization;
-    if (typeof header === 'string' && header.startsWith('Bearer ')) {
-      try {
-        const { sub } = await this.tokens.verifyAsync<{ sub: string }>(header.slice(7));
-        return `account:${sub}`;
-      } catch {
-        // An invalid token is refused later by the JWT guard; until then it counts against its address.
-      }
-    }
-    return `address:${req.ip ?? 'unknown'}`;
+  // An invalid token counts against its address until the JWT guard refuses it.
+  protected override getTracker(req: { headers?: Record<string, unknown>; ip?: string }): Promise<string> {
+    const account = this.tokens.payloadOf(req)?.sub;
+    return Promise.resolve(typeof account === 'string' ? `account:${account}` : `address:${req.ip ?? 'unknown'}`);
   }
 }
