@@ -8,28 +8,19 @@ import type { TokenPayload } from './sessions.service.js';
 const AUTHORIZATION = /(\S+)\s+(\S+)/;
 
 /**
- * The verified payload of a request's bearer token, or null when it has none or a forged or expired one. The
- * throttler (which counts signed-in requests per account) and the JWT guard both ask; the signature is checked once.
+ * The verified payload of a request's bearer token, or null when it has none or a forged or expired one: the
+ * throttler counts signed-in requests against the account before the JWT guard signs the request in.
  */
 @Injectable()
 export class BearerTokens {
   private readonly tokens: JwtService;
-  private readonly verified = new WeakMap<object, TokenPayload | null>();
 
   constructor(@Inject(appConfig.KEY) config: AppConfigType) {
     this.tokens = new JwtService({ secret: jwtVerificationKey(config.jwtSecret) });
   }
 
   payloadOf(request: { headers?: Record<string, unknown> }): TokenPayload | null {
-    let payload = this.verified.get(request);
-    if (payload === undefined) {
-      payload = this.verify(request.headers?.authorization);
-      this.verified.set(request, payload);
-    }
-    return payload;
-  }
-
-  private verify(header: unknown): TokenPayload | null {
+    const header = request.headers?.authorization;
     const parts = typeof header === 'string' ? AUTHORIZATION.exec(header) : null;
     if (!parts || parts[1].toLowerCase() !== 'bearer') return null;
     try {

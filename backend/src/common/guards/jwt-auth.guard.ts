@@ -1,24 +1,23 @@
-import { Injectable, UnauthorizedException, type CanActivate, type ExecutionContext } from '@nestjs/common';
+import { Injectable, UnauthorizedException, type ExecutionContext } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
-import { BearerTokens } from '../../auth/bearer-tokens.js';
-import { SessionsService, type SessionUser } from '../../auth/sessions.service.js';
+import { AuthGuard } from '@nestjs/passport';
 import { IS_PUBLIC_KEY } from '../decorators/public.decorator.js';
 
 @Injectable()
-export class JwtAuthGuard implements CanActivate {
-  constructor(
-    private readonly reflector: Reflector,
-    private readonly tokens: BearerTokens,
-    private readonly sessions: SessionsService,
-  ) {}
+export class JwtAuthGuard extends AuthGuard('jwt') {
+  constructor(private readonly reflector: Reflector) {
+    super();
+  }
 
-  async canActivate(context: ExecutionContext): Promise<boolean> {
+  canActivate(context: ExecutionContext) {
     const isPublic = this.reflector.getAllAndOverride<boolean>(IS_PUBLIC_KEY, [context.getHandler(), context.getClass()]);
-    if (isPublic) return true;
-    const request = context.switchToHttp().getRequest<{ headers: Record<string, unknown>; user?: SessionUser }>();
-    const payload = this.tokens.payloadOf(request);
-    if (!payload) throw new UnauthorizedException('Sign in first: the request carries no valid session token.');
-    request.user = await this.sessions.authenticate(payload);
-    return true;
+    return isPublic ? true : super.canActivate(context);
+  }
+
+  /** Passport's bare "Unauthorized" for a missing, malformed or forged token says nothing a caller can act on. */
+  handleRequest<TUser>(error: unknown, user: TUser | false): TUser {
+    if (error) throw error;
+    if (!user) throw new UnauthorizedException('Sign in first: the request carries no valid session token.');
+    return user;
   }
 }

@@ -1,0 +1,28 @@
+import { Inject, Injectable } from '@nestjs/common';
+import { PassportStrategy } from '@nestjs/passport';
+import { ExtractJwt, Strategy } from 'passport-jwt';
+import { appConfig, type AppConfigType } from '../config/app.config.js';
+import { jwtVerificationKey } from './jwt-key.js';
+import { SessionsService, type SessionUser, type TokenPayload } from './sessions.service.js';
+
+@Injectable()
+export class JwtStrategy extends PassportStrategy(Strategy) {
+  constructor(
+    @Inject(appConfig.KEY) config: AppConfigType,
+    private readonly sessions: SessionsService,
+  ) {
+    const key = jwtVerificationKey(config.jwtSecret);
+    super({
+      jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
+      ignoreExpiration: false,
+      // passport-jwt hands the key to jsonwebtoken as it is; its types predate key objects.
+      secretOrKeyProvider: (_request: unknown, _token: unknown, done: (error: null, key: Buffer) => void) =>
+        done(null, key as unknown as Buffer),
+    });
+  }
+
+  /** The session and its user, read afresh on every request (one indexed query). */
+  validate(payload: TokenPayload): Promise<SessionUser> {
+    return this.sessions.authenticate(payload);
+  }
+}
