@@ -3,6 +3,7 @@ import { verdict, workingRange } from './engine/criteria.js';
 import { detection, flagLimits } from './engine/detection.js';
 import { homoscedasticity } from './engine/homoscedasticity.js';
 import { interceptTest, throughOrigin } from './engine/intercept.js';
+import { unbuiltTables } from './engine/lazy-table.js';
 import { predictUnknown } from './engine/inverse.js';
 import { lackOfFit, mandel } from './engine/linearity.js';
 import { outliers } from './engine/outliers.js';
@@ -15,7 +16,7 @@ import type { Study } from './study.js';
 import { parseStudy } from './validate.js';
 import { ENGINE_VERSION } from './version.js';
 
-/** Whether any number in the tree is NaN or infinite; walks without building paths. */
+/** Whether any number in the tree is NaN or infinite; walks without building paths, and reads tables not built yet from their columns. */
 function hasNonFinite(node: object): boolean {
   if (Array.isArray(node)) {
     for (let i = 0; i < node.length; i++) {
@@ -26,8 +27,14 @@ function hasNonFinite(node: object): boolean {
     return false;
   }
   const record = node as Record<string, unknown>;
+  const lazy = unbuiltTables(record);
   for (const key in record) {
     if (!Object.hasOwn(record, key)) continue;
+    const table = lazy?.get(key);
+    if (table && !table.built) {
+      if (!table.allFinite()) return true;
+      continue;
+    }
     const value = record[key];
     if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value))
       return true;

@@ -3,7 +3,7 @@ import type { CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { fitQuadratic } from './quadratic.js';
 import { fitLine, type RegressionCore } from './regression.js';
-import { groupValues, mean } from './stats.js';
+import { mean } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const PARAMETERS: Record<string, number> = { linear: 2, 'linear-through-origin': 1, quadratic: 3 };
@@ -18,17 +18,17 @@ export function lackOfFit(fit: CalibrationFit, warn: Warn): LackOfFitResult | nu
   }
   const levels = fit.levels;
   const k = levels.keys.length;
-  const n = fit.points.length;
+  const n = fit.xs.length;
   if (n - k < 1 || k - p < 1) {
     warn('lackOfFit', 'too_few', `the lack-of-fit test needs replicated standards and at least ${p + 1} distinct x`);
     return null;
   }
   let ssPureError = 0;
   for (let g = 0; g < k; g++) {
-    const ys = groupValues(levels, g, (i) => fit.ys[i]);
+    const ys = fit.levelYs.subarray(levels.start[g], levels.start[g + 1]);
     const centre = mean(ys);
     const w = fit.weightAt(levels.keys[g]);
-    for (const y of ys) ssPureError += w * (y - centre) ** 2;
+    for (let m = 0; m < ys.length; m++) ssPureError += w * (ys[m] - centre) ** 2;
   }
   const dfPureError = n - k;
   const dfLackOfFit = k - p;
@@ -63,7 +63,12 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
     warn('mandel', 'too_few', "Mandel's test needs at least 4 distinct x");
     return null;
   }
-  const weights = fit.model === 'linear-through-origin' ? new Float64Array(n).fill(1) : Float64Array.from(xs, (x) => fit.weightAt(x));
+  const weights = new Float64Array(n).fill(1);
+  if (fit.model !== 'linear-through-origin' && fit.weighting !== 'none') {
+    // w depends on x alone: once per level.
+    const levelWeights = fit.levels.keys.map((x) => fit.weightAt(x));
+    for (let i = 0; i < n; i++) weights[i] = levelWeights[fit.levels.of[i]];
+  }
   // The fit's own core where it is the same least-squares problem (same points, same weights).
   const sameWeights = fit.weighting !== '1/s2';
   const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights);

@@ -2,6 +2,23 @@ import { cleanResidual, type RegressionCore } from './regression.js';
 import { weightedMean } from './stats.js';
 
 /**
+ * Math.hypot(a, b) as V8 computes it (divide by the larger magnitude, add the squares, square root, scale back),
+ * written out so that the compiler inlines it; other arguments go to Math.hypot itself. Same numbers, bit for bit.
+ */
+export function hypot(a: number, b: number): number {
+  const x = Math.abs(a);
+  const y = Math.abs(b);
+  if (x > y) {
+    if (x === Infinity || y !== y) return Math.hypot(a, b);
+    const q = y / x;
+    return Math.sqrt(1 + q * q) * x;
+  }
+  if (!(y > 0 && y < Infinity) || x !== x) return Math.hypot(a, b);
+  const p = x / y;
+  return Math.sqrt(p * p + 1) * y;
+}
+
+/**
  * Householder QR least squares for a tall matrix held by columns (each of length rows; overwritten, as is rhs).
  * Returns the coefficients and the upper-triangular R.
  */
@@ -12,7 +29,7 @@ function householderLeastSquares(columns: Float64Array[], rhs: Float64Array): { 
   for (let k = 0; k < p; k++) {
     const column = columns[k];
     let norm = 0;
-    for (let i = k; i < m; i++) norm = Math.hypot(norm, column[i]);
+    for (let i = k; i < m; i++) norm = hypot(norm, column[i]);
     if (norm === 0) continue;
     const alpha = column[k] > 0 ? -norm : norm;
     for (let i = k; i < m; i++) v[i] = column[i];
@@ -64,13 +81,13 @@ export interface QuadraticCore extends RegressionCore {
 }
 
 /** y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares). */
-export function fitQuadratic(x: readonly number[], y: readonly number[], w: ArrayLike<number>): QuadraticCore {
+export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>): QuadraticCore {
   const n = x.length;
   let sumWeights = 0;
   for (let i = 0; i < n; i++) sumWeights += w[i];
   const centre = weightedMean(x, new Float64Array(n).fill(1), n);
   let scale = 0;
-  for (const v of x) scale = Math.max(scale, Math.abs(v - centre));
+  for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(x[i] - centre));
   if (scale === 0) scale = 1;
   const z = new Float64Array(n);
   const columns = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
@@ -87,7 +104,7 @@ export function fitQuadratic(x: readonly number[], y: readonly number[], w: Arra
   const { beta, r } = householderLeastSquares(columns, rhs);
   const [c0, c1, c2] = beta;
 
-  const residuals = new Array<number>(n);
+  const residuals = new Float64Array(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
     const fitted = c0 + z[i] * (c1 + z[i] * c2);

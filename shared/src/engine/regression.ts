@@ -21,7 +21,7 @@ export interface RegressionCore {
   yMean: number;
   sxx: number;
   sumWeights: number;
-  residuals: number[];
+  residuals: Float64Array;
   /** Variance of the fitted mean response at x divided by s². */
   leverage(x: number): number;
 }
@@ -32,7 +32,7 @@ export function cleanResidual(e: number, scale: number): number {
 }
 
 /** Weighted (w ≡ 1: ordinary) straight-line least squares on centred sums. */
-export function fitLine(x: readonly number[], y: readonly number[], w: ArrayLike<number>): RegressionCore {
+export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>): RegressionCore {
   const n = x.length;
   let sumWeights = 0;
   for (let i = 0; i < n; i++) sumWeights += w[i];
@@ -50,7 +50,7 @@ export function fitLine(x: readonly number[], y: readonly number[], w: ArrayLike
   }
   const b = sxy / sxx;
   const a = yMean - b * xMean;
-  const residuals = new Array<number>(n);
+  const residuals = new Float64Array(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
     const dy = y[i] - yMean;
@@ -85,7 +85,7 @@ export function fitLine(x: readonly number[], y: readonly number[], w: ArrayLike
 }
 
 /** Straight line through the origin; R² and the regression SS are uncentred (NIST StRD convention). */
-export function fitThroughOrigin(x: readonly number[], y: readonly number[]): RegressionCore {
+export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): RegressionCore {
   const n = x.length;
   let sxx0 = 0;
   let sxy0 = 0;
@@ -96,7 +96,7 @@ export function fitThroughOrigin(x: readonly number[], y: readonly number[]): Re
     syy0 += y[i] * y[i];
   }
   const b = sxy0 / sxx0;
-  const residuals = new Array<number>(n);
+  const residuals = new Float64Array(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
     const fitted = b * x[i];
@@ -109,7 +109,7 @@ export function fitThroughOrigin(x: readonly number[], y: readonly number[]): Re
   const ones = new Float64Array(n).fill(1);
   const xMean = weightedMean(x, ones, n);
   let sxx = 0;
-  for (const v of x) sxx += (v - xMean) * (v - xMean);
+  for (let i = 0; i < n; i++) sxx += (x[i] - xMean) * (x[i] - xMean);
   return {
     n,
     df,
