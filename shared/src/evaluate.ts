@@ -1,4 +1,4 @@
-import { fitCalibration, type CalibrationFit } from './engine/calibration.js';
+import { fitCalibration, type CalibrationFit, type StandardColumns } from './engine/calibration.js';
 import { verdict, workingRange } from './engine/criteria.js';
 import { detection, flagLimits } from './engine/detection.js';
 import { homoscedasticity } from './engine/homoscedasticity.js';
@@ -79,12 +79,15 @@ export function evaluateStudy(input: unknown): EvaluationResult {
   return evaluateParsedStudy(parseStudy(input));
 }
 
-/** Every section of the evaluation of a study `parseStudy` has accepted (the benchmark calls it beyond the list bound). */
-export function evaluateParsedStudy(study: Study): EvaluationResult {
+/**
+ * Every section of the evaluation of a study `parseStudy` has accepted (the benchmark calls it beyond the list bound,
+ * and may pass the standards by columns instead of the study's objects).
+ */
+export function evaluateParsedStudy(study: Study, standards: Study['standards'] | StandardColumns = study.standards): EvaluationResult {
   const { warnings, warn } = collectWarnings();
   const criteria = study.criteria ?? [];
-  const fit = study.standards
-    ? fitCalibration(study.standards, {
+  const fit = standards
+    ? fitCalibration(standards, {
         model: study.model,
         weighting: study.weighting,
         confidence: study.confidence,

@@ -38,8 +38,8 @@ export interface CalibrationFit {
   indices: Int32Array;
   xs: Float64Array;
   ys: Float64Array;
-  /** SD of each standard (NaN where not given). */
-  sds: Float64Array;
+  /** SD of each standard (NaN where not given), read from the standards when first asked for. */
+  sds: () => Float64Array;
   /** The standards grouped by x (the standard levels), in order of first appearance. */
   levels: Grouping;
   /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1]. */
@@ -65,7 +65,7 @@ export const BAND_POINTS = 101;
 
 /** SD of the response at x, interpolated linearly between the standard levels' SDs. */
 function sdProfile(used: UsedPoints): (at: number) => number {
-  const levelSds = byGroup(used.levels, used.sds);
+  const levelSds = byGroup(used.levels, used.sds());
   const { keys, start } = used.levels;
   const levels = keys.map((x, g) => ({ x, sd: mean(levelSds.subarray(start[g], start[g + 1])) })).sort((a, b) => a.x - b.x);
   return (at) => {
@@ -90,7 +90,8 @@ function makeWeights(used: UsedPoints, weighting: Weighting): { w: Float64Array;
   if (weighting === '1/s2') {
     const sdAt = sdProfile(used);
     rawAt = (at) => sdAt(at) ** -2;
-    for (let i = 0; i < n; i++) w[i] = used.sds[i] ** -2;
+    const sds = used.sds();
+    for (let i = 0; i < n; i++) w[i] = sds[i] ** -2;
   } else {
     const power = weighting === '1/x' ? 1 : 2;
     rawAt = (at) => at ** -power;
@@ -117,18 +118,35 @@ interface UsedPoints {
   indices: Int32Array;
   xs: Float64Array;
   ys: Float64Array;
-  sds: Float64Array;
+  sds: () => Float64Array;
   levels: Grouping;
   excluded: ExcludedStandard[];
 }
 
+/** Standards held by columns, none excluded (what a caller that already holds arrays passes instead of one object per standard). */
+export interface StandardColumns {
+  x: Float64Array;
+  y: Float64Array;
+  sd?: Float64Array;
+}
+
+function usedColumns(columns: StandardColumns): UsedPoints {
+  const xs = columns.x.slice();
+  const ys = columns.y.slice();
+  if (ys.length !== xs.length) fail('not_computable', 'the x and y columns of the standards differ in length');
+  const indices = new Int32Array(xs.length);
+  for (let i = 0; i < indices.length; i++) indices[i] = i;
+  const sds = columns.sd ? columns.sd.slice() : new Float64Array(xs.length).fill(NaN);
+  return { indices, xs, ys, sds: () => sds, levels: groupPositions(xs), excluded: [] };
+}
+
 /** The standards that are not excluded, read once into columns and grouped by x. */
-function usedPoints(standards: readonly StandardPoint[]): UsedPoints {
+function usedPoints(standards: readonly StandardPoint[] | StandardColumns): UsedPoints {
+  if (!Array.isArray(standards)) return usedColumns(standards as StandardColumns);
   const total = standards.length;
   let indices = new Int32Array(total);
   let xs = new Float64Array(total);
   let ys = new Float64Array(total);
-  let sds = new Float64Array(total);
   const excluded: ExcludedStandard[] = [];
   let used = 0;
   for (let index = 0; index < total; index++) {
@@ -140,11 +158,12 @@ function usedPoints(standards: readonly StandardPoint[]): UsedPoints {
     indices[used] = index;
     xs[used] = s.x;
     ys[used] = s.y;
-    sds[used] = s.sd ?? NaN;
     used++;
   }
-  if (used < total) [indices, xs, ys, sds] = [indices.slice(0, used), xs.slice(0, used), ys.slice(0, used), sds.slice(0, used)];
-  return { indices, xs, ys, sds, levels: groupPositions(xs), excluded };
+  if (used < total) [indices, xs, ys] = [indices.slice(0, used), xs.slice(0, used), ys.slice(0, used)];
+  let sds: Float64Array | null = null;
+  const sdsOf = () => (sds ??= Float64Array.from(indices, (index) => standards[index].sd ?? NaN));
+  return { indices, xs, ys, sds: sdsOf, levels: groupPositions(xs), excluded };
 }
 
 /** Real root of c2 z² + c1 z + c0 = 0 on the branch that covers [zLo, zHi]. */
@@ -258,6 +277,18 @@ interface Curve {
   predict(x: number): number;
   slopeAt(x: number): number;
   inverse(y: number): number | null;
+  /** x for each response into `out`, NaN where the curve gives no finite x. */
+  backCalculate(ys: Float64Array, out: Float64Array): void;
+}
+
+/** Back-calculation through `inverse` one response at a time. */
+function backCalculateEach(inverse: (y: number) => number | null): Curve['backCalculate'] {
+  return (ys, out) => {
+    for (let i = 0; i < ys.length; i++) {
+      const xBack = inverse(ys[i]);
+      out[i] = xBack !== null && Number.isFinite(xBack) ? xBack : NaN;
+    }
+  };
 }
 
 function straight(slope: number, intercept: number, segments: BracketSegment[] | null = null): Curve {
@@ -269,6 +300,12 @@ function straight(slope: number, intercept: number, segments: BracketSegment[] |
     predict: (x) => intercept + slope * x,
     slopeAt: () => slope,
     inverse: (y) => (y - intercept) / slope,
+    backCalculate: (ys, out) => {
+      for (let i = 0; i < ys.length; i++) {
+        const xBack = (ys[i] - intercept) / slope;
+        out[i] = Number.isFinite(xBack) ? xBack : NaN;
+      }
+    },
   };
 }
 
@@ -291,15 +328,17 @@ function twoPointCurve(used: UsedPoints, levels: number, bracketing: boolean): C
   if (!bracketing) return outer;
   const segs = built.segments;
   const segmentAt = (x: number) => segs.find((seg) => x <= seg.xHigh) ?? segs[segs.length - 1];
+  const inverse = (y: number) => {
+    const seg = pickSegment(segs, y);
+    return (y - seg.intercept) / seg.slope;
+  };
   return {
     ...outer,
     segments: segs,
     predict: (x) => segmentAt(x).intercept + segmentAt(x).slope * x,
     slopeAt: (x) => segmentAt(x).slope,
-    inverse: (y) => {
-      const seg = pickSegment(segs, y);
-      return (y - seg.intercept) / seg.slope;
-    },
+    inverse,
+    backCalculate: backCalculateEach(inverse),
   };
 }
 
@@ -332,6 +371,7 @@ function regressionCurve(
       },
       slopeAt: (x) => q.b + 2 * q.c * x,
       inverse: (y) => invertQuadratic(q, y, xMin, xMax),
+      backCalculate: backCalculateEach((y) => invertQuadratic(q, y, xMin, xMax)),
     };
   }
   const origin = model === 'linear-through-origin';
@@ -348,6 +388,13 @@ function regressionCurve(
     predict: (x) => cy + line.b * (x - cx),
     slopeAt: () => line.b,
     inverse: (y) => cx + (y - cy) / line.b,
+    backCalculate: (ys, out) => {
+      const b = line.b;
+      for (let i = 0; i < ys.length; i++) {
+        const xBack = cx + (ys[i] - cy) / b;
+        out[i] = Number.isFinite(xBack) ? xBack : NaN;
+      }
+    },
   };
 }
 
@@ -440,11 +487,11 @@ function noRegressionStatistics(xs: Float64Array, ys: Float64Array): Statistics 
   };
 }
 
-function checkWeighting(model: CalibrationModel, weighting: Weighting, sds: Float64Array, xMin: number): void {
+function checkWeighting(model: CalibrationModel, weighting: Weighting, sds: () => Float64Array, xMin: number): void {
   if (weighting === 'none') return;
   if (model !== 'linear' && model !== 'quadratic') fail('incompatible', 'weighting applies only to linear and quadratic', 'weighting');
   if (weighting === '1/s2') {
-    if (sds.some((sd) => !(sd > 0))) fail('required', 'weighting 1/s2 needs the SD of every standard');
+    if (sds().some((sd) => !(sd > 0))) fail('required', 'weighting 1/s2 needs the SD of every standard');
   } else if (xMin <= 0) {
     fail('not_positive', `weighting ${weighting} needs every standard above zero`);
   }
@@ -490,38 +537,35 @@ function fitCurve(used: UsedPoints, options: FitOptions): FittedCurve {
   return { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve };
 }
 
-/** x back-calculated from y, or null where the curve gives no finite x. */
-function backCalculate(curve: Curve, y: number): number | null {
-  const xBack = curve.inverse(y);
-  return xBack !== null && Number.isFinite(xBack) ? xBack : null;
-}
 
 /** Σ|%RE| of the back-calculated standards of the fit's points under another weighting (the tables are not built). */
 export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
   const used = { indices: fit.indices, xs: fit.xs, ys: fit.ys, sds: fit.sds, levels: fit.levels, excluded: fit.calibration.excluded };
   const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence });
+  const xBacks = new Float64Array(used.xs.length);
+  curve.backCalculate(used.ys, xBacks);
   let total = 0;
   for (let i = 0; i < used.xs.length; i++) {
     const x = used.xs[i];
-    const xBack = backCalculate(curve, used.ys[i]);
-    if (xBack !== null && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
+    const xBack = xBacks[i];
+    if (!Number.isNaN(xBack) && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
   }
   return total;
 }
 
 /** Fits a calibration of the chosen model to the standards that are not excluded. */
-export function fitCalibration(standards: readonly StandardPoint[], options: FitOptions = {}): CalibrationFit {
+export function fitCalibration(standards: readonly StandardPoint[] | StandardColumns, options: FitOptions = {}): CalibrationFit {
   const { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve } = fitCurve(usedPoints(standards), options);
   const { indices, xs, ys, sds, levels, excluded } = used;
   const n = xs.length;
 
   const xBacks = new Float64Array(n);
   const rePcts = new Float64Array(n);
+  curve.backCalculate(ys, xBacks);
   for (let i = 0; i < n; i++) {
     const x = xs[i];
-    const xBack = backCalculate(curve, ys[i]);
-    xBacks[i] = xBack ?? NaN;
-    rePcts[i] = xBack === null || x === 0 ? NaN : (100 * (xBack - x)) / x;
+    const xBack = xBacks[i];
+    rePcts[i] = Number.isNaN(xBack) || x === 0 ? NaN : (100 * (xBack - x)) / x;
   }
   const core = curve.core;
   let residuals: Float64Array;

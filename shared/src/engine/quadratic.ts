@@ -1,5 +1,5 @@
 import { cleanResidual, type RegressionCore } from './regression.js';
-import { weightedMean } from './stats.js';
+import { mean, weightedMean } from './stats.js';
 
 /**
  * Math.hypot(a, b) as V8 computes it (divide by the larger magnitude, add the squares, square root, scale back),
@@ -21,33 +21,46 @@ export function hypot(a: number, b: number): number {
 /**
  * Householder QR least squares for a tall matrix held by columns (each of length rows; overwritten, as is rhs).
  * Returns the coefficients and the upper-triangular R.
+ *
+ * Each reflection takes two passes over the rows: one for v·v and every v·target, one for the updates and the next
+ * column's norm. Each sum still adds its terms in row order, so the numbers are those of one pass per sum.
  */
 function householderLeastSquares(columns: Float64Array[], rhs: Float64Array): { beta: number[]; r: number[][] } {
   const p = columns.length;
   const m = rhs.length;
-  const v = new Float64Array(m);
+  let nextNorm: number | null = null;
   for (let k = 0; k < p; k++) {
+    // v is column k with v[k] = column[k] − alpha; the column itself is the last target updated at each row.
     const column = columns[k];
     let norm = 0;
-    for (let i = k; i < m; i++) norm = hypot(norm, column[i]);
+    if (nextNorm !== null) norm = nextNorm;
+    else for (let i = k; i < m; i++) norm = hypot(norm, column[i]);
+    nextNorm = null;
     if (norm === 0) continue;
     const alpha = column[k] > 0 ? -norm : norm;
-    for (let i = k; i < m; i++) v[i] = column[i];
-    v[k] -= alpha;
+    const vk = column[k] - alpha;
+    const targets = [...columns.slice(k + 1), rhs, column];
+    const count = targets.length;
+    const dots = new Float64Array(count);
     let vv = 0;
-    for (let i = k; i < m; i++) vv += v[i] * v[i];
-    if (vv === 0) continue;
-    for (let j = k; j < p; j++) {
-      const target = columns[j];
-      let dot = 0;
-      for (let i = k; i < m; i++) dot += v[i] * target[i];
-      const f = (2 * dot) / vv;
-      for (let i = k; i < m; i++) target[i] -= f * v[i];
+    vv += vk * vk;
+    for (let j = 0; j < count; j++) dots[j] += vk * targets[j][k];
+    for (let i = k + 1; i < m; i++) {
+      const vi = column[i];
+      vv += vi * vi;
+      for (let j = 0; j < count; j++) dots[j] += vi * targets[j][i];
     }
-    let dot = 0;
-    for (let i = k; i < m; i++) dot += v[i] * rhs[i];
-    const f = (2 * dot) / vv;
-    for (let i = k; i < m; i++) rhs[i] -= f * v[i];
+    if (vv === 0) continue;
+    const factors = dots.map((dot) => (2 * dot) / vv);
+    for (let j = 0; j < count; j++) targets[j][k] -= factors[j] * vk;
+    const next = k + 1 < p ? columns[k + 1] : null;
+    let following = 0;
+    for (let i = k + 1; i < m; i++) {
+      const vi = column[i];
+      for (let j = 0; j < count; j++) targets[j][i] -= factors[j] * vi;
+      if (next) following = hypot(following, next[i]);
+    }
+    if (next) nextNorm = following;
   }
   const r = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => (j >= i ? columns[j][i] : 0)));
   const beta = new Array<number>(p).fill(0);
@@ -85,17 +98,15 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
   const n = x.length;
   let sumWeights = 0;
   for (let i = 0; i < n; i++) sumWeights += w[i];
-  const centre = weightedMean(x, new Float64Array(n).fill(1), n);
+  const centre = mean(x);
   let scale = 0;
   for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(x[i] - centre));
   if (scale === 0) scale = 1;
-  const z = new Float64Array(n);
   const columns = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
   const rhs = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     const zi = (x[i] - centre) / scale;
     const sw = Math.sqrt(w[i]);
-    z[i] = zi;
     columns[0][i] = sw;
     columns[1][i] = sw * zi;
     columns[2][i] = sw * zi * zi;
@@ -107,8 +118,9 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
   const residuals = new Float64Array(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
-    const fitted = c0 + z[i] * (c1 + z[i] * c2);
-    const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(c0) + Math.abs(c1 * z[i]) + Math.abs(c2 * z[i] * z[i]));
+    const zi = (x[i] - centre) / scale;
+    const fitted = c0 + zi * (c1 + zi * c2);
+    const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(c0) + Math.abs(c1 * zi) + Math.abs(c2 * zi * zi));
     residuals[i] = e;
     ssResidual += w[i] * e * e;
   }

@@ -1,4 +1,4 @@
-import { weightedMean } from './stats.js';
+import { mean, weightedMean } from './stats.js';
 
 /** Least-squares core shared by every regression model: enough to predict, invert and band. */
 export interface RegressionCore {
@@ -106,8 +106,7 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): Re
   }
   const df = n - 1;
   const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
-  const ones = new Float64Array(n).fill(1);
-  const xMean = weightedMean(x, ones, n);
+  const xMean = mean(x);
   let sxx = 0;
   for (let i = 0; i < n; i++) sxx += (x[i] - xMean) * (x[i] - xMean);
   return {
@@ -125,7 +124,7 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): Re
     ssRegression: b * sxy0,
     dfRegression: 1,
     xMean,
-    yMean: weightedMean(y, ones, n),
+    yMean: mean(y),
     sxx,
     sumWeights: n,
     residuals,
