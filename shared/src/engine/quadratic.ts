@@ -1,5 +1,4 @@
 import { cleanResidual, type RegressionCore } from './regression.js';
-import { mean, weightedMean } from './stats.js';
 
 /**
  * Math.hypot(a, b) as V8 computes it (divide by the larger magnitude, add the squares, square root, scale back),
@@ -25,10 +24,10 @@ export function hypot(a: number, b: number): number {
  * Each reflection takes two passes over the rows: one for v·v and every v·target, one for the updates and the next
  * column's norm. Each sum still adds its terms in row order, so the numbers are those of one pass per sum.
  */
-function householderLeastSquares(columns: Float64Array[], rhs: Float64Array): { beta: number[]; r: number[][] } {
+function householderLeastSquares(columns: Float64Array[], rhs: Float64Array, firstNorm: number | null = null): { beta: number[]; r: number[][] } {
   const p = columns.length;
   const m = rhs.length;
-  let nextNorm: number | null = null;
+  let nextNorm = firstNorm;
   for (let k = 0; k < p; k++) {
     // v is column k with v[k] = column[k] − alpha; the column itself is the last target updated at each row.
     const column = columns[k];
@@ -96,39 +95,61 @@ export interface QuadraticCore extends RegressionCore {
 /** y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares). */
 export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>): QuadraticCore {
   const n = x.length;
+  // Σw, the mean of x (the centre) and the weighted means of y and x, two passes each as mean and weightedMean, passes shared.
   let sumWeights = 0;
-  for (let i = 0; i < n; i++) sumWeights += w[i];
-  const centre = mean(x);
+  let sumX = 0;
+  let weightedSumY = 0;
+  let weightedSumX = 0;
+  for (let i = 0; i < n; i++) {
+    sumWeights += w[i];
+    sumX += x[i];
+    weightedSumY += w[i] * y[i];
+    weightedSumX += w[i] * x[i];
+  }
+  const firstCentre = sumX / n;
+  const firstY = weightedSumY / sumWeights;
+  const firstX = weightedSumX / sumWeights;
+  let correctionCentre = 0;
+  let correctionY = 0;
+  let correctionX = 0;
+  for (let i = 0; i < n; i++) {
+    correctionCentre += x[i] - firstCentre;
+    correctionY += w[i] * (y[i] - firstY);
+    correctionX += w[i] * (x[i] - firstX);
+  }
+  const centre = n === 0 ? NaN : firstCentre + correctionCentre / n;
+  const yMean = firstY + correctionY / sumWeights;
+  const xMean = firstX + correctionX / sumWeights;
   let scale = 0;
   for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(x[i] - centre));
   if (scale === 0) scale = 1;
   const columns = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+  const [ones, linear, square] = columns;
   const rhs = new Float64Array(n);
+  // The norm of the first column for the first reflection, in the same pass.
+  let firstNorm = 0;
   for (let i = 0; i < n; i++) {
     const zi = (x[i] - centre) / scale;
     const sw = Math.sqrt(w[i]);
-    columns[0][i] = sw;
-    columns[1][i] = sw * zi;
-    columns[2][i] = sw * zi * zi;
+    ones[i] = sw;
+    linear[i] = sw * zi;
+    square[i] = sw * zi * zi;
     rhs[i] = sw * y[i];
+    firstNorm = hypot(firstNorm, sw);
   }
-  const { beta, r } = householderLeastSquares(columns, rhs);
+  const { beta, r } = householderLeastSquares(columns, rhs, firstNorm);
   const [c0, c1, c2] = beta;
 
   const residuals = new Float64Array(n);
   let ssResidual = 0;
+  let ssTotal = 0;
+  let sxx = 0;
   for (let i = 0; i < n; i++) {
     const zi = (x[i] - centre) / scale;
     const fitted = c0 + zi * (c1 + zi * c2);
     const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(c0) + Math.abs(c1 * zi) + Math.abs(c2 * zi * zi));
     residuals[i] = e;
     ssResidual += w[i] * e * e;
-  }
-  const yMean = weightedMean(y, w, sumWeights);
-  const xMean = weightedMean(x, w, sumWeights);
-  let ssTotal = 0;
-  let sxx = 0;
-  for (let i = 0; i < n; i++) {
     ssTotal += w[i] * (y[i] - yMean) * (y[i] - yMean);
     sxx += w[i] * (x[i] - xMean) * (x[i] - xMean);
   }

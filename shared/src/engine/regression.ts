@@ -1,5 +1,3 @@
-import { mean, weightedMean } from './stats.js';
-
 /** Least-squares core shared by every regression model: enough to predict, invert and band. */
 export interface RegressionCore {
   n: number;
@@ -34,10 +32,25 @@ export function cleanResidual(e: number, scale: number): number {
 /** Weighted (w ≡ 1: ordinary) straight-line least squares on centred sums. */
 export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>): RegressionCore {
   const n = x.length;
+  // Σw, then the weighted means of x and y (two passes each, as weightedMean), with the passes shared.
   let sumWeights = 0;
-  for (let i = 0; i < n; i++) sumWeights += w[i];
-  const xMean = weightedMean(x, w, sumWeights);
-  const yMean = weightedMean(y, w, sumWeights);
+  let sumX = 0;
+  let sumY = 0;
+  for (let i = 0; i < n; i++) {
+    sumWeights += w[i];
+    sumX += w[i] * x[i];
+    sumY += w[i] * y[i];
+  }
+  const firstX = sumX / sumWeights;
+  const firstY = sumY / sumWeights;
+  let correctionX = 0;
+  let correctionY = 0;
+  for (let i = 0; i < n; i++) {
+    correctionX += w[i] * (x[i] - firstX);
+    correctionY += w[i] * (y[i] - firstY);
+  }
+  const xMean = firstX + correctionX / sumWeights;
+  const yMean = firstY + correctionY / sumWeights;
   let sxx = 0;
   let sxy = 0;
   let syy = 0;
@@ -87,15 +100,24 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike
 /** Straight line through the origin; R² and the regression SS are uncentred (NIST StRD convention). */
 export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): RegressionCore {
   const n = x.length;
+  // The means of x and y (two passes each, as mean) share the passes of the sums and of the residuals.
   let sxx0 = 0;
   let sxy0 = 0;
   let syy0 = 0;
+  let sumX = 0;
+  let sumY = 0;
   for (let i = 0; i < n; i++) {
     sxx0 += x[i] * x[i];
     sxy0 += x[i] * y[i];
     syy0 += y[i] * y[i];
+    sumX += x[i];
+    sumY += y[i];
   }
   const b = sxy0 / sxx0;
+  const firstX = sumX / n;
+  const firstY = sumY / n;
+  let correctionX = 0;
+  let correctionY = 0;
   const residuals = new Float64Array(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
@@ -103,10 +125,13 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): Re
     const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(fitted));
     residuals[i] = e;
     ssResidual += e * e;
+    correctionX += x[i] - firstX;
+    correctionY += y[i] - firstY;
   }
   const df = n - 1;
   const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
-  const xMean = mean(x);
+  const xMean = n === 0 ? NaN : firstX + correctionX / n;
+  const yMean = n === 0 ? NaN : firstY + correctionY / n;
   let sxx = 0;
   for (let i = 0; i < n; i++) sxx += (x[i] - xMean) * (x[i] - xMean);
   return {
@@ -124,7 +149,7 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): Re
     ssRegression: b * sxy0,
     dfRegression: 1,
     xMean,
-    yMean: mean(y),
+    yMean,
     sxx,
     sumWeights: n,
     residuals,
