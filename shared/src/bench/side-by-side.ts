@@ -13,11 +13,16 @@ import { lackOfFit } from '../engine/linearity.js';
 import { collectWarnings } from '../engine/warnings.js';
 import { evaluateParsedStudy } from '../evaluate.js';
 import type { StandardColumns } from '../engine/calibration.js';
-import type { StandardPoint } from '../study.js';
+import type { StandardPoint, Study } from '../study.js';
 import { parseStudy } from '../validate.js';
 
 const SIZES = [1_000, 10_000, 100_000, 1_000_000];
 const RUNS = 5;
+/**
+ * Before the warm-up at the measured size, evaluations of a 2,000-standard study, as a server has made before a large one:
+ * the compiler then has type feedback for every path (a few runs at 1e6 leave functions compiled mid-loop and deoptimised).
+ */
+const SMALL_WARM_UP = { standards: 2_000, runs: 200 };
 /** Runs before the measured ones on each side: at least 3, then up to 20 within 2 s (the JIT compiler settles after some 15 runs). */
 const WARM_UP = { minRuns: 3, maxRuns: 20, ms: 2000 };
 const here = dirname(fileURLToPath(import.meta.url));
@@ -60,12 +65,19 @@ function child(what: string, n: number, runs: number): void {
   const columns = byColumns ? standardColumns(n) : null;
   const study = byColumns ? parsed : { ...parsed, standards: standards(n) };
   const { warn } = collectWarnings();
-  const calibrationOnly = () => {
-    const fit = fitCalibration(study.standards ?? []);
-    return { fit, lackOfFit: lackOfFit(fit, warn), detection: detection(fit, undefined, undefined, study.alpha, [], warn) };
+  const runner = (study: Study, columns: StandardColumns | null) => {
+    const calibrationOnly = () => {
+      const fit = fitCalibration(study.standards ?? []);
+      return { fit, lackOfFit: lackOfFit(fit, warn), detection: detection(fit, undefined, undefined, study.alpha, [], warn) };
+    };
+    const evaluateStudy = () => (columns ? evaluateParsedStudy(study, columns) : evaluateParsedStudy(study));
+    return what === 'calibration' ? calibrationOnly : evaluateStudy;
   };
+  const run = runner(study, columns);
   const evaluateStudy = () => (columns ? evaluateParsedStudy(study, columns) : evaluateParsedStudy(study));
-  const run = what === 'calibration' ? calibrationOnly : evaluateStudy;
+  const small = SMALL_WARM_UP.standards;
+  const warmUpSmall = runner(byColumns ? parsed : { ...parsed, standards: standards(small) }, byColumns ? standardColumns(small) : null);
+  for (let r = 0; r < SMALL_WARM_UP.runs; r++) warmUpSmall();
   const warmUpStart = performance.now();
   for (let r = 0; r < WARM_UP.maxRuns && (r < WARM_UP.minRuns || performance.now() - warmUpStart < WARM_UP.ms); r++) run();
   const times: number[] = [];

@@ -13,7 +13,18 @@ import { fUpper, studentQuantile } from './distributions.js';
 import { fitQuadratic, type QuadraticCore } from './quadratic.js';
 import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
 import { defineLazyTable } from './lazy-table.js';
-import { byGroup, groupPositions, linspace, mean, sd, sortedGroups, sumSquaredDeviations, type Grouping } from './stats.js';
+import {
+  byGroup,
+  groupPositions,
+  linspace,
+  mean,
+  scratchColumns,
+  sd,
+  sortedGroups,
+  sumSquaredDeviations,
+  type Grouping,
+  type Scratch,
+} from './stats.js';
 
 export interface FitOptions {
   model?: CalibrationModel;
@@ -44,6 +55,10 @@ export interface CalibrationFit {
   levels: Grouping;
   /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1]. */
   levelYs: Float64Array;
+  /** The fit's normalised weights (all 1 without weighting). */
+  weights: Float64Array;
+  /** Columns of n numbers for the sections' own scratch work (nothing kept in them outlives the section that writes them). */
+  scratch: Scratch;
   /** Residuals, standardised residuals (null without regression statistics) and back-calculated x and %RE (NaN where null). */
   residuals: Float64Array;
   standardizedResiduals: Float64Array | null;
@@ -82,11 +97,14 @@ function sdProfile(used: UsedPoints): (at: number) => number {
  * Weights 1/x, 1/x² or 1/s² normalised so that they sum to n; the same scale gives w(x)
  * anywhere (for 1/s², s(x) is interpolated between the standard levels).
  */
-function makeWeights(used: UsedPoints, weighting: Weighting): { w: Float64Array; weightAt: (at: number) => number } {
+function makeWeights(
+  used: UsedPoints,
+  weighting: Weighting,
+  w: Float64Array = new Float64Array(used.xs.length),
+): { w: Float64Array; weightAt: (at: number) => number } {
   const n = used.xs.length;
-  if (weighting === 'none') return { w: new Float64Array(n).fill(1), weightAt: () => 1 };
+  if (weighting === 'none') return { w: w.fill(1), weightAt: () => 1 };
   let rawAt: (at: number) => number;
-  const w = new Float64Array(n);
   if (weighting === '1/s2') {
     const sdAt = sdProfile(used);
     rawAt = (at) => sdAt(at) ** -2;
@@ -224,8 +242,8 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
 }
 
 /** `xBacks` holds NaN where a standard has no back-calculated x. */
-function levelSummaries(levels: Grouping, ysByLevel: Float64Array, xBacks: Float64Array): CalibrationLevel[] {
-  const backsByLevel = byGroup(levels, xBacks);
+function levelSummaries(levels: Grouping, ysByLevel: Float64Array, xBacks: Float64Array, scratch: Float64Array): CalibrationLevel[] {
+  const backsByLevel = byGroup(levels, xBacks, scratch);
   return sortedGroups(levels).map((g) => {
     const x = levels.keys[g];
     const n = levels.start[g + 1] - levels.start[g];
@@ -350,13 +368,14 @@ function regressionCurve(
   levels: number,
   xMin: number,
   xMax: number,
+  scratch?: Scratch,
 ): Curve {
   const minPoints = model === 'quadratic' ? 4 : 3;
   if (xs.length < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${xs.length} given)`);
   if (levels < 2) fail('all_x_equal', 'all standards have the same x');
   if (model === 'quadratic') {
     if (levels < 3) fail('too_few_levels', 'a quadratic calibration needs at least 3 distinct x');
-    const q = fitQuadratic(xs, ys, w);
+    const q = fitQuadratic(xs, ys, w, scratch && ((slot) => scratch(SCRATCH.quadratic + slot)));
     assertComputable([q.sxx, q.ssTotal, q.a, q.b, q.c, q.s]);
     if (q.b === 0 && q.c === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
     const [c0, c1, c2] = q.zCoefficients;
@@ -375,7 +394,8 @@ function regressionCurve(
     };
   }
   const origin = model === 'linear-through-origin';
-  const line = origin ? fitThroughOrigin(xs, ys) : fitLine(xs, ys, w);
+  const residuals = scratch ? scratch(SCRATCH.residuals) : new Float64Array(xs.length);
+  const line = origin ? fitThroughOrigin(xs, ys, residuals) : fitLine(xs, ys, w, residuals);
   assertComputable([line.sxx, line.ssTotal, line.a, line.b, line.s]);
   if (line.b === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
   const cx = origin ? 0 : line.xMean;
@@ -509,8 +529,11 @@ interface FittedCurve {
   curve: Curve;
 }
 
-/** The curve through the standards that are not excluded, without its per-point tables. */
-function fitCurve(used: UsedPoints, options: FitOptions): FittedCurve {
+/** Scratch slots of a refit whose curve is used and dropped (sumAbsRePct): weights, residuals, back-calculated x, QR. */
+const SCRATCH = { weights: 0, residuals: 1, xBacks: 2, quadratic: 3 };
+
+/** The curve through the standards that are not excluded, without its per-point tables (with `scratch`: a curve nobody keeps). */
+function fitCurve(used: UsedPoints, options: FitOptions, scratch?: Scratch): FittedCurve {
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
@@ -525,14 +548,14 @@ function fitCurve(used: UsedPoints, options: FitOptions): FittedCurve {
     if (x > xMax) xMax = x;
   }
   checkWeighting(model, weighting, used.sds, xMin);
-  const { w, weightAt } = makeWeights(used, weighting);
+  const { w, weightAt } = makeWeights(used, weighting, scratch?.(SCRATCH.weights));
 
   const curve =
     model === 'one-point'
       ? onePointCurve(ys, levels, xMin)
       : model === 'two-point'
         ? twoPointCurve(used, levels, options.twoPoint?.bracketing === true)
-        : regressionCurve(model, xs, ys, w, levels, xMin, xMax);
+        : regressionCurve(model, xs, ys, w, levels, xMin, xMax, scratch);
   assertComputable([curve.slope, curve.intercept]);
   return { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve };
 }
@@ -541,8 +564,8 @@ function fitCurve(used: UsedPoints, options: FitOptions): FittedCurve {
 /** Σ|%RE| of the back-calculated standards of the fit's points under another weighting (the tables are not built). */
 export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
   const used = { indices: fit.indices, xs: fit.xs, ys: fit.ys, sds: fit.sds, levels: fit.levels, excluded: fit.calibration.excluded };
-  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence });
-  const xBacks = new Float64Array(used.xs.length);
+  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch);
+  const xBacks = fit.scratch(SCRATCH.xBacks);
   curve.backCalculate(used.ys, xBacks);
   let total = 0;
   for (let i = 0; i < used.xs.length; i++) {
@@ -580,6 +603,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     for (let i = 0; i < n; i++) residuals[i] = ys[i] - curve.predict(xs[i]);
   }
   const levelYs = byGroup(levels, ys);
+  const scratch = scratchColumns(n);
   const statistics = core
     ? regressionStatistics(core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt)
     : noRegressionStatistics(xs, ys);
@@ -598,7 +622,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     xMax,
     residuals: [],
     backCalculated: [],
-    levels: levelSummaries(levels, levelYs, xBacks),
+    levels: levelSummaries(levels, levelYs, xBacks, scratch(0)),
     segments: curve.segments,
     excluded,
   };
@@ -632,6 +656,8 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     sds,
     levels,
     levelYs,
+    weights: w,
+    scratch,
     residuals,
     standardizedResiduals,
     xBacks,

@@ -8,6 +8,9 @@ import type { Warn } from './warnings.js';
 
 const PARAMETERS: Record<string, number> = { linear: 2, 'linear-through-origin': 1, quadratic: 3 };
 
+/** Mandel's scratch slots: w(x), the straight line's residuals, the quadratic's QR and residuals (five). */
+const SCRATCH = { weights: 0, line: 1, quadratic: 2 };
+
 /** Lack-of-fit F test against the pure error of replicated standards (Draper & Smith ch. 2). */
 export function lackOfFit(fit: CalibrationFit, warn: Warn): LackOfFitResult | null {
   const p = PARAMETERS[fit.model];
@@ -63,16 +66,20 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
     warn('mandel', 'too_few', "Mandel's test needs at least 4 distinct x");
     return null;
   }
-  const weights = new Float64Array(n).fill(1);
-  if (fit.model !== 'linear-through-origin' && fit.weighting !== 'none') {
-    // w depends on x alone: once per level.
+  // w(x) at each standard: the fit's own weights except for 1/s², whose fit weighs each standard by its own SD.
+  const sameWeights = fit.weighting !== '1/s2';
+  let weights = fit.weights;
+  if (!sameWeights) {
+    weights = fit.scratch(SCRATCH.weights);
     const levelWeights = fit.levels.keys.map((x) => fit.weightAt(x));
     for (let i = 0; i < n; i++) weights[i] = levelWeights[fit.levels.of[i]];
   }
   // The fit's own core where it is the same least-squares problem (same points, same weights).
-  const sameWeights = fit.weighting !== '1/s2';
-  const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights);
-  const quad = fit.model === 'quadratic' && sameWeights ? (fit.core as RegressionCore) : fitQuadratic(xs, ys, weights);
+  const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights, fit.scratch(SCRATCH.line));
+  const quad =
+    fit.model === 'quadratic' && sameWeights
+      ? (fit.core as RegressionCore)
+      : fitQuadratic(xs, ys, weights, (slot) => fit.scratch(SCRATCH.quadratic + slot));
   if (quad.ssResidual === 0) {
     warn('mandel', 'exact_fit', "the quadratic passes exactly through the standards; Mandel's F is undefined");
     return null;

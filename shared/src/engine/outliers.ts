@@ -123,7 +123,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
   const levels: { x: number; values: Float64Array; indices: Float64Array }[] = [];
   if (fit) {
     const { keys, start } = fit.levels;
-    const indicesByLevel = byGroup(fit.levels, fit.indices);
+    const indicesByLevel = byGroup(fit.levels, fit.indices, fit.scratch(0));
     for (const g of sortedGroups(fit.levels)) {
       const [from, to] = [start[g], start[g + 1]];
       levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indices: indicesByLevel.subarray(from, to) });

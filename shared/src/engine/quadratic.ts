@@ -1,4 +1,5 @@
 import { cleanResidual, type RegressionCore } from './regression.js';
+import type { Scratch } from './stats.js';
 
 /**
  * Math.hypot(a, b) as V8 computes it (divide by the larger magnitude, add the squares, square root, scale back),
@@ -93,7 +94,8 @@ export interface QuadraticCore extends RegressionCore {
 }
 
 /** y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares). */
-export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>): QuadraticCore {
+/** With `scratch`, slots 0–4 hold the QR's columns and the residuals (for a caller that keeps neither). */
+export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>, scratch?: Scratch): QuadraticCore {
   const n = x.length;
   // Σw, the mean of x (the centre) and the weighted means of y and x, two passes each as mean and weightedMean, passes shared.
   let sumWeights = 0;
@@ -123,9 +125,10 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
   let scale = 0;
   for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(x[i] - centre));
   if (scale === 0) scale = 1;
-  const columns = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
+  const column = (slot: number) => (scratch ? scratch(slot) : new Float64Array(n));
+  const columns = [column(0), column(1), column(2)];
   const [ones, linear, square] = columns;
-  const rhs = new Float64Array(n);
+  const rhs = column(3);
   // The norm of the first column for the first reflection, in the same pass.
   let firstNorm = 0;
   for (let i = 0; i < n; i++) {
@@ -140,7 +143,7 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
   const { beta, r } = householderLeastSquares(columns, rhs, firstNorm);
   const [c0, c1, c2] = beta;
 
-  const residuals = new Float64Array(n);
+  const residuals = column(4);
   let ssResidual = 0;
   let ssTotal = 0;
   let sxx = 0;

@@ -30,7 +30,7 @@ export function cleanResidual(e: number, scale: number): number {
 }
 
 /** Weighted (w ≡ 1: ordinary) straight-line least squares on centred sums. */
-export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>): RegressionCore {
+export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>, residuals: Float64Array = new Float64Array(x.length)): RegressionCore {
   const n = x.length;
   // Σw, then the weighted means of x and y (two passes each, as weightedMean), with the passes shared.
   let sumWeights = 0;
@@ -63,7 +63,6 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike
   }
   const b = sxy / sxx;
   const a = yMean - b * xMean;
-  const residuals = new Float64Array(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
     const dy = y[i] - yMean;
@@ -98,7 +97,7 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike
 }
 
 /** Straight line through the origin; R² and the regression SS are uncentred (NIST StRD convention). */
-export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): RegressionCore {
+export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, residuals: Float64Array = new Float64Array(x.length)): RegressionCore {
   const n = x.length;
   // The means of x and y (two passes each, as mean) share the passes of the sums and of the residuals.
   let sxx0 = 0;
@@ -118,7 +117,6 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>): Re
   const firstY = sumY / n;
   let correctionX = 0;
   let correctionY = 0;
-  const residuals = new Float64Array(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
     const fitted = b * x[i];

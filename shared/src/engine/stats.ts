@@ -122,10 +122,20 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
 }
 
 /** The column's values in group order (group 0's members first), so each group is one contiguous run. */
-export function byGroup(grouping: Grouping, column: ArrayLike<number>): Float64Array {
-  const out = new Float64Array(grouping.members.length);
+export function byGroup(grouping: Grouping, column: ArrayLike<number>, out: Float64Array = new Float64Array(grouping.members.length)): Float64Array {
   for (let m = 0; m < out.length; m++) out[m] = column[grouping.members[m]];
   return out;
+}
+
+/**
+ * Columns of n numbers lent by slot, made on first use: room for values nobody keeps, written over whole by each user,
+ * so that a large study does not ask the allocator (and the page tables) for fresh megabytes at every step.
+ */
+export type Scratch = (slot: number) => Float64Array;
+
+export function scratchColumns(n: number): Scratch {
+  const columns: Float64Array[] = [];
+  return (slot) => (columns[slot] ??= new Float64Array(n));
 }
 
 /** Group ids sorted by their key, ascending. */
