@@ -249,7 +249,8 @@ function levelSummaries(levels: Grouping, ysByLevel: Float64Array, xBacks: Float
     const n = levels.start[g + 1] - levels.start[g];
     const levelYs = ysByLevel.subarray(levels.start[g], levels.start[g + 1]);
     const backs = backsByLevel.subarray(levels.start[g], levels.start[g + 1]);
-    const complete = !backs.some(Number.isNaN);
+    let complete = true;
+    for (let m = 0; m < backs.length; m++) if (Number.isNaN(backs[m])) complete = false;
     const xBackMean = complete ? mean(backs) : null;
     const backSd = complete ? sd(backs) : null;
     return {
@@ -299,6 +300,21 @@ interface Curve {
   backCalculate(ys: Float64Array, out: Float64Array): void;
 }
 
+// The loops live in module-level functions: a closure made per curve would start each large study in the interpreter.
+function backCalculateStraight(ys: Float64Array, out: Float64Array, intercept: number, slope: number): void {
+  for (let i = 0; i < ys.length; i++) {
+    const xBack = (ys[i] - intercept) / slope;
+    out[i] = Number.isFinite(xBack) ? xBack : NaN;
+  }
+}
+
+function backCalculateCentred(ys: Float64Array, out: Float64Array, cx: number, cy: number, b: number): void {
+  for (let i = 0; i < ys.length; i++) {
+    const xBack = cx + (ys[i] - cy) / b;
+    out[i] = Number.isFinite(xBack) ? xBack : NaN;
+  }
+}
+
 /** Back-calculation through `inverse` one response at a time. */
 function backCalculateEach(inverse: (y: number) => number | null): Curve['backCalculate'] {
   return (ys, out) => {
@@ -318,12 +334,7 @@ function straight(slope: number, intercept: number, segments: BracketSegment[] |
     predict: (x) => intercept + slope * x,
     slopeAt: () => slope,
     inverse: (y) => (y - intercept) / slope,
-    backCalculate: (ys, out) => {
-      for (let i = 0; i < ys.length; i++) {
-        const xBack = (ys[i] - intercept) / slope;
-        out[i] = Number.isFinite(xBack) ? xBack : NaN;
-      }
-    },
+    backCalculate: (ys, out) => backCalculateStraight(ys, out, intercept, slope),
   };
 }
 
@@ -408,13 +419,7 @@ function regressionCurve(
     predict: (x) => cy + line.b * (x - cx),
     slopeAt: () => line.b,
     inverse: (y) => cx + (y - cy) / line.b,
-    backCalculate: (ys, out) => {
-      const b = line.b;
-      for (let i = 0; i < ys.length; i++) {
-        const xBack = cx + (ys[i] - cy) / b;
-        out[i] = Number.isFinite(xBack) ? xBack : NaN;
-      }
-    },
+    backCalculate: (ys, out) => backCalculateCentred(ys, out, cx, cy, line.b),
   };
 }
 

@@ -2,18 +2,20 @@ import { cleanResidual, type RegressionCore } from './regression.js';
 import type { Scratch } from './stats.js';
 
 /**
- * Math.hypot(a, b) as V8 computes it (divide by the larger magnitude, add the squares, square root, scale back),
- * written out so that the compiler inlines it; other arguments go to Math.hypot itself. Same numbers, bit for bit.
+ * Math.hypot(a, b) as V8 computes it (divide by the larger magnitude, add the squares, square root, scale back), written
+ * out so that the compiler inlines it and keeps the running norm unboxed. Same numbers, bit for bit, special values included.
  */
 export function hypot(a: number, b: number): number {
   const x = Math.abs(a);
   const y = Math.abs(b);
   if (x > y) {
-    if (x === Infinity || y !== y) return Math.hypot(a, b);
+    if (x === Infinity) return Infinity;
     const q = y / x;
     return Math.sqrt(1 + q * q) * x;
   }
-  if (!(y > 0 && y < Infinity) || x !== x) return Math.hypot(a, b);
+  if (x === Infinity || y === Infinity) return Infinity;
+  if (x !== x || y !== y) return NaN;
+  if (y === 0) return 0;
   const p = x / y;
   return Math.sqrt(p * p + 1) * y;
 }
@@ -26,6 +28,7 @@ export function hypot(a: number, b: number): number {
  * column's norm. Each sum still adds its terms in row order, so the numbers are those of one pass per sum.
  */
 function householderLeastSquares(columns: Float64Array[], rhs: Float64Array, firstNorm: number | null = null): { beta: number[]; r: number[][] } {
+  if (columns.length > 3) throw new RangeError('householderLeastSquares takes at most 3 columns');
   const p = columns.length;
   const m = rhs.length;
   let nextNorm = firstNorm;
@@ -39,25 +42,43 @@ function householderLeastSquares(columns: Float64Array[], rhs: Float64Array, fir
     if (norm === 0) continue;
     const alpha = column[k] > 0 ? -norm : norm;
     const vk = column[k] - alpha;
-    const targets = [...columns.slice(k + 1), rhs, column];
-    const count = targets.length;
-    const dots = new Float64Array(count);
+    // The other targets: the columns after k, then the right-hand side (one to three arrays).
+    const [t0, t1 = null, t2 = null] = [...columns.slice(k + 1), rhs];
     let vv = 0;
+    let dotColumn = 0;
+    let dot0 = 0;
+    let dot1 = 0;
+    let dot2 = 0;
     vv += vk * vk;
-    for (let j = 0; j < count; j++) dots[j] += vk * targets[j][k];
+    dotColumn += vk * column[k];
+    dot0 += vk * t0[k];
+    if (t1) dot1 += vk * t1[k];
+    if (t2) dot2 += vk * t2[k];
     for (let i = k + 1; i < m; i++) {
       const vi = column[i];
       vv += vi * vi;
-      for (let j = 0; j < count; j++) dots[j] += vi * targets[j][i];
+      dotColumn += vi * vi;
+      dot0 += vi * t0[i];
+      if (t1) dot1 += vi * t1[i];
+      if (t2) dot2 += vi * t2[i];
     }
     if (vv === 0) continue;
-    const factors = dots.map((dot) => (2 * dot) / vv);
-    for (let j = 0; j < count; j++) targets[j][k] -= factors[j] * vk;
+    const fColumn = (2 * dotColumn) / vv;
+    const f0 = (2 * dot0) / vv;
+    const f1 = (2 * dot1) / vv;
+    const f2 = (2 * dot2) / vv;
+    t0[k] -= f0 * vk;
+    if (t1) t1[k] -= f1 * vk;
+    if (t2) t2[k] -= f2 * vk;
+    column[k] -= fColumn * vk;
     const next = k + 1 < p ? columns[k + 1] : null;
     let following = 0;
     for (let i = k + 1; i < m; i++) {
       const vi = column[i];
-      for (let j = 0; j < count; j++) targets[j][i] -= factors[j] * vi;
+      t0[i] -= f0 * vi;
+      if (t1) t1[i] -= f1 * vi;
+      if (t2) t2[i] -= f2 * vi;
+      column[i] -= fColumn * vi;
       if (next) following = hypot(following, next[i]);
     }
     if (next) nextNorm = following;
@@ -84,6 +105,21 @@ function invertUpper(r: number[][]): number[][] {
     }
   }
   return inv;
+}
+
+// Made outside fitQuadratic: a closure over `scale`, which its loop updates, would box it at every step.
+function quadraticLeverage(centre: number, scale: number, rInv: number[][]): (at: number) => number {
+  return (at) => {
+    const zz = (at - centre) / scale;
+    const v = [1, zz, zz * zz];
+    let acc = 0;
+    for (let j = 0; j < 3; j++) {
+      let u = 0;
+      for (let k = 0; k <= j; k++) u += rInv[k][j] * v[k];
+      acc += u * u;
+    }
+    return acc;
+  };
 }
 
 export interface QuadraticCore extends RegressionCore {
@@ -200,16 +236,6 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
     zCoefficients: [c0, c1, c2],
     centre,
     scale,
-    leverage: (at: number) => {
-      const zz = (at - centre) / scale;
-      const v = [1, zz, zz * zz];
-      let acc = 0;
-      for (let j = 0; j < 3; j++) {
-        let u = 0;
-        for (let k = 0; k <= j; k++) u += rInv[k][j] * v[k];
-        acc += u * u;
-      }
-      return acc;
-    },
+    leverage: quadraticLeverage(centre, scale, rInv),
   };
 }

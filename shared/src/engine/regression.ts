@@ -24,6 +24,15 @@ export interface RegressionCore {
   leverage(x: number): number;
 }
 
+// Made outside the fits: a closure over a sum the fit's loop updates would box that sum at every step.
+function lineLeverage(sumWeights: number, xMean: number, sxx: number): (at: number) => number {
+  return (at) => 1 / sumWeights + ((at - xMean) * (at - xMean)) / sxx;
+}
+
+function originLeverage(sxx0: number): (at: number) => number {
+  return (at) => (at * at) / sxx0;
+}
+
 /** Drops round-off residuals of an exact fit so that s_y/x is exactly zero there. */
 export function cleanResidual(e: number, scale: number): number {
   return Math.abs(e) <= 8 * Number.EPSILON * scale ? 0 : e;
@@ -92,7 +101,7 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike
     sxx,
     sumWeights,
     residuals,
-    leverage: (at: number) => 1 / sumWeights + ((at - xMean) * (at - xMean)) / sxx,
+    leverage: lineLeverage(sumWeights, xMean, sxx),
   };
 }
 
@@ -151,6 +160,6 @@ export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, res
     sxx,
     sumWeights: n,
     residuals,
-    leverage: (at: number) => (at * at) / sxx0,
+    leverage: originLeverage(sxx0),
   };
 }
