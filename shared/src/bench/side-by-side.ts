@@ -34,7 +34,9 @@ interface Measured {
   cpu: number[];
   /** CPU time of JSON.stringify of the result of each run (engine modes only; the per-standard tables are built there). */
   serialiseCpu?: number[];
+  /** Peak resident memory after the timed runs, and after the serialisation runs (engine modes). */
   maxRssKb: number;
+  serialisedMaxRssKb?: number;
   figures: Record<string, number | null>;
 }
 
@@ -94,6 +96,7 @@ function child(what: string, n: number, runs: number): void {
     times.push(performance.now() - start);
     cpu.push(cpuSince(startCpu));
   }
+  const maxRssKb = process.resourceUsage().maxRSS;
   // Apart from the runs above, so that no run starts with a previous result's tables in the heap.
   for (let r = 0; r < runs && what !== 'calibration'; r++) {
     const outcome = run();
@@ -111,7 +114,7 @@ function child(what: string, n: number, runs: number): void {
     lod: sdResidual?.lod ?? null,
     level0RePct: result.calibration?.levels[0].rePct ?? null,
   };
-  console.log(JSON.stringify({ times, cpu, serialiseCpu, maxRssKb: process.resourceUsage().maxRSS, figures }));
+  console.log(JSON.stringify({ times, cpu, serialiseCpu, maxRssKb, serialisedMaxRssKb: process.resourceUsage().maxRSS, figures }));
 }
 
 function ensureNumpy(): void {
@@ -152,7 +155,8 @@ function main(): void {
   );
   console.log(
     'standards | engine, full, objects | engine, full, columns | engine, calibration part | numpy/scipy | ' +
-      'full ÷ numpy, CPU (objects, columns) | CPU µs per standard (objects, columns) | serialise CPU | peak RSS objects / columns / numpy',
+      'full ÷ numpy, CPU (objects, columns) | CPU µs per standard (objects, columns) | serialise CPU | ' +
+      'peak RSS objects / columns / numpy | peak RSS once serialised, objects / columns',
   );
   for (const n of SIZES) {
     const engine = measure(process.execPath, [...node, 'engine', String(n), String(RUNS)]);
@@ -177,7 +181,8 @@ function main(): void {
       `${n.toLocaleString('en')} | ${both(engine)} | ${both(columns)} | ${both(calibration)} | ${both(numpy)} | ` +
         `${ratio(engine.cpu, numpy.cpu)}×, ${ratio(columns.cpu, numpy.cpu)}× | ${perStandard(engine)}, ${perStandard(columns)} | ` +
         `${ms(median(engine.serialiseCpu ?? [NaN]))}, ${ms(median(columns.serialiseCpu ?? [NaN]))} | ` +
-        `${mb(engine.maxRssKb)} / ${mb(columns.maxRssKb)} / ${mb(numpy.maxRssKb)}`,
+        `${mb(engine.maxRssKb)} / ${mb(columns.maxRssKb)} / ${mb(numpy.maxRssKb)} | ` +
+        `${mb(engine.serialisedMaxRssKb ?? NaN)} / ${mb(columns.serialisedMaxRssKb ?? NaN)}`,
     );
   }
 }

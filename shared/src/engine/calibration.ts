@@ -590,23 +590,41 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
   const xBacks = new Float64Array(n);
   const rePcts = new Float64Array(n);
   curve.backCalculate(ys, xBacks);
+  // Whether each table holds only finite numbers (the finite guard's question), noted while the columns are written.
+  // Back-calculated x is finite or NaN (null) by construction.
+  let rowsFinite = true;
   for (let i = 0; i < n; i++) {
     const x = xs[i];
     const xBack = xBacks[i];
-    rePcts[i] = Number.isNaN(xBack) || x === 0 ? NaN : (100 * (xBack - x)) / x;
+    const rePct = Number.isNaN(xBack) || x === 0 ? NaN : (100 * (xBack - x)) / x;
+    rePcts[i] = rePct;
+    if (!Number.isFinite(x) || !Number.isFinite(ys[i]) || rePct === Infinity || rePct === -Infinity) rowsFinite = false;
   }
   const core = curve.core;
   let residuals: Float64Array;
   let standardizedResiduals: Float64Array | null = null;
+  let residualsFinite = true;
+  let standardizedFinite = true;
   if (core) {
     residuals = core.residuals;
     // Weighted fits: s_y/x estimates the SD of a unit-weight residual, so each residual is scaled by √w.
     standardizedResiduals = new Float64Array(n);
-    for (let i = 0; i < n; i++) standardizedResiduals[i] = core.s > 0 ? (Math.sqrt(w[i]) * residuals[i]) / core.s : 0;
+    for (let i = 0; i < n; i++) {
+      const e = residuals[i];
+      const standardized = core.s > 0 ? (Math.sqrt(w[i]) * e) / core.s : 0;
+      standardizedResiduals[i] = standardized;
+      if (!Number.isFinite(e)) residualsFinite = false;
+      if (!Number.isFinite(standardized)) standardizedFinite = false;
+    }
   } else {
     residuals = new Float64Array(n);
-    for (let i = 0; i < n; i++) residuals[i] = ys[i] - curve.predict(xs[i]);
+    for (let i = 0; i < n; i++) {
+      const e = ys[i] - curve.predict(xs[i]);
+      residuals[i] = e;
+      if (!Number.isFinite(e)) residualsFinite = false;
+    }
   }
+  const finite = { rows: rowsFinite, residuals: residualsFinite, standardized: standardizedFinite };
   const levelYs = byGroup(levels, ys);
   const scratch = scratchColumns(n);
   const statistics = core
@@ -632,10 +650,10 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     excluded,
   };
   // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
-  defineLazyTable(calibration, 'residuals', () => Array.from(residuals), () => allFinite(residuals));
+  defineLazyTable(calibration, 'residuals', () => Array.from(residuals), () => finite.residuals);
   const standardized = standardizedResiduals;
   if (standardized) {
-    defineLazyTable(calibration, 'standardizedResiduals', () => Array.from(standardized), () => allFinite(standardized));
+    defineLazyTable(calibration, 'standardizedResiduals', () => Array.from(standardized), () => finite.standardized);
   }
   defineLazyTable(
     calibration,
@@ -649,7 +667,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
       }
       return rows;
     },
-    () => allFinite(xs) && allFinite(ys) && finiteOrNaN(xBacks) && finiteOrNaN(rePcts),
+    () => finite.rows,
   );
   return {
     model,
@@ -677,13 +695,3 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
   };
 }
 
-function allFinite(column: Float64Array): boolean {
-  for (let i = 0; i < column.length; i++) if (!Number.isFinite(column[i])) return false;
-  return true;
-}
-
-/** NaN stands for null in these columns. */
-function finiteOrNaN(column: Float64Array): boolean {
-  for (let i = 0; i < column.length; i++) if (column[i] === Infinity || column[i] === -Infinity) return false;
-  return true;
-}

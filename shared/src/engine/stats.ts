@@ -128,14 +128,28 @@ export function byGroup(grouping: Grouping, column: ArrayLike<number>, out: Floa
 }
 
 /**
- * Columns of n numbers lent by slot, made on first use: room for values nobody keeps, written over whole by each user,
- * so that a large study does not ask the allocator (and the page tables) for fresh megabytes at every step.
+ * Columns of n numbers lent by slot: room for values nobody keeps, written over whole by each user and never read after
+ * the (synchronous) section that wrote them. Large columns come from one pool shared by every fit and held weakly, so that
+ * a large study does not ask the allocator (and the page tables) for fresh megabytes at every step or every evaluation.
  */
 export type Scratch = (slot: number) => Float64Array;
 
+/** Below this length a fresh column costs less than keeping one. */
+const POOLED_FROM = 65_536;
+let pool: WeakRef<Float64Array[]> | null = null;
+
 export function scratchColumns(n: number): Scratch {
-  const columns: Float64Array[] = [];
-  return (slot) => (columns[slot] ??= new Float64Array(n));
+  if (n < POOLED_FROM) {
+    const own: Float64Array[] = [];
+    return (slot) => (own[slot] ??= new Float64Array(n));
+  }
+  let shared = pool?.deref();
+  if (!shared) pool = new WeakRef((shared = []));
+  const columns = shared;
+  return (slot) => {
+    if (!(columns[slot]?.length >= n)) columns[slot] = new Float64Array(n);
+    return columns[slot].length === n ? columns[slot] : columns[slot].subarray(0, n);
+  };
 }
 
 /** Group ids sorted by their key, ascending. */
