@@ -62,6 +62,8 @@ export interface CalibrationFit {
   /** Residuals, standardised residuals (null without regression statistics) and back-calculated x and %RE (NaN where null). */
   residuals: Float64Array;
   standardizedResiduals: Float64Array | null;
+  /** Position of the first standardised residual of largest magnitude (0 without them). */
+  largestStandardized: number;
   xBacks: Float64Array;
   rePcts: Float64Array;
   calibration: CalibrationResult;
@@ -154,8 +156,10 @@ function usedColumns(columns: StandardColumns): UsedPoints {
   if (ys.length !== xs.length) fail('not_computable', 'the x and y columns of the standards differ in length');
   const indices = new Int32Array(xs.length);
   for (let i = 0; i < indices.length; i++) indices[i] = i;
-  const sds = columns.sd ? columns.sd.slice() : new Float64Array(xs.length).fill(NaN);
-  return { indices, xs, ys, sds: () => sds, levels: groupPositions(xs), excluded: [] };
+  const given = columns.sd;
+  let sds: Float64Array | null = null;
+  const sdsOf = () => (sds ??= given ? given.slice() : new Float64Array(xs.length).fill(NaN));
+  return { indices, xs, ys, sds: sdsOf, levels: groupPositions(xs), excluded: [] };
 }
 
 /** The standards that are not excluded, read once into columns and grouped by x. */
@@ -298,6 +302,8 @@ interface Curve {
   inverse(y: number): number | null;
   /** x for each response into `out`, NaN where the curve gives no finite x. */
   backCalculate(ys: Float64Array, out: Float64Array): void;
+  /** For a straight line fitted on centred sums: x = cx + (y − cy)/b. */
+  centred: { cx: number; cy: number; b: number } | null;
 }
 
 // The loops live in module-level functions: a closure made per curve would start each large study in the interpreter.
@@ -313,6 +319,17 @@ function backCalculateCentred(ys: Float64Array, out: Float64Array, cx: number, c
     const xBack = cx + (ys[i] - cy) / b;
     out[i] = Number.isFinite(xBack) ? xBack : NaN;
   }
+}
+
+/** Σ|%RE| over the standards whose back-calculated x is finite, as back-calculating them first would give it. */
+function sumAbsRePctCentred(xs: Float64Array, ys: Float64Array, cx: number, cy: number, b: number): number {
+  let total = 0;
+  for (let i = 0; i < xs.length; i++) {
+    const x = xs[i];
+    const xBack = cx + (ys[i] - cy) / b;
+    if (Number.isFinite(xBack) && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
+  }
+  return total;
 }
 
 /** Back-calculation through `inverse` one response at a time. */
@@ -335,6 +352,7 @@ function straight(slope: number, intercept: number, segments: BracketSegment[] |
     slopeAt: () => slope,
     inverse: (y) => (y - intercept) / slope,
     backCalculate: (ys, out) => backCalculateStraight(ys, out, intercept, slope),
+    centred: null,
   };
 }
 
@@ -402,6 +420,7 @@ function regressionCurve(
       slopeAt: (x) => q.b + 2 * q.c * x,
       inverse: (y) => invertQuadratic(q, y, xMin, xMax),
       backCalculate: backCalculateEach((y) => invertQuadratic(q, y, xMin, xMax)),
+      centred: null,
     };
   }
   const origin = model === 'linear-through-origin';
@@ -420,6 +439,7 @@ function regressionCurve(
     slopeAt: () => line.b,
     inverse: (y) => cx + (y - cy) / line.b,
     backCalculate: (ys, out) => backCalculateCentred(ys, out, cx, cy, line.b),
+    centred: { cx, cy, b: line.b },
   };
 }
 
@@ -570,6 +590,7 @@ function fitCurve(used: UsedPoints, options: FitOptions, scratch?: Scratch): Fit
 export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
   const used = { indices: fit.indices, xs: fit.xs, ys: fit.ys, sds: fit.sds, levels: fit.levels, excluded: fit.calibration.excluded };
   const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch);
+  if (curve.centred) return sumAbsRePctCentred(used.xs, used.ys, curve.centred.cx, curve.centred.cy, curve.centred.b);
   const xBacks = fit.scratch(SCRATCH.xBacks);
   curve.backCalculate(used.ys, xBacks);
   let total = 0;
@@ -605,6 +626,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
   let standardizedResiduals: Float64Array | null = null;
   let residualsFinite = true;
   let standardizedFinite = true;
+  let largestStandardized = 0;
   if (core) {
     residuals = core.residuals;
     // Weighted fits: s_y/x estimates the SD of a unit-weight residual, so each residual is scaled by √w.
@@ -613,6 +635,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
       const e = residuals[i];
       const standardized = core.s > 0 ? (Math.sqrt(w[i]) * e) / core.s : 0;
       standardizedResiduals[i] = standardized;
+      if (Math.abs(standardized) > Math.abs(standardizedResiduals[largestStandardized])) largestStandardized = i;
       if (!Number.isFinite(e)) residualsFinite = false;
       if (!Number.isFinite(standardized)) standardizedFinite = false;
     }
@@ -683,6 +706,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     scratch,
     residuals,
     standardizedResiduals,
+    largestStandardized,
     xBacks,
     rePcts,
     calibration,

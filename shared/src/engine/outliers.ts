@@ -163,8 +163,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
 
   const standardized = fit?.standardizedResiduals;
   if (fit && standardized && standardized.length > 0) {
-    let position = 0;
-    for (let i = 0; i < standardized.length; i++) if (Math.abs(standardized[i]) > Math.abs(standardized[position])) position = i;
+    const position = fit.largestStandardized;
     flags.push({
       set: 'calibration residuals',
       test: 'standardizedResidual',
