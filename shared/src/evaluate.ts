@@ -28,6 +28,13 @@ function hasNonFinite(node: object): boolean {
   }
   const record = node as Record<string, unknown>;
   const lazy = unbuiltTables(record);
+  if (!lazy) {
+    for (const value of Object.values(record)) {
+      if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value))
+        return true;
+    }
+    return false;
+  }
   for (const key in record) {
     if (!Object.hasOwn(record, key)) continue;
     const table = lazy?.get(key);

@@ -42,13 +42,23 @@ export function grubbsStatistic(values: ArrayLike<number>): { G: number; positio
 }
 
 export function dixonStatistic(values: ArrayLike<number>): { Q: number; position: number } {
-  const order = Array.from(values, (v, i) => ({ v, i })).sort((p, q) => p.v - q.v);
-  const n = order.length;
-  const range = order[n - 1].v - order[0].v;
+  const n = values.length;
+  // Positions by ascending value, equal values in their original order (what a stable sort gives), by insertion: n ≤ 10 here.
+  const order = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    let j = i - 1;
+    while (j >= 0 && values[order[j]] > values[i]) {
+      order[j + 1] = order[j];
+      j--;
+    }
+    order[j + 1] = i;
+  }
+  const at = (k: number) => values[order[k]];
+  const range = at(n - 1) - at(0);
   if (range === 0) return { Q: 0, position: 0 };
-  const low = (order[1].v - order[0].v) / range;
-  const high = (order[n - 1].v - order[n - 2].v) / range;
-  return high >= low ? { Q: high, position: order[n - 1].i } : { Q: low, position: order[0].i };
+  const low = (at(1) - at(0)) / range;
+  const high = (at(n - 1) - at(n - 2)) / range;
+  return high >= low ? { Q: high, position: order[n - 1] } : { Q: low, position: order[0] };
 }
 
 interface ValueSet {
