@@ -129,8 +129,8 @@ function ensureNumpy(): void {
   });
 }
 
-function measure(command: string, args: string[]): Measured {
-  const out = execFileSync(command, args, { encoding: 'utf8', maxBuffer: 1 << 20 });
+function measure(command: string, args: string[], env: NodeJS.ProcessEnv = process.env): Measured {
+  const out = execFileSync(command, args, { encoding: 'utf8', maxBuffer: 1 << 20, env });
   return JSON.parse(out.trim().split('\n').pop() as string) as Measured;
 }
 
@@ -154,8 +154,8 @@ function main(): void {
       'and its calibration + lack of fit + limits alone; then the CPU of JSON.stringify of the result (objects, columns)',
   );
   console.log(
-    'standards | engine, full, objects | engine, full, columns | engine, calibration part | numpy/scipy | ' +
-      'full ÷ numpy, CPU (objects, columns) | CPU µs per standard (objects, columns) | serialise CPU | ' +
+    'standards | engine, full, objects | engine, full, columns | engine, calibration part | numpy/scipy | numpy/scipy, one BLAS thread | ' +
+      'full ÷ numpy one thread, CPU (objects, columns) | CPU µs per standard (objects, columns) | serialise CPU | ' +
       'peak RSS objects / columns / numpy | peak RSS once serialised, objects / columns',
   );
   for (const n of SIZES) {
@@ -163,6 +163,13 @@ function main(): void {
     const columns = measure(process.execPath, [...node, 'columns', String(n), String(RUNS)]);
     const calibration = measure(process.execPath, [...node, 'calibration', String(n), String(RUNS)]);
     const numpy = measure('python3', [pythonScript, String(n), String(RUNS)]);
+    // OpenBLAS's worker threads wait for work by spinning, which counts as CPU time of the process; one thread shows the
+    // calculation's own CPU time (the engine runs on one thread).
+    const numpyOneThread = measure('python3', [pythonScript, String(n), String(RUNS)], {
+      ...process.env,
+      OPENBLAS_NUM_THREADS: '1',
+      OMP_NUM_THREADS: '1',
+    });
     for (const [side, ours] of [
       ['objects', engine],
       ['columns', columns],
@@ -178,8 +185,9 @@ function main(): void {
     const ratio = (a: number[], b: number[]) => (median(a) / median(b)).toFixed(2);
     const perStandard = (m: Measured) => ((1000 * median(m.cpu)) / n).toFixed(2);
     console.log(
-      `${n.toLocaleString('en')} | ${both(engine)} | ${both(columns)} | ${both(calibration)} | ${both(numpy)} | ` +
-        `${ratio(engine.cpu, numpy.cpu)}×, ${ratio(columns.cpu, numpy.cpu)}× | ${perStandard(engine)}, ${perStandard(columns)} | ` +
+      `${n.toLocaleString('en')} | ${both(engine)} | ${both(columns)} | ${both(calibration)} | ${both(numpy)} | ${both(numpyOneThread)} | ` +
+        `${ratio(engine.cpu, numpyOneThread.cpu)}×, ${ratio(columns.cpu, numpyOneThread.cpu)}× | ` +
+        `${perStandard(engine)}, ${perStandard(columns)} | ` +
         `${ms(median(engine.serialiseCpu ?? [NaN]))}, ${ms(median(columns.serialiseCpu ?? [NaN]))} | ` +
         `${mb(engine.maxRssKb)} / ${mb(columns.maxRssKb)} / ${mb(numpy.maxRssKb)} | ` +
         `${mb(engine.serialisedMaxRssKb ?? NaN)} / ${mb(columns.serialisedMaxRssKb ?? NaN)}`,

@@ -585,7 +585,6 @@ function fitCurve(used: UsedPoints, options: FitOptions, scratch?: Scratch): Fit
   return { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve };
 }
 
-
 /** Σ|%RE| of the back-calculated standards of the fit's points under another weighting (the tables are not built). */
 export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
   const used = { indices: fit.indices, xs: fit.xs, ys: fit.ys, sds: fit.sds, levels: fit.levels, excluded: fit.calibration.excluded };
@@ -673,10 +672,20 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     excluded,
   };
   // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
-  defineLazyTable(calibration, 'residuals', () => Array.from(residuals), () => finite.residuals);
+  defineLazyTable(
+    calibration,
+    'residuals',
+    () => Array.from(residuals),
+    () => finite.residuals,
+  );
   const standardized = standardizedResiduals;
   if (standardized) {
-    defineLazyTable(calibration, 'standardizedResiduals', () => Array.from(standardized), () => finite.standardized);
+    defineLazyTable(
+      calibration,
+      'standardizedResiduals',
+      () => Array.from(standardized),
+      () => finite.standardized,
+    );
   }
   defineLazyTable(
     calibration,
@@ -686,7 +695,13 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
       for (let i = 0; i < n; i++) {
         const xBack = xBacks[i];
         const rePct = rePcts[i];
-        rows[i] = { index: indices[i], x: xs[i], y: ys[i], xBack: Number.isNaN(xBack) ? null : xBack, rePct: Number.isNaN(rePct) ? null : rePct };
+        rows[i] = {
+          index: indices[i],
+          x: xs[i],
+          y: ys[i],
+          xBack: Number.isNaN(xBack) ? null : xBack,
+          rePct: Number.isNaN(rePct) ? null : rePct,
+        };
       }
       return rows;
     },
@@ -718,4 +733,3 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     inverse: curve.inverse,
   };
 }
-

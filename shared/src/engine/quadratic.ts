@@ -27,7 +27,11 @@ export function hypot(a: number, b: number): number {
  * Each reflection takes two passes over the rows: one for v·v and every v·target, one for the updates and the next
  * column's norm. Each sum still adds its terms in row order, so the numbers are those of one pass per sum.
  */
-function householderLeastSquares(columns: Float64Array[], rhs: Float64Array, firstNorm: number | null = null): { beta: number[]; r: number[][] } {
+function householderLeastSquares(
+  columns: Float64Array[],
+  rhs: Float64Array,
+  firstNorm: number | null = null,
+): { beta: number[]; r: number[][] } {
   if (columns.length > 3) throw new RangeError('householderLeastSquares takes at most 3 columns');
   const p = columns.length;
   const m = rhs.length;

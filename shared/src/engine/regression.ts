@@ -39,7 +39,12 @@ export function cleanResidual(e: number, scale: number): number {
 }
 
 /** Weighted (w ≡ 1: ordinary) straight-line least squares on centred sums. */
-export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>, residuals: Float64Array = new Float64Array(x.length)): RegressionCore {
+export function fitLine(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  w: ArrayLike<number>,
+  residuals: Float64Array = new Float64Array(x.length),
+): RegressionCore {
   const n = x.length;
   // Σw, then the weighted means of x and y (two passes each, as weightedMean), with the passes shared.
   let sumWeights = 0;
@@ -106,7 +111,11 @@ export function fitLine(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike
 }
 
 /** Straight line through the origin; R² and the regression SS are uncentred (NIST StRD convention). */
-export function fitThroughOrigin(x: ArrayLike<number>, y: ArrayLike<number>, residuals: Float64Array = new Float64Array(x.length)): RegressionCore {
+export function fitThroughOrigin(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  residuals: Float64Array = new Float64Array(x.length),
+): RegressionCore {
   const n = x.length;
   // The means of x and y (two passes each, as mean) share the passes of the sums and of the residuals.
   let sxx0 = 0;

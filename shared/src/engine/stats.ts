@@ -122,7 +122,11 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
 }
 
 /** The column's values in group order (group 0's members first), so each group is one contiguous run. */
-export function byGroup(grouping: Grouping, column: ArrayLike<number>, out: Float64Array = new Float64Array(grouping.members.length)): Float64Array {
+export function byGroup(
+  grouping: Grouping,
+  column: ArrayLike<number>,
+  out: Float64Array = new Float64Array(grouping.members.length),
+): Float64Array {
   for (let m = 0; m < out.length; m++) out[m] = column[grouping.members[m]];
   return out;
 }
