@@ -1,5 +1,4 @@
 import { describe, expect, it } from 'vitest';
-import { fitCalibration } from '../engine/calibration.js';
 import { hypot } from '../engine/quadratic.js';
 import { evaluateParsedStudy, evaluateStudy } from '../evaluate.js';
 import { parseStudy } from '../validate.js';
