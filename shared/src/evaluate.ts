@@ -1,8 +1,9 @@
-import { fitCalibration, type CalibrationFit } from './engine/calibration.js';
+import { fitCalibration, type CalibrationFit, type StandardColumns } from './engine/calibration.js';
 import { verdict, workingRange } from './engine/criteria.js';
 import { detection, flagLimits } from './engine/detection.js';
 import { homoscedasticity } from './engine/homoscedasticity.js';
 import { interceptTest, throughOrigin } from './engine/intercept.js';
+import { unbuiltTables } from './engine/lazy-table.js';
 import { predictUnknown } from './engine/inverse.js';
 import { lackOfFit, mandel } from './engine/linearity.js';
 import { outliers } from './engine/outliers.js';
@@ -15,7 +16,7 @@ import type { Study } from './study.js';
 import { parseStudy } from './validate.js';
 import { ENGINE_VERSION } from './version.js';
 
-/** Whether any number in the tree is NaN or infinite; walks without building paths. */
+/** Whether any number in the tree is NaN or infinite; walks without building paths, and reads tables not built yet from their columns. */
 function hasNonFinite(node: object): boolean {
   if (Array.isArray(node)) {
     for (let i = 0; i < node.length; i++) {
@@ -26,8 +27,21 @@ function hasNonFinite(node: object): boolean {
     return false;
   }
   const record = node as Record<string, unknown>;
+  const lazy = unbuiltTables(record);
+  if (!lazy) {
+    for (const value of Object.values(record)) {
+      if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value))
+        return true;
+    }
+    return false;
+  }
   for (const key in record) {
     if (!Object.hasOwn(record, key)) continue;
+    const table = lazy?.get(key);
+    if (table && !table.built) {
+      if (!table.allFinite()) return true;
+      continue;
+    }
     const value = record[key];
     if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value))
       return true;
@@ -72,12 +86,15 @@ export function evaluateStudy(input: unknown): EvaluationResult {
   return evaluateParsedStudy(parseStudy(input));
 }
 
-/** Every section of the evaluation of a study `parseStudy` has accepted (the benchmark calls it beyond the list bound). */
-export function evaluateParsedStudy(study: Study): EvaluationResult {
+/**
+ * Every section of the evaluation of a study `parseStudy` has accepted (the benchmark calls it beyond the list bound,
+ * and may pass the standards by columns instead of the study's objects).
+ */
+export function evaluateParsedStudy(study: Study, standards: Study['standards'] | StandardColumns = study.standards): EvaluationResult {
   const { warnings, warn } = collectWarnings();
   const criteria = study.criteria ?? [];
-  const fit = study.standards
-    ? fitCalibration(study.standards, {
+  const fit = standards
+    ? fitCalibration(standards, {
         model: study.model,
         weighting: study.weighting,
         confidence: study.confidence,

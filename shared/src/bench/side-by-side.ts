@@ -12,11 +12,17 @@ import { detection } from '../engine/detection.js';
 import { lackOfFit } from '../engine/linearity.js';
 import { collectWarnings } from '../engine/warnings.js';
 import { evaluateParsedStudy } from '../evaluate.js';
-import type { StandardPoint } from '../study.js';
+import type { StandardColumns } from '../engine/calibration.js';
+import type { StandardPoint, Study } from '../study.js';
 import { parseStudy } from '../validate.js';
 
 const SIZES = [1_000, 10_000, 100_000, 1_000_000];
 const RUNS = 5;
+/**
+ * Before the warm-up at the measured size, evaluations of a 2,000-standard study, as a server has made before a large one:
+ * the compiler then has type feedback for every path (a few runs at 1e6 leave functions compiled mid-loop and deoptimised).
+ */
+const SMALL_WARM_UP = { standards: 2_000, runs: 200 };
 /** Runs before the measured ones on each side: at least 3, then up to 20 within 2 s (the JIT compiler settles after some 15 runs). */
 const WARM_UP = { minRuns: 3, maxRuns: 20, ms: 2000 };
 const here = dirname(fileURLToPath(import.meta.url));
@@ -26,44 +32,79 @@ interface Measured {
   times: number[];
   /** Process CPU time (user + system, every thread) of each run. */
   cpu: number[];
+  /** CPU time of JSON.stringify of the result of each run (engine modes only; the per-standard tables are built there). */
+  serialiseCpu?: number[];
+  /** Peak resident memory after the timed runs, and after the serialisation runs (engine modes). */
   maxRssKb: number;
+  serialisedMaxRssKb?: number;
   figures: Record<string, number | null>;
 }
 
 /** The same standards as the Python side: 1,000 levels, replicated from 2,000 standards on. */
-function standards(n: number): StandardPoint[] {
-  return Array.from({ length: n }, (_, i) => {
-    const x = 1 + (i % 1000) / 10;
-    return { x, y: 0.5 + 2 * x + 0.01 * Math.sin(i) };
-  });
+function standardColumns(n: number): StandardColumns {
+  const x = new Float64Array(n);
+  const y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    x[i] = 1 + (i % 1000) / 10;
+    y[i] = 0.5 + 2 * x[i] + 0.01 * Math.sin(i);
+  }
+  return { x, y };
 }
 
-/** Child mode: `side-by-side.js engine|calibration N RUNS` prints one JSON line like the Python script. */
+function standards(n: number): StandardPoint[] {
+  const { x, y } = standardColumns(n);
+  return Array.from({ length: n }, (_, i) => ({ x: x[i], y: y[i] }));
+}
+
+/**
+ * Child mode: `side-by-side.js engine|columns|calibration N RUNS` prints one JSON line like the Python script.
+ * `engine` evaluates the study with one object per standard (as parsed from a request); `columns` the same study
+ * with its standards passed as two Float64Arrays, as the Python side holds them.
+ */
 function child(what: string, n: number, runs: number): void {
-  const study = { ...parseStudy({ standards: standards(3) }), standards: standards(n) };
+  const parsed = parseStudy({ standards: standards(3) });
+  const byColumns = what === 'columns';
+  const columns = byColumns ? standardColumns(n) : null;
+  const study = byColumns ? parsed : { ...parsed, standards: standards(n) };
   const { warn } = collectWarnings();
-  const calibrationOnly = () => {
-    const fit = fitCalibration(study.standards);
-    return { fit, lackOfFit: lackOfFit(fit, warn), detection: detection(fit, undefined, undefined, study.alpha, [], warn) };
+  const runner = (study: Study, columns: StandardColumns | null) => {
+    const calibrationOnly = () => {
+      const fit = fitCalibration(study.standards ?? []);
+      return { fit, lackOfFit: lackOfFit(fit, warn), detection: detection(fit, undefined, undefined, study.alpha, [], warn) };
+    };
+    const evaluateStudy = () => (columns ? evaluateParsedStudy(study, columns) : evaluateParsedStudy(study));
+    return what === 'calibration' ? calibrationOnly : evaluateStudy;
   };
-  const evaluate = () => {
-    const result = evaluateParsedStudy(study);
-    return { fit: null, result };
-  };
-  const run = what === 'engine' ? evaluate : calibrationOnly;
+  const run = runner(study, columns);
+  const evaluateStudy = () => (columns ? evaluateParsedStudy(study, columns) : evaluateParsedStudy(study));
+  const small = SMALL_WARM_UP.standards;
+  const warmUpSmall = runner(byColumns ? parsed : { ...parsed, standards: standards(small) }, byColumns ? standardColumns(small) : null);
+  for (let r = 0; r < SMALL_WARM_UP.runs; r++) warmUpSmall();
   const warmUpStart = performance.now();
   for (let r = 0; r < WARM_UP.maxRuns && (r < WARM_UP.minRuns || performance.now() - warmUpStart < WARM_UP.ms); r++) run();
   const times: number[] = [];
   const cpu: number[] = [];
+  const serialiseCpu: number[] = [];
+  const cpuSince = (start: NodeJS.CpuUsage) => {
+    const used = process.cpuUsage(start);
+    return (used.user + used.system) / 1000;
+  };
   for (let r = 0; r < runs; r++) {
     const start = performance.now();
     const startCpu = process.cpuUsage();
     run();
     times.push(performance.now() - start);
-    const used = process.cpuUsage(startCpu);
-    cpu.push((used.user + used.system) / 1000);
+    cpu.push(cpuSince(startCpu));
   }
-  const result = evaluateParsedStudy(study);
+  const maxRssKb = process.resourceUsage().maxRSS;
+  // Apart from the runs above, so that no run starts with a previous result's tables in the heap.
+  for (let r = 0; r < runs && what !== 'calibration'; r++) {
+    const outcome = run();
+    const start = process.cpuUsage();
+    JSON.stringify(outcome);
+    serialiseCpu.push(cpuSince(start));
+  }
+  const result = evaluateStudy();
   const sdResidual = result.detection?.sdResidual as { lod: number } | null | undefined;
   const figures = {
     slope: result.calibration?.slope ?? null,
@@ -73,7 +114,7 @@ function child(what: string, n: number, runs: number): void {
     lod: sdResidual?.lod ?? null,
     level0RePct: result.calibration?.levels[0].rePct ?? null,
   };
-  console.log(JSON.stringify({ times, cpu, maxRssKb: process.resourceUsage().maxRSS, figures }));
+  console.log(JSON.stringify({ times, cpu, serialiseCpu, maxRssKb, serialisedMaxRssKb: process.resourceUsage().maxRSS, figures }));
 }
 
 function ensureNumpy(): void {
@@ -88,8 +129,8 @@ function ensureNumpy(): void {
   });
 }
 
-function measure(command: string, args: string[]): Measured {
-  const out = execFileSync(command, args, { encoding: 'utf8', maxBuffer: 1 << 20 });
+function measure(command: string, args: string[], env: NodeJS.ProcessEnv = process.env): Measured {
+  const out = execFileSync(command, args, { encoding: 'utf8', maxBuffer: 1 << 20, env });
   return JSON.parse(out.trim().split('\n').pop() as string) as Measured;
 }
 
@@ -108,23 +149,48 @@ function main(): void {
         ' ',
       )}; medians of ${RUNS} runs after a warm-up of ${WARM_UP.minRuns} to ${WARM_UP.maxRuns} runs (at most ${WARM_UP.ms / 1000} s)`,
   );
-  console.log('wall-clock median ms (CPU median ms); engine: full evaluation, and its calibration + lack of fit + limits alone');
-  console.log('standards | engine, full | engine, calibration part | numpy/scipy | full ÷ numpy, wall (CPU) | peak RSS engine / numpy');
+  console.log(
+    'wall-clock median ms (CPU median ms); engine: full evaluation from one object per standard, the same from two columns, ' +
+      'and its calibration + lack of fit + limits alone; then the CPU of JSON.stringify of the result (objects, columns)',
+  );
+  console.log(
+    'standards | engine, full, objects | engine, full, columns | engine, calibration part | numpy/scipy | numpy/scipy, one BLAS thread | ' +
+      'full ÷ numpy one thread, CPU (objects, columns) | CPU µs per standard (objects, columns) | serialise CPU | ' +
+      'peak RSS objects / columns / numpy | peak RSS once serialised, objects / columns',
+  );
   for (const n of SIZES) {
     const engine = measure(process.execPath, [...node, 'engine', String(n), String(RUNS)]);
+    const columns = measure(process.execPath, [...node, 'columns', String(n), String(RUNS)]);
     const calibration = measure(process.execPath, [...node, 'calibration', String(n), String(RUNS)]);
     const numpy = measure('python3', [pythonScript, String(n), String(RUNS)]);
-    for (const [key, value] of Object.entries(numpy.figures)) {
-      const ours = engine.figures[key];
-      if (value !== null && (ours === null || Math.abs(ours - value) > 1e-8 * Math.max(1, Math.abs(value)))) {
-        console.log(`  ${key} differs at ${n}: engine ${ours}, numpy ${value}`);
+    // OpenBLAS's worker threads wait for work by spinning, which counts as CPU time of the process; one thread shows the
+    // calculation's own CPU time (the engine runs on one thread).
+    const numpyOneThread = measure('python3', [pythonScript, String(n), String(RUNS)], {
+      ...process.env,
+      OPENBLAS_NUM_THREADS: '1',
+      OMP_NUM_THREADS: '1',
+    });
+    for (const [side, ours] of [
+      ['objects', engine],
+      ['columns', columns],
+    ] as const) {
+      for (const [key, value] of Object.entries(numpy.figures)) {
+        const figure = ours.figures[key];
+        if (value !== null && (figure === null || Math.abs(figure - value) > 1e-8 * Math.max(1, Math.abs(value)))) {
+          console.log(`  ${key} differs at ${n} (${side}): engine ${figure}, numpy ${value}`);
+        }
       }
     }
     const both = (m: Measured) => `${ms(median(m.times))} (${ms(median(m.cpu))})`;
     const ratio = (a: number[], b: number[]) => (median(a) / median(b)).toFixed(2);
+    const perStandard = (m: Measured) => ((1000 * median(m.cpu)) / n).toFixed(2);
     console.log(
-      `${n.toLocaleString('en')} | ${both(engine)} | ${both(calibration)} | ${both(numpy)} | ` +
-        `${ratio(engine.times, numpy.times)}× (${ratio(engine.cpu, numpy.cpu)}×) | ${mb(engine.maxRssKb)} / ${mb(numpy.maxRssKb)}`,
+      `${n.toLocaleString('en')} | ${both(engine)} | ${both(columns)} | ${both(calibration)} | ${both(numpy)} | ${both(numpyOneThread)} | ` +
+        `${ratio(engine.cpu, numpyOneThread.cpu)}×, ${ratio(columns.cpu, numpyOneThread.cpu)}× | ` +
+        `${perStandard(engine)}, ${perStandard(columns)} | ` +
+        `${ms(median(engine.serialiseCpu ?? [NaN]))}, ${ms(median(columns.serialiseCpu ?? [NaN]))} | ` +
+        `${mb(engine.maxRssKb)} / ${mb(columns.maxRssKb)} / ${mb(numpy.maxRssKb)} | ` +
+        `${mb(engine.serialisedMaxRssKb ?? NaN)} / ${mb(columns.serialisedMaxRssKb ?? NaN)}`,
     );
   }
 }

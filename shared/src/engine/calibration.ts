@@ -12,7 +12,19 @@ import type { CalibrationModel, StandardPoint, Weighting } from '../study.js';
 import { fUpper, studentQuantile } from './distributions.js';
 import { fitQuadratic, type QuadraticCore } from './quadratic.js';
 import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
-import { groupBy, groupPositions, groupValues, linspace, mean, sd, sortedGroups, sumSquaredDeviations, type Grouping } from './stats.js';
+import { defineLazyTable } from './lazy-table.js';
+import {
+  byGroup,
+  groupPositions,
+  linspace,
+  mean,
+  scratchColumns,
+  sd,
+  sortedGroups,
+  sumSquaredDeviations,
+  type Grouping,
+  type Scratch,
+} from './stats.js';
 
 export interface FitOptions {
   model?: CalibrationModel;
@@ -28,19 +40,32 @@ export interface FitPoint {
   sd?: number;
 }
 
-/** A fitted calibration: the result section plus what prediction and inversion need. */
+/** A fitted calibration: the result section plus what prediction and inversion need, by columns (one entry per used standard). */
 export interface CalibrationFit {
   model: CalibrationModel;
   weighting: Weighting;
   confidence: number;
-  points: FitPoint[];
-  /** Position of each point in the study's `standards` array. */
-  indices: number[];
-  /** x and y of each point. */
-  xs: number[];
-  ys: number[];
-  /** The points grouped by x (the standard levels), in order of first appearance. */
-  levels: Grouping<number>;
+  /** Position of each used standard in the study's `standards` array. */
+  indices: Int32Array;
+  xs: Float64Array;
+  ys: Float64Array;
+  /** SD of each standard (NaN where not given), read from the standards when first asked for. */
+  sds: () => Float64Array;
+  /** The standards grouped by x (the standard levels), in order of first appearance. */
+  levels: Grouping;
+  /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1]. */
+  levelYs: Float64Array;
+  /** The fit's normalised weights (all 1 without weighting). */
+  weights: Float64Array;
+  /** Columns of n numbers for the sections' own scratch work (nothing kept in them outlives the section that writes them). */
+  scratch: Scratch;
+  /** Residuals, standardised residuals (null without regression statistics) and back-calculated x and %RE (NaN where null). */
+  residuals: Float64Array;
+  standardizedResiduals: Float64Array | null;
+  /** Position of the first standardised residual of largest magnitude (0 without them). */
+  largestStandardized: number;
+  xBacks: Float64Array;
+  rePcts: Float64Array;
   calibration: CalibrationResult;
   /** Regression core (null for one- and two-point calibrations). */
   core: RegressionCore | null;
@@ -56,10 +81,10 @@ export interface CalibrationFit {
 export const BAND_POINTS = 101;
 
 /** SD of the response at x, interpolated linearly between the standard levels' SDs. */
-function sdProfile(points: readonly FitPoint[]): (at: number) => number {
-  const levels = [...groupBy(points, (p) => p.x).entries()]
-    .map(([x, group]) => ({ x, sd: mean(group.map((p) => p.sd ?? NaN)) }))
-    .sort((a, b) => a.x - b.x);
+function sdProfile(used: UsedPoints): (at: number) => number {
+  const levelSds = byGroup(used.levels, used.sds());
+  const { keys, start } = used.levels;
+  const levels = keys.map((x, g) => ({ x, sd: mean(levelSds.subarray(start[g], start[g + 1])) })).sort((a, b) => a.x - b.x);
   return (at) => {
     if (at <= levels[0].x) return levels[0].sd;
     const hi = levels.findIndex((l) => l.x >= at);
@@ -74,19 +99,26 @@ function sdProfile(points: readonly FitPoint[]): (at: number) => number {
  * Weights 1/x, 1/x² or 1/s² normalised so that they sum to n; the same scale gives w(x)
  * anywhere (for 1/s², s(x) is interpolated between the standard levels).
  */
-function makeWeights(points: readonly FitPoint[], weighting: Weighting): { w: ArrayLike<number>; weightAt: (at: number) => number } {
-  if (weighting === 'none') return { w: new Float64Array(points.length).fill(1), weightAt: () => 1 };
+function makeWeights(
+  used: UsedPoints,
+  weighting: Weighting,
+  w: Float64Array = new Float64Array(used.xs.length),
+): { w: Float64Array; weightAt: (at: number) => number } {
+  const n = used.xs.length;
+  if (weighting === 'none') return { w: w.fill(1), weightAt: () => 1 };
   let rawAt: (at: number) => number;
   if (weighting === '1/s2') {
-    const sdAt = sdProfile(points);
+    const sdAt = sdProfile(used);
     rawAt = (at) => sdAt(at) ** -2;
+    const sds = used.sds();
+    for (let i = 0; i < n; i++) w[i] = sds[i] ** -2;
   } else {
     const power = weighting === '1/x' ? 1 : 2;
     rawAt = (at) => at ** -power;
+    // Once per level: every standard of a level has the level's x.
+    const levelWeights = used.levels.keys.map(rawAt);
+    for (let i = 0; i < n; i++) w[i] = levelWeights[used.levels.of[i]];
   }
-  const n = points.length;
-  const w = new Float64Array(n);
-  for (let i = 0; i < n; i++) w[i] = weighting === '1/s2' ? (points[i].sd as number) ** -2 : rawAt(points[i].x);
   let total = 0;
   for (let i = 0; i < n; i++) total += w[i];
   const scale = total / n;
@@ -103,19 +135,40 @@ function fail(code: string, message: string, field = 'standards'): never {
 }
 
 interface UsedPoints {
-  points: FitPoint[];
-  indices: number[];
-  xs: number[];
-  ys: number[];
+  indices: Int32Array;
+  xs: Float64Array;
+  ys: Float64Array;
+  sds: () => Float64Array;
+  levels: Grouping;
   excluded: ExcludedStandard[];
 }
 
-function usedPoints(standards: readonly StandardPoint[]): UsedPoints {
+/** Standards held by columns, none excluded (what a caller that already holds arrays passes instead of one object per standard). */
+export interface StandardColumns {
+  x: Float64Array;
+  y: Float64Array;
+  sd?: Float64Array;
+}
+
+function usedColumns(columns: StandardColumns): UsedPoints {
+  const xs = columns.x.slice();
+  const ys = columns.y.slice();
+  if (ys.length !== xs.length) fail('not_computable', 'the x and y columns of the standards differ in length');
+  const indices = new Int32Array(xs.length);
+  for (let i = 0; i < indices.length; i++) indices[i] = i;
+  const given = columns.sd;
+  let sds: Float64Array | null = null;
+  const sdsOf = () => (sds ??= given ? given.slice() : new Float64Array(xs.length).fill(NaN));
+  return { indices, xs, ys, sds: sdsOf, levels: groupPositions(xs), excluded: [] };
+}
+
+/** The standards that are not excluded, read once into columns and grouped by x. */
+function usedPoints(standards: readonly StandardPoint[] | StandardColumns): UsedPoints {
+  if (!Array.isArray(standards)) return usedColumns(standards as StandardColumns);
   const total = standards.length;
-  const points = new Array<FitPoint>(total);
-  const indices = new Array<number>(total);
-  const xs = new Array<number>(total);
-  const ys = new Array<number>(total);
+  let indices = new Int32Array(total);
+  let xs = new Float64Array(total);
+  let ys = new Float64Array(total);
   const excluded: ExcludedStandard[] = [];
   let used = 0;
   for (let index = 0; index < total; index++) {
@@ -124,14 +177,15 @@ function usedPoints(standards: readonly StandardPoint[]): UsedPoints {
       excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
       continue;
     }
-    points[used] = s;
     indices[used] = index;
     xs[used] = s.x;
     ys[used] = s.y;
     used++;
   }
-  for (const list of [points, indices, xs, ys]) list.length = used;
-  return { points, indices, xs, ys, excluded };
+  if (used < total) [indices, xs, ys] = [indices.slice(0, used), xs.slice(0, used), ys.slice(0, used)];
+  let sds: Float64Array | null = null;
+  const sdsOf = () => (sds ??= Float64Array.from(indices, (index) => standards[index].sd ?? NaN));
+  return { indices, xs, ys, sds: sdsOf, levels: groupPositions(xs), excluded };
 }
 
 /** Real root of c2 z² + c1 z + c0 = 0 on the branch that covers [zLo, zHi]. */
@@ -160,10 +214,10 @@ export function invertQuadratic(core: QuadraticCore, y: number, xMin: number, xM
   return z === undefined ? null : core.centre + core.scale * z;
 }
 
-function buildSegments(points: FitPoint[]): { levels: { x: number; yMean: number }[]; segments: BracketSegment[] } {
-  const levels = [...groupBy(points, (p) => p.x).entries()]
-    .map(([x, group]) => ({ x, yMean: mean(group.map((p) => p.y)) }))
-    .sort((p, q) => p.x - q.x);
+function buildSegments(used: UsedPoints): { levels: { x: number; yMean: number }[]; segments: BracketSegment[] } {
+  const levelYs = byGroup(used.levels, used.ys);
+  const { keys, start } = used.levels;
+  const levels = keys.map((x, g) => ({ x, yMean: mean(levelYs.subarray(start[g], start[g + 1])) })).sort((p, q) => p.x - q.x);
   const segments: BracketSegment[] = [];
   for (let i = 1; i < levels.length; i++) {
     const lo = levels[i - 1];
@@ -192,18 +246,17 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
 }
 
 /** `xBacks` holds NaN where a standard has no back-calculated x. */
-function levelSummaries(levels: Grouping<number>, ys: readonly number[], xBacks: Float64Array): CalibrationLevel[] {
+function levelSummaries(levels: Grouping, ysByLevel: Float64Array, xBacks: Float64Array, scratch: Float64Array): CalibrationLevel[] {
+  const backsByLevel = byGroup(levels, xBacks, scratch);
   return sortedGroups(levels).map((g) => {
     const x = levels.keys[g];
     const n = levels.start[g + 1] - levels.start[g];
-    const levelYs = groupValues(levels, g, (i) => ys[i]);
-    const backs: number[] = [];
-    for (let m = levels.start[g]; m < levels.start[g + 1]; m++) {
-      const xBack = xBacks[levels.members[m]];
-      if (!Number.isNaN(xBack)) backs.push(xBack);
-    }
-    const xBackMean = backs.length === n ? mean(backs) : null;
-    const backSd = backs.length === n ? sd(backs) : null;
+    const levelYs = ysByLevel.subarray(levels.start[g], levels.start[g + 1]);
+    const backs = backsByLevel.subarray(levels.start[g], levels.start[g + 1]);
+    let complete = true;
+    for (let m = 0; m < backs.length; m++) if (Number.isNaN(backs[m])) complete = false;
+    const xBackMean = complete ? mean(backs) : null;
+    const backSd = complete ? sd(backs) : null;
     return {
       x,
       n,
@@ -247,6 +300,46 @@ interface Curve {
   predict(x: number): number;
   slopeAt(x: number): number;
   inverse(y: number): number | null;
+  /** x for each response into `out`, NaN where the curve gives no finite x. */
+  backCalculate(ys: Float64Array, out: Float64Array): void;
+  /** For a straight line fitted on centred sums: x = cx + (y − cy)/b. */
+  centred: { cx: number; cy: number; b: number } | null;
+}
+
+// The loops live in module-level functions: a closure made per curve would start each large study in the interpreter.
+function backCalculateStraight(ys: Float64Array, out: Float64Array, intercept: number, slope: number): void {
+  for (let i = 0; i < ys.length; i++) {
+    const xBack = (ys[i] - intercept) / slope;
+    out[i] = Number.isFinite(xBack) ? xBack : NaN;
+  }
+}
+
+function backCalculateCentred(ys: Float64Array, out: Float64Array, cx: number, cy: number, b: number): void {
+  for (let i = 0; i < ys.length; i++) {
+    const xBack = cx + (ys[i] - cy) / b;
+    out[i] = Number.isFinite(xBack) ? xBack : NaN;
+  }
+}
+
+/** Σ|%RE| over the standards whose back-calculated x is finite, as back-calculating them first would give it. */
+function sumAbsRePctCentred(xs: Float64Array, ys: Float64Array, cx: number, cy: number, b: number): number {
+  let total = 0;
+  for (let i = 0; i < xs.length; i++) {
+    const x = xs[i];
+    const xBack = cx + (ys[i] - cy) / b;
+    if (Number.isFinite(xBack) && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
+  }
+  return total;
+}
+
+/** Back-calculation through `inverse` one response at a time. */
+function backCalculateEach(inverse: (y: number) => number | null): Curve['backCalculate'] {
+  return (ys, out) => {
+    for (let i = 0; i < ys.length; i++) {
+      const xBack = inverse(ys[i]);
+      out[i] = xBack !== null && Number.isFinite(xBack) ? xBack : NaN;
+    }
+  };
 }
 
 function straight(slope: number, intercept: number, segments: BracketSegment[] | null = null): Curve {
@@ -258,10 +351,12 @@ function straight(slope: number, intercept: number, segments: BracketSegment[] |
     predict: (x) => intercept + slope * x,
     slopeAt: () => slope,
     inverse: (y) => (y - intercept) / slope,
+    backCalculate: (ys, out) => backCalculateStraight(ys, out, intercept, slope),
+    centred: null,
   };
 }
 
-function onePointCurve(ys: number[], levels: number, x: number): Curve {
+function onePointCurve(ys: Float64Array, levels: number, x: number): Curve {
   if (levels !== 1) fail('too_many_levels', 'a one-point calibration takes one standard level');
   if (x <= 0) fail('not_positive', 'the one-point standard must have a concentration above zero');
   const slope = mean(ys) / x;
@@ -269,10 +364,10 @@ function onePointCurve(ys: number[], levels: number, x: number): Curve {
   return straight(slope, 0);
 }
 
-function twoPointCurve(points: FitPoint[], levels: number, bracketing: boolean): Curve {
-  if (points.length < 2 || levels < 2) fail('all_x_equal', 'a two-point calibration needs two standards at different x');
+function twoPointCurve(used: UsedPoints, levels: number, bracketing: boolean): Curve {
+  if (used.xs.length < 2 || levels < 2) fail('all_x_equal', 'a two-point calibration needs two standards at different x');
   if (levels > 2 && !bracketing) fail('too_many_levels', 'a two-point calibration takes two standard levels');
-  const built = buildSegments(points);
+  const built = buildSegments(used);
   const low = built.levels[0];
   const high = built.levels[built.levels.length - 1];
   const slope = (high.yMean - low.yMean) / (high.x - low.x);
@@ -280,33 +375,36 @@ function twoPointCurve(points: FitPoint[], levels: number, bracketing: boolean):
   if (!bracketing) return outer;
   const segs = built.segments;
   const segmentAt = (x: number) => segs.find((seg) => x <= seg.xHigh) ?? segs[segs.length - 1];
+  const inverse = (y: number) => {
+    const seg = pickSegment(segs, y);
+    return (y - seg.intercept) / seg.slope;
+  };
   return {
     ...outer,
     segments: segs,
     predict: (x) => segmentAt(x).intercept + segmentAt(x).slope * x,
     slopeAt: (x) => segmentAt(x).slope,
-    inverse: (y) => {
-      const seg = pickSegment(segs, y);
-      return (y - seg.intercept) / seg.slope;
-    },
+    inverse,
+    backCalculate: backCalculateEach(inverse),
   };
 }
 
 function regressionCurve(
   model: CalibrationModel,
-  xs: number[],
-  ys: number[],
-  w: ArrayLike<number>,
+  xs: Float64Array,
+  ys: Float64Array,
+  w: Float64Array,
   levels: number,
   xMin: number,
   xMax: number,
+  scratch?: Scratch,
 ): Curve {
   const minPoints = model === 'quadratic' ? 4 : 3;
   if (xs.length < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${xs.length} given)`);
   if (levels < 2) fail('all_x_equal', 'all standards have the same x');
   if (model === 'quadratic') {
     if (levels < 3) fail('too_few_levels', 'a quadratic calibration needs at least 3 distinct x');
-    const q = fitQuadratic(xs, ys, w);
+    const q = fitQuadratic(xs, ys, w, scratch && ((slot) => scratch(SCRATCH.quadratic + slot)));
     assertComputable([q.sxx, q.ssTotal, q.a, q.b, q.c, q.s]);
     if (q.b === 0 && q.c === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
     const [c0, c1, c2] = q.zCoefficients;
@@ -321,10 +419,13 @@ function regressionCurve(
       },
       slopeAt: (x) => q.b + 2 * q.c * x,
       inverse: (y) => invertQuadratic(q, y, xMin, xMax),
+      backCalculate: backCalculateEach((y) => invertQuadratic(q, y, xMin, xMax)),
+      centred: null,
     };
   }
   const origin = model === 'linear-through-origin';
-  const line = origin ? fitThroughOrigin(xs, ys) : fitLine(xs, ys, w);
+  const residuals = scratch ? scratch(SCRATCH.residuals) : new Float64Array(xs.length);
+  const line = origin ? fitThroughOrigin(xs, ys, residuals) : fitLine(xs, ys, w, residuals);
   assertComputable([line.sxx, line.ssTotal, line.a, line.b, line.s]);
   if (line.b === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
   const cx = origin ? 0 : line.xMean;
@@ -337,6 +438,8 @@ function regressionCurve(
     predict: (x) => cy + line.b * (x - cx),
     slopeAt: () => line.b,
     inverse: (y) => cx + (y - cy) / line.b,
+    backCalculate: (ys, out) => backCalculateCentred(ys, out, cx, cy, line.b),
+    centred: { cx, cy, b: line.b },
   };
 }
 
@@ -351,6 +454,7 @@ type Statistics = Omit<
   | 'xMax'
   | 'residuals'
   | 'backCalculated'
+  | 'standardizedResiduals'
   | 'levels'
   | 'segments'
   | 'excluded'
@@ -363,7 +467,6 @@ function regressionStatistics(
   bandXs: number[],
   curve: Curve,
   weightAt: (x: number) => number,
-  w: ArrayLike<number>,
 ): Statistics {
   const t = core.df > 0 ? studentQuantile((1 + confidence) / 2, core.df) : null;
   const ci = (estimate: number, se: number | null) => (t === null || se === null ? null : interval(estimate, t * se));
@@ -391,8 +494,6 @@ function regressionStatistics(
     yMean: core.yMean,
     sxx: core.sxx,
     sumWeights: core.sumWeights,
-    // Weighted fits: s_y/x estimates the SD of a unit-weight residual, so each residual is scaled by √w.
-    standardizedResiduals: core.residuals.map((e, i) => (core.s > 0 ? (Math.sqrt(w[i]) * e) / core.s : 0)),
     bands: t === null ? null : bandXs.map((x) => band(core, t, x, curve.predict, weightAt)),
     anova: {
       dfRegression: core.dfRegression,
@@ -407,7 +508,7 @@ function regressionStatistics(
   };
 }
 
-function noRegressionStatistics(xs: number[], ys: number[]): Statistics {
+function noRegressionStatistics(xs: Float64Array, ys: Float64Array): Statistics {
   return {
     df: null,
     seSlope: null,
@@ -426,17 +527,16 @@ function noRegressionStatistics(xs: number[], ys: number[]): Statistics {
     yMean: mean(ys),
     sxx: sumSquaredDeviations(xs),
     sumWeights: xs.length,
-    standardizedResiduals: null,
     bands: null,
     anova: null,
   };
 }
 
-function checkWeighting(model: CalibrationModel, weighting: Weighting, points: FitPoint[], xMin: number): void {
+function checkWeighting(model: CalibrationModel, weighting: Weighting, sds: () => Float64Array, xMin: number): void {
   if (weighting === 'none') return;
   if (model !== 'linear' && model !== 'quadratic') fail('incompatible', 'weighting applies only to linear and quadratic', 'weighting');
   if (weighting === '1/s2') {
-    if (points.some((p) => !(p.sd !== undefined && p.sd > 0))) fail('required', 'weighting 1/s2 needs the SD of every standard');
+    if (sds().some((sd) => !(sd > 0))) fail('required', 'weighting 1/s2 needs the SD of every standard');
   } else if (xMin <= 0) {
     fail('not_positive', `weighting ${weighting} needs every standard above zero`);
   }
@@ -449,101 +549,183 @@ interface FittedCurve {
   used: UsedPoints;
   xMin: number;
   xMax: number;
-  w: ArrayLike<number>;
+  w: Float64Array;
   weightAt: (x: number) => number;
   curve: Curve;
 }
 
-/** The curve through the standards that are not excluded, without its per-point tables. */
-function fitCurve(used: UsedPoints, options: FitOptions): FittedCurve {
+/** Scratch slots of a refit whose curve is used and dropped (sumAbsRePct): weights, residuals, back-calculated x, QR. */
+const SCRATCH = { weights: 0, residuals: 1, xBacks: 2, quadratic: 3 };
+
+/** The curve through the standards that are not excluded, without its per-point tables (with `scratch`: a curve nobody keeps). */
+function fitCurve(used: UsedPoints, options: FitOptions, scratch?: Scratch): FittedCurve {
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
-  const { points, xs, ys } = used;
-  if (points.length === 0) fail('too_few', 'no standards to calibrate with');
-  const levels = new Set(xs).size;
+  const { xs, ys } = used;
+  if (xs.length === 0) fail('too_few', 'no standards to calibrate with');
+  const levels = used.levels.keys.length;
   let xMin = Infinity;
   let xMax = -Infinity;
-  for (const x of xs) {
+  for (let i = 0; i < xs.length; i++) {
+    const x = xs[i];
     if (x < xMin) xMin = x;
     if (x > xMax) xMax = x;
   }
-  checkWeighting(model, weighting, points, xMin);
-  const { w, weightAt } = makeWeights(points, weighting);
+  checkWeighting(model, weighting, used.sds, xMin);
+  const { w, weightAt } = makeWeights(used, weighting, scratch?.(SCRATCH.weights));
 
   const curve =
     model === 'one-point'
       ? onePointCurve(ys, levels, xMin)
       : model === 'two-point'
-        ? twoPointCurve(points, levels, options.twoPoint?.bracketing === true)
-        : regressionCurve(model, xs, ys, w, levels, xMin, xMax);
+        ? twoPointCurve(used, levels, options.twoPoint?.bracketing === true)
+        : regressionCurve(model, xs, ys, w, levels, xMin, xMax, scratch);
   assertComputable([curve.slope, curve.intercept]);
   return { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve };
 }
 
-/** x back-calculated from y, or null where the curve gives no finite x. */
-function backCalculate(curve: Curve, y: number): number | null {
-  const xBack = curve.inverse(y);
-  return xBack !== null && Number.isFinite(xBack) ? xBack : null;
-}
-
 /** Σ|%RE| of the back-calculated standards of the fit's points under another weighting (the tables are not built). */
 export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
-  const used = { points: fit.points, indices: fit.indices, xs: fit.xs, ys: fit.ys, excluded: fit.calibration.excluded };
-  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence });
+  const used = { indices: fit.indices, xs: fit.xs, ys: fit.ys, sds: fit.sds, levels: fit.levels, excluded: fit.calibration.excluded };
+  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch);
+  if (curve.centred) return sumAbsRePctCentred(used.xs, used.ys, curve.centred.cx, curve.centred.cy, curve.centred.b);
+  const xBacks = fit.scratch(SCRATCH.xBacks);
+  curve.backCalculate(used.ys, xBacks);
   let total = 0;
   for (let i = 0; i < used.xs.length; i++) {
     const x = used.xs[i];
-    const xBack = backCalculate(curve, used.ys[i]);
-    if (xBack !== null && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
+    const xBack = xBacks[i];
+    if (!Number.isNaN(xBack) && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
   }
   return total;
 }
 
 /** Fits a calibration of the chosen model to the standards that are not excluded. */
-export function fitCalibration(standards: readonly StandardPoint[], options: FitOptions = {}): CalibrationFit {
+export function fitCalibration(standards: readonly StandardPoint[] | StandardColumns, options: FitOptions = {}): CalibrationFit {
   const { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve } = fitCurve(usedPoints(standards), options);
-  const { points, indices, xs, ys, excluded } = used;
-  const n = points.length;
+  const { indices, xs, ys, sds, levels, excluded } = used;
+  const n = xs.length;
 
-  const backCalculated = new Array<BackCalculatedPoint>(n);
   const xBacks = new Float64Array(n);
+  const rePcts = new Float64Array(n);
+  curve.backCalculate(ys, xBacks);
+  // Whether each table holds only finite numbers (the finite guard's question), noted while the columns are written.
+  // Back-calculated x is finite or NaN (null) by construction.
+  let rowsFinite = true;
   for (let i = 0; i < n; i++) {
     const x = xs[i];
-    const xBack = backCalculate(curve, ys[i]);
-    xBacks[i] = xBack ?? NaN;
-    backCalculated[i] = { index: indices[i], x, y: ys[i], xBack, rePct: xBack === null || x === 0 ? null : (100 * (xBack - x)) / x };
+    const xBack = xBacks[i];
+    const rePct = Number.isNaN(xBack) || x === 0 ? NaN : (100 * (xBack - x)) / x;
+    rePcts[i] = rePct;
+    if (!Number.isFinite(x) || !Number.isFinite(ys[i]) || rePct === Infinity || rePct === -Infinity) rowsFinite = false;
   }
-  const levels = groupPositions(n, (i) => xs[i]);
-  const statistics = curve.core
-    ? regressionStatistics(curve.core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt, w)
+  const core = curve.core;
+  let residuals: Float64Array;
+  let standardizedResiduals: Float64Array | null = null;
+  let residualsFinite = true;
+  let standardizedFinite = true;
+  let largestStandardized = 0;
+  if (core) {
+    residuals = core.residuals;
+    // Weighted fits: s_y/x estimates the SD of a unit-weight residual, so each residual is scaled by √w.
+    standardizedResiduals = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const e = residuals[i];
+      const standardized = core.s > 0 ? (Math.sqrt(w[i]) * e) / core.s : 0;
+      standardizedResiduals[i] = standardized;
+      if (Math.abs(standardized) > Math.abs(standardizedResiduals[largestStandardized])) largestStandardized = i;
+      if (!Number.isFinite(e)) residualsFinite = false;
+      if (!Number.isFinite(standardized)) standardizedFinite = false;
+    }
+  } else {
+    residuals = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const e = ys[i] - curve.predict(xs[i]);
+      residuals[i] = e;
+      if (!Number.isFinite(e)) residualsFinite = false;
+    }
+  }
+  const finite = { rows: rowsFinite, residuals: residualsFinite, standardized: standardizedFinite };
+  const levelYs = byGroup(levels, ys);
+  const scratch = scratchColumns(n);
+  const statistics = core
+    ? regressionStatistics(core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt)
     : noRegressionStatistics(xs, ys);
+  const { bands, anova, ...fitStatistics } = statistics;
   const calibration: CalibrationResult = {
     model,
     weighting,
     n,
     slope: curve.slope,
     intercept: curve.intercept,
-    ...statistics,
+    ...fitStatistics,
+    standardizedResiduals: null,
+    bands,
+    anova,
     xMin,
     xMax,
-    residuals: curve.core ? curve.core.residuals : points.map((p) => p.y - curve.predict(p.x)),
-    backCalculated,
-    levels: levelSummaries(levels, ys, xBacks),
+    residuals: [],
+    backCalculated: [],
+    levels: levelSummaries(levels, levelYs, xBacks, scratch(0)),
     segments: curve.segments,
     excluded,
   };
+  // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
+  defineLazyTable(
+    calibration,
+    'residuals',
+    () => Array.from(residuals),
+    () => finite.residuals,
+  );
+  const standardized = standardizedResiduals;
+  if (standardized) {
+    defineLazyTable(
+      calibration,
+      'standardizedResiduals',
+      () => Array.from(standardized),
+      () => finite.standardized,
+    );
+  }
+  defineLazyTable(
+    calibration,
+    'backCalculated',
+    () => {
+      const rows = new Array<BackCalculatedPoint>(n);
+      for (let i = 0; i < n; i++) {
+        const xBack = xBacks[i];
+        const rePct = rePcts[i];
+        rows[i] = {
+          index: indices[i],
+          x: xs[i],
+          y: ys[i],
+          xBack: Number.isNaN(xBack) ? null : xBack,
+          rePct: Number.isNaN(rePct) ? null : rePct,
+        };
+      }
+      return rows;
+    },
+    () => finite.rows,
+  );
   return {
     model,
     weighting,
     confidence,
-    points,
     indices,
     xs,
     ys,
+    sds,
     levels,
+    levelYs,
+    weights: w,
+    scratch,
+    residuals,
+    standardizedResiduals,
+    largestStandardized,
+    xBacks,
+    rePcts,
     calibration,
-    core: curve.core,
+    core,
     segments: curve.segments,
     weightAt,
     predict: curve.predict,

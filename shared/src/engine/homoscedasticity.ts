@@ -2,12 +2,12 @@ import type { HomoscedasticityResult } from '../result.js';
 import { CANDIDATE_WEIGHTINGS, type CandidateWeighting } from '../study.js';
 import { sumAbsRePct, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
-import { groupValues, sortedGroups, variance } from './stats.js';
+import { sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
 
 function sumAbsRe(fit: CalibrationFit): number {
   let total = 0;
-  for (const p of fit.calibration.backCalculated) if (p.rePct !== null) total += Math.abs(p.rePct);
+  for (let i = 0; i < fit.rePcts.length; i++) if (!Number.isNaN(fit.rePcts[i])) total += Math.abs(fit.rePcts[i]);
   return total;
 }
 
@@ -32,8 +32,9 @@ export function homoscedasticity(fit: CalibrationFit, warn: Warn): Homoscedastic
   const sorted = sortedGroups(fit.levels);
   const [lowest, highest] = [sorted[0], sorted[sorted.length - 1]];
   const [xLow, xHigh] = [fit.levels.keys[lowest], fit.levels.keys[highest]];
-  const low = groupValues(fit.levels, lowest, (i) => fit.ys[i]);
-  const high = groupValues(fit.levels, highest, (i) => fit.ys[i]);
+  const { start } = fit.levels;
+  const low = fit.levelYs.subarray(start[lowest], start[lowest + 1]);
+  const high = fit.levelYs.subarray(start[highest], start[highest + 1]);
   if (low.length < 2 || high.length < 2) {
     warn('homoscedasticity', 'too_few', 'the variance check needs at least 2 replicates at the lowest and the highest level');
     return null;

@@ -47,7 +47,7 @@ export function throughOrigin(fit: CalibrationFit, unknowns: readonly UnknownRes
     warn('throughOrigin', 'too_few', 'the line through the origin needs at least 2 standards with x above zero');
     return null;
   }
-  const line = fitThroughOrigin(xs, ys);
+  const line = fitThroughOrigin(xs, ys, fit.scratch(0));
   return {
     slope: line.b,
     seSlope: line.seB,

@@ -3,10 +3,13 @@ import type { CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { fitQuadratic } from './quadratic.js';
 import { fitLine, type RegressionCore } from './regression.js';
-import { groupValues, mean } from './stats.js';
+import { mean } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const PARAMETERS: Record<string, number> = { linear: 2, 'linear-through-origin': 1, quadratic: 3 };
+
+/** Mandel's scratch slots: w(x), the straight line's residuals, the quadratic's QR and residuals (five). */
+const SCRATCH = { weights: 0, line: 1, quadratic: 2 };
 
 /** Lack-of-fit F test against the pure error of replicated standards (Draper & Smith ch. 2). */
 export function lackOfFit(fit: CalibrationFit, warn: Warn): LackOfFitResult | null {
@@ -18,17 +21,17 @@ export function lackOfFit(fit: CalibrationFit, warn: Warn): LackOfFitResult | nu
   }
   const levels = fit.levels;
   const k = levels.keys.length;
-  const n = fit.points.length;
+  const n = fit.xs.length;
   if (n - k < 1 || k - p < 1) {
     warn('lackOfFit', 'too_few', `the lack-of-fit test needs replicated standards and at least ${p + 1} distinct x`);
     return null;
   }
   let ssPureError = 0;
   for (let g = 0; g < k; g++) {
-    const ys = groupValues(levels, g, (i) => fit.ys[i]);
+    const ys = fit.levelYs.subarray(levels.start[g], levels.start[g + 1]);
     const centre = mean(ys);
     const w = fit.weightAt(levels.keys[g]);
-    for (const y of ys) ssPureError += w * (y - centre) ** 2;
+    for (let m = 0; m < ys.length; m++) ssPureError += w * (ys[m] - centre) ** 2;
   }
   const dfPureError = n - k;
   const dfLackOfFit = k - p;
@@ -63,11 +66,20 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
     warn('mandel', 'too_few', "Mandel's test needs at least 4 distinct x");
     return null;
   }
-  const weights = fit.model === 'linear-through-origin' ? new Float64Array(n).fill(1) : Float64Array.from(xs, (x) => fit.weightAt(x));
-  // The fit's own core where it is the same least-squares problem (same points, same weights).
+  // w(x) at each standard: the fit's own weights except for 1/s², whose fit weighs each standard by its own SD.
   const sameWeights = fit.weighting !== '1/s2';
-  const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights);
-  const quad = fit.model === 'quadratic' && sameWeights ? (fit.core as RegressionCore) : fitQuadratic(xs, ys, weights);
+  let weights = fit.weights;
+  if (!sameWeights) {
+    weights = fit.scratch(SCRATCH.weights);
+    const levelWeights = fit.levels.keys.map((x) => fit.weightAt(x));
+    for (let i = 0; i < n; i++) weights[i] = levelWeights[fit.levels.of[i]];
+  }
+  // The fit's own core where it is the same least-squares problem (same points, same weights).
+  const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights, fit.scratch(SCRATCH.line));
+  const quad =
+    fit.model === 'quadratic' && sameWeights
+      ? (fit.core as RegressionCore)
+      : fitQuadratic(xs, ys, weights, (slot) => fit.scratch(SCRATCH.quadratic + slot));
   if (quad.ssResidual === 0) {
     warn('mandel', 'exact_fit', "the quadratic passes exactly through the standards; Mandel's F is undefined");
     return null;

@@ -2,7 +2,7 @@ import type { OutlierFlag } from '../result.js';
 import { blankValue, type Study } from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, studentQuantile } from './distributions.js';
-import { groupBy, groupValues, mean, sd, sortedGroups, variance } from './stats.js';
+import { byGroup, groupBy, mean, sd, sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const ALPHA = 0.05;
@@ -31,7 +31,7 @@ export function cochranCritical(k: number, nu: number, alpha = ALPHA): number {
   return 1 / (1 + (k - 1) / F);
 }
 
-export function grubbsStatistic(values: readonly number[]): { G: number; position: number } {
+export function grubbsStatistic(values: ArrayLike<number>): { G: number; position: number } {
   const centre = mean(values);
   const s = sd(values) ?? 0;
   let position = 0;
@@ -41,21 +41,31 @@ export function grubbsStatistic(values: readonly number[]): { G: number; positio
   return { G: s > 0 ? Math.abs(values[position] - centre) / s : 0, position };
 }
 
-export function dixonStatistic(values: readonly number[]): { Q: number; position: number } {
-  const order = values.map((v, i) => ({ v, i })).sort((p, q) => p.v - q.v);
-  const n = order.length;
-  const range = order[n - 1].v - order[0].v;
+export function dixonStatistic(values: ArrayLike<number>): { Q: number; position: number } {
+  const n = values.length;
+  // Positions by ascending value, equal values in their original order (what a stable sort gives), by insertion: n ≤ 10 here.
+  const order = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    let j = i - 1;
+    while (j >= 0 && values[order[j]] > values[i]) {
+      order[j + 1] = order[j];
+      j--;
+    }
+    order[j + 1] = i;
+  }
+  const at = (k: number) => values[order[k]];
+  const range = at(n - 1) - at(0);
   if (range === 0) return { Q: 0, position: 0 };
-  const low = (order[1].v - order[0].v) / range;
-  const high = (order[n - 1].v - order[n - 2].v) / range;
-  return high >= low ? { Q: high, position: order[n - 1].i } : { Q: low, position: order[0].i };
+  const low = (at(1) - at(0)) / range;
+  const high = (at(n - 1) - at(n - 2)) / range;
+  return high >= low ? { Q: high, position: order[n - 1] } : { Q: low, position: order[0] };
 }
 
 interface ValueSet {
   name: string;
-  values: number[];
+  values: ArrayLike<number>;
   /** Study-array index of each value. */
-  indices: number[];
+  indices: ArrayLike<number>;
 }
 
 function testSet(set: ValueSet, flags: OutlierFlag[]): void {
@@ -87,7 +97,7 @@ function testSet(set: ValueSet, flags: OutlierFlag[]): void {
   }
 }
 
-function cochran(name: string, groups: { values: number[]; index: number }[], flags: OutlierFlag[]): void {
+function cochran(name: string, groups: { values: ArrayLike<number>; index: number }[], flags: OutlierFlag[]): void {
   const replicated = groups.filter((g) => g.values.length >= 2);
   if (replicated.length < 2) return;
   const variances = replicated.map((g) => variance(g.values) as number);
@@ -120,13 +130,15 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
     const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
     sets.push({ name: 'blanks', values: used.map((b) => b.value), indices: used.map((b) => b.index) });
   }
-  const levels = fit
-    ? sortedGroups(fit.levels).map((g) => ({
-        x: fit.levels.keys[g],
-        values: groupValues(fit.levels, g, (i) => fit.ys[i]),
-        indices: groupValues(fit.levels, g, (i) => fit.indices[i]),
-      }))
-    : [];
+  const levels: { x: number; values: Float64Array; indices: Float64Array }[] = [];
+  if (fit) {
+    const { keys, start } = fit.levels;
+    const indicesByLevel = byGroup(fit.levels, fit.indices, fit.scratch(0));
+    for (const g of sortedGroups(fit.levels)) {
+      const [from, to] = [start[g], start[g + 1]];
+      levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indices: indicesByLevel.subarray(from, to) });
+    }
+  }
   // testSet needs 3 values; naming a set formats its x, which costs more than testing it when levels are many.
   for (const { x, values, indices } of levels) if (values.length >= 3) sets.push({ name: `standards x=${x}`, values, indices });
   if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
@@ -159,19 +171,16 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
     flags,
   );
 
-  const standardized = fit?.calibration.standardizedResiduals;
+  const standardized = fit?.standardizedResiduals;
   if (fit && standardized && standardized.length > 0) {
-    let position = 0;
-    standardized.forEach((v, i) => {
-      if (Math.abs(v) > Math.abs(standardized[position])) position = i;
-    });
+    const position = fit.largestStandardized;
     flags.push({
       set: 'calibration residuals',
       test: 'standardizedResidual',
       statistic: Math.abs(standardized[position]),
       critical: 3,
       index: fit.indices[position],
-      value: fit.calibration.residuals[position],
+      value: fit.residuals[position],
       outlier: Math.abs(standardized[position]) > 3,
     });
   }

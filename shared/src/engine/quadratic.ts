@@ -1,36 +1,91 @@
 import { cleanResidual, type RegressionCore } from './regression.js';
-import { weightedMean } from './stats.js';
+import type { Scratch } from './stats.js';
+
+/**
+ * Math.hypot(a, b) as V8 computes it (divide by the larger magnitude, add the squares, square root, scale back), written
+ * out so that the compiler inlines it and keeps the running norm unboxed. Same numbers, bit for bit, special values included.
+ */
+export function hypot(a: number, b: number): number {
+  const x = Math.abs(a);
+  const y = Math.abs(b);
+  if (x > y) {
+    if (x === Infinity) return Infinity;
+    const q = y / x;
+    return Math.sqrt(1 + q * q) * x;
+  }
+  if (x === Infinity || y === Infinity) return Infinity;
+  if (x !== x || y !== y) return NaN;
+  if (y === 0) return 0;
+  const p = x / y;
+  return Math.sqrt(p * p + 1) * y;
+}
 
 /**
  * Householder QR least squares for a tall matrix held by columns (each of length rows; overwritten, as is rhs).
  * Returns the coefficients and the upper-triangular R.
+ *
+ * Each reflection takes two passes over the rows: one for v·v and every v·target, one for the updates and the next
+ * column's norm. Each sum still adds its terms in row order, so the numbers are those of one pass per sum.
  */
-function householderLeastSquares(columns: Float64Array[], rhs: Float64Array): { beta: number[]; r: number[][] } {
+function householderLeastSquares(
+  columns: Float64Array[],
+  rhs: Float64Array,
+  firstNorm: number | null = null,
+): { beta: number[]; r: number[][] } {
+  if (columns.length > 3) throw new RangeError('householderLeastSquares takes at most 3 columns');
   const p = columns.length;
   const m = rhs.length;
-  const v = new Float64Array(m);
+  let nextNorm = firstNorm;
   for (let k = 0; k < p; k++) {
+    // v is column k with v[k] = column[k] − alpha; the column itself is the last target updated at each row.
     const column = columns[k];
     let norm = 0;
-    for (let i = k; i < m; i++) norm = Math.hypot(norm, column[i]);
+    if (nextNorm !== null) norm = nextNorm;
+    else for (let i = k; i < m; i++) norm = hypot(norm, column[i]);
+    nextNorm = null;
     if (norm === 0) continue;
     const alpha = column[k] > 0 ? -norm : norm;
-    for (let i = k; i < m; i++) v[i] = column[i];
-    v[k] -= alpha;
+    const vk = column[k] - alpha;
+    // The other targets: the columns after k, then the right-hand side (one to three arrays).
+    const [t0, t1 = null, t2 = null] = [...columns.slice(k + 1), rhs];
     let vv = 0;
-    for (let i = k; i < m; i++) vv += v[i] * v[i];
-    if (vv === 0) continue;
-    for (let j = k; j < p; j++) {
-      const target = columns[j];
-      let dot = 0;
-      for (let i = k; i < m; i++) dot += v[i] * target[i];
-      const f = (2 * dot) / vv;
-      for (let i = k; i < m; i++) target[i] -= f * v[i];
+    let dotColumn = 0;
+    let dot0 = 0;
+    let dot1 = 0;
+    let dot2 = 0;
+    vv += vk * vk;
+    dotColumn += vk * column[k];
+    dot0 += vk * t0[k];
+    if (t1) dot1 += vk * t1[k];
+    if (t2) dot2 += vk * t2[k];
+    for (let i = k + 1; i < m; i++) {
+      const vi = column[i];
+      vv += vi * vi;
+      dotColumn += vi * vi;
+      dot0 += vi * t0[i];
+      if (t1) dot1 += vi * t1[i];
+      if (t2) dot2 += vi * t2[i];
     }
-    let dot = 0;
-    for (let i = k; i < m; i++) dot += v[i] * rhs[i];
-    const f = (2 * dot) / vv;
-    for (let i = k; i < m; i++) rhs[i] -= f * v[i];
+    if (vv === 0) continue;
+    const fColumn = (2 * dotColumn) / vv;
+    const f0 = (2 * dot0) / vv;
+    const f1 = (2 * dot1) / vv;
+    const f2 = (2 * dot2) / vv;
+    t0[k] -= f0 * vk;
+    if (t1) t1[k] -= f1 * vk;
+    if (t2) t2[k] -= f2 * vk;
+    column[k] -= fColumn * vk;
+    const next = k + 1 < p ? columns[k + 1] : null;
+    let following = 0;
+    for (let i = k + 1; i < m; i++) {
+      const vi = column[i];
+      t0[i] -= f0 * vi;
+      if (t1) t1[i] -= f1 * vi;
+      if (t2) t2[i] -= f2 * vi;
+      column[i] -= fColumn * vi;
+      if (next) following = hypot(following, next[i]);
+    }
+    if (next) nextNorm = following;
   }
   const r = Array.from({ length: p }, (_, i) => Array.from({ length: p }, (_, j) => (j >= i ? columns[j][i] : 0)));
   const beta = new Array<number>(p).fill(0);
@@ -56,6 +111,21 @@ function invertUpper(r: number[][]): number[][] {
   return inv;
 }
 
+// Made outside fitQuadratic: a closure over `scale`, which its loop updates, would box it at every step.
+function quadraticLeverage(centre: number, scale: number, rInv: number[][]): (at: number) => number {
+  return (at) => {
+    const zz = (at - centre) / scale;
+    const v = [1, zz, zz * zz];
+    let acc = 0;
+    for (let j = 0; j < 3; j++) {
+      let u = 0;
+      for (let k = 0; k <= j; k++) u += rInv[k][j] * v[k];
+      acc += u * u;
+    }
+    return acc;
+  };
+}
+
 export interface QuadraticCore extends RegressionCore {
   /** Coefficients in z = (x − centre)/scale: ŷ = c0 + c1 z + c2 z². */
   zCoefficients: [number, number, number];
@@ -64,42 +134,65 @@ export interface QuadraticCore extends RegressionCore {
 }
 
 /** y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares). */
-export function fitQuadratic(x: readonly number[], y: readonly number[], w: ArrayLike<number>): QuadraticCore {
+/** With `scratch`, slots 0–4 hold the QR's columns and the residuals (for a caller that keeps neither). */
+export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>, scratch?: Scratch): QuadraticCore {
   const n = x.length;
+  // Σw, the mean of x (the centre) and the weighted means of y and x, two passes each as mean and weightedMean, passes shared.
   let sumWeights = 0;
-  for (let i = 0; i < n; i++) sumWeights += w[i];
-  const centre = weightedMean(x, new Float64Array(n).fill(1), n);
+  let sumX = 0;
+  let weightedSumY = 0;
+  let weightedSumX = 0;
+  for (let i = 0; i < n; i++) {
+    sumWeights += w[i];
+    sumX += x[i];
+    weightedSumY += w[i] * y[i];
+    weightedSumX += w[i] * x[i];
+  }
+  const firstCentre = sumX / n;
+  const firstY = weightedSumY / sumWeights;
+  const firstX = weightedSumX / sumWeights;
+  let correctionCentre = 0;
+  let correctionY = 0;
+  let correctionX = 0;
+  for (let i = 0; i < n; i++) {
+    correctionCentre += x[i] - firstCentre;
+    correctionY += w[i] * (y[i] - firstY);
+    correctionX += w[i] * (x[i] - firstX);
+  }
+  const centre = n === 0 ? NaN : firstCentre + correctionCentre / n;
+  const yMean = firstY + correctionY / sumWeights;
+  const xMean = firstX + correctionX / sumWeights;
   let scale = 0;
-  for (const v of x) scale = Math.max(scale, Math.abs(v - centre));
+  for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(x[i] - centre));
   if (scale === 0) scale = 1;
-  const z = new Float64Array(n);
-  const columns = [new Float64Array(n), new Float64Array(n), new Float64Array(n)];
-  const rhs = new Float64Array(n);
+  const column = (slot: number) => (scratch ? scratch(slot) : new Float64Array(n));
+  const columns = [column(0), column(1), column(2)];
+  const [ones, linear, square] = columns;
+  const rhs = column(3);
+  // The norm of the first column for the first reflection, in the same pass.
+  let firstNorm = 0;
   for (let i = 0; i < n; i++) {
     const zi = (x[i] - centre) / scale;
     const sw = Math.sqrt(w[i]);
-    z[i] = zi;
-    columns[0][i] = sw;
-    columns[1][i] = sw * zi;
-    columns[2][i] = sw * zi * zi;
+    ones[i] = sw;
+    linear[i] = sw * zi;
+    square[i] = sw * zi * zi;
     rhs[i] = sw * y[i];
+    firstNorm = hypot(firstNorm, sw);
   }
-  const { beta, r } = householderLeastSquares(columns, rhs);
+  const { beta, r } = householderLeastSquares(columns, rhs, firstNorm);
   const [c0, c1, c2] = beta;
 
-  const residuals = new Array<number>(n);
+  const residuals = column(4);
   let ssResidual = 0;
-  for (let i = 0; i < n; i++) {
-    const fitted = c0 + z[i] * (c1 + z[i] * c2);
-    const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(c0) + Math.abs(c1 * z[i]) + Math.abs(c2 * z[i] * z[i]));
-    residuals[i] = e;
-    ssResidual += w[i] * e * e;
-  }
-  const yMean = weightedMean(y, w, sumWeights);
-  const xMean = weightedMean(x, w, sumWeights);
   let ssTotal = 0;
   let sxx = 0;
   for (let i = 0; i < n; i++) {
+    const zi = (x[i] - centre) / scale;
+    const fitted = c0 + zi * (c1 + zi * c2);
+    const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(c0) + Math.abs(c1 * zi) + Math.abs(c2 * zi * zi));
+    residuals[i] = e;
+    ssResidual += w[i] * e * e;
     ssTotal += w[i] * (y[i] - yMean) * (y[i] - yMean);
     sxx += w[i] * (x[i] - xMean) * (x[i] - xMean);
   }
@@ -147,16 +240,6 @@ export function fitQuadratic(x: readonly number[], y: readonly number[], w: Arra
     zCoefficients: [c0, c1, c2],
     centre,
     scale,
-    leverage: (at: number) => {
-      const zz = (at - centre) / scale;
-      const v = [1, zz, zz * zz];
-      let acc = 0;
-      for (let j = 0; j < 3; j++) {
-        let u = 0;
-        for (let k = 0; k <= j; k++) u += rInv[k][j] * v[k];
-        acc += u * u;
-      }
-      return acc;
-    },
+    leverage: quadraticLeverage(centre, scale, rInv),
   };
 }

@@ -1,5 +1,3 @@
-import { weightedMean } from './stats.js';
-
 /** Least-squares core shared by every regression model: enough to predict, invert and band. */
 export interface RegressionCore {
   n: number;
@@ -21,9 +19,18 @@ export interface RegressionCore {
   yMean: number;
   sxx: number;
   sumWeights: number;
-  residuals: number[];
+  residuals: Float64Array;
   /** Variance of the fitted mean response at x divided by s². */
   leverage(x: number): number;
+}
+
+// Made outside the fits: a closure over a sum the fit's loop updates would box that sum at every step.
+function lineLeverage(sumWeights: number, xMean: number, sxx: number): (at: number) => number {
+  return (at) => 1 / sumWeights + ((at - xMean) * (at - xMean)) / sxx;
+}
+
+function originLeverage(sxx0: number): (at: number) => number {
+  return (at) => (at * at) / sxx0;
 }
 
 /** Drops round-off residuals of an exact fit so that s_y/x is exactly zero there. */
@@ -32,12 +39,32 @@ export function cleanResidual(e: number, scale: number): number {
 }
 
 /** Weighted (w ≡ 1: ordinary) straight-line least squares on centred sums. */
-export function fitLine(x: readonly number[], y: readonly number[], w: ArrayLike<number>): RegressionCore {
+export function fitLine(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  w: ArrayLike<number>,
+  residuals: Float64Array = new Float64Array(x.length),
+): RegressionCore {
   const n = x.length;
+  // Σw, then the weighted means of x and y (two passes each, as weightedMean), with the passes shared.
   let sumWeights = 0;
-  for (let i = 0; i < n; i++) sumWeights += w[i];
-  const xMean = weightedMean(x, w, sumWeights);
-  const yMean = weightedMean(y, w, sumWeights);
+  let sumX = 0;
+  let sumY = 0;
+  for (let i = 0; i < n; i++) {
+    sumWeights += w[i];
+    sumX += w[i] * x[i];
+    sumY += w[i] * y[i];
+  }
+  const firstX = sumX / sumWeights;
+  const firstY = sumY / sumWeights;
+  let correctionX = 0;
+  let correctionY = 0;
+  for (let i = 0; i < n; i++) {
+    correctionX += w[i] * (x[i] - firstX);
+    correctionY += w[i] * (y[i] - firstY);
+  }
+  const xMean = firstX + correctionX / sumWeights;
+  const yMean = firstY + correctionY / sumWeights;
   let sxx = 0;
   let sxy = 0;
   let syy = 0;
@@ -50,7 +77,6 @@ export function fitLine(x: readonly number[], y: readonly number[], w: ArrayLike
   }
   const b = sxy / sxx;
   const a = yMean - b * xMean;
-  const residuals = new Array<number>(n);
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
     const dy = y[i] - yMean;
@@ -80,36 +106,50 @@ export function fitLine(x: readonly number[], y: readonly number[], w: ArrayLike
     sxx,
     sumWeights,
     residuals,
-    leverage: (at: number) => 1 / sumWeights + ((at - xMean) * (at - xMean)) / sxx,
+    leverage: lineLeverage(sumWeights, xMean, sxx),
   };
 }
 
 /** Straight line through the origin; R² and the regression SS are uncentred (NIST StRD convention). */
-export function fitThroughOrigin(x: readonly number[], y: readonly number[]): RegressionCore {
+export function fitThroughOrigin(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  residuals: Float64Array = new Float64Array(x.length),
+): RegressionCore {
   const n = x.length;
+  // The means of x and y (two passes each, as mean) share the passes of the sums and of the residuals.
   let sxx0 = 0;
   let sxy0 = 0;
   let syy0 = 0;
+  let sumX = 0;
+  let sumY = 0;
   for (let i = 0; i < n; i++) {
     sxx0 += x[i] * x[i];
     sxy0 += x[i] * y[i];
     syy0 += y[i] * y[i];
+    sumX += x[i];
+    sumY += y[i];
   }
   const b = sxy0 / sxx0;
-  const residuals = new Array<number>(n);
+  const firstX = sumX / n;
+  const firstY = sumY / n;
+  let correctionX = 0;
+  let correctionY = 0;
   let ssResidual = 0;
   for (let i = 0; i < n; i++) {
     const fitted = b * x[i];
     const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(fitted));
     residuals[i] = e;
     ssResidual += e * e;
+    correctionX += x[i] - firstX;
+    correctionY += y[i] - firstY;
   }
   const df = n - 1;
   const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
-  const ones = new Float64Array(n).fill(1);
-  const xMean = weightedMean(x, ones, n);
+  const xMean = n === 0 ? NaN : firstX + correctionX / n;
+  const yMean = n === 0 ? NaN : firstY + correctionY / n;
   let sxx = 0;
-  for (const v of x) sxx += (v - xMean) * (v - xMean);
+  for (let i = 0; i < n; i++) sxx += (x[i] - xMean) * (x[i] - xMean);
   return {
     n,
     df,
@@ -125,10 +165,10 @@ export function fitThroughOrigin(x: readonly number[], y: readonly number[]): Re
     ssRegression: b * sxy0,
     dfRegression: 1,
     xMean,
-    yMean: weightedMean(y, ones, n),
+    yMean,
     sxx,
     sumWeights: n,
     residuals,
-    leverage: (at: number) => (at * at) / sxx0,
+    leverage: originLeverage(sxx0),
   };
 }

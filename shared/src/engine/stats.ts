@@ -1,12 +1,12 @@
 /** Mean with a second, correcting pass (the shifted data keep their digits). */
-export function mean(values: readonly number[]): number {
+export function mean(values: ArrayLike<number>): number {
   const n = values.length;
   if (n === 0) return NaN;
   let sum = 0;
-  for (const v of values) sum += v;
+  for (let i = 0; i < n; i++) sum += values[i];
   const first = sum / n;
   let correction = 0;
-  for (const v of values) correction += v - first;
+  for (let i = 0; i < n; i++) correction += values[i] - first;
   return first + correction / n;
 }
 
@@ -20,18 +20,18 @@ export function weightedMean(values: ArrayLike<number>, weights: ArrayLike<numbe
 }
 
 /** Σ(v − v̄)², two-pass. */
-export function sumSquaredDeviations(values: readonly number[], centre = mean(values)): number {
+export function sumSquaredDeviations(values: ArrayLike<number>, centre = mean(values)): number {
   let ss = 0;
-  for (const v of values) ss += (v - centre) * (v - centre);
+  for (let i = 0; i < values.length; i++) ss += (values[i] - centre) * (values[i] - centre);
   return ss;
 }
 
 /** Sample variance with the n − 1 divisor; null below two values. */
-export function variance(values: readonly number[]): number | null {
+export function variance(values: ArrayLike<number>): number | null {
   return values.length < 2 ? null : sumSquaredDeviations(values) / (values.length - 1);
 }
 
-export function sd(values: readonly number[]): number | null {
+export function sd(values: ArrayLike<number>): number | null {
   const v = variance(values);
   return v === null ? null : Math.sqrt(v);
 }
@@ -61,46 +61,102 @@ export function linspace(lo: number, hi: number, count: number): number[] {
   return out;
 }
 
-/** Positions 0…n−1 grouped by key: groups in order of first appearance, positions ascending within each group. */
-export interface Grouping<K> {
-  keys: K[];
+/** Positions 0…n−1 grouped by value: groups in order of first appearance, positions ascending within each group. */
+export interface Grouping {
+  /** Each group's value (−0 read as 0, as a Map key would be). */
+  keys: number[];
   /** Group g holds members[start[g]] … members[start[g + 1] − 1]. */
   start: Int32Array;
   members: Int32Array;
+  /** The group of each position. */
+  of: Int32Array;
 }
 
-export function groupPositions<K>(n: number, keyAt: (position: number) => K): Grouping<K> {
-  const ids = new Map<K, number>();
-  const keys: K[] = [];
-  const groupOf = new Int32Array(n);
-  for (let i = 0; i < n; i++) {
-    const key = keyAt(i);
-    let id = ids.get(key);
-    if (id === undefined) {
-      id = keys.length;
-      ids.set(key, id);
-      keys.push(key);
+const bits = new Float64Array(1);
+const bitWords = new Uint32Array(bits.buffer);
+
+/** Groups equal values (SameValueZero, as a Map would) with an open-addressing table on their bits. */
+export function groupPositions(values: ArrayLike<number>): Grouping {
+  const n = values.length;
+  const keys: number[] = [];
+  const of = new Int32Array(n);
+  let size = 1024;
+  let slots = new Int32Array(size).fill(-1);
+  const slotOf = (key: number): number => {
+    bits[0] = key;
+    const mask = size - 1;
+    let slot = Math.imul(bitWords[0] ^ Math.imul(bitWords[1], 0x9e3779b1), 0x85ebca6b) >>> 7;
+    for (;;) {
+      slot &= mask;
+      const id = slots[slot];
+      if (id < 0) return slot;
+      const held = keys[id];
+      if (held === key || (held !== held && key !== key)) return slot;
+      slot++;
     }
-    groupOf[i] = id;
+  };
+  for (let i = 0; i < n; i++) {
+    const value = values[i];
+    const key = value === 0 ? 0 : value;
+    const slot = slotOf(key);
+    let id = slots[slot];
+    if (id < 0) {
+      id = keys.length;
+      keys.push(key);
+      slots[slot] = id;
+      if (2 * keys.length > size) {
+        size *= 4;
+        slots = new Int32Array(size).fill(-1);
+        for (let g = 0; g < keys.length; g++) slots[slotOf(keys[g])] = g;
+      }
+    }
+    of[i] = id;
   }
-  keys.splice(0, keys.length, ...ids.keys());
   const start = new Int32Array(keys.length + 1);
-  for (let i = 0; i < n; i++) start[groupOf[i] + 1]++;
+  for (let i = 0; i < n; i++) start[of[i] + 1]++;
   for (let g = 0; g < keys.length; g++) start[g + 1] += start[g];
   const next = start.slice(0, keys.length);
   const members = new Int32Array(n);
-  for (let i = 0; i < n; i++) members[next[groupOf[i]]++] = i;
-  return { keys, start, members };
+  for (let i = 0; i < n; i++) members[next[of[i]]++] = i;
+  return { keys, start, members, of };
 }
 
-/** The values at the members of group g, in position order. */
-export function groupValues<K>(grouping: Grouping<K>, g: number, valueAt: (position: number) => number): number[] {
-  const out: number[] = [];
-  for (let m = grouping.start[g]; m < grouping.start[g + 1]; m++) out.push(valueAt(grouping.members[m]));
+/** The column's values in group order (group 0's members first), so each group is one contiguous run. */
+export function byGroup(
+  grouping: Grouping,
+  column: ArrayLike<number>,
+  out: Float64Array = new Float64Array(grouping.members.length),
+): Float64Array {
+  for (let m = 0; m < out.length; m++) out[m] = column[grouping.members[m]];
   return out;
 }
 
-/** Group ids sorted by their numeric key, ascending. */
-export function sortedGroups(grouping: Grouping<number>): number[] {
+/**
+ * Columns of n numbers lent by slot: room for values nobody keeps, written over whole by each user and never read after
+ * the (synchronous) section that wrote them. Large columns come from one pool shared by every fit and held weakly, so that
+ * a large study does not ask the allocator (and the page tables) for fresh megabytes at every step or every evaluation.
+ */
+export type Scratch = (slot: number) => Float64Array;
+
+/** Below this length a fresh column costs less than keeping one. */
+const POOLED_FROM = 65_536;
+let pool: WeakRef<Float64Array[]> | null = null;
+
+export function scratchColumns(n: number): Scratch {
+  if (n < POOLED_FROM) {
+    const own: Float64Array[] = [];
+    return (slot) => (own[slot] ??= new Float64Array(n));
+  }
+  let shared = pool?.deref();
+  if (!shared) pool = new WeakRef((shared = []));
+  const columns = shared;
+  return (slot) => {
+    if (!(columns[slot]?.length >= n)) columns[slot] = new Float64Array(n);
+    return columns[slot].length === n ? columns[slot] : columns[slot].subarray(0, n);
+  };
+}
+
+/** Group ids sorted by their key, ascending. */
+export function sortedGroups(grouping: Grouping): number[] {
   return grouping.keys.map((_, g) => g).sort((a, b) => grouping.keys[a] - grouping.keys[b]);
 }
