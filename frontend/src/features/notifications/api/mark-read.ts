@@ -1,11 +1,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { notificationsQueries, type NotificationItem } from './notifications-queries';
+import type { NotificationDto } from '@meritline/shared';
+import { notificationsQueries } from './notifications-queries';
 
 export function useMarkRead() {
   const queryClient = useQueryClient();
   return useMutation({
-    mutationFn: (id: string) => api.post<NotificationItem>(`/notifications/${encodeURIComponent(id)}/read`),
+    mutationFn: (id: string) => api.post<NotificationDto>(`/notifications/${encodeURIComponent(id)}/read`),
     onSuccess: () => queryClient.invalidateQueries({ queryKey: notificationsQueries.all }),
   });
 }

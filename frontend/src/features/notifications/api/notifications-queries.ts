@@ -1,27 +1,14 @@
+import type { NotificationListDto } from '@meritline/shared';
 import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { notificationKeys } from '@/lib/query-keys';
-
-export interface NotificationItem {
-  id: string;
-  kind: string;
-  message: string;
-  link: string | null;
-  readAt: string | null;
-  createdAt: string;
-}
-
-export interface NotificationList {
-  items: NotificationItem[];
-  unread: number;
-}
 
 export const notificationsQueries = {
   ...notificationKeys,
   list: () =>
     queryOptions({
       queryKey: notificationKeys.lists(),
-      queryFn: ({ signal }) => api.get<NotificationList>('/notifications', { signal }),
+      queryFn: ({ signal }) => api.get<NotificationListDto>('/notifications', { signal }),
       refetchInterval: 60_000,
     }),
 };

@@ -1,11 +1,11 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, type NotificationDto } from '@meritline/shared';
 import { Box, Button, Float, HStack, IconButton, Popover, Portal, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useNavigate } from 'react-router';
 import { LineIcon } from '@/components/line-icon';
 import { useMarkAllRead, useMarkRead } from '../api/mark-read';
-import { notificationsQueries, type NotificationItem } from '../api/notifications-queries';
+import { notificationsQueries } from '../api/notifications-queries';
 
 /** The bell in the header: unread count, the latest notices, each opening what it is about. */
 export function NotificationsBell() {
@@ -16,7 +16,7 @@ export function NotificationsBell() {
   const markAllRead = useMarkAllRead();
   const unread = list.data?.unread ?? 0;
 
-  const openNotice = (notice: NotificationItem) => {
+  const openNotice = (notice: NotificationDto) => {
     if (!notice.readAt) markRead.mutate(notice.id);
     setOpen(false);
     if (notice.link) void navigate(notice.link);
