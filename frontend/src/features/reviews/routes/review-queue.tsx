@@ -6,7 +6,6 @@ import { Link as RouterLink } from 'react-router';
 import { CursorPager } from '@/components/cursor-pager';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { reviewQueueQueries } from '../api/review-queries';
 
@@ -95,19 +94,15 @@ export default function ReviewQueuePage() {
             </Button>
           ))}
         </HStack>
-        {queue.isError ? (
-          <QueryError error={queue.error} onRetry={() => void queue.refetch()} />
-        ) : (
-          <DataTable
-            label="Items awaiting review"
-            columns={columns}
-            data={queue.data?.items}
-            getRowId={(item) => `${item.kind}-${item.id}`}
-            isLoading={queue.isPending}
-            emptyTitle="Nothing waits for you"
-            emptyDescription="Submitted studies and runs appear here; you are notified when one arrives."
-          />
-        )}
+        <DataTable
+          label="Items awaiting review"
+          columns={columns}
+          query={queue}
+          data={queue.data?.items}
+          getRowId={(item) => `${item.kind}-${item.id}`}
+          emptyTitle="Nothing waits for you"
+          emptyDescription="Submitted studies and runs appear here; you are notified when one arrives."
+        />
         {queue.data && (
           <CursorPager
             noun="Items"

@@ -1,7 +1,7 @@
 import { formatDate, formatDateTime, type StudySort, type StudySummaryDto } from '@meritline/shared';
-import { Button, chakra, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import { Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
-import { dataTableColumns } from '@/components/data-table';
+import { dataTableColumns, HiddenHeader, SortArrow, SortButton } from '@/components/data-table';
 import { CriterionMark } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
 import { StudyStatusBadge } from '../study-status-badge';
@@ -12,31 +12,13 @@ export interface ServerSort {
   onSort: (sort: StudySort) => void;
 }
 
-const SortButton = chakra('button', {
-  base: {
-    display: 'inline-flex',
-    alignItems: 'center',
-    gap: '1.5',
-    font: 'inherit',
-    letterSpacing: 'inherit',
-    textTransform: 'inherit',
-    color: 'inherit',
-    cursor: 'pointer',
-    borderRadius: 'l1',
-    _hover: { color: 'fg' },
-    _focusVisible: { outline: '2px solid', outlineColor: 'colorPalette.focusRing', outlineOffset: '2px' },
-  },
-});
-
 function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: ServerSort }) {
   const active = sort.sort === by;
   const direction = active ? (sort.order === 'asc' ? 'ascending' : 'descending') : 'not sorted';
   return (
     <SortButton type="button" onClick={() => sort.onSort(by)} aria-label={`${label}, ${direction}; sort by ${label.toLowerCase()}`}>
       {label}
-      <Text as="span" aria-hidden="true" color={active ? 'brand.fg' : 'fg.subtle'}>
-        {active ? (sort.order === 'asc' ? '↑' : '↓') : '↕'}
-      </Text>
+      <SortArrow direction={active ? sort.order : undefined} />
     </SortButton>
   );
 }
@@ -97,13 +79,7 @@ export function studiesColumns(sort: ServerSort, viewer: ListViewer) {
     }),
     column.display({
       id: 'open',
-      header: () => (
-        <Text as="span" position="relative">
-          <Text as="span" srOnly>
-            Open
-          </Text>
-        </Text>
-      ),
+      header: () => <HiddenHeader>Open</HiddenHeader>,
       meta: { align: 'end' },
       cell: (info) => {
         const study = info.row.original;

@@ -1,6 +1,6 @@
 import { Alert, Box, Button, Field, Grid, Heading, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
 import { ENGINE_VERSION, MODELS, type CalibrationModel, type Weighting, formatNumber, formatPercent } from '@meritline/shared';
-import { DataTable, dataTableColumns } from '@/components/data-table';
+import { DataTable, dataTableColumns, HiddenHeader } from '@/components/data-table';
 import {
   CalibrationPlot,
   MODEL_LABELS,
@@ -53,13 +53,7 @@ const standardColumns = column.columns([
   }),
   column.display({
     id: 'action',
-    header: () => (
-      <Text as="span" position="relative">
-        <Text as="span" srOnly>
-          Action
-        </Text>
-      </Text>
-    ),
+    header: () => <HiddenHeader>Action</HiddenHeader>,
     meta: { align: 'end' },
     cell: (info) =>
       info.row.original.canToggle && (
