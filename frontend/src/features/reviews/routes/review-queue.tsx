@@ -103,16 +103,13 @@ export default function ReviewQueuePage() {
           emptyTitle="Nothing waits for you"
           emptyDescription="Submitted studies and runs appear here; you are notified when one arrives."
         />
-        {queue.data && (
-          <CursorPager
-            noun="Items"
-            page={{ ...queue.data, prevCursor: cursors.length > 1 ? 'before' : null }}
-            pageNumber={cursors.length}
-            fetching={queue.isFetching}
-            stale={queue.isPlaceholderData}
-            onMove={(next, page) => setCursors((trail) => (page < trail.length ? trail.slice(0, page) : [...trail, next]))}
-          />
-        )}
+        <CursorPager
+          noun="Items"
+          query={queue}
+          page={queue.data && { ...queue.data, prevCursor: cursors.length > 1 ? 'before' : null }}
+          pageNumber={cursors.length}
+          onMove={(next, page) => setCursors((trail) => (page < trail.length ? trail.slice(0, page) : [...trail, next]))}
+        />
         <Text fontSize="sm" color="fg.muted">
           Approval supports, and does not replace, the laboratory’s procedures, qualified review and the regulations that apply.
         </Text>

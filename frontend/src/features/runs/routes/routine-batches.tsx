@@ -78,16 +78,12 @@ export default function RoutineBatchesPage() {
           emptyTitle="No runs yet"
           emptyDescription="Start one with “New run”: it needs an active method version with an approved validation study."
         />
-        {runs.data && (
-          <CursorPager
-            noun="Runs"
-            page={runs.data}
-            pageNumber={pageNumber}
-            fetching={runs.isFetching}
-            stale={runs.isPlaceholderData}
-            onMove={(next, page) => update({ cursor: next, page: page > 1 ? String(page) : undefined })}
-          />
-        )}
+        <CursorPager
+          noun="Runs"
+          query={runs}
+          pageNumber={pageNumber}
+          onMove={(next, page) => update({ cursor: next, page: page > 1 ? String(page) : undefined })}
+        />
         <Text fontSize="sm" color="fg.muted">
           {RUN_CAUTION}
         </Text>

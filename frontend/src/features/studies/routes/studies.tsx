@@ -113,16 +113,12 @@ export default function ValidationStudiesPage() {
           emptyTitle={search.size > 0 ? 'No study matches the filters' : 'No studies yet'}
           emptyDescription={search.size > 0 ? 'Change or clear the filters.' : 'Start one with “New study”.'}
         />
-        {studies.data && (
-          <CursorPager
-            noun="Studies"
-            page={studies.data}
-            pageNumber={pageNumber}
-            fetching={studies.isFetching}
-            stale={studies.isPlaceholderData}
-            onMove={(cursor, page) => update({ cursor, page: page > 1 ? String(page) : undefined })}
-          />
-        )}
+        <CursorPager
+          noun="Studies"
+          query={studies}
+          pageNumber={pageNumber}
+          onMove={(cursor, page) => update({ cursor, page: page > 1 ? String(page) : undefined })}
+        />
       </Stack>
     </>
   );

@@ -1,7 +1,8 @@
 import { formatDate, formatDateTime, type StudySort, type StudySummaryDto } from '@meritline/shared';
-import { Button, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import { Button, HStack, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
 import { dataTableColumns, HiddenHeader, SortArrow, SortButton } from '@/components/data-table';
+import { NameCell } from '@/components/name-cell';
 import { CriterionMark } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
 import { StudyStatusBadge } from '../study-status-badge';
@@ -42,14 +43,12 @@ export function studiesColumns(sort: ServerSort, viewer: ListViewer) {
     column.accessor('title', {
       header: () => <SortHeader label="Title" by="title" sort={sort} />,
       cell: (info) => (
-        <Stack gap="0" whiteSpace="normal" minW="16rem">
-          <Link asChild fontWeight="600" color="brand.fg">
-            <RouterLink to={studyHref(info.row.original)}>{info.getValue()}</RouterLink>
-          </Link>
-          <Text fontSize="sm" color="fg.muted">
-            {info.row.original.method.name}, version {info.row.original.methodVersion.number} · {info.row.original.author.name}
-          </Text>
-        </Stack>
+        <NameCell
+          name={info.getValue()}
+          href={studyHref(info.row.original)}
+          detail={`${info.row.original.method.name}, version ${info.row.original.methodVersion.number} · ${info.row.original.author.name}`}
+          minW="16rem"
+        />
       ),
     }),
     column.accessor('status', {
