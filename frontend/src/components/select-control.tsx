@@ -1,5 +1,5 @@
 import { NativeSelect } from '@chakra-ui/react';
-import type { ReactNode } from 'react';
+import type { FocusEventHandler, ReactNode } from 'react';
 
 export interface SelectOption {
   value: string;
@@ -7,8 +7,10 @@ export interface SelectOption {
 }
 
 export interface SelectControlProps {
+  name?: string;
   value: string;
   onChange: (value: string) => void;
+  onBlur?: FocusEventHandler<HTMLSelectElement>;
   options: readonly SelectOption[];
   /** The first choice, with the empty value: "any", "none" or a prompt to choose. */
   placeholder?: string;
@@ -21,8 +23,10 @@ export interface SelectControlProps {
 
 /** The browser's own drop-down list, for a choice among a few values. */
 export function SelectControl({
+  name,
   value,
   onChange,
+  onBlur,
   options,
   placeholder,
   size,
@@ -32,7 +36,13 @@ export function SelectControl({
 }: SelectControlProps) {
   return (
     <NativeSelect.Root size={size} disabled={disabled} invalid={invalid}>
-      <NativeSelect.Field value={value} onChange={(event) => onChange(event.currentTarget.value)} aria-label={ariaLabel}>
+      <NativeSelect.Field
+        name={name}
+        value={value}
+        onChange={(event) => onChange(event.currentTarget.value)}
+        onBlur={onBlur}
+        aria-label={ariaLabel}
+      >
         {placeholder !== undefined && <option value="">{placeholder}</option>}
         {options.map((option) => (
           <option key={option.value} value={option.value}>

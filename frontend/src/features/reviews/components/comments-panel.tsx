@@ -1,8 +1,9 @@
 import { formatDateTime, type StudySection } from '@meritline/shared';
-import { Badge, Box, Button, Heading, HStack, NativeSelect, Stack, Text, Textarea } from '@chakra-ui/react';
+import { Badge, Box, Button, Heading, HStack, Stack, Text, Textarea } from '@chakra-ui/react';
 import { useState } from 'react';
 import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
 import { commentSchema, usePostComment, useResolveComment } from '../api/comments';
 import { SECTION_LABELS, type StudyComment } from '../api/review-types';
 
@@ -39,20 +40,11 @@ export function CommentsPanel({ studyId, comments }: { studyId: string; comments
           onSubmit={(values) => post.mutateAsync({ section: values.section, body: values.body })}
           submitLabel="Post comment"
         >
-          <FormField name="section" label="Section of the study">
-            {(field) => (
-              <NativeSelect.Root>
-                <NativeSelect.Field {...field} value={field.value as string}>
-                  {SECTIONS.map((section) => (
-                    <option key={section} value={section}>
-                      {SECTION_LABELS[section]}
-                    </option>
-                  ))}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-            )}
-          </FormField>
+          <SelectField
+            name="section"
+            label="Section of the study"
+            options={SECTIONS.map((section) => ({ value: section, label: SECTION_LABELS[section] }))}
+          />
           <FormField name="body" label="Comment" required>
             {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={3} />}
           </FormField>
