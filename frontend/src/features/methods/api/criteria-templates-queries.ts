@@ -3,5 +3,5 @@ import { wholeListQuery } from '@/lib/list-query';
 
 export const criteriaTemplatesQueries = {
   all: ['criteria-templates'] as const,
-  list: () => wholeListQuery<CriteriaTemplateDto>(criteriaTemplatesQueries.all, '/criteria-templates', { staleTime: 60 * 60_000 }),
+  list: () => wholeListQuery<CriteriaTemplateDto>(criteriaTemplatesQueries.all, { staleTime: 60 * 60_000 }),
 };

@@ -5,7 +5,7 @@ import { wholeListQuery } from '@/lib/list-query';
 
 export const methodsQueries = {
   all: ['methods'] as const,
-  list: () => wholeListQuery<MethodDto>(methodsQueries.all, '/methods'),
+  list: () => wholeListQuery<MethodDto>(methodsQueries.all),
   detail: (id: string) =>
     queryOptions({
       queryKey: [...methodsQueries.all, 'detail', id],

@@ -3,5 +3,5 @@ import { wholeListQuery } from '@/lib/list-query';
 
 export const outboxQueries = {
   all: ['outbox'] as const,
-  list: () => wholeListQuery<OutboxMessageDto>(outboxQueries.all, '/outbox', { staleTime: 0 }),
+  list: () => wholeListQuery<OutboxMessageDto>(outboxQueries.all, { staleTime: 0 }),
 };

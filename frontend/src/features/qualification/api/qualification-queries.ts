@@ -5,7 +5,7 @@ import { saveFile } from '@/lib/save-file';
 
 export const qualificationQueries = {
   all: ['qualification'] as const,
-  list: () => wholeListQuery<QualificationRunDto>(qualificationQueries.all, '/qualification'),
+  list: () => wholeListQuery<QualificationRunDto>(qualificationQueries.all),
 };
 
 export const runQualification = () => api.post<QualificationRunDetailDto>('/qualification');

@@ -5,7 +5,7 @@ import { wholeListQuery } from '@/lib/list-query';
 
 export const preparationsQueries = {
   all: ['preparations'] as const,
-  list: () => wholeListQuery<PreparationDto>(preparationsQueries.all, '/preparations'),
+  list: () => wholeListQuery<PreparationDto>(preparationsQueries.all),
   /** The server's dry run: nothing is saved. */
   preview: (body: PreparationPreviewRequest | null) =>
     queryOptions({

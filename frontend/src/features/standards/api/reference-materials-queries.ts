@@ -5,7 +5,7 @@ import { wholeListQuery } from '@/lib/list-query';
 
 export const referenceMaterialsQueries = {
   all: ['reference-materials'] as const,
-  list: () => wholeListQuery<ReferenceMaterialDto>(referenceMaterialsQueries.all, '/reference-materials'),
+  list: () => wholeListQuery<ReferenceMaterialDto>(referenceMaterialsQueries.all),
   expiring: () =>
     queryOptions({
       queryKey: [...referenceMaterialsQueries.all, 'expiring'],

@@ -3,5 +3,5 @@ import { wholeListQuery } from '@/lib/list-query';
 
 export const usersQueries = {
   all: ['users'] as const,
-  list: () => wholeListQuery<UserDto>(usersQueries.all, '/users'),
+  list: () => wholeListQuery<UserDto>(usersQueries.all),
 };
