@@ -1,5 +1,5 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test';
-import { mainNavigation, signIn } from './support';
+import { mainNavigation, openStep, signIn } from './support';
 
 // Plotly and the first evaluation can take a while on a busy machine.
 const expect = baseExpect.configure({ timeout: 30_000 });
@@ -9,14 +9,6 @@ const TITLE = 'Tartrazine in soft drinks: accuracy profile and uncertainty';
 async function shot(page: Page, name: string) {
   await page.evaluate(() => window.scrollTo(0, 0));
   await page.screenshot({ path: `test-output/screenshots/accuracy-${name}.png`, fullPage: true });
-}
-
-async function openStep(page: Page, name: string, number: number) {
-  await page
-    .getByRole('navigation', { name: 'Study steps' })
-    .getByRole('link', { name: new RegExp(name) })
-    .click();
-  await expect(page.getByText(`Validation study · step ${number} of 8: ${name}`)).toBeVisible();
 }
 
 const plot = (page: Page, name: RegExp) => page.getByRole('group', { name }).locator('.main-svg').first();

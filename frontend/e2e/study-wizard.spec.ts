@@ -2,7 +2,7 @@ import { expect as baseExpect, test, type Page } from '@playwright/test';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { mainNavigation, signIn } from './support';
+import { mainNavigation, openStep, signIn } from './support';
 
 // Plotly is a large chunk loaded on first use, and the machine is shared: allow time.
 const expect = baseExpect.configure({ timeout: 30_000 });
@@ -69,14 +69,6 @@ async function shot(page: Page, step: number) {
   await page.screenshot({ path: `test-output/screenshots/wizard-step-${step}.png`, fullPage: true });
 }
 const saveStatus = (page: Page) => page.getByTestId('save-status');
-/** Opens a step and waits until it is on screen (the old step stays visible while the new one renders). */
-async function openStep(page: Page, name: string, number: number) {
-  await page
-    .getByRole('navigation', { name: 'Study steps' })
-    .getByRole('link', { name: new RegExp(name) })
-    .click();
-  await expect(page.getByText(`Validation study · step ${number} of 8: ${name}`)).toBeVisible();
-}
 
 async function pasteInto(page: Page, text: string, rows: number) {
   await page.getByRole('button', { name: 'Paste from a spreadsheet' }).first().click();

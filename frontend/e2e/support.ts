@@ -31,6 +31,16 @@ export async function signOut(page: Page) {
 
 export const mainNavigation = (page: Page) => page.getByRole('navigation', { name: 'Main' });
 
+/** Opens a step of the study wizard and waits until it is on screen (the old step stays visible while the new one renders). */
+export async function openStep(page: Page, name: string, number: number) {
+  await page
+    .getByRole('navigation', { name: 'Study steps' })
+    .getByRole('link', { name: new RegExp(name) })
+    .click();
+  // The first evaluation and Plotly can take a while on a busy machine.
+  await expect(page.getByText(`Validation study · step ${number} of 8: ${name}`)).toBeVisible({ timeout: 30_000 });
+}
+
 const TOKEN_KEY = 'meritline.session-token';
 
 /** GET on the API with the signed-in user's token, for the ids of seeded records. */

@@ -1,3 +1,4 @@
+import { useQuery } from '@tanstack/react-query';
 import { screen, within } from '@testing-library/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { renderWithProviders } from './render';
@@ -28,6 +29,27 @@ const bodyRows = () =>
 const firstCells = () => bodyRows().map((row) => within(row).getAllByRole('cell')[0]?.textContent);
 
 describe('DataTable', () => {
+  it('takes its rows from a query, shows a failed first load in place of the table and loads again on request', async () => {
+    let calls = 0;
+    function StandardsTable() {
+      const query = useQuery({
+        queryKey: ['standards'],
+        queryFn: () => {
+          calls += 1;
+          return calls === 1 ? Promise.reject(new Error('offline')) : Promise.resolve(standards);
+        },
+      });
+      return <DataTable label="Standards" columns={columns} query={query} />;
+    }
+    const { user } = renderWithProviders(<StandardsTable />);
+
+    expect(await screen.findByRole('alert')).toHaveTextContent('The data could not be loaded');
+    expect(screen.queryByRole('table')).not.toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Try again' }));
+    expect(await screen.findByRole('table', { name: 'Standards' })).toBeInTheDocument();
+    expect(firstCells()).toEqual(['Level 3', 'Level 1', 'Level 2']);
+  });
+
   it('sorts by a column when its header is clicked, and says so to assistive technology', async () => {
     const { user } = renderWithProviders(<DataTable label="Standards" columns={columns} data={standards} sortable />);
 

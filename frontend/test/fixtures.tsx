@@ -1,5 +1,4 @@
 import { SignDialog } from '@/features/reviews/components/sign-dialog';
-import { MEANINGS } from '@/features/reviews/components/signature-meanings';
 
 // Invented records of the demo laboratory, shared by the component tests.
 
@@ -23,16 +22,5 @@ export const activeVersion = {
 
 /** The reviewer's approval dialog of a study, as the study page shows it. */
 export function ApproveDialog({ studyId, lockVersion }: { studyId: string; lockVersion: number }) {
-  return (
-    <SignDialog
-      studyId={studyId}
-      lockVersion={lockVersion}
-      action="approve"
-      meaning={MEANINGS.reviewed}
-      title="Approve the study"
-      triggerLabel="Approve"
-      submitLabel="Sign and approve"
-      successTitle="Approved"
-    />
-  );
+  return <SignDialog studyId={studyId} lockVersion={lockVersion} step="approve" />;
 }

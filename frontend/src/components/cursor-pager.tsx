@@ -1,21 +1,29 @@
 import { Button, HStack, Text } from '@chakra-ui/react';
 import type { KeysetPage } from '@meritline/shared';
+import type { UseQueryResult } from '@tanstack/react-query';
 
-interface CursorPagerProps {
+type PagerPage = Pick<KeysetPage<unknown>, 'items' | 'nextCursor' | 'prevCursor' | 'pageSize'> &
+  Partial<Pick<KeysetPage<unknown>, 'total' | 'totalIsCapped'>>;
+
+/**
+ * The pager reads the page the query answered (and shows nothing before it has); a list that keeps its cursors itself
+ * hands it the page as it should read it.
+ */
+type CursorPagerProps = {
   /** Plural noun of the rows, e.g. "Studies". */
   noun: string;
-  page: Pick<KeysetPage<unknown>, 'items' | 'nextCursor' | 'prevCursor' | 'pageSize'> &
-    Partial<Pick<KeysetPage<unknown>, 'total' | 'totalIsCapped'>>;
   /** 1-based position of the page, kept beside the cursor for the words only. */
   pageNumber: number;
-  fetching?: boolean;
-  /** The rows shown belong to the query before (a new sort or filter is loading): their cursors do not apply. */
-  stale?: boolean;
   onMove: (cursor: string | undefined, pageNumber: number) => void;
-}
+} & ({ query: UseQueryResult<PagerPage>; page?: undefined } | { query: UseQueryResult<unknown>; page: PagerPage | undefined });
 
 /** Previous and next for a list paged by cursor, with the rows shown and the (capped) count. */
-export function CursorPager({ noun, page, pageNumber, fetching, stale, onMove }: CursorPagerProps) {
+export function CursorPager({ noun, query, page: ownPage, pageNumber, onMove }: CursorPagerProps) {
+  const page = ownPage ?? (query.data as PagerPage | undefined);
+  if (!page) return null;
+  const fetching = query.isFetching;
+  // The rows shown belong to the query before (a new sort or filter is loading): their cursors do not apply.
+  const stale = query.isPlaceholderData;
   const number = page.prevCursor ? Math.max(2, pageNumber) : 1;
   if (!page.items.length && number === 1) return null;
   const first = (number - 1) * page.pageSize + 1;

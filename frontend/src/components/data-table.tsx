@@ -16,7 +16,9 @@ import {
   type RowData,
   type SortingState,
 } from '@tanstack/react-table';
+import type { UseQueryResult } from '@tanstack/react-query';
 import type { ReactNode } from 'react';
+import { QueryError } from './query-error';
 
 export interface DataTableColumnMeta {
   /** Numbers and dates line up on the right, as in a lab notebook. */
@@ -40,12 +42,11 @@ export const dataTableColumns = <TData extends RowData>() => createColumnHelper<
 // eslint-disable-next-line @typescript-eslint/no-explicit-any -- each column keeps its own value type
 export type DataTableColumns<TData extends RowData> = ReadonlyArray<ColumnDef<DataTableFeatures, TData, any>>;
 
-export interface DataTableProps<TData extends RowData> {
+interface DataTableBaseProps<TData extends RowData> {
   /** Names the table for assistive technology (and tests). */
   label: string;
   /** Keep the array stable: declare it at module scope or memoize it. */
   columns: DataTableColumns<TData>;
-  data: readonly TData[] | undefined;
   getRowId?: (row: TData) => string;
   /** Highlights the row whose id (from `getRowId`) is shown in a detail view beside the table. */
   selectedRowId?: string;
@@ -59,6 +60,12 @@ export interface DataTableProps<TData extends RowData> {
   pageSize?: number;
 }
 
+/** The rows, or the query that loads them: placeholder rows while it is pending, its error with a retry in place of the table when it fails. */
+type DataTableRows<TData extends RowData> =
+  { data: readonly TData[] | undefined; query?: UseQueryResult<unknown> } | { query: UseQueryResult<readonly TData[]>; data?: undefined };
+
+export type DataTableProps<TData extends RowData> = DataTableBaseProps<TData> & DataTableRows<TData>;
+
 const NO_ROWS: never[] = [];
 
 export function DataTable<TData extends RowData>({
@@ -67,7 +74,8 @@ export function DataTable<TData extends RowData>({
   data,
   getRowId,
   selectedRowId,
-  isLoading = false,
+  isLoading: loading = false,
+  query,
   emptyTitle = 'Nothing here yet',
   emptyDescription,
   sortable = false,
@@ -77,13 +85,15 @@ export function DataTable<TData extends RowData>({
   const table = useTable({
     features: dataTableFeatures,
     columns: columns as ColumnDef<DataTableFeatures, TData>[],
-    data: (data ?? NO_ROWS) as TData[],
+    data: (data ?? (query?.data as readonly TData[] | undefined) ?? NO_ROWS) as TData[],
     getRowId: getRowId ? (row) => getRowId(row) : undefined,
     enableSorting: sortable,
     manualPagination: pageSize === undefined,
     initialState: { sorting: initialSorting, pagination: { pageIndex: 0, pageSize: pageSize ?? Number.MAX_SAFE_INTEGER } },
   });
 
+  if (query?.isError) return <QueryError error={query.error} onRetry={() => void query.refetch()} />;
+  const isLoading = loading || query?.isPending === true;
   const rows = table.getRowModel().rows;
   const columnCount = table.getAllLeafColumns().length;
   const { pageIndex } = table.state.pagination;
@@ -114,13 +124,12 @@ export function DataTable<TData extends RowData>({
                     >
                       {header.isPlaceholder ? null : canSort ? (
                         <SortButton
+                          width="full"
                           onClick={header.column.getToggleSortingHandler()}
                           justifyContent={align === 'end' ? 'flex-end' : 'flex-start'}
                         >
                           <table.FlexRender header={header} />
-                          <Text as="span" aria-hidden="true" color={sorted ? 'brand.fg' : 'fg.subtle'}>
-                            {sorted === 'asc' ? '↑' : sorted === 'desc' ? '↓' : '↕'}
-                          </Text>
+                          <SortArrow direction={sorted || undefined} />
                         </SortButton>
                       ) : (
                         <table.FlexRender header={header} />
@@ -190,12 +199,12 @@ export function DataTable<TData extends RowData>({
   );
 }
 
-const SortButton = chakra('button', {
+/** A header that sorts its column when clicked; the server-sorted lists use it too. */
+export const SortButton = chakra('button', {
   base: {
     display: 'inline-flex',
     alignItems: 'center',
     gap: '1.5',
-    width: 'full',
     font: 'inherit',
     letterSpacing: 'inherit',
     textTransform: 'inherit',
@@ -206,3 +215,23 @@ const SortButton = chakra('button', {
     _focusVisible: { outline: '2px solid', outlineColor: 'colorPalette.focusRing', outlineOffset: '2px' },
   },
 });
+
+/** Which way a column is sorted, for the eye; the header's aria-sort or label says it in words. */
+export function SortArrow({ direction }: { direction: 'asc' | 'desc' | undefined }) {
+  return (
+    <Text as="span" aria-hidden="true" color={direction ? 'brand.fg' : 'fg.subtle'}>
+      {direction === 'asc' ? '↑' : direction === 'desc' ? '↓' : '↕'}
+    </Text>
+  );
+}
+
+/** A header in words for assistive technology only; positioned, so that the hidden words stay inside the table's scroll area. */
+export function HiddenHeader({ children }: { children: ReactNode }) {
+  return (
+    <Text as="span" position="relative">
+      <Text as="span" srOnly>
+        {children}
+      </Text>
+    </Text>
+  );
+}

@@ -13,6 +13,15 @@ export const PLOT_COLOURS = {
   guide: 'rgba(181,101,10,0.55)',
 };
 
+/** Points as markers at their concentration, with the value `y` gives. */
+export const markersAt = <P extends { x: number }>(name: string, points: readonly P[], y: (point: P) => number) => ({
+  type: 'scatter' as const,
+  mode: 'markers' as const,
+  name,
+  x: points.map((p) => p.x),
+  y: points.map(y),
+});
+
 const axisTitle = (name: string, unit: string | undefined) => (unit ? `${name} (${unit})` : name);
 
 function extent(values: number[], includeZero: boolean): [number, number] {
@@ -107,22 +116,14 @@ export function calibrationFigure(
     });
   }
   traces.push({
-    type: 'scatter',
-    mode: 'markers',
-    name: 'Standards',
-    x: used.map((s) => s.x),
-    y: used.map((s) => s.y),
+    ...markersAt('Standards', used, (s) => s.y),
     customdata: used.map((s) => [s.index, s.index + 1]) as unknown as number[],
     marker: { color: PLOT_COLOURS.standard, size: 9, symbol: 'circle', line: { color: '#ffffff', width: 1 } },
     hovertemplate: 'Standard row %{customdata[1]}<br>x = %{x}<br>y = %{y}<br>Click to exclude<extra></extra>',
   });
   if (excluded.length > 0) {
     traces.push({
-      type: 'scatter',
-      mode: 'markers',
-      name: 'Excluded standards (hollow)',
-      x: excluded.map((s) => s.x),
-      y: excluded.map((s) => s.y),
+      ...markersAt('Excluded standards (hollow)', excluded, (s) => s.y),
       customdata: excluded.map((s) => [s.index, s.index + 1, s.excluded?.reason ?? '']) as unknown as number[],
       marker: { color: PLOT_COLOURS.excluded, size: 10, symbol: 'circle-open', line: { width: 2 } },
       hovertemplate:

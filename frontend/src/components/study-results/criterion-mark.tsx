@@ -1,4 +1,5 @@
-import { HStack, Text } from '@chakra-ui/react';
+import { HStack, Stack, Text } from '@chakra-ui/react';
+import { findFigure } from '@meritline/shared';
 import { FailsIcon, MeetsIcon, NotJudgedIcon } from './icons';
 
 export interface CriterionMarkProps {
@@ -28,5 +29,17 @@ export function CriterionMark({ pass, missingValue = false }: CriterionMarkProps
       <Icon />
       <Text as="span">{label}</Text>
     </HStack>
+  );
+}
+
+/** A criterion's name, with the part of the study its figure belongs to beneath. */
+export function CriterionName({ name, figure }: { name: string; figure: string }) {
+  return (
+    <Stack gap="0">
+      <Text fontWeight="500">{name}</Text>
+      <Text fontSize="xs" color="fg.muted">
+        {findFigure(figure)?.section ?? 'Other figure'}
+      </Text>
+    </Stack>
   );
 }

@@ -6,7 +6,7 @@ export { AccuracyProfilePlot, truenessSentence, validityWords } from './accuracy
 export { UncertaintyTables } from './uncertainty-tables';
 export { StudyFlags, studyFlags, type StudyFlag } from './study-flags';
 export { VerdictSummary, verdictHeadline } from './verdict-summary';
-export { CriterionMark } from './criterion-mark';
+export { CriterionMark, CriterionName } from './criterion-mark';
 export { judgeCriteria, type JudgedCriterion } from './judge-criteria';
 export { criterionName, describeRequirement, FIGURE_LABELS, figureLabel, figureUnit, MODEL_LABELS, WEIGHTING_LABELS } from './format';
 export type { CriterionDefinition, StudyResultsProps, StudyUnits } from './types';

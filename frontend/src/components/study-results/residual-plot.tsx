@@ -1,5 +1,5 @@
 import type { Data } from 'plotly.js-dist-min';
-import { PLOT_COLOURS } from './calibration-plot';
+import { markersAt, PLOT_COLOURS } from './calibration-plot';
 import { LazyPlot } from './lazy-plot';
 import type { StudyResultsProps } from './types';
 
@@ -36,11 +36,7 @@ export function ResidualPlot({ result, units, height = 320 }: Pick<StudyResultsP
     });
   }
   traces.push({
-    type: 'scatter',
-    mode: 'markers',
-    name: 'Residuals of the standards used',
-    x: points.map((p) => p.x),
-    y: points.map((p) => p.residual),
+    ...markersAt('Residuals of the standards used', points, (p) => p.residual),
     customdata: points.map((p) => p.index + 1),
     marker: { color: PLOT_COLOURS.standard, size: 8, symbol: 'circle' },
     hovertemplate: 'Standard row %{customdata}<br>x = %{x}<br>residual = %{y}<extra></extra>',

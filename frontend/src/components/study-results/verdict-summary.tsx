@@ -1,7 +1,7 @@
 import { Box, HStack, Stack, Text } from '@chakra-ui/react';
-import { findFigure, formatNumber, withUnit } from '@meritline/shared';
+import { formatNumber, withUnit } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { CriterionMark } from './criterion-mark';
+import { CriterionMark, CriterionName } from './criterion-mark';
 import { describeRequirement } from './format';
 import { FailsIcon, MeetsIcon, NotJudgedIcon } from './icons';
 import { judgeCriteria, type JudgedCriterion } from './judge-criteria';
@@ -11,14 +11,7 @@ const column = dataTableColumns<JudgedCriterion & { id: string }>();
 const columns = column.columns([
   column.accessor('name', {
     header: 'Criterion',
-    cell: (info) => (
-      <Stack gap="0">
-        <Text fontWeight="500">{info.getValue()}</Text>
-        <Text fontSize="xs" color="fg.muted">
-          {findFigure(info.row.original.figure)?.section ?? 'Other figure'}
-        </Text>
-      </Stack>
-    ),
+    cell: (info) => <CriterionName name={info.getValue()} figure={info.row.original.figure} />,
   }),
   column.display({
     id: 'required',

@@ -5,10 +5,10 @@ import { useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import { useSession } from '@/lib/auth';
+import { changeSearch } from '@/lib/search-params';
 import { AUDIT_PAGE_SIZE, auditQueries, downloadAuditExtract, type AuditFilters } from '../api/audit-queries';
 import { auditColumns } from '../components/audit-columns';
 import { ChainCheck } from '../components/chain-check';
@@ -35,15 +35,7 @@ export default function AuditTrailPage() {
 
   const oversight = !!user && hasAnyRole(user.roles, [Role.QualityManager, Role.Admin]);
   const qualityManager = !!user && user.roles.includes(Role.QualityManager);
-  const update = (changes: Partial<Record<(typeof FILTER_KEYS)[number], string>>) =>
-    setParams((current) => {
-      const next = new URLSearchParams(current);
-      for (const [key, value] of Object.entries(changes)) {
-        if (value) next.set(key, value);
-        else next.delete(key);
-      }
-      return next;
-    });
+  const update = (changes: Partial<Record<(typeof FILTER_KEYS)[number], string>>) => setParams((current) => changeSearch(current, changes));
   const download = async (format: 'csv' | 'pdf') => {
     setBusy(format);
     try {
@@ -177,19 +169,15 @@ export default function AuditTrailPage() {
           </Text>
         </Stack>
 
-        {page.isError ? (
-          <QueryError error={page.error} onRetry={() => void page.refetch()} />
-        ) : (
-          <DataTable
-            label="Audit trail"
-            columns={auditColumns}
-            data={page.data?.items}
-            getRowId={(entry) => String(entry.seq)}
-            isLoading={page.isPending}
-            emptyTitle="No entries"
-            emptyDescription="Nothing in the trail matches these filters."
-          />
-        )}
+        <DataTable
+          label="Audit trail"
+          columns={auditColumns}
+          query={page}
+          data={page.data?.items}
+          getRowId={(entry) => String(entry.seq)}
+          emptyTitle="No entries"
+          emptyDescription="Nothing in the trail matches these filters."
+        />
         {total > 0 && (
           <HStack justify="space-between">
             <Text fontSize="sm" color="fg.muted" data-testid="audit-range">

@@ -1,4 +1,4 @@
-import { Checkbox, Fieldset, NativeSelect, SimpleGrid, Stack } from '@chakra-ui/react';
+import { Checkbox, Fieldset, SimpleGrid, Stack } from '@chakra-ui/react';
 import {
   METHOD_CHANGE_KIND_LABELS,
   METHOD_CHANGE_KINDS,
@@ -9,6 +9,7 @@ import {
 import { useField } from 'formik';
 import { useId } from 'react';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
 
 /** Kind of change and the families of figures a study must show again before the version is activated. */
 export function ChangeControlFields({ recordsChange }: { recordsChange: boolean }) {
@@ -22,20 +23,12 @@ export function ChangeControlFields({ recordsChange }: { recordsChange: boolean 
     <Stack gap="4">
       {recordsChange && (
         <>
-          <FormField name="changeKind" label="Kind of change" required>
-            {(field) => (
-              <NativeSelect.Root>
-                <NativeSelect.Field {...field} value={String(field.value ?? '')}>
-                  {METHOD_CHANGE_KINDS.map((kind) => (
-                    <option key={kind} value={kind}>
-                      {METHOD_CHANGE_KIND_LABELS[kind]}
-                    </option>
-                  ))}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-            )}
-          </FormField>
+          <SelectField
+            name="changeKind"
+            label="Kind of change"
+            required
+            options={METHOD_CHANGE_KINDS.map((kind) => ({ value: kind, label: METHOD_CHANGE_KIND_LABELS[kind] }))}
+          />
           <Fieldset.Root>
             <Fieldset.Legend>Figures to show again before activation</Fieldset.Legend>
             <Fieldset.HelperText>

@@ -2,6 +2,7 @@ import { Box, Button, Field, Grid, HStack, IconButton, Input, NativeSelect, Stac
 import { CRITERION_OPS, figuresBySection, findFigure, type CriterionOp } from '@meritline/shared';
 import { FieldArray, getIn, useFormikContext } from 'formik';
 import { figureLabel } from '@/components/study-results';
+import { SelectControl } from '@/components/select-control';
 import { criterionRowInWords as rowInWords, type CriterionRow } from '../api/version-rules';
 
 const OP_LABELS: Record<CriterionOp, string> = {
@@ -70,16 +71,11 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                   </Field.Root>
                   <Field.Root gridColumn={{ md: 'span 3' }}>
                     <Field.Label>Comparison</Field.Label>
-                    <NativeSelect.Root>
-                      <NativeSelect.Field value={row.op} onChange={(e) => void setFieldValue(`${prefix}.op`, e.target.value)}>
-                        {CRITERION_OPS.map((op) => (
-                          <option key={op} value={op}>
-                            {OP_LABELS[op]}
-                          </option>
-                        ))}
-                      </NativeSelect.Field>
-                      <NativeSelect.Indicator />
-                    </NativeSelect.Root>
+                    <SelectControl
+                      value={row.op}
+                      onChange={(value) => void setFieldValue(`${prefix}.op`, value)}
+                      options={CRITERION_OPS.map((op) => ({ value: op, label: OP_LABELS[op] }))}
+                    />
                   </Field.Root>
                   <Field.Root invalid={Boolean(errorAt(i, 'value'))} gridColumn={{ md: 'span 2' }}>
                     <Field.Label>{row.op === 'between' ? 'From' : 'Limit'}</Field.Label>

@@ -1,21 +1,12 @@
-import { Stack, Text } from '@chakra-ui/react';
-import { findFigure } from '@meritline/shared';
 import { DataTable, dataTableColumns } from '@/components/data-table';
-import { criterionName, describeRequirement, figureUnit, type CriterionDefinition } from '@/components/study-results';
+import { CriterionName, criterionName, describeRequirement, figureUnit, type CriterionDefinition } from '@/components/study-results';
 
 const column = dataTableColumns<CriterionDefinition & { id: string; unit?: string }>();
 const columns = column.columns([
   column.display({
     id: 'name',
     header: 'Criterion',
-    cell: (info) => (
-      <Stack gap="0">
-        <Text fontWeight="500">{criterionName(info.row.original)}</Text>
-        <Text fontSize="xs" color="fg.muted">
-          {findFigure(info.row.original.figure)?.section ?? 'Other figure'}
-        </Text>
-      </Stack>
-    ),
+    cell: (info) => <CriterionName name={criterionName(info.row.original)} figure={info.row.original.figure} />,
   }),
   column.display({
     id: 'requirement',

@@ -1,6 +1,5 @@
 import type { MethodDto } from '@meritline/shared';
-import { Badge, HStack, Link, Text } from '@chakra-ui/react';
-import { Link as RouterLink } from 'react-router';
+import { Badge, HStack, Text } from '@chakra-ui/react';
 import { dataTableColumns } from '@/components/data-table';
 import { NameCell } from '@/components/name-cell';
 import { paths } from '@/lib/config/paths';
@@ -14,11 +13,8 @@ export const methodsColumns = column.columns([
     sortFn: 'text',
     cell: (info) => (
       <NameCell
-        name={
-          <Link asChild fontWeight="600" color="brand.fg">
-            <RouterLink to={paths.methodDetail.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
-          </Link>
-        }
+        name={info.getValue()}
+        href={paths.methodDetail.getHref(info.row.original.id)}
         detail={`${info.row.original.analyte} in ${info.row.original.matrix}`}
       />
     ),

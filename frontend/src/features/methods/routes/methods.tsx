@@ -2,7 +2,6 @@ import { Stack } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { methodsQueries } from '../api/methods-queries';
 import { useMethodPermissions } from '../hooks/use-method-permissions';
 import { CreateMethodDialog } from '../components/create-method-dialog';
@@ -21,22 +20,17 @@ export default function MethodsPage() {
         actions={canPropose && <CreateMethodDialog proposal={!canManage} />}
       />
       <Stack gap="4">
-        {methods.isError ? (
-          <QueryError error={methods.error} onRetry={() => void methods.refetch()} />
-        ) : (
-          <DataTable
-            label="Methods"
-            columns={methodsColumns}
-            data={methods.data}
-            getRowId={(method) => method.id}
-            isLoading={methods.isPending}
-            sortable
-            initialSorting={[{ id: 'name', desc: false }]}
-            pageSize={25}
-            emptyTitle="No methods yet"
-            emptyDescription={canPropose ? 'Create the first method with the button above.' : undefined}
-          />
-        )}
+        <DataTable
+          label="Methods"
+          columns={methodsColumns}
+          query={methods}
+          getRowId={(method) => method.id}
+          sortable
+          initialSorting={[{ id: 'name', desc: false }]}
+          pageSize={25}
+          emptyTitle="No methods yet"
+          emptyDescription={canPropose ? 'Create the first method with the button above.' : undefined}
+        />
       </Stack>
     </>
   );

@@ -1,15 +1,11 @@
 import type { QualificationRunDetailDto, QualificationRunDto } from '@meritline/shared';
-import { queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { wholeListQuery } from '@/lib/list-query';
 import { saveFile } from '@/lib/save-file';
 
 export const qualificationQueries = {
   all: ['qualification'] as const,
-  list: () =>
-    queryOptions({
-      queryKey: [...qualificationQueries.all, 'list'],
-      queryFn: ({ signal }) => api.get<QualificationRunDto[]>('/qualification', { signal }),
-    }),
+  list: () => wholeListQuery<QualificationRunDto>(qualificationQueries.all),
 };
 
 export const runQualification = () => api.post<QualificationRunDetailDto>('/qualification');

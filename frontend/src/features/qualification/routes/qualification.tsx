@@ -44,19 +44,14 @@ export default function QualificationPage() {
             </Alert.Content>
           </Alert.Root>
         )}
-        {runs.isError ? (
-          <QueryError error={runs.error} onRetry={() => void runs.refetch()} />
-        ) : (
-          <DataTable
-            label="Self-qualification runs"
-            columns={qualificationColumns}
-            data={runs.data}
-            getRowId={(r) => r.id}
-            isLoading={runs.isPending}
-            emptyTitle="Not run yet"
-            emptyDescription="Run it once after installing and after each update."
-          />
-        )}
+        <DataTable
+          label="Self-qualification runs"
+          columns={qualificationColumns}
+          query={runs}
+          getRowId={(r) => r.id}
+          emptyTitle="Not run yet"
+          emptyDescription="Run it once after installing and after each update."
+        />
         <Text fontSize="sm" color="fg.muted" maxW="4xl">
           The checks show that the calculations reproduce published values on this installation. They do not replace the validation of the
           computerised system or of your methods under your laboratory&apos;s procedures and the regulations that apply.

@@ -1,8 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
-import { notificationKeys } from '@/lib/query-keys';
-import { reviewQueueQueries, studyReviewQueries } from './review-queries';
+import { invalidateAfterTransition } from './review-queries';
 import type { TransitionResult } from './review-types';
 
 export const returnSchema = yup.object({
@@ -20,12 +19,7 @@ export function useReturnStudy(studyId: string) {
   return useMutation({
     mutationFn: ({ values, lockVersion }: { values: ReturnValues; lockVersion: number }) =>
       api.post<TransitionResult>(`/studies/${encodeURIComponent(studyId)}/return`, { comment: values.comment, lockVersion }),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: studyReviewQueries.study(studyId) }),
-        queryClient.invalidateQueries({ queryKey: reviewQueueQueries.all }),
-        queryClient.invalidateQueries({ queryKey: notificationKeys.all }),
-      ]),
+    onSuccess: () => invalidateAfterTransition(queryClient, studyId),
     meta: { inlineErrors: true },
   });
 }

@@ -1,7 +1,7 @@
 import type { ReviewQueuePageDto } from '@meritline/shared';
-import { keepPreviousData, queryOptions } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, type QueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { reviewQueueKeys, studyKeys } from '@/lib/query-keys';
+import { notificationKeys, reviewQueueKeys, studyKeys } from '@/lib/query-keys';
 import type { HistoryItem, ReviewQueueParams, Signature, StudyComment, StudyDiff, StudyView } from './review-types';
 
 export const studyReviewQueries = {
@@ -49,3 +49,11 @@ export const reviewQueueQueries = {
       placeholderData: keepPreviousData,
     }),
 };
+
+/** A study moved on its way to approval: its page, the review queue and the notifications all show it. */
+export const invalidateAfterTransition = (queryClient: QueryClient, studyId: string) =>
+  Promise.all([
+    queryClient.invalidateQueries({ queryKey: studyReviewQueries.study(studyId) }),
+    queryClient.invalidateQueries({ queryKey: reviewQueueQueries.all }),
+    queryClient.invalidateQueries({ queryKey: notificationKeys.all }),
+  ]);

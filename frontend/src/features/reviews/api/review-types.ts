@@ -5,7 +5,6 @@ import {
   type SignatureMeaning,
   STUDY_STATUS_LABELS,
   type StudyInput,
-  type StudySection,
   type StudyStatus,
   type TransitionResultDto,
 } from '@meritline/shared';
@@ -52,16 +51,6 @@ export interface ReviewQueueParams {
   cursor?: string;
   pageSize: number;
 }
-
-export const SECTION_LABELS: Record<StudySection, string> = {
-  setup: 'Setup',
-  standards: 'Standards',
-  blanks: 'Blanks',
-  recovery: 'Recovery',
-  precision: 'Precision',
-  results: 'Results',
-  conclusion: 'Conclusion',
-};
 
 export const STATUS_LABELS: Record<StudyStatus, string> = STUDY_STATUS_LABELS;
 

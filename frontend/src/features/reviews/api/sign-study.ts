@@ -1,8 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import * as yup from 'yup';
 import { api } from '@/lib/api-client';
-import { notificationKeys } from '@/lib/query-keys';
-import { reviewQueueQueries, studyReviewQueries } from './review-queries';
+import { invalidateAfterTransition } from './review-queries';
 import type { TransitionResult } from './review-types';
 
 export const signSchema = yup.object({
@@ -25,12 +24,7 @@ export function useSignStudy(studyId: string, action: SigningAction) {
         { password: values.password, comment: values.comment || undefined, justification: values.justification || undefined, lockVersion },
         { passwordCheck: true },
       ),
-    onSuccess: () =>
-      Promise.all([
-        queryClient.invalidateQueries({ queryKey: studyReviewQueries.study(studyId) }),
-        queryClient.invalidateQueries({ queryKey: reviewQueueQueries.all }),
-        queryClient.invalidateQueries({ queryKey: notificationKeys.all }),
-      ]),
+    onSuccess: () => invalidateAfterTransition(queryClient, studyId),
     meta: { inlineErrors: true },
   });
 }

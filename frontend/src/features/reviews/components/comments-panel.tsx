@@ -1,12 +1,13 @@
-import { formatDateTime, type StudySection } from '@meritline/shared';
-import { Badge, Box, Button, Heading, HStack, NativeSelect, Stack, Text, Textarea } from '@chakra-ui/react';
+import { formatDateTime, STUDY_SECTION_LABELS, type StudySection } from '@meritline/shared';
+import { Badge, Box, Button, Heading, HStack, Stack, Text, Textarea } from '@chakra-ui/react';
 import { useState } from 'react';
 import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
 import { commentSchema, usePostComment, useResolveComment } from '../api/comments';
-import { SECTION_LABELS, type StudyComment } from '../api/review-types';
+import type { StudyComment } from '../api/review-types';
 
-const SECTIONS = Object.keys(SECTION_LABELS) as StudySection[];
+const SECTIONS = Object.keys(STUDY_SECTION_LABELS) as StudySection[];
 
 interface Thread {
   root: StudyComment;
@@ -39,20 +40,11 @@ export function CommentsPanel({ studyId, comments }: { studyId: string; comments
           onSubmit={(values) => post.mutateAsync({ section: values.section, body: values.body })}
           submitLabel="Post comment"
         >
-          <FormField name="section" label="Section of the study">
-            {(field) => (
-              <NativeSelect.Root>
-                <NativeSelect.Field {...field} value={field.value as string}>
-                  {SECTIONS.map((section) => (
-                    <option key={section} value={section}>
-                      {SECTION_LABELS[section]}
-                    </option>
-                  ))}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-            )}
-          </FormField>
+          <SelectField
+            name="section"
+            label="Section of the study"
+            options={SECTIONS.map((section) => ({ value: section, label: STUDY_SECTION_LABELS[section] }))}
+          />
           <FormField name="body" label="Comment" required>
             {(field) => <Textarea {...field} value={(field.value as string) ?? ''} rows={3} />}
           </FormField>
@@ -81,7 +73,7 @@ function CommentThread({ studyId, thread }: { studyId: string; thread: Thread })
       <HStack justify="space-between" mb="2" wrap="wrap">
         <HStack gap="2">
           <Badge colorPalette="brand" variant="subtle">
-            {SECTION_LABELS[root.section]}
+            {STUDY_SECTION_LABELS[root.section]}
           </Badge>
           {root.resolved && <Badge colorPalette="green">Resolved</Badge>}
         </HStack>

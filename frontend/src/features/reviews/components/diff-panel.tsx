@@ -1,18 +1,6 @@
 import { Badge, Box, Heading, Stack, Table, Text } from '@chakra-ui/react';
-import { formatDateTime, formatNumber, STUDY_META_WORDS, type StudyInput } from '@meritline/shared';
+import { formatDateTime, formatNumber, STUDY_META_WORDS, STUDY_SECTION_WORDS, type StudyInput } from '@meritline/shared';
 import type { StudyDiff } from '../api/review-types';
-
-const SECTION_NAMES: Record<string, string> = {
-  standards: 'Calibration standards',
-  blanks: 'Blanks',
-  unknowns: 'Samples',
-  checks: 'Check standards',
-  recovery: 'Recovery',
-  precision: 'Precision',
-  criteria: 'Acceptance criteria',
-  'lowSpikes.spiked': 'Low-level spikes',
-  'lowSpikes.blanks': 'Method blanks (detection limit)',
-};
 
 const FIELD_NAMES: Record<string, string> = {
   x: 'Concentration',
@@ -67,7 +55,7 @@ export function DiffPanel({ diff, data, unit }: { diff: StudyDiff | null; data: 
       to: show(s.to),
     })),
     ...diff.sections.flatMap((section) => {
-      const where = SECTION_NAMES[section.section] ?? section.section;
+      const where = STUDY_SECTION_WORDS[section.section] ?? section.section;
       return [
         ...section.changed.map((c) => ({
           where,

@@ -1,10 +1,10 @@
-import { Button, NativeSelect } from '@chakra-ui/react';
+import { Button } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { FormDialog } from '@/components/form-dialog';
-import { FormField } from '@/components/form/form-field';
 import { TextareaField } from '@/components/form/textarea-field';
 import { toaster } from '@/components/ui/toaster';
+import { SelectField } from '@/components/form/select-field';
 import { analystChoicesQuery, reassignSchema, useReassignStudy, type ReassignValues } from '../api/reassign-study';
 import type { StudyView } from '../api/review-types';
 
@@ -33,21 +33,14 @@ export function ReassignDialog({ study }: { study: Pick<StudyView, 'id' | 'lockV
       }}
       submitLabel="Give the draft"
     >
-      <FormField name="authorId" label="New author" required>
-        {(field) => (
-          <NativeSelect.Root disabled={analysts.isPending}>
-            <NativeSelect.Field {...field} value={field.value as string}>
-              <option value="">{analysts.isPending ? 'Loading the analysts…' : 'Choose an analyst'}</option>
-              {choices.map((u) => (
-                <option key={u.id} value={u.id}>
-                  {u.name}
-                </option>
-              ))}
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
-        )}
-      </FormField>
+      <SelectField
+        name="authorId"
+        label="New author"
+        required
+        disabled={analysts.isPending}
+        placeholder={analysts.isPending ? 'Loading the analysts…' : 'Choose an analyst'}
+        options={choices.map((u) => ({ value: u.id, label: u.name }))}
+      />
       <TextareaField name="reason" label="Why the draft changes hands" required maxLength={500} />
     </FormDialog>
   );

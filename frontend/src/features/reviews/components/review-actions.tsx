@@ -9,7 +9,7 @@ import type { Signature, StudyView } from '../api/review-types';
 import { ReturnDialog } from './return-dialog';
 import { SignDialog } from './sign-dialog';
 import { ReassignDialog } from './reassign-dialog';
-import { MEANINGS } from './signature-meanings';
+import { submitStep } from './signing-steps';
 
 interface ReviewActionsProps {
   study: StudyView;
@@ -40,51 +40,14 @@ export function ReviewActions({ study, signatures, user }: ReviewActionsProps) {
     actions.push(<ReassignDialog key="reassign" study={study} />);
   }
   if (isAuthor && (study.status === 'draft' || study.status === 'returned') && study.result) {
-    actions.push(
-      <SignDialog
-        key="submit"
-        studyId={study.id}
-        lockVersion={study.lockVersion}
-        action="submit"
-        meaning={MEANINGS.authored}
-        title="Submit the study for review"
-        triggerLabel={study.status === 'returned' ? 'Resubmit for review' : 'Submit for review'}
-        submitLabel="Sign and submit"
-        successTitle="Submitted for review"
-      />,
-    );
+    actions.push(<SignDialog key="submit" studyId={study.id} lockVersion={study.lockVersion} step={submitStep(study.status)} />);
   }
   if (study.status === 'submitted' && !involved && hasAnyRole(user.roles, [Role.Reviewer, Role.QualityManager])) {
     const canRelease = firstApproval && user.roles.includes(Role.QualityManager) && firstApproval.signerId !== user.id;
     if (!firstApproval || canRelease) {
       actions.push(<ReturnDialog key="return" studyId={study.id} lockVersion={study.lockVersion} authorName={study.author.name} />);
-      actions.push(
-        firstApproval ? (
-          <SignDialog
-            key="release"
-            studyId={study.id}
-            lockVersion={study.lockVersion}
-            action="approve"
-            meaning={MEANINGS.released}
-            title="Release the study"
-            triggerLabel="Release"
-            submitLabel="Sign and release"
-            successTitle="Study released and approved"
-          />
-        ) : (
-          <SignDialog
-            key="approve"
-            studyId={study.id}
-            lockVersion={study.lockVersion}
-            action="approve"
-            meaning={MEANINGS.reviewed}
-            title="Approve the study"
-            triggerLabel="Approve"
-            submitLabel="Sign and approve"
-            successTitle="Study approved"
-          />
-        ),
-      );
+      const step = firstApproval ? 'release' : 'approve';
+      actions.push(<SignDialog key={step} studyId={study.id} lockVersion={study.lockVersion} step={step} />);
     }
   }
   if (study.status === 'approved') {

@@ -1,8 +1,8 @@
-import { formatDateTime } from '@meritline/shared';
+import { formatDateTime, STUDY_SECTION_LABELS } from '@meritline/shared';
 import { Box, Heading, List, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { studyReviewQueries } from '../api/review-queries';
-import { SECTION_LABELS, type StudyComment } from '../api/review-types';
+import type { StudyComment } from '../api/review-types';
 
 export const openThreads = (comments: readonly StudyComment[]) => comments.filter((c) => !c.threadId && !c.resolved);
 
@@ -13,7 +13,7 @@ export function OpenCommentList({ comments }: { comments: readonly StudyComment[
       {comments.map((comment) => (
         <List.Item key={comment.id}>
           <Text as="span" fontWeight="600">
-            {SECTION_LABELS[comment.section]}
+            {STUDY_SECTION_LABELS[comment.section]}
           </Text>
           : {comment.body.length > 140 ? `${comment.body.slice(0, 140)}…` : comment.body}{' '}
           <Text as="span" color="fg.muted">

@@ -7,20 +7,15 @@ import { TextareaField } from '@/components/form/textarea-field';
 import { SignatureNotice, SignaturePasswordField } from '@/components/signature-dialog';
 import { toaster } from '@/components/ui/toaster';
 import { studyReviewQueries } from '../api/review-queries';
-import { signSchema, useSignStudy, type SignValues, type SigningAction } from '../api/sign-study';
+import { signSchema, useSignStudy, type SignValues } from '../api/sign-study';
 import { APPROVAL_CAUTION, FAILED_VERDICT_CAUTION } from './approval-caution';
 import { OpenCommentList, openThreads } from './reviewer-remarks';
+import { SIGNING_STEPS, type SigningStepName } from './signing-steps';
 
 export interface SignDialogProps {
   studyId: string;
   lockVersion: number;
-  action: SigningAction;
-  /** What the signature means, in words, shown above the password. */
-  meaning: string;
-  title: string;
-  triggerLabel: string;
-  submitLabel: string;
-  successTitle: string;
+  step: SigningStepName;
   onSigned?: () => void;
 }
 
@@ -36,17 +31,8 @@ const justifiedSignSchema = signSchema.shape({
 });
 
 /** An electronic signature: the meaning in words, the password re-entered, an optional comment. */
-export function SignDialog({
-  studyId,
-  lockVersion,
-  action,
-  meaning,
-  title,
-  triggerLabel,
-  submitLabel,
-  successTitle,
-  onSigned,
-}: SignDialogProps) {
+export function SignDialog({ studyId, lockVersion, step, onSigned }: SignDialogProps) {
+  const { action, meaning, title, triggerLabel, submitLabel, successTitle } = SIGNING_STEPS[step];
   const sign = useSignStudy(studyId, action);
   // The study page has loaded the study already; read it from the cache rather than ask again.
   const study = useQuery({ ...studyReviewQueries.detail(studyId), enabled: false });

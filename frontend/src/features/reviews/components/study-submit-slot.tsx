@@ -3,7 +3,7 @@ import type { StudyStatus } from '@meritline/shared';
 import { Link as RouterLink, useNavigate } from 'react-router';
 import { paths } from '@/lib/config/paths';
 import { SignDialog } from './sign-dialog';
-import { MEANINGS } from './signature-meanings';
+import { submitStep } from './signing-steps';
 
 export interface StudySubmitSlotProps {
   study: { id: string; status: StudyStatus; lockVersion: number; result: unknown; resultErrors?: { message: string }[] | null };
@@ -40,17 +40,7 @@ export function StudySubmitSlot({ study }: StudySubmitSlotProps) {
   return (
     <HStack gap="4" wrap="wrap">
       <Text color="fg.muted">When the data and conclusion are complete, sign and submit the study; a second person then reviews it.</Text>
-      <SignDialog
-        studyId={study.id}
-        lockVersion={study.lockVersion}
-        action="submit"
-        meaning={MEANINGS.authored}
-        title="Submit the study for review"
-        triggerLabel={study.status === 'returned' ? 'Resubmit for review' : 'Submit for review'}
-        submitLabel="Sign and submit"
-        successTitle="Submitted for review"
-        onSigned={() => void navigate(view)}
-      />
+      <SignDialog studyId={study.id} lockVersion={study.lockVersion} step={submitStep(study.status)} onSigned={() => void navigate(view)} />
     </HStack>
   );
 }

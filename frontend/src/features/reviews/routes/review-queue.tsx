@@ -6,7 +6,6 @@ import { Link as RouterLink } from 'react-router';
 import { CursorPager } from '@/components/cursor-pager';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { reviewQueueQueries } from '../api/review-queries';
 
@@ -95,29 +94,22 @@ export default function ReviewQueuePage() {
             </Button>
           ))}
         </HStack>
-        {queue.isError ? (
-          <QueryError error={queue.error} onRetry={() => void queue.refetch()} />
-        ) : (
-          <DataTable
-            label="Items awaiting review"
-            columns={columns}
-            data={queue.data?.items}
-            getRowId={(item) => `${item.kind}-${item.id}`}
-            isLoading={queue.isPending}
-            emptyTitle="Nothing waits for you"
-            emptyDescription="Submitted studies and runs appear here; you are notified when one arrives."
-          />
-        )}
-        {queue.data && (
-          <CursorPager
-            noun="Items"
-            page={{ ...queue.data, prevCursor: cursors.length > 1 ? 'before' : null }}
-            pageNumber={cursors.length}
-            fetching={queue.isFetching}
-            stale={queue.isPlaceholderData}
-            onMove={(next, page) => setCursors((trail) => (page < trail.length ? trail.slice(0, page) : [...trail, next]))}
-          />
-        )}
+        <DataTable
+          label="Items awaiting review"
+          columns={columns}
+          query={queue}
+          data={queue.data?.items}
+          getRowId={(item) => `${item.kind}-${item.id}`}
+          emptyTitle="Nothing waits for you"
+          emptyDescription="Submitted studies and runs appear here; you are notified when one arrives."
+        />
+        <CursorPager
+          noun="Items"
+          query={queue}
+          page={queue.data && { ...queue.data, prevCursor: cursors.length > 1 ? 'before' : null }}
+          pageNumber={cursors.length}
+          onMove={(next, page) => setCursors((trail) => (page < trail.length ? trail.slice(0, page) : [...trail, next]))}
+        />
         <Text fontSize="sm" color="fg.muted">
           Approval supports, and does not replace, the laboratory’s procedures, qualified review and the regulations that apply.
         </Text>

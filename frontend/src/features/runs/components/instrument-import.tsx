@@ -1,4 +1,4 @@
-import { Alert, Button, Field, HStack, List, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Alert, Button, Field, HStack, List, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import {
   IMPORT_MAPPING_FIELDS,
   IMPORT_MAPPING_LABELS,
@@ -10,6 +10,7 @@ import { useQuery, useQueryClient } from '@tanstack/react-query';
 import { useFormikContext } from 'formik';
 import { useState } from 'react';
 import { isApiError } from '@/lib/api-client';
+import { SelectControl } from '@/components/select-control';
 import type { RunFormValues } from '../api/create-run';
 import { uploadInstrumentExport, saveImportMapping } from '../api/instrument-import';
 import { runsQueries } from '../api/runs-queries';
@@ -135,17 +136,13 @@ export function InstrumentImport({ versionId }: { versionId: string }) {
             {IMPORT_MAPPING_FIELDS.map((field) => (
               <Field.Root key={field} required={REQUIRED.includes(field)}>
                 <Field.Label>{IMPORT_MAPPING_LABELS[field]}</Field.Label>
-                <NativeSelect.Root size="sm">
-                  <NativeSelect.Field value={choice[field]} onChange={(e) => setChoice({ ...choice, [field]: e.currentTarget.value })}>
-                    <option value="">{REQUIRED.includes(field) ? 'Choose a column' : 'Not in this file'}</option>
-                    {columns.map((c) => (
-                      <option key={c} value={c}>
-                        {c}
-                      </option>
-                    ))}
-                  </NativeSelect.Field>
-                  <NativeSelect.Indicator />
-                </NativeSelect.Root>
+                <SelectControl
+                  size="sm"
+                  value={choice[field]}
+                  onChange={(value) => setChoice({ ...choice, [field]: value })}
+                  placeholder={REQUIRED.includes(field) ? 'Choose a column' : 'Not in this file'}
+                  options={columns.map((c) => ({ value: c, label: c }))}
+                />
               </Field.Root>
             ))}
           </SimpleGrid>

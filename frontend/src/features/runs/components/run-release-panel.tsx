@@ -38,7 +38,12 @@ export function RunReleaseActions({ runId, review }: { runId: string; review: Ru
   const roles = user.roles;
   const canSubmit = own && roles.includes(Role.Analyst) && (review.reviewStatus === 'calculated' || review.reviewStatus === 'returned');
   const canReview = !own && roles.includes(Role.Reviewer) && review.reviewStatus === 'submitted';
-  const done = (title: string) => toaster.create({ type: 'success', title });
+  const signed =
+    (action: typeof submit, title: string) =>
+    async ({ password, comment }: { password: string; comment?: string }) => {
+      await action.mutateAsync({ password, comment, version: review.lockVersion });
+      toaster.create({ type: 'success', title });
+    };
   return (
     <>
       {canSubmit && (
@@ -47,10 +52,7 @@ export function RunReleaseActions({ runId, review }: { runId: string; review: Ru
           meaning="Performed: you carried out this run and its data and results are as recorded."
           triggerLabel="Submit for release"
           submitLabel="Sign and submit"
-          onSign={async ({ password }) => {
-            await submit.mutateAsync({ password, version: review.lockVersion });
-            done('Run submitted for release');
-          }}
+          onSign={signed(submit, 'Run submitted for release')}
         />
       )}
       {canReview && (
@@ -63,20 +65,14 @@ export function RunReleaseActions({ runId, review }: { runId: string; review: Ru
             submitLabel="Return the run"
             commentLabel="What should the analyst check or redo?"
             commentRequired
-            onSign={async ({ password, comment }) => {
-              await giveBack.mutateAsync({ password, comment, version: review.lockVersion });
-              done('Run returned to the analyst');
-            }}
+            onSign={signed(giveBack, 'Run returned to the analyst')}
           />
           <SignatureDialog
             title="Release the run"
             meaning="Reviewed and released: you checked this run and its results may be reported."
             triggerLabel="Release"
             submitLabel="Sign and release"
-            onSign={async ({ password }) => {
-              await release.mutateAsync({ password, version: review.lockVersion });
-              done('Run released');
-            }}
+            onSign={signed(release, 'Run released')}
           />
         </>
       )}

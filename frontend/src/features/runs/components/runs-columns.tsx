@@ -1,7 +1,7 @@
 import { formatNumber, formatDateTime, type RunModel, type RunSummaryDto } from '@meritline/shared';
-import { Link, Stack, Text } from '@chakra-ui/react';
-import { Link as RouterLink } from 'react-router';
+import { Stack, Text } from '@chakra-ui/react';
 import { dataTableColumns } from '@/components/data-table';
+import { NameCell } from '@/components/name-cell';
 import { paths } from '@/lib/config/paths';
 import { RunStatusBadge } from './run-status-badge';
 
@@ -18,14 +18,11 @@ export const runsColumns = column.columns([
   column.accessor('title', {
     header: 'Run',
     cell: (info) => (
-      <Stack gap="0">
-        <Link asChild fontWeight="600" color="brand.fg">
-          <RouterLink to={paths.runDetail.getHref(info.row.original.id)}>{info.getValue()}</RouterLink>
-        </Link>
-        <Text fontSize="sm" color="fg.muted">
-          {info.row.original.method.name}, version {info.row.original.versionNumber}
-        </Text>
-      </Stack>
+      <NameCell
+        name={info.getValue()}
+        href={paths.runDetail.getHref(info.row.original.id)}
+        detail={`${info.row.original.method.name}, version ${info.row.original.versionNumber}`}
+      />
     ),
   }),
   column.accessor('status', { header: 'Status', cell: (info) => <RunStatusBadge status={info.getValue()} short /> }),

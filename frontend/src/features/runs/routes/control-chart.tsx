@@ -1,4 +1,4 @@
-import { Alert, Box, Button, Field, Link, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Alert, Box, Button, Field, Link, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { formatDateTime, formatNumber, QC_SERIES, QC_SERIES_LABELS, Role, type QcSeries, type QcTrendSignalDto } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
@@ -8,6 +8,7 @@ import { PageHeader } from '@/components/page-header';
 import { QueryError } from '@/components/query-error';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
+import { SelectControl } from '@/components/select-control';
 import { runsQueries } from '../api/runs-queries';
 import { BaselinePicker } from '../components/baseline-picker';
 import { TrendChartPlot } from '../components/trend-chart-plot';
@@ -65,16 +66,11 @@ export default function ControlChartPage() {
           </Field.Root>
           <Field.Root>
             <Field.Label>Series</Field.Label>
-            <NativeSelect.Root>
-              <NativeSelect.Field value={series} onChange={(event) => set({ series: event.currentTarget.value as QcSeries })}>
-                {QC_SERIES.map((s) => (
-                  <option key={s} value={s}>
-                    {QC_SERIES_LABELS[s]}
-                  </option>
-                ))}
-              </NativeSelect.Field>
-              <NativeSelect.Indicator />
-            </NativeSelect.Root>
+            <SelectControl
+              value={series}
+              onChange={(value) => set({ series: value as QcSeries })}
+              options={QC_SERIES.map((s) => ({ value: s, label: QC_SERIES_LABELS[s] }))}
+            />
           </Field.Root>
         </SimpleGrid>
         {!versionId && <Text color="fg.muted">Choose a method version to see its charts.</Text>}

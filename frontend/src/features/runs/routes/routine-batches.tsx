@@ -5,8 +5,8 @@ import { Link as RouterLink, useSearchParams } from 'react-router';
 import { CursorPager } from '@/components/cursor-pager';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
+import { changeSearch } from '@/lib/search-params';
 import { runsQueries } from '../api/runs-queries';
 import type { RunFilters } from '../api/types';
 import { runsColumns } from '../components/runs-columns';
@@ -28,15 +28,7 @@ export default function RoutineBatchesPage() {
   };
   const runs = useQuery(runsQueries.list(filters));
   const methods = useQuery(runsQueries.methodChoices());
-  const update = (changes: Record<string, string | undefined>) =>
-    setParams((current) => {
-      const next = new URLSearchParams(current);
-      for (const [key, value] of Object.entries(changes)) {
-        if (value) next.set(key, value);
-        else next.delete(key);
-      }
-      return next;
-    });
+  const update = (changes: Record<string, string | undefined>) => setParams((current) => changeSearch(current, changes));
   const versionId = scope && !scope.startsWith('method:') ? scope : undefined;
 
   return (
@@ -77,29 +69,21 @@ export default function RoutineBatchesPage() {
             </NativeSelect.Root>
           </Field.Root>
         </HStack>
-        {runs.isError ? (
-          <QueryError error={runs.error} onRetry={() => void runs.refetch()} />
-        ) : (
-          <DataTable
-            label="Routine runs"
-            columns={runsColumns}
-            data={runs.data?.items}
-            getRowId={(run) => run.id}
-            isLoading={runs.isPending}
-            emptyTitle="No runs yet"
-            emptyDescription="Start one with “New run”: it needs an active method version with an approved validation study."
-          />
-        )}
-        {runs.data && (
-          <CursorPager
-            noun="Runs"
-            page={runs.data}
-            pageNumber={pageNumber}
-            fetching={runs.isFetching}
-            stale={runs.isPlaceholderData}
-            onMove={(next, page) => update({ cursor: next, page: page > 1 ? String(page) : undefined })}
-          />
-        )}
+        <DataTable
+          label="Routine runs"
+          columns={runsColumns}
+          query={runs}
+          data={runs.data?.items}
+          getRowId={(run) => run.id}
+          emptyTitle="No runs yet"
+          emptyDescription="Start one with “New run”: it needs an active method version with an approved validation study."
+        />
+        <CursorPager
+          noun="Runs"
+          query={runs}
+          pageNumber={pageNumber}
+          onMove={(next, page) => update({ cursor: next, page: page > 1 ? String(page) : undefined })}
+        />
         <Text fontSize="sm" color="fg.muted">
           {RUN_CAUTION}
         </Text>

@@ -1,14 +1,11 @@
 import type { PreparationDto, PreparationPreviewDto, PreparationPreviewRequest } from '@meritline/shared';
 import { keepPreviousData, queryOptions } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { wholeListQuery } from '@/lib/list-query';
 
 export const preparationsQueries = {
   all: ['preparations'] as const,
-  list: () =>
-    queryOptions({
-      queryKey: [...preparationsQueries.all, 'list'],
-      queryFn: ({ signal }) => api.get<PreparationDto[]>('/preparations', { signal }),
-    }),
+  list: () => wholeListQuery<PreparationDto>(preparationsQueries.all),
   /** The server's dry run: nothing is saved. */
   preview: (body: PreparationPreviewRequest | null) =>
     queryOptions({

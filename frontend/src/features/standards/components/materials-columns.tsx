@@ -1,6 +1,6 @@
 import { Stack, Text } from '@chakra-ui/react';
 import type { ReferenceMaterialDto } from '@meritline/shared';
-import { dataTableColumns } from '@/components/data-table';
+import { dataTableColumns, HiddenHeader } from '@/components/data-table';
 import { NameCell } from '@/components/name-cell';
 import { certifiedValueWords } from './certified-value';
 import { MaterialActions } from './material-actions';
@@ -57,7 +57,7 @@ export const materialsColumns = column.columns([
   }),
   column.display({
     id: 'actions',
-    header: () => <Text srOnly>Actions</Text>,
+    header: () => <HiddenHeader>Actions</HiddenHeader>,
     meta: { align: 'end' },
     cell: (info) => <MaterialActions material={info.row.original} />,
   }),

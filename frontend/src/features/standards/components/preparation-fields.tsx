@@ -2,27 +2,9 @@ import { Box, Button, Fieldset, Heading, HStack, NativeSelect, SimpleGrid, Stack
 import { MASS_UNITS, MAX_DILUTION_STEPS, TOLERANCE_DISTRIBUTION_LABELS, type ReferenceMaterialDto } from '@meritline/shared';
 import { FieldArray, useFormikContext } from 'formik';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
 import { newStep, type PreparationValues } from '../api/preparation-form';
 import { certifiedValueWords } from './certified-value';
-
-function Select({ name, label, options }: { name: string; label: string; options: readonly { value: string; label: string }[] }) {
-  return (
-    <FormField name={name} label={label}>
-      {(field) => (
-        <NativeSelect.Root>
-          <NativeSelect.Field {...field} value={String(field.value ?? '')}>
-            {options.map((o) => (
-              <option key={o.value} value={o.value}>
-                {o.label}
-              </option>
-            ))}
-          </NativeSelect.Field>
-          <NativeSelect.Indicator />
-        </NativeSelect.Root>
-      )}
-    </FormField>
-  );
-}
 
 const DISTRIBUTIONS = Object.entries(TOLERANCE_DISTRIBUTION_LABELS).map(([value, label]) => ({ value, label }));
 
@@ -75,12 +57,12 @@ export function StockFields() {
             type="number"
             helperText="From the balance calibration."
           />
-          <Select name="stock.massUnit" label="Mass unit" options={MASS_UNITS.map((u) => ({ value: u, label: u }))} />
+          <SelectField name="stock.massUnit" label="Mass unit" options={MASS_UNITS.map((u) => ({ value: u, label: u }))} />
         </SimpleGrid>
         <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
           <FormField name="stock.volume" label="Volume of the flask (mL)" required type="number" />
           <FormField name="stock.volumeTolerance" label="Flask tolerance ± (mL)" required type="number" />
-          <Select name="stock.volumeDistribution" label="Tolerance taken as" options={DISTRIBUTIONS} />
+          <SelectField name="stock.volumeDistribution" label="Tolerance taken as" options={DISTRIBUTIONS} />
         </SimpleGrid>
         <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
           <FormField
@@ -136,10 +118,10 @@ export function StepFields() {
               <SimpleGrid columns={{ base: 1, md: 3 }} gap="4">
                 <FormField name={`steps.${i}.aliquot`} label="Aliquot (mL)" required type="number" />
                 <FormField name={`steps.${i}.aliquotTolerance`} label="Pipette tolerance ± (mL)" required type="number" />
-                <Select name={`steps.${i}.aliquotDistribution`} label="Tolerance taken as" options={DISTRIBUTIONS} />
+                <SelectField name={`steps.${i}.aliquotDistribution`} label="Tolerance taken as" options={DISTRIBUTIONS} />
                 <FormField name={`steps.${i}.volume`} label="Final volume (mL)" required type="number" />
                 <FormField name={`steps.${i}.volumeTolerance`} label="Flask tolerance ± (mL)" required type="number" />
-                <Select name={`steps.${i}.volumeDistribution`} label="Tolerance taken as" options={DISTRIBUTIONS} />
+                <SelectField name={`steps.${i}.volumeDistribution`} label="Tolerance taken as" options={DISTRIBUTIONS} />
               </SimpleGrid>
             </Box>
           ))}

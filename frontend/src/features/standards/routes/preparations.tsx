@@ -3,7 +3,6 @@ import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { paths } from '@/lib/config/paths';
 import { preparationsQueries } from '../api/preparations-queries';
 import { preparationsColumns } from '../components/preparations-columns';
@@ -23,21 +22,16 @@ export default function PreparationsPage() {
         }
       />
       <Stack gap="4">
-        {preparations.isError ? (
-          <QueryError error={preparations.error} onRetry={() => void preparations.refetch()} />
-        ) : (
-          <DataTable
-            label="Standard preparations"
-            columns={preparationsColumns}
-            data={preparations.data}
-            getRowId={(p) => p.id}
-            isLoading={preparations.isPending}
-            sortable
-            initialSorting={[{ id: 'createdAt', desc: true }]}
-            pageSize={25}
-            emptyTitle="No preparations saved yet"
-          />
-        )}
+        <DataTable
+          label="Standard preparations"
+          columns={preparationsColumns}
+          query={preparations}
+          getRowId={(p) => p.id}
+          sortable
+          initialSorting={[{ id: 'createdAt', desc: true }]}
+          pageSize={25}
+          emptyTitle="No preparations saved yet"
+        />
       </Stack>
     </>
   );

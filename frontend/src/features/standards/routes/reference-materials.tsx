@@ -4,7 +4,6 @@ import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
 import { referenceMaterialsQueries } from '../api/reference-materials-queries';
@@ -38,22 +37,17 @@ export default function ReferenceMaterialsPage() {
       />
       <Stack gap="5">
         <ExpiringMaterialsNotice />
-        {materials.isError ? (
-          <QueryError error={materials.error} onRetry={() => void materials.refetch()} />
-        ) : (
-          <DataTable
-            label="Reference materials"
-            columns={materialsColumns}
-            data={materials.data}
-            getRowId={(m) => m.id}
-            isLoading={materials.isPending}
-            sortable
-            initialSorting={[{ id: 'name', desc: false }]}
-            pageSize={25}
-            emptyTitle="No reference materials registered"
-            emptyDescription={canKeep ? 'Register the first one with the button above.' : 'Quality managers keep the register.'}
-          />
-        )}
+        <DataTable
+          label="Reference materials"
+          columns={materialsColumns}
+          query={materials}
+          getRowId={(m) => m.id}
+          sortable
+          initialSorting={[{ id: 'name', desc: false }]}
+          pageSize={25}
+          emptyTitle="No reference materials registered"
+          emptyDescription={canKeep ? 'Register the first one with the button above.' : 'Quality managers keep the register.'}
+        />
       </Stack>
     </>
   );

@@ -6,9 +6,9 @@ import { Link as RouterLink, useSearchParams } from 'react-router';
 import { CursorPager } from '@/components/cursor-pager';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
+import { changeSearch } from '@/lib/search-params';
 import { methodChoicesQueries } from '../api/method-choices-queries';
 import { studiesQueries } from '../api/studies-queries';
 import { type StudyListParams } from '../api/types';
@@ -42,18 +42,7 @@ export default function ValidationStudiesPage() {
   const methods = useQuery(methodChoicesQueries.list());
 
   const update = useCallback(
-    (changes: Record<string, string | undefined>) =>
-      setSearch(
-        (current) => {
-          const next = new URLSearchParams(current);
-          for (const [key, value] of Object.entries(changes)) {
-            if (value) next.set(key, value);
-            else next.delete(key);
-          }
-          return next;
-        },
-        { replace: true },
-      ),
+    (changes: Record<string, string | undefined>) => setSearch((current) => changeSearch(current, changes), { replace: true }),
     [setSearch],
   );
 
@@ -115,29 +104,21 @@ export default function ValidationStudiesPage() {
       />
       <Stack gap="4">
         <StudiesFilters filters={filters} methods={methods.data ?? []} onChange={onFilters} />
-        {studies.isError ? (
-          <QueryError error={studies.error} onRetry={() => void studies.refetch()} />
-        ) : (
-          <DataTable
-            label="Validation studies"
-            columns={columns}
-            data={studies.data?.items}
-            getRowId={(study) => study.id}
-            isLoading={studies.isPending}
-            emptyTitle={search.size > 0 ? 'No study matches the filters' : 'No studies yet'}
-            emptyDescription={search.size > 0 ? 'Change or clear the filters.' : 'Start one with “New study”.'}
-          />
-        )}
-        {studies.data && (
-          <CursorPager
-            noun="Studies"
-            page={studies.data}
-            pageNumber={pageNumber}
-            fetching={studies.isFetching}
-            stale={studies.isPlaceholderData}
-            onMove={(cursor, page) => update({ cursor, page: page > 1 ? String(page) : undefined })}
-          />
-        )}
+        <DataTable
+          label="Validation studies"
+          columns={columns}
+          query={studies}
+          data={studies.data?.items}
+          getRowId={(study) => study.id}
+          emptyTitle={search.size > 0 ? 'No study matches the filters' : 'No studies yet'}
+          emptyDescription={search.size > 0 ? 'Change or clear the filters.' : 'Start one with “New study”.'}
+        />
+        <CursorPager
+          noun="Studies"
+          query={studies}
+          pageNumber={pageNumber}
+          onMove={(cursor, page) => update({ cursor, page: page > 1 ? String(page) : undefined })}
+        />
       </Stack>
     </>
   );

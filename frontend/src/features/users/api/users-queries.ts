@@ -1,12 +1,7 @@
 import type { UserDto } from '@meritline/shared';
-import { queryOptions } from '@tanstack/react-query';
-import { api } from '@/lib/api-client';
+import { wholeListQuery } from '@/lib/list-query';
 
 export const usersQueries = {
   all: ['users'] as const,
-  list: () =>
-    queryOptions({
-      queryKey: [...usersQueries.all, 'list'],
-      queryFn: ({ signal }) => api.get<UserDto[]>('/users', { signal }),
-    }),
+  list: () => wholeListQuery<UserDto>(usersQueries.all),
 };

@@ -1,6 +1,6 @@
 import { Badge, HStack, Stack, Text } from '@chakra-ui/react';
 import { ROLE_LABELS, type UserDto, formatDateTime } from '@meritline/shared';
-import { dataTableColumns } from '@/components/data-table';
+import { dataTableColumns, HiddenHeader } from '@/components/data-table';
 import { UserActions } from './user-actions';
 
 function UserStatus({ user }: { user: UserDto }) {
@@ -66,7 +66,7 @@ export const usersColumns = column.columns([
   }),
   column.display({
     id: 'actions',
-    header: () => <Text srOnly>Actions</Text>,
+    header: () => <HiddenHeader>Actions</HiddenHeader>,
     meta: { align: 'end' },
     cell: (info) => <UserActions user={info.row.original} />,
   }),

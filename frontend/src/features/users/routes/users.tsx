@@ -2,7 +2,6 @@ import { Stack } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
-import { QueryError } from '@/components/query-error';
 import { usersQueries } from '../api/users-queries';
 import { InviteUserDialog } from '../components/invite-user-dialog';
 import { usersColumns } from '../components/users-columns';
@@ -19,22 +18,17 @@ export default function UsersPage() {
         actions={<InviteUserDialog />}
       />
       <Stack gap="4">
-        {users.isError ? (
-          <QueryError error={users.error} onRetry={() => void users.refetch()} />
-        ) : (
-          <DataTable
-            label="Users"
-            columns={usersColumns}
-            data={users.data}
-            getRowId={(user) => user.id}
-            isLoading={users.isPending}
-            sortable
-            initialSorting={[{ id: 'name', desc: false }]}
-            pageSize={25}
-            emptyTitle="No users yet"
-            emptyDescription="Invite the first colleague with the button above."
-          />
-        )}
+        <DataTable
+          label="Users"
+          columns={usersColumns}
+          query={users}
+          getRowId={(user) => user.id}
+          sortable
+          initialSorting={[{ id: 'name', desc: false }]}
+          pageSize={25}
+          emptyTitle="No users yet"
+          emptyDescription="Invite the first colleague with the button above."
+        />
       </Stack>
     </>
   );

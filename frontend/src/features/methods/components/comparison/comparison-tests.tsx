@@ -49,16 +49,25 @@ function Line({ label, children }: { label: string; children: ReactNode }) {
   );
 }
 
+/** The figure in the earlier and the later version, its unit after the later. */
+function EarlierLater({ from, to, unit, children }: { from: number; to: number; unit?: string; children?: ReactNode }) {
+  return (
+    <Line label="Earlier → later">
+      {formatNumber(from)} → {formatNumber(to)}
+      {unit ? ` ${unit}` : ''}
+      {children}
+    </Line>
+  );
+}
+
 function LineTest({ title, test, unit }: { title: string; test: LineParameterComparison | Unavailable; unit?: string }) {
   return (
     <TestCard title={title} test={test}>
       {test.available && (
         <>
-          <Line label="Earlier → later">
-            {formatNumber(test.from)} → {formatNumber(test.to)}
-            {unit ? ` ${unit}` : ''}
+          <EarlierLater from={test.from} to={test.to} unit={unit}>
             {test.changePct !== null && ` (${signed(test.changePct, 3)} % sensitivity)`}
-          </Line>
+          </EarlierLater>
           <Line label={`Difference, ${confidence(test.alpha)} interval`}>
             {signed(test.difference)} ({formatInterval(test.ci)})
           </Line>
@@ -76,10 +85,7 @@ function VarianceTest({ title, test, unit }: { title: string; test: VarianceComp
     <TestCard title={title} test={test}>
       {test.available && (
         <>
-          <Line label="Earlier → later">
-            {formatNumber(test.from)} → {formatNumber(test.to)}
-            {unit ? ` ${unit}` : ''}
-          </Line>
+          <EarlierLater from={test.from} to={test.to} unit={unit} />
           <Line label="Test">
             F = {formatNumber(test.F, 3)} ({dfText(test.df[0])} and {dfText(test.df[1])} degrees of freedom), two-sided {pText(test.p)}
           </Line>

@@ -1,4 +1,5 @@
 import { Box, chakra, IconButton, Table, Text } from '@chakra-ui/react';
+import { HiddenHeader } from '@/components/data-table';
 import { Fragment, useRef, useState, type ClipboardEvent, type KeyboardEvent, type ReactNode } from 'react';
 import { pasteIntoRows, isTablePaste } from '../../utils/grid-paste';
 import { cellExclusion, excludedCount, isBlankRow, newRowId, rowProblems, type GridColumn, type GridRow } from '../../utils/grid-sections';
@@ -125,11 +126,7 @@ export function DataGrid({ label, columns, rows, onRowsChange, readOnly = false,
               ))}
               {!readOnly && (
                 <Table.ColumnHeader width="1%" py="2.5">
-                  <Text as="span" position="relative">
-                    <Text as="span" srOnly>
-                      Row actions
-                    </Text>
-                  </Text>
+                  <HiddenHeader>Row actions</HiddenHeader>
                 </Table.ColumnHeader>
               )}
             </Table.Row>

@@ -1,8 +1,9 @@
 import type { ImportPreviewDto, ImportSection, StudyDto } from '@meritline/shared';
-import { Alert, Button, Field, HStack, List, NativeSelect, SimpleGrid, Spinner, Stack, Table, Text } from '@chakra-ui/react';
+import { Alert, Button, Field, HStack, List, SimpleGrid, Spinner, Stack, Table, Text } from '@chakra-ui/react';
 import { useState } from 'react';
 import { DialogCancel, DialogShell } from '@/components/dialog-shell';
 import { isApiError } from '@/lib/api-client';
+import { SelectControl } from '@/components/select-control';
 import { useApplyImport, usePreviewImport } from '../../api/import-study-file';
 
 interface ImportField {
@@ -221,17 +222,14 @@ export function ImportDialog({ studyId, section, sectionName, prepare, onImporte
                       {f.label}
                       {f.required && <Field.RequiredIndicator />}
                     </Field.Label>
-                    <NativeSelect.Root size="sm" disabled={preview.isPending}>
-                      <NativeSelect.Field value={data.mapping[f.key] ?? ''} onChange={(e) => remap(f.key, e.target.value)}>
-                        <option value="">Not in the file</option>
-                        {data.columns.map((column) => (
-                          <option key={column} value={column}>
-                            {column}
-                          </option>
-                        ))}
-                      </NativeSelect.Field>
-                      <NativeSelect.Indicator />
-                    </NativeSelect.Root>
+                    <SelectControl
+                      size="sm"
+                      disabled={preview.isPending}
+                      value={data.mapping[f.key] ?? ''}
+                      onChange={(value) => remap(f.key, value)}
+                      placeholder="Not in the file"
+                      options={data.columns.map((column) => ({ value: column, label: column }))}
+                    />
                   </Field.Root>
                 ))}
               </SimpleGrid>

@@ -1,7 +1,8 @@
 import { formatDate, formatDateTime, type StudySort, type StudySummaryDto } from '@meritline/shared';
-import { Button, chakra, HStack, Link, Stack, Text } from '@chakra-ui/react';
+import { Button, HStack, Stack, Text } from '@chakra-ui/react';
 import { Link as RouterLink } from 'react-router';
-import { dataTableColumns } from '@/components/data-table';
+import { dataTableColumns, HiddenHeader, SortArrow, SortButton } from '@/components/data-table';
+import { NameCell } from '@/components/name-cell';
 import { CriterionMark } from '@/components/study-results';
 import { paths } from '@/lib/config/paths';
 import { StudyStatusBadge } from '../study-status-badge';
@@ -12,31 +13,13 @@ export interface ServerSort {
   onSort: (sort: StudySort) => void;
 }
 
-const SortButton = chakra('button', {
-  base: {
-    display: 'inline-flex',
-    alignItems: 'center',
-    gap: '1.5',
-    font: 'inherit',
-    letterSpacing: 'inherit',
-    textTransform: 'inherit',
-    color: 'inherit',
-    cursor: 'pointer',
-    borderRadius: 'l1',
-    _hover: { color: 'fg' },
-    _focusVisible: { outline: '2px solid', outlineColor: 'colorPalette.focusRing', outlineOffset: '2px' },
-  },
-});
-
 function SortHeader({ label, by, sort }: { label: string; by: StudySort; sort: ServerSort }) {
   const active = sort.sort === by;
   const direction = active ? (sort.order === 'asc' ? 'ascending' : 'descending') : 'not sorted';
   return (
     <SortButton type="button" onClick={() => sort.onSort(by)} aria-label={`${label}, ${direction}; sort by ${label.toLowerCase()}`}>
       {label}
-      <Text as="span" aria-hidden="true" color={active ? 'brand.fg' : 'fg.subtle'}>
-        {active ? (sort.order === 'asc' ? '↑' : '↓') : '↕'}
-      </Text>
+      <SortArrow direction={active ? sort.order : undefined} />
     </SortButton>
   );
 }
@@ -60,14 +43,12 @@ export function studiesColumns(sort: ServerSort, viewer: ListViewer) {
     column.accessor('title', {
       header: () => <SortHeader label="Title" by="title" sort={sort} />,
       cell: (info) => (
-        <Stack gap="0" whiteSpace="normal" minW="16rem">
-          <Link asChild fontWeight="600" color="brand.fg">
-            <RouterLink to={studyHref(info.row.original)}>{info.getValue()}</RouterLink>
-          </Link>
-          <Text fontSize="sm" color="fg.muted">
-            {info.row.original.method.name}, version {info.row.original.methodVersion.number} · {info.row.original.author.name}
-          </Text>
-        </Stack>
+        <NameCell
+          name={info.getValue()}
+          href={studyHref(info.row.original)}
+          detail={`${info.row.original.method.name}, version ${info.row.original.methodVersion.number} · ${info.row.original.author.name}`}
+          minW="16rem"
+        />
       ),
     }),
     column.accessor('status', {
@@ -97,13 +78,7 @@ export function studiesColumns(sort: ServerSort, viewer: ListViewer) {
     }),
     column.display({
       id: 'open',
-      header: () => (
-        <Text as="span" position="relative">
-          <Text as="span" srOnly>
-            Open
-          </Text>
-        </Text>
-      ),
+      header: () => <HiddenHeader>Open</HiddenHeader>,
       meta: { align: 'end' },
       cell: (info) => {
         const study = info.row.original;

@@ -1,6 +1,7 @@
-import { Button, Checkbox, Field, HStack, Input, NativeSelect, Wrap } from '@chakra-ui/react';
+import { Button, Checkbox, Field, HStack, Input, Wrap } from '@chakra-ui/react';
 import type { StudyStatus, MethodDto } from '@meritline/shared';
 import { useEffect, useState } from 'react';
+import { SelectControl } from '@/components/select-control';
 import { STUDY_STATUS_WORDS } from '../study-status-badge';
 
 export interface StudyFilters {
@@ -46,37 +47,21 @@ export function StudiesFilters({ filters, methods, onChange }: StudiesFiltersPro
       </Field.Root>
       <Field.Root maxW="14rem">
         <Field.Label>Status</Field.Label>
-        <NativeSelect.Root>
-          <NativeSelect.Field
-            value={filters.status ?? ''}
-            onChange={(e) => onChange({ ...filters, status: (e.target.value || undefined) as StudyStatus | undefined })}
-          >
-            <option value="">Any status</option>
-            {Object.entries(STUDY_STATUS_WORDS).map(([status, words]) => (
-              <option key={status} value={status}>
-                {words.label}
-              </option>
-            ))}
-          </NativeSelect.Field>
-          <NativeSelect.Indicator />
-        </NativeSelect.Root>
+        <SelectControl
+          value={filters.status ?? ''}
+          onChange={(value) => onChange({ ...filters, status: (value || undefined) as StudyStatus | undefined })}
+          placeholder="Any status"
+          options={Object.entries(STUDY_STATUS_WORDS).map(([status, words]) => ({ value: status, label: words.label }))}
+        />
       </Field.Root>
       <Field.Root maxW="20rem">
         <Field.Label>Method</Field.Label>
-        <NativeSelect.Root>
-          <NativeSelect.Field
-            value={filters.methodId ?? ''}
-            onChange={(e) => onChange({ ...filters, methodId: e.target.value || undefined })}
-          >
-            <option value="">Any method</option>
-            {methods.map((m) => (
-              <option key={m.id} value={m.id}>
-                {m.name}
-              </option>
-            ))}
-          </NativeSelect.Field>
-          <NativeSelect.Indicator />
-        </NativeSelect.Root>
+        <SelectControl
+          value={filters.methodId ?? ''}
+          onChange={(value) => onChange({ ...filters, methodId: value || undefined })}
+          placeholder="Any method"
+          options={methods.map((m) => ({ value: m.id, label: m.name }))}
+        />
       </Field.Root>
       <HStack gap="2" align="flex-end">
         <Field.Root maxW="11rem">

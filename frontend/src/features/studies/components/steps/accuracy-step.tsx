@@ -6,13 +6,13 @@ import {
   formatNumber,
   formatPercent,
 } from '@meritline/shared';
-import { Alert, Field, Fieldset, Grid, Heading, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Alert, Field, Fieldset, Heading, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { AccuracyProfilePlot, validityWords } from '@/components/study-results';
 import { accuracyDesignProblems, accuracyItems, accuracyOptionProblems, type AccuracyOptions } from '../../utils/study-sheets';
-import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
-import { setSheet } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+import { SheetEditor } from './sheet-editor';
+import { DataStepLayout, StepSection } from './step-layout';
 
 interface OptionFieldProps {
   name: keyof AccuracyOptions;
@@ -44,7 +44,7 @@ function OptionField({ name, label, helper, placeholder, problems, options, read
 
 /** Accuracy design (level × series × replicate), the reference material and the options of the profile and of U. */
 export function AccuracyStep({ controller, live, units }: DataStepProps) {
-  const { draft, server, editable, prepareImport, adopt, change } = controller;
+  const { draft, server, editable, change } = controller;
   const options = draft.data.settings.accuracy;
   const problems = accuracyOptionProblems(options);
   const version = server.methodVersion.settings;
@@ -64,28 +64,13 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
   const betaChoice = options.beta.trim() === '' ? '' : String(Number(options.beta));
 
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <DataStepLayout>
       <Stack gap="8">
-        <Stack gap="3">
-          <Heading as="h2" size="lg">
-            Accuracy and uncertainty
-          </Heading>
-          <Text color="fg.muted">
-            Samples of known content measured at several levels, in several series (days, analysts or instruments), each series with the
-            same number of replicates: at least 3 levels, 2 series per level and 2 replicates per series. The accuracy profile and the
-            measurement uncertainty come from these results.
-          </Text>
-          <SectionEditor
-            studyId={server.id}
-            section="accuracy"
-            sectionName="accuracy results"
-            units={units}
-            rows={draft.data.sheets.accuracy}
-            onRowsChange={(rows) => setSheet(controller, 'accuracy', rows)}
-            readOnly={!editable}
-            prepareImport={prepareImport}
-            onImported={adopt}
-          />
+        <StepSection
+          title="Accuracy and uncertainty"
+          intro="Samples of known content measured at several levels, in several series (days, analysts or instruments), each series with the same number of replicates: at least 3 levels, 2 series per level and 2 replicates per series. The accuracy profile and the measurement uncertainty come from these results."
+        >
+          <SheetEditor controller={controller} section="accuracy" sectionName="accuracy results" units={units} />
           {designProblems.length > 0 && (
             <Alert.Root status="warning" data-testid="accuracy-design-problems">
               <Alert.Indicator />
@@ -100,7 +85,7 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
               </Alert.Content>
             </Alert.Root>
           )}
-        </Stack>
+        </StepSection>
 
         <Fieldset.Root disabled={!editable}>
           <Fieldset.Legend>
@@ -215,6 +200,6 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
           />
         )}
       </LivePanel>
-    </Grid>
+    </DataStepLayout>
   );
 }

@@ -1,61 +1,40 @@
 import { formatNumber } from '@meritline/shared';
-import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
-import { SectionEditor } from '../grid/section-editor';
+import { Stack, Text } from '@chakra-ui/react';
 import type { DataStepProps } from './calibration-step';
-import { setSheet, useLowSpikeExclusion, useRowExclusion } from './exclusion';
+import { useLowSpikeExclusion, useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+import { SheetEditor } from './sheet-editor';
+import { DataStepLayout, StepSection } from './step-layout';
 
 const excludedNote = (rows: readonly unknown[] | undefined) => (rows?.length ? ` (${rows.length} excluded)` : '');
 
 export function BlanksStep({ controller, live, units }: DataStepProps) {
-  const { draft, server, editable, prepareImport, adopt } = controller;
   const exclusion = useRowExclusion(controller, 'blanks');
   const lowSpikeExclusion = useLowSpikeExclusion(controller);
   const d = live.result?.detection;
   const x = (v: number | null | undefined) => `${formatNumber(v, 4)} ${units.x}`;
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <DataStepLayout>
       <Stack gap="10">
-        <Stack gap="3">
-          <Heading as="h2" size="lg">
-            Blanks
-          </Heading>
-          <Text color="fg.muted">Responses of method blanks, in the response unit. Two or more give the blank standard deviation.</Text>
-          <SectionEditor
-            studyId={server.id}
-            section="blanks"
-            sectionName="blanks"
-            units={units}
-            rows={draft.data.sheets.blanks}
-            onRowsChange={(rows) => setSheet(controller, 'blanks', rows)}
-            readOnly={!editable}
-            prepareImport={prepareImport}
-            onImported={adopt}
-            rowActions={exclusion.rowActions}
-          />
-        </Stack>
-        <Stack gap="3">
-          <Heading as="h2" size="md">
-            Low-level spikes and method blanks for the MDL (optional)
-          </Heading>
-          <Text color="fg.muted">
-            Results in concentration units, as for 40 CFR 136 App. B: at least seven spiked samples near the expected limit, and method
-            blank results. Write ND for a blank without a numerical result. A spike or blank lost to an assignable cause can be excluded
-            with a reason; the seven-sample minimum counts the results used.
-          </Text>
-          <SectionEditor
-            studyId={server.id}
+        <StepSection
+          title="Blanks"
+          intro="Responses of method blanks, in the response unit. Two or more give the blank standard deviation."
+        >
+          <SheetEditor controller={controller} section="blanks" sectionName="blanks" units={units} rowActions={exclusion.rowActions} />
+        </StepSection>
+        <StepSection
+          title="Low-level spikes and method blanks for the MDL (optional)"
+          size="md"
+          intro="Results in concentration units, as for 40 CFR 136 App. B: at least seven spiked samples near the expected limit, and method blank results. Write ND for a blank without a numerical result. A spike or blank lost to an assignable cause can be excluded with a reason; the seven-sample minimum counts the results used."
+        >
+          <SheetEditor
+            controller={controller}
             section="lowSpikes"
             sectionName="low-level spikes"
             units={units}
-            rows={draft.data.sheets.lowSpikes}
-            onRowsChange={(rows) => setSheet(controller, 'lowSpikes', rows)}
-            readOnly={!editable}
-            prepareImport={prepareImport}
-            onImported={adopt}
             rowActions={lowSpikeExclusion.rowActions}
           />
-        </Stack>
+        </StepSection>
       </Stack>
       <LivePanel title="Detection limits as you type" live={live}>
         {d ? (
@@ -89,6 +68,6 @@ export function BlanksStep({ controller, live, units }: DataStepProps) {
       </LivePanel>
       {exclusion.dialog}
       {lowSpikeExclusion.dialog}
-    </Grid>
+    </DataStepLayout>
   );
 }

@@ -1,5 +1,5 @@
 import { formatNumber } from '@meritline/shared';
-import { Badge, Grid, Heading, HStack, Stack, Text } from '@chakra-ui/react';
+import { Badge, HStack, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { CalibrationPlot, MODEL_LABELS, type CriterionDefinition } from '@/components/study-results';
 import { preparationChoicesQueries } from '../../api/preparation-choices-queries';
@@ -8,9 +8,10 @@ import type { StudyDraftController } from '../../hooks/use-study-draft';
 import { isBlankRow, sectionColumns, type GridRow } from '../../utils/grid-sections';
 import { dropRetypedPreparations } from '../../utils/preparation-standards';
 import { usableRows } from '../../utils/study-sheets';
-import { SectionEditor } from '../grid/section-editor';
 import { setSheet, useStandardExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+import { SheetEditor } from './sheet-editor';
+import { DataStepLayout, StepSection } from './step-layout';
 import { PreparationDialog } from './preparation-dialog';
 
 export interface DataStepProps {
@@ -21,7 +22,7 @@ export interface DataStepProps {
 }
 
 export function CalibrationStep({ controller, live, units, criteria }: DataStepProps) {
-  const { draft, server, editable, prepareImport, adopt } = controller;
+  const { draft, editable } = controller;
   const exclusion = useStandardExclusion(controller);
   const c = live.result?.calibration;
   const onPointClick = (index: number) => {
@@ -53,16 +54,12 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
   );
 
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <DataStepLayout>
       <Stack gap="10">
-        <Stack gap="3">
-          <Heading as="h2" size="lg">
-            Calibration standards
-          </Heading>
-          <Text color="fg.muted">
-            One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same
-            concentration.
-          </Text>
+        <StepSection
+          title="Calibration standards"
+          intro="One row per measured standard: its concentration and the instrument response. Enter replicates as separate rows with the same concentration."
+        >
           <HStack>
             <PreparationDialog
               xUnit={units.x}
@@ -71,38 +68,22 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
               onFill={(rows, mode) => setSheet(controller, 'standards', mode === 'append' ? [...filledStandards, ...rows] : rows)}
             />
           </HStack>
-          <SectionEditor
-            studyId={server.id}
+          <SheetEditor
+            controller={controller}
             section="standards"
             sectionName="calibration standards"
             units={units}
-            rows={draft.data.sheets.standards}
-            onRowsChange={(rows) => setSheet(controller, 'standards', dropRetypedPreparations(standards, rows))}
-            readOnly={!editable}
-            prepareImport={prepareImport}
-            onImported={adopt}
+            keep={(rows) => dropRetypedPreparations(standards, rows)}
             rowActions={standardActions}
           />
-        </Stack>
-        <Stack gap="3">
-          <Heading as="h2" size="md">
-            Samples read off the line (optional)
-          </Heading>
-          <Text color="fg.muted">
-            One row per reading; rows with the same sample name are replicates of that sample. The dilution factor multiplies the result.
-          </Text>
-          <SectionEditor
-            studyId={server.id}
-            section="unknowns"
-            sectionName="samples"
-            units={units}
-            rows={draft.data.sheets.unknowns}
-            onRowsChange={(rows) => setSheet(controller, 'unknowns', rows)}
-            readOnly={!editable}
-            prepareImport={prepareImport}
-            onImported={adopt}
-          />
-        </Stack>
+        </StepSection>
+        <StepSection
+          title="Samples read off the line (optional)"
+          size="md"
+          intro="One row per reading; rows with the same sample name are replicates of that sample. The dilution factor multiplies the result."
+        >
+          <SheetEditor controller={controller} section="unknowns" sectionName="samples" units={units} />
+        </StepSection>
       </Stack>
       <LivePanel title="Calibration as you type" live={live}>
         {live.result && c && (
@@ -132,6 +113,6 @@ export function CalibrationStep({ controller, live, units, criteria }: DataStepP
         )}
       </LivePanel>
       {exclusion.dialog}
-    </Grid>
+    </DataStepLayout>
   );
 }

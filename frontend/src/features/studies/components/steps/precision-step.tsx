@@ -1,13 +1,14 @@
 import { formatNumber, formatPercent } from '@meritline/shared';
-import { Field, Grid, Heading, Input, Stack, Text } from '@chakra-ui/react';
+import { Field, Input, Stack, Text } from '@chakra-ui/react';
 import { parseDecimal } from '../../utils/parse-number';
-import { SectionEditor } from '../grid/section-editor';
 import type { DataStepProps } from './calibration-step';
-import { setSheet, useRowExclusion } from './exclusion';
+import { useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+import { SheetEditor } from './sheet-editor';
+import { DataStepLayout, StepSection } from './step-layout';
 
 export function PrecisionStep({ controller, live, units }: DataStepProps) {
-  const { draft, server, editable, prepareImport, adopt, change } = controller;
+  const { draft, editable, change } = controller;
   const exclusion = useRowExclusion(controller, 'precision');
   const p = live.result?.precision;
   const massFraction = draft.data.settings.massFraction;
@@ -22,29 +23,20 @@ export function PrecisionStep({ controller, live, units }: DataStepProps) {
           : null;
 
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
+    <DataStepLayout>
       <Stack gap="6">
-        <Stack gap="3">
-          <Heading as="h2" size="lg">
-            Precision
-          </Heading>
-          <Text color="fg.muted">
-            Results of the same sample measured repeatedly, grouped in series (days, analysts or instruments). Repeatability comes from the
-            scatter within a series, intermediate precision adds the scatter between series.
-          </Text>
-          <SectionEditor
-            studyId={server.id}
+        <StepSection
+          title="Precision"
+          intro="Results of the same sample measured repeatedly, grouped in series (days, analysts or instruments). Repeatability comes from the scatter within a series, intermediate precision adds the scatter between series."
+        >
+          <SheetEditor
+            controller={controller}
             section="precision"
             sectionName="precision results"
             units={units}
-            rows={draft.data.sheets.precision}
-            onRowsChange={(rows) => setSheet(controller, 'precision', rows)}
-            readOnly={!editable}
-            prepareImport={prepareImport}
-            onImported={adopt}
             rowActions={exclusion.rowActions}
           />
-        </Stack>
+        </StepSection>
         <Field.Root invalid={Boolean(massFractionProblem)} maxW="md" readOnly={!editable}>
           <Field.Label>Analyte mass fraction, for the Horwitz comparison (optional)</Field.Label>
           <Input
@@ -79,6 +71,6 @@ export function PrecisionStep({ controller, live, units }: DataStepProps) {
         )}
       </LivePanel>
       {exclusion.dialog}
-    </Grid>
+    </DataStepLayout>
   );
 }

@@ -1,37 +1,28 @@
 import { formatPercent } from '@meritline/shared';
-import { Grid, Heading, Stack, Text } from '@chakra-ui/react';
-import { SectionEditor } from '../grid/section-editor';
+import { Stack, Text } from '@chakra-ui/react';
 import type { DataStepProps } from './calibration-step';
-import { setSheet, useRowExclusion } from './exclusion';
+import { useRowExclusion } from './exclusion';
 import { FigureLine, LivePanel } from './live-panel';
+import { SheetEditor } from './sheet-editor';
+import { DataStepLayout, StepSection } from './step-layout';
 
 export function RecoveryStep({ controller, live, units }: DataStepProps) {
-  const { draft, server, editable, prepareImport, adopt } = controller;
   const exclusion = useRowExclusion(controller, 'recovery');
   const r = live.result?.recovery;
   return (
-    <Grid templateColumns={{ base: 'minmax(0, 1fr)', xl: 'minmax(0, 3fr) minmax(20rem, 2fr)' }} gap="8" alignItems="start">
-      <Stack gap="3">
-        <Heading as="h2" size="lg">
-          Recovery
-        </Heading>
-        <Text color="fg.muted">
-          One row per spiked sample: the amount added, the amount found and, for a sample that already contained the analyte, the native
-          amount. Group spikes by level (low, mid, high) to see recovery per level.
-        </Text>
-        <SectionEditor
-          studyId={server.id}
+    <DataStepLayout>
+      <StepSection
+        title="Recovery"
+        intro="One row per spiked sample: the amount added, the amount found and, for a sample that already contained the analyte, the native amount. Group spikes by level (low, mid, high) to see recovery per level."
+      >
+        <SheetEditor
+          controller={controller}
           section="recovery"
           sectionName="recovery spikes"
           units={units}
-          rows={draft.data.sheets.recovery}
-          onRowsChange={(rows) => setSheet(controller, 'recovery', rows)}
-          readOnly={!editable}
-          prepareImport={prepareImport}
-          onImported={adopt}
           rowActions={exclusion.rowActions}
         />
-      </Stack>
+      </StepSection>
       <LivePanel title="Recovery as you type" live={live}>
         {r ? (
           <Stack gap="0">
@@ -54,6 +45,6 @@ export function RecoveryStep({ controller, live, units }: DataStepProps) {
         )}
       </LivePanel>
       {exclusion.dialog}
-    </Grid>
+    </DataStepLayout>
   );
 }

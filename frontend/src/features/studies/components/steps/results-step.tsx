@@ -1,6 +1,7 @@
 import { Alert, Box, Button, Field, Grid, Heading, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
 import { ENGINE_VERSION, MODELS, type CalibrationModel, type Weighting, formatNumber, formatPercent } from '@meritline/shared';
-import { DataTable, dataTableColumns } from '@/components/data-table';
+import { DataTable, dataTableColumns, HiddenHeader } from '@/components/data-table';
+import { SelectControl } from '@/components/select-control';
 import {
   CalibrationPlot,
   MODEL_LABELS,
@@ -53,13 +54,7 @@ const standardColumns = column.columns([
   }),
   column.display({
     id: 'action',
-    header: () => (
-      <Text as="span" position="relative">
-        <Text as="span" srOnly>
-          Action
-        </Text>
-      </Text>
-    ),
+    header: () => <HiddenHeader>Action</HiddenHeader>,
     meta: { align: 'end' },
     cell: (info) =>
       info.row.original.canToggle && (
@@ -161,16 +156,11 @@ export function ResultsStep({ controller, live, units, criteria }: DataStepProps
         </Field.Root>
         <Field.Root maxW="14rem" disabled={!editable || !weightable(settings.model)}>
           <Field.Label>Weighting</Field.Label>
-          <NativeSelect.Root>
-            <NativeSelect.Field value={settings.weighting} onChange={(e) => setSettings({ weighting: e.target.value as Weighting })}>
-              {WEIGHTING_CHOICES.map((w) => (
-                <option key={w} value={w}>
-                  {WEIGHTING_LABELS[w]}
-                </option>
-              ))}
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
+          <SelectControl
+            value={settings.weighting}
+            onChange={(value) => setSettings({ weighting: value as Weighting })}
+            options={WEIGHTING_CHOICES.map((w) => ({ value: w, label: WEIGHTING_LABELS[w] }))}
+          />
         </Field.Root>
         <Field.Root maxW="12rem" disabled={!editable}>
           <Field.Label>Confidence level</Field.Label>

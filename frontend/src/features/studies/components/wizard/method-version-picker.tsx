@@ -1,7 +1,8 @@
-import { Badge, Box, HStack, Link, NativeSelect, RadioGroup, Stack, Text } from '@chakra-ui/react';
+import { Badge, Box, HStack, Link, RadioGroup, Stack, Text } from '@chakra-ui/react';
 import type { MethodVersionStatus, MethodDto } from '@meritline/shared';
 import { Link as RouterLink } from 'react-router';
 import { paths } from '@/lib/config/paths';
+import { SelectControl } from '@/components/select-control';
 
 const VERSION_WORDS: Record<MethodVersionStatus, { label: string; note: string; palette: string }> = {
   active: { label: 'Active', note: 'In force for routine work.', palette: 'brand' },
@@ -29,17 +30,14 @@ export function MethodSelect({
   invalid?: boolean;
 }) {
   return (
-    <NativeSelect.Root invalid={invalid}>
-      <NativeSelect.Field value={value} onChange={(e) => onChange(e.target.value)} aria-label="Method">
-        <option value="">Choose a method…</option>
-        {methods.map((m) => (
-          <option key={m.id} value={m.id}>
-            {m.name}
-          </option>
-        ))}
-      </NativeSelect.Field>
-      <NativeSelect.Indicator />
-    </NativeSelect.Root>
+    <SelectControl
+      aria-label="Method"
+      invalid={invalid}
+      value={value}
+      onChange={onChange}
+      placeholder="Choose a method…"
+      options={methods.map((m) => ({ value: m.id, label: m.name }))}
+    />
   );
 }
 
