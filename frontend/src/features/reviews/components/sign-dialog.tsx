@@ -10,12 +10,12 @@ import { studyReviewQueries } from '../api/review-queries';
 import { signSchema, useSignStudy, type SignValues } from '../api/sign-study';
 import { APPROVAL_CAUTION, FAILED_VERDICT_CAUTION } from './approval-caution';
 import { OpenCommentList, openThreads } from './reviewer-remarks';
-import { SIGNING_STEPS, type SigningStepName } from './signing-steps';
+import { SIGNING_STEPS, type SignatureStepName } from './signing-steps';
 
 export interface SignDialogProps {
   studyId: string;
   lockVersion: number;
-  step: SigningStepName;
+  step: SignatureStepName;
   onSigned?: () => void;
 }
 

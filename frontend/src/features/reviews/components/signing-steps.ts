@@ -1,6 +1,6 @@
 import type { SigningAction } from '../api/sign-study';
 
-export interface SigningStep {
+export interface SignatureStep {
   action: SigningAction;
   /** What the signature means, in words, shown to the signer above the password. */
   meaning: string;
@@ -10,7 +10,7 @@ export interface SigningStep {
   successTitle: string;
 }
 
-const submit: SigningStep = {
+const submit: SignatureStep = {
   action: 'submit',
   meaning:
     'By signing you confirm that you performed this study and that its data and conclusion are complete and correct as entered. You submit it for review by a second person.',
@@ -40,9 +40,9 @@ export const SIGNING_STEPS = {
     submitLabel: 'Sign and release',
     successTitle: 'Study released and approved',
   },
-} satisfies Record<string, SigningStep>;
+} satisfies Record<string, SignatureStep>;
 
-export type SigningStepName = keyof typeof SIGNING_STEPS;
+export type SignatureStepName = keyof typeof SIGNING_STEPS;
 
 /** The author's signature: a returned study is resubmitted. */
-export const submitStep = (status: string): SigningStepName => (status === 'returned' ? 'resubmit' : 'submit');
+export const submitStep = (status: string): SignatureStepName => (status === 'returned' ? 'resubmit' : 'submit');
