@@ -12,7 +12,7 @@ import type { CalibrationModel, StandardPoint, Weighting } from '../study.js';
 import { fUpper, studentQuantile } from './distributions.js';
 import { fitQuadratic, type QuadraticCore } from './quadratic.js';
 import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
-import { defineLazyTable } from './lazy-table.js';
+import { LazyTable, registerLazyTables } from './lazy-table.js';
 import {
   byGroup,
   groupPositions,
@@ -653,43 +653,17 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     ? regressionStatistics(core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt)
     : noRegressionStatistics(xs, ys);
   const { bands, anova, ...fitStatistics } = statistics;
-  const calibration: CalibrationResult = {
-    model,
-    weighting,
-    n,
-    slope: curve.slope,
-    intercept: curve.intercept,
-    ...fitStatistics,
-    standardizedResiduals: null,
-    bands,
-    anova,
-    xMin,
-    xMax,
-    residuals: [],
-    backCalculated: [],
-    levels: levelSummaries(levels, levelYs, xBacks, scratch(0)),
-    segments: curve.segments,
-    excluded,
-  };
   // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
-  defineLazyTable(
-    calibration,
-    'residuals',
+  const standardized = standardizedResiduals;
+  const residualTable = new LazyTable(
     () => Array.from(residuals),
     () => finite.residuals,
   );
-  const standardized = standardizedResiduals;
-  if (standardized) {
-    defineLazyTable(
-      calibration,
-      'standardizedResiduals',
-      () => Array.from(standardized),
-      () => finite.standardized,
-    );
-  }
-  defineLazyTable(
-    calibration,
-    'backCalculated',
+  const standardizedTable = new LazyTable(
+    () => (standardized ? Array.from(standardized) : null),
+    () => finite.standardized,
+  );
+  const backCalculatedTable = new LazyTable(
     () => {
       const rows = new Array<BackCalculatedPoint>(n);
       for (let i = 0; i < n; i++) {
@@ -707,6 +681,44 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     },
     () => finite.rows,
   );
+  const calibration: CalibrationResult = {
+    model,
+    weighting,
+    n,
+    slope: curve.slope,
+    intercept: curve.intercept,
+    ...fitStatistics,
+    get standardizedResiduals() {
+      return standardizedTable.get();
+    },
+    set standardizedResiduals(next) {
+      standardizedTable.set(next);
+    },
+    bands,
+    anova,
+    xMin,
+    xMax,
+    get residuals() {
+      return residualTable.get();
+    },
+    set residuals(next) {
+      residualTable.set(next);
+    },
+    get backCalculated() {
+      return backCalculatedTable.get();
+    },
+    set backCalculated(next) {
+      backCalculatedTable.set(next);
+    },
+    levels: levelSummaries(levels, levelYs, xBacks, scratch(0)),
+    segments: curve.segments,
+    excluded,
+  };
+  registerLazyTables(calibration, {
+    standardizedResiduals: standardizedTable,
+    residuals: residualTable,
+    backCalculated: backCalculatedTable,
+  });
   return {
     model,
     weighting,
