@@ -279,6 +279,13 @@ function band(core: RegressionCore, t: number, x: number, predict: (x: number) =
   };
 }
 
+/** The column as a plain list (a loop into a sized array: Array.from reads a typed array through its iterator, several times slower). */
+function listOf(column: Float64Array): number[] {
+  const list = new Array<number>(column.length);
+  for (let i = 0; i < column.length; i++) list[i] = column[i];
+  return list;
+}
+
 /** The bands at BAND_POINTS x from xMin to xMax, by columns, as a table built when first read (null without regression statistics). */
 function bandColumns(
   core: RegressionCore | null,
@@ -680,11 +687,11 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
   // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
   const standardized = standardizedResiduals;
   const residualTable = new LazyTable(
-    () => Array.from(residuals),
+    () => listOf(residuals),
     () => finite.residuals,
   );
   const standardizedTable = new LazyTable(
-    () => (standardized ? Array.from(standardized) : null),
+    () => (standardized ? listOf(standardized) : null),
     () => finite.standardized,
   );
   const backCalculatedTable = new LazyTable(
