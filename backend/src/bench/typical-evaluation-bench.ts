@@ -22,6 +22,8 @@ function medianMicroseconds(work: () => void): { median: number; loops: number[]
   return { median: [...loops].sort((a, b) => a - b)[Math.floor(LOOPS / 2)], loops };
 }
 
+const print = (line: string) => process.stdout.write(`${line}\n`);
+
 const study = typicalStudy();
 for (let i = 0; i < WARM_UP; i++) JSON.stringify(evaluateStudy(study));
 const evaluation = medianMicroseconds(() => evaluateStudy(study));
@@ -29,7 +31,7 @@ const withText = medianMicroseconds(() => JSON.stringify(evaluateStudy(study)));
 const text = JSON.stringify(evaluateStudy(study));
 const show = ({ median, loops }: { median: number; loops: number[] }) =>
   `${median.toFixed(0)} µs (loops ${loops.map((v) => v.toFixed(0)).join(', ')})`;
-console.log(`typical study, ${PER_LOOP} evaluations per loop, load average ${loadavg()[0].toFixed(1)}`);
-console.log(`  evaluateStudy:                  ${show(evaluation)}`);
-console.log(`  evaluateStudy + JSON.stringify: ${show(withText)}`);
-console.log(`  result: ${text.length} characters, SHA-256 ${createHash('sha256').update(text).digest('hex')}`);
+print(`typical study, ${PER_LOOP} evaluations per loop, load average ${loadavg()[0].toFixed(1)}`);
+print(`  evaluateStudy:                  ${show(evaluation)}`);
+print(`  evaluateStudy + JSON.stringify: ${show(withText)}`);
+print(`  result: ${text.length} characters, SHA-256 ${createHash('sha256').update(text).digest('hex')}`);
