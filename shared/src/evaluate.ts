@@ -29,7 +29,9 @@ function hasNonFinite(node: object): boolean {
   const record = node as Record<string, unknown>;
   const lazy = unbuiltTables(record);
   if (!lazy) {
-    for (const value of Object.values(record)) {
+    // for…in rather than Object.values: no array per object (result objects are plain, their keys all own).
+    for (const key in record) {
+      const value = record[key];
       if (typeof value === 'number' ? !Number.isFinite(value) : typeof value === 'object' && value !== null && hasNonFinite(value))
         return true;
     }

@@ -12,7 +12,7 @@ import type { CalibrationModel, StandardPoint, Weighting } from '../study.js';
 import { fUpper, studentQuantile } from './distributions.js';
 import { fitQuadratic, type QuadraticCore } from './quadratic.js';
 import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
-import { defineLazyTable } from './lazy-table.js';
+import { LazyTable, registerLazyTables } from './lazy-table.js';
 import {
   byGroup,
   groupPositions,
@@ -279,6 +279,50 @@ function band(core: RegressionCore, t: number, x: number, predict: (x: number) =
   };
 }
 
+/**
+ * The column as a plain list, by push: Array.from reads a typed array through its iterator (several times slower), and a
+ * list made with new Array(n) stays "holey" for V8, which JSON.stringify writes at half the speed.
+ */
+function listOf(column: Float64Array): number[] {
+  const list: number[] = [];
+  for (let i = 0; i < column.length; i++) list.push(column[i]);
+  return list;
+}
+
+/** The bands at BAND_POINTS x from xMin to xMax, by columns, as a table built when first read (null without regression statistics). */
+function bandColumns(
+  core: RegressionCore | null,
+  t: number | null,
+  xMin: number,
+  xMax: number,
+  predict: (x: number) => number,
+  weightAt: (x: number) => number,
+): LazyTable<BandPoint[] | null> {
+  if (!core || t === null)
+    return new LazyTable(
+      () => null,
+      () => true,
+    );
+  const xs = linspace(xMin, xMax, BAND_POINTS);
+  const fits = new Float64Array(BAND_POINTS);
+  const confidence = new Float64Array(BAND_POINTS);
+  const prediction = new Float64Array(BAND_POINTS);
+  let finite = true;
+  for (let i = 0; i < BAND_POINTS; i++) {
+    const x = xs[i];
+    const leverage = core.leverage(x);
+    fits[i] = predict(x);
+    confidence[i] = t * core.s * Math.sqrt(leverage);
+    prediction[i] = t * core.s * Math.sqrt(1 / weightAt(x) + leverage);
+    if (!Number.isFinite(x) || !Number.isFinite(fits[i]) || !Number.isFinite(confidence[i]) || !Number.isFinite(prediction[i]))
+      finite = false;
+  }
+  return new LazyTable(
+    () => xs.map((x, i) => ({ x, fit: fits[i], confidenceHalfWidth: confidence[i], predictionHalfWidth: prediction[i] })),
+    () => finite,
+  );
+}
+
 /** Confidence and prediction half-widths at any x (null without regression statistics). */
 export function bandAt(fit: CalibrationFit, x: number): BandPoint | null {
   const t = fit.calibration.t;
@@ -452,6 +496,7 @@ type Statistics = Omit<
   | 'intercept'
   | 'xMin'
   | 'xMax'
+  | 'bands'
   | 'residuals'
   | 'backCalculated'
   | 'standardizedResiduals'
@@ -460,14 +505,7 @@ type Statistics = Omit<
   | 'excluded'
 >;
 
-function regressionStatistics(
-  core: RegressionCore,
-  model: CalibrationModel,
-  confidence: number,
-  bandXs: number[],
-  curve: Curve,
-  weightAt: (x: number) => number,
-): Statistics {
+function regressionStatistics(core: RegressionCore, model: CalibrationModel, confidence: number): Statistics {
   const t = core.df > 0 ? studentQuantile((1 + confidence) / 2, core.df) : null;
   const ci = (estimate: number, se: number | null) => (t === null || se === null ? null : interval(estimate, t * se));
   const quadratic = model === 'quadratic';
@@ -494,7 +532,6 @@ function regressionStatistics(
     yMean: core.yMean,
     sxx: core.sxx,
     sumWeights: core.sumWeights,
-    bands: t === null ? null : bandXs.map((x) => band(core, t, x, curve.predict, weightAt)),
     anova: {
       dfRegression: core.dfRegression,
       ssRegression: core.ssRegression,
@@ -527,7 +564,6 @@ function noRegressionStatistics(xs: Float64Array, ys: Float64Array): Statistics 
     yMean: mean(ys),
     sxx: sumSquaredDeviations(xs),
     sumWeights: xs.length,
-    bands: null,
     anova: null,
   };
 }
@@ -649,10 +685,37 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
   const finite = { rows: rowsFinite, residuals: residualsFinite, standardized: standardizedFinite };
   const levelYs = byGroup(levels, ys);
   const scratch = scratchColumns(n);
-  const statistics = core
-    ? regressionStatistics(core, model, confidence, linspace(xMin, xMax, BAND_POINTS), curve, weightAt)
-    : noRegressionStatistics(xs, ys);
-  const { bands, anova, ...fitStatistics } = statistics;
+  const statistics = core ? regressionStatistics(core, model, confidence) : noRegressionStatistics(xs, ys);
+  const { anova, ...fitStatistics } = statistics;
+  // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
+  const standardized = standardizedResiduals;
+  const residualTable = new LazyTable(
+    () => listOf(residuals),
+    () => finite.residuals,
+  );
+  const standardizedTable = new LazyTable(
+    () => (standardized ? listOf(standardized) : null),
+    () => finite.standardized,
+  );
+  const backCalculatedTable = new LazyTable(
+    () => {
+      const rows: BackCalculatedPoint[] = [];
+      for (let i = 0; i < n; i++) {
+        const xBack = xBacks[i];
+        const rePct = rePcts[i];
+        rows.push({
+          index: indices[i],
+          x: xs[i],
+          y: ys[i],
+          xBack: Number.isNaN(xBack) ? null : xBack,
+          rePct: Number.isNaN(rePct) ? null : rePct,
+        });
+      }
+      return rows;
+    },
+    () => finite.rows,
+  );
+  const bandTable = bandColumns(core, statistics.t, xMin, xMax, curve.predict, weightAt);
   const calibration: CalibrationResult = {
     model,
     weighting,
@@ -660,53 +723,43 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     slope: curve.slope,
     intercept: curve.intercept,
     ...fitStatistics,
-    standardizedResiduals: null,
-    bands,
+    get standardizedResiduals() {
+      return standardizedTable.get();
+    },
+    set standardizedResiduals(next) {
+      standardizedTable.set(next);
+    },
+    get bands() {
+      return bandTable.get();
+    },
+    set bands(next) {
+      bandTable.set(next);
+    },
     anova,
     xMin,
     xMax,
-    residuals: [],
-    backCalculated: [],
+    get residuals() {
+      return residualTable.get();
+    },
+    set residuals(next) {
+      residualTable.set(next);
+    },
+    get backCalculated() {
+      return backCalculatedTable.get();
+    },
+    set backCalculated(next) {
+      backCalculatedTable.set(next);
+    },
     levels: levelSummaries(levels, levelYs, xBacks, scratch(0)),
     segments: curve.segments,
     excluded,
   };
-  // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
-  defineLazyTable(
-    calibration,
-    'residuals',
-    () => Array.from(residuals),
-    () => finite.residuals,
-  );
-  const standardized = standardizedResiduals;
-  if (standardized) {
-    defineLazyTable(
-      calibration,
-      'standardizedResiduals',
-      () => Array.from(standardized),
-      () => finite.standardized,
-    );
-  }
-  defineLazyTable(
-    calibration,
-    'backCalculated',
-    () => {
-      const rows = new Array<BackCalculatedPoint>(n);
-      for (let i = 0; i < n; i++) {
-        const xBack = xBacks[i];
-        const rePct = rePcts[i];
-        rows[i] = {
-          index: indices[i],
-          x: xs[i],
-          y: ys[i],
-          xBack: Number.isNaN(xBack) ? null : xBack,
-          rePct: Number.isNaN(rePct) ? null : rePct,
-        };
-      }
-      return rows;
-    },
-    () => finite.rows,
-  );
+  registerLazyTables(calibration, {
+    standardizedResiduals: standardizedTable,
+    bands: bandTable,
+    residuals: residualTable,
+    backCalculated: backCalculatedTable,
+  });
   return {
     model,
     weighting,

@@ -95,16 +95,26 @@ export function studentTwoSidedP(t: number, df: number): number {
   return Math.min(1, 2 * studentUpper(Math.abs(t), df));
 }
 
-const quantileCache = new Map<string, number>();
+/** Quantiles computed once per argument list, kept in maps keyed by the numbers themselves (no key text to format per call). */
+type QuantileCache = Map<number, Map<number, Map<number, number>>>;
 
-function cached(key: string, compute: () => number): number {
-  let value = quantileCache.get(key);
-  if (value === undefined) {
-    value = compute();
-    quantileCache.set(key, value);
-  }
+function recall(cache: QuantileCache, a: number, b: number, c: number): number | undefined {
+  return cache.get(a)?.get(b)?.get(c);
+}
+
+function remember(cache: QuantileCache, a: number, b: number, c: number, value: number): number {
+  let byA = cache.get(a);
+  if (!byA) cache.set(a, (byA = new Map()));
+  let byB = byA.get(b);
+  if (!byB) byA.set(b, (byB = new Map()));
+  byB.set(c, value);
   return value;
 }
+
+const studentQuantiles: QuantileCache = new Map();
+const fQuantiles: QuantileCache = new Map();
+const normalQuantiles: QuantileCache = new Map();
+const detectionDeltas: QuantileCache = new Map();
 
 /**
  * Solves upper(x) = q for a decreasing upper-tail function by Newton steps from a guess,
@@ -134,15 +144,22 @@ function solveUpper(upper: (x: number) => number, pdf: (x: number) => number, q:
 export function studentQuantile(p: number, df: number): number {
   if (p === 0.5) return 0;
   if (p < 0.5) return -studentQuantile(1 - p, df);
-  return cached(`t:${p}:${df}`, () =>
-    solveUpper(
-      (t) => studentUpper(t, df),
-      (t) => studentPdf(t, df),
-      1 - p,
-      jStat.studentt.inv(p, df),
+  return (
+    recall(studentQuantiles, p, df, 0) ??
+    remember(
+      studentQuantiles,
+      p,
+      df,
       0,
-      Infinity,
-    ),
+      solveUpper(
+        (t) => studentUpper(t, df),
+        (t) => studentPdf(t, df),
+        1 - p,
+        jStat.studentt.inv(p, df),
+        0,
+        Infinity,
+      ),
+    )
   );
 }
 
@@ -169,27 +186,34 @@ export function fPdf(f: number, d1: number, d2: number): number {
 
 /** p-quantile of Fisher's F with (d1, d2) degrees of freedom. */
 export function fQuantile(p: number, d1: number, d2: number): number {
-  return cached(`F:${p}:${d1}:${d2}`, () =>
-    solveUpper(
-      (f) => fUpper(f, d1, d2),
-      (f) => fPdf(f, d1, d2),
-      1 - p,
-      jStat.centralF.inv(p, d1, d2),
-      0,
-      Infinity,
-    ),
+  return (
+    recall(fQuantiles, p, d1, d2) ??
+    remember(
+      fQuantiles,
+      p,
+      d1,
+      d2,
+      solveUpper(
+        (f) => fUpper(f, d1, d2),
+        (f) => fPdf(f, d1, d2),
+        1 - p,
+        jStat.centralF.inv(p, d1, d2),
+        0,
+        Infinity,
+      ),
+    )
   );
 }
 
 export function normalQuantile(p: number): number {
-  return cached(`z:${p}`, () => {
-    let z = jStat.normal.inv(p, 0, 1);
-    for (let i = 0; i < 3; i++) {
-      const pdf = Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI);
-      z -= (normalCdf(z) - p) / pdf;
-    }
-    return z;
-  });
+  const known = recall(normalQuantiles, p, 0, 0);
+  if (known !== undefined) return known;
+  let z = jStat.normal.inv(p, 0, 1);
+  for (let i = 0; i < 3; i++) {
+    const pdf = Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI);
+    z -= (normalCdf(z) - p) / pdf;
+  }
+  return remember(normalQuantiles, p, 0, 0, z);
 }
 
 /**
@@ -291,11 +315,11 @@ export function brentRoot(f: (x: number) => number, lo: number, hi: number, tol 
  * minimum detectable value.
  */
 export function detectionDelta(df: number, alpha: number, beta: number): number {
-  return cached(`delta:${df}:${alpha}:${beta}`, () => {
-    const tc = studentQuantile(1 - alpha, df);
-    const g = (delta: number) => noncentralTCdf(tc, df, delta) - beta;
-    let hi = 2 * tc + 2;
-    while (g(hi) > 0) hi *= 2;
-    return brentRoot(g, 0, hi, 1e-14);
-  });
+  const known = recall(detectionDeltas, df, alpha, beta);
+  if (known !== undefined) return known;
+  const tc = studentQuantile(1 - alpha, df);
+  const g = (delta: number) => noncentralTCdf(tc, df, delta) - beta;
+  let hi = 2 * tc + 2;
+  while (g(hi) > 0) hi *= 2;
+  return remember(detectionDeltas, df, alpha, beta, brentRoot(g, 0, hi, 1e-14));
 }

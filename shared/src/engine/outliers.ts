@@ -142,12 +142,11 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
   // testSet needs 3 values; naming a set formats its x, which costs more than testing it when levels are many.
   for (const { x, values, indices } of levels) if (values.length >= 3) sets.push({ name: `standards x=${x}`, values, indices });
   if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
-  const series = [
-    ...groupBy(
-      (study.precision ?? []).map((p, index) => ({ ...p, index })).filter((p) => !p.excluded),
-      (p) => p.group,
-    ).entries(),
-  ];
+  const usedPrecision: { group: string; value: number; index: number }[] = [];
+  (study.precision ?? []).forEach((p, index) => {
+    if (!p.excluded) usedPrecision.push({ group: p.group, value: p.value, index });
+  });
+  const series = [...groupBy(usedPrecision, (p) => p.group).entries()];
   for (const [group, items] of series) {
     sets.push({ name: `precision ${group}`, values: items.map((i) => i.value), indices: items.map((i) => i.index) });
   }

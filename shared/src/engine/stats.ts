@@ -80,7 +80,9 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
   const n = values.length;
   const keys: number[] = [];
   const of = new Int32Array(n);
-  let size = 1024;
+  // At most half full; a small study needs a small table (it grows as keys come, so a size only saves rehashing).
+  let size = 16;
+  while (size < 2 * n && size < 1024) size *= 2;
   let slots = new Int32Array(size).fill(-1);
   const slotOf = (key: number): number => {
     bits[0] = key;
