@@ -30,6 +30,9 @@ interface SessionRow {
   lastActivityAt: unknown;
 }
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const isUuid = (value: unknown): value is string => typeof value === 'string' && UUID.test(value);
+
 export const SESSION_ENDED = 'Your session is no longer valid. Sign in again.';
 export const SESSION_IDLE = 'You were signed out after a period without activity. Sign in again.';
 // Recording every request would put a write on each read; a coarser mark is enough to judge idleness.
@@ -75,7 +78,8 @@ export class SessionsService {
    */
   async authenticate(payload: TokenPayload): Promise<SessionUser> {
     const { sub, sid, ver, exp } = payload;
-    if (typeof exp !== 'number' || typeof sid !== 'string' || typeof sub !== 'string') throw new UnauthorizedException(SESSION_ENDED);
+    // Ids that cannot be a session's or a user's never reach the database (PostgreSQL would refuse them as uuid).
+    if (typeof exp !== 'number' || !isUuid(sid) || !isUuid(sub)) throw new UnauthorizedException(SESSION_ENDED);
     const rows = (await this.dataSource.query(this.sessionQuery, [sid, sub]).catch(() => [])) as SessionRow[];
     const row = rows[0];
     const current =
