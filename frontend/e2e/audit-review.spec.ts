@@ -21,6 +21,11 @@ test('the quality manager reviews a study’s trail, then runs the self-qualific
   await expect(page.getByRole('table', { name: 'Audit trail' }).getByRole('row').nth(1)).toBeVisible();
   await expect(page.getByText(/study\.|signature\.|auth\./)).toHaveCount(0);
   await shot(page, 'whole-trail');
+  await page.getByLabel('Action', { exact: true }).selectOption({ label: 'Study submitted for review' });
+  const submissions = page.getByRole('table', { name: 'Audit trail' }).getByRole('row');
+  await expect(submissions.nth(1)).toContainText('Study submitted for review');
+  for (const row of (await submissions.all()).slice(1)) await expect(row).toContainText('Study submitted for review');
+  await page.getByLabel('Action', { exact: true }).selectOption({ label: 'Every action' });
 
   await page.goto(`/studies/${study.id}`);
   await expect(page.getByRole('heading', { level: 1, name: study.title })).toBeVisible();

@@ -75,6 +75,10 @@ test('an analyst pages through the studies with Next and Previous, sorted and fi
   await mainNavigation(page).getByRole('link', { name: 'Routine batches' }).click();
   await expect(page.getByText(/^Runs 1–\d+ of \d+$/)).toBeVisible();
   await shot(page, '5-runs');
+  await page.getByLabel('Status', { exact: true }).selectOption({ label: 'Rejected' });
+  const rejected = page.getByRole('table', { name: 'Routine runs' }).getByRole('row');
+  await expect(rejected.nth(1)).toContainText('Rejected');
+  for (const row of (await rejected.all()).slice(1)) await expect(row).toContainText('Rejected');
 });
 
 test('a reviewer steps through the review queue page by page', async ({ page, request }) => {

@@ -1,10 +1,11 @@
-import { Badge, Box, Button, CloseButton, Field, Heading, HStack, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Badge, Box, Button, CloseButton, Field, Heading, HStack, Input, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { AUDIT_ACTION_LABELS, AUDIT_RECORD_KIND_LABELS, hasAnyRole, Role, type AuditRecordKind } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { useState } from 'react';
 import { useSearchParams } from 'react-router';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
+import { SelectControl } from '@/components/select-control';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from '@/lib/api-client';
 import { useSession } from '@/lib/auth';
@@ -14,7 +15,9 @@ import { auditColumns } from '../components/audit-columns';
 import { ChainCheck } from '../components/chain-check';
 import { LatestReview, ReviewPanel } from '../components/review-panel';
 
-const ACTION_CHOICES = Object.entries(AUDIT_ACTION_LABELS).sort(([, a], [, b]) => a.localeCompare(b));
+const ACTION_CHOICES = Object.entries(AUDIT_ACTION_LABELS)
+  .sort(([, a], [, b]) => a.localeCompare(b))
+  .map(([value, label]) => ({ value, label }));
 const FILTER_KEYS = ['record', 'user', 'action', 'from', 'to', 'q'] as const;
 
 export default function AuditTrailPage() {
@@ -107,31 +110,21 @@ export default function AuditTrailPage() {
           <HStack gap="4" align="flex-end" wrap="wrap">
             <Field.Root maxW="3xs">
               <Field.Label>Person</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field value={filters.user ?? ''} onChange={(e) => update({ user: e.currentTarget.value })}>
-                  <option value="">Everyone</option>
-                  {people.data?.map((person) => (
-                    <option key={person.id} value={person.id}>
-                      {person.name}
-                    </option>
-                  ))}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
+              <SelectControl
+                value={filters.user ?? ''}
+                onChange={(user) => update({ user })}
+                placeholder="Everyone"
+                options={(people.data ?? []).map((person) => ({ value: person.id, label: person.name }))}
+              />
             </Field.Root>
             <Field.Root maxW="xs">
               <Field.Label>Action</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field value={filters.action ?? ''} onChange={(e) => update({ action: e.currentTarget.value })}>
-                  <option value="">Every action</option>
-                  {ACTION_CHOICES.map(([code, label]) => (
-                    <option key={code} value={code}>
-                      {label}
-                    </option>
-                  ))}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
+              <SelectControl
+                value={filters.action ?? ''}
+                onChange={(action) => update({ action })}
+                placeholder="Every action"
+                options={ACTION_CHOICES}
+              />
             </Field.Root>
             <Field.Root maxW="44">
               <Field.Label>First day</Field.Label>

@@ -1,10 +1,11 @@
-import { Button, Field, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
+import { Button, Field, HStack, Stack, Text } from '@chakra-ui/react';
 import { RUN_CAUTION, type RunStatus } from '@meritline/shared';
 import { useQuery } from '@tanstack/react-query';
 import { Link as RouterLink, useSearchParams } from 'react-router';
 import { CursorPager } from '@/components/cursor-pager';
 import { DataTable } from '@/components/data-table';
 import { PageHeader } from '@/components/page-header';
+import { SelectControl } from '@/components/select-control';
 import { paths } from '@/lib/config/paths';
 import { changeSearch } from '@/lib/search-params';
 import { runsQueries } from '../api/runs-queries';
@@ -13,6 +14,10 @@ import { runsColumns } from '../components/runs-columns';
 import { VersionFilter } from '../components/version-filter';
 
 const PAGE_SIZE = 20;
+const STATUS_CHOICES = [
+  { value: 'accepted', label: 'Accepted' },
+  { value: 'rejected', label: 'Rejected' },
+];
 
 export default function RoutineBatchesPage() {
   const [params, setParams] = useSearchParams();
@@ -59,14 +64,12 @@ export default function RoutineBatchesPage() {
           />
           <Field.Root maxW="2xs">
             <Field.Label>Status</Field.Label>
-            <NativeSelect.Root>
-              <NativeSelect.Field value={status} onChange={(event) => update({ status: event.currentTarget.value, page: '', cursor: '' })}>
-                <option value="">Accepted and rejected</option>
-                <option value="accepted">Accepted</option>
-                <option value="rejected">Rejected</option>
-              </NativeSelect.Field>
-              <NativeSelect.Indicator />
-            </NativeSelect.Root>
+            <SelectControl
+              value={status}
+              onChange={(value) => update({ status: value, page: '', cursor: '' })}
+              placeholder="Accepted and rejected"
+              options={STATUS_CHOICES}
+            />
           </Field.Root>
         </HStack>
         <DataTable
