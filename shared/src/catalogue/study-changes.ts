@@ -93,3 +93,13 @@ export function describeStudyChange(path: string, from: unknown, to: unknown): s
   }
   return null;
 }
+
+/** One excluded row of a detection-limit list, named alike on the result screen and in the report. */
+export const EXCLUDED_DETECTION_ROW_WORDS = {
+  blanks: 'Method blank',
+  'lowSpikes.spiked': 'Low-level spike',
+  'lowSpikes.blanks': 'Method blank for the MDL',
+} as const;
+
+/** A method blank entered as ND: it has no numerical result. */
+export const NOT_DETECTED_WORDS = 'not detected';

@@ -1,4 +1,11 @@
-import { lowSpikeExclusion, mdlBlankValue, spikeValue, type OutlierFlag } from '@meritline/shared';
+import {
+  EXCLUDED_DETECTION_ROW_WORDS,
+  lowSpikeExclusion,
+  mdlBlankValue,
+  NOT_DETECTED_WORDS,
+  spikeValue,
+  type OutlierFlag,
+} from '@meritline/shared';
 import { formatDateTime, formatLevel, formatNumber, NOT_AVAILABLE, type PdfComposer, type TableRow } from '../pdf/index.js';
 import type { ReportContent } from '../report-content.js';
 import { notEvaluated, plural, sectionWarnings, xUnit, yUnit } from './common.js';
@@ -61,7 +68,7 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
         ? [
             {
               set: 'blanks',
-              what: 'Method blank',
+              what: EXCLUDED_DETECTION_ROW_WORDS.blanks,
               index,
               value: `${formatNumber(b.value, 5)} ${yUnit(content)}`,
               reason: b.excluded.reason,
@@ -72,7 +79,15 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
     ...(data.lowSpikes?.spiked ?? []).flatMap((s, index) => {
       const excluded = lowSpikeExclusion(s);
       return excluded
-        ? [{ set: 'lowSpikes.spiked', what: 'Low-level spike', index, value: withUnit(spikeValue(s)), reason: excluded.reason }]
+        ? [
+            {
+              set: 'lowSpikes.spiked',
+              what: EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.spiked'],
+              index,
+              value: withUnit(spikeValue(s)),
+              reason: excluded.reason,
+            },
+          ]
         : [];
     }),
     ...(data.lowSpikes?.blanks ?? []).flatMap((b, index) => {
@@ -82,9 +97,9 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
         ? [
             {
               set: 'lowSpikes.blanks',
-              what: 'Method blank for the MDL',
+              what: EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.blanks'],
               index,
-              value: value === null ? 'no numerical result' : withUnit(value),
+              value: value === null ? NOT_DETECTED_WORDS : withUnit(value),
               reason: excluded.reason,
             },
           ]

@@ -1,4 +1,12 @@
-import { type DetectionApproach, type EvaluationResult, formatLevel, formatNumber, withUnit } from '@meritline/shared';
+import {
+  type DetectionApproach,
+  type EvaluationResult,
+  EXCLUDED_DETECTION_ROW_WORDS,
+  formatLevel,
+  formatNumber,
+  NOT_DETECTED_WORDS,
+  withUnit,
+} from '@meritline/shared';
 import { Stack, Text } from '@chakra-ui/react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
 import { CriterionCell, OutcomeCell } from './figures-table';
@@ -157,23 +165,23 @@ const excludedColumns = excludedColumn.columns([
 export function DetectionExclusions({ result, units }: Pick<JudgedFiguresProps, 'result' | 'units'>) {
   const d = result.detection;
   // Entered values, printed as entered.
-  const value = (v: number | null, unit: string | undefined) => (v === null ? 'not detected' : withUnit(formatLevel(v), unit));
+  const value = (v: number | null, unit: string | undefined) => (v === null ? NOT_DETECTED_WORDS : withUnit(formatLevel(v), unit));
   const rows: ExcludedDetectionRow[] = [
     ...(d?.excludedBlanks ?? []).map((row) => ({
       id: `b${row.index}`,
-      what: `Blank, row ${row.index + 1}`,
+      what: `${EXCLUDED_DETECTION_ROW_WORDS.blanks}, row ${row.index + 1}`,
       value: value(row.value, units.y),
       reason: row.reason,
     })),
     ...(d?.excludedSpikes ?? []).map((row) => ({
       id: `s${row.index}`,
-      what: `Low-level spike, row ${row.index + 1}`,
+      what: `${EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.spiked']}, row ${row.index + 1}`,
       value: value(row.value, units.x),
       reason: row.reason,
     })),
     ...(d?.excludedMdlBlanks ?? []).map((row) => ({
       id: `m${row.index}`,
-      what: `Method blank for the MDL, row ${row.index + 1}`,
+      what: `${EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.blanks']}, row ${row.index + 1}`,
       value: value(row.value, units.x),
       reason: row.reason,
     })),

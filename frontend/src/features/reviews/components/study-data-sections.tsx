@@ -1,4 +1,13 @@
-import { blankValue, formatLevel, formatNumber, lowSpikeExclusion, mdlBlankValue, spikeValue, type StudyInput } from '@meritline/shared';
+import {
+  blankValue,
+  formatLevel,
+  formatNumber,
+  lowSpikeExclusion,
+  mdlBlankValue,
+  NOT_DETECTED_WORDS,
+  spikeValue,
+  type StudyInput,
+} from '@meritline/shared';
 import { Heading, Stack, Text } from '@chakra-ui/react';
 import { useMemo } from 'react';
 import { DataTable, dataTableColumns } from '@/components/data-table';
@@ -111,7 +120,7 @@ export function StudyDataSections({ data, units }: { data: StudyInput; units: { 
             ['#', withUnit('Blank result', units.x), 'Excluded because'],
             data.lowSpikes.blanks.map((v, i) => ({
               id: `mb${i}`,
-              cells: [i + 1, mdlBlankValue(v) ?? 'not detected', lowSpikeExclusion(v)?.reason ?? ''],
+              cells: [i + 1, mdlBlankValue(v) ?? NOT_DETECTED_WORDS, lowSpikeExclusion(v)?.reason ?? ''],
             })),
             [true, true, false],
           ),

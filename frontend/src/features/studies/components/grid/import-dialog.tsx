@@ -1,4 +1,4 @@
-import type { ImportPreviewDto, ImportSection, StudyDto } from '@meritline/shared';
+import { NOT_DETECTED_WORDS, type ImportPreviewDto, type ImportSection, type StudyDto } from '@meritline/shared';
 import { Alert, Button, Field, HStack, List, SimpleGrid, Spinner, Stack, Table, Text } from '@chakra-ui/react';
 import { useState } from 'react';
 import { DialogCancel, DialogShell } from '@/components/dialog-shell';
@@ -57,7 +57,7 @@ function fieldsFor(section: ImportSection, preview: ImportPreviewDto | undefined
 }
 
 const cellText = (value: unknown): string => {
-  if (value === null) return 'not detected';
+  if (value === null) return NOT_DETECTED_WORDS;
   if (Array.isArray(value)) return value.map(cellText).join(', ');
   if (typeof value === 'object' && value !== undefined) return 'excluded' in (value as object) ? 'excluded' : JSON.stringify(value);
   return value === undefined ? '' : String(value);
