@@ -26,7 +26,8 @@ export default defineConfig({
     browserName: 'chromium',
     headless: true,
     viewport: { width: 1360, height: 860 },
-    trace: 'retain-on-failure',
+    // Traces on request only: the runner's tracing has failed a passing test with a missing trace file after a worker restart.
+    trace: process.env.E2E_TRACE ? 'retain-on-failure' : 'off',
     screenshot: 'only-on-failure',
     launchOptions: {
       executablePath: '/usr/bin/chromium',
