@@ -3,6 +3,7 @@ import type { NextFunction, Request, Response } from 'express';
 import { DocumentBuilder, SwaggerModule } from '@nestjs/swagger';
 import compression from 'compression';
 import helmet from 'helmet';
+import { SESSION_COOKIE } from './auth/session-cookie.js';
 import { loadAppConfig } from './config/app.config.js';
 import { bodyParserErrors, jsonBodyGuard } from './common/json-body-guard.js';
 import { validationPipe } from './common/validation.js';
@@ -61,6 +62,15 @@ export function configureApp(app: NestExpressApplication) {
         .setDescription('Calibration, method validation and routine batches for analytical laboratories.')
         .setVersion('1')
         .addBearerAuth()
+        .addCookieAuth(
+          SESSION_COOKIE,
+          {
+            type: 'apiKey',
+            in: 'cookie',
+            description: 'Set by signing in; a change (not GET) signed in by it alone also needs `X-Requested-With: meritline`.',
+          },
+          SESSION_COOKIE,
+        )
         .build(),
     );
     SwaggerModule.setup('api/docs', app, document);

@@ -314,4 +314,44 @@ describe('sessions, password reset, password rules and signing locks', () => {
       await signIn(email);
     });
   });
+  describe("the browser's session cookie", () => {
+    const cookieSignIn = async (email: string) => {
+      const res = await t.http().post('/api/auth/login').send({ email, password: DEMO_PASSWORD }).expect(200);
+      const setCookie = ([] as string[]).concat(res.headers['set-cookie'] ?? []);
+      const session = setCookie.find((c) => c.startsWith('meritline_session='));
+      return { session: session ?? '', cookie: (session ?? '').split(';')[0], token: res.body.accessToken as string };
+    };
+    const fromApp = { 'X-Requested-With': 'meritline' };
+
+    it('should keep the token where page scripts cannot read it, sent only to the API of this site', async () => {
+      const { session, cookie, token } = await cookieSignIn(DEMO.analyst2);
+      const attributes = session.split(';').map((a) => a.trim().toLowerCase());
+      expect(cookie).toBe(`meritline_session=${token}`);
+      expect(attributes).toEqual(expect.arrayContaining(['httponly', 'samesite=strict', 'path=/api']));
+      expect(attributes.some((a) => a.startsWith('expires=') || a.startsWith('max-age='))).toBe(false);
+      const me = await t.http().get('/api/auth/me').set('Cookie', cookie).expect(200);
+      expect(me.body.email).toBe(DEMO.analyst2);
+    });
+
+    it('should refuse a change signed in by the cookie alone unless the web app sent it, and change nothing', async () => {
+      const { cookie } = await cookieSignIn(DEMO.analyst2);
+      const refused = await t.http().post('/api/auth/logout').set('Cookie', cookie).expect(403);
+      expect(refused.body.message).toMatch(/not sent by the Meritline web app/);
+      await t.http().get('/api/auth/me').set('Cookie', cookie).expect(200);
+
+      const ended = await t.http().post('/api/auth/logout').set('Cookie', cookie).set(fromApp).expect(204);
+      const cleared = ([] as string[]).concat(ended.headers['set-cookie'] ?? []).find((c) => c.startsWith('meritline_session='));
+      expect(cleared).toMatch(/^meritline_session=;.*Expires=Thu, 01 Jan 1970/);
+      expect(cleared).toMatch(/Path=\/api/);
+      await t.http().get('/api/auth/me').set('Cookie', cookie).expect(401);
+    });
+
+    it('should read the Authorization header alone when one is sent, and refuse a forged cookie', async () => {
+      const { cookie } = await cookieSignIn(DEMO.analyst2);
+      await t.http().get('/api/auth/me').set('Cookie', cookie).set(bearer('forged')).expect(401);
+      const forged = jwt.sign({ sub: await userId(t, DEMO.analyst2) }, 'not-the-secret');
+      await t.http().get('/api/auth/me').set('Cookie', `meritline_session=${forged}`).expect(401);
+      await t.http().post('/api/auth/logout').set('Cookie', 'meritline_session=forged').set(fromApp).expect(401);
+    });
+  });
 });

@@ -49,3 +49,19 @@ test('a wrong password is refused with a message that does not say which part wa
   await expect(page).toHaveURL(/\/sign-in$/);
   await page.screenshot({ path: 'test-output/screenshots/sign-in-refused.png' });
 });
+
+test('the session lives in a cookie no page script can read, and signing out ends it on the server', async ({ page, context }) => {
+  await signIn(page, 'analyst@meritline.test');
+  await expect(mainNavigation(page)).toBeVisible();
+  const [session] = (await context.cookies()).filter((c) => c.name === 'meritline_session');
+  expect(session).toMatchObject({ httpOnly: true, sameSite: 'Strict', path: '/api' });
+  const visible = await page.evaluate(() => ({ cookies: document.cookie, storage: JSON.stringify({ ...localStorage }) }));
+  expect(visible.cookies).not.toContain('meritline_session');
+  expect(visible.storage).not.toContain(session.value);
+
+  await signOut(page);
+  expect((await context.cookies()).filter((c) => c.name === 'meritline_session')).toHaveLength(0);
+  // The token of the ended session is refused even when sent again by hand.
+  const me = await page.request.get('/api/auth/me', { headers: { Authorization: `Bearer ${session.value}` } });
+  expect(me.status()).toBe(401);
+});

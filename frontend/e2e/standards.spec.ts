@@ -1,5 +1,5 @@
 import { expect as baseExpect, test, type Page } from '@playwright/test';
-import { mainNavigation, signIn, signOut } from './support';
+import { apiGet, mainNavigation, signIn, signOut } from './support';
 
 const expect = baseExpect.configure({ timeout: 30_000 });
 test.setTimeout(240_000);
@@ -81,8 +81,6 @@ test('the analyst prepares a stock and two dilutions from a seeded material and 
   await signOut(page);
 });
 
-const TOKEN_KEY = 'meritline.session-token';
-
 test("the analyst takes a draft study's standards from the saved preparation with the mouse", async ({ page }) => {
   await signIn(page, 'analyst@meritline.test');
   await mainNavigation(page).getByRole('link', { name: 'Validation studies' }).click();
@@ -114,17 +112,8 @@ test("the analyst takes a draft study's standards from the saved preparation wit
   await shot(page, 'standards-from-preparation');
 
   const studyId = /\/studies\/([^/]+)\/edit/.exec(page.url())?.[1];
-  const study = (await page.evaluate(
-    async ({ id, key }) => {
-      const res = await fetch(`/api/studies/${id}`, { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
-      return res.json();
-    },
-    { id: studyId, key: TOKEN_KEY },
-  )) as { data: { standards: { x: number; y: number; preparationId?: string }[] } };
-  const preparations = (await page.evaluate(async (key) => {
-    const res = await fetch('/api/preparations', { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
-    return res.json();
-  }, TOKEN_KEY)) as { id: string; name: string }[];
+  const study = await apiGet<{ data: { standards: { x: number; y: number; preparationId?: string }[] } }>(page, `/studies/${studyId}`);
+  const preparations = await apiGet<{ id: string; name: string }[]>(page, '/preparations');
   const preparationId = preparations.find((p) => p.name === 'Cadmium stock and two working standards')?.id;
   expect(preparationId).toBeTruthy();
   expect(study.data.standards).toHaveLength(2);

@@ -45,15 +45,7 @@ export async function openStep(page: Page, name: string, number: number) {
   await expect(page.getByText(`Validation study · step ${number} of 8: ${name}`)).toBeVisible({ timeout: 30_000 });
 }
 
-const TOKEN_KEY = 'meritline.session-token';
-
-/** GET on the API with the signed-in user's token, for the ids of seeded records. */
+/** GET on the API in the signed-in page (its session cookie goes along), for the ids of seeded records. */
 export async function apiGet<T>(page: Page, path: string): Promise<T> {
-  return page.evaluate(
-    async ({ path, key }) => {
-      const res = await fetch(`/api${path}`, { headers: { Authorization: `Bearer ${localStorage.getItem(key)}` } });
-      return res.json();
-    },
-    { path, key: TOKEN_KEY },
-  ) as Promise<T>;
+  return page.evaluate(async (path) => (await fetch(`/api${path}`)).json(), path) as Promise<T>;
 }

@@ -1,7 +1,7 @@
 import { Role } from '@meritline/shared';
 import { screen, within } from '@testing-library/react';
 import { routes } from '@/app/router';
-import { setSessionToken } from '@/lib/session-token';
+import { markSignedIn } from '@/lib/signed-in';
 import { renderRoutes, stubApi } from './render';
 
 const entry = {
@@ -20,7 +20,7 @@ const entry = {
 };
 
 function signInAs(roles: Role[]) {
-  setSessionToken('test-token');
+  markSignedIn();
   return stubApi({
     'GET /api/auth/me': { body: { id: 'u-9', email: 'quality@lab.example', name: 'Noor Quality', roles } },
     'GET /api/audit?pageSize=25': {

@@ -2,7 +2,7 @@ import { Role } from '@meritline/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { navigationFor } from '@/app/layout/navigation';
 import { routes } from '@/app/router';
-import { setSessionToken } from '@/lib/session-token';
+import { markSignedIn } from '@/lib/signed-in';
 import { renderRoutes, stubApi } from './render';
 
 const ENTRIES_BY_ROLE: Record<Role, string[]> = {
@@ -16,7 +16,7 @@ const ALL_ROLE_ENTRIES = Object.values(ENTRIES_BY_ROLE).flat();
 
 function signInAs(roles: Role[]) {
   const user = { id: 'u-7', email: 'jonas.weber@lab.example', name: 'Jonas Weber', roles };
-  setSessionToken('test-token');
+  markSignedIn();
   return stubApi({ 'GET /api/auth/me': { body: user }, 'GET /api/users': { body: [] }, 'GET /api/outbox': { body: [] } });
 }
 
@@ -93,7 +93,7 @@ describe('route guards', () => {
   });
 
   it('signs out when the server no longer accepts the session', async () => {
-    setSessionToken('expired-token');
+    markSignedIn();
     stubApi({ 'GET /api/auth/me': { status: 401, body: { statusCode: 401, message: 'Unauthorized' } } });
     const { router } = renderRoutes(routes, '/runs');
 

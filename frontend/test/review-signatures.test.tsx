@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { BrokenSignatureWarning, SignaturesPanel } from '@/features/reviews/components/signatures-panel';
 import type { Signature } from '@/features/reviews/api/review-types';
-import { getSessionToken, setSessionToken } from '@/lib/session-token';
+import { isSignedIn, markSignedIn } from '@/lib/signed-in';
 import { renderWithProviders, stubApi } from './render';
 import { ApproveDialog } from './fixtures';
 
@@ -55,7 +55,7 @@ describe('electronic signatures on the review page', () => {
   });
 
   it('states what approving means, shows a refused password in the dialog and keeps the user signed in', async () => {
-    setSessionToken('reviewer-token');
+    markSignedIn();
     const calls = stubApi({
       [`POST /api/studies/${STUDY}/approve`]: {
         status: 401,
@@ -75,6 +75,6 @@ describe('electronic signatures on the review page', () => {
     await user.click(within(dialog).getByRole('button', { name: 'Sign and approve' }));
     expect(await within(dialog).findByText('Password not correct; nothing was signed.')).toBeInTheDocument();
     await waitFor(() => expect(calls.find((c) => c.key.startsWith('POST'))?.body).toEqual({ password: 'wrong-password', lockVersion: 4 }));
-    expect(getSessionToken()).toBe('reviewer-token');
+    expect(isSignedIn()).toBe(true);
   });
 });

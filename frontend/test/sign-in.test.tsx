@@ -1,6 +1,6 @@
 import { screen, waitFor } from '@testing-library/react';
 import { routes } from '@/app/router';
-import { getSessionToken } from '@/lib/session-token';
+import { isSignedIn } from '@/lib/signed-in';
 import { renderRoutes, stubApi } from './render';
 
 const analyst = { id: 'u-1', email: 'mira.okafor@lab.example', name: 'Mira Okafor', roles: ['analyst'] };
@@ -40,7 +40,7 @@ describe('sign-in page', () => {
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
     expect(await screen.findByRole('alert')).toHaveTextContent('E-mail or password is incorrect.');
-    expect(getSessionToken()).toBeNull();
+    expect(isSignedIn()).toBe(false);
   });
 
   it('signs in and returns to the page the visitor first asked for', async () => {
@@ -56,7 +56,9 @@ describe('sign-in page', () => {
 
     await waitFor(() => expect(router.state.location.pathname).toBe('/studies'));
     expect(await screen.findByRole('heading', { name: 'Validation studies', level: 1 })).toBeInTheDocument();
-    expect(getSessionToken()).toBe('token-123');
+    expect(isSignedIn()).toBe(true);
+    expect(localStorage.getItem('meritline.signed-in')).toBe('1');
+    expect(JSON.stringify({ ...localStorage })).not.toContain('token-123');
     expect(calls[0]).toMatchObject({ key: 'POST /api/auth/login', body: { email: analyst.email, password: 'correct horse' } });
     expect(calls[0]?.headers).not.toHaveProperty('Authorization');
   });

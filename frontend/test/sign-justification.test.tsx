@@ -1,7 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import { describe, expect, it } from 'vitest';
 import { studyReviewQueries } from '@/features/reviews/api/review-queries';
-import { setSessionToken } from '@/lib/session-token';
+import { markSignedIn } from '@/lib/signed-in';
 import { renderWithProviders, stubApi } from './render';
 import { ApproveDialog } from './fixtures';
 
@@ -9,7 +9,7 @@ const STUDY = '7a4c2f8e-9d1b-4e5a-8c3f-2b6d9e0a1c47';
 const JUSTIFICATION = 'Recovery at the lowest level is outside the range, but routine samples lie well above it.';
 
 function renderApproval(pass: boolean) {
-  setSessionToken('reviewer-token');
+  markSignedIn();
   const calls = stubApi({
     [`POST /api/studies/${STUDY}/approve`]: {
       status: 200,

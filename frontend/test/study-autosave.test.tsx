@@ -1,6 +1,6 @@
 import { screen, waitFor } from '@testing-library/react';
 import { routes } from '@/app/router';
-import { setSessionToken } from '@/lib/session-token';
+import { markSignedIn } from '@/lib/signed-in';
 import { renderRoutes, stubApi } from './render';
 import { activeVersion, nitrateMethod } from './fixtures';
 
@@ -44,7 +44,7 @@ const study = {
 };
 
 function openPrecisionStep(patch: (body: unknown) => { status?: number; body?: unknown }) {
-  setSessionToken('token');
+  markSignedIn();
   const calls = stubApi({
     'GET /api/auth/me': { body: analyst },
     'GET /api/studies/st-1': { body: study },

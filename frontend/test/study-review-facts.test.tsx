@@ -1,7 +1,7 @@
 import { evaluateStudy } from '@meritline/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { routes } from '@/app/router';
-import { setSessionToken } from '@/lib/session-token';
+import { markSignedIn } from '@/lib/signed-in';
 import { renderRoutes, renderWithProviders, stubApi } from './render';
 import { ApproveDialog, activeVersion, nitrateMethod } from './fixtures';
 
@@ -99,7 +99,7 @@ const comments = [
 ];
 
 function openWizard(user: object, step: number, patch: (body: unknown) => { status?: number; body?: unknown }, overrides = {}) {
-  setSessionToken('token');
+  markSignedIn();
   const calls = stubApi({
     'GET /api/auth/me': { body: user },
     'GET /api/studies/st-1': { body: study(overrides) },
@@ -167,7 +167,7 @@ describe('a returned study in the wizard', () => {
 
 describe('the review page shows the reviewer what the author saw', () => {
   function openReview() {
-    setSessionToken('token');
+    markSignedIn();
     stubApi({
       'GET /api/auth/me': { body: reviewer },
       'GET /api/studies/st-1': { body: study({ status: 'submitted' }) },
@@ -192,7 +192,7 @@ describe('the review page shows the reviewer what the author saw', () => {
   });
 
   it('tells the approver how many comments are still open and lists them', async () => {
-    setSessionToken('token');
+    markSignedIn();
     stubApi({ 'GET /api/studies/st-1/comments': { body: comments } });
     const { user } = renderWithProviders(<ApproveDialog studyId="st-1" lockVersion={7} />);
     await user.click(screen.getByRole('button', { name: 'Approve' }));

@@ -1,6 +1,8 @@
-import { Body, Controller, Get, HttpCode, Ip, Post, Put, Req } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Inject, Ip, Post, Put, Req, Res } from '@nestjs/common';
 import { ApiAcceptedResponse, ApiNoContentResponse, ApiOkResponse, ApiTags } from '@nestjs/swagger';
 import { Role, type LoginResponse, type SessionSettingsDto, type UserDto } from '@meritline/shared';
+import type { Response } from 'express';
+import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { CurrentUser, type AuthUser } from '../common/decorators/current-user.decorator.js';
 import { Public } from '../common/decorators/public.decorator.js';
 import { Roles } from '../common/decorators/roles.decorator.js';
@@ -14,6 +16,7 @@ import { ChangePasswordDto } from './dto/change-password.dto.js';
 import { LoginDto } from './dto/login.dto.js';
 import { LinkTokenDto, PasswordResetConfirmDto, PasswordResetRequestDto } from './dto/password-reset.dto.js';
 import { UpdateSessionSettingsDto } from './dto/session-settings.dto.js';
+import { SESSION_COOKIE, sessionCookieOptions } from './session-cookie.js';
 import { SessionSettingsService } from './session-settings.service.js';
 import type { SessionUser } from './sessions.service.js';
 
@@ -24,7 +27,15 @@ export class AuthController {
   constructor(
     private readonly authService: AuthService,
     private readonly usersService: UsersService,
+    @Inject(appConfig.KEY) private readonly config: AppConfigType,
   ) {}
+
+  /** The web app's session lives in an HttpOnly cookie; the token in the body serves scripts and API clients. */
+  private async startSession(response: Response, signingIn: Promise<LoginResponse>): Promise<LoginResponse> {
+    const session = await signingIn;
+    response.cookie(SESSION_COOKIE, session.accessToken, sessionCookieOptions(this.config.publicUrl));
+    return session;
+  }
 
   @Public()
   @Post('login')
@@ -32,8 +43,8 @@ export class AuthController {
   @ApiOkResponse({ type: LoginResponseDto })
   @ApiRefusal(401, 'Unknown e-mail, wrong password, or a locked or deactivated account.')
   @ApiInvalid()
-  login(@Body() dto: LoginDto, @Ip() address: string): Promise<LoginResponse> {
-    return this.authService.login(dto, address);
+  login(@Body() dto: LoginDto, @Ip() address: string, @Res({ passthrough: true }) response: Response): Promise<LoginResponse> {
+    return this.startSession(response, this.authService.login(dto, address));
   }
 
   @Public()
@@ -42,8 +53,8 @@ export class AuthController {
   @ApiOkResponse({ type: LoginResponseDto, description: 'The password is set and the person signed in.' })
   @ApiRefusal(400, 'The invitation link is not valid or has expired.')
   @ApiInvalid()
-  acceptInvitation(@Body() dto: AcceptInvitationDto): Promise<LoginResponse> {
-    return this.authService.acceptInvitation(dto);
+  acceptInvitation(@Body() dto: AcceptInvitationDto, @Res({ passthrough: true }) response: Response): Promise<LoginResponse> {
+    return this.startSession(response, this.authService.acceptInvitation(dto));
   }
 
   @Public()
@@ -84,8 +95,9 @@ export class AuthController {
   @Post('logout')
   @HttpCode(204)
   @ApiNoContentResponse({ description: 'The session is ended.' })
-  logout(@Req() request: { user: SessionUser }): Promise<void> {
-    return this.authService.logout(request.user, request.user.sessionId);
+  async logout(@Req() request: { user: SessionUser }, @Res({ passthrough: true }) response: Response): Promise<void> {
+    await this.authService.logout(request.user, request.user.sessionId);
+    response.clearCookie(SESSION_COOKIE, sessionCookieOptions(this.config.publicUrl));
   }
 
   @ApiSignedIn()

@@ -3,7 +3,10 @@ import { PassportStrategy } from '@nestjs/passport';
 import { ExtractJwt, Strategy } from 'passport-jwt';
 import { appConfig, type AppConfigType } from '../config/app.config.js';
 import { jwtVerificationKey } from './jwt-key.js';
+import { hasBearerHeader, sessionCookieOf } from './session-cookie.js';
 import { SessionsService, type SessionUser, type TokenPayload } from './sessions.service.js';
+
+const fromAuthHeader = ExtractJwt.fromAuthHeaderAsBearerToken();
 
 @Injectable()
 export class JwtStrategy extends PassportStrategy(Strategy) {
@@ -13,7 +16,9 @@ export class JwtStrategy extends PassportStrategy(Strategy) {
   ) {
     const key = jwtVerificationKey(config.jwtSecret);
     super({
-      jwtFromRequest: ExtractJwt.fromAuthHeaderAsBearerToken(),
+      // Scripts and API clients send a bearer token; the web app's calls carry the session cookie.
+      jwtFromRequest: (request: Parameters<typeof fromAuthHeader>[0]) =>
+        hasBearerHeader(request) ? fromAuthHeader(request) : sessionCookieOf(request),
       ignoreExpiration: false,
       // passport-jwt hands the key to jsonwebtoken as it is; its types predate key objects.
       secretOrKeyProvider: (_request: unknown, _token: unknown, done: (error: null, key: Buffer) => void) =>

@@ -1,5 +1,5 @@
 import type { ApiErrorBody } from '@meritline/shared';
-import { clearSessionToken, getSessionToken } from './session-token';
+import { markSignedOut } from './signed-in';
 
 const BASE_URL = '/api';
 
@@ -26,7 +26,7 @@ export interface RequestOptions {
   signal?: AbortSignal;
   /** `blob` for downloads such as CSV templates; JSON otherwise. */
   responseType?: 'json' | 'blob';
-  /** Public calls (sign-in, accepting an invitation) send no token, and their 401 is an answer, not an expired session. */
+  /** Public calls (sign-in, accepting an invitation): their 401 is an answer, not an expired session. */
   public?: boolean;
   /** A password re-entered to sign: its 401 means a wrong password, not an expired session. */
   passwordCheck?: boolean;
@@ -48,9 +48,8 @@ async function readErrorBody(response: Response): Promise<ApiErrorBody> {
 }
 
 export async function apiRequest<T>(path: string, options: RequestOptions = {}): Promise<T> {
-  const headers: Record<string, string> = { Accept: 'application/json' };
-  const token = options.public ? null : getSessionToken();
-  if (token) headers.Authorization = `Bearer ${token}`;
+  // The session cookie goes with every call; the server takes a change signed in by it only with this header.
+  const headers: Record<string, string> = { Accept: 'application/json', 'X-Requested-With': 'meritline' };
   const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
   if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
 
@@ -69,8 +68,8 @@ export async function apiRequest<T>(path: string, options: RequestOptions = {}):
 
   if (!response.ok) {
     const body = await readErrorBody(response);
-    // Clearing the token sends every protected route back to sign-in, remembering where the user was.
-    if (response.status === 401 && !options.public && !options.passwordCheck) clearSessionToken();
+    // Signing out here sends every protected route back to sign-in, remembering where the user was.
+    if (response.status === 401 && !options.public && !options.passwordCheck) markSignedOut();
     throw new ApiError(body);
   }
 

@@ -1,7 +1,7 @@
 import type { CurrentUser, LoginResponse } from '@meritline/shared';
 import { queryOptions, useQuery, useQueryClient } from '@tanstack/react-query';
 import { useCallback } from 'react';
-import { clearSessionToken, setSessionToken, useSessionToken } from '@/lib/session-token';
+import { markSignedIn, markSignedOut, useSignedIn } from '@/lib/signed-in';
 import { api } from '@/lib/api-client';
 
 export const authQueries = {
@@ -15,8 +15,7 @@ export const authQueries = {
 };
 
 export interface Session {
-  /** The bearer token; null when signed out. */
-  token: string | null;
+  signedIn: boolean;
   /** The signed-in user; undefined while it loads or when signed out. */
   user: CurrentUser | undefined;
   isLoading: boolean;
@@ -26,26 +25,30 @@ export interface Session {
 }
 
 export function useSession(): Session {
-  const token = useSessionToken();
-  const currentUser = useQuery({ ...authQueries.currentUser(), enabled: token !== null });
-  const signOut = useCallback(() => clearSessionToken({ byUser: true }), []);
+  const signedIn = useSignedIn();
+  const currentUser = useQuery({ ...authQueries.currentUser(), enabled: signedIn });
+  const signOut = useCallback(() => {
+    // The server ends the session and clears its cookie; this browser forgets it even if the server cannot be reached.
+    void api.post('/auth/logout').catch(() => undefined);
+    markSignedOut({ byUser: true });
+  }, []);
   return {
-    token,
-    user: token ? currentUser.data : undefined,
-    isLoading: token !== null && currentUser.isPending,
-    error: token ? currentUser.error : null,
+    signedIn,
+    user: signedIn ? currentUser.data : undefined,
+    isLoading: signedIn && currentUser.isPending,
+    error: signedIn ? currentUser.error : null,
     signOut,
   };
 }
 
-/** Stores the token of a fresh sign-in and primes the current user, so the shell renders without a second round trip. */
+/** Marks a fresh sign-in (the server has set its cookie) and primes the current user, so the shell renders without a second round trip. */
 export function useStartSession() {
   const queryClient = useQueryClient();
   return useCallback(
     (response: LoginResponse) => {
       queryClient.clear();
       queryClient.setQueryData(authQueries.currentUser().queryKey, response.user);
-      setSessionToken(response.accessToken);
+      markSignedIn();
     },
     [queryClient],
   );

@@ -1,7 +1,7 @@
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query';
 import { toaster } from '@/components/ui/toaster';
 import { isApiError } from './api-client';
-import { getSessionToken, subscribeToSessionToken } from './session-token';
+import { isSignedIn, subscribeToSignedIn } from './signed-in';
 
 declare module '@tanstack/react-query' {
   interface Register {
@@ -48,8 +48,8 @@ export function createQueryClient() {
   });
 
   // After sign-out (or an expired session) nothing of the previous user may stay in the cache.
-  subscribeToSessionToken(() => {
-    if (getSessionToken() === null) queryClient.clear();
+  subscribeToSignedIn(() => {
+    if (!isSignedIn()) queryClient.clear();
   });
 
   return queryClient;

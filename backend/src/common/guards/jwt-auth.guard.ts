@@ -1,6 +1,7 @@
-import { Injectable, UnauthorizedException, type ExecutionContext } from '@nestjs/common';
+import { ForbiddenException, Injectable, UnauthorizedException, type ExecutionContext } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import { AuthGuard } from '@nestjs/passport';
+import { isCrossSiteChange } from '../../auth/session-cookie.js';
 import { IS_PUBLIC_KEY } from '../decorators/public.decorator.js';
 
 @Injectable()
@@ -11,7 +12,11 @@ export class JwtAuthGuard extends AuthGuard('jwt') {
 
   canActivate(context: ExecutionContext) {
     const isPublic = this.reflector.getAllAndOverride<boolean>(IS_PUBLIC_KEY, [context.getHandler(), context.getClass()]);
-    return isPublic ? true : super.canActivate(context);
+    if (isPublic) return true;
+    if (isCrossSiteChange(context.switchToHttp().getRequest())) {
+      throw new ForbiddenException('This change was not sent by the Meritline web app. Reload the page and try again.');
+    }
+    return super.canActivate(context);
   }
 
   /** Passport's bare "Unauthorized" for a missing, malformed or forged token says nothing a caller can act on. */

@@ -1,6 +1,7 @@
 import { applyDecorators } from '@nestjs/common';
 import {
   ApiBearerAuth,
+  ApiCookieAuth,
   ApiExtraModels,
   ApiOkResponse,
   ApiProduces,
@@ -8,6 +9,7 @@ import {
   getSchemaPath,
   type ApiPropertyOptions,
 } from '@nestjs/swagger';
+import { SESSION_COOKIE } from '../../auth/session-cookie.js';
 import { ApiErrorDto } from '../dto/api-error.dto.js';
 
 /** A refusal with the one error body, as JSON even on routes that answer a file. */
@@ -25,6 +27,7 @@ export const ApiThrottled = () => ApiRefusal(429, 'Too many requests; wait a min
 export function ApiSignedIn(forbidden = 'The caller’s role may not do this.') {
   return applyDecorators(
     ApiBearerAuth(),
+    ApiCookieAuth(SESSION_COOKIE),
     ApiRefusal(401, 'Not signed in, or the session has ended.'),
     ApiRefusal(403, forbidden),
     ApiThrottled(),

@@ -4,7 +4,7 @@ import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
 import { useSession } from '@/lib/auth';
 import { paths } from '@/lib/config/paths';
-import { sessionEndedByUser } from '@/lib/session-token';
+import { sessionEndedByUser } from '@/lib/signed-in';
 import { AppShell } from './app-shell';
 
 /** Layout of every signed-in page: sends signed-out visitors to sign-in and brings them back afterwards. */
@@ -13,7 +13,7 @@ export default function ProtectedLayout() {
   const location = useLocation();
   const navigation = useNavigation();
 
-  if (!session.token) {
+  if (!session.signedIn) {
     const redirectTo = sessionEndedByUser() ? undefined : location.pathname + location.search;
     return <Navigate to={paths.signIn.getHref(redirectTo)} replace />;
   }

@@ -3,7 +3,7 @@ import { Form } from '@/components/form/form';
 import { FormField } from '@/components/form/form-field';
 import { PageHeader } from '@/components/page-header';
 import { toaster } from '@/components/ui/toaster';
-import { clearSessionToken } from '@/lib/session-token';
+import { markSignedOut } from '@/lib/signed-in';
 import { PASSWORD_MIN_LENGTH } from '../api/password-rules';
 import { changePasswordSchema, useChangePassword, type ChangePasswordValues } from '../api/change-password';
 
@@ -26,7 +26,7 @@ export default function ChangePasswordPage() {
           onSubmit={async (values) => {
             await changePassword.mutateAsync(values);
             toaster.create({ type: 'success', title: 'Password changed', description: 'Sign in again with the new password.' });
-            clearSessionToken({ byUser: true });
+            markSignedOut({ byUser: true });
           }}
           submitLabel="Change password"
           resetOnSuccess

@@ -11,11 +11,11 @@ const initialValues: SignInValues = { email: '', password: '' };
 export default function SignInPage() {
   const [searchParams] = useSearchParams();
   const navigate = useNavigate();
-  const { token } = useSession();
+  const { signedIn } = useSession();
   const signIn = useSignIn();
   const redirectTo = safeRedirectTarget(searchParams.get('redirectTo'));
 
-  if (token && signIn.isIdle) return <Navigate to={paths.home.getHref()} replace />;
+  if (signedIn && signIn.isIdle) return <Navigate to={paths.home.getHref()} replace />;
 
   return (
     <AuthLayout title="Sign in" intro="Use the e-mail address your laboratory registered for you.">

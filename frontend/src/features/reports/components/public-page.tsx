@@ -4,11 +4,11 @@ import { Link } from 'react-router';
 import { BrandMark, usePageTitle } from '@/components/brand-mark';
 import { ColorModeButton } from '@/components/ui/color-mode';
 import { paths } from '@/lib/config/paths';
-import { useSessionToken } from '@/lib/session-token';
+import { useSignedIn } from '@/lib/signed-in';
 
 /** A page anyone may open without an account, e.g. from the address printed in a report. */
 export function PublicPage({ title, children }: { title: string; children: ReactNode }) {
-  const signedIn = useSessionToken() !== null;
+  const signedIn = useSignedIn();
   usePageTitle(title);
 
   return (

@@ -1,26 +1,30 @@
 import { useSyncExternalStore } from 'react';
 
-const STORAGE_KEY = 'meritline.session-token';
+// The session itself is an HttpOnly cookie that no script can read; this mark only says whether this browser signed in.
+const STORAGE_KEY = 'meritline.signed-in';
 const listeners = new Set<() => void>();
 let endedByUser = false;
+
+// Earlier versions kept the session token itself in page storage.
+localStorage.removeItem('meritline.session-token');
 
 function notify() {
   listeners.forEach((listener) => listener());
 }
 
-export function getSessionToken(): string | null {
-  return localStorage.getItem(STORAGE_KEY);
+export function isSignedIn(): boolean {
+  return localStorage.getItem(STORAGE_KEY) !== null;
 }
 
-export function setSessionToken(token: string) {
+export function markSignedIn() {
   endedByUser = false;
-  localStorage.setItem(STORAGE_KEY, token);
+  localStorage.setItem(STORAGE_KEY, '1');
   notify();
 }
 
-/** `endedByUser`: the user signed out, rather than the server refusing the token. */
-export function clearSessionToken({ byUser = false } = {}) {
-  if (getSessionToken() === null) return;
+/** `byUser`: the user signed out, rather than the server refusing the session. */
+export function markSignedOut({ byUser = false } = {}) {
+  if (!isSignedIn()) return;
   endedByUser = byUser;
   localStorage.removeItem(STORAGE_KEY);
   notify();
@@ -31,7 +35,7 @@ export function sessionEndedByUser(): boolean {
   return endedByUser;
 }
 
-export function subscribeToSessionToken(listener: () => void) {
+export function subscribeToSignedIn(listener: () => void) {
   listeners.add(listener);
   // Signing out in one tab signs out the others.
   const onStorage = (event: StorageEvent) => {
@@ -44,6 +48,6 @@ export function subscribeToSessionToken(listener: () => void) {
   };
 }
 
-export function useSessionToken(): string | null {
-  return useSyncExternalStore(subscribeToSessionToken, getSessionToken);
+export function useSignedIn(): boolean {
+  return useSyncExternalStore(subscribeToSignedIn, isSignedIn);
 }
