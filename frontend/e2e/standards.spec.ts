@@ -138,6 +138,14 @@ test('the quality manager registers a material and stores its certificate', asyn
   await dialog.getByLabel('Supplier').fill('Northfield Fine Chemicals');
   await dialog.getByLabel('Lot').fill('NF-KP-5521');
   await dialog.getByLabel('Certificate number').fill('NFC-23/0912');
+  await expect(dialog.getByLabel('The certificate states').locator('option')).toHaveText([
+    'An expanded uncertainty U with a coverage factor k',
+    'A standard uncertainty u',
+  ]);
+  await dialog.getByLabel('The certificate states').selectOption({ label: 'A standard uncertainty u' });
+  await expect(dialog.getByLabel('Standard uncertainty u (g/g)')).toBeVisible();
+  await dialog.screenshot({ path: 'test-output/screenshots/standards-register-dialog-certificate.png' });
+  await dialog.getByLabel('The certificate states').selectOption({ label: 'An expanded uncertainty U with a coverage factor k' });
   await dialog.getByLabel('Purity (mass fraction, g/g)').fill('99.95');
   await dialog.getByLabel('Expanded uncertainty U (g/g)').fill('0.0003');
   await dialog.getByLabel('Received').fill('2026-10-01');

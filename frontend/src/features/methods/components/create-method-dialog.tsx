@@ -1,11 +1,12 @@
 import type { CriteriaTemplateDto } from '@meritline/shared';
-import { Alert, Button, Input, NativeSelect, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
+import { Alert, Button, Input, SimpleGrid, Skeleton, Stack, Text } from '@chakra-ui/react';
 import { useQuery } from '@tanstack/react-query';
 import { useFormikContext } from 'formik';
 import { useId, useState } from 'react';
 import { useNavigate } from 'react-router';
 import { FormDialog } from '@/components/form-dialog';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
 import { toaster } from '@/components/ui/toaster';
 import { paths } from '@/lib/config/paths';
 import { createMethodSchema, useCreateMethod, type CreateMethodValues } from '../api/create-method';
@@ -105,21 +106,13 @@ export function CreateMethodDialog({ proposal }: { proposal: boolean }) {
       {templates.isPending ? (
         <Skeleton height="16" />
       ) : (
-        <FormField name="purpose" label="Starting acceptance criteria" required>
-          {(field) => (
-            <NativeSelect.Root>
-              <NativeSelect.Field {...field} value={String(field.value ?? '')}>
-                <option value="">Choose a set…</option>
-                {(templates.data ?? []).map((t) => (
-                  <option key={t.key} value={t.key}>
-                    {t.name}
-                  </option>
-                ))}
-              </NativeSelect.Field>
-              <NativeSelect.Indicator />
-            </NativeSelect.Root>
-          )}
-        </FormField>
+        <SelectField
+          name="purpose"
+          label="Starting acceptance criteria"
+          required
+          placeholder="Choose a set…"
+          options={(templates.data ?? []).map((t) => ({ value: t.key, label: t.name }))}
+        />
       )}
       <TemplatePreview templates={templates.data ?? []} />
       <FormField name="changeSummary" label="Note for version 1" placeholder="First version" />

@@ -1,4 +1,4 @@
-import { Box, Button, Field, Grid, HStack, IconButton, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
+import { Box, Button, Field, Grid, HStack, IconButton, Input, Stack, Text } from '@chakra-ui/react';
 import { CRITERION_OPS, figuresBySection, findFigure, type CriterionOp } from '@meritline/shared';
 import { FieldArray, getIn, useFormikContext } from 'formik';
 import { figureLabel } from '@/components/study-results';
@@ -13,6 +13,15 @@ const OP_LABELS: Record<CriterionOp, string> = {
   between: 'from … to',
   'abs<=': 'within ± (absolute value at most)',
 };
+
+const FIGURE_GROUPS = figuresBySection().map(({ section, figures }) => ({
+  label: section,
+  options: figures.map((figure) => ({ value: figure.key, label: `${figure.label}${figure.unit === 'percent' ? ' (%)' : ''}` })),
+}));
+
+/** The catalogue's figures by section, after a saved figure the catalogue no longer has. */
+const figureChoices = (chosen: string) =>
+  chosen && !findFigure(chosen) ? [{ value: chosen, label: figureLabel(chosen) }, ...FIGURE_GROUPS] : FIGURE_GROUPS;
 
 const NEW_ROW: CriterionRow = { figure: '', label: '', op: '>=', value: '', high: '' };
 
@@ -42,27 +51,13 @@ export function CriteriaEditor({ name = 'criteria' }: { name?: string }) {
                 <Grid templateColumns={{ base: 'minmax(0, 1fr)', md: 'repeat(8, minmax(0, 1fr))' }} gap="3" alignItems="start">
                   <Field.Root invalid={Boolean(errorAt(i, 'figure'))} gridColumn={{ md: 'span 8' }}>
                     <Field.Label>Figure</Field.Label>
-                    <NativeSelect.Root>
-                      <NativeSelect.Field
-                        value={row.figure}
-                        onChange={(e) => void setFieldValue(`${prefix}.figure`, e.target.value)}
-                        onBlur={() => void setFieldTouched(`${prefix}.figure`, true)}
-                      >
-                        <option value="">Choose a figure…</option>
-                        {row.figure && !findFigure(row.figure) && <option value={row.figure}>{figureLabel(row.figure)}</option>}
-                        {figuresBySection().map(({ section, figures }) => (
-                          <optgroup key={section} label={section}>
-                            {figures.map((figure) => (
-                              <option key={figure.key} value={figure.key}>
-                                {figure.label}
-                                {figure.unit === 'percent' ? ' (%)' : ''}
-                              </option>
-                            ))}
-                          </optgroup>
-                        ))}
-                      </NativeSelect.Field>
-                      <NativeSelect.Indicator />
-                    </NativeSelect.Root>
+                    <SelectControl
+                      value={row.figure}
+                      onChange={(value) => void setFieldValue(`${prefix}.figure`, value)}
+                      onBlur={() => void setFieldTouched(`${prefix}.figure`, true)}
+                      placeholder="Choose a figure…"
+                      options={figureChoices(row.figure)}
+                    />
                     {errorAt(i, 'figure') ? (
                       <Field.ErrorText>{errorAt(i, 'figure')}</Field.ErrorText>
                     ) : (

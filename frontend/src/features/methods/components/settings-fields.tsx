@@ -1,5 +1,11 @@
-import { Checkbox, NativeSelect, SimpleGrid } from '@chakra-ui/react';
+import { Checkbox, SimpleGrid } from '@chakra-ui/react';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
+
+const BETA_CHOICES = [
+  { value: '0.8', label: '80 %' },
+  { value: '0.95', label: '95 %' },
+];
 
 /** The settings of a method version that decide how its studies and routine batches are handled. */
 export function SettingsFields() {
@@ -30,25 +36,12 @@ export function SettingsFields() {
           </Checkbox.Root>
         )}
       </FormField>
-      <FormField
+      <SelectField
         name="settings.accuracyBeta"
         label="Accuracy profile: β"
         helperText="Expected proportion of results inside the tolerance limits; a study may choose its own."
-      >
-        {(field, helpers) => (
-          <NativeSelect.Root>
-            <NativeSelect.Field
-              name={field.name}
-              value={String(field.value)}
-              onChange={(e) => void helpers.setValue(Number(e.target.value))}
-            >
-              <option value="0.8">80 %</option>
-              <option value="0.95">95 %</option>
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
-        )}
-      </FormField>
+        options={BETA_CHOICES}
+      />
       <FormField
         name="settings.accuracyLambdaPct"
         label="Accuracy profile: acceptance limits (± %)"

@@ -1,4 +1,4 @@
-import { Alert, Box, Field, Heading, Link, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Alert, Box, Field, Heading, Link, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import {
   METHOD_VERSION_STATUS_LABELS,
   type VersionComparisonResponse,
@@ -12,6 +12,7 @@ import { Link as RouterLink, useSearchParams } from 'react-router';
 import { PageHeader } from '@/components/page-header';
 import { PageSpinner } from '@/components/page-spinner';
 import { QueryError } from '@/components/query-error';
+import { SelectControl, type SelectControlProps } from '@/components/select-control';
 import { paths } from '@/lib/config/paths';
 import { comparisonsQueries } from '../api/comparisons-queries';
 import { methodsQueries } from '../api/methods-queries';
@@ -46,16 +47,11 @@ function Section({ title, description, children }: { title: string; description?
   );
 }
 
-function Picker(props: { label: string; value: string; onChange: (value: string) => void; children: ReactNode }) {
+function Picker({ label, ...select }: { label: string } & Pick<SelectControlProps, 'value' | 'onChange' | 'options'>) {
   return (
     <Field.Root>
-      <Field.Label>{props.label}</Field.Label>
-      <NativeSelect.Root>
-        <NativeSelect.Field value={props.value} onChange={(e) => props.onChange(e.target.value)}>
-          {props.children}
-        </NativeSelect.Field>
-        <NativeSelect.Indicator />
-      </NativeSelect.Root>
+      <Field.Label>{label}</Field.Label>
+      <SelectControl {...select} />
     </Field.Root>
   );
 }
@@ -146,6 +142,7 @@ export default function VersionComparisonPage() {
     return <QueryError error={methods.error} title="The methods could not be loaded" onRetry={() => void methods.refetch()} />;
 
   const versions = [...(method?.versions ?? [])].sort((a, b) => b.number - a.number);
+  const versionChoices = versions.map((v) => ({ value: v.id, label: versionLabel(v) }));
   return (
     <>
       <PageHeader
@@ -156,27 +153,14 @@ export default function VersionComparisonPage() {
       <Stack gap="10">
         <Box borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p={{ base: '4', md: '6' }}>
           <SimpleGrid columns={{ base: 1, md: 3 }} gap="4" alignItems="end">
-            <Picker label="Method" value={methodId} onChange={(id) => choose({ method: id })}>
-              {methods.data.map((m) => (
-                <option key={m.id} value={m.id}>
-                  {m.name}
-                </option>
-              ))}
-            </Picker>
-            <Picker label="Earlier version" value={fromId} onChange={(id) => choose({ from: id })}>
-              {versions.map((v) => (
-                <option key={v.id} value={v.id}>
-                  {versionLabel(v)}
-                </option>
-              ))}
-            </Picker>
-            <Picker label="Later version" value={toId} onChange={(id) => choose({ to: id })}>
-              {versions.map((v) => (
-                <option key={v.id} value={v.id}>
-                  {versionLabel(v)}
-                </option>
-              ))}
-            </Picker>
+            <Picker
+              label="Method"
+              value={methodId}
+              onChange={(id) => choose({ method: id })}
+              options={methods.data.map((m) => ({ value: m.id, label: m.name }))}
+            />
+            <Picker label="Earlier version" value={fromId} onChange={(id) => choose({ from: id })} options={versionChoices} />
+            <Picker label="Later version" value={toId} onChange={(id) => choose({ to: id })} options={versionChoices} />
           </SimpleGrid>
           {method && (
             <Link asChild fontSize="sm" color="brand.fg" mt="3">

@@ -1,5 +1,6 @@
 import type { ModelChoice, RunModel } from '@meritline/shared';
-import { Field, HStack, NativeSelect, RadioCard, SimpleGrid, Stack, Switch, Text } from '@chakra-ui/react';
+import { Field, HStack, RadioCard, SimpleGrid, Stack, Switch, Text } from '@chakra-ui/react';
+import { SelectControl } from '@/components/select-control';
 import { WEIGHTING_LABELS } from '@/components/study-results';
 
 const MODELS: Record<RunModel, { title: string; cost: string }> = {
@@ -101,16 +102,11 @@ export function ModelPicker({
         <Field.Root maxW="sm">
           <Field.Label>Calibrate with the standard at</Field.Label>
           <HStack>
-            <NativeSelect.Root>
-              <NativeSelect.Field value={calibrantValue} onChange={(event) => onCalibrantChange(event.currentTarget.value)}>
-                {levels.map((level) => (
-                  <option key={level} value={String(level)}>
-                    {level} {unit}
-                  </option>
-                ))}
-              </NativeSelect.Field>
-              <NativeSelect.Indicator />
-            </NativeSelect.Root>
+            <SelectControl
+              value={calibrantValue}
+              onChange={onCalibrantChange}
+              options={levels.map((level) => ({ value: String(level), label: `${level} ${unit}` }))}
+            />
           </HStack>
           <Field.HelperText>The other standards stay in the record, marked as not used.</Field.HelperText>
         </Field.Root>

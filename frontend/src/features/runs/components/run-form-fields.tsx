@@ -15,15 +15,16 @@ import { useQuery } from '@tanstack/react-query';
 import { useFormikContext } from 'formik';
 import { useEffect, useMemo } from 'react';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
 import { buildRunInput, formFieldOf, standardLevels, type RunFormValues } from '../api/create-run';
 import { runsQueries } from '../api/runs-queries';
 import { useDebouncedValue } from '../hooks/use-debounced-value';
 import { parseBlanks, parseChecks, parseQcSamples, parseStandards, parseUnknowns } from '../utils/measurement-text';
+import { versionChoices } from '../utils/version-choices';
 import { MeasurementField } from './measurement-field';
 import { InstrumentImport } from './instrument-import';
 import { ModelPicker } from './model-picker';
 import { RunResultView } from './run-result-view';
-import { VersionSelect } from './version-filter';
 
 const PREFERRED: RunModel[] = ['linear', 'quadratic', 'two-point', 'one-point'];
 
@@ -164,17 +165,13 @@ export function RunFormFields({ methods }: { methods: readonly RunMethodChoiceDt
   return (
     <Stack gap="8">
       <SimpleGrid columns={{ base: 1, lg: 2 }} gap="6">
-        <FormField name="methodVersionId" label="Method version" required>
-          {(field) => (
-            <VersionSelect
-              methods={methods}
-              value={field.value as string}
-              onChange={(value) => void setFieldValue('methodVersionId', value)}
-              includeUnusable={false}
-              emptyLabel="Choose a validated method version"
-            />
-          )}
-        </FormField>
+        <SelectField
+          name="methodVersionId"
+          label="Method version"
+          required
+          placeholder="Choose a validated method version"
+          options={versionChoices(methods, { includeUnusable: false })}
+        />
         <FormField name="title" label="Title" required placeholder="e.g. Nitrate in drinking water, batch of 2 December" />
       </SimpleGrid>
 

@@ -12,7 +12,7 @@ import { SelectControl } from '@/components/select-control';
 import { runsQueries } from '../api/runs-queries';
 import { BaselinePicker } from '../components/baseline-picker';
 import { TrendChartPlot } from '../components/trend-chart-plot';
-import { VersionSelect } from '../components/version-filter';
+import { versionChoices } from '../utils/version-choices';
 
 const column = dataTableColumns<QcTrendSignalDto>();
 const columns = column.columns([
@@ -57,11 +57,11 @@ export default function ControlChartPage() {
         <SimpleGrid columns={{ base: 1, md: 2 }} gap="4" maxW="4xl">
           <Field.Root>
             <Field.Label>Method version</Field.Label>
-            <VersionSelect
-              methods={methods.data ?? []}
+            <SelectControl
               value={versionId}
               onChange={(value) => set({ versionId: value })}
-              emptyLabel="Choose a method version"
+              placeholder="Choose a method version"
+              options={versionChoices(methods.data ?? [])}
             />
           </Field.Root>
           <Field.Root>

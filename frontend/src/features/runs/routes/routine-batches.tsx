@@ -11,7 +11,7 @@ import { changeSearch } from '@/lib/search-params';
 import { runsQueries } from '../api/runs-queries';
 import type { RunFilters } from '../api/types';
 import { runsColumns } from '../components/runs-columns';
-import { VersionFilter } from '../components/version-filter';
+import { versionChoices } from '../utils/version-choices';
 
 const PAGE_SIZE = 20;
 const STATUS_CHOICES = [
@@ -55,13 +55,15 @@ export default function RoutineBatchesPage() {
       />
       <Stack gap="4">
         <HStack gap="4" align="flex-end" wrap="wrap">
-          <VersionFilter
-            label="Method and version"
-            methods={methods.data ?? []}
-            value={scope}
-            onChange={(value) => update({ scope: value, page: '', cursor: '' })}
-            allowMethods
-          />
+          <Field.Root maxW="md">
+            <Field.Label>Method and version</Field.Label>
+            <SelectControl
+              value={scope}
+              onChange={(value) => update({ scope: value, page: '', cursor: '' })}
+              placeholder="All methods"
+              options={versionChoices(methods.data ?? [], { allowMethods: true })}
+            />
+          </Field.Root>
           <Field.Root maxW="2xs">
             <Field.Label>Status</Field.Label>
             <SelectControl

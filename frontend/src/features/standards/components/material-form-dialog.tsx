@@ -1,8 +1,9 @@
-import { Button, Input, NativeSelect, SimpleGrid } from '@chakra-ui/react';
+import { Button, Input, SimpleGrid } from '@chakra-ui/react';
 import { CERTIFIED_VALUE_KIND_LABELS, type ReferenceMaterialDto } from '@meritline/shared';
 import { useFormikContext } from 'formik';
 import { FormDialog } from '@/components/form-dialog';
 import { FormField } from '@/components/form/form-field';
+import { SelectField } from '@/components/form/select-field';
 import { toaster } from '@/components/ui/toaster';
 import {
   emptyMaterial,
@@ -12,6 +13,12 @@ import {
   useSaveReferenceMaterial,
   type MaterialValues,
 } from '../api/save-reference-material';
+
+const VALUE_KINDS = Object.entries(CERTIFIED_VALUE_KIND_LABELS).map(([value, label]) => ({ value, label }));
+const UNCERTAINTY_FORMS = [
+  { value: 'expanded', label: 'An expanded uncertainty U with a coverage factor k' },
+  { value: 'standard', label: 'A standard uncertainty u' },
+];
 
 function DateField({ name, label, required, helperText }: { name: string; label: string; required?: boolean; helperText?: string }) {
   return (
@@ -27,20 +34,7 @@ function CertifiedValueFields() {
   return (
     <>
       <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
-        <FormField name="valueKind" label="The certificate gives" required>
-          {(field) => (
-            <NativeSelect.Root>
-              <NativeSelect.Field {...field} value={String(field.value ?? '')}>
-                {Object.entries(CERTIFIED_VALUE_KIND_LABELS).map(([key, label]) => (
-                  <option key={key} value={key}>
-                    {label}
-                  </option>
-                ))}
-              </NativeSelect.Field>
-              <NativeSelect.Indicator />
-            </NativeSelect.Root>
-          )}
-        </FormField>
+        <SelectField name="valueKind" label="The certificate gives" required options={VALUE_KINDS} />
         {purity ? (
           <FormField
             name="certifiedValue"
@@ -57,17 +51,7 @@ function CertifiedValueFields() {
           </SimpleGrid>
         )}
       </SimpleGrid>
-      <FormField name="uncertaintyForm" label="The certificate states" required>
-        {(field) => (
-          <NativeSelect.Root>
-            <NativeSelect.Field {...field} value={String(field.value ?? '')}>
-              <option value="expanded">An expanded uncertainty U with a coverage factor k</option>
-              <option value="standard">A standard uncertainty u</option>
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
-        )}
-      </FormField>
+      <SelectField name="uncertaintyForm" label="The certificate states" required options={UNCERTAINTY_FORMS} />
       {values.uncertaintyForm === 'expanded' ? (
         <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
           <FormField name="expandedUncertainty" label={`Expanded uncertainty U${purity ? ' (g/g)' : ''}`} required type="number" />

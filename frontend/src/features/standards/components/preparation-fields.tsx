@@ -1,4 +1,4 @@
-import { Box, Button, Fieldset, Heading, HStack, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Box, Button, Fieldset, Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { MASS_UNITS, MAX_DILUTION_STEPS, TOLERANCE_DISTRIBUTION_LABELS, type ReferenceMaterialDto } from '@meritline/shared';
 import { FieldArray, useFormikContext } from 'formik';
 import { FormField } from '@/components/form/form-field';
@@ -12,28 +12,16 @@ export function MaterialField({ materials }: { materials: readonly ReferenceMate
   const { values } = useFormikContext<PreparationValues>();
   const chosen = materials.find((m) => m.id === values.materialId);
   return (
-    <FormField
+    <SelectField
       name="materialId"
       label="Reference material weighed"
       required
       helperText={
         chosen ? `Certified ${certifiedValueWords(chosen)}; use until ${chosen.expiresOn}.` : 'Materials in use, certified for purity.'
       }
-    >
-      {(field) => (
-        <NativeSelect.Root>
-          <NativeSelect.Field {...field} value={String(field.value ?? '')}>
-            <option value="">Choose a material…</option>
-            {materials.map((m) => (
-              <option key={m.id} value={m.id}>
-                {m.name}, lot {m.lot}
-              </option>
-            ))}
-          </NativeSelect.Field>
-          <NativeSelect.Indicator />
-        </NativeSelect.Root>
-      )}
-    </FormField>
+      placeholder="Choose a material…"
+      options={materials.map((m) => ({ value: m.id, label: `${m.name}, lot ${m.lot}` }))}
+    />
   );
 }
 

@@ -6,13 +6,23 @@ import {
   formatNumber,
   formatPercent,
 } from '@meritline/shared';
-import { Alert, Field, Fieldset, Heading, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Alert, Field, Fieldset, Heading, Input, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { SelectControl } from '@/components/select-control';
 import { AccuracyProfilePlot, validityWords } from '@/components/study-results';
 import { accuracyDesignProblems, accuracyItems, accuracyOptionProblems, type AccuracyOptions } from '../../utils/study-sheets';
 import type { DataStepProps } from './calibration-step';
 import { FigureLine, LivePanel } from './live-panel';
 import { SheetEditor } from './sheet-editor';
 import { DataStepLayout, StepSection } from './step-layout';
+
+const BETA_CHOICES = [
+  { value: '0.8', label: '80 %' },
+  { value: '0.95', label: '95 %' },
+];
+
+/** The usual β values, and a study's other value where it has one. */
+const betaChoices = (chosen: string) =>
+  chosen === '' || BETA_CHOICES.some((c) => c.value === chosen) ? BETA_CHOICES : [...BETA_CHOICES, { value: chosen, label: chosen }];
 
 interface OptionFieldProps {
   name: keyof AccuracyOptions;
@@ -97,15 +107,12 @@ export function AccuracyStep({ controller, live, units }: DataStepProps) {
           <SimpleGrid columns={{ base: 1, md: 2 }} gap="4" mt="2">
             <Field.Root readOnly={!editable}>
               <Field.Label>β, expected proportion of results inside the tolerance limits</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field value={betaChoice} onChange={(e) => setOption('beta', e.target.value)}>
-                  <option value="">Method version’s ({formatPercent(versionBeta * 100, 3)})</option>
-                  <option value="0.8">80 %</option>
-                  <option value="0.95">95 %</option>
-                  {betaChoice !== '' && betaChoice !== '0.8' && betaChoice !== '0.95' && <option value={betaChoice}>{betaChoice}</option>}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
+              <SelectControl
+                value={betaChoice}
+                onChange={(value) => setOption('beta', value)}
+                placeholder={`Method version’s (${formatPercent(versionBeta * 100, 3)})`}
+                options={betaChoices(betaChoice)}
+              />
               <Field.HelperText>80 % is usual; 95 % is the stricter choice.</Field.HelperText>
             </Field.Root>
             <OptionField

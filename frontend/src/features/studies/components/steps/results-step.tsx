@@ -1,4 +1,4 @@
-import { Alert, Box, Button, Field, Grid, Heading, HStack, NativeSelect, Stack, Text } from '@chakra-ui/react';
+import { Alert, Box, Button, Field, Grid, Heading, HStack, Stack, Text } from '@chakra-ui/react';
 import { ENGINE_VERSION, MODELS, type CalibrationModel, type Weighting, formatNumber, formatPercent } from '@meritline/shared';
 import { DataTable, dataTableColumns, HiddenHeader } from '@/components/data-table';
 import { SelectControl } from '@/components/select-control';
@@ -18,8 +18,9 @@ import { usableRows } from '../../utils/study-sheets';
 import type { DataStepProps } from './calibration-step';
 import { useStandardExclusion } from './exclusion';
 
+const MODEL_CHOICES = MODELS.map((m) => ({ value: m, label: MODEL_LABELS[m] ?? m }));
 const WEIGHTING_CHOICES: Weighting[] = ['none', '1/x', '1/x2'];
-const CONFIDENCE_CHOICES = [0.9, 0.95, 0.99];
+const CONFIDENCE_CHOICES = [0.9, 0.95, 0.99].map((c) => ({ value: String(c), label: `${c * 100} %` }));
 const weightable = (model: CalibrationModel) => model === 'linear' || model === 'quadratic';
 
 interface StandardRow {
@@ -143,16 +144,11 @@ export function ResultsStep({ controller, live, units, criteria }: DataStepProps
       <HStack gap="4" wrap="wrap" align="flex-end" borderWidth="1px" borderColor="border" borderRadius="l3" bg="bg.panel" p="4">
         <Field.Root maxW="18rem" disabled={!editable}>
           <Field.Label>Calibration model</Field.Label>
-          <NativeSelect.Root>
-            <NativeSelect.Field value={settings.model} onChange={(e) => setSettings({ model: e.target.value as CalibrationModel })}>
-              {MODELS.map((m) => (
-                <option key={m} value={m}>
-                  {MODEL_LABELS[m] ?? m}
-                </option>
-              ))}
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
+          <SelectControl
+            value={settings.model}
+            onChange={(value) => setSettings({ model: value as CalibrationModel })}
+            options={MODEL_CHOICES}
+          />
         </Field.Root>
         <Field.Root maxW="14rem" disabled={!editable || !weightable(settings.model)}>
           <Field.Label>Weighting</Field.Label>
@@ -164,16 +160,11 @@ export function ResultsStep({ controller, live, units, criteria }: DataStepProps
         </Field.Root>
         <Field.Root maxW="12rem" disabled={!editable}>
           <Field.Label>Confidence level</Field.Label>
-          <NativeSelect.Root>
-            <NativeSelect.Field value={String(settings.confidence)} onChange={(e) => setSettings({ confidence: Number(e.target.value) })}>
-              {CONFIDENCE_CHOICES.map((c) => (
-                <option key={c} value={String(c)}>
-                  {c * 100} %
-                </option>
-              ))}
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
+          <SelectControl
+            value={String(settings.confidence)}
+            onChange={(value) => setSettings({ confidence: Number(value) })}
+            options={CONFIDENCE_CHOICES}
+          />
         </Field.Root>
         <Box flex="1" minW="16rem">
           <ServerCheck controller={controller} live={live} />
