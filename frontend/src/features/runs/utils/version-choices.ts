@@ -1,4 +1,4 @@
-import type { RunMethodChoiceDto } from '@meritline/shared';
+import { METHOD_VERSION_STATUS_LABELS, type RunMethodChoiceDto } from '@meritline/shared';
 import type { SelectOptionGroup } from '@/components/select-control';
 
 /**
@@ -17,7 +17,7 @@ export function versionChoices(
         .filter((v) => includeUnusable || v.usable)
         .map((v) => ({
           value: v.id,
-          label: `${method.name}, version ${v.number} (${v.status}${v.status === 'active' && !v.usable ? ', not validated' : ''})`,
+          label: `${method.name}, version ${v.number} (${METHOD_VERSION_STATUS_LABELS[v.status].toLowerCase()}${v.status === 'active' && !v.usable ? ', not validated' : ''})`,
         })),
     ],
   }));
