@@ -1,19 +1,13 @@
 import type { HomoscedasticityResult } from '../result.js';
 import { CANDIDATE_WEIGHTINGS, type CandidateWeighting } from '../study.js';
-import { sumAbsRePct, type CalibrationFit } from './calibration.js';
+import { sumAbsRePct as sumAbsRePctOf, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
 
-function sumAbsRe(fit: CalibrationFit): number {
-  let total = 0;
-  for (let i = 0; i < fit.rePcts.length; i++) if (!Number.isNaN(fit.rePcts[i])) total += Math.abs(fit.rePcts[i]);
-  return total;
-}
-
 function sumAbsReOrNull(fit: CalibrationFit, weighting: CandidateWeighting): number | null {
   try {
-    return sumAbsRePct(fit, weighting);
+    return sumAbsRePctOf(fit, weighting);
   } catch {
     return null;
   }
@@ -52,7 +46,7 @@ export function homoscedasticity(fit: CalibrationFit, warn: Warn): Homoscedastic
   for (const weighting of CANDIDATE_WEIGHTINGS) {
     sumAbsRePct[weighting] =
       weighting === fit.weighting
-        ? sumAbsRe(fit)
+        ? sumAbsRePctOf(fit, weighting)
         : weighting === 'none' || fit.calibration.xMin > 0
           ? sumAbsReOrNull(fit, weighting)
           : null;

@@ -66,12 +66,25 @@ interface ValueSet {
   values: ArrayLike<number>;
   /** Study-array index of each value. */
   indices: ArrayLike<number>;
+  /** Grubbs's statistic where a summary of the values already gives it. */
+  grubbs?: { G: number; position: number };
+}
+
+/**
+ * Grubbs's statistic from the values' mean, their squares about it and the offsets of their first smallest and first
+ * largest value: the value farthest from the mean is one of those two (as grubbsStatistic finds it).
+ */
+function grubbsFromSummary(values: ArrayLike<number>, centre: number, ss: number, lowest: number, highest: number) {
+  const s = values.length < 2 ? 0 : Math.sqrt(ss / (values.length - 1));
+  const [low, high] = [Math.abs(values[lowest] - centre), Math.abs(values[highest] - centre)];
+  const position = high > low || (high === low && highest < lowest) ? highest : lowest;
+  return { G: s > 0 ? Math.abs(values[position] - centre) / s : 0, position };
 }
 
 function testSet(set: ValueSet, flags: OutlierFlag[]): void {
   const n = set.values.length;
   if (n < 3) return;
-  const { G, position } = grubbsStatistic(set.values);
+  const { G, position } = set.grubbs ?? grubbsStatistic(set.values);
   const gCrit = grubbsCritical(n);
   flags.push({
     set: set.name,
@@ -97,10 +110,10 @@ function testSet(set: ValueSet, flags: OutlierFlag[]): void {
   }
 }
 
-function cochran(name: string, groups: { values: ArrayLike<number>; index: number }[], flags: OutlierFlag[]): void {
+function cochran(name: string, groups: { values: ArrayLike<number>; index: number; variance?: number }[], flags: OutlierFlag[]): void {
   const replicated = groups.filter((g) => g.values.length >= 2);
   if (replicated.length < 2) return;
-  const variances = replicated.map((g) => variance(g.values) as number);
+  const variances = replicated.map((g) => g.variance ?? (variance(g.values) as number));
   const total = variances.reduce((a, b) => a + b, 0);
   if (total === 0) return;
   let position = 0;
@@ -130,17 +143,27 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
     const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
     sets.push({ name: 'blanks', values: used.map((b) => b.value), indices: used.map((b) => b.index) });
   }
-  const levels: { x: number; values: Float64Array; indices: Float64Array }[] = [];
+  const levels: { x: number; values: Float64Array; indices: Float64Array; g: number }[] = [];
   if (fit) {
     const { keys, start } = fit.levels;
     const indicesByLevel = byGroup(fit.levels, fit.indices, fit.scratch(0));
     for (const g of sortedGroups(fit.levels)) {
       const [from, to] = [start[g], start[g + 1]];
-      levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indices: indicesByLevel.subarray(from, to) });
+      levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indices: indicesByLevel.subarray(from, to), g });
     }
   }
+  // A fit summarised by level has each level's mean, squares and extremes: the same numbers the tests would compute.
+  const summary = fit?.summary;
+  const start = fit?.levels.start;
   // testSet needs 3 values; naming a set formats its x, which costs more than testing it when levels are many.
-  for (const { x, values, indices } of levels) if (values.length >= 3) sets.push({ name: `standards x=${x}`, values, indices });
+  for (const { x, values, indices, g } of levels) {
+    if (values.length < 3) continue;
+    const grubbs =
+      summary && start
+        ? grubbsFromSummary(values, summary.mean[g], summary.ss[g], summary.lowest[g] - start[g], summary.highest[g] - start[g])
+        : undefined;
+    sets.push({ name: `standards x=${x}`, values, indices, grubbs });
+  }
   if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
   const usedPrecision: { group: string; value: number; index: number }[] = [];
   (study.precision ?? []).forEach((p, index) => {
@@ -161,7 +184,9 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
 
   cochran(
     'standard levels',
-    levels.map(({ values }, index) => ({ values, index })),
+    levels.map(({ values, g }, index) =>
+      summary && values.length >= 2 ? { values, index, variance: summary.ss[g] / (values.length - 1) } : { values, index },
+    ),
     flags,
   );
   cochran(
@@ -170,17 +195,16 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
     flags,
   );
 
-  const standardized = fit?.standardizedResiduals;
-  if (fit && standardized && standardized.length > 0) {
-    const position = fit.largestStandardized;
+  const largest = fit?.largest;
+  if (fit && largest) {
     flags.push({
       set: 'calibration residuals',
       test: 'standardizedResidual',
-      statistic: Math.abs(standardized[position]),
+      statistic: Math.abs(largest.standardized),
       critical: 3,
-      index: fit.indices[position],
-      value: fit.residuals[position],
-      outlier: Math.abs(standardized[position]) > 3,
+      index: fit.indices[largest.position],
+      value: largest.residual,
+      outlier: Math.abs(largest.standardized) > 3,
     });
   }
   if (flags.length === 0) {

@@ -162,3 +162,53 @@ export function scratchColumns(n: number): Scratch {
 export function sortedGroups(grouping: Grouping): number[] {
   return grouping.keys.map((_, g) => g).sort((a, b) => grouping.keys[a] - grouping.keys[b]);
 }
+
+/** Per group (in the grouping's order): the summary of its values that fits on levels and per-level tests read. */
+export interface GroupSummary {
+  count: Float64Array;
+  /** What mean() and sumSquaredDeviations() give for the group's values (the same arithmetic, so the same numbers). */
+  mean: Float64Array;
+  ss: Float64Array;
+  /** Offset, in the values laid out by group, of the group's first smallest and first largest value. */
+  lowest: Int32Array;
+  highest: Int32Array;
+}
+
+/** Summarises each group of `byGroupValues` (a column laid out by `byGroup`) in three passes. */
+export function summariseGroups(grouping: Grouping, byGroupValues: Float64Array): GroupSummary {
+  const k = grouping.keys.length;
+  const { start } = grouping;
+  const summary: GroupSummary = {
+    count: new Float64Array(k),
+    mean: new Float64Array(k),
+    ss: new Float64Array(k),
+    lowest: new Int32Array(k),
+    highest: new Int32Array(k),
+  };
+  for (let g = 0; g < k; g++) {
+    const from = start[g];
+    const to = start[g + 1];
+    const n = to - from;
+    let sum = 0;
+    for (let m = from; m < to; m++) sum += byGroupValues[m];
+    const first = sum / n;
+    let correction = 0;
+    for (let m = from; m < to; m++) correction += byGroupValues[m] - first;
+    const centre = first + correction / n;
+    let ss = 0;
+    let lowest = from;
+    let highest = from;
+    for (let m = from; m < to; m++) {
+      const v = byGroupValues[m];
+      ss += (v - centre) * (v - centre);
+      if (v < byGroupValues[lowest]) lowest = m;
+      if (v > byGroupValues[highest]) highest = m;
+    }
+    summary.count[g] = n;
+    summary.mean[g] = centre;
+    summary.ss[g] = ss;
+    summary.lowest[g] = lowest;
+    summary.highest[g] = highest;
+  }
+  return summary;
+}
