@@ -539,6 +539,25 @@ function sumAbsRePctCentred(xs: Float64Array, ys: Float64Array, cx: number, cy: 
   return total;
 }
 
+/**
+ * Σ|%RE| of a straight line by level: a standard's x̂ − x is (y − ŷ(x))/b, so each level adds 100 Σ|y − ŷ(x)| / |x b| (no
+ * division per standard). Where that is not finite, standard by standard.
+ */
+function sumAbsRePctByLevel(fit: CalibrationFit, centred: { cx: number; cy: number; b: number }): number {
+  const { levels, levelYs } = fit;
+  const { cx, cy, b } = centred;
+  let total = 0;
+  for (let g = 0; g < levels.keys.length; g++) {
+    const x = levels.keys[g];
+    if (x === 0) continue;
+    const fitted = cy + b * (x - cx);
+    let sum = 0;
+    for (let m = levels.start[g]; m < levels.start[g + 1]; m++) sum += Math.abs(levelYs[m] - fitted);
+    total += (100 * sum) / Math.abs(x * b);
+  }
+  return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, cx, cy, b);
+}
+
 /** Back-calculation through `inverse` one response at a time. */
 function backCalculateEach(inverse: (y: number) => number | null): Curve['backCalculate'] {
   return (ys, out) => {
@@ -794,13 +813,14 @@ export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
     excluded: fit.calibration.excluded,
   };
   if (weighting === fit.weighting) {
-    if (fit.summary && fit.centred) return sumAbsRePctCentred(used.xs, used.ys, fit.centred.cx, fit.centred.cy, fit.centred.b);
+    if (fit.summary && fit.centred) return sumAbsRePctByLevel(fit, fit.centred);
     const { rePcts } = fit.points();
     let total = 0;
     for (let i = 0; i < rePcts.length; i++) if (!Number.isNaN(rePcts[i])) total += Math.abs(rePcts[i]);
     return total;
   }
   const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch);
+  if (curve.centred && fit.summary) return sumAbsRePctByLevel(fit, curve.centred);
   if (curve.centred) return sumAbsRePctCentred(used.xs, used.ys, curve.centred.cx, curve.centred.cy, curve.centred.b);
   const xBacks = fit.scratch(SCRATCH.xBacks);
   curve.backCalculate(used.ys, xBacks);

@@ -2,7 +2,7 @@ import type { OutlierFlag } from '../result.js';
 import { blankValue, type Study } from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, studentQuantile } from './distributions.js';
-import { byGroup, groupBy, mean, sd, sortedGroups, variance } from './stats.js';
+import { groupBy, mean, sd, sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const ALPHA = 0.05;
@@ -64,8 +64,8 @@ export function dixonStatistic(values: ArrayLike<number>): { Q: number; position
 interface ValueSet {
   name: string;
   values: ArrayLike<number>;
-  /** Study-array index of each value. */
-  indices: ArrayLike<number>;
+  /** Study-array index of the value at a position. */
+  indexOf: (position: number) => number;
   /** Grubbs's statistic where a summary of the values already gives it. */
   grubbs?: { G: number; position: number };
 }
@@ -91,7 +91,7 @@ function testSet(set: ValueSet, flags: OutlierFlag[]): void {
     test: 'grubbs',
     statistic: G,
     critical: gCrit,
-    index: set.indices[position],
+    index: set.indexOf(position),
     value: set.values[position],
     outlier: G > gCrit,
   });
@@ -103,7 +103,7 @@ function testSet(set: ValueSet, flags: OutlierFlag[]): void {
       test: 'dixon',
       statistic: Q,
       critical: dCrit,
-      index: set.indices[at],
+      index: set.indexOf(at),
       value: set.values[at],
       outlier: Q > dCrit,
     });
@@ -141,43 +141,43 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
   const sets: ValueSet[] = [];
   if (study.blanks) {
     const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
-    sets.push({ name: 'blanks', values: used.map((b) => b.value), indices: used.map((b) => b.index) });
+    sets.push({ name: 'blanks', values: used.map((b) => b.value), indexOf: (position) => used[position].index });
   }
-  const levels: { x: number; values: Float64Array; indices: Float64Array; g: number }[] = [];
+  const levels: { x: number; values: Float64Array; indexOf: (position: number) => number; g: number }[] = [];
   if (fit) {
-    const { keys, start } = fit.levels;
-    const indicesByLevel = byGroup(fit.levels, fit.indices, fit.scratch(0));
+    const { keys, start, members } = fit.levels;
+    const { indices } = fit;
     for (const g of sortedGroups(fit.levels)) {
       const [from, to] = [start[g], start[g + 1]];
-      levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indices: indicesByLevel.subarray(from, to), g });
+      levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indexOf: (position) => indices[members[from + position]], g });
     }
   }
   // A fit summarised by level has each level's mean, squares and extremes: the same numbers the tests would compute.
   const summary = fit?.summary;
   const start = fit?.levels.start;
   // testSet needs 3 values; naming a set formats its x, which costs more than testing it when levels are many.
-  for (const { x, values, indices, g } of levels) {
+  for (const { x, values, indexOf, g } of levels) {
     if (values.length < 3) continue;
     const grubbs =
       summary && start
         ? grubbsFromSummary(values, summary.mean[g], summary.ss[g], summary.lowest[g] - start[g], summary.highest[g] - start[g])
         : undefined;
-    sets.push({ name: `standards x=${x}`, values, indices, grubbs });
+    sets.push({ name: `standards x=${x}`, values, indexOf, grubbs });
   }
-  if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
+  if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indexOf: (position) => position });
   const usedPrecision: { group: string; value: number; index: number }[] = [];
   (study.precision ?? []).forEach((p, index) => {
     if (!p.excluded) usedPrecision.push({ group: p.group, value: p.value, index });
   });
   const series = [...groupBy(usedPrecision, (p) => p.group).entries()];
   for (const [group, items] of series) {
-    sets.push({ name: `precision ${group}`, values: items.map((i) => i.value), indices: items.map((i) => i.index) });
+    sets.push({ name: `precision ${group}`, values: items.map((i) => i.value), indexOf: (position) => items[position].index });
   }
   if (series.length >= 3) {
     sets.push({
       name: 'precision series means',
       values: series.map(([, items]) => mean(items.map((i) => i.value))),
-      indices: series.map((_, i) => i),
+      indexOf: (position) => position,
     });
   }
   for (const set of sets) testSet(set, flags);
