@@ -19,7 +19,6 @@ import {
   linspace,
   mean,
   scratchColumns,
-  sd,
   sortedGroups,
   summariseGroups,
   sumSquaredDeviations,
@@ -411,20 +410,22 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
 /** `xBacks` holds NaN where a standard has no back-calculated x. */
 function levelSummaries(levels: Grouping, ysByLevel: Float64Array, xBacks: Float64Array, scratch: Float64Array): CalibrationLevel[] {
   const backsByLevel = byGroup(levels, xBacks, scratch);
+  // summariseGroups computes mean() and sd()'s sums of each level in place (no view per level).
+  const ys = summariseGroups(levels, ysByLevel);
+  const backs = summariseGroups(levels, backsByLevel);
+  const sdOf = (ss: number, n: number) => (n < 2 ? null : Math.sqrt(ss / (n - 1)));
   return sortedGroups(levels).map((g) => {
     const x = levels.keys[g];
     const n = levels.start[g + 1] - levels.start[g];
-    const levelYs = ysByLevel.subarray(levels.start[g], levels.start[g + 1]);
-    const backs = backsByLevel.subarray(levels.start[g], levels.start[g + 1]);
     let complete = true;
-    for (let m = 0; m < backs.length; m++) if (Number.isNaN(backs[m])) complete = false;
-    const xBackMean = complete ? mean(backs) : null;
-    const backSd = complete ? sd(backs) : null;
+    for (let m = levels.start[g]; m < levels.start[g + 1]; m++) if (Number.isNaN(backsByLevel[m])) complete = false;
+    const xBackMean = complete ? backs.mean[g] : null;
+    const backSd = complete ? sdOf(backs.ss[g], n) : null;
     return {
       x,
       n,
-      yMean: mean(levelYs),
-      ySd: sd(levelYs),
+      yMean: ys.mean[g],
+      ySd: sdOf(ys.ss[g], n),
       xBackMean,
       rePct: xBackMean === null || x === 0 ? null : (100 * (xBackMean - x)) / x,
       rsdPct: backSd === null || xBackMean === null || xBackMean === 0 ? null : (100 * backSd) / Math.abs(xBackMean),

@@ -143,14 +143,16 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
     const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
     sets.push({ name: 'blanks', values: used.map((b) => b.value), indexOf: (position) => used[position].index });
   }
-  const levels: { x: number; values: Float64Array; indexOf: (position: number) => number; g: number }[] = [];
+  // Levels by ascending x that hold two values or more, each with its rank among all levels (Cochran names a level by it).
+  const levels: { x: number; values: Float64Array; indexOf: (position: number) => number; g: number; rank: number }[] = [];
   if (fit) {
     const { keys, start, members } = fit.levels;
-    const { indices } = fit;
-    for (const g of sortedGroups(fit.levels)) {
+    const { indices, levelYs } = fit;
+    sortedGroups(fit.levels).forEach((g, rank) => {
       const [from, to] = [start[g], start[g + 1]];
-      levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indexOf: (position) => indices[members[from + position]], g });
-    }
+      if (to - from < 2) return;
+      levels.push({ x: keys[g], values: levelYs.subarray(from, to), indexOf: (position) => indices[members[from + position]], g, rank });
+    });
   }
   // A fit summarised by level has each level's mean, squares and extremes: the same numbers the tests would compute.
   const summary = fit?.summary;
@@ -184,9 +186,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
 
   cochran(
     'standard levels',
-    levels.map(({ values, g }, index) =>
-      summary && values.length >= 2 ? { values, index, variance: summary.ss[g] / (values.length - 1) } : { values, index },
-    ),
+    levels.map(({ values, g, rank }) => ({ values, index: rank, variance: summary ? summary.ss[g] / (values.length - 1) : undefined })),
     flags,
   );
   cochran(

@@ -75,7 +75,15 @@ export interface Grouping {
 const bits = new Float64Array(1);
 const bitWords = new Uint32Array(bits.buffer);
 
-/** Groups equal values (SameValueZero, as a Map would) with an open-addressing table on their bits. */
+function slotHash(key: number): number {
+  bits[0] = key;
+  return Math.imul(bitWords[0] ^ Math.imul(bitWords[1], 0x9e3779b1), 0x85ebca6b) >>> 7;
+}
+
+/**
+ * Groups equal values (SameValueZero, as a Map would) with an open-addressing table on their bits, each slot holding its
+ * key beside its group; a value equal to the one before it takes its group without a look-up.
+ */
 export function groupPositions(values: ArrayLike<number>): Grouping {
   const n = values.length;
   const keys: number[] = [];
@@ -83,36 +91,47 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
   // At most half full; a small study needs a small table (it grows as keys come, so a size only saves rehashing).
   let size = 16;
   while (size < 2 * n && size < 1024) size *= 2;
-  let slots = new Int32Array(size).fill(-1);
-  const slotOf = (key: number): number => {
-    bits[0] = key;
-    const mask = size - 1;
-    let slot = Math.imul(bitWords[0] ^ Math.imul(bitWords[1], 0x9e3779b1), 0x85ebca6b) >>> 7;
-    for (;;) {
-      slot &= mask;
-      const id = slots[slot];
-      if (id < 0) return slot;
-      const held = keys[id];
-      if (held === key || (held !== held && key !== key)) return slot;
-      slot++;
-    }
-  };
+  let mask = size - 1;
+  let slotGroups = new Int32Array(size).fill(-1);
+  let slotKeys = new Float64Array(size);
+  let previous = NaN;
+  let previousGroup = -1;
   for (let i = 0; i < n; i++) {
     const value = values[i];
     const key = value === 0 ? 0 : value;
-    const slot = slotOf(key);
-    let id = slots[slot];
-    if (id < 0) {
-      id = keys.length;
+    if (key === previous) {
+      of[i] = previousGroup;
+      continue;
+    }
+    let slot = slotHash(key) & mask;
+    let group = slotGroups[slot];
+    while (group >= 0) {
+      const held = slotKeys[slot];
+      if (held === key || (held !== held && key !== key)) break;
+      slot = (slot + 1) & mask;
+      group = slotGroups[slot];
+    }
+    if (group < 0) {
+      group = keys.length;
       keys.push(key);
-      slots[slot] = id;
+      slotGroups[slot] = group;
+      slotKeys[slot] = key;
       if (2 * keys.length > size) {
         size *= 4;
-        slots = new Int32Array(size).fill(-1);
-        for (let g = 0; g < keys.length; g++) slots[slotOf(keys[g])] = g;
+        mask = size - 1;
+        slotGroups = new Int32Array(size).fill(-1);
+        slotKeys = new Float64Array(size);
+        for (let g = 0; g < keys.length; g++) {
+          let at = slotHash(keys[g]) & mask;
+          while (slotGroups[at] >= 0) at = (at + 1) & mask;
+          slotGroups[at] = g;
+          slotKeys[at] = keys[g];
+        }
       }
     }
-    of[i] = id;
+    of[i] = group;
+    previous = key;
+    previousGroup = group;
   }
   const start = new Int32Array(keys.length + 1);
   for (let i = 0; i < n; i++) start[of[i] + 1]++;
@@ -159,9 +178,14 @@ export function scratchColumns(n: number): Scratch {
 }
 
 /** Group ids sorted by their key, ascending. */
-export function sortedGroups(grouping: Grouping): number[] {
-  return grouping.keys.map((_, g) => g).sort((a, b) => grouping.keys[a] - grouping.keys[b]);
+export function sortedGroups(grouping: Grouping): readonly number[] {
+  let sorted = sortedOnce.get(grouping);
+  if (!sorted) sortedOnce.set(grouping, (sorted = grouping.keys.map((_, g) => g).sort((a, b) => grouping.keys[a] - grouping.keys[b])));
+  return sorted;
 }
+
+/** Each grouping's order is asked for by several sections; with many levels the sort is worth keeping. */
+const sortedOnce = new WeakMap<Grouping, number[]>();
 
 /** Per group (in the grouping's order): the summary of its values that fits on levels and per-level tests read. */
 export interface GroupSummary {
