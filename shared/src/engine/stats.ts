@@ -73,16 +73,44 @@ export interface Grouping {
 }
 
 const bits = new Float64Array(1);
-const bitWords = new Uint32Array(bits.buffer);
+const bitWords = new Int32Array(bits.buffer);
 
+/** A hash of the value's bits (murmur3's mixing, so that values a tenth apart spread over the table). */
 function slotHash(key: number): number {
   bits[0] = key;
-  return Math.imul(bitWords[0] ^ Math.imul(bitWords[1], 0x9e3779b1), 0x85ebca6b) >>> 7;
+  let h = Math.imul(bitWords[0] ^ Math.imul(bitWords[1], 0x9e3779b1), 0x85ebca6b);
+  h ^= h >>> 13;
+  h = Math.imul(h, 0xc2b2ae35);
+  return h ^ (h >>> 16);
+}
+
+/** An open-addressing table: each slot holds a key and its group (−1: empty). */
+class SlotTable {
+  readonly mask: number;
+  readonly groups: Int32Array;
+  readonly keys: Float64Array;
+  constructor(size: number) {
+    this.mask = size - 1;
+    this.groups = new Int32Array(size).fill(-1);
+    this.keys = new Float64Array(size);
+  }
+}
+
+// Apart from the grouping loop, which then keeps its table in locals.
+function grownTable(table: SlotTable, keys: readonly number[]): SlotTable {
+  const grown = new SlotTable((table.mask + 1) * 4);
+  for (let g = 0; g < keys.length; g++) {
+    let at = slotHash(keys[g]) & grown.mask;
+    while (grown.groups[at] >= 0) at = (at + 1) & grown.mask;
+    grown.groups[at] = g;
+    grown.keys[at] = keys[g];
+  }
+  return grown;
 }
 
 /**
- * Groups equal values (SameValueZero, as a Map would) with an open-addressing table on their bits, each slot holding its
- * key beside its group; a value equal to the one before it takes its group without a look-up.
+ * Groups equal values (SameValueZero, as a Map would) with an open-addressing table on their bits; a value equal to the
+ * one before it takes its group without a look-up.
  */
 export function groupPositions(values: ArrayLike<number>): Grouping {
   const n = values.length;
@@ -91,9 +119,8 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
   // At most half full; a small study needs a small table (it grows as keys come, so a size only saves rehashing).
   let size = 16;
   while (size < 2 * n && size < 1024) size *= 2;
-  let mask = size - 1;
-  let slotGroups = new Int32Array(size).fill(-1);
-  let slotKeys = new Float64Array(size);
+  let table = new SlotTable(size);
+  let { mask, groups: slotGroups, keys: slotKeys } = table;
   let previous = NaN;
   let previousGroup = -1;
   for (let i = 0; i < n; i++) {
@@ -116,17 +143,9 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
       keys.push(key);
       slotGroups[slot] = group;
       slotKeys[slot] = key;
-      if (2 * keys.length > size) {
-        size *= 4;
-        mask = size - 1;
-        slotGroups = new Int32Array(size).fill(-1);
-        slotKeys = new Float64Array(size);
-        for (let g = 0; g < keys.length; g++) {
-          let at = slotHash(keys[g]) & mask;
-          while (slotGroups[at] >= 0) at = (at + 1) & mask;
-          slotGroups[at] = g;
-          slotKeys[at] = keys[g];
-        }
+      if (2 * keys.length > mask + 1) {
+        table = grownTable(table, keys);
+        ({ mask, groups: slotGroups, keys: slotKeys } = table);
       }
     }
     of[i] = group;
