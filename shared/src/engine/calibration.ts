@@ -100,8 +100,8 @@ export interface CalibrationFit {
   sds: () => Float64Array;
   /** The standards grouped by x (the standard levels), in order of first appearance. */
   levels: Grouping;
-  /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1]. */
-  levelYs: Float64Array;
+  /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1] (laid out when first read). */
+  readonly levelYs: Float64Array;
   /** The standards summarised by level when the fit is made on one row per level, else null. */
   summary: LevelSummary | null;
   /** The fit's least-squares rows (per standard: its normalised weights, all 1 without weighting). */
@@ -192,32 +192,27 @@ function pointRows(used: UsedPoints, weighting: Weighting, scratch?: Scratch): W
  * response and weighted squares about it (for 1/s², by the standards' own weights; otherwise w is the level's).
  */
 function levelRows(used: UsedPoints, summary: LevelSummary, weighting: Weighting): Weighted {
-  const { levels, levelYs } = used;
+  const { levels, ys } = used;
   const k = summary.x.length;
   const n = used.xs.length;
   const pooled = { count: n, ssWithin: 0, xCentre: summary.xCentre };
   const w = new Float64Array(k);
   if (weighting === '1/s2') {
+    // Each level's weighted mean in two passes, its weighted squares about it in a third, through `of`.
     const weighted = makeWeights(used, weighting);
-    const levelWeights = byGroup(levels, weighted.w);
+    const pointWeights = weighted.w;
+    const { of } = levels;
     const y = new Float64Array(k);
-    for (let g = 0; g < k; g++) {
-      const [from, to] = [levels.start[g], levels.start[g + 1]];
-      let sumWeights = 0;
-      let sum = 0;
-      for (let m = from; m < to; m++) {
-        sumWeights += levelWeights[m];
-        sum += levelWeights[m] * levelYs[m];
-      }
-      const first = sum / sumWeights;
-      let correction = 0;
-      for (let m = from; m < to; m++) correction += levelWeights[m] * (levelYs[m] - first);
-      const centre = first + correction / sumWeights;
-      for (let m = from; m < to; m++) pooled.ssWithin += levelWeights[m] * (levelYs[m] - centre) * (levelYs[m] - centre);
-      w[g] = sumWeights;
-      y[g] = centre;
+    for (let i = 0; i < n; i++) {
+      w[of[i]] += pointWeights[i];
+      y[of[i]] += pointWeights[i] * ys[i];
     }
-    return { rows: { x: summary.x, y, w, pooled }, weightAt: weighted.weightAt, pointWeights: () => weighted.w };
+    for (let g = 0; g < k; g++) y[g] /= w[g];
+    const corrections = new Float64Array(k);
+    for (let i = 0; i < n; i++) corrections[of[i]] += pointWeights[i] * (ys[i] - y[of[i]]);
+    for (let g = 0; g < k; g++) y[g] += corrections[g] / w[g];
+    for (let i = 0; i < n; i++) pooled.ssWithin += pointWeights[i] * (ys[i] - y[of[i]]) * (ys[i] - y[of[i]]);
+    return { rows: { x: summary.x, y, w, pooled }, weightAt: weighted.weightAt, pointWeights: () => pointWeights };
   }
   const power = weighting === '1/x' ? 1 : weighting === '1/x2' ? 2 : 0;
   const rawAt = (at: number) => (power === 0 ? 1 : at ** -power);
@@ -271,8 +266,8 @@ interface UsedPoints {
   ys: Float64Array;
   sds: () => Float64Array;
   levels: Grouping;
-  /** ys in level order (see CalibrationFit.levelYs). */
-  levelYs: Float64Array;
+  /** ys in level order (see CalibrationFit.levelYs), laid out when first read. */
+  readonly levelYs: Float64Array;
   summary: LevelSummary | null;
   excluded: ExcludedStandard[];
 }
@@ -283,10 +278,10 @@ function summarises(model: CalibrationModel, n: number, levels: number, rows: Fi
   return rows === 'levels' || (rows === 'levels-when-large' && n >= SUMMARISED_FROM && 2 * levels <= n);
 }
 
-function levelSummary(levels: Grouping, levelYs: Float64Array): LevelSummary {
-  const summary = summariseGroups(levels, levelYs);
+function levelSummary(levels: Grouping, ys: Float64Array): LevelSummary {
+  const summary = summariseGroups(levels, ys);
   const x = Float64Array.from(levels.keys);
-  const n = levelYs.length;
+  const n = ys.length;
   let sum = 0;
   for (let g = 0; g < x.length; g++) sum += summary.count[g] * x[g];
   const first = sum / n;
@@ -298,11 +293,18 @@ function levelSummary(levels: Grouping, levelYs: Float64Array): LevelSummary {
 /** The standards' columns grouped by x, summarised by level when the fit is to be made on levels. */
 function grouped(columns: Omit<UsedPoints, 'levels' | 'levelYs' | 'summary'>, options: FitOptions): UsedPoints {
   const levels = groupPositions(columns.xs);
-  const levelYs = byGroup(levels, columns.ys);
   const summary = summarises(options.model ?? 'linear', columns.xs.length, levels.keys.length, options.rows)
-    ? levelSummary(levels, levelYs)
+    ? levelSummary(levels, columns.ys)
     : null;
-  return { ...columns, levels, levelYs, summary };
+  let levelYs: Float64Array | null = null;
+  return {
+    ...columns,
+    levels,
+    get levelYs() {
+      return (levelYs ??= byGroup(levels, columns.ys));
+    },
+    summary,
+  };
 }
 
 /** Standards held by columns, none excluded (what a caller that already holds arrays passes instead of one object per standard). */
@@ -408,17 +410,17 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
 }
 
 /** `xBacks` holds NaN where a standard has no back-calculated x. */
-function levelSummaries(levels: Grouping, ysByLevel: Float64Array, xBacks: Float64Array, scratch: Float64Array): CalibrationLevel[] {
-  const backsByLevel = byGroup(levels, xBacks, scratch);
-  // summariseGroups computes mean() and sd()'s sums of each level in place (no view per level).
-  const ys = summariseGroups(levels, ysByLevel);
-  const backs = summariseGroups(levels, backsByLevel);
+function levelSummaries(levels: Grouping, ysColumn: Float64Array, xBacks: Float64Array): CalibrationLevel[] {
+  // summariseGroups computes mean() and sd()'s sums of each level (no view per level).
+  const ys = summariseGroups(levels, ysColumn);
+  const backs = summariseGroups(levels, xBacks);
+  const incomplete = new Uint8Array(levels.keys.length);
+  for (let i = 0; i < xBacks.length; i++) if (Number.isNaN(xBacks[i])) incomplete[levels.of[i]] = 1;
   const sdOf = (ss: number, n: number) => (n < 2 ? null : Math.sqrt(ss / (n - 1)));
   return sortedGroups(levels).map((g) => {
     const x = levels.keys[g];
     const n = levels.start[g + 1] - levels.start[g];
-    let complete = true;
-    for (let m = levels.start[g]; m < levels.start[g + 1]; m++) if (Number.isNaN(backsByLevel[m])) complete = false;
+    const complete = incomplete[g] === 0;
     const xBackMean = complete ? backs.mean[g] : null;
     const backSd = complete ? sdOf(backs.ss[g], n) : null;
     return {
@@ -545,17 +547,14 @@ function sumAbsRePctCentred(xs: Float64Array, ys: Float64Array, cx: number, cy: 
  * division per standard). Where that is not finite, standard by standard.
  */
 function sumAbsRePctByLevel(fit: CalibrationFit, centred: { cx: number; cy: number; b: number }): number {
-  const { levels, levelYs } = fit;
+  const { levels, ys } = fit;
+  const { of, keys } = levels;
   const { cx, cy, b } = centred;
+  const fitted = Float64Array.from(keys, (x) => cy + b * (x - cx));
+  const sums = new Float64Array(keys.length);
+  for (let i = 0; i < ys.length; i++) sums[of[i]] += Math.abs(ys[i] - fitted[of[i]]);
   let total = 0;
-  for (let g = 0; g < levels.keys.length; g++) {
-    const x = levels.keys[g];
-    if (x === 0) continue;
-    const fitted = cy + b * (x - cx);
-    let sum = 0;
-    for (let m = levels.start[g]; m < levels.start[g + 1]; m++) sum += Math.abs(levelYs[m] - fitted);
-    total += (100 * sum) / Math.abs(x * b);
-  }
+  for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g]) / Math.abs(keys[g] * b);
   return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, cx, cy, b);
 }
 
@@ -809,7 +808,9 @@ export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
     ys: fit.ys,
     sds: fit.sds,
     levels: fit.levels,
-    levelYs: fit.levelYs,
+    get levelYs() {
+      return fit.levelYs;
+    },
     summary: fit.summary,
     excluded: fit.calibration.excluded,
   };
@@ -900,16 +901,15 @@ function fromLevelExtremes(
   core: RegressionCore,
   { cx, cy, b }: { cx: number; cy: number; b: number },
 ): Pick<PointColumns, 'finite'> & { largest: LargestResidual; levels: CalibrationLevel[] } {
-  const { levels, levelYs, xs, ys } = used;
+  const { levels, xs, ys } = used;
   const finite = { rows: true, residuals: true, standardized: true };
   const standardize = (x: number, e: number) => (core.s > 0 ? (Math.sqrt(weighted.weightAt(x)) * e) / core.s : 0);
   const atZero = core.residualAt(xs[0], ys[0]);
   let largest: LargestResidual = { position: 0, standardized: standardize(xs[0], atZero), residual: atZero };
   for (let g = 0; g < summary.x.length; g++) {
     const x = summary.x[g];
-    for (const m of [summary.lowest[g], summary.highest[g]]) {
-      const position = levels.members[m];
-      const y = levelYs[m];
+    for (const position of [summary.lowest[g], summary.highest[g]]) {
+      const y = ys[position];
       const e = core.residualAt(x, y);
       const standardized = standardize(x, e);
       const xBack = cx + (y - cy) / b;
@@ -926,8 +926,7 @@ function fromLevelExtremes(
     const n = summary.count[g];
     const yMean = summary.mean[g];
     const ySd = n < 2 ? null : Math.sqrt(summary.ss[g] / (n - 1));
-    const complete =
-      Number.isFinite(cx + (levelYs[summary.lowest[g]] - cy) / b) && Number.isFinite(cx + (levelYs[summary.highest[g]] - cy) / b);
+    const complete = Number.isFinite(cx + (ys[summary.lowest[g]] - cy) / b) && Number.isFinite(cx + (ys[summary.highest[g]] - cy) / b);
     const xBackMean = complete ? cx + (yMean - cy) / b : null;
     const backSd = complete && ySd !== null ? ySd / Math.abs(b) : null;
     return {
@@ -947,7 +946,7 @@ function fromLevelExtremes(
 export function fitCalibration(standards: readonly StandardPoint[] | StandardColumns, options: FitOptions = {}): CalibrationFit {
   const fitted = fitCurve(usedPoints(standards, options), options);
   const { model, weighting, confidence, used, xMin, xMax, weighted, curve } = fitted;
-  const { indices, xs, ys, sds, levels, levelYs, excluded, summary } = used;
+  const { indices, xs, ys, sds, levels, excluded, summary } = used;
   const n = xs.length;
   const core = curve.core;
   const scratch = scratchColumns(n);
@@ -1025,7 +1024,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     set backCalculated(next) {
       backCalculatedTable.set(next);
     },
-    levels: extremes ? extremes.levels : levelSummaries(levels, levelYs, points().xBacks, scratch(0)),
+    levels: extremes ? extremes.levels : levelSummaries(levels, ys, points().xBacks),
     segments: curve.segments,
     excluded,
   };
@@ -1044,7 +1043,9 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     ys,
     sds,
     levels,
-    levelYs,
+    get levelYs() {
+      return used.levelYs;
+    },
     summary,
     rows: weighted.rows,
     scratch,

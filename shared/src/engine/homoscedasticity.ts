@@ -27,19 +27,22 @@ export function homoscedasticity(fit: CalibrationFit, warn: Warn): Homoscedastic
   const [lowest, highest] = [sorted[0], sorted[sorted.length - 1]];
   const [xLow, xHigh] = [fit.levels.keys[lowest], fit.levels.keys[highest]];
   const { start } = fit.levels;
-  const low = fit.levelYs.subarray(start[lowest], start[lowest + 1]);
-  const high = fit.levelYs.subarray(start[highest], start[highest + 1]);
-  if (low.length < 2 || high.length < 2) {
+  const [nLow, nHigh] = [start[lowest + 1] - start[lowest], start[highest + 1] - start[highest]];
+  if (nLow < 2 || nHigh < 2) {
     warn('homoscedasticity', 'too_few', 'the variance check needs at least 2 replicates at the lowest and the highest level');
     return null;
   }
-  const sLow = variance(low) ?? 0;
-  const sHigh = variance(high) ?? 0;
+  // A fit summarised by level holds each level's squares: what variance() would compute from its values.
+  const { summary } = fit;
+  const levelVariance = (g: number, n: number) =>
+    summary ? summary.ss[g] / (n - 1) : (variance(fit.levelYs.subarray(start[g], start[g + 1])) ?? 0);
+  const sLow = levelVariance(lowest, nLow);
+  const sHigh = levelVariance(highest, nHigh);
   if (sLow === 0) {
     warn('homoscedasticity', 'no_scatter', 'the replicates at the lowest level agree exactly; the variance ratio is undefined');
     return null;
   }
-  const df: [number, number] = [high.length - 1, low.length - 1];
+  const df: [number, number] = [nHigh - 1, nLow - 1];
   const F = sHigh / sLow;
   const critical = fQuantile(0.99, df[0], df[1]);
   const sumAbsRePct = {} as Record<CandidateWeighting, number | null>;

@@ -2,7 +2,7 @@ import type { OutlierFlag } from '../result.js';
 import { blankValue, type Study } from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, studentQuantile } from './distributions.js';
-import { groupBy, mean, sd, sortedGroups, variance } from './stats.js';
+import { groupBy, mean, sd, sortedGroups, variance, type GroupSummary } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const ALPHA = 0.05;
@@ -63,64 +63,79 @@ export function dixonStatistic(values: ArrayLike<number>): { Q: number; position
 
 interface ValueSet {
   name: string;
-  values: ArrayLike<number>;
+  size: number;
+  /** The values, read for Dixon's test and for Grubbs's where `grubbs` is not given. */
+  values: () => ArrayLike<number>;
   /** Study-array index of the value at a position. */
   indexOf: (position: number) => number;
-  /** Grubbs's statistic where a summary of the values already gives it. */
-  grubbs?: { G: number; position: number };
+  /** Grubbs's statistic, the value farthest from the mean and its study index, where a summary already gives them. */
+  grubbs?: { G: number; value: number; index: number };
+}
+
+function valueSet(name: string, values: ArrayLike<number>, indexOf: (position: number) => number): ValueSet {
+  return { name, size: values.length, values: () => values, indexOf };
 }
 
 /**
- * Grubbs's statistic from the values' mean, their squares about it and the offsets of their first smallest and first
- * largest value: the value farthest from the mean is one of those two (as grubbsStatistic finds it).
+ * Grubbs's statistic of a standard level from its summary: the value farthest from the mean is the level's first smallest
+ * or first largest (as grubbsStatistic finds it, the earlier of the two where both are as far).
  */
-function grubbsFromSummary(values: ArrayLike<number>, centre: number, ss: number, lowest: number, highest: number) {
-  const s = values.length < 2 ? 0 : Math.sqrt(ss / (values.length - 1));
-  const [low, high] = [Math.abs(values[lowest] - centre), Math.abs(values[highest] - centre)];
+function levelGrubbs(fit: CalibrationFit, summary: GroupSummary, g: number): ValueSet['grubbs'] {
+  const { ys, indices } = fit;
+  const [centre, n, lowest, highest] = [summary.mean[g], summary.count[g], summary.lowest[g], summary.highest[g]];
+  const s = Math.sqrt(summary.ss[g] / (n - 1));
+  const [low, high] = [Math.abs(ys[lowest] - centre), Math.abs(ys[highest] - centre)];
   const position = high > low || (high === low && highest < lowest) ? highest : lowest;
-  return { G: s > 0 ? Math.abs(values[position] - centre) / s : 0, position };
+  return { G: s > 0 ? Math.abs(ys[position] - centre) / s : 0, value: ys[position], index: indices[position] };
 }
 
 function testSet(set: ValueSet, flags: OutlierFlag[]): void {
-  const n = set.values.length;
+  const n = set.size;
   if (n < 3) return;
-  const { G, position } = set.grubbs ?? grubbsStatistic(set.values);
+  const grubbs =
+    set.grubbs ??
+    (() => {
+      const values = set.values();
+      const { G, position } = grubbsStatistic(values);
+      return { G, value: values[position], index: set.indexOf(position) };
+    })();
   const gCrit = grubbsCritical(n);
   flags.push({
     set: set.name,
     test: 'grubbs',
-    statistic: G,
+    statistic: grubbs.G,
     critical: gCrit,
-    index: set.indexOf(position),
-    value: set.values[position],
-    outlier: G > gCrit,
+    index: grubbs.index,
+    value: grubbs.value,
+    outlier: grubbs.G > gCrit,
   });
   const dCrit = DIXON_R10_95[n];
   if (dCrit !== undefined) {
-    const { Q, position: at } = dixonStatistic(set.values);
+    const values = set.values();
+    const { Q, position: at } = dixonStatistic(values);
     flags.push({
       set: set.name,
       test: 'dixon',
       statistic: Q,
       critical: dCrit,
       index: set.indexOf(at),
-      value: set.values[at],
+      value: values[at],
       outlier: Q > dCrit,
     });
   }
 }
 
-function cochran(name: string, groups: { values: ArrayLike<number>; index: number; variance?: number }[], flags: OutlierFlag[]): void {
-  const replicated = groups.filter((g) => g.values.length >= 2);
+function cochran(name: string, groups: { size: number; index: number; variance: () => number }[], flags: OutlierFlag[]): void {
+  const replicated = groups.filter((g) => g.size >= 2);
   if (replicated.length < 2) return;
-  const variances = replicated.map((g) => g.variance ?? (variance(g.values) as number));
+  const variances = replicated.map((g) => g.variance());
   const total = variances.reduce((a, b) => a + b, 0);
   if (total === 0) return;
   let position = 0;
   variances.forEach((v, i) => {
     if (v > variances[position]) position = i;
   });
-  const counts = [...groupBy(replicated, (g) => g.values.length).entries()].sort((a, b) => b[1].length - a[1].length || b[0] - a[0]);
+  const counts = [...groupBy(replicated, (g) => g.size).entries()].sort((a, b) => b[1].length - a[1].length || b[0] - a[0]);
   const nu = counts[0][0] - 1;
   const C = variances[position] / total;
   const critical = cochranCritical(replicated.length, nu);
@@ -141,57 +156,75 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
   const sets: ValueSet[] = [];
   if (study.blanks) {
     const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
-    sets.push({ name: 'blanks', values: used.map((b) => b.value), indexOf: (position) => used[position].index });
+    sets.push(
+      valueSet(
+        'blanks',
+        used.map((b) => b.value),
+        (position) => used[position].index,
+      ),
+    );
   }
   // Levels by ascending x that hold two values or more, each with its rank among all levels (Cochran names a level by it).
-  const levels: { x: number; values: Float64Array; indexOf: (position: number) => number; g: number; rank: number }[] = [];
+  // A fit summarised by level has each level's mean, squares and extremes: the numbers the tests would compute from its
+  // values, which are then laid out only for Dixon's test (levels of 3 to 10).
+  const levels: (ValueSet & { g: number; rank: number })[] = [];
+  const summary = fit?.summary;
   if (fit) {
-    const { keys, start, members } = fit.levels;
-    const { indices, levelYs } = fit;
+    const { keys, start } = fit.levels;
     sortedGroups(fit.levels).forEach((g, rank) => {
       const [from, to] = [start[g], start[g + 1]];
       if (to - from < 2) return;
-      levels.push({ x: keys[g], values: levelYs.subarray(from, to), indexOf: (position) => indices[members[from + position]], g, rank });
+      // Naming a set formats its x, which costs more than testing it when levels are many: only levels testSet tests.
+      levels.push({
+        name: to - from >= 3 ? `standards x=${keys[g]}` : '',
+        size: to - from,
+        values: () => fit.levelYs.subarray(from, to),
+        indexOf: (position) => fit.indices[fit.levels.members[from + position]],
+        grubbs: summary && to - from >= 3 ? levelGrubbs(fit, summary, g) : undefined,
+        g,
+        rank,
+      });
     });
   }
-  // A fit summarised by level has each level's mean, squares and extremes: the same numbers the tests would compute.
-  const summary = fit?.summary;
-  const start = fit?.levels.start;
-  // testSet needs 3 values; naming a set formats its x, which costs more than testing it when levels are many.
-  for (const { x, values, indexOf, g } of levels) {
-    if (values.length < 3) continue;
-    const grubbs =
-      summary && start
-        ? grubbsFromSummary(values, summary.mean[g], summary.ss[g], summary.lowest[g] - start[g], summary.highest[g] - start[g])
-        : undefined;
-    sets.push({ name: `standards x=${x}`, values, indexOf, grubbs });
-  }
-  if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indexOf: (position) => position });
+  sets.push(...levels);
+  if (recoveryPcts) sets.push(valueSet('recovery', recoveryPcts, (position) => position));
   const usedPrecision: { group: string; value: number; index: number }[] = [];
   (study.precision ?? []).forEach((p, index) => {
     if (!p.excluded) usedPrecision.push({ group: p.group, value: p.value, index });
   });
   const series = [...groupBy(usedPrecision, (p) => p.group).entries()];
   for (const [group, items] of series) {
-    sets.push({ name: `precision ${group}`, values: items.map((i) => i.value), indexOf: (position) => items[position].index });
+    sets.push(
+      valueSet(
+        `precision ${group}`,
+        items.map((i) => i.value),
+        (position) => items[position].index,
+      ),
+    );
   }
   if (series.length >= 3) {
-    sets.push({
-      name: 'precision series means',
-      values: series.map(([, items]) => mean(items.map((i) => i.value))),
-      indexOf: (position) => position,
-    });
+    sets.push(
+      valueSet(
+        'precision series means',
+        series.map(([, items]) => mean(items.map((i) => i.value))),
+        (position) => position,
+      ),
+    );
   }
   for (const set of sets) testSet(set, flags);
 
   cochran(
     'standard levels',
-    levels.map(({ values, g, rank }) => ({ values, index: rank, variance: summary ? summary.ss[g] / (values.length - 1) : undefined })),
+    levels.map(({ size, values, g, rank }) => ({
+      size,
+      index: rank,
+      variance: () => (summary ? summary.ss[g] / (size - 1) : (variance(values()) as number)),
+    })),
     flags,
   );
   cochran(
     'precision series',
-    series.map(([, items], index) => ({ values: items.map((i) => i.value), index })),
+    series.map(([, items], index) => ({ size: items.length, index, variance: () => variance(items.map((i) => i.value)) as number })),
     flags,
   );
 

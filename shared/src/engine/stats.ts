@@ -155,10 +155,23 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
   const start = new Int32Array(keys.length + 1);
   for (let i = 0; i < n; i++) start[of[i] + 1]++;
   for (let g = 0; g < keys.length; g++) start[g + 1] += start[g];
-  const next = start.slice(0, keys.length);
-  const members = new Int32Array(n);
-  for (let i = 0; i < n; i++) members[next[of[i]]++] = i;
-  return { keys, start, members, of };
+  // Laid out when first asked for: a fit summarised by level reads its columns through `of` instead.
+  let members: Int32Array | null = null;
+  return {
+    keys,
+    start,
+    get members() {
+      return (members ??= membersByGroup(start, of));
+    },
+    of,
+  };
+}
+
+function membersByGroup(start: Int32Array, of: Int32Array): Int32Array {
+  const next = start.slice(0, start.length - 1);
+  const members = new Int32Array(of.length);
+  for (let i = 0; i < of.length; i++) members[next[of[i]]++] = i;
+  return members;
 }
 
 /** The column's values in group order (group 0's members first), so each group is one contiguous run. */
@@ -212,46 +225,42 @@ export interface GroupSummary {
   /** What mean() and sumSquaredDeviations() give for the group's values (the same arithmetic, so the same numbers). */
   mean: Float64Array;
   ss: Float64Array;
-  /** Offset, in the values laid out by group, of the group's first smallest and first largest value. */
+  /** Position of the group's first smallest and first largest value. */
   lowest: Int32Array;
   highest: Int32Array;
 }
 
-/** Summarises each group of `byGroupValues` (a column laid out by `byGroup`) in three passes. */
-export function summariseGroups(grouping: Grouping, byGroupValues: Float64Array): GroupSummary {
+/**
+ * Summarises each group of a column (in position order) in three passes through `of`: each group's sums add its values
+ * in the order of their positions, as mean() and sumSquaredDeviations() would over the group's values.
+ */
+export function summariseGroups(grouping: Grouping, column: ArrayLike<number>): GroupSummary {
   const k = grouping.keys.length;
-  const { start } = grouping;
-  const summary: GroupSummary = {
-    count: new Float64Array(k),
-    mean: new Float64Array(k),
-    ss: new Float64Array(k),
-    lowest: new Int32Array(k),
-    highest: new Int32Array(k),
-  };
+  const { start, of } = grouping;
+  const n = of.length;
+  const count = new Float64Array(k);
+  const mean = new Float64Array(k);
+  const ss = new Float64Array(k);
+  const lowest = new Int32Array(k).fill(-1);
+  const highest = new Int32Array(k).fill(-1);
+  const sums = new Float64Array(k);
+  for (let i = 0; i < n; i++) sums[of[i]] += column[i];
   for (let g = 0; g < k; g++) {
-    const from = start[g];
-    const to = start[g + 1];
-    const n = to - from;
-    let sum = 0;
-    for (let m = from; m < to; m++) sum += byGroupValues[m];
-    const first = sum / n;
-    let correction = 0;
-    for (let m = from; m < to; m++) correction += byGroupValues[m] - first;
-    const centre = first + correction / n;
-    let ss = 0;
-    let lowest = from;
-    let highest = from;
-    for (let m = from; m < to; m++) {
-      const v = byGroupValues[m];
-      ss += (v - centre) * (v - centre);
-      if (v < byGroupValues[lowest]) lowest = m;
-      if (v > byGroupValues[highest]) highest = m;
-    }
-    summary.count[g] = n;
-    summary.mean[g] = centre;
-    summary.ss[g] = ss;
-    summary.lowest[g] = lowest;
-    summary.highest[g] = highest;
+    count[g] = start[g + 1] - start[g];
+    mean[g] = sums[g] / count[g];
   }
-  return summary;
+  const corrections = sums.fill(0);
+  for (let i = 0; i < n; i++) {
+    const g = of[i];
+    corrections[g] += column[i] - mean[g];
+  }
+  for (let g = 0; g < k; g++) mean[g] += corrections[g] / count[g];
+  for (let i = 0; i < n; i++) {
+    const g = of[i];
+    const v = column[i];
+    ss[g] += (v - mean[g]) * (v - mean[g]);
+    if (lowest[g] < 0 || v < column[lowest[g]]) lowest[g] = i;
+    if (highest[g] < 0 || v > column[highest[g]]) highest[g] = i;
+  }
+  return { count, mean, ss, lowest, highest };
 }
