@@ -92,8 +92,10 @@ export interface CalibrationFit {
   model: CalibrationModel;
   weighting: Weighting;
   confidence: number;
-  /** Position of each used standard in the study's `standards` array. */
-  indices: Int32Array;
+  /** Position of each used standard in the study's `standards` array (null where none is excluded: the position itself). */
+  indices: Int32Array | null;
+  /** The study index of the used standard at a position. */
+  studyIndex: (position: number) => number;
   xs: Float64Array;
   ys: Float64Array;
   /** SD of each standard (NaN where not given), read from the standards when first asked for. */
@@ -261,7 +263,7 @@ function fail(code: string, message: string, field = 'standards'): never {
 }
 
 interface UsedPoints {
-  indices: Int32Array;
+  indices: Int32Array | null;
   xs: Float64Array;
   ys: Float64Array;
   sds: () => Float64Array;
@@ -318,19 +320,18 @@ function usedColumns(columns: StandardColumns, options: FitOptions): UsedPoints 
   const xs = columns.x.slice();
   const ys = columns.y.slice();
   if (ys.length !== xs.length) fail('not_computable', 'the x and y columns of the standards differ in length');
-  const indices = new Int32Array(xs.length);
-  for (let i = 0; i < indices.length; i++) indices[i] = i;
   const given = columns.sd;
   let sds: Float64Array | null = null;
   const sdsOf = () => (sds ??= given ? given.slice() : new Float64Array(xs.length).fill(NaN));
-  return grouped({ indices, xs, ys, sds: sdsOf, excluded: [] }, options);
+  return grouped({ indices: null, xs, ys, sds: sdsOf, excluded: [] }, options);
 }
 
 /** The standards that are not excluded, read once into columns and grouped by x. */
 function usedPoints(standards: readonly StandardPoint[] | StandardColumns, options: FitOptions): UsedPoints {
   if (!Array.isArray(standards)) return usedColumns(standards as StandardColumns, options);
   const total = standards.length;
-  let indices = new Int32Array(total);
+  // Study indices are written from the first excluded standard on; until then a position is its index.
+  let indices: Int32Array | null = null;
   let xs = new Float64Array(total);
   let ys = new Float64Array(total);
   const excluded: ExcludedStandard[] = [];
@@ -338,17 +339,19 @@ function usedPoints(standards: readonly StandardPoint[] | StandardColumns, optio
   for (let index = 0; index < total; index++) {
     const s = standards[index];
     if (s.excluded) {
+      if (!indices) indices = Int32Array.from({ length: total }, (_, position) => position);
       excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
       continue;
     }
-    indices[used] = index;
+    if (indices) indices[used] = index;
     xs[used] = s.x;
     ys[used] = s.y;
     used++;
   }
-  if (used < total) [indices, xs, ys] = [indices.slice(0, used), xs.slice(0, used), ys.slice(0, used)];
+  if (indices) [indices, xs, ys] = [indices.slice(0, used), xs.slice(0, used), ys.slice(0, used)];
   let sds: Float64Array | null = null;
-  const sdsOf = () => (sds ??= Float64Array.from(indices, (index) => standards[index].sd ?? NaN));
+  const positions = indices;
+  const sdsOf = () => (sds ??= Float64Array.from({ length: used }, (_, p) => standards[positions ? positions[p] : p].sd ?? NaN));
   return grouped({ indices, xs, ys, sds: sdsOf, excluded }, options);
 }
 
@@ -978,7 +981,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
         const xBack = xBacks[i];
         const rePct = rePcts[i];
         rows.push({
-          index: indices[i],
+          index: indices ? indices[i] : i,
           x: xs[i],
           y: ys[i],
           xBack: Number.isNaN(xBack) ? null : xBack,
@@ -1039,6 +1042,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     weighting,
     confidence,
     indices,
+    studyIndex: indices ? (position) => indices[position] : (position) => position,
     xs,
     ys,
     sds,

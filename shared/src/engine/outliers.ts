@@ -81,12 +81,12 @@ function valueSet(name: string, values: ArrayLike<number>, indexOf: (position: n
  * or first largest (as grubbsStatistic finds it, the earlier of the two where both are as far).
  */
 function levelGrubbs(fit: CalibrationFit, summary: GroupSummary, g: number): ValueSet['grubbs'] {
-  const { ys, indices } = fit;
+  const { ys } = fit;
   const [centre, n, lowest, highest] = [summary.mean[g], summary.count[g], summary.lowest[g], summary.highest[g]];
   const s = Math.sqrt(summary.ss[g] / (n - 1));
   const [low, high] = [Math.abs(ys[lowest] - centre), Math.abs(ys[highest] - centre)];
   const position = high > low || (high === low && highest < lowest) ? highest : lowest;
-  return { G: s > 0 ? Math.abs(ys[position] - centre) / s : 0, value: ys[position], index: indices[position] };
+  return { G: s > 0 ? Math.abs(ys[position] - centre) / s : 0, value: ys[position], index: fit.studyIndex(position) };
 }
 
 function testSet(set: ValueSet, flags: OutlierFlag[]): void {
@@ -179,7 +179,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
         name: to - from >= 3 ? `standards x=${keys[g]}` : '',
         size: to - from,
         values: () => fit.levelYs.subarray(from, to),
-        indexOf: (position) => fit.indices[fit.levels.members[from + position]],
+        indexOf: (position) => fit.studyIndex(fit.levels.members[from + position]),
         grubbs: summary && to - from >= 3 ? levelGrubbs(fit, summary, g) : undefined,
         g,
         rank,
@@ -235,7 +235,7 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
       test: 'standardizedResidual',
       statistic: Math.abs(largest.standardized),
       critical: 3,
-      index: fit.indices[largest.position],
+      index: fit.studyIndex(largest.position),
       value: largest.residual,
       outlier: Math.abs(largest.standardized) > 3,
     });
