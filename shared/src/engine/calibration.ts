@@ -545,20 +545,29 @@ function sumAbsRePctCentred(xs: Float64Array, ys: Float64Array, cx: number, cy: 
   return total;
 }
 
+type Centred = { cx: number; cy: number; b: number };
+
 /**
- * Σ|%RE| of a straight line by level: a standard's x̂ − x is (y − ŷ(x))/b, so each level adds 100 Σ|y − ŷ(x)| / |x b| (no
- * division per standard). Where that is not finite, standard by standard.
+ * Σ|%RE| of straight lines by level, in one pass through the standards: a standard's x̂ − x is (y − ŷ(x))/b, so each level
+ * adds 100 Σ|y − ŷ(x)| / |x b| (no division per standard). Where that is not finite, standard by standard.
  */
-function sumAbsRePctByLevel(fit: CalibrationFit, centred: { cx: number; cy: number; b: number }): number {
+function sumsAbsRePctByLevel(fit: CalibrationFit, lines: readonly Centred[]): number[] {
   const { levels, ys } = fit;
   const { of, keys } = levels;
-  const { cx, cy, b } = centred;
-  const fitted = Float64Array.from(keys, (x) => cy + b * (x - cx));
-  const sums = new Float64Array(keys.length);
-  for (let i = 0; i < ys.length; i++) sums[of[i]] += Math.abs(ys[i] - fitted[of[i]]);
-  let total = 0;
-  for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g]) / Math.abs(keys[g] * b);
-  return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, cx, cy, b);
+  const count = lines.length;
+  const fitted = new Float64Array(keys.length * count);
+  for (let g = 0; g < keys.length; g++)
+    for (let j = 0; j < count; j++) fitted[g * count + j] = lines[j].cy + lines[j].b * (keys[g] - lines[j].cx);
+  const sums = new Float64Array(fitted.length);
+  for (let i = 0; i < ys.length; i++) {
+    const base = of[i] * count;
+    for (let j = 0; j < count; j++) sums[base + j] += Math.abs(ys[i] - fitted[base + j]);
+  }
+  return lines.map(({ cx, cy, b }, j) => {
+    let total = 0;
+    for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g * count + j]) / Math.abs(keys[g] * b);
+    return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, cx, cy, b);
+  });
 }
 
 /** Back-calculation through `inverse` one response at a time. */
@@ -805,7 +814,59 @@ function fitCurve(used: UsedPoints, options: FitOptions, scratch?: Scratch): Fit
  * are not built).
  */
 export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
-  const used: UsedPoints = {
+  const used = usedOf(fit);
+  if (weighting === fit.weighting) {
+    if (fit.summary && fit.centred) return sumsAbsRePctByLevel(fit, [fit.centred])[0];
+    const { rePcts } = fit.points();
+    let total = 0;
+    for (let i = 0; i < rePcts.length; i++) if (!Number.isNaN(rePcts[i])) total += Math.abs(rePcts[i]);
+    return total;
+  }
+  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch);
+  if (curve.centred && fit.summary) return sumsAbsRePctByLevel(fit, [curve.centred])[0];
+  if (curve.centred) return sumAbsRePctCentred(used.xs, used.ys, curve.centred.cx, curve.centred.cy, curve.centred.b);
+  const xBacks = fit.scratch(SCRATCH.xBacks);
+  curve.backCalculate(used.ys, xBacks);
+  let total = 0;
+  for (let i = 0; i < used.xs.length; i++) {
+    const x = used.xs[i];
+    const xBack = xBacks[i];
+    if (!Number.isNaN(xBack) && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
+  }
+  return total;
+}
+
+/**
+ * Σ|%RE| under each weighting, null where that weighting's fit fails; a fit summarised by level sums every straight
+ * line's in one pass.
+ */
+export function sumsAbsRePct(fit: CalibrationFit, weightings: readonly Weighting[]): (number | null)[] {
+  const orNull = (weighting: Weighting) => {
+    try {
+      return sumAbsRePct(fit, weighting);
+    } catch {
+      return null;
+    }
+  };
+  if (!fit.summary) return weightings.map(orNull);
+  const lines = weightings.map((weighting): { centred: Centred | null } | null => {
+    if (weighting === fit.weighting) return { centred: fit.centred };
+    try {
+      return { centred: fitCurve(usedOf(fit), { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch).curve.centred };
+    } catch {
+      return null;
+    }
+  });
+  const centred = lines.flatMap((line) => (line?.centred ? [line.centred] : []));
+  const sums = sumsAbsRePctByLevel(fit, centred);
+  return lines.map((line, j) =>
+    line === null ? null : line.centred ? (sums[centred.indexOf(line.centred)] as number) : orNull(weightings[j]),
+  );
+}
+
+/** The fit's standards as fitCurve takes them. */
+function usedOf(fit: CalibrationFit): UsedPoints {
+  return {
     indices: fit.indices,
     xs: fit.xs,
     ys: fit.ys,
@@ -817,25 +878,6 @@ export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
     summary: fit.summary,
     excluded: fit.calibration.excluded,
   };
-  if (weighting === fit.weighting) {
-    if (fit.summary && fit.centred) return sumAbsRePctByLevel(fit, fit.centred);
-    const { rePcts } = fit.points();
-    let total = 0;
-    for (let i = 0; i < rePcts.length; i++) if (!Number.isNaN(rePcts[i])) total += Math.abs(rePcts[i]);
-    return total;
-  }
-  const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch);
-  if (curve.centred && fit.summary) return sumAbsRePctByLevel(fit, curve.centred);
-  if (curve.centred) return sumAbsRePctCentred(used.xs, used.ys, curve.centred.cx, curve.centred.cy, curve.centred.b);
-  const xBacks = fit.scratch(SCRATCH.xBacks);
-  curve.backCalculate(used.ys, xBacks);
-  let total = 0;
-  for (let i = 0; i < used.xs.length; i++) {
-    const x = used.xs[i];
-    const xBack = xBacks[i];
-    if (!Number.isNaN(xBack) && x !== 0) total += Math.abs((100 * (xBack - x)) / x);
-  }
-  return total;
 }
 
 /** Back-calculated x, %RE, residuals and standardised residuals of every standard, with what the finite guard asks of them. */

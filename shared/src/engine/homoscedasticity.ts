@@ -1,17 +1,9 @@
 import type { HomoscedasticityResult } from '../result.js';
 import { CANDIDATE_WEIGHTINGS, type CandidateWeighting } from '../study.js';
-import { sumAbsRePct as sumAbsRePctOf, type CalibrationFit } from './calibration.js';
+import { sumsAbsRePct, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
-
-function sumAbsReOrNull(fit: CalibrationFit, weighting: CandidateWeighting): number | null {
-  try {
-    return sumAbsRePctOf(fit, weighting);
-  } catch {
-    return null;
-  }
-}
 
 /**
  * Variance ratio of the highest to the lowest standard level, one-sided at 99 % (common
@@ -45,14 +37,13 @@ export function homoscedasticity(fit: CalibrationFit, warn: Warn): Homoscedastic
   const df: [number, number] = [nHigh - 1, nLow - 1];
   const F = sHigh / sLow;
   const critical = fQuantile(0.99, df[0], df[1]);
+  // 1/x and 1/x² need every standard above zero.
+  const fitted = CANDIDATE_WEIGHTINGS.filter((w) => w === fit.weighting || w === 'none' || fit.calibration.xMin > 0);
+  const sums = sumsAbsRePct(fit, fitted);
   const sumAbsRePct = {} as Record<CandidateWeighting, number | null>;
   for (const weighting of CANDIDATE_WEIGHTINGS) {
-    sumAbsRePct[weighting] =
-      weighting === fit.weighting
-        ? sumAbsRePctOf(fit, weighting)
-        : weighting === 'none' || fit.calibration.xMin > 0
-          ? sumAbsReOrNull(fit, weighting)
-          : null;
+    const at = fitted.indexOf(weighting);
+    sumAbsRePct[weighting] = at < 0 ? null : sums[at];
   }
   let smallest: CandidateWeighting | null = null;
   for (const weighting of CANDIDATE_WEIGHTINGS) {

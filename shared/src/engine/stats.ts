@@ -225,7 +225,7 @@ export interface GroupSummary {
   /** What mean() and sumSquaredDeviations() give for the group's values (the same arithmetic, so the same numbers). */
   mean: Float64Array;
   ss: Float64Array;
-  /** Position of the group's first smallest and first largest value. */
+  /** Position of the group's first smallest and first largest value (−1 where every value is NaN). */
   lowest: Int32Array;
   highest: Int32Array;
 }
@@ -243,6 +243,8 @@ export function summariseGroups(grouping: Grouping, column: ArrayLike<number>): 
   const ss = new Float64Array(k);
   const lowest = new Int32Array(k).fill(-1);
   const highest = new Int32Array(k).fill(-1);
+  const low = new Float64Array(k).fill(Infinity);
+  const high = new Float64Array(k).fill(-Infinity);
   const sums = new Float64Array(k);
   for (let i = 0; i < n; i++) sums[of[i]] += column[i];
   for (let g = 0; g < k; g++) {
@@ -258,9 +260,16 @@ export function summariseGroups(grouping: Grouping, column: ArrayLike<number>): 
   for (let i = 0; i < n; i++) {
     const g = of[i];
     const v = column[i];
-    ss[g] += (v - mean[g]) * (v - mean[g]);
-    if (lowest[g] < 0 || v < column[lowest[g]]) lowest[g] = i;
-    if (highest[g] < 0 || v > column[highest[g]]) highest[g] = i;
+    const d = v - mean[g];
+    ss[g] += d * d;
+    if (v < low[g]) {
+      low[g] = v;
+      lowest[g] = i;
+    }
+    if (v > high[g]) {
+      high[g] = v;
+      highest[g] = i;
+    }
   }
   return { count, mean, ss, lowest, highest };
 }
