@@ -548,24 +548,20 @@ function sumAbsRePctCentred(xs: Float64Array, ys: Float64Array, cx: number, cy: 
 type Centred = { cx: number; cy: number; b: number };
 
 /**
- * Σ|%RE| of straight lines by level, in one pass through the standards: a standard's x̂ − x is (y − ŷ(x))/b, so each level
- * adds 100 Σ|y − ŷ(x)| / |x b| (no division per standard). Where that is not finite, standard by standard.
+ * Σ|%RE| of straight lines by level: a standard's x̂ − x is (y − ŷ(x))/b, so each level adds 100 Σ|y − ŷ(x)| / |x b| (no
+ * division per standard; one tight pass per line). Where that is not finite, standard by standard.
  */
 function sumsAbsRePctByLevel(fit: CalibrationFit, lines: readonly Centred[]): number[] {
   const { levels, ys } = fit;
   const { of, keys } = levels;
-  const count = lines.length;
-  const fitted = new Float64Array(keys.length * count);
-  for (let g = 0; g < keys.length; g++)
-    for (let j = 0; j < count; j++) fitted[g * count + j] = lines[j].cy + lines[j].b * (keys[g] - lines[j].cx);
-  const sums = new Float64Array(fitted.length);
-  for (let i = 0; i < ys.length; i++) {
-    const base = of[i] * count;
-    for (let j = 0; j < count; j++) sums[base + j] += Math.abs(ys[i] - fitted[base + j]);
-  }
-  return lines.map(({ cx, cy, b }, j) => {
+  const fitted = new Float64Array(keys.length);
+  const sums = new Float64Array(keys.length);
+  return lines.map(({ cx, cy, b }) => {
+    for (let g = 0; g < keys.length; g++) fitted[g] = cy + b * (keys[g] - cx);
+    sums.fill(0);
+    for (let i = 0; i < ys.length; i++) sums[of[i]] += Math.abs(ys[i] - fitted[of[i]]);
     let total = 0;
-    for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g * count + j]) / Math.abs(keys[g] * b);
+    for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g]) / Math.abs(keys[g] * b);
     return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, cx, cy, b);
   });
 }
@@ -836,10 +832,7 @@ export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
   return total;
 }
 
-/**
- * Σ|%RE| under each weighting, null where that weighting's fit fails; a fit summarised by level sums every straight
- * line's in one pass.
- */
+/** Σ|%RE| under each weighting, null where that weighting's fit fails. */
 export function sumsAbsRePct(fit: CalibrationFit, weightings: readonly Weighting[]): (number | null)[] {
   const orNull = (weighting: Weighting) => {
     try {
