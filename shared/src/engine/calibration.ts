@@ -552,18 +552,23 @@ type Centred = { cx: number; cy: number; b: number };
  * division per standard; one tight pass per line). Where that is not finite, standard by standard.
  */
 function sumsAbsRePctByLevel(fit: CalibrationFit, lines: readonly Centred[]): number[] {
-  const { levels, ys } = fit;
-  const { of, keys } = levels;
-  const fitted = new Float64Array(keys.length);
-  const sums = new Float64Array(keys.length);
-  return lines.map(({ cx, cy, b }) => {
-    for (let g = 0; g < keys.length; g++) fitted[g] = cy + b * (keys[g] - cx);
-    sums.fill(0);
-    for (let i = 0; i < ys.length; i++) sums[of[i]] += Math.abs(ys[i] - fitted[of[i]]);
-    let total = 0;
-    for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g]) / Math.abs(keys[g] * b);
-    return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, cx, cy, b);
+  return lines.map((line) => {
+    const total = sumAbsRePctByLevel(fit.levels, fit.ys, line);
+    return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, line.cx, line.cy, line.b);
   });
+}
+
+function sumAbsRePctByLevel({ of, keys }: Grouping, ys: Float64Array, { cx, cy, b }: Centred): number {
+  const fitted = new Float64Array(keys.length);
+  for (let g = 0; g < keys.length; g++) fitted[g] = cy + b * (keys[g] - cx);
+  const sums = new Float64Array(keys.length);
+  for (let i = 0; i < ys.length; i++) {
+    const g = of[i];
+    sums[g] += Math.abs(ys[i] - fitted[g]);
+  }
+  let total = 0;
+  for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g]) / Math.abs(keys[g] * b);
+  return total;
 }
 
 /** Back-calculation through `inverse` one response at a time. */
