@@ -628,8 +628,17 @@ function twoPointCurve(used: UsedPoints, levels: number, bracketing: boolean): C
   };
 }
 
-function regressionCurve(model: CalibrationModel, rows: FitRows, levels: number, xMin: number, xMax: number, scratch?: Scratch): Curve {
+function regressionCurve(
+  model: CalibrationModel,
+  rows: FitRows,
+  levels: number,
+  xMin: number,
+  xMax: number,
+  standardsScratch?: Scratch,
+): Curve {
   const count = rows.pooled ? rows.pooled.count : rows.x.length;
+  // Rows that stand for levels are few: their columns are fresh rather than the standards' scratch columns.
+  const scratch = rows.pooled ? undefined : standardsScratch;
   const minPoints = model === 'quadratic' ? 4 : 3;
   if (count < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${count} given)`);
   if (levels < 2) fail('all_x_equal', 'all standards have the same x');

@@ -48,7 +48,7 @@ export function throughOrigin(fit: CalibrationFit, unknowns: readonly UnknownRes
     return null;
   }
   const rows = refitRows(fit, null, 1);
-  const line = fitThroughOrigin(rows.x, rows.y, fit.scratch(0), rows.pooled && rows.w, rows.pooled);
+  const line = fitThroughOrigin(rows.x, rows.y, rows.pooled ? undefined : fit.scratch(0), rows.pooled && rows.w, rows.pooled);
   return {
     slope: line.b,
     seSlope: line.seB,

@@ -76,11 +76,11 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
   const line =
     fit.model === 'linear' && sameWeights
       ? (fit.core as RegressionCore)
-      : fitLine(rows.x, rows.y, rows.w, fit.scratch(SCRATCH.line), rows.pooled);
+      : fitLine(rows.x, rows.y, rows.w, rows.pooled ? undefined : fit.scratch(SCRATCH.line), rows.pooled);
   const quad =
     fit.model === 'quadratic' && sameWeights
       ? (fit.core as RegressionCore)
-      : fitQuadratic(rows.x, rows.y, rows.w, (slot) => fit.scratch(SCRATCH.quadratic + slot), rows.pooled);
+      : fitQuadratic(rows.x, rows.y, rows.w, rows.pooled ? undefined : (slot) => fit.scratch(SCRATCH.quadratic + slot), rows.pooled);
   if (quad.ssResidual === 0) {
     warn('mandel', 'exact_fit', "the quadratic passes exactly through the standards; Mandel's F is undefined");
     return null;
