@@ -281,7 +281,7 @@ function summarises(model: CalibrationModel, n: number, levels: number, rows: Fi
 }
 
 function levelSummary(levels: Grouping, ys: Float64Array): LevelSummary {
-  const summary = summariseGroups(levels, ys);
+  const summary = summariseGroups(levels, ys, 2);
   const x = Float64Array.from(levels.keys);
   const n = ys.length;
   let sum = 0;

@@ -232,9 +232,11 @@ export interface GroupSummary {
 
 /**
  * Summarises each group of a column (in position order) in three passes through `of`: each group's sums add its values
- * in the order of their positions, as mean() and sumSquaredDeviations() would over the group's values.
+ * in the order of their positions, as mean() and sumSquaredDeviations() would over the group's values. With `passes`
+ * 2, the squares come from the correction pass, about the first mean: Σ(v − m₁)² − c²/n with c = Σ(v − m₁) (the
+ * corrected two-pass formula, as accurate, not the same rounding).
  */
-export function summariseGroups(grouping: Grouping, column: ArrayLike<number>): GroupSummary {
+export function summariseGroups(grouping: Grouping, column: ArrayLike<number>, passes: 2 | 3 = 3): GroupSummary {
   const k = grouping.keys.length;
   const { start, of } = grouping;
   const n = of.length;
@@ -252,6 +254,28 @@ export function summariseGroups(grouping: Grouping, column: ArrayLike<number>): 
     mean[g] = sums[g] / count[g];
   }
   const corrections = sums.fill(0);
+  if (passes === 2) {
+    for (let i = 0; i < n; i++) {
+      const g = of[i];
+      const v = column[i];
+      const d = v - mean[g];
+      corrections[g] += d;
+      ss[g] += d * d;
+      if (v < low[g]) {
+        low[g] = v;
+        lowest[g] = i;
+      }
+      if (v > high[g]) {
+        high[g] = v;
+        highest[g] = i;
+      }
+    }
+    for (let g = 0; g < k; g++) {
+      ss[g] = Math.max(0, ss[g] - (corrections[g] * corrections[g]) / count[g]);
+      mean[g] += corrections[g] / count[g];
+    }
+    return { count, mean, ss, lowest, highest };
+  }
   for (let i = 0; i < n; i++) {
     const g = of[i];
     corrections[g] += column[i] - mean[g];
