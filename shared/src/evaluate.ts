@@ -1,4 +1,4 @@
-import { fitCalibration, type CalibrationFit, type StandardColumns } from './engine/calibration.js';
+import { fitCalibration, type CalibrationFit, type FitRowsChoice, type StandardColumns } from './engine/calibration.js';
 import { verdict, workingRange } from './engine/criteria.js';
 import { detection, flagLimits } from './engine/detection.js';
 import { homoscedasticity } from './engine/homoscedasticity.js';
@@ -90,9 +90,14 @@ export function evaluateStudy(input: unknown): EvaluationResult {
 
 /**
  * Every section of the evaluation of a study `parseStudy` has accepted (the benchmark calls it beyond the list bound,
- * and may pass the standards by columns instead of the study's objects).
+ * and may pass the standards by columns instead of the study's objects). `rows` chooses the fits' rows (a test compares
+ * the per-standard and the per-level arithmetic on the same large study).
  */
-export function evaluateParsedStudy(study: Study, standards: Study['standards'] | StandardColumns = study.standards): EvaluationResult {
+export function evaluateParsedStudy(
+  study: Study,
+  standards: Study['standards'] | StandardColumns = study.standards,
+  rows: FitRowsChoice = 'levels-when-large',
+): EvaluationResult {
   const { warnings, warn } = collectWarnings();
   const criteria = study.criteria ?? [];
   const fit = standards
@@ -101,6 +106,7 @@ export function evaluateParsedStudy(study: Study, standards: Study['standards'] 
         weighting: study.weighting,
         confidence: study.confidence,
         twoPoint: study.twoPoint,
+        rows,
       })
     : null;
   if (!fit) warn('calibration', 'no_inputs', 'no standards in the study: no calibration');

@@ -17,6 +17,8 @@ import type { StandardPoint, Study } from '../study.js';
 import { parseStudy } from '../validate.js';
 
 const SIZES = [1_000, 10_000, 100_000, 1_000_000];
+/** Every x distinct: each level holds one standard, so the evaluation keeps its per-standard fits. */
+const DISTINCT_SIZE = 100_000;
 const RUNS = 5;
 /**
  * Before the warm-up at the measured size, evaluations of a 2,000-standard study, as a server has made before a large one:
@@ -40,12 +42,12 @@ interface Measured {
   figures: Record<string, number | null>;
 }
 
-/** The same standards as the Python side: 1,000 levels, replicated from 2,000 standards on. */
-function standardColumns(n: number): StandardColumns {
+/** The same standards as the Python side: 1,000 levels, replicated from 2,000 standards on (or every x distinct). */
+function standardColumns(n: number, distinct = false): StandardColumns {
   const x = new Float64Array(n);
   const y = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    x[i] = 1 + (i % 1000) / 10;
+    x[i] = distinct ? 1 + i / 10 : 1 + (i % 1000) / 10;
     y[i] = 0.5 + 2 * x[i] + 0.01 * Math.sin(i);
   }
   return { x, y };
@@ -57,19 +59,20 @@ function standards(n: number): StandardPoint[] {
 }
 
 /**
- * Child mode: `side-by-side.js engine|columns|calibration N RUNS` prints one JSON line like the Python script.
+ * Child mode: `side-by-side.js engine|columns|distinct|calibration N RUNS` prints one JSON line like the Python script.
  * `engine` evaluates the study with one object per standard (as parsed from a request); `columns` the same study
- * with its standards passed as two Float64Arrays, as the Python side holds them.
+ * with its standards passed as two Float64Arrays, as the Python side holds them; `distinct` by columns with every x
+ * distinct (no level holds two standards, so the fits stay per standard).
  */
 function child(what: string, n: number, runs: number): void {
   const parsed = parseStudy({ standards: standards(3) });
-  const byColumns = what === 'columns';
-  const columns = byColumns ? standardColumns(n) : null;
+  const byColumns = what === 'columns' || what === 'distinct';
+  const columns = byColumns ? standardColumns(n, what === 'distinct') : null;
   const study = byColumns ? parsed : { ...parsed, standards: standards(n) };
   const { warn } = collectWarnings();
   const runner = (study: Study, columns: StandardColumns | null) => {
     const calibrationOnly = () => {
-      const fit = fitCalibration(study.standards ?? []);
+      const fit = fitCalibration(study.standards ?? [], { rows: 'levels-when-large' });
       return { fit, lackOfFit: lackOfFit(fit, warn), detection: detection(fit, undefined, undefined, study.alpha, [], warn) };
     };
     const evaluateStudy = () => (columns ? evaluateParsedStudy(study, columns) : evaluateParsedStudy(study));
@@ -193,6 +196,11 @@ function main(): void {
         `${mb(engine.serialisedMaxRssKb ?? NaN)} / ${mb(columns.serialisedMaxRssKb ?? NaN)}`,
     );
   }
+  const distinct = measure(process.execPath, [...node, 'distinct', String(DISTINCT_SIZE), String(RUNS)]);
+  console.log(
+    `every x distinct, ${DISTINCT_SIZE.toLocaleString('en')} standards from columns: ${ms(median(distinct.times))} (${ms(median(distinct.cpu))}), ` +
+      `peak RSS ${mb(distinct.maxRssKb)}`,
+  );
 }
 
 const [mode, size, runs] = process.argv.slice(2);

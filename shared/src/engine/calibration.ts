@@ -8,10 +8,10 @@ import type {
   ExcludedStandard,
   Interval,
 } from '../result.js';
-import type { CalibrationModel, StandardPoint, Weighting } from '../study.js';
+import { STUDY_LIMITS, type CalibrationModel, type StandardPoint, type Weighting } from '../study.js';
 import { fUpper, studentQuantile } from './distributions.js';
 import { fitQuadratic, type QuadraticCore } from './quadratic.js';
-import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
+import { fitLine, fitThroughOrigin, type Pooled, type RegressionCore } from './regression.js';
 import { LazyTable, registerLazyTables } from './lazy-table.js';
 import {
   byGroup,
@@ -19,18 +19,65 @@ import {
   linspace,
   mean,
   scratchColumns,
-  sd,
   sortedGroups,
+  summariseGroups,
   sumSquaredDeviations,
+  type GroupSummary,
   type Grouping,
   type Scratch,
 } from './stats.js';
+
+/** Studies the API accepts hold at most STUDY_LIMITS.rows standards: they all keep the per-standard arithmetic. */
+export const SUMMARISED_FROM = STUDY_LIMITS.rows + 1;
+
+export type FitRowsChoice = 'standards' | 'levels' | 'levels-when-large';
 
 export interface FitOptions {
   model?: CalibrationModel;
   weighting?: Weighting;
   confidence?: number;
   twoPoint?: { bracketing: boolean };
+  /**
+   * The regression models' least-squares rows: one per standard (the default), one per standard level (the same figures
+   * to rounding, in a fraction of the time), or per level from SUMMARISED_FROM standards on where levels hold two
+   * standards each on average (what the evaluation asks for).
+   */
+  rows?: FitRowsChoice;
+}
+
+/**
+ * Least-squares rows: the standards themselves, or (with `pooled`) one row per standard level: its x, the weighted mean of
+ * its responses and the sum of its weights.
+ */
+export interface FitRows {
+  x: Float64Array;
+  y: Float64Array;
+  w: Float64Array;
+  pooled: Pooled | null;
+}
+
+/** The standards summarised by level (level g in the grouping's order), for fits on one row per level. */
+export interface LevelSummary extends GroupSummary {
+  x: Float64Array;
+  /** Plain mean of every standard's x. */
+  xCentre: number;
+}
+
+/** The per-standard columns: back-calculated x and %RE (NaN where null), residuals, standardised residuals (null without regression statistics). */
+interface PointColumns {
+  xBacks: Float64Array;
+  rePcts: Float64Array;
+  residuals: Float64Array;
+  standardized: Float64Array | null;
+  largest: LargestResidual | null;
+  finite: { rows: boolean; residuals: boolean; standardized: boolean };
+}
+
+/** The first standard whose standardised residual has the largest magnitude. */
+export interface LargestResidual {
+  position: number;
+  standardized: number;
+  residual: number;
 }
 
 /** A standard used by the fit (the caller's own object; never copied). */
@@ -45,27 +92,30 @@ export interface CalibrationFit {
   model: CalibrationModel;
   weighting: Weighting;
   confidence: number;
-  /** Position of each used standard in the study's `standards` array. */
-  indices: Int32Array;
+  /** Position of each used standard in the study's `standards` array (null where none is excluded: the position itself). */
+  indices: Int32Array | null;
+  /** The study index of the used standard at a position. */
+  studyIndex: (position: number) => number;
   xs: Float64Array;
   ys: Float64Array;
   /** SD of each standard (NaN where not given), read from the standards when first asked for. */
   sds: () => Float64Array;
   /** The standards grouped by x (the standard levels), in order of first appearance. */
   levels: Grouping;
-  /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1]. */
-  levelYs: Float64Array;
-  /** The fit's normalised weights (all 1 without weighting). */
-  weights: Float64Array;
+  /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1] (laid out when first read). */
+  readonly levelYs: Float64Array;
+  /** The standards summarised by level when the fit is made on one row per level, else null. */
+  summary: LevelSummary | null;
+  /** The fit's least-squares rows (per standard: its normalised weights, all 1 without weighting). */
+  rows: FitRows;
   /** Columns of n numbers for the sections' own scratch work (nothing kept in them outlives the section that writes them). */
   scratch: Scratch;
-  /** Residuals, standardised residuals (null without regression statistics) and back-calculated x and %RE (NaN where null). */
-  residuals: Float64Array;
-  standardizedResiduals: Float64Array | null;
-  /** Position of the first standardised residual of largest magnitude (0 without them). */
-  largestStandardized: number;
-  xBacks: Float64Array;
-  rePcts: Float64Array;
+  /** The per-standard columns (made on first call when the fit is summarised by level). */
+  points: () => PointColumns;
+  /** Null without regression statistics. */
+  largest: LargestResidual | null;
+  /** For a straight line fitted on centred sums: x = cx + (y − cy)/b. */
+  centred: { cx: number; cy: number; b: number } | null;
   calibration: CalibrationResult;
   /** Regression core (null for one- and two-point calibrations). */
   core: RegressionCore | null;
@@ -126,6 +176,84 @@ function makeWeights(
   return { w, weightAt: (at: number) => rawAt(at) / scale };
 }
 
+interface Weighted {
+  rows: FitRows;
+  weightAt: (at: number) => number;
+  /** The normalised weight of each standard. */
+  pointWeights: () => Float64Array;
+}
+
+/** The fit's rows: the standards with their normalised weights. */
+function pointRows(used: UsedPoints, weighting: Weighting, scratch?: Scratch): Weighted {
+  const { w, weightAt } = makeWeights(used, weighting, scratch?.(SCRATCH.weights));
+  return { rows: { x: used.xs, y: used.ys, w, pooled: null }, weightAt, pointWeights: () => w };
+}
+
+/**
+ * The fit's rows on levels: the same normalised weights as pointRows, summed per level, and each level's weighted mean
+ * response and weighted squares about it (for 1/s², by the standards' own weights; otherwise w is the level's).
+ */
+function levelRows(used: UsedPoints, summary: LevelSummary, weighting: Weighting): Weighted {
+  const { levels, ys } = used;
+  const k = summary.x.length;
+  const n = used.xs.length;
+  const pooled = { count: n, ssWithin: 0, xCentre: summary.xCentre };
+  const w = new Float64Array(k);
+  if (weighting === '1/s2') {
+    // Each level's weighted mean in two passes, its weighted squares about it in a third, through `of`.
+    const weighted = makeWeights(used, weighting);
+    const pointWeights = weighted.w;
+    const { of } = levels;
+    const y = new Float64Array(k);
+    for (let i = 0; i < n; i++) {
+      w[of[i]] += pointWeights[i];
+      y[of[i]] += pointWeights[i] * ys[i];
+    }
+    for (let g = 0; g < k; g++) y[g] /= w[g];
+    const corrections = new Float64Array(k);
+    for (let i = 0; i < n; i++) corrections[of[i]] += pointWeights[i] * (ys[i] - y[of[i]]);
+    for (let g = 0; g < k; g++) y[g] += corrections[g] / w[g];
+    for (let i = 0; i < n; i++) pooled.ssWithin += pointWeights[i] * (ys[i] - y[of[i]]) * (ys[i] - y[of[i]]);
+    return { rows: { x: summary.x, y, w, pooled }, weightAt: weighted.weightAt, pointWeights: () => pointWeights };
+  }
+  const power = weighting === '1/x' ? 1 : weighting === '1/x2' ? 2 : 0;
+  const rawAt = (at: number) => (power === 0 ? 1 : at ** -power);
+  const raw = summary.x.map(rawAt);
+  let total = 0;
+  for (let g = 0; g < k; g++) total += summary.count[g] * raw[g];
+  const scale = total / n;
+  const levelWeight = raw.map((r) => r / scale);
+  for (let g = 0; g < k; g++) {
+    w[g] = summary.count[g] * levelWeight[g];
+    pooled.ssWithin += levelWeight[g] * summary.ss[g];
+  }
+  const weightAt = power === 0 ? () => 1 : (at: number) => rawAt(at) / scale;
+  const pointWeights = () => Float64Array.from(levels.of, (g) => levelWeight[g]);
+  return { rows: { x: summary.x, y: summary.mean, w, pooled }, weightAt, pointWeights };
+}
+
+/**
+ * Rows for a refit of the fit's standards with weight w(x) (1 where null): the standards (weights written into `slot` of
+ * the scratch columns, or a fresh column), or one row per level when the fit is summarised.
+ */
+export function refitRows(fit: CalibrationFit, weightAt: ((x: number) => number) | null, slot?: number): FitRows {
+  const { levels, summary } = fit;
+  const levelWeights = levels.keys.map((x) => (weightAt ? weightAt(x) : 1));
+  if (summary) {
+    const w = new Float64Array(levelWeights.length);
+    const pooled = { count: fit.xs.length, ssWithin: 0, xCentre: summary.xCentre };
+    for (let g = 0; g < w.length; g++) {
+      w[g] = summary.count[g] * levelWeights[g];
+      pooled.ssWithin += levelWeights[g] * summary.ss[g];
+    }
+    return { x: summary.x, y: summary.mean, w, pooled };
+  }
+  const n = fit.xs.length;
+  const w = slot === undefined ? new Float64Array(n) : fit.scratch(slot);
+  for (let i = 0; i < n; i++) w[i] = levelWeights[levels.of[i]];
+  return { x: fit.xs, y: fit.ys, w, pooled: null };
+}
+
 function interval(centre: number, halfWidth: number): Interval {
   return [centre - halfWidth, centre + halfWidth];
 }
@@ -135,12 +263,50 @@ function fail(code: string, message: string, field = 'standards'): never {
 }
 
 interface UsedPoints {
-  indices: Int32Array;
+  indices: Int32Array | null;
   xs: Float64Array;
   ys: Float64Array;
   sds: () => Float64Array;
   levels: Grouping;
+  /** ys in level order (see CalibrationFit.levelYs), laid out when first read. */
+  readonly levelYs: Float64Array;
+  summary: LevelSummary | null;
   excluded: ExcludedStandard[];
+}
+
+function summarises(model: CalibrationModel, n: number, levels: number, rows: FitRowsChoice = 'standards'): boolean {
+  if (model !== 'linear' && model !== 'linear-through-origin' && model !== 'quadratic') return false;
+  // Levels of one standard each gain nothing from a summary.
+  return rows === 'levels' || (rows === 'levels-when-large' && n >= SUMMARISED_FROM && 2 * levels <= n);
+}
+
+function levelSummary(levels: Grouping, ys: Float64Array): LevelSummary {
+  const summary = summariseGroups(levels, ys, 2);
+  const x = Float64Array.from(levels.keys);
+  const n = ys.length;
+  let sum = 0;
+  for (let g = 0; g < x.length; g++) sum += summary.count[g] * x[g];
+  const first = sum / n;
+  let correction = 0;
+  for (let g = 0; g < x.length; g++) correction += summary.count[g] * (x[g] - first);
+  return { ...summary, x, xCentre: first + correction / n };
+}
+
+/** The standards' columns grouped by x, summarised by level when the fit is to be made on levels. */
+function grouped(columns: Omit<UsedPoints, 'levels' | 'levelYs' | 'summary'>, options: FitOptions): UsedPoints {
+  const levels = groupPositions(columns.xs);
+  const summary = summarises(options.model ?? 'linear', columns.xs.length, levels.keys.length, options.rows)
+    ? levelSummary(levels, columns.ys)
+    : null;
+  let levelYs: Float64Array | null = null;
+  return {
+    ...columns,
+    levels,
+    get levelYs() {
+      return (levelYs ??= byGroup(levels, columns.ys));
+    },
+    summary,
+  };
 }
 
 /** Standards held by columns, none excluded (what a caller that already holds arrays passes instead of one object per standard). */
@@ -150,23 +316,22 @@ export interface StandardColumns {
   sd?: Float64Array;
 }
 
-function usedColumns(columns: StandardColumns): UsedPoints {
+function usedColumns(columns: StandardColumns, options: FitOptions): UsedPoints {
   const xs = columns.x.slice();
   const ys = columns.y.slice();
   if (ys.length !== xs.length) fail('not_computable', 'the x and y columns of the standards differ in length');
-  const indices = new Int32Array(xs.length);
-  for (let i = 0; i < indices.length; i++) indices[i] = i;
   const given = columns.sd;
   let sds: Float64Array | null = null;
   const sdsOf = () => (sds ??= given ? given.slice() : new Float64Array(xs.length).fill(NaN));
-  return { indices, xs, ys, sds: sdsOf, levels: groupPositions(xs), excluded: [] };
+  return grouped({ indices: null, xs, ys, sds: sdsOf, excluded: [] }, options);
 }
 
 /** The standards that are not excluded, read once into columns and grouped by x. */
-function usedPoints(standards: readonly StandardPoint[] | StandardColumns): UsedPoints {
-  if (!Array.isArray(standards)) return usedColumns(standards as StandardColumns);
+function usedPoints(standards: readonly StandardPoint[] | StandardColumns, options: FitOptions): UsedPoints {
+  if (!Array.isArray(standards)) return usedColumns(standards as StandardColumns, options);
   const total = standards.length;
-  let indices = new Int32Array(total);
+  // Study indices are written from the first excluded standard on; until then a position is its index.
+  let indices: Int32Array | null = null;
   let xs = new Float64Array(total);
   let ys = new Float64Array(total);
   const excluded: ExcludedStandard[] = [];
@@ -174,18 +339,20 @@ function usedPoints(standards: readonly StandardPoint[] | StandardColumns): Used
   for (let index = 0; index < total; index++) {
     const s = standards[index];
     if (s.excluded) {
+      if (!indices) indices = Int32Array.from({ length: total }, (_, position) => position);
       excluded.push({ index, x: s.x, y: s.y, reason: s.excluded.reason });
       continue;
     }
-    indices[used] = index;
+    if (indices) indices[used] = index;
     xs[used] = s.x;
     ys[used] = s.y;
     used++;
   }
-  if (used < total) [indices, xs, ys] = [indices.slice(0, used), xs.slice(0, used), ys.slice(0, used)];
+  if (indices) [indices, xs, ys] = [indices.slice(0, used), xs.slice(0, used), ys.slice(0, used)];
   let sds: Float64Array | null = null;
-  const sdsOf = () => (sds ??= Float64Array.from(indices, (index) => standards[index].sd ?? NaN));
-  return { indices, xs, ys, sds: sdsOf, levels: groupPositions(xs), excluded };
+  const positions = indices;
+  const sdsOf = () => (sds ??= Float64Array.from({ length: used }, (_, p) => standards[positions ? positions[p] : p].sd ?? NaN));
+  return grouped({ indices, xs, ys, sds: sdsOf, excluded }, options);
 }
 
 /** Real root of c2 z² + c1 z + c0 = 0 on the branch that covers [zLo, zHi]. */
@@ -246,22 +413,24 @@ function pickSegment(segments: BracketSegment[], y: number): BracketSegment {
 }
 
 /** `xBacks` holds NaN where a standard has no back-calculated x. */
-function levelSummaries(levels: Grouping, ysByLevel: Float64Array, xBacks: Float64Array, scratch: Float64Array): CalibrationLevel[] {
-  const backsByLevel = byGroup(levels, xBacks, scratch);
+function levelSummaries(levels: Grouping, ysColumn: Float64Array, xBacks: Float64Array): CalibrationLevel[] {
+  // summariseGroups computes mean() and sd()'s sums of each level (no view per level).
+  const ys = summariseGroups(levels, ysColumn);
+  const backs = summariseGroups(levels, xBacks);
+  const incomplete = new Uint8Array(levels.keys.length);
+  for (let i = 0; i < xBacks.length; i++) if (Number.isNaN(xBacks[i])) incomplete[levels.of[i]] = 1;
+  const sdOf = (ss: number, n: number) => (n < 2 ? null : Math.sqrt(ss / (n - 1)));
   return sortedGroups(levels).map((g) => {
     const x = levels.keys[g];
     const n = levels.start[g + 1] - levels.start[g];
-    const levelYs = ysByLevel.subarray(levels.start[g], levels.start[g + 1]);
-    const backs = backsByLevel.subarray(levels.start[g], levels.start[g + 1]);
-    let complete = true;
-    for (let m = 0; m < backs.length; m++) if (Number.isNaN(backs[m])) complete = false;
-    const xBackMean = complete ? mean(backs) : null;
-    const backSd = complete ? sd(backs) : null;
+    const complete = incomplete[g] === 0;
+    const xBackMean = complete ? backs.mean[g] : null;
+    const backSd = complete ? sdOf(backs.ss[g], n) : null;
     return {
       x,
       n,
-      yMean: mean(levelYs),
-      ySd: sd(levelYs),
+      yMean: ys.mean[g],
+      ySd: sdOf(ys.ss[g], n),
       xBackMean,
       rePct: xBackMean === null || x === 0 ? null : (100 * (xBackMean - x)) / x,
       rsdPct: backSd === null || xBackMean === null || xBackMean === 0 ? null : (100 * backSd) / Math.abs(xBackMean),
@@ -376,6 +545,32 @@ function sumAbsRePctCentred(xs: Float64Array, ys: Float64Array, cx: number, cy: 
   return total;
 }
 
+type Centred = { cx: number; cy: number; b: number };
+
+/**
+ * Σ|%RE| of straight lines by level: a standard's x̂ − x is (y − ŷ(x))/b, so each level adds 100 Σ|y − ŷ(x)| / |x b| (no
+ * division per standard; one tight pass per line). Where that is not finite, standard by standard.
+ */
+function sumsAbsRePctByLevel(fit: CalibrationFit, lines: readonly Centred[]): number[] {
+  return lines.map((line) => {
+    const total = sumAbsRePctByLevel(fit.levels, fit.ys, line);
+    return Number.isFinite(total) ? total : sumAbsRePctCentred(fit.xs, fit.ys, line.cx, line.cy, line.b);
+  });
+}
+
+function sumAbsRePctByLevel({ of, keys }: Grouping, ys: Float64Array, { cx, cy, b }: Centred): number {
+  const fitted = new Float64Array(keys.length);
+  for (let g = 0; g < keys.length; g++) fitted[g] = cy + b * (keys[g] - cx);
+  const sums = new Float64Array(keys.length);
+  for (let i = 0; i < ys.length; i++) {
+    const g = of[i];
+    sums[g] += Math.abs(ys[i] - fitted[g]);
+  }
+  let total = 0;
+  for (let g = 0; g < keys.length; g++) if (keys[g] !== 0) total += (100 * sums[g]) / Math.abs(keys[g] * b);
+  return total;
+}
+
 /** Back-calculation through `inverse` one response at a time. */
 function backCalculateEach(inverse: (y: number) => number | null): Curve['backCalculate'] {
   return (ys, out) => {
@@ -435,20 +630,21 @@ function twoPointCurve(used: UsedPoints, levels: number, bracketing: boolean): C
 
 function regressionCurve(
   model: CalibrationModel,
-  xs: Float64Array,
-  ys: Float64Array,
-  w: Float64Array,
+  rows: FitRows,
   levels: number,
   xMin: number,
   xMax: number,
-  scratch?: Scratch,
+  standardsScratch?: Scratch,
 ): Curve {
+  const count = rows.pooled ? rows.pooled.count : rows.x.length;
+  // Rows that stand for levels are few: their columns are fresh rather than the standards' scratch columns.
+  const scratch = rows.pooled ? undefined : standardsScratch;
   const minPoints = model === 'quadratic' ? 4 : 3;
-  if (xs.length < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${xs.length} given)`);
+  if (count < minPoints) fail('too_few', `the ${model} model needs at least ${minPoints} standards (${count} given)`);
   if (levels < 2) fail('all_x_equal', 'all standards have the same x');
   if (model === 'quadratic') {
     if (levels < 3) fail('too_few_levels', 'a quadratic calibration needs at least 3 distinct x');
-    const q = fitQuadratic(xs, ys, w, scratch && ((slot) => scratch(SCRATCH.quadratic + slot)));
+    const q = fitQuadratic(rows.x, rows.y, rows.w, scratch && ((slot) => scratch(SCRATCH.quadratic + slot)), rows.pooled);
     assertComputable([q.sxx, q.ssTotal, q.a, q.b, q.c, q.s]);
     if (q.b === 0 && q.c === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
     const [c0, c1, c2] = q.zCoefficients;
@@ -468,8 +664,10 @@ function regressionCurve(
     };
   }
   const origin = model === 'linear-through-origin';
-  const residuals = scratch ? scratch(SCRATCH.residuals) : new Float64Array(xs.length);
-  const line = origin ? fitThroughOrigin(xs, ys, residuals) : fitLine(xs, ys, w, residuals);
+  const residuals = scratch ? scratch(SCRATCH.residuals) : new Float64Array(rows.x.length);
+  const line = origin
+    ? fitThroughOrigin(rows.x, rows.y, residuals, rows.pooled && rows.w, rows.pooled)
+    : fitLine(rows.x, rows.y, rows.w, residuals, rows.pooled);
   assertComputable([line.sxx, line.ssTotal, line.a, line.b, line.s]);
   if (line.b === 0) fail('zero_slope', 'the responses do not change with x: zero slope');
   const cx = origin ? 0 : line.xMean;
@@ -585,8 +783,7 @@ interface FittedCurve {
   used: UsedPoints;
   xMin: number;
   xMax: number;
-  w: Float64Array;
-  weightAt: (x: number) => number;
+  weighted: Weighted;
   curve: Curve;
 }
 
@@ -598,33 +795,45 @@ function fitCurve(used: UsedPoints, options: FitOptions, scratch?: Scratch): Fit
   const model = options.model ?? 'linear';
   const weighting = options.weighting ?? 'none';
   const confidence = options.confidence ?? 0.95;
-  const { xs, ys } = used;
+  const { xs, ys, summary } = used;
   if (xs.length === 0) fail('too_few', 'no standards to calibrate with');
   const levels = used.levels.keys.length;
+  const range = summary ? summary.x : xs;
   let xMin = Infinity;
   let xMax = -Infinity;
-  for (let i = 0; i < xs.length; i++) {
-    const x = xs[i];
+  for (let i = 0; i < range.length; i++) {
+    const x = range[i];
     if (x < xMin) xMin = x;
     if (x > xMax) xMax = x;
   }
   checkWeighting(model, weighting, used.sds, xMin);
-  const { w, weightAt } = makeWeights(used, weighting, scratch?.(SCRATCH.weights));
+  const weighted = summary ? levelRows(used, summary, weighting) : pointRows(used, weighting, scratch);
 
   const curve =
     model === 'one-point'
       ? onePointCurve(ys, levels, xMin)
       : model === 'two-point'
         ? twoPointCurve(used, levels, options.twoPoint?.bracketing === true)
-        : regressionCurve(model, xs, ys, w, levels, xMin, xMax, scratch);
+        : regressionCurve(model, weighted.rows, levels, xMin, xMax, scratch);
   assertComputable([curve.slope, curve.intercept]);
-  return { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve };
+  return { model, weighting, confidence, used, xMin, xMax, weighted, curve };
 }
 
-/** Σ|%RE| of the back-calculated standards of the fit's points under another weighting (the tables are not built). */
+/**
+ * Σ|%RE| of the back-calculated standards of the fit's points, under the fit's own weighting or another one (the tables
+ * are not built).
+ */
 export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
-  const used = { indices: fit.indices, xs: fit.xs, ys: fit.ys, sds: fit.sds, levels: fit.levels, excluded: fit.calibration.excluded };
+  const used = usedOf(fit);
+  if (weighting === fit.weighting) {
+    if (fit.summary && fit.centred) return sumsAbsRePctByLevel(fit, [fit.centred])[0];
+    const { rePcts } = fit.points();
+    let total = 0;
+    for (let i = 0; i < rePcts.length; i++) if (!Number.isNaN(rePcts[i])) total += Math.abs(rePcts[i]);
+    return total;
+  }
   const { curve } = fitCurve(used, { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch);
+  if (curve.centred && fit.summary) return sumsAbsRePctByLevel(fit, [curve.centred])[0];
   if (curve.centred) return sumAbsRePctCentred(used.xs, used.ys, curve.centred.cx, curve.centred.cy, curve.centred.b);
   const xBacks = fit.scratch(SCRATCH.xBacks);
   curve.backCalculate(used.ys, xBacks);
@@ -637,12 +846,51 @@ export function sumAbsRePct(fit: CalibrationFit, weighting: Weighting): number {
   return total;
 }
 
-/** Fits a calibration of the chosen model to the standards that are not excluded. */
-export function fitCalibration(standards: readonly StandardPoint[] | StandardColumns, options: FitOptions = {}): CalibrationFit {
-  const { model, weighting, confidence, used, xMin, xMax, w, weightAt, curve } = fitCurve(usedPoints(standards), options);
-  const { indices, xs, ys, sds, levels, excluded } = used;
-  const n = xs.length;
+/** Σ|%RE| under each weighting, null where that weighting's fit fails. */
+export function sumsAbsRePct(fit: CalibrationFit, weightings: readonly Weighting[]): (number | null)[] {
+  const orNull = (weighting: Weighting) => {
+    try {
+      return sumAbsRePct(fit, weighting);
+    } catch {
+      return null;
+    }
+  };
+  if (!fit.summary) return weightings.map(orNull);
+  const lines = weightings.map((weighting): { centred: Centred | null } | null => {
+    if (weighting === fit.weighting) return { centred: fit.centred };
+    try {
+      return { centred: fitCurve(usedOf(fit), { model: fit.model, weighting, confidence: fit.confidence }, fit.scratch).curve.centred };
+    } catch {
+      return null;
+    }
+  });
+  const centred = lines.flatMap((line) => (line?.centred ? [line.centred] : []));
+  const sums = sumsAbsRePctByLevel(fit, centred);
+  return lines.map((line, j) =>
+    line === null ? null : line.centred ? (sums[centred.indexOf(line.centred)] as number) : orNull(weightings[j]),
+  );
+}
 
+/** The fit's standards as fitCurve takes them. */
+function usedOf(fit: CalibrationFit): UsedPoints {
+  return {
+    indices: fit.indices,
+    xs: fit.xs,
+    ys: fit.ys,
+    sds: fit.sds,
+    levels: fit.levels,
+    get levelYs() {
+      return fit.levelYs;
+    },
+    summary: fit.summary,
+    excluded: fit.calibration.excluded,
+  };
+}
+
+/** Back-calculated x, %RE, residuals and standardised residuals of every standard, with what the finite guard asks of them. */
+function pointColumns({ used, curve, weighted }: FittedCurve): PointColumns {
+  const { xs, ys } = used;
+  const n = xs.length;
   const xBacks = new Float64Array(n);
   const rePcts = new Float64Array(n);
   curve.backCalculate(ys, xBacks);
@@ -658,22 +906,30 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
   }
   const core = curve.core;
   let residuals: Float64Array;
-  let standardizedResiduals: Float64Array | null = null;
+  let standardized: Float64Array | null = null;
   let residualsFinite = true;
   let standardizedFinite = true;
-  let largestStandardized = 0;
+  let largest: LargestResidual | null = null;
   if (core) {
-    residuals = core.residuals;
+    if (used.summary) {
+      residuals = new Float64Array(n);
+      for (let i = 0; i < n; i++) residuals[i] = core.residualAt(xs[i], ys[i]);
+    } else {
+      residuals = core.residuals;
+    }
+    const w = weighted.pointWeights();
     // Weighted fits: s_y/x estimates the SD of a unit-weight residual, so each residual is scaled by √w.
-    standardizedResiduals = new Float64Array(n);
+    standardized = new Float64Array(n);
+    let position = 0;
     for (let i = 0; i < n; i++) {
       const e = residuals[i];
-      const standardized = core.s > 0 ? (Math.sqrt(w[i]) * e) / core.s : 0;
-      standardizedResiduals[i] = standardized;
-      if (Math.abs(standardized) > Math.abs(standardizedResiduals[largestStandardized])) largestStandardized = i;
+      const value = core.s > 0 ? (Math.sqrt(w[i]) * e) / core.s : 0;
+      standardized[i] = value;
+      if (Math.abs(value) > Math.abs(standardized[position])) position = i;
       if (!Number.isFinite(e)) residualsFinite = false;
-      if (!Number.isFinite(standardized)) standardizedFinite = false;
+      if (!Number.isFinite(value)) standardizedFinite = false;
     }
+    largest = { position, standardized: standardized[position], residual: residuals[position] };
   } else {
     residuals = new Float64Array(n);
     for (let i = 0; i < n; i++) {
@@ -683,28 +939,98 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     }
   }
   const finite = { rows: rowsFinite, residuals: residualsFinite, standardized: standardizedFinite };
-  const levelYs = byGroup(levels, ys);
+  return { xBacks, rePcts, residuals, standardized, largest, finite };
+}
+
+/**
+ * For a straight line summarised by level with one weight per level: a standard's residual, standardised residual,
+ * back-calculated x and %RE all move with its response, so each level's smallest and largest response answer for the
+ * level (the largest residual, finiteness), and the level's back-calculated mean and SD follow from its mean and SD.
+ */
+function fromLevelExtremes(
+  { used, weighted }: FittedCurve,
+  summary: LevelSummary,
+  core: RegressionCore,
+  { cx, cy, b }: { cx: number; cy: number; b: number },
+): Pick<PointColumns, 'finite'> & { largest: LargestResidual; levels: CalibrationLevel[] } {
+  const { levels, xs, ys } = used;
+  const finite = { rows: true, residuals: true, standardized: true };
+  const standardize = (x: number, e: number) => (core.s > 0 ? (Math.sqrt(weighted.weightAt(x)) * e) / core.s : 0);
+  const atZero = core.residualAt(xs[0], ys[0]);
+  let largest: LargestResidual = { position: 0, standardized: standardize(xs[0], atZero), residual: atZero };
+  for (let g = 0; g < summary.x.length; g++) {
+    const x = summary.x[g];
+    for (const position of [summary.lowest[g], summary.highest[g]]) {
+      const y = ys[position];
+      const e = core.residualAt(x, y);
+      const standardized = standardize(x, e);
+      const xBack = cx + (y - cy) / b;
+      const rePct = !Number.isFinite(xBack) || x === 0 ? NaN : (100 * (xBack - x)) / x;
+      if (!Number.isFinite(x) || !Number.isFinite(y) || rePct === Infinity || rePct === -Infinity) finite.rows = false;
+      if (!Number.isFinite(e)) finite.residuals = false;
+      if (!Number.isFinite(standardized)) finite.standardized = false;
+      const [size, held] = [Math.abs(standardized), Math.abs(largest.standardized)];
+      if (size > held || (size === held && position < largest.position)) largest = { position, standardized, residual: e };
+    }
+  }
+  const summaries = sortedGroups(levels).map((g): CalibrationLevel => {
+    const x = levels.keys[g];
+    const n = summary.count[g];
+    const yMean = summary.mean[g];
+    const ySd = n < 2 ? null : Math.sqrt(summary.ss[g] / (n - 1));
+    const complete = Number.isFinite(cx + (ys[summary.lowest[g]] - cy) / b) && Number.isFinite(cx + (ys[summary.highest[g]] - cy) / b);
+    const xBackMean = complete ? cx + (yMean - cy) / b : null;
+    const backSd = complete && ySd !== null ? ySd / Math.abs(b) : null;
+    return {
+      x,
+      n,
+      yMean,
+      ySd,
+      xBackMean,
+      rePct: xBackMean === null || x === 0 ? null : (100 * (xBackMean - x)) / x,
+      rsdPct: backSd === null || xBackMean === null || xBackMean === 0 ? null : (100 * backSd) / Math.abs(xBackMean),
+    };
+  });
+  return { finite, largest, levels: summaries };
+}
+
+/** Fits a calibration of the chosen model to the standards that are not excluded. */
+export function fitCalibration(standards: readonly StandardPoint[] | StandardColumns, options: FitOptions = {}): CalibrationFit {
+  const fitted = fitCurve(usedPoints(standards, options), options);
+  const { model, weighting, confidence, used, xMin, xMax, weighted, curve } = fitted;
+  const { indices, xs, ys, sds, levels, excluded, summary } = used;
+  const n = xs.length;
+  const core = curve.core;
   const scratch = scratchColumns(n);
+  // Summarised straight lines with one weight per level need no per-standard column until a table is read.
+  const extremes =
+    summary && core && curve.centred && weighting !== '1/s2' ? fromLevelExtremes(fitted, summary, core, curve.centred) : null;
+  let columns = extremes ? null : pointColumns(fitted);
+  const points = () => (columns ??= pointColumns(fitted));
+  const { finite, largest } = extremes ?? points();
   const statistics = core ? regressionStatistics(core, model, confidence) : noRegressionStatistics(xs, ys);
   const { anova, ...fitStatistics } = statistics;
   // The per-standard tables are built from the columns when first read (JSON.stringify, structuredClone, a report).
-  const standardized = standardizedResiduals;
   const residualTable = new LazyTable(
-    () => listOf(residuals),
+    () => listOf(points().residuals),
     () => finite.residuals,
   );
   const standardizedTable = new LazyTable(
-    () => (standardized ? listOf(standardized) : null),
+    () => {
+      const standardized = points().standardized;
+      return standardized ? listOf(standardized) : null;
+    },
     () => finite.standardized,
   );
   const backCalculatedTable = new LazyTable(
     () => {
+      const { xBacks, rePcts } = points();
       const rows: BackCalculatedPoint[] = [];
       for (let i = 0; i < n; i++) {
         const xBack = xBacks[i];
         const rePct = rePcts[i];
         rows.push({
-          index: indices[i],
+          index: indices ? indices[i] : i,
           x: xs[i],
           y: ys[i],
           xBack: Number.isNaN(xBack) ? null : xBack,
@@ -715,7 +1041,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     },
     () => finite.rows,
   );
-  const bandTable = bandColumns(core, statistics.t, xMin, xMax, curve.predict, weightAt);
+  const bandTable = bandColumns(core, statistics.t, xMin, xMax, curve.predict, weighted.weightAt);
   const calibration: CalibrationResult = {
     model,
     weighting,
@@ -750,7 +1076,7 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     set backCalculated(next) {
       backCalculatedTable.set(next);
     },
-    levels: levelSummaries(levels, levelYs, xBacks, scratch(0)),
+    levels: extremes ? extremes.levels : levelSummaries(levels, ys, points().xBacks),
     segments: curve.segments,
     excluded,
   };
@@ -765,22 +1091,24 @@ export function fitCalibration(standards: readonly StandardPoint[] | StandardCol
     weighting,
     confidence,
     indices,
+    studyIndex: indices ? (position) => indices[position] : (position) => position,
     xs,
     ys,
     sds,
     levels,
-    levelYs,
-    weights: w,
+    get levelYs() {
+      return used.levelYs;
+    },
+    summary,
+    rows: weighted.rows,
     scratch,
-    residuals,
-    standardizedResiduals,
-    largestStandardized,
-    xBacks,
-    rePcts,
+    points,
+    largest,
+    centred: curve.centred,
     calibration,
     core,
     segments: curve.segments,
-    weightAt,
+    weightAt: weighted.weightAt,
     predict: curve.predict,
     slopeAt: curve.slopeAt,
     inverse: curve.inverse,

@@ -19,7 +19,7 @@ import {
   type MdlBlank,
   type Spike,
 } from '../study.js';
-import type { CalibrationFit } from './calibration.js';
+import { refitRows, type CalibrationFit } from './calibration.js';
 import { detectionDelta, studentQuantile } from './distributions.js';
 import { fitLine, type RegressionCore } from './regression.js';
 import { mean, sd } from './stats.js';
@@ -32,12 +32,12 @@ const ICH_LOQ = 10;
 /** The unweighted straight line over the standards: the fit the zero-concentration approaches need. */
 function unweightedLine(fit: CalibrationFit, warn: Warn): RegressionCore | null {
   if (fit.model === 'linear' && fit.weighting === 'none' && fit.core) return fit.core;
-  const { xs, ys } = fit;
-  if (!fit.core || xs.length < 3 || fit.levels.keys.length < 2) return null;
+  if (!fit.core || fit.xs.length < 3 || fit.levels.keys.length < 2) return null;
   const which = fit.weighting === 'none' ? 'iso11843 and hubauxVos use' : 'sdResidual, iso11843 and hubauxVos use';
   const basis = fit.weighting === 'none' ? fit.model : `${fit.weighting}-weighted ${fit.model}`;
   warn('detection', 'unweighted_line', `${which} the unweighted straight line over the same standards, not the ${basis} fit`);
-  return fitLine(xs, ys, new Float64Array(xs.length).fill(1));
+  const rows = refitRows(fit, null);
+  return fitLine(rows.x, rows.y, rows.w, undefined, rows.pooled);
 }
 
 function sdResidual(fit: CalibrationFit, line: RegressionCore | null): LimitPair | null {

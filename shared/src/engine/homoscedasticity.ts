@@ -1,23 +1,9 @@
 import type { HomoscedasticityResult } from '../result.js';
 import { CANDIDATE_WEIGHTINGS, type CandidateWeighting } from '../study.js';
-import { sumAbsRePct, type CalibrationFit } from './calibration.js';
+import { sumsAbsRePct, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { sortedGroups, variance } from './stats.js';
 import type { Warn } from './warnings.js';
-
-function sumAbsRe(fit: CalibrationFit): number {
-  let total = 0;
-  for (let i = 0; i < fit.rePcts.length; i++) if (!Number.isNaN(fit.rePcts[i])) total += Math.abs(fit.rePcts[i]);
-  return total;
-}
-
-function sumAbsReOrNull(fit: CalibrationFit, weighting: CandidateWeighting): number | null {
-  try {
-    return sumAbsRePct(fit, weighting);
-  } catch {
-    return null;
-  }
-}
 
 /**
  * Variance ratio of the highest to the lowest standard level, one-sided at 99 % (common
@@ -33,29 +19,31 @@ export function homoscedasticity(fit: CalibrationFit, warn: Warn): Homoscedastic
   const [lowest, highest] = [sorted[0], sorted[sorted.length - 1]];
   const [xLow, xHigh] = [fit.levels.keys[lowest], fit.levels.keys[highest]];
   const { start } = fit.levels;
-  const low = fit.levelYs.subarray(start[lowest], start[lowest + 1]);
-  const high = fit.levelYs.subarray(start[highest], start[highest + 1]);
-  if (low.length < 2 || high.length < 2) {
+  const [nLow, nHigh] = [start[lowest + 1] - start[lowest], start[highest + 1] - start[highest]];
+  if (nLow < 2 || nHigh < 2) {
     warn('homoscedasticity', 'too_few', 'the variance check needs at least 2 replicates at the lowest and the highest level');
     return null;
   }
-  const sLow = variance(low) ?? 0;
-  const sHigh = variance(high) ?? 0;
+  // A fit summarised by level holds each level's squares: what variance() would compute from its values.
+  const { summary } = fit;
+  const levelVariance = (g: number, n: number) =>
+    summary ? summary.ss[g] / (n - 1) : (variance(fit.levelYs.subarray(start[g], start[g + 1])) ?? 0);
+  const sLow = levelVariance(lowest, nLow);
+  const sHigh = levelVariance(highest, nHigh);
   if (sLow === 0) {
     warn('homoscedasticity', 'no_scatter', 'the replicates at the lowest level agree exactly; the variance ratio is undefined');
     return null;
   }
-  const df: [number, number] = [high.length - 1, low.length - 1];
+  const df: [number, number] = [nHigh - 1, nLow - 1];
   const F = sHigh / sLow;
   const critical = fQuantile(0.99, df[0], df[1]);
+  // 1/x and 1/x² need every standard above zero.
+  const fitted = CANDIDATE_WEIGHTINGS.filter((w) => w === fit.weighting || w === 'none' || fit.calibration.xMin > 0);
+  const sums = sumsAbsRePct(fit, fitted);
   const sumAbsRePct = {} as Record<CandidateWeighting, number | null>;
   for (const weighting of CANDIDATE_WEIGHTINGS) {
-    sumAbsRePct[weighting] =
-      weighting === fit.weighting
-        ? sumAbsRe(fit)
-        : weighting === 'none' || fit.calibration.xMin > 0
-          ? sumAbsReOrNull(fit, weighting)
-          : null;
+    const at = fitted.indexOf(weighting);
+    sumAbsRePct[weighting] = at < 0 ? null : sums[at];
   }
   let smallest: CandidateWeighting | null = null;
   for (const weighting of CANDIDATE_WEIGHTINGS) {

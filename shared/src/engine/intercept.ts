@@ -1,14 +1,14 @@
 import type { InterceptTestResult, ThroughOriginResult, UnknownResult } from '../result.js';
-import type { CalibrationFit } from './calibration.js';
+import { refitRows, type CalibrationFit } from './calibration.js';
 import { studentTwoSidedP } from './distributions.js';
 import { fitLine, fitThroughOrigin, type RegressionCore } from './regression.js';
 import type { Warn } from './warnings.js';
 
 function lineWithIntercept(fit: CalibrationFit): RegressionCore | null {
   if (fit.core && fit.model !== 'linear-through-origin') return fit.core;
-  const { xs, ys } = fit;
-  if (xs.length < 3 || fit.levels.keys.length < 2) return null;
-  return fitLine(xs, ys, new Float64Array(xs.length).fill(1));
+  if (fit.xs.length < 3 || fit.levels.keys.length < 2) return null;
+  const rows = refitRows(fit, null);
+  return fitLine(rows.x, rows.y, rows.w, undefined, rows.pooled);
 }
 
 /** Is the intercept distinguishable from zero? t = a/s_a with the fit's residual df. */
@@ -42,12 +42,13 @@ export function interceptTest(fit: CalibrationFit, warn: Warn): InterceptTestRes
  * one-point and regression calibrations agree only when the intercept is zero (common practice).
  */
 export function throughOrigin(fit: CalibrationFit, unknowns: readonly UnknownResult[], warn: Warn): ThroughOriginResult | null {
-  const { xs, ys } = fit;
+  const { xs } = fit;
   if (xs.length < 2 || xs.every((x) => x === 0)) {
     warn('throughOrigin', 'too_few', 'the line through the origin needs at least 2 standards with x above zero');
     return null;
   }
-  const line = fitThroughOrigin(xs, ys, fit.scratch(0));
+  const rows = refitRows(fit, null, 1);
+  const line = fitThroughOrigin(rows.x, rows.y, rows.pooled ? undefined : fit.scratch(0), rows.pooled && rows.w, rows.pooled);
   return {
     slope: line.b,
     seSlope: line.seB,

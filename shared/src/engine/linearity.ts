@@ -1,5 +1,5 @@
 import type { LackOfFitResult, MandelResult } from '../result.js';
-import type { CalibrationFit } from './calibration.js';
+import { refitRows, type CalibrationFit } from './calibration.js';
 import { fQuantile, fUpper } from './distributions.js';
 import { fitQuadratic } from './quadratic.js';
 import { fitLine, type RegressionCore } from './regression.js';
@@ -27,12 +27,15 @@ export function lackOfFit(fit: CalibrationFit, warn: Warn): LackOfFitResult | nu
     return null;
   }
   let ssPureError = 0;
-  for (let g = 0; g < k; g++) {
-    const ys = fit.levelYs.subarray(levels.start[g], levels.start[g + 1]);
-    const centre = mean(ys);
-    const w = fit.weightAt(levels.keys[g]);
-    for (let m = 0; m < ys.length; m++) ssPureError += w * (ys[m] - centre) ** 2;
-  }
+  const summary = fit.summary;
+  if (summary) for (let g = 0; g < k; g++) ssPureError += fit.weightAt(levels.keys[g]) * summary.ss[g];
+  else
+    for (let g = 0; g < k; g++) {
+      const ys = fit.levelYs.subarray(levels.start[g], levels.start[g + 1]);
+      const centre = mean(ys);
+      const w = fit.weightAt(levels.keys[g]);
+      for (let m = 0; m < ys.length; m++) ssPureError += w * (ys[m] - centre) ** 2;
+    }
   const dfPureError = n - k;
   const dfLackOfFit = k - p;
   if (ssPureError === 0) {
@@ -60,7 +63,7 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
     warn('mandel', 'not_applicable', `no Mandel test for a ${fit.model} calibration`);
     return null;
   }
-  const { xs, ys } = fit;
+  const { xs } = fit;
   const n = xs.length;
   if (fit.levels.keys.length < 4 || n < 4) {
     warn('mandel', 'too_few', "Mandel's test needs at least 4 distinct x");
@@ -68,18 +71,16 @@ export function mandel(fit: CalibrationFit, warn: Warn): MandelResult | null {
   }
   // w(x) at each standard: the fit's own weights except for 1/s², whose fit weighs each standard by its own SD.
   const sameWeights = fit.weighting !== '1/s2';
-  let weights = fit.weights;
-  if (!sameWeights) {
-    weights = fit.scratch(SCRATCH.weights);
-    const levelWeights = fit.levels.keys.map((x) => fit.weightAt(x));
-    for (let i = 0; i < n; i++) weights[i] = levelWeights[fit.levels.of[i]];
-  }
+  const rows = sameWeights ? fit.rows : refitRows(fit, fit.weightAt, SCRATCH.weights);
   // The fit's own core where it is the same least-squares problem (same points, same weights).
-  const line = fit.model === 'linear' && sameWeights ? (fit.core as RegressionCore) : fitLine(xs, ys, weights, fit.scratch(SCRATCH.line));
+  const line =
+    fit.model === 'linear' && sameWeights
+      ? (fit.core as RegressionCore)
+      : fitLine(rows.x, rows.y, rows.w, rows.pooled ? undefined : fit.scratch(SCRATCH.line), rows.pooled);
   const quad =
     fit.model === 'quadratic' && sameWeights
       ? (fit.core as RegressionCore)
-      : fitQuadratic(xs, ys, weights, (slot) => fit.scratch(SCRATCH.quadratic + slot));
+      : fitQuadratic(rows.x, rows.y, rows.w, rows.pooled ? undefined : (slot) => fit.scratch(SCRATCH.quadratic + slot), rows.pooled);
   if (quad.ssResidual === 0) {
     warn('mandel', 'exact_fit', "the quadratic passes exactly through the standards; Mandel's F is undefined");
     return null;

@@ -2,7 +2,7 @@ import type { OutlierFlag } from '../result.js';
 import { blankValue, type Study } from '../study.js';
 import type { CalibrationFit } from './calibration.js';
 import { fQuantile, studentQuantile } from './distributions.js';
-import { byGroup, groupBy, mean, sd, sortedGroups, variance } from './stats.js';
+import { groupBy, mean, sd, sortedGroups, variance, type GroupSummary } from './stats.js';
 import type { Warn } from './warnings.js';
 
 const ALPHA = 0.05;
@@ -63,51 +63,79 @@ export function dixonStatistic(values: ArrayLike<number>): { Q: number; position
 
 interface ValueSet {
   name: string;
-  values: ArrayLike<number>;
-  /** Study-array index of each value. */
-  indices: ArrayLike<number>;
+  size: number;
+  /** The values, read for Dixon's test and for Grubbs's where `grubbs` is not given. */
+  values: () => ArrayLike<number>;
+  /** Study-array index of the value at a position. */
+  indexOf: (position: number) => number;
+  /** Grubbs's statistic, the value farthest from the mean and its study index, where a summary already gives them. */
+  grubbs?: { G: number; value: number; index: number };
+}
+
+function valueSet(name: string, values: ArrayLike<number>, indexOf: (position: number) => number): ValueSet {
+  return { name, size: values.length, values: () => values, indexOf };
+}
+
+/**
+ * Grubbs's statistic of a standard level from its summary: the value farthest from the mean is the level's first smallest
+ * or first largest (as grubbsStatistic finds it, the earlier of the two where both are as far).
+ */
+function levelGrubbs(fit: CalibrationFit, summary: GroupSummary, g: number): ValueSet['grubbs'] {
+  const { ys } = fit;
+  const [centre, n, lowest, highest] = [summary.mean[g], summary.count[g], summary.lowest[g], summary.highest[g]];
+  const s = Math.sqrt(summary.ss[g] / (n - 1));
+  const [low, high] = [Math.abs(ys[lowest] - centre), Math.abs(ys[highest] - centre)];
+  const position = high > low || (high === low && highest < lowest) ? highest : lowest;
+  return { G: s > 0 ? Math.abs(ys[position] - centre) / s : 0, value: ys[position], index: fit.studyIndex(position) };
 }
 
 function testSet(set: ValueSet, flags: OutlierFlag[]): void {
-  const n = set.values.length;
+  const n = set.size;
   if (n < 3) return;
-  const { G, position } = grubbsStatistic(set.values);
+  const grubbs =
+    set.grubbs ??
+    (() => {
+      const values = set.values();
+      const { G, position } = grubbsStatistic(values);
+      return { G, value: values[position], index: set.indexOf(position) };
+    })();
   const gCrit = grubbsCritical(n);
   flags.push({
     set: set.name,
     test: 'grubbs',
-    statistic: G,
+    statistic: grubbs.G,
     critical: gCrit,
-    index: set.indices[position],
-    value: set.values[position],
-    outlier: G > gCrit,
+    index: grubbs.index,
+    value: grubbs.value,
+    outlier: grubbs.G > gCrit,
   });
   const dCrit = DIXON_R10_95[n];
   if (dCrit !== undefined) {
-    const { Q, position: at } = dixonStatistic(set.values);
+    const values = set.values();
+    const { Q, position: at } = dixonStatistic(values);
     flags.push({
       set: set.name,
       test: 'dixon',
       statistic: Q,
       critical: dCrit,
-      index: set.indices[at],
-      value: set.values[at],
+      index: set.indexOf(at),
+      value: values[at],
       outlier: Q > dCrit,
     });
   }
 }
 
-function cochran(name: string, groups: { values: ArrayLike<number>; index: number }[], flags: OutlierFlag[]): void {
-  const replicated = groups.filter((g) => g.values.length >= 2);
+function cochran(name: string, groups: { size: number; index: number; variance: () => number }[], flags: OutlierFlag[]): void {
+  const replicated = groups.filter((g) => g.size >= 2);
   if (replicated.length < 2) return;
-  const variances = replicated.map((g) => variance(g.values) as number);
+  const variances = replicated.map((g) => g.variance());
   const total = variances.reduce((a, b) => a + b, 0);
   if (total === 0) return;
   let position = 0;
   variances.forEach((v, i) => {
     if (v > variances[position]) position = i;
   });
-  const counts = [...groupBy(replicated, (g) => g.values.length).entries()].sort((a, b) => b[1].length - a[1].length || b[0] - a[0]);
+  const counts = [...groupBy(replicated, (g) => g.size).entries()].sort((a, b) => b[1].length - a[1].length || b[0] - a[0]);
   const nu = counts[0][0] - 1;
   const C = variances[position] / total;
   const critical = cochranCritical(replicated.length, nu);
@@ -128,59 +156,88 @@ export function outliers(study: Study, fit: CalibrationFit | null, recoveryPcts:
   const sets: ValueSet[] = [];
   if (study.blanks) {
     const used = study.blanks.flatMap((b, index) => (typeof b !== 'number' && b.excluded ? [] : [{ value: blankValue(b), index }]));
-    sets.push({ name: 'blanks', values: used.map((b) => b.value), indices: used.map((b) => b.index) });
+    sets.push(
+      valueSet(
+        'blanks',
+        used.map((b) => b.value),
+        (position) => used[position].index,
+      ),
+    );
   }
-  const levels: { x: number; values: Float64Array; indices: Float64Array }[] = [];
+  // Levels by ascending x that hold two values or more, each with its rank among all levels (Cochran names a level by it).
+  // A fit summarised by level has each level's mean, squares and extremes: the numbers the tests would compute from its
+  // values, which are then laid out only for Dixon's test (levels of 3 to 10).
+  const levels: (ValueSet & { g: number; rank: number })[] = [];
+  const summary = fit?.summary;
   if (fit) {
     const { keys, start } = fit.levels;
-    const indicesByLevel = byGroup(fit.levels, fit.indices, fit.scratch(0));
-    for (const g of sortedGroups(fit.levels)) {
+    sortedGroups(fit.levels).forEach((g, rank) => {
       const [from, to] = [start[g], start[g + 1]];
-      levels.push({ x: keys[g], values: fit.levelYs.subarray(from, to), indices: indicesByLevel.subarray(from, to) });
-    }
+      if (to - from < 2) return;
+      // Naming a set formats its x, which costs more than testing it when levels are many: only levels testSet tests.
+      levels.push({
+        name: to - from >= 3 ? `standards x=${keys[g]}` : '',
+        size: to - from,
+        values: () => fit.levelYs.subarray(from, to),
+        indexOf: (position) => fit.studyIndex(fit.levels.members[from + position]),
+        grubbs: summary && to - from >= 3 ? levelGrubbs(fit, summary, g) : undefined,
+        g,
+        rank,
+      });
+    });
   }
-  // testSet needs 3 values; naming a set formats its x, which costs more than testing it when levels are many.
-  for (const { x, values, indices } of levels) if (values.length >= 3) sets.push({ name: `standards x=${x}`, values, indices });
-  if (recoveryPcts) sets.push({ name: 'recovery', values: recoveryPcts, indices: recoveryPcts.map((_, i) => i) });
+  sets.push(...levels);
+  if (recoveryPcts) sets.push(valueSet('recovery', recoveryPcts, (position) => position));
   const usedPrecision: { group: string; value: number; index: number }[] = [];
   (study.precision ?? []).forEach((p, index) => {
     if (!p.excluded) usedPrecision.push({ group: p.group, value: p.value, index });
   });
   const series = [...groupBy(usedPrecision, (p) => p.group).entries()];
   for (const [group, items] of series) {
-    sets.push({ name: `precision ${group}`, values: items.map((i) => i.value), indices: items.map((i) => i.index) });
+    sets.push(
+      valueSet(
+        `precision ${group}`,
+        items.map((i) => i.value),
+        (position) => items[position].index,
+      ),
+    );
   }
   if (series.length >= 3) {
-    sets.push({
-      name: 'precision series means',
-      values: series.map(([, items]) => mean(items.map((i) => i.value))),
-      indices: series.map((_, i) => i),
-    });
+    sets.push(
+      valueSet(
+        'precision series means',
+        series.map(([, items]) => mean(items.map((i) => i.value))),
+        (position) => position,
+      ),
+    );
   }
   for (const set of sets) testSet(set, flags);
 
   cochran(
     'standard levels',
-    levels.map(({ values }, index) => ({ values, index })),
+    levels.map(({ size, values, g, rank }) => ({
+      size,
+      index: rank,
+      variance: () => (summary ? summary.ss[g] / (size - 1) : (variance(values()) as number)),
+    })),
     flags,
   );
   cochran(
     'precision series',
-    series.map(([, items], index) => ({ values: items.map((i) => i.value), index })),
+    series.map(([, items], index) => ({ size: items.length, index, variance: () => variance(items.map((i) => i.value)) as number })),
     flags,
   );
 
-  const standardized = fit?.standardizedResiduals;
-  if (fit && standardized && standardized.length > 0) {
-    const position = fit.largestStandardized;
+  const largest = fit?.largest;
+  if (fit && largest) {
     flags.push({
       set: 'calibration residuals',
       test: 'standardizedResidual',
-      statistic: Math.abs(standardized[position]),
+      statistic: Math.abs(largest.standardized),
       critical: 3,
-      index: fit.indices[position],
-      value: fit.residuals[position],
-      outlier: Math.abs(standardized[position]) > 3,
+      index: fit.studyIndex(largest.position),
+      value: largest.residual,
+      outlier: Math.abs(largest.standardized) > 3,
     });
   }
   if (flags.length === 0) {

@@ -1,4 +1,4 @@
-import { cleanResidual, type RegressionCore } from './regression.js';
+import { cleanResidual, type Pooled, type RegressionCore } from './regression.js';
 import type { Scratch } from './stats.js';
 
 /**
@@ -133,16 +133,33 @@ export interface QuadraticCore extends RegressionCore {
   scale: number;
 }
 
-/** y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares). */
-/** With `scratch`, slots 0–4 hold the QR's columns and the residuals (for a caller that keeps neither). */
-export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: ArrayLike<number>, scratch?: Scratch): QuadraticCore {
-  const n = x.length;
+function quadraticResidual(centre: number, scale: number, c0: number, c1: number, c2: number): (x: number, y: number) => number {
+  return (x, y) => {
+    const zi = (x - centre) / scale;
+    const fitted = c0 + zi * (c1 + zi * c2);
+    return cleanResidual(y - fitted, Math.abs(y) + Math.abs(c0) + Math.abs(c1 * zi) + Math.abs(c2 * zi * zi));
+  };
+}
+
+/**
+ * y = a + b x + c x² by QR on centred and scaled x (weights w; w ≡ 1 for ordinary least squares); with `pooled`, the rows
+ * stand for levels. With `scratch`, slots 0–4 hold the QR's columns and the residuals (for a caller that keeps neither).
+ */
+export function fitQuadratic(
+  x: ArrayLike<number>,
+  y: ArrayLike<number>,
+  w: ArrayLike<number>,
+  scratch?: Scratch,
+  pooled: Pooled | null = null,
+): QuadraticCore {
+  const rows = x.length;
+  const n = pooled ? pooled.count : rows;
   // Σw, the mean of x (the centre) and the weighted means of y and x, two passes each as mean and weightedMean, passes shared.
   let sumWeights = 0;
   let sumX = 0;
   let weightedSumY = 0;
   let weightedSumX = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < rows; i++) {
     sumWeights += w[i];
     sumX += x[i];
     weightedSumY += w[i] * y[i];
@@ -154,24 +171,28 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
   let correctionCentre = 0;
   let correctionY = 0;
   let correctionX = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < rows; i++) {
     correctionCentre += x[i] - firstCentre;
     correctionY += w[i] * (y[i] - firstY);
     correctionX += w[i] * (x[i] - firstX);
   }
-  const centre = n === 0 ? NaN : firstCentre + correctionCentre / n;
+  const centre = pooled ? pooled.xCentre : n === 0 ? NaN : firstCentre + correctionCentre / n;
   const yMean = firstY + correctionY / sumWeights;
   const xMean = firstX + correctionX / sumWeights;
   let scale = 0;
-  for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(x[i] - centre));
+  for (let i = 0; i < rows; i++) scale = Math.max(scale, Math.abs(x[i] - centre));
   if (scale === 0) scale = 1;
-  const column = (slot: number) => (scratch ? scratch(slot) : new Float64Array(n));
+  const column = (slot: number) => {
+    if (!scratch) return new Float64Array(rows);
+    const lent = scratch(slot);
+    return lent.length === rows ? lent : lent.subarray(0, rows);
+  };
   const columns = [column(0), column(1), column(2)];
   const [ones, linear, square] = columns;
   const rhs = column(3);
   // The norm of the first column for the first reflection, in the same pass.
   let firstNorm = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < rows; i++) {
     const zi = (x[i] - centre) / scale;
     const sw = Math.sqrt(w[i]);
     ones[i] = sw;
@@ -187,7 +208,7 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
   let ssResidual = 0;
   let ssTotal = 0;
   let sxx = 0;
-  for (let i = 0; i < n; i++) {
+  for (let i = 0; i < rows; i++) {
     const zi = (x[i] - centre) / scale;
     const fitted = c0 + zi * (c1 + zi * c2);
     const e = cleanResidual(y[i] - fitted, Math.abs(y[i]) + Math.abs(c0) + Math.abs(c1 * zi) + Math.abs(c2 * zi * zi));
@@ -195,6 +216,10 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
     ssResidual += w[i] * e * e;
     ssTotal += w[i] * (y[i] - yMean) * (y[i] - yMean);
     sxx += w[i] * (x[i] - xMean) * (x[i] - xMean);
+  }
+  if (pooled) {
+    ssResidual += pooled.ssWithin;
+    ssTotal += pooled.ssWithin;
   }
   const df = n - 3;
   const s = df > 0 ? Math.sqrt(ssResidual / df) : 0;
@@ -241,5 +266,6 @@ export function fitQuadratic(x: ArrayLike<number>, y: ArrayLike<number>, w: Arra
     centre,
     scale,
     leverage: quadraticLeverage(centre, scale, rInv),
+    residualAt: quadraticResidual(centre, scale, c0, c1, c2),
   };
 }

@@ -73,9 +73,45 @@ export interface Grouping {
 }
 
 const bits = new Float64Array(1);
-const bitWords = new Uint32Array(bits.buffer);
+const bitWords = new Int32Array(bits.buffer);
 
-/** Groups equal values (SameValueZero, as a Map would) with an open-addressing table on their bits. */
+/** A hash of the value's bits (murmur3's mixing, so that values a tenth apart spread over the table). */
+function slotHash(key: number): number {
+  bits[0] = key;
+  let h = Math.imul(bitWords[0] ^ Math.imul(bitWords[1], 0x9e3779b1), 0x85ebca6b);
+  h ^= h >>> 13;
+  h = Math.imul(h, 0xc2b2ae35);
+  return h ^ (h >>> 16);
+}
+
+/** An open-addressing table: each slot holds a key and its group (−1: empty). */
+class SlotTable {
+  readonly mask: number;
+  readonly groups: Int32Array;
+  readonly keys: Float64Array;
+  constructor(size: number) {
+    this.mask = size - 1;
+    this.groups = new Int32Array(size).fill(-1);
+    this.keys = new Float64Array(size);
+  }
+}
+
+// Apart from the grouping loop, which then keeps its table in locals.
+function grownTable(table: SlotTable, keys: readonly number[]): SlotTable {
+  const grown = new SlotTable((table.mask + 1) * 4);
+  for (let g = 0; g < keys.length; g++) {
+    let at = slotHash(keys[g]) & grown.mask;
+    while (grown.groups[at] >= 0) at = (at + 1) & grown.mask;
+    grown.groups[at] = g;
+    grown.keys[at] = keys[g];
+  }
+  return grown;
+}
+
+/**
+ * Groups equal values (SameValueZero, as a Map would) with an open-addressing table on their bits; a value equal to the
+ * one before it takes its group without a look-up.
+ */
 export function groupPositions(values: ArrayLike<number>): Grouping {
   const n = values.length;
   const keys: number[] = [];
@@ -83,44 +119,59 @@ export function groupPositions(values: ArrayLike<number>): Grouping {
   // At most half full; a small study needs a small table (it grows as keys come, so a size only saves rehashing).
   let size = 16;
   while (size < 2 * n && size < 1024) size *= 2;
-  let slots = new Int32Array(size).fill(-1);
-  const slotOf = (key: number): number => {
-    bits[0] = key;
-    const mask = size - 1;
-    let slot = Math.imul(bitWords[0] ^ Math.imul(bitWords[1], 0x9e3779b1), 0x85ebca6b) >>> 7;
-    for (;;) {
-      slot &= mask;
-      const id = slots[slot];
-      if (id < 0) return slot;
-      const held = keys[id];
-      if (held === key || (held !== held && key !== key)) return slot;
-      slot++;
-    }
-  };
+  let table = new SlotTable(size);
+  let { mask, groups: slotGroups, keys: slotKeys } = table;
+  let previous = NaN;
+  let previousGroup = -1;
   for (let i = 0; i < n; i++) {
     const value = values[i];
     const key = value === 0 ? 0 : value;
-    const slot = slotOf(key);
-    let id = slots[slot];
-    if (id < 0) {
-      id = keys.length;
+    if (key === previous) {
+      of[i] = previousGroup;
+      continue;
+    }
+    let slot = slotHash(key) & mask;
+    let group = slotGroups[slot];
+    while (group >= 0) {
+      const held = slotKeys[slot];
+      if (held === key || (held !== held && key !== key)) break;
+      slot = (slot + 1) & mask;
+      group = slotGroups[slot];
+    }
+    if (group < 0) {
+      group = keys.length;
       keys.push(key);
-      slots[slot] = id;
-      if (2 * keys.length > size) {
-        size *= 4;
-        slots = new Int32Array(size).fill(-1);
-        for (let g = 0; g < keys.length; g++) slots[slotOf(keys[g])] = g;
+      slotGroups[slot] = group;
+      slotKeys[slot] = key;
+      if (2 * keys.length > mask + 1) {
+        table = grownTable(table, keys);
+        ({ mask, groups: slotGroups, keys: slotKeys } = table);
       }
     }
-    of[i] = id;
+    of[i] = group;
+    previous = key;
+    previousGroup = group;
   }
   const start = new Int32Array(keys.length + 1);
   for (let i = 0; i < n; i++) start[of[i] + 1]++;
   for (let g = 0; g < keys.length; g++) start[g + 1] += start[g];
-  const next = start.slice(0, keys.length);
-  const members = new Int32Array(n);
-  for (let i = 0; i < n; i++) members[next[of[i]]++] = i;
-  return { keys, start, members, of };
+  // Laid out when first asked for: a fit summarised by level reads its columns through `of` instead.
+  let members: Int32Array | null = null;
+  return {
+    keys,
+    start,
+    get members() {
+      return (members ??= membersByGroup(start, of));
+    },
+    of,
+  };
+}
+
+function membersByGroup(start: Int32Array, of: Int32Array): Int32Array {
+  const next = start.slice(0, start.length - 1);
+  const members = new Int32Array(of.length);
+  for (let i = 0; i < of.length; i++) members[next[of[i]]++] = i;
+  return members;
 }
 
 /** The column's values in group order (group 0's members first), so each group is one contiguous run. */
@@ -159,6 +210,90 @@ export function scratchColumns(n: number): Scratch {
 }
 
 /** Group ids sorted by their key, ascending. */
-export function sortedGroups(grouping: Grouping): number[] {
-  return grouping.keys.map((_, g) => g).sort((a, b) => grouping.keys[a] - grouping.keys[b]);
+export function sortedGroups(grouping: Grouping): readonly number[] {
+  let sorted = sortedOnce.get(grouping);
+  if (!sorted) sortedOnce.set(grouping, (sorted = grouping.keys.map((_, g) => g).sort((a, b) => grouping.keys[a] - grouping.keys[b])));
+  return sorted;
+}
+
+/** Each grouping's order is asked for by several sections; with many levels the sort is worth keeping. */
+const sortedOnce = new WeakMap<Grouping, number[]>();
+
+/** Per group (in the grouping's order): the summary of its values that fits on levels and per-level tests read. */
+export interface GroupSummary {
+  count: Float64Array;
+  /** What mean() and sumSquaredDeviations() give for the group's values (the same arithmetic, so the same numbers). */
+  mean: Float64Array;
+  ss: Float64Array;
+  /** Position of the group's first smallest and first largest value (−1 where every value is NaN). */
+  lowest: Int32Array;
+  highest: Int32Array;
+}
+
+/**
+ * Summarises each group of a column (in position order) in three passes through `of`: each group's sums add its values
+ * in the order of their positions, as mean() and sumSquaredDeviations() would over the group's values. With `passes`
+ * 2, the squares come from the correction pass, about the first mean: Σ(v − m₁)² − c²/n with c = Σ(v − m₁) (the
+ * corrected two-pass formula, as accurate, not the same rounding).
+ */
+export function summariseGroups(grouping: Grouping, column: ArrayLike<number>, passes: 2 | 3 = 3): GroupSummary {
+  const k = grouping.keys.length;
+  const { start, of } = grouping;
+  const n = of.length;
+  const count = new Float64Array(k);
+  const mean = new Float64Array(k);
+  const ss = new Float64Array(k);
+  const lowest = new Int32Array(k).fill(-1);
+  const highest = new Int32Array(k).fill(-1);
+  const low = new Float64Array(k).fill(Infinity);
+  const high = new Float64Array(k).fill(-Infinity);
+  const sums = new Float64Array(k);
+  for (let i = 0; i < n; i++) sums[of[i]] += column[i];
+  for (let g = 0; g < k; g++) {
+    count[g] = start[g + 1] - start[g];
+    mean[g] = sums[g] / count[g];
+  }
+  const corrections = sums.fill(0);
+  if (passes === 2) {
+    for (let i = 0; i < n; i++) {
+      const g = of[i];
+      const v = column[i];
+      const d = v - mean[g];
+      corrections[g] += d;
+      ss[g] += d * d;
+      if (v < low[g]) {
+        low[g] = v;
+        lowest[g] = i;
+      }
+      if (v > high[g]) {
+        high[g] = v;
+        highest[g] = i;
+      }
+    }
+    for (let g = 0; g < k; g++) {
+      ss[g] = Math.max(0, ss[g] - (corrections[g] * corrections[g]) / count[g]);
+      mean[g] += corrections[g] / count[g];
+    }
+    return { count, mean, ss, lowest, highest };
+  }
+  for (let i = 0; i < n; i++) {
+    const g = of[i];
+    corrections[g] += column[i] - mean[g];
+  }
+  for (let g = 0; g < k; g++) mean[g] += corrections[g] / count[g];
+  for (let i = 0; i < n; i++) {
+    const g = of[i];
+    const v = column[i];
+    const d = v - mean[g];
+    ss[g] += d * d;
+    if (v < low[g]) {
+      low[g] = v;
+      lowest[g] = i;
+    }
+    if (v > high[g]) {
+      high[g] = v;
+      highest[g] = i;
+    }
+  }
+  return { count, mean, ss, lowest, highest };
 }
