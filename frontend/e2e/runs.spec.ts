@@ -87,6 +87,10 @@ test('an analyst calibrates a run with two points, then with one point, and expo
   // Each sample is drawn where the table reads it: one diamond per sample on the line.
   await expect(plot(page).locator('.scatterlayer .trace').last().locator('.point')).toHaveCount(4);
   await shot(page, 'detail-two-point');
+  // Every column of the results, remarks included, fits the page: nothing to scroll sideways for.
+  const results = page.getByRole('table', { name: 'Sample results' });
+  await expect(results.getByRole('cell', { name: /below the LOQ/ })).toBeVisible();
+  expect(await results.evaluate((table) => table.parentElement!.scrollWidth <= table.parentElement!.clientWidth)).toBe(true);
 
   await page.getByRole('link', { name: 'New run from this one' }).click();
   await expect(page.getByRole('textbox', { name: 'Samples', exact: true })).toHaveValue(/W-2814/);

@@ -117,6 +117,8 @@ export function DataTable<TData extends RowData>({
                       textStyle="sectionLabel"
                       // Headers carry units (mg/L, µS·min) whose case is meaningful.
                       textTransform="none"
+                      // Long headers wrap rather than push the last columns out of sight (the scroll area keeps cells on one line).
+                      whiteSpace="normal"
                       letterSpacing="0.04em"
                       color="fg.muted"
                       py="3"
@@ -125,6 +127,7 @@ export function DataTable<TData extends RowData>({
                       {header.isPlaceholder ? null : canSort ? (
                         <SortButton
                           width="full"
+                          whiteSpace="nowrap"
                           onClick={header.column.getToggleSortingHandler()}
                           justifyContent={align === 'end' ? 'flex-end' : 'flex-start'}
                         >
