@@ -88,24 +88,12 @@ export interface FitPoint {
 }
 
 /** A fitted calibration: the result section plus what prediction and inversion need, by columns (one entry per used standard). */
-export interface CalibrationFit {
+export interface CalibrationFit extends Omit<UsedPoints, 'excluded'> {
   model: CalibrationModel;
   weighting: Weighting;
   confidence: number;
-  /** Position of each used standard in the study's `standards` array (null where none is excluded: the position itself). */
-  indices: Int32Array | null;
   /** The study index of the used standard at a position. */
   studyIndex: (position: number) => number;
-  xs: Float64Array;
-  ys: Float64Array;
-  /** SD of each standard (NaN where not given), read from the standards when first asked for. */
-  sds: () => Float64Array;
-  /** The standards grouped by x (the standard levels), in order of first appearance. */
-  levels: Grouping;
-  /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1] (laid out when first read). */
-  readonly levelYs: Float64Array;
-  /** The standards summarised by level when the fit is made on one row per level, else null. */
-  summary: LevelSummary | null;
   /** The fit's least-squares rows (per standard: its normalised weights, all 1 without weighting). */
   rows: FitRows;
   /** Columns of n numbers for the sections' own scratch work (nothing kept in them outlives the section that writes them). */
@@ -262,14 +250,19 @@ function fail(code: string, message: string, field = 'standards'): never {
   throw StudyValidationError.single(field, code, message);
 }
 
-interface UsedPoints {
+/** The standards a fit uses, by columns (one entry per used standard). */
+export interface UsedPoints {
+  /** Position of each used standard in the study's `standards` array (null where none is excluded: the position itself). */
   indices: Int32Array | null;
   xs: Float64Array;
   ys: Float64Array;
+  /** SD of each standard (NaN where not given), read from the standards when first asked for. */
   sds: () => Float64Array;
+  /** The standards grouped by x (the standard levels), in order of first appearance. */
   levels: Grouping;
-  /** ys in level order (see CalibrationFit.levelYs), laid out when first read. */
+  /** ys in level order: level g is levelYs[levels.start[g]] … levelYs[levels.start[g + 1] − 1] (laid out when first read). */
   readonly levelYs: Float64Array;
+  /** The standards summarised by level when the fit is made on one row per level, else null. */
   summary: LevelSummary | null;
   excluded: ExcludedStandard[];
 }

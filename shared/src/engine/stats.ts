@@ -254,37 +254,19 @@ export function summariseGroups(grouping: Grouping, column: ArrayLike<number>, p
     mean[g] = sums[g] / count[g];
   }
   const corrections = sums.fill(0);
-  if (passes === 2) {
+  if (passes === 3) {
     for (let i = 0; i < n; i++) {
       const g = of[i];
-      const v = column[i];
-      const d = v - mean[g];
-      corrections[g] += d;
-      ss[g] += d * d;
-      if (v < low[g]) {
-        low[g] = v;
-        lowest[g] = i;
-      }
-      if (v > high[g]) {
-        high[g] = v;
-        highest[g] = i;
-      }
+      corrections[g] += column[i] - mean[g];
     }
-    for (let g = 0; g < k; g++) {
-      ss[g] = Math.max(0, ss[g] - (corrections[g] * corrections[g]) / count[g]);
-      mean[g] += corrections[g] / count[g];
-    }
-    return { count, mean, ss, lowest, highest };
+    for (let g = 0; g < k; g++) mean[g] += corrections[g] / count[g];
+    corrections.fill(0);
   }
-  for (let i = 0; i < n; i++) {
-    const g = of[i];
-    corrections[g] += column[i] - mean[g];
-  }
-  for (let g = 0; g < k; g++) mean[g] += corrections[g] / count[g];
   for (let i = 0; i < n; i++) {
     const g = of[i];
     const v = column[i];
     const d = v - mean[g];
+    corrections[g] += d;
     ss[g] += d * d;
     if (v < low[g]) {
       low[g] = v;
@@ -293,6 +275,12 @@ export function summariseGroups(grouping: Grouping, column: ArrayLike<number>, p
     if (v > high[g]) {
       high[g] = v;
       highest[g] = i;
+    }
+  }
+  if (passes === 2) {
+    for (let g = 0; g < k; g++) {
+      ss[g] = Math.max(0, ss[g] - (corrections[g] * corrections[g]) / count[g]);
+      mean[g] += corrections[g] / count[g];
     }
   }
   return { count, mean, ss, lowest, highest };

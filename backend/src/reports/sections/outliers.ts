@@ -50,6 +50,19 @@ function reasonOf(entry: Exclusion): string {
   return NOT_AVAILABLE;
 }
 
+/** The excluded rows of one data set, as the table of excluded replicate results lists them. */
+function excludedRows<T>(
+  set: string,
+  rows: readonly T[] | undefined,
+  exclusionOf: (row: T) => { reason: string } | null | undefined,
+  shown: (row: T) => { what: string; value: string },
+): { set: string; what: string; index: number; value: string; reason: string }[] {
+  return (rows ?? []).flatMap((row, index) => {
+    const excluded = exclusionOf(row);
+    return excluded ? [{ set, index, reason: excluded.reason, ...shown(row) }] : [];
+  });
+}
+
 function exclusions(pdf: PdfComposer, content: ReportContent): void {
   pdf.heading(numbered('outliers', 'Excluded points', 2), 2);
   const excluded = (content.study.data.standards ?? []).flatMap((p, index) =>
@@ -61,75 +74,36 @@ function exclusions(pdf: PdfComposer, content: ReportContent): void {
       return entry.action.endsWith('excluded') && point?.set === set && point.index === index;
     });
   const data = content.study.data;
-  const withUnit = (value: number) => `${formatNumber(value, 5)} ${xUnit(content)}`;
+  const inX = (value: number) => `${formatNumber(value, 5)} ${xUnit(content)}`;
   const replicates = [
-    ...(data.blanks ?? []).flatMap((b, index) =>
-      typeof b !== 'number' && b.excluded
-        ? [
-            {
-              set: 'blanks',
-              what: EXCLUDED_DETECTION_ROW_WORDS.blanks,
-              index,
-              value: `${formatNumber(b.value, 5)} ${yUnit(content)}`,
-              reason: b.excluded.reason,
-            },
-          ]
-        : [],
+    ...excludedRows(
+      'blanks',
+      data.blanks,
+      (b) => (typeof b === 'number' ? null : b.excluded),
+      (b) => ({
+        what: EXCLUDED_DETECTION_ROW_WORDS.blanks,
+        value: `${formatNumber(typeof b === 'number' ? b : b.value, 5)} ${yUnit(content)}`,
+      }),
     ),
-    ...(data.lowSpikes?.spiked ?? []).flatMap((s, index) => {
-      const excluded = lowSpikeExclusion(s);
-      return excluded
-        ? [
-            {
-              set: 'lowSpikes.spiked',
-              what: EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.spiked'],
-              index,
-              value: withUnit(spikeValue(s)),
-              reason: excluded.reason,
-            },
-          ]
-        : [];
-    }),
-    ...(data.lowSpikes?.blanks ?? []).flatMap((b, index) => {
-      const excluded = lowSpikeExclusion(b);
+    ...excludedRows('lowSpikes.spiked', data.lowSpikes?.spiked, lowSpikeExclusion, (s) => ({
+      what: EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.spiked'],
+      value: inX(spikeValue(s)),
+    })),
+    ...excludedRows('lowSpikes.blanks', data.lowSpikes?.blanks, lowSpikeExclusion, (b) => {
       const value = mdlBlankValue(b);
-      return excluded
-        ? [
-            {
-              set: 'lowSpikes.blanks',
-              what: EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.blanks'],
-              index,
-              value: value === null ? NOT_DETECTED_WORDS : withUnit(value),
-              reason: excluded.reason,
-            },
-          ]
-        : [];
+      return { what: EXCLUDED_DETECTION_ROW_WORDS['lowSpikes.blanks'], value: value === null ? NOT_DETECTED_WORDS : inX(value) };
     }),
-    ...(data.recovery ?? []).flatMap((r, index) =>
-      r.excluded
-        ? [
-            {
-              set: 'recovery',
-              what: `Recovery, ${r.id}`,
-              index,
-              value: `${formatNumber(r.found, 5)} ${xUnit(content)}`,
-              reason: r.excluded.reason,
-            },
-          ]
-        : [],
+    ...excludedRows(
+      'recovery',
+      data.recovery,
+      (r) => r.excluded,
+      (r) => ({ what: `Recovery, ${r.id}`, value: inX(r.found) }),
     ),
-    ...(data.precision ?? []).flatMap((p, index) =>
-      p.excluded
-        ? [
-            {
-              set: 'precision',
-              what: `Precision, series ${p.group}`,
-              index,
-              value: `${formatNumber(p.value, 5)} ${xUnit(content)}`,
-              reason: p.excluded.reason,
-            },
-          ]
-        : [],
+    ...excludedRows(
+      'precision',
+      data.precision,
+      (p) => p.excluded,
+      (p) => ({ what: `Precision, series ${p.group}`, value: inX(p.value) }),
     ),
   ];
   if (!excluded.length && !replicates.length) {

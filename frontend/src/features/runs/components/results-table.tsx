@@ -17,7 +17,7 @@ function columnsFor(xUnit: string, yUnit: string, confidencePct: number) {
             {info.getValue()}
           </Text>
           {info.row.original.dilution !== 1 && (
-            <Text fontSize="xs" color="fg.muted">
+            <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
               dilution factor {formatNumber(info.row.original.dilution, 4)} included
             </Text>
           )}
@@ -45,7 +45,7 @@ function columnsFor(xUnit: string, yUnit: string, confidencePct: number) {
         return (
           <Stack gap="0" align="flex-end">
             <Text whiteSpace="nowrap">{rounded ? `${rounded.value} ± ${rounded.halfWidth}` : formatNumber(info.getValue(), 3)}</Text>
-            <Text fontSize="xs" color="fg.muted" textAlign="end">
+            <Text fontSize="xs" color="fg.muted" whiteSpace="nowrap">
               {expanded
                 ? `expanded uncertainty U, k = ${expanded.coverageFactor}`
                 : rounded
